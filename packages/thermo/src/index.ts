@@ -1,0 +1,3 @@
+export * from './types.js'
+export * from './errors.js'
+export * from './units.js'
