@@ -1,0 +1,291 @@
+/**
+ * Tables of the lab workflow, typed for Kysely (see db/migrations/20261201_02_lab_data.ts).
+ * Quantities in SI: temperatures in K, pressures in Pa, compositions as mole fractions of component 1.
+ */
+import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely'
+
+type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>
+/** jsonb: written as a JSON string or value, read back parsed. */
+type Json<T> = ColumnType<T, T | string, T | string>
+
+export type DataSetState = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
+export type SignatureMeaning = 'approved' | 'returned for rework'
+
+export interface ComponentTable {
+  id: Generated<string>
+  name: string
+  cas_number: string | null
+  formula: string | null
+  /** g/mol */
+  molar_mass: number
+  /** cm³/mol at about 25 °C */
+  liquid_molar_volume: number | null
+  created_by: string | null
+  created_at: Generated<Timestamp>
+  row_version: Generated<number>
+}
+
+export interface VaporPressureSetTable {
+  id: Generated<string>
+  component_id: string
+  kind: 'antoine' | 'clausius-clapeyron'
+  /** thermo's VaporPressureModel, as published */
+  parameters: Json<Record<string, unknown>>
+  range_min: number | null
+  range_max: number | null
+  range_unit: 'C' | 'K' | null
+  source: string
+  preferred: Generated<boolean>
+  entered_by: string | null
+  created_at: Generated<Timestamp>
+}
+
+export interface PureMeasurementTable {
+  id: Generated<string>
+  component_id: string
+  temperature_k: number
+  pressure_pa: number
+  note: string | null
+  measured_by: string | null
+  created_at: Generated<Timestamp>
+}
+
+export interface BinarySystemTable {
+  id: Generated<string>
+  component1_id: string
+  component2_id: string
+  notes: string | null
+  created_by: string | null
+  created_at: Generated<Timestamp>
+}
+
+export interface GcMethodTable {
+  id: Generated<string>
+  name: string
+  detector: 'FID' | 'TCD'
+  column_description: string | null
+  conditions: string | null
+  created_by: string | null
+  created_at: Generated<Timestamp>
+}
+
+export interface UploadTable {
+  id: Generated<string>
+  kind: 'calibration' | 'run'
+  original_name: string
+  content_type: string
+  size_bytes: number
+  sha256: string
+  content: Buffer
+  uploaded_by: string
+  uploaded_at: Generated<Timestamp>
+  data_set_id: string | null
+}
+
+export interface CalibrationTable {
+  id: Generated<string>
+  gc_method_id: string
+  system_id: string
+  model: 'response-factor' | 'linear' | 'quadratic'
+  /** thermo's fitCalibration result */
+  result: Json<Record<string, unknown>>
+  range_min: number
+  range_max: number
+  status: Generated<'active' | 'retired'>
+  upload_id: string
+  created_by: string
+  created_at: Generated<Timestamp>
+  retired_at: Timestamp | null
+}
+
+export interface CalibrationStandardTable {
+  id: Generated<string>
+  calibration_id: string
+  label: string
+  basis: 'mole' | 'mass'
+  fraction1: number
+  x1: number
+}
+
+export interface CalibrationInjectionTable {
+  id: Generated<string>
+  standard_id: string
+  injection_no: number
+  area1: number
+  area2: number
+  row_ref: number
+}
+
+export interface DataSetTable {
+  id: Generated<string>
+  lineage_id: string
+  version: Generated<number>
+  previous_version_id: string | null
+  system_id: string
+  title: string
+  state: Generated<DataSetState>
+  nominal_pressure_pa: number
+  apparatus_notes: string | null
+  project_ref: string | null
+  recommended_fit_id: string | null
+  created_by: string
+  created_at: Generated<Timestamp>
+  updated_at: Generated<Timestamp>
+  submitted_at: Timestamp | null
+  approved_at: Timestamp | null
+  superseded_at: Timestamp | null
+  row_version: Generated<number>
+}
+
+export interface PointTable {
+  id: Generated<string>
+  data_set_id: string
+  seq: number
+  sample_label: string
+  temperature_k: number
+  pressure_pa: number
+  x1: number
+  x1_uncertainty: number
+  y1: number
+  y1_uncertainty: number
+  excluded: Generated<boolean>
+  exclusion_reason: string | null
+  upload_id: string | null
+  calibration_id: string | null
+  /** line numbers of the raw rows in the uploaded file */
+  row_refs: number[]
+  created_at: Generated<Timestamp>
+}
+
+export interface PointInjectionTable {
+  id: Generated<string>
+  point_id: string
+  phase: 'liquid' | 'vapour'
+  injection_no: number
+  area1: number
+  area2: number
+  row_ref: number
+}
+
+export interface FitTable {
+  id: Generated<string>
+  data_set_id: string
+  model: 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+  options: Json<Record<string, unknown>>
+  activity: Json<Record<string, unknown>>
+  parameters: Json<{ name: string; value: number; standardError: number }[]>
+  statistics: Json<Record<string, unknown>>
+  residuals: Json<Record<string, unknown>[]>
+  point_ids: string[]
+  run_by: string
+  run_at: Generated<Timestamp>
+}
+
+export interface ConsistencyResultTable {
+  id: Generated<string>
+  data_set_id: string
+  test: 'herington-area' | 'point'
+  passed: boolean
+  result: Json<Record<string, unknown>>
+  run_by: string
+  run_at: Generated<Timestamp>
+}
+
+export interface CommentTable {
+  id: Generated<string>
+  data_set_id: string
+  point_id: string | null
+  parent_id: string | null
+  author_id: string
+  body: string
+  resolved: Generated<boolean>
+  resolved_by: string | null
+  resolved_at: Timestamp | null
+  created_at: Generated<Timestamp>
+}
+
+export interface ApprovalTable {
+  id: Generated<string>
+  data_set_id: string
+  signer_id: string
+  meaning: SignatureMeaning
+  reason: string
+  /** SHA-256 (hex) of the canonical signed content */
+  digest: string
+  self_approval: Generated<boolean>
+  override_reason: string | null
+  signed_at: Generated<Timestamp>
+}
+
+export interface AuditLogTable {
+  id: Generated<string>
+  at: Generated<Timestamp>
+  actor_id: string | null
+  entity: string
+  entity_id: string
+  action: string
+  data_set_id: string | null
+  before: Json<unknown> | null
+  after: Json<unknown> | null
+}
+
+/** Every lab table, merged into the app's Database interface. */
+export interface LabTables {
+  component: ComponentTable
+  vapor_pressure_set: VaporPressureSetTable
+  pure_measurement: PureMeasurementTable
+  binary_system: BinarySystemTable
+  gc_method: GcMethodTable
+  upload: UploadTable
+  calibration: CalibrationTable
+  calibration_standard: CalibrationStandardTable
+  calibration_injection: CalibrationInjectionTable
+  data_set: DataSetTable
+  point: PointTable
+  point_injection: PointInjectionTable
+  fit: FitTable
+  consistency_result: ConsistencyResultTable
+  comment: CommentTable
+  approval: ApprovalTable
+  audit_log: AuditLogTable
+}
+
+export type Component = Selectable<ComponentTable>
+export type NewComponent = Insertable<ComponentTable>
+export type ComponentUpdate = Updateable<ComponentTable>
+export type VaporPressureSet = Selectable<VaporPressureSetTable>
+export type NewVaporPressureSet = Insertable<VaporPressureSetTable>
+export type PureMeasurement = Selectable<PureMeasurementTable>
+export type NewPureMeasurement = Insertable<PureMeasurementTable>
+export type BinarySystemRow = Selectable<BinarySystemTable>
+export type NewBinarySystem = Insertable<BinarySystemTable>
+export type GcMethod = Selectable<GcMethodTable>
+export type NewGcMethod = Insertable<GcMethodTable>
+export type Upload = Selectable<UploadTable>
+export type NewUpload = Insertable<UploadTable>
+export type Calibration = Selectable<CalibrationTable>
+export type NewCalibration = Insertable<CalibrationTable>
+export type CalibrationUpdate = Updateable<CalibrationTable>
+export type CalibrationStandard = Selectable<CalibrationStandardTable>
+export type NewCalibrationStandard = Insertable<CalibrationStandardTable>
+export type CalibrationInjection = Selectable<CalibrationInjectionTable>
+export type NewCalibrationInjection = Insertable<CalibrationInjectionTable>
+export type DataSet = Selectable<DataSetTable>
+export type NewDataSet = Insertable<DataSetTable>
+export type DataSetUpdate = Updateable<DataSetTable>
+export type Point = Selectable<PointTable>
+export type NewPoint = Insertable<PointTable>
+export type PointUpdate = Updateable<PointTable>
+export type PointInjection = Selectable<PointInjectionTable>
+export type NewPointInjection = Insertable<PointInjectionTable>
+export type Fit = Selectable<FitTable>
+export type NewFit = Insertable<FitTable>
+export type ConsistencyResult = Selectable<ConsistencyResultTable>
+export type NewConsistencyResult = Insertable<ConsistencyResultTable>
+export type Comment = Selectable<CommentTable>
+export type NewComment = Insertable<CommentTable>
+export type CommentUpdate = Updateable<CommentTable>
+export type Approval = Selectable<ApprovalTable>
+export type NewApproval = Insertable<ApprovalTable>
+export type AuditEntry = Selectable<AuditLogTable>
+export type NewAuditEntry = Insertable<AuditLogTable>
