@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest'
+import { parseRunFile } from './run-file.js'
+
+const HEADER = 'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit'
+
+describe('parseRunFile', () => {
+  it('gathers liquid and vapour injections per sample and converts T and P to SI', () => {
+    const text = [
+      HEADER,
+      'S01,liquid,1,3000,7000,70.5,C,101.3,kPa',
+      'S01,liquid,2,3010,6990,,,,',
+      'S01,vapour,1,4500,5500,70.5,C,101.3,kPa',
+      'S01,vapour,2,4490,5510,,,,',
+    ].join('\n')
+    const p = parseRunFile(text)
+    expect(p.problems).toEqual([])
+    expect(p.samples).toHaveLength(1)
+    const s = p.samples[0]
+    expect(s.temperatureK).toBeCloseTo(343.65, 10) // 70.5 °C + 273.15 (SI definition of the kelvin)
+    expect(s.pressurePa).toBeCloseTo(101300, 6)
+    expect(s.liquid.map((i) => i.row)).toEqual([2, 3])
+    expect(s.vapour).toHaveLength(2)
+    expect(s.rows).toEqual([2, 3, 4, 5])
+  })
+
+  it('accepts mmHg, K and short phase names in any case', () => {
+    const text = [HEADER, 'S1,L,1,1,1,350,k,760,TORR', 'S1,V,1,2,1,,,,', 'S2,liquid,1,1,1,350,K,760,MMHG', 'S2,Vapor,1,2,1,,,,'].join('\n')
+    const p = parseRunFile(text)
+    expect(p.problems).toEqual([])
+    // 760 Torr = 101325 Pa exactly; 1 mmHg = 133.322387415 Pa (BIPM SI Brochure, 9th ed., 2019, Table 8)
+    expect(p.samples[0].pressurePa).toBeCloseTo(101325, 6)
+    expect(p.samples[1].pressurePa).toBeCloseTo(760 * 133.322387415, 6)
+  })
+
+  it('reads a ;-delimited export with decimal commas and extra columns', () => {
+    const text = `Sample;Phase;Injection;Area_1;Area_2;T_boil;T_unit;P_baro;P_unit;Operator\nS1;liquid;1;10,5;20;64,2;C;99,8;kPa;mk\nS1;vapour;1;12;18;;;;;mk\n`
+    const p = parseRunFile(text)
+    expect(p.problems).toEqual([])
+    expect(p.extraColumns).toEqual(['Operator'])
+    expect(p.samples[0].liquid[0].area1).toBe(10.5)
+    expect(p.samples[0].pressurePa).toBeCloseTo(99800, 6)
+  })
+
+  it('lists every problem with row, column, value and message', () => {
+    const text = [
+      HEADER,
+      'S1,liquid,1,0,10,70,C,101.3,kPa',
+      'S1,,1,5,5,,,,',
+      'S1,steam,2,5,5,,,,',
+      'S2,liquid,1,5,5,900,C,101.3,kPa',
+      'S2,vapour,1,5,5,,,,',
+      'S3,liquid,1,5,5,70,C,101.3,kPa',
+      'S4,liquid,1,5,5,70,C,12,furlong',
+      'S4,vapour,1,5,5,71,C,,',
+      'S4,vapour,1,5,5,,,,',
+    ].join('\n')
+    const p = parseRunFile(text)
+    expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
+      [2, 'area_1', '0', 'Peak area must be greater than zero.'],
+      [3, 'phase', '', 'Phase is missing; use liquid or vapour.'],
+      [4, 'phase', 'steam', 'Phase must be liquid or vapour.'],
+      [5, 't_boil', '900', 'Boiling temperature 1173.15 K is outside the plausible range 150–650 K.'],
+      [7, 'phase', 'S3', 'Sample S3 has liquid injections but no vapour injection.'],
+      [8, 'p_unit', 'furlong', 'Unknown pressure unit; use Pa, kPa, MPa, bar, mbar, atm, mmHg, torr or psi.'],
+      [8, 'p_baro', null, 'Sample S4 has no pressure.'],
+      [9, 't_boil', '71', 'Sample S4 has a different temperature on line 8.'],
+      [10, 'injection', '1', 'Injection 1 of the vapour of sample S4 appears twice.'],
+    ])
+    expect(p.samples).toEqual([])
+  })
+
+  it('lists every missing required column', () => {
+    const p = parseRunFile('sample,phase,area_1,area_2\nS1,liquid,1,1\n')
+    expect(p.problems.map((x) => x.message)).toEqual([
+      'Required column "injection" is missing.',
+      'Required column "t_boil" is missing.',
+      'Required column "t_unit" is missing.',
+      'Required column "p_baro" is missing.',
+      'Required column "p_unit" is missing.',
+    ])
+  })
+})
