@@ -1,0 +1,5 @@
+import type { AuthTables } from './auth-tables.js'
+import type { LabTables } from './lab-tables.js'
+
+/** Every table Ebullio reads or writes, typed for Kysely. */
+export interface Database extends AuthTables, LabTables {}

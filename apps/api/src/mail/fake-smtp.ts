@@ -1,0 +1,40 @@
+import { simpleParser } from 'mailparser'
+import { SMTPServer } from 'smtp-server'
+import type { Kysely } from 'kysely'
+import type { Database } from '../db/index.js'
+
+/**
+ * A local SMTP server for development and tests: it accepts every message on loopback and stores it in
+ * `captured_mail`, where admins can read it in the app and tests can follow its links.
+ */
+export async function startFakeSmtp(db: Kysely<Database>, port: number, host = '127.0.0.1'): Promise<{ port: number; close: () => Promise<void> }> {
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    banner: 'Ebullio mail capture',
+    logger: false,
+    onData(stream, session, callback) {
+      simpleParser(stream)
+        .then(async (mail) => {
+          await db
+            .insertInto('captured_mail')
+            .values({
+              envelope_from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+              envelope_to: session.envelope.rcptTo.map((r) => r.address).join(', '),
+              subject: mail.subject ?? '',
+              body_text: mail.text ?? '',
+            })
+            .execute()
+          callback()
+        })
+        .catch((err: Error) => callback(err))
+    },
+  })
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject)
+    server.listen(port, host, () => resolve())
+  })
+  const address = server.server.address()
+  const actual = typeof address === 'object' && address ? address.port : port
+  return { port: actual, close: () => new Promise((r) => server.close(() => r())) }
+}

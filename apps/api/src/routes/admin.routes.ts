@@ -1,0 +1,75 @@
+import { inviteSchema, setRolesSchema } from '@ebullio/schemas'
+import { z } from 'zod'
+import { ctx } from '../context.js'
+import { notFound } from '../errors/index.js'
+import { listUsers } from '../repositories/users.repository.js'
+import * as service from '../services/users.service.js'
+import { defineRoutes } from './define.js'
+import { parseBody, parseParams } from './validate.js'
+
+const idParams = z.object({ id: z.string().uuid('Not a user id') })
+
+export const adminRoutes = defineRoutes([
+  {
+    method: 'get',
+    path: '/api/admin/users',
+    access: ['admin'],
+    handler: async (req, res) => {
+      res.json({ items: await listUsers(ctx(req).db) })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/admin/users',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, config, user, mailer } = ctx(req)
+      const body = parseBody(inviteSchema, req)
+      const id = await service.inviteUser(db, config, user.displayName, body)
+      void mailer.deliverPending().catch(() => {})
+      res.status(201).json({ id })
+    },
+  },
+  {
+    method: 'put',
+    path: '/api/admin/users/:id/roles',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      await service.assignRoles(db, user.id, id, parseBody(setRolesSchema, req).roles)
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/admin/users/:id/deactivate',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, user, sessions } = ctx(req)
+      await service.setActive(db, sessions, user.id, parseParams(idParams, req).id, false)
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/admin/users/:id/activate',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, user, sessions } = ctx(req)
+      await service.setActive(db, sessions, user.id, parseParams(idParams, req).id, true)
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/dev/mail',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, config } = ctx(req)
+      if (config.nodeEnv === 'production') throw notFound('The mail capture exists only in development and test mode.')
+      const items = await db.selectFrom('captured_mail').selectAll().orderBy('id', 'desc').limit(200).execute()
+      res.json({ items })
+    },
+  },
+])

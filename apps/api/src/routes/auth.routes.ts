@@ -1,0 +1,112 @@
+import {
+  acceptInviteSchema,
+  changePasswordSchema,
+  forgotPasswordSchema,
+  resetPasswordSchema,
+  signInSchema,
+} from '@ebullio/schemas'
+import { z } from 'zod'
+import { ctx } from '../context.js'
+import * as service from '../services/users.service.js'
+import { defineRoutes } from './define.js'
+import { parseBody, parseParams } from './validate.js'
+
+const preferencesSchema = z.object({ notifyMail: z.boolean() })
+
+export const authRoutes = defineRoutes([
+  {
+    method: 'post',
+    path: '/api/auth/sign-in',
+    access: 'public',
+    handler: async (req, res) => {
+      const { email, password } = parseBody(signInSchema, req)
+      const { db, sessions } = req.ctx
+      const userId = await service.authenticate(db, email, password)
+      res.append('Set-Cookie', await sessions.create(userId))
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/sign-out',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      await req.ctx.sessions.end(req.headers.cookie)
+      res.append('Set-Cookie', req.ctx.sessions.blankCookie())
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/auth/me',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      const { user, db } = ctx(req)
+      const row = await db.selectFrom('app_user').select('notify_mail').where('id', '=', user.id).executeTakeFirstOrThrow()
+      res.json({ user: { ...user, notifyMail: row.notify_mail }, devMode: req.ctx.config.nodeEnv !== 'production' })
+    },
+  },
+  {
+    method: 'patch',
+    path: '/api/auth/me/preferences',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      const { user, db } = ctx(req)
+      const { notifyMail } = parseBody(preferencesSchema, req)
+      await db.updateTable('app_user').set({ notify_mail: notifyMail }).where('id', '=', user.id).execute()
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/change-password',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      const { user, db } = ctx(req)
+      const body = parseBody(changePasswordSchema, req)
+      await service.changePassword(db, user.id, body.currentPassword, body.newPassword)
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/forgot-password',
+    access: 'public',
+    handler: async (req, res) => {
+      const { email } = parseBody(forgotPasswordSchema, req)
+      await service.requestPasswordReset(req.ctx.db, req.ctx.config, email)
+      void req.ctx.mailer.deliverPending().catch(() => {})
+      res.json({ ok: true, message: 'If this address belongs to an account, a reset link is on its way.' })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/reset-password',
+    access: 'public',
+    handler: async (req, res) => {
+      const { token, password } = parseBody(resetPasswordSchema, req)
+      await service.resetPassword(req.ctx.db, req.ctx.sessions, token, password)
+      res.json({ ok: true })
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/auth/invites/:token',
+    access: 'public',
+    handler: async (req, res) => {
+      const { token } = parseParams(z.object({ token: z.string().min(20).max(200) }), req)
+      res.json(await service.peekInvite(req.ctx.db, token))
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/accept-invite',
+    access: 'public',
+    handler: async (req, res) => {
+      const { token, password } = parseBody(acceptInviteSchema, req)
+      const userId = await service.acceptInvite(req.ctx.db, token, password)
+      res.append('Set-Cookie', await req.ctx.sessions.create(userId))
+      res.json({ ok: true })
+    },
+  },
+])

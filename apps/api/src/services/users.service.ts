@@ -1,0 +1,144 @@
+import { randomUUID } from 'node:crypto'
+import type { Role } from '@ebullio/schemas'
+import type { Kysely } from 'kysely'
+import { dummyHash, hashPassword, verifyPassword, type Sessions } from '../auth/index.js'
+import { hashToken, newToken } from '../auth/tokens.js'
+import type { Config } from '../config.js'
+import type { Database, Db } from '../db/index.js'
+import { AppError, badRequest, conflict, notFound } from '../errors/index.js'
+import { enqueueMail } from '../mail/outbox.js'
+import * as users from '../repositories/users.repository.js'
+
+const BAD_SIGN_IN = 'The e-mail address or password is not correct, or the account is not active.'
+const BAD_LINK = 'This link is not valid any more. It may have been used already or have expired; ask for a new one.'
+
+/** Check a password; the same message and about the same time whether or not the e-mail exists. */
+export async function authenticate(db: Db, email: string, password: string): Promise<string> {
+  const u = await users.findUserByEmail(db, email)
+  const ok = await verifyPassword(u?.password_hash ?? (await dummyHash()), password)
+  if (!u || !ok || !u.active) throw new AppError(401, 'invalid_credentials', BAD_SIGN_IN)
+  return u.id
+}
+
+export async function createUser(
+  db: Db,
+  o: { email: string; displayName: string; roles: Role[]; password?: string },
+): Promise<string> {
+  if (await users.findUserByEmail(db, o.email)) throw conflict('A user with this e-mail address already exists.')
+  const id = randomUUID()
+  await db
+    .insertInto('app_user')
+    .values({ id, email: o.email.toLowerCase(), display_name: o.displayName, password_hash: o.password ? await hashPassword(o.password) : null })
+    .execute()
+  await users.setRoles(db, id, o.roles)
+  return id
+}
+
+async function issueToken(db: Db, table: 'invite' | 'password_reset', userId: string, minutes: number): Promise<string> {
+  const { token, tokenHash } = newToken()
+  await db.insertInto(table).values({ token_hash: tokenHash, user_id: userId, expires_at: new Date(Date.now() + minutes * 60_000) }).execute()
+  return token
+}
+
+export async function inviteUser(
+  db: Kysely<Database>,
+  config: Config,
+  invitedBy: string,
+  o: { email: string; displayName: string; roles: Role[] },
+): Promise<string> {
+  return db.transaction().execute(async (tx) => {
+    const id = await createUser(tx, o)
+    const token = await issueToken(tx, 'invite', id, config.inviteHours * 60)
+    await enqueueMail(tx, {
+      to: o.email,
+      subject: 'You are invited to Ebullio',
+      text:
+        `Hello ${o.displayName},\n\n${invitedBy} has given you an Ebullio account.\n` +
+        `Choose your password here (the link works once, for ${config.inviteHours} hours):\n\n` +
+        `${config.publicUrl}/welcome/${token}\n\nIf you did not expect this message, ignore it.\n`,
+    })
+    return id
+  })
+}
+
+/** Consume a single-use token: returns its user, or throws the same message for unknown, used and expired links. */
+async function consumeToken(db: Db, table: 'invite' | 'password_reset', token: string): Promise<string> {
+  const row = await db
+    .updateTable(table)
+    .set({ used_at: new Date() })
+    .where('token_hash', '=', hashToken(token))
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', new Date())
+    .returning('user_id')
+    .executeTakeFirst()
+  if (!row) throw new AppError(400, 'invalid_link', BAD_LINK)
+  return row.user_id
+}
+
+export async function peekInvite(db: Db, token: string): Promise<{ email: string; displayName: string }> {
+  const row = await db
+    .selectFrom('invite')
+    .innerJoin('app_user', 'app_user.id', 'invite.user_id')
+    .select(['app_user.email', 'app_user.display_name'])
+    .where('token_hash', '=', hashToken(token))
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', new Date())
+    .executeTakeFirst()
+  if (!row) throw new AppError(400, 'invalid_link', BAD_LINK)
+  return { email: row.email, displayName: row.display_name }
+}
+
+export async function acceptInvite(db: Kysely<Database>, token: string, password: string): Promise<string> {
+  const passwordHash = await hashPassword(password)
+  return db.transaction().execute(async (tx) => {
+    const userId = await consumeToken(tx, 'invite', token)
+    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', userId).execute()
+    return userId
+  })
+}
+
+/** Mail a reset link when the address belongs to an active account; say nothing either way. */
+export async function requestPasswordReset(db: Kysely<Database>, config: Config, email: string): Promise<void> {
+  const u = await users.findUserByEmail(db, email)
+  if (!u || !u.active || !u.password_hash) return
+  await db.transaction().execute(async (tx) => {
+    const token = await issueToken(tx, 'password_reset', u.id, config.resetMinutes)
+    await enqueueMail(tx, {
+      to: u.email,
+      subject: 'Reset your Ebullio password',
+      text:
+        `Hello ${u.display_name},\n\nSomeone (we hope you) asked to reset your Ebullio password.\n` +
+        `Choose a new one here (the link works once, for ${config.resetMinutes} minutes):\n\n` +
+        `${config.publicUrl}/reset-password/${token}\n\nIf it was not you, ignore this message: your password stays as it is.\n`,
+    })
+  })
+}
+
+export async function resetPassword(db: Kysely<Database>, sessions: Sessions, token: string, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password)
+  const userId = await db.transaction().execute(async (tx) => {
+    const id = await consumeToken(tx, 'password_reset', token)
+    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', id).execute()
+    return id
+  })
+  await sessions.endAllFor(userId)
+}
+
+export async function changePassword(db: Db, userId: string, current: string, next: string): Promise<void> {
+  const u = await users.findUserById(db, userId)
+  if (!u || !(await verifyPassword(u.password_hash, current))) throw badRequest('Your current password is not correct.')
+  await db.updateTable('app_user').set({ password_hash: await hashPassword(next), updated_at: new Date() }).where('id', '=', userId).execute()
+}
+
+export async function setActive(db: Db, sessions: Sessions, actorId: string, userId: string, active: boolean): Promise<void> {
+  if (actorId === userId && !active) throw badRequest('You cannot deactivate your own account.')
+  const r = await db.updateTable('app_user').set({ active, updated_at: new Date() }).where('id', '=', userId).executeTakeFirst()
+  if (Number(r.numUpdatedRows) === 0) throw notFound('No such user.')
+  if (!active) await sessions.endAllFor(userId)
+}
+
+export async function assignRoles(db: Db, actorId: string, userId: string, roles: Role[]): Promise<void> {
+  if (!(await users.findUserById(db, userId))) throw notFound('No such user.')
+  if (actorId === userId && !roles.includes('admin')) throw badRequest('You cannot remove your own administrator role.')
+  await users.setRoles(db, userId, [...new Set(roles)])
+}

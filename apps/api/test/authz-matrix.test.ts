@@ -1,0 +1,70 @@
+import { ROLES, type Role } from '@ebullio/schemas'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Access } from '../src/routes/define.js'
+import { allRoutes } from '../src/routes/index.js'
+import { agent, createTestContext, createUser, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
+
+/**
+ * Who may call each route. Every route in `allRoutes` must be listed here: add new routes to this table.
+ * 'public' = anyone; 'authenticated' = any signed-in user; a list = holders of at least one of those roles.
+ */
+const expected: Record<string, Access> = {
+  'POST /api/auth/sign-in': 'public',
+  'POST /api/auth/sign-out': 'authenticated',
+  'GET /api/auth/me': 'authenticated',
+  'PATCH /api/auth/me/preferences': 'authenticated',
+  'POST /api/auth/change-password': 'authenticated',
+  'POST /api/auth/forgot-password': 'public',
+  'POST /api/auth/reset-password': 'public',
+  'GET /api/auth/invites/:token': 'public',
+  'POST /api/auth/accept-invite': 'public',
+  'GET /api/admin/users': ['admin'],
+  'POST /api/admin/users': ['admin'],
+  'PUT /api/admin/users/:id/roles': ['admin'],
+  'POST /api/admin/users/:id/deactivate': ['admin'],
+  'POST /api/admin/users/:id/activate': ['admin'],
+  'GET /api/dev/mail': ['admin'],
+  'GET /api/health': 'public',
+}
+
+const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`
+const concrete = (path: string) =>
+  path.replace(/:(\w+)/g, (_m, name: string) => (name === 'token' ? 'x'.repeat(40) : '00000000-0000-4000-8000-000000000000'))
+
+let t: TestContext
+const agents: Partial<Record<Role, Awaited<ReturnType<typeof signedInAgent>>>> = {}
+beforeAll(async () => {
+  t = await createTestContext()
+  await resetDatabase(t.db)
+  for (const role of ROLES) {
+    await createUser(t.db, { email: `${role}@matrix.test`, roles: [role] })
+    agents[role] = await signedInAgent(t.app, `${role}@matrix.test`)
+  }
+})
+afterAll(() => t.close())
+
+describe('authorization matrix', () => {
+  it('lists every route', () => {
+    const missing = allRoutes.map(key).filter((k) => !(k in expected))
+    expect(missing, 'routes missing from the authorization matrix').toEqual([])
+    const stale = Object.keys(expected).filter((k) => !allRoutes.some((r) => key(r) === k))
+    expect(stale, 'matrix entries for routes that no longer exist').toEqual([])
+  })
+
+  for (const route of allRoutes) {
+    const access = expected[key(route)]
+    if (!access || key(route) === 'POST /api/auth/sign-out') continue
+    it(`${key(route)} is ${Array.isArray(access) ? access.join('|') : access}`, async () => {
+      const call = (a: ReturnType<typeof agent>) => a[route.method](concrete(route.path)).send({})
+      const anon = await call(agent(t.app))
+      if (access === 'public') expect([401, 403]).not.toContain(anon.status)
+      else expect(anon.status).toBe(401)
+      for (const role of ROLES) {
+        const r = await call(agents[role]!)
+        const allowed = access === 'public' || access === 'authenticated' || access.includes(role)
+        if (allowed) expect([401, 403], `${role} should be allowed`).not.toContain(r.status)
+        else expect(r.status, `${role} should be refused`).toBe(403)
+      }
+    })
+  }
+})
