@@ -36,4 +36,68 @@ export type ActivityModel =
 export interface BinarySystem {
   vaporPressure: [VaporPressureModel, VaporPressureModel]
   activity: ActivityModel
+  /** Optional names for messages, e.g. ['ethanol', 'water']. */
+  names?: [string, string]
 }
+
+/** Optional display names used in warnings and error messages ("component 1" otherwise). */
+export type ComponentNames = [string, string]
+
+/** Result of a bubble-temperature solve: T in K, y1 vapour mole fraction, γ = [γ1, γ2]. */
+export interface BubbleTemperatureResult {
+  converged: true
+  T: number
+  y1: number
+  gamma: [number, number]
+  iterations: number
+  warnings: string[]
+}
+
+/** Result of a bubble-pressure calculation: P in Pa (direct, no iteration). */
+export interface BubblePressureResult {
+  P: number
+  y1: number
+  gamma: [number, number]
+  warnings: string[]
+}
+
+/** Result of a dew-temperature solve: T in K, x1 liquid mole fraction. */
+export interface DewTemperatureResult {
+  converged: true
+  T: number
+  x1: number
+  gamma: [number, number]
+  iterations: number
+  warnings: string[]
+}
+
+/** Result of a dew-pressure solve: P in Pa, x1 liquid mole fraction. */
+export interface DewPressureResult {
+  converged: true
+  P: number
+  x1: number
+  gamma: [number, number]
+  iterations: number
+  warnings: string[]
+}
+
+/** Relative volatility α12 = (y1/x1)/(y2/x2) = γ1·P1sat/(γ2·P2sat) at the bubble point; defined at the ends too. */
+export interface RelativeVolatilityResult {
+  alpha: number
+  T: number
+  y1: number
+  warnings: string[]
+}
+
+/** An azeotrope: x1 = y1, T in K, P in Pa. */
+export interface Azeotrope {
+  x1: number
+  T: number
+  P: number
+  kind: 'minimum-boiling' | 'maximum-boiling'
+}
+
+/** A T–x–y curve at fixed P (Pa), or a P–x–y curve at fixed T (K); arrays run from x1 = 0 to x1 = 1. */
+export type PhaseDiagram =
+  | { kind: 'isobaric'; P: number; x1: number[]; y1: number[]; T: number[]; warnings: string[] }
+  | { kind: 'isothermal'; T: number; x1: number[]; y1: number[]; P: number[]; warnings: string[] }

@@ -41,13 +41,13 @@ export function sydneyYoungCorrection(options: { T: number; P: number; c?: numbe
   const { T, P } = options ?? ({} as { T: number; P: number })
   const c = options?.c ?? SYDNEY_YOUNG_C_NON_ASSOCIATED
   if (typeof T !== 'number' || !Number.isFinite(T) || T <= 0) {
-    throw new ThermoError('INVALID_TEMPERATURE', `The boiling temperature must be a positive number of kelvin; got ${String(T)}.`)
+    throw new ThermoError('invalid-temperature', `The boiling temperature must be a positive number of kelvin; got ${String(T)}.`)
   }
   if (typeof P !== 'number' || !Number.isFinite(P) || P <= 0) {
-    throw new ThermoError('INVALID_PRESSURE', `The pressure must be a positive number of pascals; got ${String(P)}.`)
+    throw new ThermoError('invalid-pressure', `The pressure must be a positive number of pascals; got ${String(P)}.`)
   }
   if (typeof c !== 'number' || !Number.isFinite(c) || c <= 0) {
-    throw new ThermoError('INVALID_COEFFICIENT', `The Sydney Young coefficient c must be a positive number per mmHg; got ${String(c)}.`)
+    throw new ThermoError('invalid-coefficient', `The Sydney Young coefficient c must be a positive number per mmHg; got ${String(c)}.`)
   }
   // 273.15 + t/°C is simply T in kelvin
   const deltaT = c * (760 - P / PA_PER_MMHG) * T

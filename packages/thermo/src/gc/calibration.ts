@@ -90,11 +90,11 @@ function curvatureWarning(model: CalibrationModel, x1: number[], signal: number[
 export function fitCalibration(options: FitCalibrationOptions): Calibration {
   const { standards, molarMasses, model } = options
   if (!(model in MIN_STANDARDS)) {
-    throw new ThermoError('UNKNOWN_MODEL', `Unknown calibration model '${String(model)}'; use 'response-factor', 'linear' or 'quadratic'.`)
+    throw new ThermoError('unknown-model', `Unknown calibration model '${String(model)}'; use 'response-factor', 'linear' or 'quadratic'.`)
   }
   const n = Array.isArray(standards) ? standards.length : 0
   if (n < MIN_STANDARDS[model]) {
-    throw new ThermoError('TOO_FEW_STANDARDS', `A ${model} calibration needs at least ${MIN_STANDARDS[model]} standards; got ${n}.`)
+    throw new ThermoError('too-few-standards', `A ${model} calibration needs at least ${MIN_STANDARDS[model]} standards; got ${n}.`)
   }
   if (molarMasses !== undefined) checkMolarMasses(molarMasses)
   const x1 = standards.map((s, i) => {
@@ -107,7 +107,7 @@ export function fitCalibration(options: FitCalibrationOptions): Calibration {
   const fit = fitModel(model, x1, signal)
   const c = fit.coefficients
   if (model === 'response-factor' && !(c[0] > 0)) {
-    throw new ThermoError('SINGULAR_FIT', 'The fitted response factor is not positive; check that area1 and area2 belong to components 1 and 2.')
+    throw new ThermoError('singular-fit', 'The fitted response factor is not positive; check that area1 and area2 belong to components 1 and 2.')
   }
   const warnings: string[] = []
   const residuals: StandardResidual[] = standards.map((s, i) => {

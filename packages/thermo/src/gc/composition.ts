@@ -53,7 +53,7 @@ function pooledReplicateRsd(own: number | null, ownDof: number, method: Calibrat
  */
 export function compositionFromAreas(calibration: Calibration, options: CompositionFromAreasOptions): CompositionResult {
   if (!calibration || !Array.isArray(calibration.coefficients)) {
-    throw new ThermoError('INVALID_CALIBRATION', 'The calibration is missing; fit one with fitCalibration first.')
+    throw new ThermoError('invalid-calibration', 'The calibration is missing; fit one with fitCalibration first.')
   }
   const injections = options?.injections
   checkInjections('The sample', injections, '')

@@ -48,10 +48,10 @@ function isWater(name: string): boolean {
 export function effectiveCarbonNumber(c: EcnComponent): number {
   if (typeof c.ecn === 'number') return c.ecn
   if (isWater(c.name)) return 0
-  if (!c.groups) throw new ThermoError('INVALID_ECN_COMPONENT', `${c.name}: give its effective carbon number (ecn) or its groups.`)
+  if (!c.groups) throw new ThermoError('invalid-ecn-component', `${c.name}: give its effective carbon number (ecn) or its groups.`)
   let sum = 0
   for (const [group, count] of Object.entries(c.groups)) {
-    if (!(group in ECN_CONTRIBUTIONS)) throw new ThermoError('INVALID_ECN_COMPONENT', `${c.name}: unknown group '${group}'.`)
+    if (!(group in ECN_CONTRIBUTIONS)) throw new ThermoError('invalid-ecn-component', `${c.name}: unknown group '${group}'.`)
     sum += ECN_CONTRIBUTIONS[group as EcnGroup] * (count ?? 0)
   }
   return sum
@@ -91,10 +91,10 @@ export interface EcnEstimate {
 export function ecnResponseFactor(options: { detector: GcDetector; components: [EcnComponent, EcnComponent] }): EcnEstimate {
   const { detector, components } = options
   if (detector !== 'FID') {
-    throw new ThermoError('ECN_NEEDS_FID', `Effective carbon numbers estimate FID responses only; a ${detector} needs response factors measured on standards.`)
+    throw new ThermoError('ecn-needs-fid', `Effective carbon numbers estimate FID responses only; a ${detector} needs response factors measured on standards.`)
   }
   if (!Array.isArray(components) || components.length !== 2) {
-    throw new ThermoError('INVALID_ECN_COMPONENT', 'Give exactly two components.')
+    throw new ThermoError('invalid-ecn-component', 'Give exactly two components.')
   }
   const ecn: [number, number] = [effectiveCarbonNumber(components[0]), effectiveCarbonNumber(components[1])]
   const warnings = detectorWarnings(detector, components)

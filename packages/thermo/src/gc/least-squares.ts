@@ -27,7 +27,7 @@ export function invertMatrix(a: number[][]): number[][] {
     for (let r = col + 1; r < n; r++) if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) pivot = r
     const scale = Math.max(...m.map((row) => Math.abs(row[col])), 1e-300)
     if (Math.abs(m[pivot][col]) < 1e-13 * scale) {
-      throw new ThermoError('SINGULAR_FIT', 'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.')
+      throw new ThermoError('singular-fit', 'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.')
     }
     ;[m[col], m[pivot]] = [m[pivot], m[col]]
     const p = m[col][col]

@@ -1,0 +1,1 @@
+export { activityCoefficients, excessGibbsOverRT, checkActivityModel, thermodynamicFactor, unstableRange } from './activity.js'

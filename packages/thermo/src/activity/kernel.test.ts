@@ -1,0 +1,39 @@
+import { describe, expect, it } from 'vitest'
+import { lnGammaT } from './kernel.js'
+import type { ActivityModel } from '../types.js'
+
+// Self-consistency, not a reference check: analytic ∂ln γ/∂T against central differences,
+// and Gibbs–Duhem x1·dln γ1 + x2·dln γ2 = 0 at constant T (true for every gE model).
+const models: ActivityModel[] = [
+  { kind: 'wilson', a12: 775.48 * 4.184, a21: 1351.9 * 4.184, V1: 75.14, V2: 18.07 },
+  { kind: 'nrtl', b12: 500.4 * 4.184, b21: 1636.57 * 4.184, alpha: 0.5081 },
+  { kind: 'uniquac', a12: 300, a21: 900, r1: 2.77, r2: 0.92, q1: 2.51, q2: 1.4 },
+]
+
+describe('activity kernel', () => {
+  const out = new Float64Array(4)
+  const val = (m: ActivityModel, x: number, T: number) => {
+    lnGammaT(m, x, T, out)
+    return [out[0], out[1], out[2], out[3]]
+  }
+  for (const m of models) {
+    it(`${m.kind}: analytic T-derivatives match finite differences`, () => {
+      for (const x of [0, 0.1, 0.5, 0.9, 1]) {
+        const [, , d1, d2] = val(m, x, 350)
+        const up = val(m, x, 350.001)
+        const dn = val(m, x, 349.999)
+        expect(d1).toBeCloseTo((up[0] - dn[0]) / 0.002, 7)
+        expect(d2).toBeCloseTo((up[1] - dn[1]) / 0.002, 7)
+      }
+    })
+    it(`${m.kind}: obeys Gibbs–Duhem and vanishes for the pure component`, () => {
+      for (const x of [0.2, 0.5, 0.8]) {
+        const up = val(m, x + 1e-6, 350)
+        const dn = val(m, x - 1e-6, 350)
+        expect(x * (up[0] - dn[0]) + (1 - x) * (up[1] - dn[1])).toBeCloseTo(0, 10)
+      }
+      expect(val(m, 1, 350)[0]).toBeCloseTo(0, 14)
+      expect(val(m, 0, 350)[1]).toBeCloseTo(0, 14)
+    })
+  }
+})

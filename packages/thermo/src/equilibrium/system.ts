@@ -1,0 +1,53 @@
+import { checkActivityModel, thermodynamicFactor } from '../activity/activity.js'
+import { ThermoError } from '../errors.js'
+import { compileVaporPressure, rangeWarnings, type LnPsat } from '../vapor-pressure/compiled.js'
+import type { ActivityModel, BinarySystem } from '../types.js'
+
+/** A validated binary system in the solvers' internal form. */
+export interface CompiledSystem {
+  act: ActivityModel
+  vp1: LnPsat
+  vp2: LnPsat
+  source: BinarySystem
+  labels: [string, string]
+}
+
+/** Check a BinarySystem once and reduce its vapour-pressure models to the internal form. */
+export function compileSystem(system: BinarySystem): CompiledSystem {
+  if (system === null || typeof system !== 'object' || !Array.isArray(system.vaporPressure) || system.vaporPressure.length !== 2) {
+    throw new ThermoError('invalid-model', 'A binary system needs two vapour-pressure models and an activity model.')
+  }
+  checkActivityModel(system.activity)
+  return {
+    act: system.activity,
+    vp1: compileVaporPressure(system.vaporPressure[0]),
+    vp2: compileVaporPressure(system.vaporPressure[1]),
+    source: system,
+    labels: [system.names?.[0] ?? 'Component 1', system.names?.[1] ?? 'Component 2'],
+  }
+}
+
+/** Range warnings for the components present (z1 = mole fraction of 1 in the phase that sets the pressure). */
+export function systemWarnings(c: CompiledSystem, T: number, z1: number): string[] {
+  const w1 = z1 > 0 ? rangeWarnings(c.source.vaporPressure[0], c.vp1, T, c.labels[0]) : []
+  const w2 = z1 < 1 ? rangeWarnings(c.source.vaporPressure[1], c.vp2, T, c.labels[1]) : []
+  return w1.length || w2.length ? [...w1, ...w2] : []
+}
+
+/** Throw when the model says a single liquid of this composition would split in two at T (K). */
+export function assertOneLiquid(c: CompiledSystem, x1: number, T: number): void {
+  if (thermodynamicFactor(c.act, x1, T) <= 0) {
+    throw new ThermoError(
+      'liquid-split',
+      `The activity model predicts two liquid phases at x1 = ${x1} and ${T.toFixed(2)} K, so this liquid has no single-phase bubble or dew point; Ebullio does not compute liquid–liquid–vapour equilibrium.`,
+    )
+  }
+}
+
+/** The error for a solver that did not converge, with the conditions a chemist would check. */
+export function noConvergence(what: string, condition: string): ThermoError {
+  return new ThermoError(
+    'no-convergence',
+    `The ${what} calculation did not converge at ${condition}; check the vapour-pressure constants and activity parameters.`,
+  )
+}

@@ -1,0 +1,5 @@
+export { vaporPressure, saturationTemperature, vaporPressureRangeWarnings } from './vapor-pressure.js'
+export { fitAntoine } from './fit-antoine.js'
+export type { VaporPressurePoint, FitAntoineOptions, FitAntoineResult } from './fit-antoine.js'
+export { fitClausiusClapeyron } from './clausius-clapeyron.js'
+export type { FitClausiusClapeyronResult } from './clausius-clapeyron.js'
