@@ -4,7 +4,9 @@
  */
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely'
 
-type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>
+type Timestamp = ColumnType<Date, Date | string, Date | string>
+/** A timestamp the database fills (default now()). */
+type DefaultTimestamp = ColumnType<Date, Date | string | undefined, Date | string>
 /** jsonb: written as a JSON string or value, read back parsed. */
 type Json<T> = ColumnType<T, T | string, T | string>
 
@@ -21,7 +23,7 @@ export interface ComponentTable {
   /** cm³/mol at about 25 °C */
   liquid_molar_volume: number | null
   created_by: string | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
   row_version: Generated<number>
 }
 
@@ -37,7 +39,7 @@ export interface VaporPressureSetTable {
   source: string
   preferred: Generated<boolean>
   entered_by: string | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface PureMeasurementTable {
@@ -47,7 +49,7 @@ export interface PureMeasurementTable {
   pressure_pa: number
   note: string | null
   measured_by: string | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface BinarySystemTable {
@@ -56,7 +58,7 @@ export interface BinarySystemTable {
   component2_id: string
   notes: string | null
   created_by: string | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface GcMethodTable {
@@ -66,7 +68,7 @@ export interface GcMethodTable {
   column_description: string | null
   conditions: string | null
   created_by: string | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface UploadTable {
@@ -78,7 +80,7 @@ export interface UploadTable {
   sha256: string
   content: Buffer
   uploaded_by: string
-  uploaded_at: Generated<Timestamp>
+  uploaded_at: DefaultTimestamp
   data_set_id: string | null
 }
 
@@ -94,7 +96,7 @@ export interface CalibrationTable {
   status: Generated<'active' | 'retired'>
   upload_id: string
   created_by: string
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
   retired_at: Timestamp | null
 }
 
@@ -129,8 +131,8 @@ export interface DataSetTable {
   project_ref: string | null
   recommended_fit_id: string | null
   created_by: string
-  created_at: Generated<Timestamp>
-  updated_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
+  updated_at: DefaultTimestamp
   submitted_at: Timestamp | null
   approved_at: Timestamp | null
   superseded_at: Timestamp | null
@@ -154,7 +156,7 @@ export interface PointTable {
   calibration_id: string | null
   /** line numbers of the raw rows in the uploaded file */
   row_refs: number[]
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface PointInjectionTable {
@@ -178,7 +180,7 @@ export interface FitTable {
   residuals: Json<Record<string, unknown>[]>
   point_ids: string[]
   run_by: string
-  run_at: Generated<Timestamp>
+  run_at: DefaultTimestamp
 }
 
 export interface ConsistencyResultTable {
@@ -188,7 +190,7 @@ export interface ConsistencyResultTable {
   passed: boolean
   result: Json<Record<string, unknown>>
   run_by: string
-  run_at: Generated<Timestamp>
+  run_at: DefaultTimestamp
 }
 
 export interface CommentTable {
@@ -201,7 +203,7 @@ export interface CommentTable {
   resolved: Generated<boolean>
   resolved_by: string | null
   resolved_at: Timestamp | null
-  created_at: Generated<Timestamp>
+  created_at: DefaultTimestamp
 }
 
 export interface ApprovalTable {
@@ -214,12 +216,12 @@ export interface ApprovalTable {
   digest: string
   self_approval: Generated<boolean>
   override_reason: string | null
-  signed_at: Generated<Timestamp>
+  signed_at: DefaultTimestamp
 }
 
 export interface AuditLogTable {
   id: Generated<string>
-  at: Generated<Timestamp>
+  at: DefaultTimestamp
   actor_id: string | null
   entity: string
   entity_id: string

@@ -58,7 +58,7 @@ export function readCsvTable(content: Buffer | string): CsvTable {
       skip_empty_lines: true,
       skip_records_with_empty_values: true,
       trim: true,
-    })
+    }) as unknown as typeof records
   } catch (err) {
     const line = (err as { lines?: number }).lines ?? null
     return { format, header: [], rows: [], problems: [uploadError(line, null, null, `The file could not be read as CSV: ${(err as Error).message}`)] }
