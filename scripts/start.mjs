@@ -1,0 +1,64 @@
+#!/usr/bin/env node
+// `npm start`: prepare this machine, start PostgreSQL and the app, load the demo scenario, serve on loopback.
+import { spawn } from 'node:child_process'
+import path from 'node:path'
+import { loadDotEnv, portOf } from './lib/env.mjs'
+import { dataDirFor, startCluster } from './lib/postgres.mjs'
+import { ensureDependencies, ensurePnpm, log, root, run } from './lib/system.mjs'
+
+const started = Date.now()
+ensurePnpm()
+ensureDependencies()
+
+const env = { ...loadDotEnv(root), ...process.env }
+const dbUrl = env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54320/ebullio'
+const pg = startCluster({ dataDir: dataDirFor(root, 'pg'), port: portOf(dbUrl, 54320), database: new URL(dbUrl).pathname.slice(1) || 'ebullio' })
+const appEnv = { ...env, DATABASE_URL: pg.url, NODE_ENV: env.NODE_ENV ?? 'development', SERVE_WEB: 'true' }
+const tsx = path.join(root, 'node_modules', '.bin', 'tsx')
+
+try {
+  log('applying database migrations')
+  run(tsx, ['db/migrate.ts'], { env: appEnv })
+  if ((appEnv.DEMO_DATA ?? 'true') !== 'false') {
+    log('loading the demo scenario (invented data; idempotent)')
+    run(tsx, ['db/seeds/index.ts'], { env: appEnv })
+  }
+  log('building the web app')
+  run('pnpm', ['--filter', '@ebullio/web', 'build', '--logLevel', 'warn'])
+} catch (e) {
+  pg.stop()
+  console.error(e instanceof Error ? e.message : e)
+  process.exit(1)
+}
+
+const server = spawn(tsx, ['apps/api/src/server.ts'], { cwd: root, env: appEnv, stdio: ['ignore', 'inherit', 'inherit'] })
+const url = appEnv.PUBLIC_URL ?? `http://127.0.0.1:${appEnv.PORT ?? 3000}`
+setTimeout(() => {
+  const secs = Math.round((Date.now() - started) / 1000)
+  console.log(`
+  Ebullio is running at ${url}   (ready in ${secs} s; Ctrl-C stops it, the data stays in .data/)
+
+  Demo sign-ins (DEMO ONLY, invented lab; password for all: ebullio-demo-2026)
+    analyst       analyst@demo.ebullio.test
+    lead chemist  lead@demo.ebullio.test
+    reviewer      reviewer@demo.ebullio.test
+    engineer      engineer@demo.ebullio.test
+    admin         admin@demo.ebullio.test
+  Mail sent by the app is captured locally: sign in as admin → Captured mail.
+`)
+}, 1500).unref()
+
+let stopping = false
+function stop(signal) {
+  if (stopping) return
+  stopping = true
+  log(`${signal}: stopping the app and PostgreSQL`)
+  server.kill('SIGTERM')
+}
+process.on('SIGINT', () => stop('SIGINT'))
+process.on('SIGTERM', () => stop('SIGTERM'))
+server.on('exit', (code) => {
+  pg.stop()
+  log('stopped')
+  process.exit(stopping ? 0 : (code ?? 1))
+})
