@@ -1,0 +1,41 @@
+import { readFileSync } from 'node:fs'
+import path from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { describe, expect, it } from 'vitest'
+import { parseCalibrationFile } from './calibration-file.js'
+import { parseRunFile } from './run-file.js'
+
+// The documented example files (docs/examples, invented data) must read as docs/csv-formats.md says.
+const examples = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../../docs/examples')
+const read = (name: string) => readFileSync(path.join(examples, name))
+
+describe('docs/examples', () => {
+  it('calibration sheet: eight standards, three injections each, no problems', () => {
+    const p = parseCalibrationFile(read('calibration-acetone-methanol.csv'))
+    expect(p.problems).toEqual([])
+    expect(p.standards.map((s) => s.injections.length)).toEqual([3, 3, 3, 3, 3, 3, 3, 3])
+  })
+
+  it('run sheet: twelve samples, no problems', () => {
+    const p = parseRunFile(read('run-acetone-methanol.csv'))
+    expect(p.problems).toEqual([])
+    expect(p.samples).toHaveLength(12)
+  })
+
+  it('the spoiled run sheet shows exactly its three planted mistakes', () => {
+    const p = parseRunFile(read('run-acetone-methanol-with-errors.csv'))
+    expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
+      [5, 'phase', '', 'Phase is missing; use liquid or vapour.'],
+      [10, 'area_1', '130x365.0', 'Not a number.'],
+      [15, 'area_1', '-147492.9', 'Peak area must be greater than zero.'],
+    ])
+  })
+
+  it('the European export reads to the same samples as the plain one', () => {
+    const plain = parseRunFile(read('run-acetone-methanol.csv'))
+    const euro = parseRunFile(read('run-acetone-methanol-semicolon.csv'))
+    expect(euro.problems).toEqual([])
+    expect(euro.format).toEqual({ delimiter: ';', decimalComma: true, byteOrderMark: true })
+    expect(euro.samples.map((s) => [s.label, s.temperatureK, s.liquid])).toEqual(plain.samples.map((s) => [s.label, s.temperatureK, s.liquid]))
+  })
+})

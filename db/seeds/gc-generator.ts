@@ -1,0 +1,101 @@
+/**
+ * Generates raw GC files for the demo (INVENTED DATA): gravimetric calibration standards and equilibrium
+ * runs from a published activity model, with simulated weighing, barometer, thermometer and GC noise.
+ * Deterministic (seeded), so the demo and the example files are the same on every machine.
+ */
+import { bubbleTemperature } from '../../packages/thermo/src/index.js'
+import { DEMO_COMPONENTS, demoVaporPressure, type DemoSystem } from './demo-systems.js'
+
+/** mulberry32: a small seeded generator, good enough for demo noise. */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0
+    let t = a
+    t = Math.imul(t ^ (t >>> 15), t | 1)
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
+  }
+}
+
+/** A standard normal deviate (Box–Muller). */
+export function gaussian(rand: () => number): number {
+  const u = Math.max(rand(), 1e-12)
+  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * rand())
+}
+
+/** Noise levels of the simulated lab (invented, typical of a careful lab: common practice, no source). */
+export interface NoiseLevels {
+  /** relative scatter of one injection's area ratio (0.006 = 0.6 %) */
+  injectionRsd: number
+  /** K */
+  thermometer: number
+  /** Pa, scatter of the barometric pressure around the nominal one */
+  barometer: number
+}
+export const DEFAULT_NOISE: NoiseLevels = { injectionRsd: 0.006, thermometer: 0.05, barometer: 150 }
+
+/** Peak areas of one injection for mole fraction x1 with response factor k (A1/A2 = k·x1/x2). */
+function injectionAreas(x1: number, k: number, rand: () => number, rsd: number): [number, number] {
+  const total = 4e5 * (0.8 + 0.4 * rand())
+  const ratio = ((k * x1) / (1 - x1)) * Math.exp(rsd * gaussian(rand))
+  const a2 = total / (1 + ratio)
+  return [ratio * a2, a2]
+}
+
+const fmt = (v: number, digits: number) => v.toFixed(digits)
+
+/** A calibration sheet: standards weighed as mass fractions, three injections each. */
+export function calibrationCsv(system: DemoSystem, seed: number, noise = DEFAULT_NOISE): string {
+  const rand = seededRandom(seed)
+  const m1 = DEMO_COMPONENTS[system.light].molarMass
+  const m2 = DEMO_COMPONENTS[system.heavy].molarMass
+  const lines = ['standard,basis,fraction_1,injection,area_1,area_2']
+  const targets = [0.02, 0.1, 0.25, 0.4, 0.55, 0.7, 0.85, 0.985]
+  targets.forEach((xt, i) => {
+    const w1 = Number(((xt * m1) / (xt * m1 + (1 - xt) * m2)).toFixed(4))
+    const x1 = w1 / m1 / (w1 / m1 + (1 - w1) / m2)
+    for (let inj = 1; inj <= 3; inj++) {
+      const [a1, a2] = injectionAreas(x1, system.responseFactor, rand, noise.injectionRsd)
+      lines.push(`CAL-${String(i + 1).padStart(2, '0')},mass,${fmt(w1, 4)},${inj},${fmt(a1, 1)},${fmt(a2, 1)}`)
+    }
+  })
+  return lines.join('\n') + '\n'
+}
+
+/** One generated equilibrium state (true values before noise). */
+export interface GeneratedState {
+  label: string
+  x1: number
+  y1: number
+  T: number
+  P: number
+}
+
+/**
+ * A run sheet at a nominal pressure (Pa): liquid compositions spread over 0.04–0.96, each boiled at the
+ * day's barometric pressure, T and y from the model's bubble point, two injections per phase.
+ */
+export function runCsv(system: DemoSystem, o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels }): { csv: string; states: GeneratedState[] } {
+  const noise = o.noise ?? DEFAULT_NOISE
+  const rand = seededRandom(o.seed)
+  const model = { vaporPressure: [demoVaporPressure(system.light), demoVaporPressure(system.heavy)] as [ReturnType<typeof demoVaporPressure>, ReturnType<typeof demoVaporPressure>], activity: system.activity }
+  const lines = ['sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit']
+  const states: GeneratedState[] = []
+  for (let i = 0; i < o.samples; i++) {
+    const x1 = 0.04 + (0.92 * (i + 0.5 * rand())) / Math.max(o.samples - 0.5, 1)
+    const P = o.pressurePa + noise.barometer * gaussian(rand)
+    const bubble = bubbleTemperature(model, { P, x1 })
+    const label = `${o.prefix}-${String(i + 1).padStart(2, '0')}`
+    states.push({ label, x1, y1: bubble.y1, T: bubble.T, P })
+    const tC = bubble.T - 273.15 + noise.thermometer * gaussian(rand)
+    for (const [phase, z] of [['liquid', x1], ['vapour', bubble.y1]] as const) {
+      for (let inj = 1; inj <= 2; inj++) {
+        const [a1, a2] = injectionAreas(z, system.responseFactor, rand, noise.injectionRsd)
+        const cond = phase === 'liquid' && inj === 1 ? `${fmt(tC, 2)},C,${fmt(P / 1000, 2)},kPa` : ',,,'
+        lines.push(`${label},${phase},${inj},${fmt(a1, 1)},${fmt(a2, 1)},${cond}`)
+      }
+    }
+  }
+  return { csv: lines.join('\n') + '\n', states }
+}
