@@ -1,4 +1,4 @@
-import { unstableRange } from '../activity/activity.js'
+import { thermodynamicFactor } from '../activity/activity.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
 import type { Azeotrope, BinarySystem, PhaseDiagram, RelativeVolatilityResult } from '../types.js'
 import { bubbleTemperatureCompiled } from './bubble-dew.js'
@@ -122,17 +122,16 @@ export function phaseDiagram(system: BinarySystem, condition: DiagramCondition, 
 }
 
 function finishDiagram(c: CompiledSystem, condition: DiagramCondition, xs: number[], ys: number[], vs: number[], warnings: string[]): PhaseDiagram {
-  const Tcheck = condition.T ?? vs.reduce((s, v) => s + v, 0) / vs.length
-  const split = unstableRange(c.act, Tcheck)
-  if (split) {
+  // Each point is checked at its own temperature: inside the spinodal the one-liquid curve is not physical.
+  const keep = xs.map((x, i) => thermodynamicFactor(c.act, x, condition.T ?? vs[i]) > 0)
+  const dropped = xs.filter((_, i) => !keep[i])
+  if (dropped.length > 0) {
     warnings.push(
-      `The activity model predicts two liquid phases near x1 = ${split[0].toFixed(3)} to ${split[1].toFixed(3)} (at ${Tcheck.toFixed(1)} K); the single-liquid curve there is not physical and is left out.`,
+      `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)}; the single-liquid curve there is not physical and is left out.`,
     )
-    for (let i = xs.length - 1; i >= 0; i--) {
-      if (xs[i] >= split[0] && xs[i] <= split[1]) { xs.splice(i, 1); ys.splice(i, 1); vs.splice(i, 1) }
-    }
   }
+  const pick = (a: number[]) => (dropped.length > 0 ? a.filter((_, i) => keep[i]) : a)
   return condition.P !== undefined
-    ? { kind: 'isobaric', P: condition.P, x1: xs, y1: ys, T: vs, warnings }
-    : { kind: 'isothermal', T: condition.T, x1: xs, y1: ys, P: vs, warnings }
+    ? { kind: 'isobaric', P: condition.P, x1: pick(xs), y1: pick(ys), T: pick(vs), warnings }
+    : { kind: 'isothermal', T: condition.T, x1: pick(xs), y1: pick(ys), P: pick(vs), warnings }
 }

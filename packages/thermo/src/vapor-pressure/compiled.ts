@@ -7,6 +7,8 @@ import { ThermoError } from '../errors.js'
 import { PASCALS_PER } from '../units.js'
 import { R, type VaporPressureModel } from '../types.js'
 
+const ANTOINE_PRESSURE_UNITS: readonly string[] = ['Pa', 'kPa', 'bar', 'mmHg', 'atm']
+
 /** ln(P/Pa) = a − b/(T + c), T in K; tMin/tMax the correlation's range in K (±Infinity when none). */
 export interface LnPsat {
   a: number
@@ -36,7 +38,7 @@ export function compileVaporPressure(model: VaporPressureModel): LnPsat {
     if (log !== 'ln' && log !== 'log10') {
       throw new ThermoError('invalid-model', `Unknown Antoine logarithm "${log}"; use "ln" or "log10".`)
     }
-    const perUnit = PASCALS_PER[pressureUnit]
+    const perUnit = ANTOINE_PRESSURE_UNITS.includes(pressureUnit) ? PASCALS_PER[pressureUnit] : undefined
     if (perUnit === undefined) {
       throw new ThermoError('invalid-model', `Unknown Antoine pressure unit "${pressureUnit}"; use Pa, kPa, bar, mmHg or atm.`)
     }

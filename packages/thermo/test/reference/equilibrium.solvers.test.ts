@@ -1,0 +1,97 @@
+import { describe, expect, it } from 'vitest'
+import {
+  bubblePressure,
+  bubbleTemperature,
+  dewPressure,
+  dewTemperature,
+  phaseDiagram,
+  ThermoError,
+  type ActivityModel,
+  type BinarySystem,
+} from '../../src/index.js'
+import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
+
+// Solver behaviour, checked against the defining equations rather than a book: the bubble temperature
+// must satisfy Σ xi·γi·Pi_sat(T) = P (checked through bubblePressure, which has no iteration) to
+// better than 1e-6 K, at every composition including the pure ends, for every model.
+// Parameters: SVNA 7th ed. Table 12.5 (1-propanol/water NRTL S, Wilson M) and Table B.2 constants;
+// the Margules, Van Laar and UNIQUAC values are illustrative (no source needed for a self-consistency check).
+const pw = TABLE_12_5.propanolWater
+const models: ActivityModel[] = [
+  { kind: 'ideal' },
+  { kind: 'margules', A12: 1.2, A21: 0.8 },
+  { kind: 'van-laar', A12: 2.2, A21: 1.1 },
+  { kind: 'wilson', a12: pw.a12 * CAL, a21: pw.a21 * CAL, V1: pw.V1, V2: pw.V2 },
+  { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha },
+  { kind: 'uniquac', a12: 500, a21: 1200, r1: 2.78, r2: 0.92, q1: 2.51, q2: 1.4 },
+]
+const xs = [0, 1e-12, 1e-6, 0.001, 0.05, 0.25, 0.5, 0.75, 0.95, 0.999, 1 - 1e-9, 1]
+
+describe('bubble and dew solvers converge everywhere', () => {
+  for (const activity of models) {
+    const system: BinarySystem = { vaporPressure: [b2('1-propanol'), b2('water')], activity }
+    it(`${activity.kind}: bubble T at 1 atm satisfies the equilibrium equation to 1e-6 K for 0 ≤ x1 ≤ 1`, () => {
+      for (const x1 of xs) {
+        const r = bubbleTemperature(system, { P: 101325, x1 })
+        const back = bubblePressure(system, { T: r.T, x1 })
+        // d ln P/dT ≈ 0.03 /K here, so a relative pressure error of 1e-9 is about 3e-8 K.
+        expect(Math.abs(back.P / 101325 - 1)).toBeLessThan(1e-9)
+        expect(Math.abs(back.y1 - r.y1)).toBeLessThan(1e-8)
+      }
+    })
+    it(`${activity.kind}: dew T inverts bubble T and dew P inverts bubble P`, () => {
+      for (const x1 of [0, 0.1, 0.4, 0.8, 1]) {
+        const b = bubbleTemperature(system, { P: 50000, x1 })
+        const d = dewTemperature(system, { P: 50000, y1: b.y1 })
+        expect(Math.abs(d.T - b.T)).toBeLessThan(1e-6)
+        expect(Math.abs(d.x1 - x1)).toBeLessThan(1e-7)
+        const bp = bubblePressure(system, { T: 350, x1 })
+        const dp = dewPressure(system, { T: 350, y1: bp.y1 })
+        expect(Math.abs(dp.P / bp.P - 1)).toBeLessThan(1e-9)
+        expect(Math.abs(dp.x1 - x1)).toBeLessThan(1e-7)
+      }
+    })
+  }
+  it('pure ends give the pure-component boiling points exactly and y1 = x1', () => {
+    const system: BinarySystem = { vaporPressure: [b2('1-propanol'), b2('water')], activity: models[4] }
+    const water = bubbleTemperature(system, { P: 101325, x1: 0 })
+    const propanol = bubbleTemperature(system, { P: 101325, x1: 1 })
+    expect(water.y1).toBe(0)
+    expect(propanol.y1).toBe(1)
+    expect(Math.abs(water.T - 273.15 - 100.0)).toBeLessThan(0.01) // Table B.2 tn (S)
+    expect(Math.abs(propanol.T - 273.15 - 97.2)).toBeLessThan(0.01) // Table B.2 tn (S)
+  })
+  it('works from a deep vacuum (1 kPa) to 5 bar', () => {
+    const system: BinarySystem = { vaporPressure: [b2('1-propanol'), b2('water')], activity: models[4] }
+    for (const P of [1000, 10000, 500000]) {
+      const r = bubbleTemperature(system, { P, x1: 0.3 })
+      expect(Math.abs(bubblePressure(system, { T: r.T, x1: 0.3 }).P / P - 1)).toBeLessThan(1e-9)
+    }
+  })
+})
+
+describe('no solution is reported, not looped on', () => {
+  // Symmetric Margules with A > 2 splits into two liquids (SVNA 7th ed., §14.4, stability criterion; from memory).
+  const split: BinarySystem = { vaporPressure: [b2('benzene'), b2('toluene')], activity: { kind: 'margules', A12: 3, A21: 3 } }
+  it('a liquid that the model splits in two is refused with a chemist-readable message', () => {
+    expect(() => bubbleTemperature(split, { P: 101325, x1: 0.5 })).toThrow(ThermoError)
+    try {
+      bubbleTemperature(split, { P: 101325, x1: 0.5 })
+    } catch (e) {
+      expect((e as ThermoError).code).toBe('liquid-split')
+      expect((e as Error).message).toMatch(
+        /^The activity model predicts two liquid phases at x1 = 0\.5 and \d+\.\d\d K, so this liquid has no single-phase bubble or dew point; Ebullio does not compute liquid–liquid–vapour equilibrium\.$/,
+      )
+    }
+  })
+  it('the diagram leaves the two-liquid region out and says so', () => {
+    const d = phaseDiagram(split, { P: 101325 }, { points: 41 })
+    expect(d.warnings.some((w) => w.startsWith('The activity model predicts two liquid phases near x1 = '))).toBe(true)
+    // Spinodal of symmetric Margules: 1 − 2A·x1·x2 = 0, i.e. x1 = 0.2113 and 0.7887 for A = 3.
+    expect(d.x1.every((x) => x < 0.2114 || x > 0.7886)).toBe(true)
+    expect(d.x1.length).toBeGreaterThan(10)
+  })
+  it('the still-dilute ends of a splitting system are solved', () => {
+    expect(bubbleTemperature(split, { P: 101325, x1: 0.02 }).converged).toBe(true)
+  })
+})
