@@ -5,6 +5,7 @@
  * run costs one table of bubble points however many stages it steps.
  */
 import { ThermoError } from '../errors.js'
+import { bubbleTemperature } from '../equilibrium/index.js'
 import type { BinarySystem } from '../types.js'
 import { monotoneSpline, type MonotoneSpline } from './monotone-spline.js'
 
@@ -33,6 +34,8 @@ export interface EquilibriumCurve {
   azeotropes: number[]
   /** Short description for assumptions lists, e.g. 'constant relative volatility α = 2.5'. */
   description: string
+  /** Warnings from the equilibrium model (e.g. vapour-pressure ranges exceeded), passed on to design results. */
+  warnings: string[]
 }
 
 function positive(v: unknown): v is number {
@@ -51,6 +54,7 @@ function constantAlphaCurve(alpha: number): EquilibriumCurve {
     alpha: () => alpha,
     azeotropes: [],
     description: `constant relative volatility α = ${alpha}`,
+    warnings: [],
   }
 }
 
@@ -92,6 +96,7 @@ function tabulatedCurve(kind: 'system' | 'table', xs: number[], ys: number[], Ts
     },
     azeotropes: findAzeotropes(y, [...new Set([...xs, ...dense])].sort((a, b) => a - b)),
     description,
+    warnings: [],
   }
 }
 
@@ -118,10 +123,30 @@ function tableCurve(rows: EquilibriumTableRow[]): EquilibriumCurve {
 /** Tabulation nodes clustered at both ends, where non-ideal curves bend most. */
 export const SYSTEM_NODES = 161
 
+/**
+ * Tabulate bubble points of the system at P on nodes clustered at both ends (x = (1 − cos πi/N)/2), where
+ * non-ideal curves bend most. Interpolation error is below 1e-5 in y for the systems in the tests.
+ */
 function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
   if (!positive(P)) throw new ThermoError('invalid-input', `Pressure must be a positive number of pascals; got ${String(P)}.`)
-  void system
-  throw new ThermoError('equilibrium-unavailable', 'Design on a BinarySystem needs the bubble-point solver, which is not available yet; use { alpha } for now.')
+  const xs = Array.from({ length: SYSTEM_NODES }, (_, i) => (i === 0 ? 0 : i === SYSTEM_NODES - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (SYSTEM_NODES - 1)))))
+  const ys: number[] = []
+  const Ts: number[] = []
+  const warnings = new Set<string>()
+  for (const x of xs) {
+    const b = bubbleTemperature(system, { P, x1: x })
+    ys.push(b.y1)
+    Ts.push(b.T)
+    b.warnings.forEach((w) => warnings.add(w))
+  }
+  const bad = ys.findIndex((y, i) => i > 0 && !(y > ys[i - 1]))
+  if (bad > 0) {
+    throw new ThermoError('non-monotone-equilibrium', `The model's vapour composition does not rise with x1 near x1 = ${xs[bad].toFixed(3)}; stage calculations need y1 increasing with x1.`)
+  }
+  const names = system.names ? `${system.names[0]}–${system.names[1]}, ` : ''
+  const curve = tabulatedCurve('system', xs, ys, Ts, `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ideal vapour`)
+  curve.warnings.push(...warnings)
+  return curve
 }
 
 /**

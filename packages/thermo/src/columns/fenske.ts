@@ -12,6 +12,7 @@ export interface FenskeResult {
   alphaTop: number
   alphaBottom: number
   includesReboiler: true
+  warnings: string[]
   assumptions: string[]
   caution: string
 }
@@ -40,5 +41,5 @@ export function fenske(source: EquilibriumSource, spec: { xD: number; xB: number
   }
   const Nmin = Math.log(((xD / (1 - xD)) * (1 - xB)) / xB) / Math.log(alpha)
   const extra = curve.kind === 'constant-alpha' ? ['total reflux'] : ['total reflux', 'α taken as the geometric mean of the top and bottom values']
-  return { Nmin, alpha, alphaTop, alphaBottom, includesReboiler: true, assumptions: designAssumptions(curve, extra), caution: DESIGN_CAUTION }
+  return { Nmin, alpha, alphaTop, alphaBottom, includesReboiler: true, warnings: [...curve.warnings], assumptions: designAssumptions(curve, extra), caution: DESIGN_CAUTION }
 }

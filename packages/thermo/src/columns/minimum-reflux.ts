@@ -73,7 +73,7 @@ function steepestRequirement(curve: EquilibriumCurve, xD: number, x0: number): {
 export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: number, xD: number): Omit<MinimumRefluxResult, 'assumptions' | 'caution'> {
   checkNoAzeotropeBetween(curve, xF, xD, 'xF', 'xD')
   const feedPinch = qLinePinch(curve, xF, q)
-  const warnings: string[] = []
+  const warnings: string[] = [...curve.warnings]
   if (feedPinch.y >= xD) {
     warnings.push('xD is at or below the vapour in equilibrium with the feed: any reflux ratio reaches it (Rmin = 0).')
     return { Rmin: 0, governs: 'pinch', feedPinch, touch: feedPinch, warnings }
