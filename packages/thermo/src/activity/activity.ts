@@ -4,8 +4,8 @@ import { lnGammaT } from './kernel.js'
 
 const buf = new Float64Array(4)
 
-function finite(...values: number[]): boolean {
-  return values.every(Number.isFinite)
+function finite(a: number, b: number): boolean {
+  return Number.isFinite(a) && Number.isFinite(b)
 }
 
 /** Validate an activity model once at the boundary; throws a ThermoError naming the bad field. */

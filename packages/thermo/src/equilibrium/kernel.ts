@@ -31,6 +31,8 @@ export function solveBubbleT(act: ActivityModel, vp1: LnPsat, vp2: LnPsat, lnP: 
   let lo = Math.max(-vp1.c, -vp2.c, 0)
   let hi = Infinity
   let T = T0 > lo ? T0 : lo + 50
+  let prevStep = Infinity
+  const cm = 0.5 * (vp1.c + vp2.c)
   for (let it = 1; it <= MAX_NEWTON; it++) {
     lnGammaT(act, x1, T, g)
     const d1 = T + vp1.c
@@ -41,27 +43,35 @@ export function solveBubbleT(act: ActivityModel, vp1: LnPsat, vp2: LnPsat, lnP: 
     const k2 = x2 > 0 ? x2 * Math.exp(g[1] + vp2.a - vp2.b / d2) : 0
     const S = k1 + k2
     const f = Math.log(S) - lnP
-    let fp = (k1 * (g[2] + s1) + k2 * (g[3] + s2)) / S
+    const e1 = g[2] + s1
+    let fp = (k1 * e1 + k2 * (g[3] + s2)) / S
     // If γ falls faster than Pi_sat rises the slope can vanish; the Pi_sat slope alone still points uphill.
     if (!(fp > 0)) fp = (k1 * s1 + k2 * s2) / S
     if (f < 0) lo = T
     else hi = T
     let dT = -f / fp
     if (!Number.isFinite(dT)) return false
-    if (dT > 100) dT = 100
-    else if (dT < -100) dT = -100
-    let Tn = T + dT
-    if (Tn <= lo || Tn >= hi) Tn = hi === Infinity ? T + 100 : 0.5 * (lo + hi)
-    if (Math.abs(dT) < 1e-7) {
+    const a = Math.abs(dT)
+    // Newton's error after this step is about C·dT², with C estimated from the last two steps;
+    // stop once that is below 1e-9 K (and y1, γ are carried to the new T to first order).
+    if (a < 1e-9 || (a < 1e-3 && (a / (prevStep * prevStep)) * a * a < 1e-10)) {
+      const y1 = (k1 / S) * (1 + (e1 - fp) * dT)
       res[0] = T + dT
-      res[1] = k1 / S
-      res[2] = Math.exp(g[0])
-      res[3] = Math.exp(g[1])
+      res[1] = y1 > 1 ? 1 : y1
+      res[2] = Math.exp(g[0] + g[2] * dT)
+      res[3] = Math.exp(g[1] + g[3] * dT)
       res[4] = it
       res[5] = Math.exp(lnP)
       res[6] = fp
       return true
     }
+    prevStep = a
+    // The step is taken in w = 1/(T + c̄), in which ln Pi_sat is nearly linear, so Newton lands closer.
+    const dc = T + cm
+    const w = 1 / dc + f / (fp * dc * dc)
+    let Tn = w > 0 ? 1 / w - cm : NaN
+    if (!(Math.abs(Tn - T) <= 100)) Tn = dT > 0 ? T + Math.min(dT, 100) : T + Math.max(dT, -100)
+    if (Tn <= lo || Tn >= hi) Tn = hi === Infinity ? T + 100 : 0.5 * (lo + hi)
     if (hi - lo < 1e-9) return false
     T = Tn
   }

@@ -9,7 +9,6 @@ export interface CompiledSystem {
   vp1: LnPsat
   vp2: LnPsat
   source: BinarySystem
-  labels: [string, string]
 }
 
 /** Check a BinarySystem once and reduce its vapour-pressure models to the internal form. */
@@ -23,15 +22,19 @@ export function compileSystem(system: BinarySystem): CompiledSystem {
     vp1: compileVaporPressure(system.vaporPressure[0]),
     vp2: compileVaporPressure(system.vaporPressure[1]),
     source: system,
-    labels: [system.names?.[0] ?? 'Component 1', system.names?.[1] ?? 'Component 2'],
   }
 }
 
 /** Range warnings for the components present (z1 = mole fraction of 1 in the phase that sets the pressure). */
 export function systemWarnings(c: CompiledSystem, T: number, z1: number): string[] {
-  const w1 = z1 > 0 ? rangeWarnings(c.source.vaporPressure[0], c.vp1, T, c.labels[0]) : []
-  const w2 = z1 < 1 ? rangeWarnings(c.source.vaporPressure[1], c.vp2, T, c.labels[1]) : []
-  return w1.length || w2.length ? [...w1, ...w2] : []
+  const out1 = z1 > 0 && (T < c.vp1.tMin || T > c.vp1.tMax)
+  const out2 = z1 < 1 && (T < c.vp2.tMin || T > c.vp2.tMax)
+  if (!out1 && !out2) return []
+  const names = c.source.names
+  return [
+    ...(out1 ? rangeWarnings(c.source.vaporPressure[0], c.vp1, T, names?.[0] ?? 'Component 1') : []),
+    ...(out2 ? rangeWarnings(c.source.vaporPressure[1], c.vp2, T, names?.[1] ?? 'Component 2') : []),
+  ]
 }
 
 /** Throw when the model says a single liquid of this composition would split in two at T (K). */

@@ -7,7 +7,10 @@ import { ThermoError } from '../errors.js'
 import { PASCALS_PER } from '../units.js'
 import { R, type VaporPressureModel } from '../types.js'
 
-const ANTOINE_PRESSURE_UNITS: readonly string[] = ['Pa', 'kPa', 'bar', 'mmHg', 'atm']
+/** ln(pascals per unit) for the units an Antoine model may be stored in. */
+const LN_PASCALS: Readonly<Record<string, number>> = Object.fromEntries(
+  (['Pa', 'kPa', 'bar', 'mmHg', 'atm'] as const).map((u) => [u, Math.log(PASCALS_PER[u])]),
+)
 
 /** ln(P/Pa) = a − b/(T + c), T in K; tMin/tMax the correlation's range in K (±Infinity when none). */
 export interface LnPsat {
@@ -32,14 +35,14 @@ export function compileVaporPressure(model: VaporPressureModel): LnPsat {
   }
   if (model.kind === 'antoine') {
     const { A, B, C, log, pressureUnit, temperatureUnit, range } = model
-    if (![A, B, C].every(Number.isFinite)) {
+    if (!(Number.isFinite(A) && Number.isFinite(B) && Number.isFinite(C))) {
       throw new ThermoError('invalid-model', 'Antoine constants A, B and C must be finite numbers.')
     }
     if (log !== 'ln' && log !== 'log10') {
       throw new ThermoError('invalid-model', `Unknown Antoine logarithm "${log}"; use "ln" or "log10".`)
     }
-    const perUnit = ANTOINE_PRESSURE_UNITS.includes(pressureUnit) ? PASCALS_PER[pressureUnit] : undefined
-    if (perUnit === undefined) {
+    const lnPerUnit = Object.hasOwn(LN_PASCALS, pressureUnit) ? LN_PASCALS[pressureUnit] : undefined
+    if (lnPerUnit === undefined) {
       throw new ThermoError('invalid-model', `Unknown Antoine pressure unit "${pressureUnit}"; use Pa, kPa, bar, mmHg or atm.`)
     }
     if (temperatureUnit !== 'C' && temperatureUnit !== 'K') {
@@ -49,7 +52,7 @@ export function compileVaporPressure(model: VaporPressureModel): LnPsat {
     const k = log === 'ln' ? 1 : Math.LN10
     const shift = temperatureUnit === 'C' ? 273.15 : 0
     return {
-      a: A * k + Math.log(perUnit),
+      a: A * k + lnPerUnit,
       b: B * k,
       c: C - shift,
       tMin: range ? range[0] + shift : -Infinity,
