@@ -1,0 +1,102 @@
+/** Ebullio's plot look and the helpers every plot shares: palette, axes, unit labels, file export. */
+import type { TemperatureUnit } from './plot-types'
+
+/** Curve colours in order of use (slate blue, plum, moss, brick, deep teal, ochre): none is the colour of a measured point. */
+export const CURVE_COLOURS = ['#2c5d9e', '#7a3e8e', '#4d7f2a', '#b0452b', '#0e3238', '#8a6a12']
+export const INK = '#221f1b'
+export const MUTED = '#635e53'
+export const LINE = '#e0ddd5'
+export const WARN = '#a3321f'
+/** Liquid points are teal circles, vapour points amber diamonds: shape and colour both tell them apart. */
+export const LIQUID = { colour: '#1a545c', symbol: 'circle' }
+export const VAPOUR = { colour: '#c98a12', symbol: 'diamond' }
+
+/** Temperature in kelvin → the shown unit. */
+export function showT(T: number, unit: TemperatureUnit): number {
+  return unit === 'C' ? T - 273.15 : T
+}
+
+/** Axis label of a temperature: "T / °C" or "T / K". */
+export function tLabel(unit: TemperatureUnit): string {
+  return unit === 'C' ? 'T / °C' : 'T / K'
+}
+
+/** A number for a tooltip, with a fixed count of decimals and no trailing noise. */
+export function fmt(v: number | null | undefined, digits = 4): string {
+  return v === null || v === undefined || !Number.isFinite(v) ? '–' : v.toFixed(digits)
+}
+
+/** Value axis with Ebullio's grid look. */
+export function valueAxis(name: string, extra: Record<string, unknown> = {}): Record<string, unknown> {
+  return {
+    type: 'value',
+    name,
+    nameLocation: 'middle',
+    nameGap: 34,
+    nameTextStyle: { color: INK, fontSize: 12, fontWeight: 500 },
+    axisLine: { show: true, lineStyle: { color: MUTED } },
+    axisTick: { show: true, lineStyle: { color: MUTED } },
+    axisLabel: { color: MUTED, fontSize: 11 },
+    splitLine: { lineStyle: { color: LINE, type: 'dashed' } },
+    ...extra,
+  }
+}
+
+/** Composition axis fixed to 0–1. */
+export function fractionAxis(name: string): Record<string, unknown> {
+  return valueAxis(name, { min: 0, max: 1, interval: 0.1, axisLabel: { color: MUTED, fontSize: 11, formatter: (v: number) => v.toFixed(1) } })
+}
+
+/** Shared top-level option pieces: font, legend, tooltip box, grid margins. */
+export function baseOption(title: string): Record<string, unknown> {
+  return {
+    animation: false,
+    aria: { enabled: true, label: { description: title } },
+    textStyle: { fontFamily: 'Inter, system-ui, sans-serif', color: INK },
+    grid: { left: 62, right: 24, top: 44, bottom: 52, containLabel: false },
+    tooltip: {
+      trigger: 'item',
+      backgroundColor: '#fffdf8',
+      borderColor: LINE,
+      textStyle: { color: INK, fontSize: 12 },
+      extraCssText: 'box-shadow: 0 2px 8px #0002; border-radius: 6px;',
+    },
+  }
+}
+
+/**
+ * A wrapping legend of the given entries and the grid top that leaves room for it.
+ * The row count is estimated from the text length (about 7 px a character plus the swatch) for a half-width plot.
+ */
+export function legendFor(names: string[], selected: Record<string, boolean> = {}, widthPx = 520): { legend: Record<string, unknown>; top: number } {
+  const widths = names.map((n) => n.length * 6.3 + 44)
+  let rows = names.length ? 1 : 0
+  let used = 0
+  for (const w of widths) {
+    if (used + w > widthPx && used > 0) {
+      rows++
+      used = 0
+    }
+    used += w
+  }
+  const legend = { type: 'plain', top: 4, left: 56, right: 16, data: names, selected, itemWidth: 22, itemHeight: 10, itemGap: 14, textStyle: { color: INK, fontSize: 12 } }
+  return { legend, top: 30 + rows * 22 }
+}
+
+/** Let the browser save a file the app produced (no server round trip). */
+export function saveFile(name: string, content: Blob | string, type = 'text/plain'): void {
+  const blob = typeof content === 'string' ? new Blob([content], { type }) : content
+  const url = URL.createObjectURL(blob)
+  const a = document.createElement('a')
+  a.href = url
+  a.download = name
+  document.body.appendChild(a)
+  a.click()
+  a.remove()
+  setTimeout(() => URL.revokeObjectURL(url), 1000)
+}
+
+/** A file name from a plot title: lower-case words joined by hyphens. */
+export function fileStem(title: string): string {
+  return title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'plot'
+}

@@ -1,0 +1,128 @@
+/** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
+import { errorBarSeries, type ErrorBarDatum } from './error-bars'
+import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, showT, tLabel, valueAxis, VAPOUR, WARN } from './plot-style'
+import type { AzeotropeMark, PureBoiling, TemperatureUnit, TxyCurve, TxyPoint } from './plot-types'
+
+/** Inputs of `txyOption`; see TxyPlot.vue for what each means. */
+export interface TxyOptionInput {
+  title: string
+  points: TxyPoint[]
+  curves: TxyCurve[]
+  pure?: PureBoiling | null
+  azeotrope?: AzeotropeMark | null
+  unit: TemperatureUnit
+  names: [string, string]
+  /** Error bars are ±k·u; k = 1 shows the standard uncertainty. */
+  k: number
+}
+
+export const LIQUID_NAME = 'Liquid x₁'
+export const VAPOUR_NAME = 'Vapour y₁'
+
+function pointItem(p: TxyPoint, phase: 'liquid' | 'vapour', unit: TemperatureUnit) {
+  const look = phase === 'liquid' ? LIQUID : VAPOUR
+  const x = phase === 'liquid' ? p.x1 : (p.y1 as number)
+  return {
+    value: [x, showT(p.T, unit)],
+    pointId: p.id,
+    phase,
+    point: p,
+    symbol: look.symbol,
+    symbolSize: phase === 'liquid' ? 8 : 10,
+    itemStyle: p.excluded ? { color: '#ffffff', borderColor: look.colour, borderWidth: 1.6 } : { color: look.colour, borderColor: '#ffffff', borderWidth: 0.6 },
+  }
+}
+
+function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput): string {
+  const p = d.point
+  const tU = o.unit === 'C' ? '°C' : 'K'
+  const lines = [
+    `<b>${p.note ? p.note : 'Point'}</b> · ${d.phase}`,
+    `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(p.uT, 2)}` : ''}`,
+    `x₁ = ${fmt(p.x1)}${p.ux1 ? ` ± ${fmt(p.ux1)}` : ''}`,
+    `y₁ = ${fmt(p.y1)}${p.uy1 ? ` ± ${fmt(p.uy1)}` : ''}`,
+  ]
+  if (p.excluded) lines.push('<i>excluded from fits</i>')
+  if (p.outlier) lines.push(`<span style="color:${WARN}">flagged as an outlier</span>`)
+  return lines.join('<br>')
+}
+
+function measuredSeries(o: TxyOptionInput): Record<string, unknown>[] {
+  const liquid = o.points.map((p) => pointItem(p, 'liquid', o.unit))
+  const vapour = o.points.filter((p) => p.y1 !== null).map((p) => pointItem(p, 'vapour', o.unit))
+  const barsL: ErrorBarDatum[] = o.points.map((p) => [p.x1, showT(p.T, o.unit), o.k * (p.ux1 ?? 0), o.k * (p.uT ?? 0)])
+  const barsV: ErrorBarDatum[] = o.points.filter((p) => p.y1 !== null).map((p) => [p.y1 as number, showT(p.T, o.unit), o.k * (p.uy1 ?? 0), o.k * (p.uT ?? 0)])
+  const flagged = o.points
+    .filter((p) => p.outlier)
+    .flatMap((p) => [[p.x1, showT(p.T, o.unit)], ...(p.y1 !== null ? [[p.y1, showT(p.T, o.unit)]] : [])])
+  const out: Record<string, unknown>[] = [
+    errorBarSeries(LIQUID_NAME, barsL, LIQUID.colour),
+    errorBarSeries(VAPOUR_NAME, barsV, VAPOUR.colour),
+    { type: 'scatter', name: LIQUID_NAME, data: liquid, z: 4, color: LIQUID.colour, itemStyle: { color: LIQUID.colour }, symbol: LIQUID.symbol, cursor: 'pointer' },
+    { type: 'scatter', name: VAPOUR_NAME, data: vapour, z: 4, color: VAPOUR.colour, itemStyle: { color: VAPOUR.colour }, symbol: VAPOUR.symbol, cursor: 'pointer' },
+  ]
+  if (flagged.length) {
+    out.push({ type: 'scatter', name: 'Flagged outlier', data: flagged, silent: true, z: 3, symbol: 'circle', symbolSize: 18, itemStyle: { color: 'rgba(163,50,31,0.08)', borderColor: WARN, borderWidth: 1.6 } })
+  }
+  return out
+}
+
+function curveSeries(o: TxyOptionInput): Record<string, unknown>[] {
+  return o.curves.flatMap((c, i) => {
+    const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
+    const T = c.T.map((t) => showT(t, o.unit))
+    const line = { type: 'line', name: c.name, showSymbol: false, silent: true, z: 2, color: colour }
+    return [
+      { ...line, data: c.x1.map((x, j) => [x, T[j]]), lineStyle: { color: colour, width: 2 } },
+      { ...line, data: c.y1.map((y, j) => [y, T[j]]), lineStyle: { color: colour, width: 2, type: 'dashed' } },
+    ]
+  })
+}
+
+function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
+  const out: Record<string, unknown>[] = []
+  if (o.pure) {
+    const tU = o.unit === 'C' ? '°C' : 'K'
+    const data = [
+      // Labels sit where the curves are not: above-right of the x1 = 0 end, below-left of the x1 = 1 end.
+      { value: [1, showT(o.pure.T1, o.unit)], label: { position: 'bottom', align: 'right', offset: [-4, 0] }, name: o.names[0] },
+      { value: [0, showT(o.pure.T2, o.unit)], label: { position: 'top', align: 'left', offset: [6, 0] }, name: o.names[1] },
+    ]
+    out.push({
+      type: 'scatter', name: 'Pure-component boiling point', data, symbol: 'rect', symbolSize: 9, z: 5, itemStyle: { color: INK },
+      label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}` },
+      tooltip: { formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}` },
+    })
+  }
+  if (o.azeotrope && o.azeotrope.T !== undefined) {
+    const tU = o.unit === 'C' ? '°C' : 'K'
+    out.push({
+      type: 'scatter', name: 'Azeotrope', z: 6, symbol: 'triangle', symbolSize: 13,
+      itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
+      data: [[o.azeotrope.x1, showT(o.azeotrope.T, o.unit)]],
+      tooltip: { formatter: () => `Azeotrope${o.azeotrope?.kind ? ` (${o.azeotrope.kind.replace('-', ' ')})` : ''}<br>x₁ = y₁ = ${fmt(o.azeotrope?.x1)}<br>T = ${fmt(showT(o.azeotrope!.T!, o.unit), 2)} ${tU}` },
+    })
+  }
+  return out
+}
+
+/** Build the whole option. */
+export function txyOption(o: TxyOptionInput): Record<string, unknown> {
+  const base = baseOption(o.title)
+  const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
+  const names = [LIQUID_NAME, VAPOUR_NAME, ...o.curves.map((c) => c.name)]
+  const { legend, top } = legendFor(names, selected)
+  return {
+    ...base,
+    legend,
+    grid: { left: 62, right: 24, top, bottom: 52 },
+    tooltip: {
+      ...(base.tooltip as object),
+      formatter: (p: { data: { point?: TxyPoint; phase?: string }; seriesName: string }) =>
+        p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : p.seriesName,
+    },
+    xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
+    yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),
+    series: [...curveSeries(o), ...measuredSeries(o), ...markerSeries(o)],
+  }
+}

@@ -1,0 +1,88 @@
+/** ECharts option of the x–y plot: diagonal, equilibrium curves, measured pairs, azeotrope, McCabe–Thiele construction. */
+import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
+import type { AzeotropeMark, StageConstruction, XyCurve, XyPoint } from './plot-types'
+
+/** Inputs of `xyOption`; see XyPlot.vue. */
+export interface XyOptionInput {
+  title: string
+  curves: XyCurve[]
+  points: XyPoint[]
+  azeotrope?: AzeotropeMark | null
+  stages?: StageConstruction | null
+  names: [string, string]
+}
+
+const STEP = '#b0452b'
+const OPERATING = '#0e3238'
+
+function stageSeries(s: StageConstruction): Record<string, unknown>[] {
+  const corner = s.intersection ?? { x: s.xF, y: s.rectifying.slope * s.xF + s.rectifying.intercept }
+  const lineStyle = { color: OPERATING, width: 1.5 }
+  const labels = s.staircase
+    .filter((_, i) => i % 2 === 1)
+    .map((p, i) => ({ value: [p.x, p.y], name: String(i + 1) }))
+  return [
+    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[s.xD, s.xD], [corner.x, corner.y]], lineStyle, color: OPERATING },
+    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[corner.x, corner.y], [s.xB, s.xB]], lineStyle, color: OPERATING },
+    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[s.xF, s.xF], [corner.x, corner.y]], lineStyle: { ...lineStyle, type: 'dotted' }, color: OPERATING },
+    {
+      type: 'line', name: 'Theoretical stages', silent: true, showSymbol: false, z: 4, color: STEP,
+      data: s.staircase.map((p) => [p.x, p.y]), lineStyle: { color: STEP, width: 1.4 },
+    },
+    {
+      type: 'scatter', name: 'Theoretical stages', silent: true, symbolSize: 0, z: 5, data: labels,
+      label: { show: true, position: 'left', distance: 3, fontSize: 10, color: STEP, formatter: (p: { name: string }) => p.name },
+    },
+    {
+      type: 'scatter', name: 'Targets', z: 6, symbol: 'circle', symbolSize: 7, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
+      data: [
+        { value: [s.xD, s.xD], name: `x_D = ${fmt(s.xD, 3)}` },
+        { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
+        { value: [s.xB, s.xB], name: `x_B = ${fmt(s.xB, 3)}` },
+      ],
+      tooltip: { formatter: (p: { name: string }) => p.name },
+    },
+  ]
+}
+
+/** Build the whole option. */
+export function xyOption(o: XyOptionInput): Record<string, unknown> {
+  const base = baseOption(o.title)
+  const series: Record<string, unknown>[] = [
+    { type: 'line', name: 'y = x', silent: true, showSymbol: false, data: [[0, 0], [1, 1]], lineStyle: { color: MUTED, width: 1, type: 'dashed' }, color: MUTED },
+    ...o.curves.map((c, i) => {
+      const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
+      return { type: 'line', name: c.name, silent: true, showSymbol: false, z: 3, color: colour, lineStyle: { color: colour, width: 2 }, data: c.x1.map((x, j) => [x, c.y1[j]]) }
+    }),
+  ]
+  if (o.points.length) {
+    series.push({
+      type: 'scatter', name: 'Measured', z: 5, color: LIQUID.colour, symbol: LIQUID.symbol, symbolSize: 8,
+      data: o.points.map((p) => ({
+        value: [p.x1, p.y1], pointId: p.id,
+        itemStyle: p.excluded ? { color: '#fff', borderColor: LIQUID.colour, borderWidth: 1.6 } : { color: LIQUID.colour },
+      })),
+      itemStyle: { color: LIQUID.colour },
+      tooltip: { formatter: (p: { value: number[] }) => `x₁ = ${fmt(p.value[0])}<br>y₁ = ${fmt(p.value[1])}` },
+    })
+  }
+  if (o.azeotrope) {
+    series.push({
+      type: 'scatter', name: 'Azeotrope', z: 7, symbol: 'triangle', symbolSize: 13, itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
+      data: [[o.azeotrope.x1, o.azeotrope.x1]],
+      tooltip: { formatter: () => `Azeotrope: x₁ = y₁ = ${fmt(o.azeotrope?.x1)}` },
+    })
+  }
+  if (o.stages) series.push(...stageSeries(o.stages))
+  const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
+  const names = [...o.curves.map((c) => c.name), ...(o.points.length ? ['Measured'] : []), ...(o.stages ? ['Operating lines', 'Theoretical stages'] : [])]
+  const { legend, top } = legendFor(names, selected)
+  return {
+    ...base,
+    legend,
+    grid: { left: 58, right: 20, top, bottom: 52 },
+    xAxis: fractionAxis(`x₁ (liquid, ${o.names[0]})`),
+    yAxis: fractionAxis(`y₁ (vapour, ${o.names[0]})`),
+    series,
+  }
+}
