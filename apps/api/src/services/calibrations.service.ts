@@ -1,0 +1,100 @@
+/** GC methods and calibrations: a calibration sheet is previewed, fitted by thermo, then committed in one transaction. */
+import { fitCalibration, type Calibration, type CalibrationModel } from '@ebullio/thermo'
+import type { Kysely } from 'kysely'
+import type { Database, Db } from '../db/index.js'
+import { conflict, notFound } from '../errors/index.js'
+import { appendAudit } from '../repositories/audit.repository.js'
+import * as repo from '../repositories/calibrations.repository.js'
+import { insertUpload } from '../repositories/uploads.repository.js'
+import { parseCalibrationFile, type CalibrationFileParse } from '../uploads/calibration-file.js'
+import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
+import { translateDbError } from './lab-access.js'
+import { getSystem } from './systems.service.js'
+import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
+
+export async function createGcMethod(db: Db, actorId: string, m: Omit<repo.GcMethodRecord, 'id' | 'createdAt'>): Promise<repo.GcMethodRecord> {
+  try {
+    const method = await repo.insertGcMethod(db, m, actorId)
+    await appendAudit(db, { actorId, entity: 'gc_method', entityId: method.id, action: 'create', after: m })
+    return method
+  } catch (err) {
+    return translateDbError(err, { gc_method_name_key: 'A GC method with this name already exists.' })
+  }
+}
+
+export interface CalibrationPreview extends Omit<CalibrationFileParse, 'problems'> {
+  file: FileSummary
+  gcMethodId: string
+  systemId: string
+  model: CalibrationModel
+  calibration: Calibration | null
+  problems: UploadProblem[]
+  errorCount: number
+  warningCount: number
+}
+
+export interface CalibrationRequest {
+  gcMethodId: string
+  systemId: string
+  model: CalibrationModel
+}
+
+/** Parse and fit a calibration sheet without storing anything. */
+export async function previewCalibration(db: Db, req: CalibrationRequest, file: UploadedFile): Promise<CalibrationPreview> {
+  if (!(await repo.findGcMethod(db, req.gcMethodId))) throw notFound('There is no such GC method.')
+  const system = await getSystem(db, req.systemId)
+  const parsed = parseCalibrationFile(file.content)
+  const problems = [...parsed.problems]
+  let calibration: Calibration | null = null
+  if (problems.length === 0) {
+    try {
+      calibration = fitCalibration({
+        model: req.model,
+        molarMasses: [system.component1.molarMass, system.component2.molarMass],
+        standards: parsed.standards.map((s) => ({
+          label: s.label,
+          composition: s.basis === 'mass' ? { w1: s.fraction1 } : { x1: s.fraction1 },
+          injections: s.injections.map((i) => ({ area1: i.area1, area2: i.area2 })),
+        })),
+      })
+      for (const w of calibration.warnings) problems.push(uploadWarning(null, null, null, w))
+    } catch (err) {
+      if ((err as Error).name !== 'ThermoError') throw err
+      problems.push(uploadError(null, null, null, `The calibration could not be fitted: ${(err as Error).message}`))
+    }
+  }
+  return { ...parsed, ...req, file: summarizeFile(file), calibration, problems, ...countProblems(problems) }
+}
+
+/** Store the file, the standards and the fitted calibration (all or nothing); it becomes the active one. */
+export async function commitCalibration(db: Kysely<Database>, actorId: string, req: CalibrationRequest, file: UploadedFile, acceptWarnings: boolean): Promise<repo.CalibrationRecord> {
+  const preview = await previewCalibration(db, req, file)
+  assertCommittable(preview.problems, acceptWarnings)
+  const cal = preview.calibration!
+  return db.transaction().execute(async (tx) => {
+    const upload = await insertUpload(tx, { kind: 'calibration', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: actorId, dataSetId: null })
+    const retired = await repo.retireActive(tx, req.gcMethodId, req.systemId)
+    const record = await repo.insertCalibration(tx, {
+      ...req, result: cal, rangeMin: cal.calibratedRange.x1[0], rangeMax: cal.calibratedRange.x1[1], uploadId: upload.id, createdBy: actorId,
+      standards: preview.standards.map((s, i) => ({ label: s.label, basis: s.basis, fraction1: s.fraction1, x1: cal.residuals[i].x1, injections: s.injections })),
+    })
+    await appendAudit(tx, { actorId, entity: 'upload', entityId: upload.id, action: 'upload calibration file', after: preview.file })
+    for (const id of retired) await appendAudit(tx, { actorId, entity: 'calibration', entityId: id, action: 'retire', after: { replacedBy: record.id } })
+    await appendAudit(tx, { actorId, entity: 'calibration', entityId: record.id, action: 'create', after: { model: req.model, coefficients: cal.coefficients, range: cal.calibratedRange.x1 } })
+    return record
+  })
+}
+
+export async function getCalibration(db: Db, id: string) {
+  const c = await repo.findCalibration(db, id)
+  if (!c) throw notFound('There is no such calibration.')
+  return { ...c, standards: await repo.listStandards(db, id) }
+}
+
+export async function retireCalibration(db: Db, actorId: string, id: string): Promise<void> {
+  const c = await repo.findCalibration(db, id)
+  if (!c) throw notFound('There is no such calibration.')
+  if (c.status === 'retired') throw conflict('This calibration is already retired.')
+  await repo.retireCalibration(db, id)
+  await appendAudit(db, { actorId, entity: 'calibration', entityId: id, action: 'retire' })
+}

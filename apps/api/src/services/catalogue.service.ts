@@ -1,0 +1,66 @@
+/** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
+import { findAzeotrope, phaseDiagram, relativeVolatility, type ActivityModel } from '@ebullio/thermo'
+import { sql } from 'kysely'
+import type { SessionUser } from '../auth/index.js'
+import type { Db } from '../db/index.js'
+import { conflict, notFound } from '../errors/index.js'
+import * as repo from '../repositories/datasets.repository.js'
+import { findFit } from '../repositories/fits.repository.js'
+import { listSystems } from '../repositories/systems.repository.js'
+import { thermo, visibleOrNotFound } from './lab-access.js'
+import { binarySystem, engineInputs } from './systems.service.js'
+
+/** Shown with every design-related result (see the product rules on results that can hurt someone). */
+export const DESIGN_CAUTION =
+  'Preliminary estimate from equilibrium data (modified Raoult\'s law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer\'s review.'
+
+/** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit. */
+export async function catalogue(db: Db, o: { q?: string; page: number; pageSize: number }) {
+  const systems = await listSystems(db, { q: o.q, limit: 1000, offset: 0 })
+  const rows = await db.selectFrom('data_set as d').leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
+    .select(['d.id', 'd.system_id', 'd.version', 'd.state', 'd.title', 'd.nominal_pressure_pa', 'd.approved_at', 'f.id as fit_id', 'f.model', 'f.parameters', sql<unknown>`f.statistics`.as('statistics')])
+    .where('d.state', 'in', ['approved', 'superseded']).orderBy('d.version', 'desc').execute()
+  const items = systems.items.flatMap((s) => {
+    const versions = rows.filter((r) => r.system_id === s.id)
+    if (versions.length === 0) return []
+    const current = versions.filter((v) => v.state === 'approved')
+    return [{
+      system: s,
+      approved: current.map((v) => ({
+        dataSetId: v.id, title: v.title, version: v.version, nominalPressurePa: v.nominal_pressure_pa, approvedAt: v.approved_at,
+        recommendedFit: v.fit_id ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+      })),
+      superseded: versions.filter((v) => v.state === 'superseded').map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
+    }]
+  })
+  const start = (o.page - 1) * o.pageSize
+  return { items: items.slice(start, start + o.pageSize), total: items.length, page: o.page, pageSize: o.pageSize }
+}
+
+/** The activity model to compute with: the fit asked for, else the recommended one. */
+async function chosenActivity(db: Db, d: repo.DataSetRecord, fitId?: string): Promise<{ fitId: string; model: string; activity: ActivityModel }> {
+  const id = fitId ?? d.recommendedFitId
+  if (!id) throw conflict('This data set has no recommended fit yet; choose a fit.')
+  const fit = await findFit(db, id)
+  if (!fit || fit.dataSetId !== d.id) throw notFound('There is no such fit in this data set.')
+  return { fitId: fit.id, model: fit.model, activity: fit.activity as unknown as ActivityModel }
+}
+
+/** T–x–y and x–y at pressure P (Pa), relative volatility across composition and the azeotrope, if any. */
+export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: number; points: number; fitId?: string }) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const chosen = await chosenActivity(db, d, o.fitId)
+  const inputs = await engineInputs(db, d.systemId)
+  const system = binarySystem(inputs, chosen.activity)
+  const diagram = thermo('T–x–y curve', () => phaseDiagram(system, { P: o.P }, { points: o.points }))
+  const azeotrope = thermo('Azeotrope search', () => findAzeotrope(system, { P: o.P }))
+  const volatility = Array.from({ length: 21 }, (_, i) => i / 20).map((x1) => {
+    const r = thermo('Relative volatility', () => relativeVolatility(system, { P: o.P, x1 }))
+    return { x1, alpha: r.alpha, T: r.T }
+  })
+  return {
+    dataSetId: id, fitId: chosen.fitId, model: chosen.model, P: o.P,
+    components: [inputs.system.component1.name, inputs.system.component2.name],
+    diagram, azeotrope, relativeVolatility: volatility, caution: DESIGN_CAUTION,
+  }
+}

@@ -1,0 +1,151 @@
+/** Data sets: create, list, read with points and fits, edit metadata, exclude points, revise an approved version. */
+import type { Kysely } from 'kysely'
+import type { SessionUser } from '../auth/index.js'
+import type { Database, Db } from '../db/index.js'
+import type { DataSetState } from '../db/lab-tables.js'
+import { conflict, notFound } from '../errors/index.js'
+import { listApprovals } from '../repositories/approvals.repository.js'
+import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
+import { listComments } from '../repositories/comments.repository.js'
+import * as repo from '../repositories/datasets.repository.js'
+import { copyFits, listConsistency, listFits } from '../repositories/fits.repository.js'
+import * as points from '../repositories/points.repository.js'
+import { listUploadsOf } from '../repositories/uploads.repository.js'
+import { EDITABLE_STATES, PUBLISHED_STATES, pageWindow, readsEverything, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
+import { getSystem } from './systems.service.js'
+
+export interface DataSetInput {
+  systemId: string
+  title: string
+  nominalPressurePa: number
+  apparatusNotes: string | null
+  projectRef: string | null
+}
+
+export async function createDataSet(db: Db, actorId: string, input: DataSetInput): Promise<repo.DataSetRecord> {
+  await getSystem(db, input.systemId)
+  const d = await repo.insertDataSet(db, { ...input, createdBy: actorId })
+  await appendAudit(db, { actorId, entity: 'data_set', entityId: d.id, action: 'create', dataSetId: d.id, after: input })
+  return d
+}
+
+export interface ListOptions {
+  state?: DataSetState[]
+  systemId?: string
+  createdBy?: string
+  q?: string
+  pressureMinPa?: number
+  pressureMaxPa?: number
+  sort: repo.DataSetQuery['sort']
+  order: 'asc' | 'desc'
+  page: number
+  pageSize: number
+}
+
+/** One page of data sets; engineers see approved and superseded versions only. */
+export async function listDataSets(db: Db, user: SessionUser, o: ListOptions) {
+  let states = o.state
+  if (!readsEverything(user)) states = (states ?? [...PUBLISHED_STATES]).filter((s) => PUBLISHED_STATES.includes(s))
+  if (states && states.length === 0) return { items: [], total: 0, page: o.page, pageSize: o.pageSize }
+  const r = await repo.listDataSets(db, { ...o, states, ...pageWindow(o.page, o.pageSize) })
+  return { ...r, page: o.page, pageSize: o.pageSize }
+}
+
+/** Everything about one version: system, points, fits, consistency, comments, uploads, signatures, versions. */
+export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const full = readsEverything(user)
+  return {
+    ...d,
+    system: await getSystem(db, d.systemId),
+    points: await points.listPoints(db, id),
+    fits: await listFits(db, id),
+    consistency: await listConsistency(db, id),
+    comments: full ? await listComments(db, id) : [],
+    uploads: full ? await listUploadsOf(db, id) : [],
+    approvals: await listApprovals(db, id),
+    versions: (await repo.listVersions(db, d.lineageId))
+      .filter((v) => full || PUBLISHED_STATES.includes(v.state))
+      .map((v) => ({ id: v.id, version: v.version, state: v.state, approvedAt: v.approvedAt })),
+  }
+}
+
+export async function getPointDetail(db: Db, user: SessionUser, dataSetId: string, pointId: string) {
+  visibleOrNotFound(user, await repo.findDataSet(db, dataSetId))
+  const p = await points.findPoint(db, pointId)
+  if (!p || p.dataSetId !== dataSetId) throw notFound('There is no such point in this data set.')
+  return { ...p, injections: await points.listInjections(db, pointId) }
+}
+
+export type MetadataPatch = Partial<Omit<DataSetInput, 'systemId'>>
+
+/** Edit metadata of a draft; refused when the caller's row version is stale. */
+export async function updateMetadata(db: Kysely<Database>, user: SessionUser, id: string, rowVersion: number, patch: MetadataPatch) {
+  return db.transaction().execute(async (tx) => {
+    const before = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    requireState(before, EDITABLE_STATES, 'editing')
+    if (before.rowVersion !== rowVersion) throw staleWrite(rowVersion, before.rowVersion)
+    const after = await repo.updateDataSet(tx, id, patch, rowVersion)
+    if (!after) throw staleWrite(rowVersion, before.rowVersion + 1)
+    const changed = Object.keys(patch) as (keyof MetadataPatch)[]
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'update metadata', dataSetId: id,
+      before: Object.fromEntries(changed.map((k) => [k, before[k]])), after: patch })
+    return after
+  })
+}
+
+/** Exclude a point (a reason is mandatory) or include it again. */
+export async function setPointExclusion(db: Kysely<Database>, user: SessionUser, dataSetId: string, pointId: string, o: { excluded: boolean; reason: string | null; rowVersion: number }) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, dataSetId))
+    const p = await points.findPoint(tx, pointId)
+    if (!p || p.dataSetId !== dataSetId) throw notFound('There is no such point in this data set.')
+    requireState(d, EDITABLE_STATES, 'excluding points')
+    if (d.rowVersion !== o.rowVersion) throw staleWrite(o.rowVersion, d.rowVersion)
+    if (o.excluded && !o.reason?.trim()) throw conflict('Give a reason for excluding this point.')
+    const after = await points.setExclusion(tx, pointId, o.excluded, o.reason?.trim() ?? null)
+    const ds = await repo.updateDataSet(tx, dataSetId, {})
+    await appendAudit(tx, { actorId: user.id, entity: 'point', entityId: pointId, action: o.excluded ? 'exclude point' : 'include point', dataSetId,
+      before: { excluded: p.excluded, reason: p.exclusionReason }, after: { excluded: after.excluded, reason: after.exclusionReason, sample: p.sampleLabel } })
+    return { point: after, rowVersion: ds!.rowVersion }
+  })
+}
+
+/** Delete a draft that was never submitted. */
+export async function deleteDraft(db: Kysely<Database>, user: SessionUser, id: string) {
+  await db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    requireState(d, ['draft'], 'deleting')
+    if (d.submittedAt) throw conflict('This data set has been submitted before; it is kept for the record.')
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'delete draft', before: { title: d.title, version: d.version } })
+    await repo.deleteDataSet(tx, id)
+  })
+}
+
+/** "Revise": a new draft version of an approved data set, carrying its points (and fits) over. */
+export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id: string) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    requireState(d, ['approved'], 'revising')
+    const versions = await repo.listVersions(tx, d.lineageId)
+    const open = versions.find((v) => !PUBLISHED_STATES.includes(v.state))
+    if (open) throw conflict(`Version ${open.version} of this data set is already being worked on (${open.state}).`, { dataSetId: open.id })
+    const next = await repo.insertDataSet(tx, {
+      lineageId: d.lineageId, version: Math.max(...versions.map((v) => v.version)) + 1, previousVersionId: d.id, systemId: d.systemId,
+      title: d.title, nominalPressurePa: d.nominalPressurePa, apparatusNotes: d.apparatusNotes, projectRef: d.projectRef, createdBy: user.id,
+    })
+    const pointMap = await points.copyPoints(tx, d.id, next.id)
+    const fitMap = await copyFits(tx, d.id, next.id, pointMap)
+    const rec = d.recommendedFitId ? fitMap.get(d.recommendedFitId) ?? null : null
+    const after = rec ? await repo.updateDataSet(tx, next.id, { recommendedFitId: rec }) : next
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: next.id, action: 'revise', dataSetId: next.id,
+      after: { fromVersion: d.version, version: next.version, points: pointMap.size, fits: fitMap.size } })
+    return after!
+  })
+}
+
+/** The whole lineage's audit trail, oldest first. */
+export async function auditTrail(db: Db, user: SessionUser, id: string) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  return listAuditForLineage(db, d.lineageId)
+}

@@ -1,0 +1,108 @@
+/** Model fits and consistency tests on a data set's included points; the lead chemist marks the recommended fit. */
+import type { Kysely } from 'kysely'
+import type { SessionUser } from '../auth/index.js'
+import type { Database } from '../db/index.js'
+import { conflict, notFound } from '../errors/index.js'
+import { appendAudit } from '../repositories/audit.repository.js'
+import * as repo from '../repositories/datasets.repository.js'
+import * as fits from '../repositories/fits.repository.js'
+import { listPoints, type PointRecord } from '../repositories/points.repository.js'
+import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult, type FitModelName } from './engine-bridge.js'
+import { FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
+import { engineInputs } from './systems.service.js'
+
+export interface FitRequest {
+  models: FitModelName[]
+  objective?: 'bubble-point' | 'activity'
+  alpha?: number
+  fitAlpha?: boolean
+}
+
+/** Once submitted, only a lead chemist may still add fits or choose the recommended one. */
+function onlyLeadOnceSubmitted(user: SessionUser, d: repo.DataSetRecord, action: string): void {
+  if (d.state === 'submitted' && !user.roles.includes('lead_chemist')) {
+    throw conflict(`This data set is submitted; only a lead chemist may go on ${action}.`)
+  }
+}
+
+const included = (points: PointRecord[]) => points.filter((p) => !p.excluded)
+
+function statistics(r: FitBinaryResult) {
+  const { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings } = r
+  return { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings }
+}
+
+/**
+ * Fit each requested model to the included points (each point at its own measured P) and store the fits.
+ * Excluded points are passed as excluded so their residuals are still reported.
+ */
+export async function runFits(db: Kysely<Database>, user: SessionUser, id: string, req: FitRequest) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  requireState(d, FITTABLE_STATES, 'fitting')
+  onlyLeadOnceSubmitted(user, d, 'fitting')
+  const points = await listPoints(db, id)
+  if (included(points).length === 0) throw conflict('This data set has no included points to fit.')
+  const inputs = await engineInputs(db, d.systemId)
+  const results = req.models.map((model) => {
+    const options = { model, objective: req.objective ?? 'bubble-point', alpha: req.alpha, fitAlpha: req.fitAlpha, V1: inputs.V1, V2: inputs.V2 }
+    const r = thermo(`Fitting ${model}`, () => fitBinary({
+      ...options, vaporPressure: inputs.vaporPressure,
+      points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+    }))
+    return { model, options, r }
+  })
+  return db.transaction().execute(async (tx) => {
+    const locked = await repo.lockDataSet(tx, id)
+    requireState(locked!, FITTABLE_STATES, 'fitting')
+    const stored: fits.FitRecord[] = []
+    for (const { model, options, r } of results) {
+      const fit = await fits.insertFit(tx, {
+        dataSetId: id, model, options: JSON.parse(JSON.stringify(options)), activity: r.activity as unknown as Record<string, unknown>,
+        parameters: r.parameters, statistics: statistics(r),
+        residuals: r.residuals.map((res, i) => ({ pointId: points[i].id, ...res })),
+        pointIds: included(points).map((p) => p.id), runBy: user.id,
+      })
+      stored.push(fit)
+      await appendAudit(tx, { actorId: user.id, entity: 'fit', entityId: fit.id, action: 'run fit', dataSetId: id,
+        after: { model, parameters: r.parameters, rmsT: r.rmsT, rmsY: r.rmsY, converged: r.converged, points: fit.pointIds.length } })
+    }
+    const after = await repo.updateDataSet(tx, id, {})
+    return { fits: stored, rowVersion: after!.rowVersion }
+  })
+}
+
+/** The lead chemist's choice of the fit the data set is approved with. */
+export async function markRecommended(db: Kysely<Database>, user: SessionUser, id: string, fitId: string) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    const fit = await fits.findFit(tx, fitId)
+    if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
+    requireState(d, FITTABLE_STATES, 'choosing the recommended fit')
+    const after = await repo.updateDataSet(tx, id, { recommendedFitId: fitId })
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'mark recommended fit', dataSetId: id,
+      before: { recommendedFitId: d.recommendedFitId }, after: { recommendedFitId: fitId, model: fit.model } })
+    return after!
+  })
+}
+
+/** Run the area test and the point test on the included points and attach the results to this version. */
+export async function runConsistency(db: Kysely<Database>, user: SessionUser, id: string, model: FitModelName) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  requireState(d, FITTABLE_STATES, 'running consistency tests')
+  onlyLeadOnceSubmitted(user, d, 'running consistency tests')
+  const pts = included(await listPoints(db, id)).map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1 }))
+  if (pts.length === 0) throw conflict('This data set has no included points to test.')
+  const inputs = await engineInputs(db, d.systemId)
+  const area = thermo('Area test', () => heringtonAreaTest(pts, { vaporPressure: inputs.vaporPressure }))
+  const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, V1: inputs.V1, V2: inputs.V2 }))
+  return db.transaction().execute(async (tx) => {
+    const out = []
+    for (const [test, r] of [['herington-area', area], ['point', point]] as const) {
+      const rec = await fits.insertConsistency(tx, { dataSetId: id, test, passed: r.passed, result: { ...r, model: test === 'point' ? model : undefined }, runBy: user.id })
+      await appendAudit(tx, { actorId: user.id, entity: 'consistency_result', entityId: rec.id, action: `run ${test} test`, dataSetId: id, after: { passed: r.passed } })
+      out.push(rec)
+    }
+    await repo.updateDataSet(tx, id, {})
+    return out
+  })
+}

@@ -1,0 +1,64 @@
+/** Binary systems and the engine inputs (vapour-pressure models, molar volumes) they imply. */
+import type { BinarySystem, VaporPressureModel } from '@ebullio/thermo'
+import type { Db } from '../db/index.js'
+import { conflict, notFound } from '../errors/index.js'
+import { appendAudit } from '../repositories/audit.repository.js'
+import { findComponent, listVaporPressureSets, type VaporPressureRecord } from '../repositories/components.repository.js'
+import * as repo from '../repositories/systems.repository.js'
+
+export async function createSystem(db: Db, actorId: string, input: { component1Id: string; component2Id: string; notes: string | null }): Promise<repo.SystemRecord> {
+  if (input.component1Id === input.component2Id) throw conflict('A binary system needs two different components.')
+  for (const id of [input.component1Id, input.component2Id]) {
+    if (!(await findComponent(db, id))) throw notFound('There is no such component.')
+  }
+  const existing = await repo.findSystemByPair(db, input.component1Id, input.component2Id)
+  if (existing) throw conflict(`The system ${existing.name} already exists.`, { systemId: existing.id })
+  const s = await repo.insertSystem(db, { ...input, createdBy: actorId })
+  await appendAudit(db, { actorId, entity: 'binary_system', entityId: s.id, action: 'create', after: { name: s.name } })
+  return s
+}
+
+export async function getSystem(db: Db, id: string): Promise<repo.SystemRecord> {
+  const s = await repo.findSystem(db, id)
+  if (!s) throw notFound('There is no such binary system.')
+  return s
+}
+
+/** The preferred (else newest) vapour-pressure set of a component. */
+function pick(sets: VaporPressureRecord[], componentId: string, name: string): VaporPressureRecord {
+  const set = sets.find((s) => s.componentId === componentId)
+  if (!set) throw conflict(`${name} has no vapour-pressure set; add one before fitting or computing curves.`)
+  return set
+}
+
+export interface EngineInputs {
+  system: repo.SystemRecord
+  vaporPressure: [VaporPressureModel, VaporPressureModel]
+  vaporPressureSets: [VaporPressureRecord, VaporPressureRecord]
+  /** liquid molar volumes in cm³/mol (Wilson), when known */
+  V1: number | undefined
+  V2: number | undefined
+  /** g/mol */
+  molarMasses: [number, number]
+}
+
+/** What thermo needs to compute with this system. */
+export async function engineInputs(db: Db, systemId: string): Promise<EngineInputs> {
+  const system = await getSystem(db, systemId)
+  const sets = await listVaporPressureSets(db, [system.component1.id, system.component2.id])
+  const s1 = pick(sets, system.component1.id, system.component1.name)
+  const s2 = pick(sets, system.component2.id, system.component2.name)
+  return {
+    system,
+    vaporPressure: [s1.parameters as unknown as VaporPressureModel, s2.parameters as unknown as VaporPressureModel],
+    vaporPressureSets: [s1, s2],
+    V1: system.component1.liquidMolarVolume ?? undefined,
+    V2: system.component2.liquidMolarVolume ?? undefined,
+    molarMasses: [system.component1.molarMass, system.component2.molarMass],
+  }
+}
+
+/** thermo's BinarySystem from stored inputs and an activity model. */
+export function binarySystem(inputs: EngineInputs, activity: BinarySystem['activity']): BinarySystem {
+  return { vaporPressure: inputs.vaporPressure, activity }
+}

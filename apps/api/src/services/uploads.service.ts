@@ -1,0 +1,132 @@
+/** The analyst's main step: a run sheet previewed with x and y per sample, then committed as points in one transaction. */
+import { compositionFromAreas, type Calibration, type CompositionResult } from '@ebullio/thermo'
+import type { Kysely } from 'kysely'
+import type { SessionUser } from '../auth/index.js'
+import type { Config } from '../config.js'
+import type { Database, Db } from '../db/index.js'
+import { conflict, notFound } from '../errors/index.js'
+import { appendAudit } from '../repositories/audit.repository.js'
+import { findCalibration, listCalibrations, type CalibrationRecord } from '../repositories/calibrations.repository.js'
+import * as datasets from '../repositories/datasets.repository.js'
+import { insertPoints, nextSeq } from '../repositories/points.repository.js'
+import { insertUpload } from '../repositories/uploads.repository.js'
+import type { ParsedInjection } from '../uploads/calibration-file.js'
+import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
+import { DEFAULT_BOUNDS, parseRunFile, type RunFileParse, type RunSample } from '../uploads/run-file.js'
+import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
+import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
+
+/** One sample of the preview: SI conditions and the computed compositions with standard uncertainties. */
+export interface PreviewSample {
+  label: string
+  rows: number[]
+  temperatureK: number
+  pressurePa: number
+  x1: number | null
+  x1Uncertainty: number | null
+  x1Rsd: number | null
+  y1: number | null
+  y1Uncertainty: number | null
+  y1Rsd: number | null
+  liquid: ParsedInjection[]
+  vapour: ParsedInjection[]
+}
+
+export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
+  file: FileSummary
+  dataSetId: string
+  calibrationId: string
+  samples: PreviewSample[]
+  problems: UploadProblem[]
+  errorCount: number
+  warningCount: number
+}
+
+/** The calibration to use: the one asked for, or the only active one for the system. */
+async function chooseCalibration(db: Db, systemId: string, calibrationId: string | undefined): Promise<CalibrationRecord> {
+  if (calibrationId) {
+    const c = await findCalibration(db, calibrationId)
+    if (!c) throw notFound('There is no such calibration.')
+    if (c.systemId !== systemId) throw conflict('This calibration belongs to another binary system.')
+    if (c.status !== 'active') throw conflict('This calibration is retired; choose the active one.')
+    return c
+  }
+  const active = await listCalibrations(db, { systemId, status: 'active' })
+  if (active.length === 0) throw conflict('There is no active calibration for this system; upload a calibration file first.')
+  if (active.length > 1) throw conflict('Several GC methods have an active calibration for this system; choose one (calibrationId).')
+  return active[0]
+}
+
+/** x1 of one phase from its injections, with the problems it raises. */
+function phaseComposition(cal: CalibrationRecord, s: RunSample, phase: 'liquid' | 'vapour', rsdLimit: number, problems: UploadProblem[]): CompositionResult | null {
+  const injections = s[phase]
+  const name = phase === 'liquid' ? 'x1' : 'y1'
+  const row = injections[0].row
+  let r: CompositionResult
+  try {
+    r = compositionFromAreas(cal.result as unknown as Calibration, { injections: injections.map((i) => ({ area1: i.area1, area2: i.area2 })) })
+  } catch (err) {
+    if ((err as Error).name !== 'ThermoError') throw err
+    problems.push(uploadError(row, 'area_1', null, `Sample ${s.label}: ${(err as Error).message}`))
+    return null
+  }
+  if (!(r.x1 >= 0 && r.x1 <= 1)) {
+    problems.push(uploadError(row, 'area_1', null, `Sample ${s.label}: the calibration gives ${name} = ${r.x1.toFixed(4)}, outside 0–1.`))
+    return null
+  }
+  if (r.replicateRsd !== null && r.replicateRsd > rsdLimit) {
+    problems.push(uploadWarning(row, 'area_1', `${(r.replicateRsd * 100).toFixed(2)} %`,
+      `Sample ${s.label}, ${phase}: replicate area ratios scatter by ${(r.replicateRsd * 100).toFixed(1)} % RSD, above the ${(rsdLimit * 100).toFixed(1)} % limit.`))
+  }
+  if (r.outsideCalibratedRange) {
+    problems.push(uploadWarning(row, 'area_1', r.x1.toFixed(4),
+      `Sample ${s.label}, ${phase}: ${name} = ${r.x1.toFixed(4)} is outside the calibrated range ${cal.rangeMin.toFixed(3)}–${cal.rangeMax.toFixed(3)}.`))
+  }
+  return r
+}
+
+/** Parse a run sheet and compute every sample's x and y, storing nothing. */
+export async function previewRun(db: Db, config: Config, user: SessionUser, dataSetId: string, file: UploadedFile, calibrationId?: string): Promise<RunPreview> {
+  const d = visibleOrNotFound(user, await datasets.findDataSet(db, dataSetId))
+  requireState(d, EDITABLE_STATES, 'uploading')
+  const cal = await chooseCalibration(db, d.systemId, calibrationId)
+  const parsed = parseRunFile(file.content, DEFAULT_BOUNDS)
+  const problems = [...parsed.problems]
+  const samples: PreviewSample[] = parsed.samples.map((s) => {
+    const x = phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
+    const y = phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
+    return {
+      label: s.label, rows: s.rows, temperatureK: s.temperatureK, pressurePa: s.pressurePa,
+      x1: x?.x1 ?? null, x1Uncertainty: x?.standardUncertainty ?? null, x1Rsd: x?.replicateRsd ?? null,
+      y1: y?.x1 ?? null, y1Uncertainty: y?.standardUncertainty ?? null, y1Rsd: y?.replicateRsd ?? null,
+      liquid: s.liquid, vapour: s.vapour,
+    }
+  })
+  problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
+  const { samples: _s, problems: _p, ...rest } = parsed
+  return { ...rest, file: summarizeFile(file), dataSetId, calibrationId: cal.id, samples, problems, ...countProblems(problems) }
+}
+
+/** Store the file and every sample as a point, all or nothing; refuses a stale row version. */
+export async function commitRun(db: Kysely<Database>, config: Config, user: SessionUser, dataSetId: string, file: UploadedFile, o: { calibrationId?: string; acceptWarnings: boolean; rowVersion: number }) {
+  const preview = await previewRun(db, config, user, dataSetId, file, o.calibrationId)
+  assertCommittable(preview.problems, o.acceptWarnings)
+  return db.transaction().execute(async (tx) => {
+    const d = await datasets.lockDataSet(tx, dataSetId)
+    if (!d) throw notFound('There is no such data set.')
+    requireState(d, EDITABLE_STATES, 'uploading')
+    if (d.rowVersion !== o.rowVersion) throw staleWrite(o.rowVersion, d.rowVersion)
+    const upload = await insertUpload(tx, { kind: 'run', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: user.id, dataSetId })
+    const first = await nextSeq(tx, dataSetId)
+    const ids = await insertPoints(tx, dataSetId, first, preview.samples.map((s) => ({
+      sampleLabel: s.label, temperatureK: s.temperatureK, pressurePa: s.pressurePa,
+      x1: s.x1!, x1Uncertainty: s.x1Uncertainty!, y1: s.y1!, y1Uncertainty: s.y1Uncertainty!,
+      uploadId: upload.id, calibrationId: preview.calibrationId, rowRefs: s.rows,
+      injections: [...s.liquid.map((i) => ({ ...i, phase: 'liquid' as const })), ...s.vapour.map((i) => ({ ...i, phase: 'vapour' as const }))],
+    })))
+    const after = await datasets.updateDataSet(tx, dataSetId, {})
+    await appendAudit(tx, { actorId: user.id, entity: 'upload', entityId: upload.id, action: 'upload run file', dataSetId,
+      after: { ...preview.file, points: ids.length, calibrationId: preview.calibrationId, acceptedWarnings: preview.warningCount } })
+    return { uploadId: upload.id, pointIds: ids, pointCount: ids.length, rowVersion: after!.rowVersion, sha256: preview.file.sha256 }
+  })
+}

@@ -1,0 +1,129 @@
+/** Submit, approve and return: the state machine with e-signatures, the four-eyes rule and notifications. */
+import type { Kysely } from 'kysely'
+import type { SessionUser } from '../auth/index.js'
+import { verifyPassword } from '../auth/password.js'
+import type { Config } from '../config.js'
+import type { Database, Db } from '../db/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
+import { notifyUser } from '../mail/outbox.js'
+import { insertApproval, listApprovals } from '../repositories/approvals.repository.js'
+import { appendAudit } from '../repositories/audit.repository.js'
+import { countOpenThreads } from '../repositories/comments.repository.js'
+import * as repo from '../repositories/datasets.repository.js'
+import { countPoints } from '../repositories/points.repository.js'
+import { uploadersOf } from '../repositories/uploads.repository.js'
+import { contentDigest } from './digest.js'
+import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
+
+const link = (config: Config, id: string) => `${config.publicUrl}/data-sets/${id}`
+
+async function leadChemists(db: Db): Promise<string[]> {
+  const rows = await db.selectFrom('user_role').innerJoin('app_user', 'app_user.id', 'user_role.user_id')
+    .select('app_user.id').where('user_role.role', '=', 'lead_chemist').where('app_user.active', '=', true).execute()
+  return rows.map((r) => r.id)
+}
+
+async function lockFresh(tx: Db, user: SessionUser, id: string, rowVersion: number) {
+  const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+  if (d.rowVersion !== rowVersion) throw staleWrite(rowVersion, d.rowVersion)
+  return d
+}
+
+/** Hand a draft (or a returned version) to the lead chemists. */
+export async function submit(db: Kysely<Database>, config: Config, user: SessionUser, id: string, rowVersion: number) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    requireState(d, EDITABLE_STATES, 'submitting')
+    if (d.rowVersion !== rowVersion) throw staleWrite(rowVersion, d.rowVersion)
+    const { included } = await countPoints(tx, id)
+    if (included < 3) throw conflict(`A data set needs at least 3 included points to be submitted; it has ${included}.`)
+    const after = await repo.updateDataSet(tx, id, { state: 'submitted', submittedAt: new Date() })
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'submit', dataSetId: id, before: { state: d.state }, after: { state: 'submitted' } })
+    for (const lead of await leadChemists(tx)) {
+      if (lead === user.id) continue
+      await notifyUser(tx, lead, {
+        subject: `Ebullio: "${d.title}" v${d.version} submitted for approval`,
+        text: `${user.displayName} submitted the data set "${d.title}" (version ${d.version}) with ${included} points for approval.\n\nOpen it: ${link(config, id)}\n`,
+      })
+    }
+    return after!
+  })
+}
+
+export interface SignatureInput {
+  password: string
+  reason: string
+  rowVersion: number
+  overrideReason?: string | null
+}
+
+/** Re-entered password check for a signature; a wrong password records nothing. */
+async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
+  const u = await db.selectFrom('app_user').select('password_hash').where('id', '=', user.id).executeTakeFirst()
+  if (!(await verifyPassword(u?.password_hash ?? null, password))) {
+    throw new AppError(403, 'signature_refused', 'The password is not correct; nothing was signed.')
+  }
+}
+
+/** Approve a submitted version with an e-signature over its content digest; an older approved version becomes superseded. */
+export async function approve(db: Kysely<Database>, config: Config, user: SessionUser, id: string, s: SignatureInput) {
+  return db.transaction().execute(async (tx) => {
+    const d = await lockFresh(tx, user, id, s.rowVersion)
+    requireState(d, ['submitted'], 'approval')
+    await checkSignaturePassword(tx, user, s.password)
+    if (!d.recommendedFitId) throw conflict('Mark one fit as the recommended fit before approving.')
+    const authors = new Set([d.createdBy, ...(await uploadersOf(tx, id))])
+    const selfApproval = authors.has(user.id)
+    if (selfApproval && !config.allowSelfApproval) {
+      throw new AppError(403, 'four_eyes', 'You created or uploaded data in this data set; another lead chemist must approve it.')
+    }
+    const open = await countOpenThreads(tx, id)
+    const override = s.overrideReason?.trim() || null
+    if (open > 0 && !override) {
+      throw conflict(`This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`, { openThreads: open })
+    }
+    const digest = await contentDigest(tx, id)
+    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'approved', reason: s.reason, digest, selfApproval, overrideReason: open > 0 ? override : null })
+    const after = await repo.updateDataSet(tx, id, { state: 'approved', approvedAt: new Date() })
+    for (const v of await repo.listVersions(tx, d.lineageId)) {
+      if (v.id !== id && v.state === 'approved') {
+        await repo.updateDataSet(tx, v.id, { state: 'superseded', supersededAt: new Date() })
+        await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: v.id, action: 'supersede', dataSetId: v.id, before: { state: 'approved' }, after: { state: 'superseded', by: id } })
+      }
+    }
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'approve', dataSetId: id, before: { state: 'submitted' },
+      after: { state: 'approved', approvalId, digest, selfApproval, overrideReason: open > 0 ? override : null } })
+    await notifyUser(tx, d.createdBy, {
+      subject: `Ebullio: "${d.title}" v${d.version} approved`,
+      text: `${user.displayName} approved the data set "${d.title}" (version ${d.version}).\nReason: ${s.reason}\nSignature digest (SHA-256): ${digest}\n\n${link(config, id)}\n`,
+    })
+    return { dataSet: after!, approvalId, digest }
+  })
+}
+
+/** Return a submitted version for rework, signed with a reason. */
+export async function returnForRework(db: Kysely<Database>, config: Config, user: SessionUser, id: string, s: SignatureInput) {
+  return db.transaction().execute(async (tx) => {
+    const d = await lockFresh(tx, user, id, s.rowVersion)
+    requireState(d, ['submitted'], 'returning')
+    await checkSignaturePassword(tx, user, s.password)
+    const digest = await contentDigest(tx, id)
+    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'returned for rework', reason: s.reason, digest, selfApproval: false, overrideReason: null })
+    const after = await repo.updateDataSet(tx, id, { state: 'returned' })
+    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'return', dataSetId: id, before: { state: 'submitted' }, after: { state: 'returned', approvalId, reason: s.reason } })
+    await notifyUser(tx, d.createdBy, {
+      subject: `Ebullio: "${d.title}" v${d.version} returned for rework`,
+      text: `${user.displayName} returned the data set "${d.title}" (version ${d.version}) for rework.\nReason: ${s.reason}\n\n${link(config, id)}\n`,
+    })
+    return { dataSet: after!, approvalId, digest }
+  })
+}
+
+/** Recompute the digest of the stored content and compare it with every signature of the version. */
+export async function verifySignatures(db: Db, user: SessionUser, id: string) {
+  visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const now = await contentDigest(db, id)
+  const approvals = await listApprovals(db, id)
+  if (approvals.length === 0) throw notFound('This data set has no signatures.')
+  return { currentDigest: now, signatures: approvals.map((a) => ({ ...a, matches: a.digest === now })) }
+}
