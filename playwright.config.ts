@@ -16,6 +16,7 @@ export default defineConfig({
   reporter: [['list'], ['json', { outputFile: '.data/playwright-report.json' }]],
   use: {
     baseURL,
+    testIdAttribute: 'data-test',
     screenshot: 'only-on-failure',
     trace: 'off',
     viewport: { width: 1280, height: 800 },

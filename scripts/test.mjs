@@ -13,9 +13,11 @@ ensurePnpm()
 ensureDependencies()
 const chromium = only === 'unit' ? null : ensureChromium()
 
+// TEST_PG_PORT lets two checkouts on one machine test side by side.
+const pgPort = Number(process.env.TEST_PG_PORT ?? 54329)
 const dataDir = dataDirFor(root, 'pg-test')
-const unitDb = startCluster({ dataDir, port: 54329, database: 'ebullio_test', fresh: true })
-const e2eDb = startCluster({ dataDir, port: 54329, database: 'ebullio_e2e_test' })
+const unitDb = startCluster({ dataDir, port: pgPort, database: 'ebullio_test', fresh: true })
+const e2eDb = startCluster({ dataDir, port: pgPort, database: 'ebullio_e2e_test' })
 const bin = (name) => path.join(root, 'node_modules', '.bin', name)
 const reportDir = path.join(root, '.data')
 mkdirSync(reportDir, { recursive: true })
@@ -43,7 +45,7 @@ try {
 
   if (only !== 'unit') {
     log('preparing the browser-test database (migrations + demo scenario)')
-    sh('sh', ['-c', `"${bin('tsx')}" -e "import pg from 'pg'; const c = new pg.Client({connectionString: process.env.DATABASE_URL}); await c.connect(); await c.query('drop schema public cascade; create schema public'); await c.end()"`], { DATABASE_URL: e2eDb.url })
+    if (sh(process.execPath, ['scripts/lib/reset-db.mjs', e2eDb.url]) !== 0) throw new Error('could not reset the e2e database')
     if (sh(bin('tsx'), ['db/migrate.ts'], { DATABASE_URL: e2eDb.url }) !== 0) throw new Error('migrations failed on the e2e database')
     if (sh(bin('tsx'), ['db/seeds/index.ts'], { DATABASE_URL: e2eDb.url }) !== 0) throw new Error('the demo scenario did not load on the e2e database')
     log('building the web app')
