@@ -5,7 +5,7 @@
 import { ThermoError } from '../errors.js'
 import type { EquilibriumCurve } from '../columns/equilibrium-curve.js'
 import type { BatchCharge, BatchEndState, BatchFrame, BatchIntegration, BatchUntil } from './batch-types.js'
-import { ABS_TOL, integrate, REL_TOL, type OdeStats } from './ode.js'
+import { ABS_TOL, integrate, REL_TOL, valueAt, type AcceptedStep, type OdeStats } from './ode.js'
 
 /** Largest τ = ln(L0/L) the still runs to: 1e-12 of the charge left. */
 const TAU_MAX = Math.log(1e12)
@@ -84,19 +84,17 @@ export function runRayleigh(curve: EquilibriumCurve, distillate: (x: number) => 
   const rule = stopRule(until, charge, curve, falling)
   const f = (x: number) => -(distillate(x) - x)
   const stats: OdeStats = { steps: 0, rejected: 0 }
-  const endTau = rule.tau ?? integrate(f, 0, charge.x1, TAU_MAX, stats, rule.stop).tau
+  const trace: AcceptedStep[] = []
+  const finish = integrate(f, charge.x1, rule.tau ?? TAU_MAX, stats, trace, rule.stop)
+  const endTau = finish.tau
   const endFraction = 1 - Math.exp(-endTau)
-  const frames: (BatchFrame & { tau: number })[] = []
-  let tau = 0
-  let x = charge.x1
-  let h = 0.01
-  for (let k = 0; k < frameCount; k++) {
-    const target = k === frameCount - 1 ? endTau : -Math.log(1 - (endFraction * k) / (frameCount - 1))
-    if (target > tau) ({ tau, x, h } = { ...integrate(f, tau, x, target, stats, undefined, h), tau: target })
+  const taus = Array.from({ length: frameCount }, (_, k) => (k === frameCount - 1 ? endTau : -Math.log(1 - (endFraction * k) / (frameCount - 1))))
+  const frames = taus.map((tau, k) => {
+    const x = k === 0 ? charge.x1 : k === frameCount - 1 ? finish.x : valueAt(trace, tau)
     const L = charge.moles * Math.exp(-tau)
     const D = charge.moles - L
     const yNow = distillate(x)
-    frames.push({
+    return {
       tau,
       distilledFraction: D / charge.moles,
       potMoles: L,
@@ -104,8 +102,8 @@ export function runRayleigh(curve: EquilibriumCurve, distillate: (x: number) => 
       potT: curve.T(x),
       instantaneousDistillateY1: yNow,
       cumulativeDistillateX1: D > 0 ? (charge.moles * charge.x1 - L * x) / D : yNow,
-    })
-  }
+    }
+  })
   const last = frames[frames.length - 1]
   const distillateMoles = charge.moles - last.potMoles
   return {

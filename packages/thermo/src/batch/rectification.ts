@@ -44,13 +44,21 @@ function potFromDistillate(curve: EquilibriumCurve, xD: number, stages: number, 
  * The distillate composition that N stages at reflux R deliver from pot liquid xW: the root in (xW, 1) of
  * potFromDistillate(xD) = xW, by the Illinois variant of regula falsi (bracketed, superlinear).
  */
-export function distillateForPot(curve: EquilibriumCurve, xW: number, stages: number, R: number): number {
+export function distillateForPot(curve: EquilibriumCurve, xW: number, stages: number, R: number, hint?: number): number {
   const s = R / (R + 1)
   let a = xW
   let b = 1
   let fa = potFromDistillate(curve, a, stages, s) - xW
   let fb = 1 - xW
   if (fa >= 0) return a
+  if (hint !== undefined && hint > xW && hint < 1) {
+    // the pot changes little between calls: try a narrow bracket around the last answer first
+    const lo = Math.max(xW, hint - 1e-3)
+    const hi = Math.min(1, hint + 1e-3)
+    const flo = potFromDistillate(curve, lo, stages, s) - xW
+    const fhi = potFromDistillate(curve, hi, stages, s) - xW
+    if (flo < 0 && fhi > 0) [a, fa, b, fb] = [lo, flo, hi, fhi]
+  }
   let side = 0
   for (let i = 0; i < 200; i++) {
     const c = (a * fb - b * fa) / (fb - fa)
@@ -96,7 +104,8 @@ export function batchRectification(source: EquilibriumSource, options: BatchRect
   checkColumn(options.stages, options.R)
   const frameCount = options.frames ?? 101
   checkFrames(frameCount)
-  const distillate = (x: number) => distillateForPot(curve, x, options.stages, options.R)
+  let last: number | undefined
+  const distillate = (x: number) => (last = distillateForPot(curve, x, options.stages, options.R, last))
   const run = runRayleigh(curve, distillate, options.charge, options.until, frameCount)
   const head = (xD: number) => curve.T(curve.x(xD))
   const frames = run.frames.map(({ tau: _tau, ...f }) => ({ ...f, stillHeadT: head(f.instantaneousDistillateY1) }))

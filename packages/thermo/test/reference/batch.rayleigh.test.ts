@@ -24,7 +24,7 @@ describe('Rayleigh, constant α: numerical integration vs closed form', () => {
     expect(Math.abs(r.end.potMoles - L) / L).toBeLessThan(1e-7)
   })
   it('every frame lies on the closed form', () => {
-    const r = simpleBatchDistillation({ alpha: 3 }, { charge: { moles: 1, x1: 0.6 }, until: { potMoles: 0.05 }, frames: 50 })
+    const r = simpleBatchDistillation({ alpha: 3 }, { charge: { moles: 1, x1: 0.6 }, until: { potMoles: 0.05 }, frames: 200 })
     for (const f of r.frames.slice(1)) expect(Math.abs(f.potMoles - closedFormPot(3, 0.6, f.potX1, 1)) / f.potMoles).toBeLessThan(1e-7)
   })
 })
