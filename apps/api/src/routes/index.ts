@@ -1,6 +1,11 @@
 import { adminRoutes } from './admin.routes.js'
 import { authRoutes } from './auth.routes.js'
 import { defineRoutes, type RouteDef } from './define.js'
+import { catalogueRoutes } from './catalogue.routes.js'
+import { componentRoutes } from './components.routes.js'
+import { dataSetRoutes } from './datasets.routes.js'
+import { reviewRoutes } from './review.routes.js'
+import { systemRoutes } from './systems.routes.js'
 
 const healthRoutes = defineRoutes([
   { method: 'get', path: '/api/health', access: 'public', handler: (_req, res) => void res.json({ ok: true }) },
@@ -11,4 +16,9 @@ export const allRoutes: RouteDef[] = [
   ...authRoutes,
   ...adminRoutes,
   ...healthRoutes,
+  ...componentRoutes,
+  ...systemRoutes,
+  ...dataSetRoutes,
+  ...reviewRoutes,
+  ...catalogueRoutes,
 ]

@@ -9,7 +9,7 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import { findCalibration, listCalibrations, type CalibrationRecord } from '../repositories/calibrations.repository.js'
 import * as datasets from '../repositories/datasets.repository.js'
 import { insertPoints, nextSeq } from '../repositories/points.repository.js'
-import { insertUpload } from '../repositories/uploads.repository.js'
+import { findUploadContent, insertUpload } from '../repositories/uploads.repository.js'
 import type { ParsedInjection } from '../uploads/calibration-file.js'
 import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
 import { DEFAULT_BOUNDS, parseRunFile, type RunFileParse, type RunSample } from '../uploads/run-file.js'
@@ -129,4 +129,12 @@ export async function commitRun(db: Kysely<Database>, config: Config, user: Sess
       after: { ...preview.file, points: ids.length, calibrationId: preview.calibrationId, acceptedWarnings: preview.warningCount } })
     return { uploadId: upload.id, pointIds: ids, pointCount: ids.length, rowVersion: after!.rowVersion, sha256: preview.file.sha256 }
   })
+}
+
+/** The stored file exactly as received, for tracing any number back to its raw peak areas. */
+export async function downloadUpload(db: Db, user: SessionUser, id: string) {
+  const u = await findUploadContent(db, id)
+  if (!u) throw notFound('There is no such file.')
+  if (u.data_set_id) visibleOrNotFound(user, await datasets.findDataSet(db, u.data_set_id))
+  return { name: u.original_name, contentType: u.content_type, content: u.content, sha256: u.sha256 }
 }

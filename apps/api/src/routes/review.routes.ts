@@ -1,0 +1,110 @@
+import { ctx } from '../context.js'
+import { listOpenThreadsOf } from '../repositories/comments.repository.js'
+import * as comments from '../services/comments.service.js'
+import * as fits from '../services/fits.service.js'
+import * as workflow from '../services/workflow.service.js'
+import { listFits } from '../repositories/fits.repository.js'
+import { findDataSet } from '../repositories/datasets.repository.js'
+import { visibleOrNotFound } from '../services/lab-access.js'
+import { defineRoutes } from './define.js'
+import { commentParams, commentSchema, consistencySchema, fitSchema, idParams, recommendedSchema, rowVersionSchema, signatureSchema } from './lab-schemas.js'
+import { parseBody, parseParams } from './validate.js'
+
+const AUTHORS = ['analyst', 'lead_chemist'] as const
+const DISCUSSANTS = ['analyst', 'lead_chemist', 'reviewer'] as const
+
+export const reviewRoutes = defineRoutes([
+  {
+    method: 'post', path: '/api/data-sets/:id/fits', access: AUTHORS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.status(201).json(await fits.runFits(db, user, parseParams(idParams, req).id, parseBody(fitSchema, req)))
+    },
+  },
+  {
+    method: 'get', path: '/api/data-sets/:id/fits', access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      visibleOrNotFound(user, await findDataSet(db, id))
+      res.json({ items: await listFits(db, id) })
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/recommended-fit', access: ['lead_chemist'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.json(await fits.markRecommended(db, user, id, parseBody(recommendedSchema, req).fitId))
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/consistency', access: AUTHORS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.status(201).json({ items: await fits.runConsistency(db, user, id, parseBody(consistencySchema, req).model) })
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/comments', access: DISCUSSANTS,
+    handler: async (req, res) => {
+      const { db, config, user } = ctx(req)
+      res.status(201).json(await comments.addComment(db, config, user, parseParams(idParams, req).id, parseBody(commentSchema, req)))
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/comments/:commentId/resolve', access: DISCUSSANTS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id, commentId } = parseParams(commentParams, req)
+      res.json(await comments.setThreadResolved(db, user, id, commentId, true))
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/comments/:commentId/reopen', access: DISCUSSANTS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id, commentId } = parseParams(commentParams, req)
+      res.json(await comments.setThreadResolved(db, user, id, commentId, false))
+    },
+  },
+  {
+    method: 'get', path: '/api/comments/mine', access: DISCUSSANTS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.json({ items: await listOpenThreadsOf(db, user.id) })
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/submit', access: AUTHORS,
+    handler: async (req, res) => {
+      const { db, config, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.json(await workflow.submit(db, config, user, id, parseBody(rowVersionSchema, req).rowVersion))
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/approve', access: ['lead_chemist'],
+    handler: async (req, res) => {
+      const { db, config, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.json(await workflow.approve(db, config, user, id, parseBody(signatureSchema, req)))
+    },
+  },
+  {
+    method: 'post', path: '/api/data-sets/:id/return', access: ['lead_chemist'],
+    handler: async (req, res) => {
+      const { db, config, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.json(await workflow.returnForRework(db, config, user, id, parseBody(signatureSchema, req)))
+    },
+  },
+  {
+    method: 'get', path: '/api/data-sets/:id/signatures/verify', access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.json(await workflow.verifySignatures(db, user, parseParams(idParams, req).id))
+    },
+  },
+])

@@ -1,0 +1,83 @@
+import { z } from 'zod'
+import { ctx } from '../context.js'
+import { listSystems } from '../repositories/systems.repository.js'
+import * as calibrations from '../services/calibrations.service.js'
+import { pageWindow } from '../services/lab-access.js'
+import * as service from '../services/systems.service.js'
+import { listCalibrations, listGcMethods } from '../repositories/calibrations.repository.js'
+import { defineRoutes } from './define.js'
+import { calibrationForm, calibrationQuery, gcMethodSchema, systemQuery, systemSchema, uuid } from './lab-schemas.js'
+import { csvUpload, receivedFile } from './upload-middleware.js'
+import { parseBody, parseParams, parseQuery } from './validate.js'
+
+/** Roles that work in the lab (engineers see approved results only). */
+const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
+const systemParams = z.object({ id: uuid('system') })
+const calibrationParams = z.object({ id: uuid('calibration') })
+
+export const systemRoutes = defineRoutes([
+  {
+    method: 'get', path: '/api/systems', access: 'authenticated',
+    handler: async (req, res) => {
+      const q = parseQuery(systemQuery, req)
+      res.json({ ...(await listSystems(ctx(req).db, { q: q.q, ...pageWindow(q.page, q.pageSize) })), page: q.page, pageSize: q.pageSize })
+    },
+  },
+  {
+    method: 'post', path: '/api/systems', access: ['analyst', 'lead_chemist', 'admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.status(201).json(await service.createSystem(db, user.id, parseBody(systemSchema, req)))
+    },
+  },
+  {
+    method: 'get', path: '/api/systems/:id', access: 'authenticated',
+    handler: async (req, res) => {
+      res.json(await service.getSystem(ctx(req).db, parseParams(systemParams, req).id))
+    },
+  },
+  {
+    method: 'get', path: '/api/gc-methods', access: LAB,
+    handler: async (req, res) => void res.json({ items: await listGcMethods(ctx(req).db) }),
+  },
+  {
+    method: 'post', path: '/api/gc-methods', access: ['analyst', 'lead_chemist', 'admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.status(201).json(await calibrations.createGcMethod(db, user.id, parseBody(gcMethodSchema, req)))
+    },
+  },
+  {
+    method: 'get', path: '/api/calibrations', access: LAB,
+    handler: async (req, res) => void res.json({ items: await listCalibrations(ctx(req).db, parseQuery(calibrationQuery, req)) }),
+  },
+  {
+    method: 'get', path: '/api/calibrations/:id', access: LAB,
+    handler: async (req, res) => void res.json(await calibrations.getCalibration(ctx(req).db, parseParams(calibrationParams, req).id)),
+  },
+  {
+    method: 'post', path: '/api/calibrations/preview', access: ['analyst', 'lead_chemist'],
+    handler: [csvUpload, async (req, res) => {
+      const file = receivedFile(req)
+      const { acceptWarnings: _a, ...form } = parseBody(calibrationForm, req)
+      res.json(await calibrations.previewCalibration(ctx(req).db, form, file))
+    }],
+  },
+  {
+    method: 'post', path: '/api/calibrations', access: ['analyst', 'lead_chemist'],
+    handler: [csvUpload, async (req, res) => {
+      const { db, user } = ctx(req)
+      const file = receivedFile(req)
+      const { acceptWarnings, ...form } = parseBody(calibrationForm, req)
+      res.status(201).json(await calibrations.commitCalibration(db, user.id, form, file, acceptWarnings))
+    }],
+  },
+  {
+    method: 'post', path: '/api/calibrations/:id/retire', access: ['lead_chemist', 'admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      await calibrations.retireCalibration(db, user.id, parseParams(calibrationParams, req).id)
+      res.json({ ok: true })
+    },
+  },
+])
