@@ -9,8 +9,20 @@ export const appRoutes: RouteRecordRaw[] = [
   {
     path: '/datasets',
     name: 'datasets',
-    component: Placeholder,
+    component: () => import('../views/datasets/DatasetsListView.vue'),
     meta: { title: 'Data sets', roles: ['analyst', 'lead_chemist', 'reviewer'], nav: { group: 'Laboratory', label: 'Data sets', icon: 'pi pi-table', order: 10 } },
+  },
+  {
+    path: '/datasets/new',
+    name: 'dataset-new',
+    component: () => import('../views/datasets/NewDatasetView.vue'),
+    meta: { title: 'New data set', roles: ['analyst', 'lead_chemist'] },
+  },
+  {
+    path: '/datasets/:id',
+    name: 'dataset',
+    component: () => import('../views/datasets/DatasetWorkspaceView.vue'),
+    meta: { title: 'Data set', roles: ['analyst', 'lead_chemist', 'reviewer'] },
   },
   {
     path: '/approvals',

@@ -1,0 +1,175 @@
+/**
+ * Data sets, their points, fits and consistency results (issue 5's `/api/data-sets` routes).
+ * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
+ */
+import { api, query } from './client'
+
+export type DataSetState = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
+export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+
+export interface DataSet {
+  id: string
+  lineageId: string
+  version: number
+  previousVersionId: string | null
+  systemId: string
+  title: string
+  state: DataSetState
+  /** Pa */
+  nominalPressurePa: number
+  apparatusNotes: string | null
+  projectRef: string | null
+  recommendedFitId: string | null
+  createdBy: string
+  createdAt: string
+  updatedAt: string
+  submittedAt: string | null
+  approvedAt: string | null
+  supersededAt: string | null
+  rowVersion: number
+}
+
+export interface DataSetListItem extends DataSet {
+  systemName: string
+  authorName: string
+  pointCount: number
+  openComments: number
+}
+
+/** One equilibrium state. T in K, P in Pa, x1/y1 mole fractions with standard uncertainties (k = 1). */
+export interface Point {
+  id: string
+  dataSetId: string
+  seq: number
+  sampleLabel: string
+  temperatureK: number
+  pressurePa: number
+  x1: number
+  x1Uncertainty: number
+  y1: number
+  y1Uncertainty: number
+  excluded: boolean
+  exclusionReason: string | null
+  uploadId: string | null
+  calibrationId: string | null
+  rowRefs: number[]
+}
+
+/** One residual of a fit at a point: ΔT in K, Δy1 mole fraction (measured − model). */
+export interface FitResidual {
+  pointId: string
+  dT: number
+  dy: number
+  outlier?: boolean
+  [k: string]: unknown
+}
+
+export interface Fit {
+  id: string
+  dataSetId: string
+  model: ModelName
+  options: Record<string, unknown>
+  /** thermo's ActivityModel */
+  activity: Record<string, unknown> & { kind: string }
+  parameters: { name: string; value: number; standardError: number; unit?: string }[]
+  statistics: { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean; [k: string]: unknown }
+  residuals: FitResidual[]
+  pointIds: string[]
+  runBy: string
+  runAt: string
+}
+
+export interface ConsistencyResult {
+  id: string
+  test: 'herington-area' | 'point'
+  passed: boolean
+  result: Record<string, unknown>
+  runAt: string
+}
+
+export interface Approval {
+  id: string
+  signerId: string
+  signerName?: string
+  meaning: 'approved' | 'returned for rework'
+  reason: string
+  digest: string
+  selfApproval: boolean
+  overrideReason: string | null
+  signedAt: string
+}
+
+/** Everything the workspace shows about one data set version. */
+export interface DataSetDetail {
+  dataSet: DataSet
+  system: LabSystem
+  points: Point[]
+  fits: Fit[]
+  consistency: ConsistencyResult[]
+  approvals: Approval[]
+  authorName?: string
+}
+
+export interface VaporPressureSet {
+  id?: string
+  kind: 'antoine' | 'clausius-clapeyron'
+  parameters: Record<string, unknown>
+  source?: string
+  preferred?: boolean
+}
+
+export interface LabComponent {
+  id: string
+  name: string
+  casNumber: string | null
+  molarMass?: number
+  liquidMolarVolume?: number | null
+  vaporPressure?: VaporPressureSet[]
+}
+
+export interface LabSystem {
+  id: string
+  name: string
+  component1: LabComponent
+  component2: LabComponent
+}
+
+export interface DataSetListQuery {
+  state?: string
+  systemId?: string
+  q?: string
+  createdBy?: string
+  pressureMinPa?: number
+  pressureMaxPa?: number
+  from?: string
+  to?: string
+  sort?: string
+  order?: 'asc' | 'desc'
+  limit: number
+  offset: number
+}
+
+export interface NewDataSet {
+  systemId: string
+  title: string
+  nominalPressurePa: number
+  apparatusNotes: string | null
+  projectRef: string | null
+}
+
+const base = '/api/data-sets'
+
+export const datasetsApi = {
+  list: (q: DataSetListQuery) => api.get<{ items: DataSetListItem[]; total: number }>(base + query({ ...q })),
+  create: (body: NewDataSet) => api.post<DataSet>(base, body, { quiet: true }),
+  get: (id: string) => api.get<DataSetDetail>(`${base}/${id}`),
+  update: (id: string, body: Partial<NewDataSet> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body),
+  exclude: (id: string, pointId: string, excluded: boolean, reason: string | null) =>
+    api.post<Point>(`${base}/${id}/points/${pointId}/${excluded ? 'exclude' : 'include'}`, excluded ? { reason } : {}, { quiet: true }),
+  runFits: (id: string, models: ModelName[]) => api.post<{ items: Fit[] }>(`${base}/${id}/fits`, { models }, { quiet: true }),
+  recommend: (id: string, fitId: string) => api.put<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
+  runConsistency: (id: string, fitId?: string) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, { fitId }, { quiet: true }),
+  submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
+  revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
+  pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
+}

@@ -1,0 +1,112 @@
+/** GC file uploads: preview (nothing stored) and commit (all or nothing). */
+import { api, ApiError, query } from './client'
+
+export interface UploadProblem {
+  /** line in the file; the header is line 1 */
+  row: number | null
+  column: string | null
+  value: string | null
+  message: string
+  severity: 'error' | 'warning'
+}
+
+/** A sample's composition computed from its areas: mole fractions with standard uncertainties. */
+export interface PreviewSample {
+  label: string
+  rows: number[]
+  temperatureK?: number | null
+  pressurePa?: number | null
+  x1?: number | null
+  x1Uncertainty?: number | null
+  y1?: number | null
+  y1Uncertainty?: number | null
+  [k: string]: unknown
+}
+
+export interface UploadPreview {
+  kind: 'calibration' | 'run'
+  /** the token the commit call refers to (the server keeps the bytes until then), when the server uses one */
+  previewId?: string
+  fileName?: string
+  header: string[]
+  rows: { line: number; cells: string[] }[]
+  mapping: Record<string, string>
+  extraColumns: string[]
+  samples?: PreviewSample[]
+  standards?: { label: string; basis?: string; fraction1?: number; injections?: { injection: number; area1: number; area2: number; row: number }[]; [k: string]: unknown }[]
+  calibration?: { model: string; coefficients: number[]; coefficientNames: string[]; standardErrors: number[]; rSquared: number; calibratedRange: { x1: [number, number] }; [k: string]: unknown } | null
+  file?: { name: string; sizeBytes: number; sha256: string }
+  format?: { delimiter: string; decimalComma: boolean; byteOrderMark: boolean }
+  errorCount?: number
+  warningCount?: number
+  calibrationId?: string
+  problems: UploadProblem[]
+}
+
+export type UploadKind = 'calibration' | 'run'
+
+/**
+ * POST a file with progress. fetch() cannot report upload progress, so this one call uses XMLHttpRequest;
+ * errors become ApiError exactly as in client.ts.
+ */
+function send<T>(url: string, form: FormData, onProgress?: (fraction: number) => void): Promise<T> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest()
+    xhr.open('POST', url)
+    xhr.withCredentials = true
+    xhr.setRequestHeader('Accept', 'application/json')
+    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress?.(e.loaded / e.total)
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.'))
+    xhr.onload = () => {
+      let data: unknown = null
+      try {
+        data = JSON.parse(xhr.responseText)
+      } catch {
+        data = null
+      }
+      if (xhr.status >= 200 && xhr.status < 300) return resolve(data as T)
+      const e = (data as { error?: { code: string; message: string; details: unknown } } | null)?.error
+      reject(new ApiError(xhr.status, e?.code ?? 'http_' + xhr.status, e?.message ?? `The server answered ${xhr.status}.`, e?.details ?? null))
+    }
+    xhr.send(form)
+  })
+}
+
+function form(file: File, fields: Record<string, string | undefined>): FormData {
+  const f = new FormData()
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined) f.set(k, v)
+  f.set('file', file, file.name)
+  return f
+}
+
+export interface GcMethodOption {
+  id: string
+  name: string
+  detector: 'FID' | 'TCD'
+}
+
+export interface ActiveCalibration {
+  id: string
+  gcMethodId: string
+  model: string
+  rangeMin: number
+  rangeMax: number
+  status: 'active' | 'retired'
+  createdAt: string
+}
+
+/** Where a preview or commit of each kind goes (issue 5: run sheets belong to a data set, calibrations to a system and GC method). */
+const target = (dataSetId: string, kind: UploadKind) =>
+  kind === 'run' ? `/api/data-sets/${dataSetId}/uploads/run` : '/api/calibrations'
+
+export const uploadsApi = {
+  /** Parse and check a file; nothing is stored. */
+  preview: (dataSetId: string, kind: UploadKind, file: File, fields: Record<string, string | undefined>, onProgress?: (f: number) => void) =>
+    send<UploadPreview>(`${target(dataSetId, kind)}/preview`, form(file, fields), onProgress),
+  /** Store the file and everything parsed from it, in one transaction. */
+  commit: (dataSetId: string, kind: UploadKind, file: File, fields: Record<string, string | undefined>, onProgress?: (f: number) => void) =>
+    send<{ uploadId?: string; pointCount?: number; id?: string; [k: string]: unknown }>(target(dataSetId, kind), form(file, fields), onProgress),
+  gcMethods: () => api.get<{ items: GcMethodOption[] }>('/api/gc-methods'),
+  calibrations: (systemId: string) => api.get<{ items: ActiveCalibration[] }>(`/api/calibrations${query({ systemId, status: 'active' })}`),
+  originalUrl: (uploadId: string) => `/api/uploads/${uploadId}/file`,
+}
