@@ -60,12 +60,27 @@ describe('unreachable targets end with a clear error', () => {
     expect(() => fenske(azeo, { xD: 0.9, xB: 0.05 })).toThrow('The azeotrope at x1 = 0.5000 lies between xB = 0.05 and xD = 0.9')
   })
 
-  it('a stripping-section pinch', () => {
-    // invented curve hugging the diagonal at low x: an R that clears the rectifying section pinches below the feed
-    expect(() => mccabeThiele({ table: huggingTable() }, { xF: 0.5, q: 1, xD: 0.9, xB: 0.05, R: { timesMinimum: 1.2 } })).toThrow(
-      'The operating line meets the equilibrium curve near x1 = 0.1562 below the feed; raise R: no more separation per stage.',
+  it('a stripping-section pinch raises Rmin above the rectifying value', () => {
+    // invented curve hugging the diagonal at low x: the stripping line, not the rectifying one, sets Rmin
+    const hug = { table: huggingTable() }
+    const spec = { xF: 0.5, q: 1, xD: 0.9, xB: 0.05 }
+    const rectifyingOnly = minimumReflux(hug, { xF: 0.5, q: 1, xD: 0.9 })
+    const both = minimumReflux(hug, spec)
+    expect(both.governs).toBe('stripping-tangent-pinch')
+    expect(both.Rmin).toBeGreaterThan(rectifyingOnly.Rmin * 1.5)
+    expect(() => mccabeThiele(hug, { ...spec, R: 3 })).toThrow(/^R = 3\.0000 is not above the minimum reflux Rmin = 4\.32\d\d \(stripping-tangent-pinch at x1 = 0\.0\d+\): the column cannot reach xD\.$/)
+    expect(mccabeThiele(hug, { ...spec, R: { timesMinimum: 1.2 } }).stages).toBeGreaterThan(50)
+  })
+
+  it('a separation needing more than MAX_STAGES stages stops instead of looping', () => {
+    // Fenske: ln(998001)/ln(1.01) ≈ 1388 stages even at total reflux
+    expect(() => mccabeThiele({ alpha: 1.01 }, { xF: 0.5, q: 1, xD: 0.999, xB: 0.001, R: Infinity })).toThrow(
+      'More than 1000 theoretical stages are needed: even at total reflux the relative volatility is too close to 1 for this separation.',
     )
-    expect(mccabeThiele({ table: huggingTable() }, { xF: 0.5, q: 1, xD: 0.9, xB: 0.05, R: { timesMinimum: 5 } }).stages).toBe(44)
+  })
+
+  it('R just above Rmin needs more than MAX_STAGES stages', () => {
+    expect(() => mccabeThiele({ alpha: 1.05 }, { xF: 0.5, q: 1, xD: 0.999, xB: 0.001, R: { timesMinimum: 1.0001 } })).toThrow(/^More than 1000 theoretical stages are needed: R = \d+\.\d{4} is too close to Rmin = \d+\.\d{4}\.$/)
   })
 
   it('a multiple of a zero Rmin', () => {

@@ -46,7 +46,7 @@ export interface McCabeThieleResult {
   staircase: { x: number; y: number }[]
   R: number
   Rmin: number
-  governs: 'pinch' | 'tangent-pinch'
+  governs: 'pinch' | 'tangent-pinch' | 'stripping-tangent-pinch'
   operatingLines: { rectifying: OperatingLine; stripping: OperatingLine; intersection: { x: number; y: number } | null }
   includesReboiler: true
   warnings: string[]
@@ -115,7 +115,8 @@ function stepOff(curve: EquilibriumCurve, spec: McCabeThieleSpec, ops: ReturnTyp
     staircase.push({ x, y })
     xPrev = x
   }
-  throw new ThermoError('too-many-stages', `More than ${MAX_STAGES} theoretical stages are needed: R = ${R.toFixed(4)} is too close to Rmin = ${Rmin.toFixed(4)}.`)
+  const why = Number.isFinite(R) ? `R = ${R.toFixed(4)} is too close to Rmin = ${Rmin.toFixed(4)}` : 'even at total reflux the relative volatility is too close to 1 for this separation'
+  throw new ThermoError('too-many-stages', `More than ${MAX_STAGES} theoretical stages are needed: ${why}.`)
 }
 
 /**
@@ -133,7 +134,7 @@ export function mccabeThiele(source: EquilibriumSource, spec: McCabeThieleSpec):
   const curve = equilibriumCurve(source)
   checkSpec(spec)
   checkNoAzeotropeBetween(curve, spec.xB, spec.xD, 'xB', 'xD')
-  const pinch = minimumRefluxOnCurve(curve, spec.xF, spec.q, spec.xD)
+  const pinch = minimumRefluxOnCurve(curve, spec.xF, spec.q, spec.xD, spec.xB)
   const R = resolveReflux(spec.R, pinch.Rmin)
   if (R <= pinch.Rmin * (1 + 1e-9)) {
     throw new ThermoError('reflux-below-minimum', `R = ${R.toFixed(4)} is not above the minimum reflux Rmin = ${pinch.Rmin.toFixed(4)} (${pinch.governs} at x1 = ${pinch.touch.x.toFixed(4)}): the column cannot reach xD.`, { Rmin: pinch.Rmin })

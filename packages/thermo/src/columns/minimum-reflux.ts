@@ -7,8 +7,11 @@ import { equilibriumCurve, type EquilibriumCurve, type EquilibriumSource } from 
 export interface MinimumRefluxResult {
   /** Minimum reflux ratio L/D. */
   Rmin: number
-  /** 'pinch': the operating lines meet on the equilibrium curve at the q-line; 'tangent-pinch': the rectifying line touches the curve above the feed. */
-  governs: 'pinch' | 'tangent-pinch'
+  /**
+   * 'pinch': the operating lines meet on the equilibrium curve at the q-line; 'tangent-pinch': the rectifying line
+   * touches the curve above the feed; 'stripping-tangent-pinch': (only when xB is given) the stripping line touches it below the feed.
+   */
+  governs: 'pinch' | 'tangent-pinch' | 'stripping-tangent-pinch'
   /** Where the q-line cuts the equilibrium curve (x1, y1). */
   feedPinch: { x: number; y: number }
   /** The governing touching point (equals feedPinch when the pinch governs). */
@@ -69,8 +72,40 @@ function steepestRequirement(curve: EquilibriumCurve, xD: number, x0: number): {
   return slope > bestSlope ? { x, slope } : { x: x0 + best * h, slope: bestSlope }
 }
 
-/** Rmin on an already built curve; shared with mccabeThiele. Inputs already checked. */
-export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: number, xD: number): Omit<MinimumRefluxResult, 'assumptions' | 'caution'> {
+/** Largest excess of the stripping line over the equilibrium curve between xB and the operating-line intersection, and where. */
+function strippingExcess(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB: number, R: number): { excess: number; x: number } {
+  const xi = ((q - 1) * xD + (R + 1) * xF) / (R + q)
+  const yi = (R / (R + 1)) * xi + xD / (R + 1)
+  const slope = (yi - xB) / (xi - xB)
+  let best = { excess: -Infinity, x: xB }
+  for (let i = 1; i < 200; i++) {
+    const x = xB + ((xi - xB) * i) / 200
+    const excess = xB + slope * (x - xB) - curve.y(x)
+    if (excess > best.excess) best = { excess, x }
+  }
+  return best
+}
+
+/**
+ * The smallest R at which the stripping line clears the equilibrium curve, when the rectifying Rmin is not enough
+ * (curves that hug the diagonal at the bottom). Bisection on R: the stripping line falls towards the diagonal as R rises.
+ */
+function strippingMinimum(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB: number, rectifyingRmin: number): { R: number; x: number } | null {
+  const tolerance = 1e-9
+  if (strippingExcess(curve, xF, q, xD, xB, Math.max(rectifyingRmin, 1e-12)).excess <= tolerance) return null
+  let lo = Math.max(rectifyingRmin, 1e-12)
+  let hi = Math.max(2 * lo, 1)
+  while (strippingExcess(curve, xF, q, xD, xB, hi).excess > tolerance && hi < 1e9) hi *= 2
+  for (let i = 0; i < 80 && hi - lo > 1e-10 * hi; i++) {
+    const mid = 0.5 * (lo + hi)
+    if (strippingExcess(curve, xF, q, xD, xB, mid).excess > tolerance) lo = mid
+    else hi = mid
+  }
+  return { R: hi, x: strippingExcess(curve, xF, q, xD, xB, hi).x }
+}
+
+/** Rmin on an already built curve; shared with mccabeThiele. Inputs already checked; xB (optional) adds the stripping check. */
+export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB?: number): Omit<MinimumRefluxResult, 'assumptions' | 'caution'> {
   checkNoAzeotropeBetween(curve, xF, xD, 'xF', 'xD')
   const feedPinch = qLinePinch(curve, xF, q)
   const warnings: string[] = [...curve.warnings]
@@ -86,6 +121,8 @@ export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: num
   }
   const Rmin = Math.max(0, need.slope / (1 - need.slope))
   const touch = tangent ? { x: need.x, y: curve.y(need.x) } : feedPinch
+  const stripping = xB === undefined ? null : strippingMinimum(curve, xF, q, xD, xB, Rmin)
+  if (stripping) return { Rmin: stripping.R, governs: 'stripping-tangent-pinch', feedPinch, touch: { x: stripping.x, y: curve.y(stripping.x) }, warnings }
   return { Rmin, governs: tangent ? 'tangent-pinch' : 'pinch', feedPinch, touch, warnings }
 }
 
@@ -93,18 +130,24 @@ export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: num
  * Minimum reflux ratio Rmin = L/D of a binary column with a total condenser, constant molar overflow.
  * The rectifying operating line from (xD, xD) must stay below the equilibrium curve between the q-line pinch
  * and xD; Rmin is set by the steepest such line: either through the q-line pinch ('pinch') or touching the curve
- * above the feed ('tangent-pinch', typical of strongly non-ideal systems such as ethanol–water).
+ * above the feed ('tangent-pinch', typical of strongly non-ideal systems such as ethanol–water). Given xB, the
+ * stripping line from (xB, xB) is checked too and may raise Rmin ('stripping-tangent-pinch').
  * @param source `{ system, P }` (P in Pa), `{ alpha }` or `{ table }`
- * @param spec.xF feed mole fraction; spec.q feed liquid fraction (1 saturated liquid); spec.xD distillate (> xF)
+ * @param spec.xF feed mole fraction; spec.q feed liquid fraction (1 saturated liquid); spec.xD distillate (> xF); spec.xB optional bottoms (< xF)
  * @throws ThermoError for compositions outside (0, 1), xD ≤ xF, or an azeotrope between xF and xD
  */
-export function minimumReflux(source: EquilibriumSource, spec: { xF: number; q: number; xD: number }): MinimumRefluxResult {
+export function minimumReflux(source: EquilibriumSource, spec: { xF: number; q: number; xD: number; xB?: number }): MinimumRefluxResult {
   const curve = equilibriumCurve(source)
-  const { xF, q, xD } = spec ?? ({} as { xF: number; q: number; xD: number })
+  const { xF, q, xD, xB } = spec ?? ({} as { xF: number; q: number; xD: number })
   checkOpenFraction(xF, 'xF')
   checkOpenFraction(xD, 'xD')
   checkQ(q)
   if (xD <= xF) throw new ThermoError('invalid-input', `xD must be greater than xF; got xD = ${xD}, xF = ${xF}.`)
-  const r = minimumRefluxOnCurve(curve, xF, q, xD)
+  if (xB !== undefined) {
+    checkOpenFraction(xB, 'xB')
+    if (xB >= xF) throw new ThermoError('invalid-input', `xB must be less than xF; got xB = ${xB}, xF = ${xF}.`)
+    checkNoAzeotropeBetween(curve, xB, xF, 'xB', 'xF')
+  }
+  const r = minimumRefluxOnCurve(curve, xF, q, xD, xB)
   return { ...r, assumptions: designAssumptions(curve, ['total condenser', 'minimum reflux means infinitely many stages']), caution: DESIGN_CAUTION }
 }
