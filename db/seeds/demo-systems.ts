@@ -7,7 +7,7 @@
  * process solvents for its plant. Projects (fictional): "SR-24 mother-liquor recovery" and
  * "Kestrel acetone recycle".
  */
-import type { ActivityModel, VaporPressureModel } from '../../packages/thermo/src/index.js'
+import type { ActivityModel, VaporPressureModel } from '@ebullio/thermo'
 
 const CAL = 4.184 // J per thermochemical calorie
 

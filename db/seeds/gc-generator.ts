@@ -3,7 +3,7 @@
  * runs from a published activity model, with simulated weighing, barometer, thermometer and GC noise.
  * Deterministic (seeded), so the demo and the example files are the same on every machine.
  */
-import { bubbleTemperature } from '../../packages/thermo/src/index.js'
+import { bubbleTemperature } from '@ebullio/thermo'
 import { DEMO_COMPONENTS, demoVaporPressure, type DemoSystem } from './demo-systems.js'
 
 /** mulberry32: a small seeded generator, good enough for demo noise. */
