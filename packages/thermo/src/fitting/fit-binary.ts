@@ -1,0 +1,178 @@
+import { unstableRange } from '../activity/activity.js'
+import { ThermoError } from '../errors.js'
+import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.js'
+import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './fit-input.js'
+import { levenbergMarquardt, type LeastSquaresProblem, type LeastSquaresResult } from './lm.js'
+import { activityProblem, bubbleProblem, type FitData } from './objectives.js'
+import { parameterLayout, type FittableModel, type ParameterLayout } from './parameters.js'
+import { pointResiduals, summarise } from './report.js'
+import { fitStatistics } from './statistics.js'
+
+/** Options of {@link fitBinary}. */
+export interface FitBinaryOptions {
+  points: BinaryPoint[]
+  vaporPressure: [VaporPressureModel, VaporPressureModel]
+  model: FittableModel
+  /** Liquid molar volumes, cm³/mol (Wilson only). */
+  V1?: number
+  V2?: number
+  /** NRTL α, default 0.3 (fixed unless fitAlpha). */
+  alpha?: number
+  fitAlpha?: boolean
+  /** 'bubble-point' (default) or 'activity'. */
+  objective?: 'bubble-point' | 'activity'
+}
+
+/** A point's residuals after the fit: dT = Tcalc − T (K), dy = ycalc − y; see {@link fitBinary} for the flag rule. */
+export interface PointResidual {
+  dT: number
+  dy: number
+  studentized: number
+  leverage: number
+  flagged: boolean
+  excluded: boolean
+}
+
+/** Result of {@link fitBinary}. */
+export interface FitBinaryResult {
+  activity: ActivityModel
+  system: BinarySystem
+  parameters: { name: string; value: number; standardError: number }[]
+  covariance: number[][]
+  correlation: number[][]
+  converged: boolean
+  iterations: number
+  /** Minimised sum of squares (weighted for bubble-point, in ln γ for activity). */
+  objective: number
+  objectiveKind: 'bubble-point' | 'activity'
+  rmsT: number
+  rmsY: number
+  aadT: number
+  aadY: number
+  maxAbsT: number
+  maxAbsY: number
+  aic: number
+  residuals: PointResidual[]
+  warnings: string[]
+  /** What is needed to rebuild the parameter layout (prediction bands, suggestions). */
+  settings: { model: FittableModel; V1?: number; V2?: number; alpha: number; fitAlpha: boolean; sigmaT: number; sigmaY: number }
+}
+
+/** Scaled distance between parameter vectors, to tell separate minima apart. */
+function distinct(a: ArrayLike<number>, b: ArrayLike<number>, layout: ParameterLayout): boolean {
+  for (let j = 0; j < a.length; j++) if (Math.abs(a[j] - b[j]) > 1e-3 * Math.max(Math.abs(a[j]), layout.scales[j])) return true
+  return false
+}
+
+/** Cheap multi-start: rank the grid by activity cost, refine the best few, keep the distinct minima, best first. */
+function activityCandidates(data: FitData, layout: ParameterLayout): LeastSquaresResult[] {
+  const problem = activityProblem(data, layout)
+  const r = new Float64Array(problem.nResiduals)
+  const ranked = layout.starts
+    .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
+    .filter((s) => Number.isFinite(s.cost))
+    .sort((a, b) => a.cost - b.cost)
+    .slice(0, 4)
+  const found: LeastSquaresResult[] = []
+  for (const s of ranked) {
+    const fit = levenbergMarquardt(problem, s.p, { maxIterations: 100 })
+    if (fit && found.every((f) => distinct(f.p, fit.p, layout))) found.push(fit)
+  }
+  return found.sort((a, b) => a.cost - b.cost)
+}
+
+function bestBubbleFit(problem: LeastSquaresProblem, starts: ArrayLike<number>[]): LeastSquaresResult | null {
+  let best: LeastSquaresResult | null = null
+  for (const s of starts) {
+    const fit = levenbergMarquardt(problem, s, { maxIterations: 200 })
+    if (fit && (!best || fit.cost < best.cost - 1e-12 * best.cost)) best = fit
+  }
+  return best
+}
+
+/**
+ * Fit binary activity-model parameters to measured T–x–y points under modified Raoult's law.
+ *
+ * Objective 'bubble-point' (default): each point's bubble temperature and vapour composition at its own
+ * x1 and P; minimise Σ[(ΔT/σT)² + (Δy/σy)²], σT = 0.1 K and σy = 0.005 unless a point gives its own
+ * (common practice, no source). Objective 'activity': minimise Σ(Δ ln γi)², γi = yi·P/(xi·Pi_sat(T)).
+ * Levenberg–Marquardt from several starting points (grid ranked by the cheap activity objective),
+ * deterministic. Pure-component points (x1 = 0 or 1) carry no information on the mixing parameters:
+ * they are reported but not fitted (see pureComponentCheck). Excluded points are reported, not fitted.
+ * A point is flagged as a probable outlier when its externally studentized residual (the larger of its
+ * T and y residuals) exceeds 3 in absolute value.
+ * Parameters: A12, A21 (dimensionless), a12, a21, b12, b21 (J/mol), alpha.
+ * @throws ThermoError for too few points, mole fractions outside [0, 1], non-finite values, P ≤ 0.
+ */
+export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
+  checkModelOptions(options)
+  const objectiveKind = options.objective ?? 'bubble-point'
+  const alpha = options.alpha ?? 0.3
+  const fitAlpha = options.fitAlpha ?? false
+  const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha })
+  const m = layout.names.length
+  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m)
+  const candidates = activityCandidates(data, layout)
+  let fit: LeastSquaresResult | null
+  let problem: LeastSquaresProblem
+  if (objectiveKind === 'activity') {
+    problem = activityProblem(data, layout)
+    fit = candidates[0] ?? null
+  } else {
+    problem = bubbleProblem(data, layout, true)
+    const starts = candidates.length > 0 ? candidates.slice(0, 2).map((c) => c.p) : layout.starts
+    fit = bestBubbleFit(problem, starts)
+    if (!fit && candidates.length > 0) fit = bestBubbleFit(problem, layout.starts)
+  }
+  if (!fit) {
+    throw new ThermoError('no-convergence', `The ${modelName(options.model)} fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`)
+  }
+  return finishFit(options, layout, data, index, fit, problem.nResiduals, objectiveKind, { alpha, fitAlpha })
+}
+
+function finishFit(
+  options: FitBinaryOptions, layout: ParameterLayout, data: FitData, index: number[], fit: LeastSquaresResult,
+  nRows: number, objectiveKind: 'bubble-point' | 'activity', nrtl: { alpha: number; fitAlpha: boolean },
+): FitBinaryResult {
+  const m = layout.names.length
+  const stats = fitStatistics(fit.r, fit.J, nRows, m)
+  const activity = layout.build(fit.p)
+  const system: BinarySystem = { vaporPressure: options.vaporPressure, activity }
+  const residuals = pointResiduals(options.points, system, data, index, stats, fit.J, m, objectiveKind === 'bubble-point', layout, fit.p)
+  const summary = summarise(residuals, index)
+  const warnings: string[] = []
+  if (!fit.converged) warnings.push('The fit stopped before it fully converged; treat the parameters with care.')
+  if (!stats.inverse) warnings.push('The parameters are not separately determined by these data (singular fit); standard errors are not available.')
+  for (let i = 0; i < m; i++) for (let j = 0; j < i; j++) {
+    const r = stats.correlation[i][j]
+    if (Math.abs(r) > 0.99) warnings.push(`${layout.names[j]} and ${layout.names[i]} are strongly correlated (r = ${r.toFixed(3)}): the data do not tell them apart well.`)
+  }
+  const flagged = residuals.filter((r) => r.flagged && !r.excluded).length
+  if (flagged > 0) warnings.push(`${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`)
+  const Ts = Array.from(data.T)
+  for (const T of [Math.min(...Ts), Math.max(...Ts)]) {
+    const split = unstableRange(activity, T)
+    if (split) {
+      warnings.push(`The fitted parameters predict two liquid phases between x1 ≈ ${split[0].toFixed(2)} and ${split[1].toFixed(2)} at ${T.toFixed(1)} K; a single-liquid model is not physical there.`)
+      break
+    }
+  }
+  const sigmaT = 1 / (Array.from(data.wT).reduce((s, v) => s + v, 0) / data.n)
+  const sigmaY = 1 / (Array.from(data.wY).reduce((s, v) => s + v, 0) / data.n)
+  return {
+    activity,
+    system,
+    parameters: layout.names.map((name, j) => ({ name, value: fit.p[j], standardError: stats.standardErrors[j] })),
+    covariance: stats.covariance,
+    correlation: stats.correlation,
+    converged: fit.converged,
+    iterations: fit.iterations,
+    objective: fit.cost,
+    objectiveKind,
+    ...summary,
+    aic: stats.aic,
+    residuals,
+    warnings,
+    settings: { model: options.model, V1: options.V1, V2: options.V2, alpha: nrtl.alpha, fitAlpha: nrtl.fitAlpha, sigmaT, sigmaY },
+  }
+}

@@ -1,0 +1,5 @@
+export { fitBinary } from './fit-binary.js'
+export type { FitBinaryOptions, FitBinaryResult, PointResidual } from './fit-binary.js'
+export type { BinaryPoint } from './fit-input.js'
+export { DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
+export type { FittableModel } from './parameters.js'

@@ -1,0 +1,77 @@
+/**
+ * How each fittable activity model maps to a parameter vector: names (the model's own field names),
+ * typical scales (for finite-difference steps and starting grids) and validity limits.
+ */
+import type { ActivityModel } from '../types.js'
+
+/** The models fitBinary can fit. */
+export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+
+/** A parameter layout: build a model from p, say whether p is allowed, and where to start. */
+export interface ParameterLayout {
+  names: string[]
+  scales: number[]
+  build(p: ArrayLike<number>): ActivityModel
+  valid(p: ArrayLike<number>): boolean
+  starts: number[][]
+}
+
+const ENERGY_GRID = [-1500, 0, 1500, 4000]
+const DIMENSIONLESS_GRID = [-0.5, 0.5, 1.5, 3]
+
+function grid(values: number[]): number[][] {
+  return values.flatMap((a) => values.map((b) => [a, b]))
+}
+
+/** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha). */
+export function parameterLayout(model: FittableModel, opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean }): ParameterLayout {
+  switch (model) {
+    case 'margules':
+      return {
+        names: ['A12', 'A21'],
+        scales: [1, 1],
+        build: (p) => ({ kind: 'margules', A12: p[0], A21: p[1] }),
+        valid: (p) => Math.abs(p[0]) < 50 && Math.abs(p[1]) < 50,
+        starts: grid(DIMENSIONLESS_GRID),
+      }
+    case 'van-laar':
+      return {
+        names: ['A12', 'A21'],
+        scales: [1, 1],
+        build: (p) => ({ kind: 'van-laar', A12: p[0], A21: p[1] }),
+        // Van Laar needs A12 and A21 of one sign; both near zero is the ideal limit.
+        valid: (p) => p[0] * p[1] > 0 && Math.abs(p[0]) < 50 && Math.abs(p[1]) < 50,
+        starts: [[0.5, 0.5], [1, 2], [2, 1], [2.5, 2.5], [-0.5, -0.5], [-1, -2], [-2, -1]],
+      }
+    case 'wilson': {
+      const V1 = opts.V1 as number
+      const V2 = opts.V2 as number
+      return {
+        names: ['a12', 'a21'],
+        scales: [100, 100],
+        build: (p) => ({ kind: 'wilson', a12: p[0], a21: p[1], V1, V2 }),
+        valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5,
+        starts: grid(ENERGY_GRID),
+      }
+    }
+    case 'nrtl': {
+      const alpha = opts.alpha
+      if (opts.fitAlpha) {
+        return {
+          names: ['b12', 'b21', 'alpha'],
+          scales: [100, 100, 0.01],
+          build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha: p[2] }),
+          valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && p[2] > 0.01 && p[2] <= 1,
+          starts: grid(ENERGY_GRID).map(([a, b]) => [a, b, alpha]),
+        }
+      }
+      return {
+        names: ['b12', 'b21'],
+        scales: [100, 100],
+        build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha }),
+        valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5,
+        starts: grid(ENERGY_GRID),
+      }
+    }
+  }
+}

@@ -1,0 +1,70 @@
+import { res, solveBubbleT } from '../equilibrium/kernel.js'
+import type { BinarySystem } from '../types.js'
+import { DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y, type BinaryPoint } from './fit-input.js'
+import type { PointResidual } from './fit-binary.js'
+import { bubbleSensitivities, perturbedModels, type FitData } from './objectives.js'
+import type { ParameterLayout } from './parameters.js'
+import type { FitStatistics } from './statistics.js'
+
+const FLAG_LIMIT = 3
+
+/**
+ * Residuals of every point (fitted, excluded and pure) under the fitted model. Fitted points get the
+ * externally studentized residual of the fit; excluded mixture points get a prediction residual
+ * r/(s·√(1 + h)), so an excluded point can still be seen to be an outlier.
+ */
+export function pointResiduals(
+  points: BinaryPoint[], system: BinarySystem, data: FitData, index: number[], stats: FitStatistics,
+  J: Float64Array, m: number, bubbleObjective: boolean, layout: ParameterLayout, p: Float64Array,
+): PointResidual[] {
+  const row = new Map(index.map((pointIndex, k) => [pointIndex, k]))
+  const act = system.activity
+  const pm = perturbedModels(layout, p)
+  const dlng = new Float64Array(2 * m)
+  const sT = new Float64Array(m)
+  const sY = new Float64Array(m)
+  return points.map((pt, i) => {
+    const ok = solveBubbleT(act, data.vp1, data.vp2, Math.log(pt.P), pt.x1, pt.T)
+    const dT = ok ? res[0] - pt.T : NaN
+    const dy = ok ? res[1] - pt.y1 : NaN
+    const k = row.get(i)
+    const out: PointResidual = { dT, dy, studentized: NaN, leverage: NaN, flagged: false, excluded: pt.excluded === true }
+    if (k !== undefined) {
+      const a = stats.studentized[2 * k]
+      const b = stats.studentized[2 * k + 1]
+      out.studentized = Math.abs(a) >= Math.abs(b) ? a : b
+      out.leverage = stats.leverage[2 * k] + stats.leverage[2 * k + 1]
+    } else if (ok && bubbleObjective && pt.x1 > 0 && pt.x1 < 1 && stats.inverse) {
+      bubbleSensitivities(act, data, pt.x1, pm, dlng, sT, sY)
+      const wT = 1 / (pt.sigmaT ?? DEFAULT_SIGMA_T)
+      const wY = 1 / (pt.sigmaY ?? DEFAULT_SIGMA_Y)
+      const hT = quad(stats.inverse, sT, m) * wT * wT
+      const hY = quad(stats.inverse, sY, m) * wY * wY
+      const s = Math.sqrt(stats.s2)
+      const a = (dT * wT) / (s * Math.sqrt(1 + hT))
+      const b = (dy * wY) / (s * Math.sqrt(1 + hY))
+      out.studentized = Math.abs(a) >= Math.abs(b) ? a : b
+      out.leverage = hT + hY
+    } else if (pt.x1 === 0 || pt.x1 === 1) {
+      out.leverage = 0
+    }
+    out.flagged = Math.abs(out.studentized) > FLAG_LIMIT
+    return out
+  })
+}
+
+function quad(M: Float64Array, v: Float64Array, m: number): number {
+  let s = 0
+  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) s += v[i] * M[i * m + j] * v[j]
+  return s
+}
+
+/** RMS, mean absolute and largest absolute deviations of T (K) and y1 over the fitted points. */
+export function summarise(residuals: PointResidual[], index: number[]) {
+  const dT = index.map((i) => residuals[i].dT)
+  const dy = index.map((i) => residuals[i].dy)
+  const rms = (v: number[]) => Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length)
+  const aad = (v: number[]) => v.reduce((s, x) => s + Math.abs(x), 0) / v.length
+  const max = (v: number[]) => v.reduce((s, x) => Math.max(s, Math.abs(x)), 0)
+  return { rmsT: rms(dT), rmsY: rms(dy), aadT: aad(dT), aadY: aad(dy), maxAbsT: max(dT), maxAbsY: max(dy) }
+}
