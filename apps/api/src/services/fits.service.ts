@@ -44,7 +44,9 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
   if (included(points).length === 0) throw conflict('This data set has no included points to fit.')
   const inputs = await engineInputs(db, d.systemId)
   const results = req.models.map((model) => {
-    const options = { model, objective: req.objective ?? 'bubble-point', alpha: req.alpha, fitAlpha: req.fitAlpha, V1: inputs.V1, V2: inputs.V2 }
+    const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
+    const nrtl = model === 'nrtl' ? { alpha: req.alpha, fitAlpha: req.fitAlpha } : {}
+    const options = { model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }
     const r = thermo(`Fitting ${model}`, () => fitBinary({
       ...options, vaporPressure: inputs.vaporPressure,
       points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
