@@ -15,23 +15,21 @@ export interface CommentItem {
   createdAt: string
 }
 
-/** An open thread somewhere that the signed-in person started or replied to. */
+/** An open thread somewhere that the signed-in person started or replied to (the server sends its columns as stored). */
 export interface MyThread {
   id: string
-  dataSetId: string
-  pointId: string | null
+  data_set_id: string
+  point_id: string | null
   body: string
-  createdAt: string
+  created_at: string
   title: string
   version: number
-  [k: string]: unknown
 }
 
 export const commentsApi = {
-  list: (dataSetId: string) => api.get<{ items: CommentItem[] }>(`/api/data-sets/${dataSetId}/comments`),
   create: (dataSetId: string, body: { body: string; pointId?: string | null; parentId?: string | null }) =>
     api.post<{ id: string }>(`/api/data-sets/${dataSetId}/comments`, body, { quiet: true }),
-  resolve: (id: string) => api.post<{ ok: true }>(`/api/comments/${id}/resolve`),
-  reopen: (id: string) => api.post<{ ok: true }>(`/api/comments/${id}/reopen`),
+  resolve: (dataSetId: string, id: string) => api.post<unknown>(`/api/data-sets/${dataSetId}/comments/${id}/resolve`),
+  reopen: (dataSetId: string, id: string) => api.post<unknown>(`/api/data-sets/${dataSetId}/comments/${id}/reopen`),
   mine: () => api.get<{ items: MyThread[] }>('/api/comments/mine'),
 }

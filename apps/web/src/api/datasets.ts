@@ -3,6 +3,7 @@
  * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
  */
 import { api, query } from './client'
+import type { CommentItem } from './comments'
 
 export type DataSetState = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
 export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl'
@@ -107,15 +108,25 @@ export interface DataSetDetail {
   fits: Fit[]
   consistency: ConsistencyResult[]
   approvals: Approval[]
+  comments: CommentItem[]
+  uploads: { id: string; kind: string; originalName: string; sizeBytes?: number; sha256?: string; uploadedAt?: string; [k: string]: unknown }[]
+  versions: { id: string; version: number; state: DataSetState; approvedAt: string | null }[]
+  /** the two components' preferred vapour-pressure models, when they could be read */
+  vaporPressure?: [Record<string, unknown>, Record<string, unknown>] | null
   authorName?: string
 }
 
+/** The server answers with the data set's own fields at the top level and its parts beside them. */
+type DetailAnswer = DataSet & Omit<DataSetDetail, 'dataSet' | 'vaporPressure' | 'authorName'>
+
 export interface VaporPressureSet {
   id?: string
+  componentId?: string
   kind: 'antoine' | 'clausius-clapeyron'
   parameters: Record<string, unknown>
   source?: string
   preferred?: boolean
+  createdAt?: string
 }
 
 export interface LabComponent {
@@ -124,7 +135,7 @@ export interface LabComponent {
   casNumber: string | null
   molarMass?: number
   liquidMolarVolume?: number | null
-  vaporPressure?: VaporPressureSet[]
+  vaporPressureSets?: VaporPressureSet[]
 }
 
 export interface LabSystem {
@@ -159,16 +170,22 @@ export interface NewDataSet {
 
 const base = '/api/data-sets'
 
+async function getDetail(id: string): Promise<DataSetDetail> {
+  const { system, points, fits, consistency, approvals, comments, uploads, versions, ...dataSet } = await api.get<DetailAnswer>(`${base}/${id}`)
+  return { dataSet: dataSet as DataSet, system, points, fits, consistency, approvals, comments: comments ?? [], uploads: uploads ?? [], versions: versions ?? [] }
+}
+
 export const datasetsApi = {
-  list: (q: DataSetListQuery) => api.get<{ items: DataSetListItem[]; total: number }>(base + query({ ...q })),
+  list: ({ limit, offset, ...q }: DataSetListQuery) =>
+    api.get<{ items: DataSetListItem[]; total: number }>(base + query({ ...q, page: Math.floor(offset / limit) + 1, pageSize: limit })),
   create: (body: NewDataSet) => api.post<DataSet>(base, body, { quiet: true }),
-  get: (id: string) => api.get<DataSetDetail>(`${base}/${id}`),
+  get: getDetail,
   update: (id: string, body: Partial<NewDataSet> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body),
-  exclude: (id: string, pointId: string, excluded: boolean, reason: string | null) =>
-    api.post<Point>(`${base}/${id}/points/${pointId}/${excluded ? 'exclude' : 'include'}`, excluded ? { reason } : {}, { quiet: true }),
-  runFits: (id: string, models: ModelName[]) => api.post<{ items: Fit[] }>(`${base}/${id}/fits`, { models }, { quiet: true }),
-  recommend: (id: string, fitId: string) => api.put<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
-  runConsistency: (id: string, fitId?: string) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, { fitId }, { quiet: true }),
+  exclude: (id: string, pointId: string, rowVersion: number, excluded: boolean, reason: string | null) =>
+    api.patch<Point>(`${base}/${id}/points/${pointId}`, { rowVersion, excluded, reason }, { quiet: true }),
+  runFits: (id: string, models: ModelName[]) => api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, { models }, { quiet: true }),
+  recommend: (id: string, fitId: string) => api.post<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
+  runConsistency: (id: string, model?: ModelName) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,

@@ -97,7 +97,7 @@ export interface ActiveCalibration {
 
 /** Where a preview or commit of each kind goes (issue 5: run sheets belong to a data set, calibrations to a system and GC method). */
 const target = (dataSetId: string, kind: UploadKind) =>
-  kind === 'run' ? `/api/data-sets/${dataSetId}/uploads/run` : '/api/calibrations'
+  kind === 'run' ? `/api/data-sets/${dataSetId}/uploads` : '/api/calibrations'
 
 export const uploadsApi = {
   /** Parse and check a file; nothing is stored. */

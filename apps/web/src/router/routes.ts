@@ -27,20 +27,26 @@ export const appRoutes: RouteRecordRaw[] = [
   {
     path: '/approvals',
     name: 'approvals',
-    component: Placeholder,
+    component: () => import('../views/approvals/ApprovalsQueueView.vue'),
     meta: { title: 'Awaiting signature', roles: ['lead_chemist'], nav: { group: 'Review', label: 'Awaiting signature', icon: 'pi pi-verified', order: 20 } },
   },
   {
     path: '/threads',
     name: 'threads',
-    component: Placeholder,
+    component: () => import('../views/threads/MyThreadsView.vue'),
     meta: { title: 'My open threads', roles: ['reviewer', 'lead_chemist', 'analyst'], nav: { group: 'Review', label: 'My open threads', icon: 'pi pi-comments', order: 21 } },
   },
   {
     path: '/systems',
     name: 'catalogue',
-    component: Placeholder,
+    component: () => import('../views/catalogue/CatalogueView.vue'),
     meta: { title: 'Approved systems', roles: ['engineer'], nav: { group: 'Design', label: 'Approved systems', icon: 'pi pi-book', order: 30 } },
+  },
+  {
+    path: '/systems/:id',
+    name: 'system',
+    component: () => import('../views/catalogue/SystemView.vue'),
+    meta: { title: 'Approved system', roles: ['engineer'] },
   },
   {
     path: '/admin/people',

@@ -7,7 +7,8 @@ import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
 
 /** Display names of the models, in the order the fit panel offers them. */
 export const MODEL_LABELS: Record<ModelName, string> = { ideal: 'Ideal (Raoult)', margules: 'Margules', 'van-laar': 'Van Laar', wilson: 'Wilson', nrtl: 'NRTL' }
-export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl', 'ideal']
+/** Models the server fits; the ideal solution is drawn as a reference curve, it has nothing to fit. */
+export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl']
 
 /** Name of a fit for legends: the model, with the run time when the same model was fitted more than once. */
 export function fitLabel(f: Fit, all: Fit[]): string {
@@ -19,10 +20,10 @@ export function fitLabel(f: Fit, all: Fit[]): string {
 
 /** The two vapour-pressure models, wherever the server put them; null when the system has none yet. */
 export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPressureModel] | null {
-  const direct = (d as unknown as { vaporPressure?: unknown }).vaporPressure
-  if (Array.isArray(direct) && direct.length === 2) return direct as [VaporPressureModel, VaporPressureModel]
+  const direct = d.vaporPressure
+  if (Array.isArray(direct) && direct.length === 2) return direct as unknown as [VaporPressureModel, VaporPressureModel]
   const pick = (c: DataSetDetail['system']['component1']) => {
-    const sets = c.vaporPressure ?? []
+    const sets = c.vaporPressureSets ?? []
     const s = sets.find((v) => v.preferred) ?? sets[0]
     return s ? (s.parameters as unknown as VaporPressureModel) : null
   }
@@ -76,7 +77,7 @@ export function residualsOf(f: Fit): { pointId: string; dT: number | null; dy: n
       pointId: String(o.pointId ?? o.id ?? f.pointIds[i] ?? ''),
       dT: num('dT', 'deltaT', 'temperature', 'T'),
       dy: num('dy', 'dy1', 'deltaY', 'y1', 'y'),
-      outlier: o.outlier === true,
+      outlier: o.flagged === true || o.outlier === true,
     }
   })
 }
