@@ -1,25 +1,27 @@
 import { expect, test } from '@playwright/test'
-import { DEMO, linkFrom, shot, signIn, signOut, waitForMail } from './support/helpers'
+import { DEMO, linkFrom, nav, shot, signIn, signOut, waitForMail } from './support/helpers'
 
 test('an admin invites a colleague, who sets a password, signs in, sees their navigation and signs out', async ({ page }) => {
   const email = `new.reviewer.${Date.now()}@lab.example`
   await signIn(page, DEMO.admin)
-  await page.getByRole('link', { name: 'People and roles' }).click()
+  await shot(page, 'admin-home')
+  await nav(page).getByRole('link', { name: 'People and roles' }).click()
   await expect(page.getByRole('heading', { name: 'People and roles' })).toBeVisible()
   await page.getByTestId('invite-open').click()
   const dialog = page.getByRole('dialog', { name: 'Invite a colleague' })
   await dialog.getByLabel('Name').fill('Noor Haddad')
   await dialog.getByLabel('E-mail address').fill(email)
-  await dialog.locator('#inv-roles').click()
+  await dialog.getByTestId('invite-roles').click()
   await page.getByRole('option', { name: 'Reviewer' }).click()
   await page.keyboard.press('Escape')
   await shot(page, 'admin-invite-dialog')
   await dialog.getByRole('button', { name: 'Send invitation' }).click()
   await expect(page.getByRole('cell', { name: email })).toBeVisible()
+  await expect(dialog).toBeHidden()
   await shot(page, 'admin-people')
 
   const body = await waitForMail(email, /invited/)
-  await page.getByRole('link', { name: 'Captured mail' }).click()
+  await nav(page).getByRole('link', { name: 'Captured mail' }).click()
   await expect(page.getByTestId('mail-body')).toContainText('You are invited to Ebullio')
   await shot(page, 'admin-mail-capture')
   await signOut(page)
@@ -31,10 +33,9 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
   await shot(page, 'accept-invite')
   await page.getByRole('button', { name: 'Set password and sign in' }).click()
   await expect(page.getByRole('heading', { name: /Good to see you, Noor Haddad/ })).toBeVisible()
-  const nav = page.getByRole('complementary', { name: 'Main navigation' })
-  await expect(nav.getByRole('link', { name: 'My open threads' })).toBeVisible()
-  await expect(nav.getByRole('link', { name: 'People and roles' })).toHaveCount(0)
-  await expect(nav.getByRole('link', { name: 'Approved systems' })).toHaveCount(0)
+  await expect(nav(page).getByRole('link', { name: 'My open threads' })).toBeVisible()
+  await expect(nav(page).getByRole('link', { name: 'People and roles' })).toHaveCount(0)
+  await expect(nav(page).getByRole('link', { name: 'Approved systems' })).toHaveCount(0)
   await shot(page, 'reviewer-home')
   await signOut(page)
 
@@ -54,6 +55,7 @@ test('a deep link without a session goes to sign-in and back; a forced URL witho
 
   await signIn(page, DEMO.engineer)
   await expect(page.getByRole('link', { name: 'People and roles' })).toHaveCount(0)
+  await expect(nav(page).getByRole('link', { name: 'Approved systems' })).toBeVisible()
   await page.goto('/admin/people')
   await expect(page.getByTestId('forbidden')).toContainText('Not allowed (403)')
   await shot(page, 'forbidden')

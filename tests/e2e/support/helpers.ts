@@ -36,6 +36,9 @@ export function linkFrom(body: string, path: string): string {
   return new URL(m[0]).pathname
 }
 
+/** The side navigation of the app frame. */
+export const nav = (page: Page) => page.getByRole('complementary', { name: 'Main navigation' })
+
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto('/sign-in')
   await page.getByLabel('E-mail address').fill(email)

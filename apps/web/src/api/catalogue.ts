@@ -1,0 +1,82 @@
+/**
+ * The engineers' catalogue of approved systems and what can be downloaded from an approved data set
+ * (issue 5's catalogue and export routes). T in K, P in Pa, compositions as mole fractions of component 1.
+ */
+import { api, query } from './client'
+
+/** A pure component as the catalogue shows it. */
+export interface CatalogueComponent {
+  id: string
+  name: string
+  casNumber: string | null
+  formula: string | null
+  /** g/mol */
+  molarMass: number
+  /** cm³/mol */
+  liquidMolarVolume: number | null
+}
+
+export interface CatalogueSystem {
+  id: string
+  name: string
+  notes: string | null
+  component1: CatalogueComponent
+  component2: CatalogueComponent
+}
+
+/** An approved version of a data set with the fit it was approved with. */
+export interface ApprovedVersion {
+  dataSetId: string
+  title: string
+  version: number
+  /** Pa */
+  nominalPressurePa: number
+  approvedAt: string | null
+  recommendedFit: { id: string; model: string; parameters: { name: string; value: number; standardError: number }[] } | null
+}
+
+export interface CatalogueEntry {
+  system: CatalogueSystem
+  approved: ApprovedVersion[]
+  superseded: { dataSetId: string; version: number; approvedAt: string | null }[]
+}
+
+/** The documented `ebullio-parameters/1` export of an approved data set (docs/csv-formats.md). */
+export interface ParametersExport {
+  format: string
+  dataSet: { id: string; title: string; version: number; state: string; nominalPressurePa: number }
+  system: {
+    component1: { name: string; cas: string | null; liquidMolarVolume: number | null }
+    component2: { name: string; cas: string | null; liquidMolarVolume: number | null }
+  }
+  /** thermo VaporPressureModel fields plus `source`. */
+  vaporPressure: (Record<string, unknown> & { kind: string; source: string })[]
+  recommendedFitId: string | null
+  fits: {
+    id: string
+    model: string
+    recommended: boolean
+    activity: Record<string, unknown> & { kind: string }
+    parameters: { name: string; value: number; standardError: number; unit: string }[]
+    statistics: { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean }
+    points: number
+    runAt: string
+  }[]
+  approval: { signedBy: string; signedAt: string; reason: string; digest: string } | null
+}
+
+const base = (id: string) => `/api/data-sets/${encodeURIComponent(id)}`
+
+/** Download URLs (the browser fetches them with the session cookie; the server names the file). */
+export const exportUrls = {
+  parametersJson: (dataSetId: string) => `${base(dataSetId)}/export/parameters.json`,
+  parametersCsv: (dataSetId: string) => `${base(dataSetId)}/export/parameters.csv`,
+}
+
+export const catalogueApi = {
+  /** Approved systems whose component names or CAS numbers match `q`. */
+  list: (q: string, page = 1, pageSize = 50) =>
+    api.get<{ items: CatalogueEntry[]; total: number; page: number; pageSize: number }>('/api/catalogue' + query({ q, page, pageSize })),
+  /** Everything needed to compute with an approved version: vapour-pressure sets and every fit. */
+  parameters: (dataSetId: string) => api.get<ParametersExport>(exportUrls.parametersJson(dataSetId)),
+}
