@@ -176,3 +176,26 @@ function finishFit(
     settings: { model: options.model, V1: options.V1, V2: options.V2, alpha: nrtl.alpha, fitAlpha: nrtl.fitAlpha, sigmaT, sigmaY },
   }
 }
+
+/**
+ * Fit the model to T–x alone (bubble temperatures at each point's x1 and P, vapour compositions unused),
+ * from the starting grid ranked by that same objective. Used by the point test.
+ * @returns the fitted activity model and whether the fit converged.
+ */
+export function fitTemperatureOnly(options: FitBinaryOptions): { activity: ActivityModel; converged: boolean; index: number[] } {
+  checkModelOptions(options)
+  const alpha = options.alpha ?? 0.3
+  const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha: false })
+  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, layout.names.length)
+  const problem = bubbleProblem(data, layout, false)
+  const r = new Float64Array(problem.nResiduals)
+  const ranked = layout.starts
+    .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
+    .filter((s) => Number.isFinite(s.cost))
+    .sort((a, b) => a.cost - b.cost)
+  const fit = bestBubbleFit(problem, ranked.slice(0, 3).map((s) => s.p))
+  if (!fit) {
+    throw new ThermoError('no-convergence', `The ${modelName(options.model)} fit to T–x found no parameters for which every point has a bubble point.`)
+  }
+  return { activity: layout.build(fit.p), converged: fit.converged, index }
+}

@@ -1,0 +1,6 @@
+export { heringtonAreaTest } from './herington.js'
+export type { HeringtonResult } from './herington.js'
+export { pointTest } from './point-test.js'
+export type { PointTestOptions, PointTestResult } from './point-test.js'
+export { pureComponentCheck, PURE_COMPONENT_TOLERANCE } from './pure-component.js'
+export type { PureComponentCheck } from './pure-component.js'
