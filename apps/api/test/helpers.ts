@@ -1,6 +1,6 @@
 import type { Role } from '@ebullio/schemas'
 import { sql, type Kysely } from 'kysely'
-import { pino } from 'pino'
+import { pino, type Logger } from 'pino'
 import request from 'supertest'
 import type { Express } from 'express'
 import { createApp } from '../src/app.js'
@@ -24,7 +24,7 @@ export interface TestContext {
 }
 
 /** An app wired to the test database, with its own fake SMTP on a free port. */
-export async function createTestContext(env: Record<string, string> = {}): Promise<TestContext> {
+export async function createTestContext(env: Record<string, string> = {}, logger: Logger = pino({ level: 'silent' })): Promise<TestContext> {
   const config = loadConfig({
     ...process.env,
     NODE_ENV: 'test',
@@ -38,7 +38,7 @@ export async function createTestContext(env: Record<string, string> = {}): Promi
   const smtp = await startFakeSmtp(db, 0)
   const mailer = new Mailer(db, `smtp://127.0.0.1:${smtp.port}`, config.mailFrom)
   const sessions = new Sessions(createLucia(pool, config), config)
-  const app = createApp({ db, config, sessions, mailer }, pino({ level: 'silent' }))
+  const app = createApp({ db, config, sessions, mailer }, logger)
   return {
     app,
     db,
