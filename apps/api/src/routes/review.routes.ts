@@ -43,7 +43,7 @@ export const reviewRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
-      res.status(201).json({ items: await fits.runConsistency(db, user, id, parseBody(consistencySchema, req).model) })
+      res.status(201).json(await fits.runConsistency(db, user, id, parseBody(consistencySchema, req).model))
     },
   },
   {

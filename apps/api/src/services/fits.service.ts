@@ -104,7 +104,7 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
       await appendAudit(tx, { actorId: user.id, entity: 'consistency_result', entityId: rec.id, action: `run ${test} test`, dataSetId: id, after: { passed: r.passed } })
       out.push(rec)
     }
-    await repo.updateDataSet(tx, id, {})
-    return out
+    const after = await repo.updateDataSet(tx, id, {})
+    return { items: out, rowVersion: after!.rowVersion }
   })
 }
