@@ -55,7 +55,7 @@ export interface FitBinaryResult {
   residuals: PointResidual[]
   warnings: string[]
   /** What is needed to rebuild the parameter layout (prediction bands, suggestions). */
-  settings: { model: FittableModel; V1?: number; V2?: number; alpha: number; fitAlpha: boolean; sigmaT: number; sigmaY: number }
+  settings: { model: FittableModel; V1?: number; V2?: number; alpha: number; fitAlpha: boolean; sigmaT: number; sigmaY: number; residualVariance: number }
 }
 
 /** Scaled distance between parameter vectors, to tell separate minima apart. */
@@ -173,7 +173,7 @@ function finishFit(
     aic: stats.aic,
     residuals,
     warnings,
-    settings: { model: options.model, V1: options.V1, V2: options.V2, alpha: nrtl.alpha, fitAlpha: nrtl.fitAlpha, sigmaT, sigmaY },
+    settings: { model: options.model, V1: options.V1, V2: options.V2, alpha: nrtl.alpha, fitAlpha: nrtl.fitAlpha, sigmaT, sigmaY, residualVariance: stats.s2 },
   }
 }
 

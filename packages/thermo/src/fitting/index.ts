@@ -3,3 +3,5 @@ export type { FitBinaryOptions, FitBinaryResult, PointResidual } from './fit-bin
 export type { BinaryPoint } from './fit-input.js'
 export { DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
 export type { FittableModel } from './parameters.js'
+export { predictionBand, suggestNextCompositions } from './prediction.js'
+export type { PredictionBand, SuggestedComposition } from './prediction.js'

@@ -1,0 +1,140 @@
+import { checkPressure, ThermoError } from '../errors.js'
+import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
+import { compileSystem } from '../equilibrium/system.js'
+import type { FitBinaryResult } from './fit-binary.js'
+import { invertSymmetric } from './linear-algebra.js'
+import { bubbleSensitivities, perturbedModels } from './objectives.js'
+import { parameterLayout } from './parameters.js'
+
+/** Bubble points and their parameter sensitivities along a list of liquid compositions at P (Pa). */
+function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
+  const s = fit.settings
+  const layout = parameterLayout(s.model, { V1: s.V1, V2: s.V2, alpha: s.alpha, fitAlpha: s.fitAlpha })
+  const p = Float64Array.from(fit.parameters, (q) => q.value)
+  const c = compileSystem(fit.system)
+  const pm = perturbedModels(layout, p)
+  const m = p.length
+  const dlng = new Float64Array(2 * m)
+  const lnP = Math.log(P)
+  let T = NaN
+  return xs.map((x1) => {
+    if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1))) {
+      throw new ThermoError('no-convergence', `No bubble point at x1 = ${x1.toFixed(4)} and ${P} Pa with the fitted parameters.`)
+    }
+    T = res[0]
+    const y1 = res[1]
+    const gT = new Float64Array(m)
+    const gY = new Float64Array(m)
+    bubbleSensitivities(c.act, c, x1, pm, dlng, gT, gY)
+    return { x1, T, y1, gT, gY }
+  })
+}
+
+function variance(cov: number[][], g: Float64Array): number {
+  let v = 0
+  for (let i = 0; i < g.length; i++) for (let j = 0; j < g.length; j++) v += g[i] * cov[i][j] * g[j]
+  return Math.max(v, 0)
+}
+
+function checkCount(name: string, n: number, lo: number, hi: number): void {
+  if (!Number.isInteger(n) || n < lo || n > hi) {
+    throw new ThermoError('invalid-input', `The number of ${name} must be a whole number from ${lo} to ${hi}; got ${n}.`)
+  }
+}
+
+/** A fitted T–x–y curve with its ±2σ confidence band. */
+export interface PredictionBand {
+  P: number
+  x1: number[]
+  T: number[]
+  y1: number[]
+  sigmaT: number[]
+  sigmaY: number[]
+  Tlow: number[]
+  Thigh: number[]
+  ylow: number[]
+  yhigh: number[]
+  warnings: string[]
+}
+
+/**
+ * The fitted T–x–y curve at P (Pa) with a ±2σ band from the parameter covariance, by linear
+ * propagation σ² = gᵀ·C·g with g = ∂(T or y1)/∂θ. It shows how sure the fit is of the curve
+ * (a confidence band of the model), not the scatter of a single new measurement.
+ * @param options points: compositions on a cosine grid from 0 to 1, default 51 (3–1001).
+ */
+export function predictionBand(fit: FitBinaryResult, options: { P: number; points?: number }): PredictionBand {
+  checkPressure(options.P)
+  const n = options.points ?? 51
+  checkCount('band points', n, 3, 1001)
+  const xs = Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
+  const rows = sensitivities(fit, options.P, xs)
+  const warnings = fit.covariance.flat().every(Number.isFinite) ? [] : ['The fit has no usable covariance, so the band cannot be drawn.']
+  const sigmaT = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gT)))
+  const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
+  return {
+    P: options.P,
+    x1: xs,
+    T: rows.map((r) => r.T),
+    y1: rows.map((r) => r.y1),
+    sigmaT,
+    sigmaY,
+    Tlow: rows.map((r, i) => r.T - 2 * sigmaT[i]),
+    Thigh: rows.map((r, i) => r.T + 2 * sigmaT[i]),
+    ylow: rows.map((r, i) => Math.max(0, r.y1 - 2 * sigmaY[i])),
+    yhigh: rows.map((r, i) => Math.min(1, r.y1 + 2 * sigmaY[i])),
+    warnings,
+  }
+}
+
+/** A suggested next measurement: liquid x1, its bubble T (K) and predicted y1, and σy before measuring there. */
+export interface SuggestedComposition {
+  x1: number
+  T: number
+  y1: number
+  sigmaY: number
+}
+
+/**
+ * Where to measure next: liquid compositions that most reduce the uncertainty of the predicted vapour
+ * composition. Greedy sequential design on a grid x1 = 0.01…0.99: pick the composition with the largest
+ * predicted σy, add a hypothetical measurement there (σT, σy as in the fit) to the parameter
+ * information, and repeat; picks stay at least min(0.05, 0.5/count) apart. Best first.
+ * @param options P in Pa, count 1–20.
+ */
+export function suggestNextCompositions(fit: FitBinaryResult, options: { P: number; count: number }): SuggestedComposition[] {
+  checkPressure(options.P)
+  checkCount('suggestions', options.count, 1, 20)
+  const m = fit.parameters.length
+  const info = new Float64Array(m * m)
+  fit.covariance.forEach((row, i) => row.forEach((v, j) => (info[i * m + j] = v)))
+  const inv = invertSymmetric(info, m)
+  if (!inv) throw new ThermoError('no-covariance', 'The fit has no usable covariance, so no next measurement can be suggested.')
+  const grid = Array.from({ length: 99 }, (_, i) => (i + 1) / 100)
+  const rows = sensitivities(fit, options.P, grid)
+  const { sigmaT, sigmaY, residualVariance } = fit.settings
+  const s2 = Number.isFinite(residualVariance) && residualVariance > 0 ? residualVariance : 1
+  const spacing = Math.min(0.05, 0.5 / options.count)
+  const picks: SuggestedComposition[] = []
+  let cov = fit.covariance
+  for (let k = 0; k < options.count; k++) {
+    let best = -1
+    let bestSigma = -1
+    rows.forEach((r, i) => {
+      if (picks.some((p) => Math.abs(p.x1 - r.x1) < spacing - 1e-12)) return
+      const s = Math.sqrt(variance(cov, r.gY))
+      if (s > bestSigma) { bestSigma = s; best = i }
+    })
+    if (best < 0) break
+    const r = rows[best]
+    picks.push({ x1: r.x1, T: r.T, y1: r.y1, sigmaY: bestSigma })
+    // Information of the hypothetical point: its T and y rows, weighted as the fit weighted its data.
+    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
+      inv[i * m + j] += (r.gT[i] * r.gT[j] / (sigmaT * sigmaT) + r.gY[i] * r.gY[j] / (sigmaY * sigmaY)) / s2
+    }
+    const next = invertSymmetric(inv, m)
+    if (!next) break
+    cov = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => next[i * m + j]))
+  }
+  return picks
+}
