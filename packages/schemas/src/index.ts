@@ -1,1 +1,2 @@
 export * from './auth.js'
+export * from './design.js'

@@ -84,13 +84,13 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
   if (o.pure) {
     const tU = o.unit === 'C' ? '°C' : 'K'
     const data = [
-      // Labels sit where the curves are not: above-right of the x1 = 0 end, below-left of the x1 = 1 end.
-      { value: [1, showT(o.pure.T1, o.unit)], label: { position: 'bottom', align: 'right', offset: [-4, 0] }, name: o.names[0] },
-      { value: [0, showT(o.pure.T2, o.unit)], label: { position: 'top', align: 'left', offset: [6, 0] }, name: o.names[1] },
+      // Labels sit just inside the plot, on a light backing so a curve passing behind them does not hide them.
+      { value: [1, showT(o.pure.T1, o.unit)], label: { position: 'left', offset: [-2, -12] }, name: o.names[0] },
+      { value: [0, showT(o.pure.T2, o.unit)], label: { position: 'right', offset: [2, -12] }, name: o.names[1] },
     ]
     out.push({
       type: 'scatter', name: 'Pure-component boiling point', data, symbol: 'rect', symbolSize: 9, z: 5, itemStyle: { color: INK },
-      label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}` },
+      label: { show: true, fontSize: 11, color: INK, backgroundColor: 'rgba(255,255,255,0.85)', padding: [1, 3], borderRadius: 2, formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}` },
       tooltip: { formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}` },
     })
   }
@@ -110,7 +110,7 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
 export function txyOption(o: TxyOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
-  const names = [LIQUID_NAME, VAPOUR_NAME, ...o.curves.map((c) => c.name)]
+  const names = [...(o.points.length ? [LIQUID_NAME, VAPOUR_NAME] : []), ...o.curves.map((c) => c.name)]
   const { legend, top } = legendFor(names, selected)
   return {
     ...base,

@@ -18,9 +18,12 @@ const OPERATING = '#0e3238'
 function stageSeries(s: StageConstruction): Record<string, unknown>[] {
   const corner = s.intersection ?? { x: s.xF, y: s.rectifying.slope * s.xF + s.rectifying.intercept }
   const lineStyle = { color: OPERATING, width: 1.5 }
-  const labels = s.staircase
-    .filter((_, i) => i % 2 === 1)
+  // Stage numbers at each step's corner; with many stages only every k-th, so the labels stay legible.
+  const corners = s.staircase.filter((_, i) => i % 2 === 1)
+  const every = Math.max(1, Math.ceil(corners.length / 12))
+  const labels = corners
     .map((p, i) => ({ value: [p.x, p.y], name: String(i + 1) }))
+    .filter((_, i) => (i + 1) % every === 0 || i === 0 || i === corners.length - 1)
   return [
     { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[s.xD, s.xD], [corner.x, corner.y]], lineStyle, color: OPERATING },
     { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[corner.x, corner.y], [s.xB, s.xB]], lineStyle, color: OPERATING },

@@ -1,0 +1,157 @@
+/**
+ * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
+ * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
+ */
+import {
+  batchRectification,
+  bubbleTemperature,
+  fenske,
+  findAzeotrope,
+  mccabeThiele,
+  minimumReflux,
+  phaseDiagram,
+  relativeVolatility,
+  simpleBatchDistillation,
+  type ActivityModel,
+  type Azeotrope,
+  type BatchFrame,
+  type BinarySystem,
+  type VaporPressureModel,
+} from '@ebullio/thermo'
+import type { ParametersExport } from '../../api/catalogue'
+
+/** thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default). */
+export function systemFromParameters(p: ParametersExport, fitId?: string | null): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
+  const fit = p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ?? p.fits.find((f) => f.recommended) ?? p.fits[0]
+  if (!fit) throw new Error('This approved data set has no fitted model to compute with.')
+  const vp = p.vaporPressure.map(({ source: _s, ...m }) => m as unknown as VaporPressureModel) as [VaporPressureModel, VaporPressureModel]
+  return { system: { vaporPressure: vp, activity: fit.activity as unknown as ActivityModel, names: [p.system.component1.name, p.system.component2.name] }, fit }
+}
+
+/** Message of a thermo error (written for a chemist), or a generic one. */
+export function errorText(e: unknown): string {
+  return e instanceof Error && e.message ? e.message : 'The calculation failed for these inputs.'
+}
+
+/** Everything the diagrams tab shows at one pressure. T in K, P in Pa. */
+export interface DiagramsAt {
+  P: number
+  x1: number[]
+  y1: number[]
+  T: number[]
+  /** Relative volatility α12 at each x1 of the diagram (infinite-dilution values at the ends). */
+  alpha: number[]
+  azeotrope: Azeotrope | null
+  azeotropeNote: string | null
+  pure: { T1: number; T2: number }
+  /** Bubble points at round liquid compositions 0, 0.1 … 1 for the on-screen table. */
+  table: { x1: number; y1: number; T: number; alpha: number }[]
+  warnings: string[]
+}
+
+function roundTable(system: BinarySystem, P: number): DiagramsAt['table'] {
+  return Array.from({ length: 11 }, (_, i) => i / 10).map((x1) => {
+    const b = bubbleTemperature(system, { P, x1 })
+    const a = relativeVolatility(system, { P, x1 })
+    return { x1, y1: b.y1, T: b.T, alpha: a.alpha }
+  })
+}
+
+/** T–x–y, x–y, α across composition and the azeotrope at pressure P (Pa). */
+export function diagramsAt(system: BinarySystem, P: number, points = 101): DiagramsAt {
+  const d = phaseDiagram(system, { P }, { points })
+  if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
+  let azeotrope: Azeotrope | null = null
+  let azeotropeNote: string | null = null
+  try {
+    azeotrope = findAzeotrope(system, { P })
+  } catch (e) {
+    azeotropeNote = errorText(e)
+  }
+  const alpha = d.x1.map((x, i) => {
+    if (x <= 0 || x >= 1) return relativeVolatility(system, { P, x1: x }).alpha
+    const y = d.y1[i]
+    return (y * (1 - x)) / (x * (1 - y))
+  })
+  const n = d.T.length
+  return { P, x1: d.x1, y1: d.y1, T: d.T, alpha, azeotrope, azeotropeNote, pure: { T1: d.T[n - 1], T2: d.T[0] }, table: roundTable(system, P), warnings: d.warnings }
+}
+
+/** The curve table as CSV in Ebullio's layout: one row per liquid composition. */
+export function curveTableCsv(d: DiagramsAt, names: [string, string], model: string): string {
+  const head = [
+    `# Ebullio curve table; ${names[0]} (1) + ${names[1]} (2); model ${model}; P = ${(d.P / 1000).toFixed(4)} kPa`,
+    '# Preliminary estimate from equilibrium data; not an engineered design.',
+    'x1,y1,t_k,t_c,alpha12',
+  ]
+  const rows = d.x1.map((x, i) => [x.toFixed(6), d.y1[i].toFixed(6), d.T[i].toFixed(3), (d.T[i] - 273.15).toFixed(3), d.alpha[i].toFixed(5)].join(','))
+  return [...head, ...rows].join('\n') + '\n'
+}
+
+/** Inputs of a column estimate: mole fractions of component 1, q liquid fraction of the feed, R as a multiple of Rmin. */
+export interface ColumnInputs {
+  xF: number
+  q: number
+  xD: number
+  xB: number
+  rFactor: number
+}
+
+/** Fenske, minimum reflux and a McCabe–Thiele stage count on the approved model at pressure P (Pa). */
+export function columnEstimate(system: BinarySystem, P: number, c: ColumnInputs) {
+  const source = { system, P }
+  const minStages = fenske(source, { xD: c.xD, xB: c.xB })
+  const rmin = minimumReflux(source, { xF: c.xF, q: c.q, xD: c.xD })
+  const stages = mccabeThiele(source, { xF: c.xF, q: c.q, xD: c.xD, xB: c.xB, R: { timesMinimum: c.rFactor } })
+  return { minStages, rmin, stages }
+}
+export type ColumnEstimate = ReturnType<typeof columnEstimate>
+
+/** Inputs of a batch-still run: charge in mol, theoretical stages above the pot (0 = simple still), constant R, stop at a distilled fraction. */
+export interface BatchInputs {
+  moles: number
+  x1: number
+  stagesAbovePot: number
+  R: number
+  /** Stop when this fraction of the charge has been distilled (0–1). */
+  distilledFraction: number
+}
+
+/** A frame of the still with the still-head temperature when there is a column. */
+export type StillFrame = BatchFrame & { stillHeadT?: number | null }
+
+/** Run the still: Rayleigh for a simple still, quasi-steady rectification with stages. */
+export function batchRun(system: BinarySystem, P: number, b: BatchInputs, frames = 121) {
+  const source = { system, P }
+  const until = { distillateMoles: b.distilledFraction * b.moles }
+  const charge = { moles: b.moles, x1: b.x1 }
+  if (b.stagesAbovePot === 0) return simpleBatchDistillation(source, { charge, until, frames })
+  return batchRectification(source, { charge, stages: b.stagesAbovePot + 1, R: b.R, until, frames })
+}
+export type BatchRun = ReturnType<typeof batchRun>
+
+/** One cut of distillate: amounts in mol, compositions as mole fractions, temperatures K. */
+export interface Cut {
+  n: number
+  fromFraction: number
+  toFraction: number
+  moles: number
+  x1: number
+  potTStart: number | null
+  potTEnd: number | null
+}
+
+/** Split the run's distillate into `count` equal cuts, from the cumulative distillate composition of each frame. */
+export function cutsOf(frames: StillFrame[], charge: number, count: number): Cut[] {
+  const last = frames.length - 1
+  const cuts: Cut[] = []
+  for (let n = 0; n < count; n++) {
+    const a = frames[Math.round((n * last) / count)]
+    const b = frames[Math.round(((n + 1) * last) / count)]
+    const df = b.distilledFraction - a.distilledFraction
+    if (df <= 0) continue
+    const x1 = (b.cumulativeDistillateX1 * b.distilledFraction - a.cumulativeDistillateX1 * a.distilledFraction) / df
+    cuts.push({ n: n + 1, fromFraction: a.distilledFraction, toFraction: b.distilledFraction, moles: df * charge, x1, potTStart: a.potT, potTEnd: b.potT })
+  }
+  return cuts
+}
