@@ -7,9 +7,12 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
-import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult, type FitModelName } from './engine-bridge.js'
+import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
+
+/** The activity models a data set can be fitted with (thermo's fitBinary). */
+export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
 
 export interface FitRequest {
   models: FitModelName[]
@@ -96,11 +99,13 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   if (pts.length === 0) throw conflict('This data set has no included points to test.')
   const inputs = await engineInputs(db, d.systemId)
   const area = thermo('Area test', () => heringtonAreaTest(pts, { vaporPressure: inputs.vaporPressure }))
-  const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, V1: inputs.V1, V2: inputs.V2 }))
+  const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
+  const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, ...volumes }))
   return db.transaction().execute(async (tx) => {
     const out = []
     for (const [test, r] of [['herington-area', area], ['point', point]] as const) {
-      const rec = await fits.insertConsistency(tx, { dataSetId: id, test, passed: r.passed, result: { ...r, model: test === 'point' ? model : undefined }, runBy: user.id })
+      const result = JSON.parse(JSON.stringify({ ...r, model: test === 'point' ? model : undefined }))
+      const rec = await fits.insertConsistency(tx, { dataSetId: id, test, passed: r.passed, result, runBy: user.id })
       await appendAudit(tx, { actorId: user.id, entity: 'consistency_result', entityId: rec.id, action: `run ${test} test`, dataSetId: id, after: { passed: r.passed } })
       out.push(rec)
     }
