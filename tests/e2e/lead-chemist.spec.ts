@@ -1,0 +1,58 @@
+import { expect, test } from '@playwright/test'
+import { DEMO, DEMO_PASSWORD, signIn } from './support/helpers'
+import { SUBMITTED_WITH_THREADS, snap } from './support/lab'
+
+// Journey 3 works on the demo scenario's submitted data set (an analyst's, so the four-eyes rule allows it).
+test('a lead chemist resolves the thread, marks the recommended fit and approves with a password', async ({ page }) => {
+  await signIn(page, DEMO.lead)
+  await page.getByRole('link', { name: 'Awaiting signature' }).first().click()
+  const queue = page.getByTestId('approvals-table')
+  await expect(queue).toContainText(SUBMITTED_WITH_THREADS)
+  await expect(queue.locator('tr').filter({ hasText: SUBMITTED_WITH_THREADS })).toContainText('unresolved')
+  await snap(page, 'lab-20-approvals-queue')
+  await queue.getByRole('link', { name: SUBMITTED_WITH_THREADS }).click()
+  await expect(page.getByRole('heading', { level: 1, name: SUBMITTED_WITH_THREADS })).toBeVisible()
+
+  // Resolve the thread pinned to a point (the one the analyst answered).
+  const panel = page.getByTestId('threads-panel')
+  const thread = panel.locator('article').filter({ hasText: 'condensate well mixed' })
+  await expect(thread).toContainText('I will re-inject the retained sample')
+  await thread.getByTestId('resolve').click()
+  await expect(panel.locator('article').filter({ hasText: 'condensate well mixed' })).toHaveCount(0)
+  await panel.getByRole('radio', { name: 'All' }).or(panel.getByRole('button', { name: 'All' })).first().click()
+  await expect(panel.locator('article').filter({ hasText: 'condensate well mixed' })).toContainText('Resolved')
+
+  await page.getByTestId('recommend-nrtl').click()
+  await expect(page.getByTestId('fit-nrtl').getByTestId('recommended')).toBeVisible()
+  await snap(page, 'lab-21-lead-workspace')
+
+  await page.getByTestId('open-approve').click()
+  const dialog = page.getByTestId('signature-dialog')
+  await expect(dialog.getByTestId('sign-title')).toHaveText(SUBMITTED_WITH_THREADS)
+  await expect(dialog.getByTestId('sign-version')).toHaveText('1')
+  await expect(dialog.getByTestId('sign-points')).toContainText('12 measured')
+  await expect(dialog.getByTestId('sign-fit')).toContainText('NRTL')
+  await dialog.getByTestId('sign').click()
+  await expect(dialog.getByText('Enter your password to sign.')).toBeVisible()
+  await expect(dialog.getByText('Give the reason for this decision (at least 3 characters).')).toBeVisible()
+
+  await dialog.getByLabel('Reason').fill('Points consistent with the plant samples; NRTL recommended for the mother-liquor column.')
+  const override = dialog.getByLabel(/still open: why approve anyway/)
+  if (await override.count()) await override.fill('The remaining thread asks for a note in the apparatus record; it does not affect the data.')
+  await dialog.getByLabel('Your password').fill('not-my-password')
+  await dialog.getByTestId('sign').click()
+  await expect(dialog.locator('.p-message-error, small.eb-error')).toBeVisible()
+  await snap(page, 'lab-22-signature-dialog')
+
+  await dialog.getByLabel('Your password').fill(DEMO_PASSWORD)
+  await dialog.getByTestId('sign').click()
+  await expect(dialog).toBeHidden()
+  await expect(page.getByTestId('dataset-state')).toHaveText('Approved')
+  const record = page.getByTestId('approval-record')
+  await expect(record).toContainText('Approved')
+  await expect(record).toContainText('Dr. Tobias Lindqvist')
+  await expect(record).toContainText('NRTL recommended for the mother-liquor column')
+  await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
+  await expect(page.getByTestId('open-approve')).toHaveCount(0)
+  await snap(page, 'lab-23-approved-record')
+})
