@@ -62,6 +62,15 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await expect(dialog).toBeHidden()
   await expect(page.getByTestId('points-table').locator('tbody tr')).toHaveCount(12)
 
+  // A point is excluded only with a reason, which stays on the record.
+  const third = page.getByTestId('points-table').locator('tbody tr').nth(2)
+  await third.getByTestId('exclude-point').click()
+  await page.getByRole('dialog').getByRole('button', { name: 'Exclude point', exact: true }).click()
+  await expect(page.getByText('Say why the point is excluded (at least 3 characters); the reason stays on the record.')).toBeVisible()
+  await page.getByRole('dialog').getByLabel('Reason').fill('Still not at steady state when sampled')
+  await page.getByRole('dialog').getByRole('button', { name: 'Exclude point', exact: true }).click()
+  await expect(third).toContainText('Excluded: Still not at steady state when sampled')
+
   // Wilson and NRTL are the preselected models.
   await expect(page.getByLabel('Wilson')).toBeChecked()
   await expect(page.getByLabel('NRTL')).toBeChecked()
@@ -80,9 +89,23 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await snap(page, 'lab-07-consistency')
   await page.getByRole('tab', { name: 'Diagrams and fits' }).click()
 
+  // Display units are a personal preference; stored values stay in K and Pa.
+  await page.getByTestId('units-picker').click()
+  const units = page.getByRole('dialog', { name: 'Display units' })
+  await units.getByText('K', { exact: true }).click()
+  await units.getByText('mmHg', { exact: true }).click()
+  await page.keyboard.press('Escape')
+  await expect(page.getByTestId('points-table')).toContainText('T / K')
+  await expect(page.getByTestId('points-table')).toContainText('P / mmHg')
+  await expect(page.getByTestId('units-picker')).toHaveText(/K · mmHg/)
+  await snap(page, 'lab-08a-units-kelvin-mmhg')
+  await page.setViewportSize({ width: 768, height: 1024 })
+  await snap(page, 'lab-08b-workspace-tablet')
+  await page.setViewportSize({ width: 1280, height: 800 })
+
   await page.getByTestId('submit').click()
   await page.getByRole('button', { name: 'Submit', exact: true }).click()
   await expect(page.getByTestId('dataset-state')).toHaveText('Submitted')
   await expect(page.getByTestId('open-upload')).toHaveCount(0)
-  await snap(page, 'lab-08-submitted')
+  await snap(page, 'lab-09-submitted')
 })

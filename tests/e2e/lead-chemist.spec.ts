@@ -22,8 +22,10 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await panel.getByRole('radio', { name: 'All' }).or(panel.getByRole('button', { name: 'All' })).first().click()
   await expect(panel.locator('article').filter({ hasText: 'condensate well mixed' })).toContainText('Resolved')
 
-  await page.getByTestId('recommend-nrtl').click()
-  await expect(page.getByTestId('fit-nrtl').getByTestId('recommended')).toBeVisible()
+  // Wilson has the lowest AIC on this data set; the lead chemist recommends it.
+  await expect(page.getByTestId('fit-wilson')).toContainText('lowest')
+  await page.getByTestId('recommend-wilson').click()
+  await expect(page.getByTestId('fit-wilson').getByTestId('recommended')).toBeVisible()
   await snap(page, 'lab-21-lead-workspace')
 
   await page.getByTestId('open-approve').click()
@@ -31,12 +33,12 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(dialog.getByTestId('sign-title')).toHaveText(SUBMITTED_WITH_THREADS)
   await expect(dialog.getByTestId('sign-version')).toHaveText('1')
   await expect(dialog.getByTestId('sign-points')).toContainText('12 measured')
-  await expect(dialog.getByTestId('sign-fit')).toContainText('NRTL')
+  await expect(dialog.getByTestId('sign-fit')).toContainText('Wilson')
   await dialog.getByTestId('sign').click()
   await expect(dialog.getByText('Enter your password to sign.')).toBeVisible()
   await expect(dialog.getByText('Give the reason for this decision (at least 3 characters).')).toBeVisible()
 
-  await dialog.getByLabel('Reason').fill('Points consistent with the plant samples; NRTL recommended for the mother-liquor column.')
+  await dialog.getByLabel('Reason').fill('Points consistent with the plant samples; Wilson recommended for the mother-liquor column.')
   const override = dialog.getByLabel(/still open: why approve anyway/)
   if (await override.count()) await override.fill('The remaining thread asks for a note in the apparatus record; it does not affect the data.')
   await dialog.getByLabel('Your password').fill('not-my-password')
@@ -51,7 +53,7 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   const record = page.getByTestId('approval-record')
   await expect(record).toContainText('Approved')
   await expect(record).toContainText('Dr. Tobias Lindqvist')
-  await expect(record).toContainText('NRTL recommended for the mother-liquor column')
+  await expect(record).toContainText('Wilson recommended for the mother-liquor column')
   await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
   await expect(page.getByTestId('open-approve')).toHaveCount(0)
   await snap(page, 'lab-23-approved-record')
