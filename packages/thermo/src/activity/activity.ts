@@ -88,14 +88,14 @@ export function thermodynamicFactor(model: ActivityModel, x1: number, T: number)
 
 /**
  * Scan the composition range at T (K) for liquid–liquid instability.
- * @returns null when one liquid is stable everywhere, else the unstable interval [x1 low, x1 high] (spinodal, grid 1/200).
+ * @returns null when one liquid is stable everywhere, else the unstable interval [x1 low, x1 high] (spinodal, on a grid of `steps` intervals, default 100).
  */
-export function unstableRange(model: ActivityModel, T: number): [number, number] | null {
+export function unstableRange(model: ActivityModel, T: number, steps = 100): [number, number] | null {
   if (model.kind === 'ideal' || model.kind === 'wilson') return null
   let lo = NaN
   let hi = NaN
-  for (let i = 1; i < 200; i++) {
-    const x = i / 200
+  for (let i = 1; i < steps; i++) {
+    const x = i / steps
     if (thermodynamicFactor(model, x, T) <= 0) {
       if (Number.isNaN(lo)) lo = x
       hi = x

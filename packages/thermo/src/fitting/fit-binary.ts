@@ -65,17 +65,18 @@ function distinct(a: ArrayLike<number>, b: ArrayLike<number>, layout: ParameterL
 }
 
 /** Cheap multi-start: rank the grid by activity cost, refine the best few, keep the distinct minima, best first. */
-function activityCandidates(data: FitData, layout: ParameterLayout): LeastSquaresResult[] {
+function activityCandidates(data: FitData, layout: ParameterLayout, objectiveTolerance: number): LeastSquaresResult[] {
   const problem = activityProblem(data, layout)
   const r = new Float64Array(problem.nResiduals)
   const ranked = layout.starts
     .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
     .filter((s) => Number.isFinite(s.cost))
     .sort((a, b) => a.cost - b.cost)
-    .slice(0, 4)
+    .slice(0, 2)
   const found: LeastSquaresResult[] = []
   for (const s of ranked) {
-    const fit = levenbergMarquardt(problem, s.p, { maxIterations: 100 })
+    // Only a starting point for the bubble-point fit, so a loose tolerance is enough.
+    const fit = levenbergMarquardt(problem, s.p, { maxIterations: 100, tolerance: objectiveTolerance })
     if (fit && found.every((f) => distinct(f.p, fit.p, layout))) found.push(fit)
   }
   return found.sort((a, b) => a.cost - b.cost)
@@ -112,7 +113,7 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
   const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha })
   const m = layout.names.length
   const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m)
-  const candidates = activityCandidates(data, layout)
+  const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
   let fit: LeastSquaresResult | null
   let problem: LeastSquaresProblem
   if (objectiveKind === 'activity') {
@@ -138,7 +139,7 @@ function finishFit(
   const stats = fitStatistics(fit.r, fit.J, nRows, m)
   const activity = layout.build(fit.p)
   const system: BinarySystem = { vaporPressure: options.vaporPressure, activity }
-  const residuals = pointResiduals(options.points, system, data, index, stats, fit.J, m, objectiveKind === 'bubble-point', layout, fit.p)
+  const residuals = pointResiduals(options.points, system, data, index, stats, fit.r, objectiveKind === 'bubble-point', layout, fit.p)
   const summary = summarise(residuals, index)
   const warnings: string[] = []
   if (!fit.converged) warnings.push('The fit stopped before it fully converged; treat the parameters with care.')
@@ -151,7 +152,7 @@ function finishFit(
   if (flagged > 0) warnings.push(`${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`)
   const Ts = Array.from(data.T)
   for (const T of [Math.min(...Ts), Math.max(...Ts)]) {
-    const split = unstableRange(activity, T)
+    const split = unstableRange(activity, T, 50)
     if (split) {
       warnings.push(`The fitted parameters predict two liquid phases between x1 ≈ ${split[0].toFixed(2)} and ${split[1].toFixed(2)} at ${T.toFixed(1)} K; a single-liquid model is not physical there.`)
       break

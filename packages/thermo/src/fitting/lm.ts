@@ -37,11 +37,12 @@ function sumSquares(r: Float64Array): number {
 export function levenbergMarquardt(
   problem: LeastSquaresProblem,
   p0: ArrayLike<number>,
-  options: { maxIterations?: number } = {},
+  options: { maxIterations?: number; tolerance?: number } = {},
 ): LeastSquaresResult | null {
   const n = problem.nResiduals
   const m = problem.nParams
   const maxIterations = options.maxIterations ?? 200
+  const tolerance = options.tolerance ?? 1e-11
   const p = Float64Array.from(p0)
   const trial = new Float64Array(m)
   const r = new Float64Array(n)
@@ -59,7 +60,9 @@ export function levenbergMarquardt(
   let iterations = 0
   let converged = false
   while (iterations < maxIterations) {
-    if (cost < 1e-30 || scaledGradient(A, g, m, cost) < 1e-10) {
+    // Stop when even the undamped Gauss–Newton step promises less than `tolerance`·cost: what is left
+    // is below the noise of residuals that come from iterative bubble-point solves.
+    if (cost < 1e-30 || scaledGradient(A, g, m, cost) < 1e-10 || gaussNewtonGain(A, g, m, L, step) <= tolerance * cost) {
       converged = true
       break
     }
@@ -112,4 +115,16 @@ function scaledGradient(A: Float64Array, g: Float64Array, m: number, cost: numbe
     if (d > 0) worst = Math.max(worst, Math.abs(g[i]) / d)
   }
   return worst
+}
+
+/** Reduction of Σr² promised by the Gauss–Newton step, gᵀ·A⁻¹·g (uses L and step as scratch). */
+function gaussNewtonGain(A: Float64Array, g: Float64Array, m: number, L: Float64Array, step: Float64Array): number {
+  for (let i = 0; i < m * m; i++) L[i] = A[i]
+  for (let i = 0; i < m; i++) L[i * m + i] = A[i * m + i] * (1 + 1e-12) + 1e-300
+  if (!cholesky(L, m)) return Infinity
+  step.set(g)
+  choleskySolve(L, m, step)
+  let gain = 0
+  for (let i = 0; i < m; i++) gain += g[i] * step[i]
+  return gain
 }

@@ -28,32 +28,29 @@ export interface FitData {
 
 const g = new Float64Array(4)
 
-/** Models at p ± h·e_j for central differences in the parameters: [plus_0, minus_0, plus_1, ...] and the steps. */
-function perturbedModels(layout: ParameterLayout, p: Float64Array): { models: ActivityModel[]; steps: number[] } {
+/** Models at p + h·e_j for forward differences in the parameters, with their steps h. */
+function perturbedModels(layout: ParameterLayout, p: Float64Array): { base: ActivityModel; models: ActivityModel[]; steps: number[] } {
   const models: ActivityModel[] = []
   const steps: number[] = []
   const q = Float64Array.from(p)
   for (let j = 0; j < p.length; j++) {
-    const h = 1e-5 * Math.max(Math.abs(p[j]), layout.scales[j])
+    const h = 1e-6 * Math.max(Math.abs(p[j]), layout.scales[j])
     q[j] = p[j] + h
     models.push(layout.build(q))
-    q[j] = p[j] - h
-    models.push(layout.build(q))
     q[j] = p[j]
-    steps.push(2 * h)
+    steps.push(h)
   }
-  return { models, steps }
+  return { base: layout.build(p), models, steps }
 }
 
-/** ∂ln γ1/∂θj and ∂ln γ2/∂θj at (x1, T) into out[2j], out[2j+1]. */
-function lnGammaSensitivities(pm: { models: ActivityModel[]; steps: number[] }, x1: number, T: number, out: Float64Array): void {
+type Perturbed = ReturnType<typeof perturbedModels>
+
+/** ∂ln γ1/∂θj and ∂ln γ2/∂θj at (x1, T) into out[2j], out[2j+1]; base = ln γ1, ln γ2 of the unperturbed model. */
+function lnGammaSensitivities(pm: Perturbed, x1: number, T: number, base1: number, base2: number, out: Float64Array): void {
   for (let j = 0; j < pm.steps.length; j++) {
-    lnGammaT(pm.models[2 * j], x1, T, g)
-    const a1 = g[0]
-    const a2 = g[1]
-    lnGammaT(pm.models[2 * j + 1], x1, T, g)
-    out[2 * j] = (a1 - g[0]) / pm.steps[j]
-    out[2 * j + 1] = (a2 - g[1]) / pm.steps[j]
+    lnGammaT(pm.models[j], x1, T, g)
+    out[2 * j] = (g[0] - base1) / pm.steps[j]
+    out[2 * j + 1] = (g[1] - base2) / pm.steps[j]
   }
 }
 
@@ -69,7 +66,7 @@ function bubbleAt(model: ActivityModel, d: FitData, i: number, Tguess: Float64Ar
 
 /** dT/dθj and dy1/dθj at the bubble point just solved (T, y1 = res[0], res[1]), into dT[j], dy[j]. */
 export function bubbleSensitivities(
-  model: ActivityModel, d: { vp1: LnPsat }, x1: number, pm: { models: ActivityModel[]; steps: number[] },
+  model: ActivityModel, d: { vp1: LnPsat }, x1: number, pm: Perturbed,
   dlng: Float64Array, dT: Float64Array, dy: Float64Array,
 ): void {
   const T = res[0]
@@ -78,7 +75,7 @@ export function bubbleSensitivities(
   lnGammaT(model, x1, T, g)
   const c1 = T + d.vp1.c
   const e1 = g[2] + d.vp1.b / (c1 * c1)
-  lnGammaSensitivities(pm, x1, T, dlng)
+  lnGammaSensitivities(pm, x1, T, g[0], g[1], dlng)
   for (let j = 0; j < pm.steps.length; j++) {
     const dF = y1 * dlng[2 * j] + (1 - y1) * dlng[2 * j + 1]
     dT[j] = -dF / fp
@@ -142,11 +139,10 @@ export function experimentalLnGamma(d: FitData): [Float64Array, Float64Array] {
   return [l1, l2]
 }
 
-/** The activity objective: residuals ln γi(model) − ln γi(exp), unweighted. */
+/** The activity objective: residuals ln γi(model) − ln γi(exp), unweighted; forward differences in θ. */
 export function activityProblem(d: FitData, layout: ParameterLayout): LeastSquaresProblem {
   const m = layout.names.length
   const [l1, l2] = experimentalLnGamma(d)
-  const dlng = new Float64Array(2 * m)
   const fill = (model: ActivityModel, r: Float64Array) => {
     for (let i = 0; i < d.n; i++) {
       lnGammaT(model, d.x1[i], d.T[i], g)
@@ -165,12 +161,17 @@ export function activityProblem(d: FitData, layout: ParameterLayout): LeastSquar
     jacobian(p, r, J) {
       if (!layout.valid(p)) return false
       fill(layout.build(p), r)
-      const pm = perturbedModels(layout, p)
-      for (let i = 0; i < d.n; i++) {
-        lnGammaSensitivities(pm, d.x1[i], d.T[i], dlng)
-        for (let j = 0; j < m; j++) {
-          J[2 * i * m + j] = Number.isNaN(l1[i]) ? 0 : dlng[2 * j]
-          J[(2 * i + 1) * m + j] = Number.isNaN(l2[i]) ? 0 : dlng[2 * j + 1]
+      const q = Float64Array.from(p)
+      for (let j = 0; j < m; j++) {
+        const h = 1e-6 * Math.max(Math.abs(p[j]), layout.scales[j])
+        q[j] = p[j] + h
+        const model = layout.build(q)
+        q[j] = p[j]
+        for (let i = 0; i < d.n; i++) {
+          lnGammaT(model, d.x1[i], d.T[i], g)
+          // r = ln γ(model) − ln γ(exp), so (g − l) − r is the change of ln γ over the step.
+          J[2 * i * m + j] = Number.isNaN(l1[i]) ? 0 : (g[0] - l1[i] - r[2 * i]) / h
+          J[(2 * i + 1) * m + j] = Number.isNaN(l2[i]) ? 0 : (g[1] - l2[i] - r[2 * i + 1]) / h
         }
       }
       return true

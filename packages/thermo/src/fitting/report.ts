@@ -15,8 +15,9 @@ const FLAG_LIMIT = 3
  */
 export function pointResiduals(
   points: BinaryPoint[], system: BinarySystem, data: FitData, index: number[], stats: FitStatistics,
-  J: Float64Array, m: number, bubbleObjective: boolean, layout: ParameterLayout, p: Float64Array,
+  r: Float64Array, bubbleObjective: boolean, layout: ParameterLayout, p: Float64Array,
 ): PointResidual[] {
+  const m = p.length
   const row = new Map(index.map((pointIndex, k) => [pointIndex, k]))
   const act = system.activity
   const pm = perturbedModels(layout, p)
@@ -24,10 +25,12 @@ export function pointResiduals(
   const sT = new Float64Array(m)
   const sY = new Float64Array(m)
   return points.map((pt, i) => {
-    const ok = solveBubbleT(act, data.vp1, data.vp2, Math.log(pt.P), pt.x1, pt.T)
-    const dT = ok ? res[0] - pt.T : NaN
-    const dy = ok ? res[1] - pt.y1 : NaN
     const k = row.get(i)
+    // Fitted points of the bubble-point objective already have their deviations in r (weighted).
+    const known = bubbleObjective && k !== undefined
+    const ok = known || solveBubbleT(act, data.vp1, data.vp2, Math.log(pt.P), pt.x1, pt.T)
+    const dT = known ? r[2 * k] / data.wT[k] : ok ? res[0] - pt.T : NaN
+    const dy = known ? r[2 * k + 1] / data.wY[k] : ok ? res[1] - pt.y1 : NaN
     const out: PointResidual = { dT, dy, studentized: NaN, leverage: NaN, flagged: false, excluded: pt.excluded === true }
     if (k !== undefined) {
       const a = stats.studentized[2 * k]
