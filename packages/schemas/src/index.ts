@@ -1,2 +1,3 @@
 export * from './auth.js'
 export * from './design.js'
+export * from './lab-admin.js'

@@ -57,13 +57,13 @@ export const appRoutes: RouteRecordRaw[] = [
   {
     path: '/admin/components',
     name: 'admin-components',
-    component: Placeholder,
+    component: () => import('../views/admin/AdminComponentsView.vue'),
     meta: { title: 'Components', roles: ['admin'], nav: { group: 'Administration', label: 'Components', icon: 'pi pi-box', order: 41 } },
   },
   {
     path: '/admin/gc-methods',
     name: 'admin-gc',
-    component: Placeholder,
+    component: () => import('../views/admin/AdminGcMethodsView.vue'),
     meta: { title: 'GC methods', roles: ['admin'], nav: { group: 'Administration', label: 'GC methods', icon: 'pi pi-sliders-h', order: 42 } },
   },
   {

@@ -33,6 +33,15 @@ export function errorText(e: unknown): string {
   return e instanceof Error && e.message ? e.message : 'The calculation failed for these inputs.'
 }
 
+/**
+ * Warnings without repeats: the engine names the temperature in each range warning, so a run that
+ * crosses a range limit would list one line per step. The temperature is replaced by "part of this run".
+ */
+export function tidyWarnings(ws: string[]): string[] {
+  const out = ws.map((w) => w.replace(/: -?[\d.]+ K \(-?[\d.]+ °C\) is/, ': part of this calculation is'))
+  return [...new Set(out)]
+}
+
 /** Everything the diagrams tab shows at one pressure. T in K, P in Pa. */
 export interface DiagramsAt {
   P: number

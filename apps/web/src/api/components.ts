@@ -1,0 +1,65 @@
+/** Pure components and their vapour-pressure sets (issue 5's `/api/components` routes). Molar mass g/mol, volume cm³/mol. */
+import { api, query } from './client'
+
+export interface Component {
+  id: string
+  name: string
+  casNumber: string | null
+  formula: string | null
+  molarMass: number
+  liquidMolarVolume: number | null
+  rowVersion: number
+  createdAt: string
+}
+
+/** A published vapour-pressure correlation, stored as published (thermo's VaporPressureModel in `parameters`). */
+export interface VaporPressureSet {
+  id: string
+  componentId: string
+  kind: 'antoine' | 'clausius-clapeyron'
+  parameters: Record<string, unknown> & { kind: string }
+  rangeMin: number | null
+  rangeMax: number | null
+  rangeUnit: 'C' | 'K' | null
+  source: string
+  preferred: boolean
+  enteredBy: string | null
+  createdAt: string
+}
+
+/** A measured pure-component boiling point: T in K at P in Pa. */
+export interface PureMeasurement {
+  id: string
+  temperatureK: number
+  pressurePa: number
+  note: string | null
+}
+
+export interface ComponentDetail extends Component {
+  vaporPressureSets: VaporPressureSet[]
+  pureMeasurements: PureMeasurement[]
+}
+
+export interface ComponentInput {
+  name: string
+  casNumber: string | null
+  formula: string | null
+  molarMass: number
+  liquidMolarVolume: number | null
+}
+
+export interface VaporPressureInput {
+  model: Record<string, unknown>
+  source: string
+  preferred: boolean
+}
+
+export const componentsApi = {
+  list: (o: { q?: string; page?: number; pageSize?: number; sort?: 'name' | 'created_at' | 'molar_mass'; order?: 'asc' | 'desc' }) =>
+    api.get<{ items: Component[]; total: number; page: number; pageSize: number }>('/api/components' + query(o)),
+  get: (id: string) => api.get<ComponentDetail>(`/api/components/${id}`),
+  create: (body: ComponentInput) => api.post<Component>('/api/components', body, { quiet: true }),
+  update: (id: string, rowVersion: number, patch: Partial<ComponentInput>) => api.patch<Component>(`/api/components/${id}`, { rowVersion, ...patch }, { quiet: true }),
+  remove: (id: string) => api.del<void>(`/api/components/${id}`),
+  addVaporPressureSet: (id: string, body: VaporPressureInput) => api.post<VaporPressureSet>(`/api/components/${id}/vapor-pressure-sets`, body, { quiet: true }),
+}
