@@ -73,6 +73,7 @@ describe('the lab story, end to end', () => {
     const approved = await a.tobias.post(`/api/data-sets/${ds.body.id}/approve`).send({ password: PASSWORD, reason: 'Consistent with the plant samples; Wilson recommended.', rowVersion: rec.body.rowVersion }).expect(200)
     expect(approved.body.dataSet.state).toBe('approved')
     expect(approved.body.digest).toMatch(/^[0-9a-f]{64}$/)
+    expect(approved.body.approval).toMatchObject({ meaning: 'approved', signerName: 'Tobias', digest: approved.body.digest, selfApproval: false })
 
     // 5. a reviewer comments on a point; the analyst replies; the reviewer is told by mail
     const detail = await a.priya.get(`/api/data-sets/${ds.body.id}`).expect(200)

@@ -97,7 +97,8 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
       subject: `Ebullio: "${d.title}" v${d.version} approved`,
       text: `${user.displayName} approved the data set "${d.title}" (version ${d.version}).\nReason: ${s.reason}\nSignature digest (SHA-256): ${digest}\n\n${link(config, id)}\n`,
     })
-    return { dataSet: after!, approvalId, digest }
+    const approval = (await listApprovals(tx, id)).find((a) => a.id === approvalId)!
+    return { dataSet: after!, approvalId, digest, approval }
   })
 }
 
@@ -115,7 +116,8 @@ export async function returnForRework(db: Kysely<Database>, config: Config, user
       subject: `Ebullio: "${d.title}" v${d.version} returned for rework`,
       text: `${user.displayName} returned the data set "${d.title}" (version ${d.version}) for rework.\nReason: ${s.reason}\n\n${link(config, id)}\n`,
     })
-    return { dataSet: after!, approvalId, digest }
+    const approval = (await listApprovals(tx, id)).find((a) => a.id === approvalId)!
+    return { dataSet: after!, approvalId, digest, approval }
   })
 }
 
