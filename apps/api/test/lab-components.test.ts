@@ -1,7 +1,9 @@
 /** Components and systems: CAS check digits, unordered pair uniqueness, stale component edits. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createTestContext, createUser, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
+import { vaporPressure } from '@ebullio/thermo'
 import type { Agent } from './lab-fixture.js'
+import { demoVaporPressure } from '../../../db/seeds/demo-systems.js'
 
 let t: TestContext
 let admin: Agent
@@ -50,5 +52,24 @@ describe('components', () => {
     expect(same.body.error.message).toBe('A binary system needs two different components.')
     const inUse = await admin.delete(`/api/components/${water}`)
     expect(inUse.body.error.message).toBe('This component belongs to a binary system and cannot be deleted.')
+  })
+
+  it('fits an Antoine set to measured boiling points and stores it with its origin', async () => {
+    const list = await analyst.get('/api/components?q=water').expect(200)
+    const water = list.body.items[0].id
+    // boiling points generated from SVNA 7th ed. Table B.2 water constants (ln kPa, °C): the fit must give them back
+    const svna = demoVaporPressure('water')
+    for (const tC of [30, 45, 60, 75, 90, 100]) {
+      const T = tC + 273.15
+      await analyst.post(`/api/components/${water}/pure-measurements`).send({ temperatureK: T, pressurePa: vaporPressure(svna, T), note: null }).expect(201)
+    }
+    const r = await admin.post(`/api/components/${water}/vapor-pressure-sets/fit`).send({ preferred: false })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+    expect(r.body.set.source).toBe('Fitted in Ebullio to 6 measured boiling points')
+    expect(r.body.set.parameters.A).toBeCloseTo(16.3872, 2)
+    expect(r.body.set.parameters.B).toBeCloseTo(3885.7, -1)
+    const c = await analyst.get(`/api/components/${water}`).expect(200)
+    expect(c.body.pureMeasurements).toHaveLength(6)
+    expect(c.body.vaporPressureSets).toHaveLength(1)
   })
 })
