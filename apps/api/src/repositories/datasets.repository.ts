@@ -39,6 +39,8 @@ export interface DataSetQuery {
   q?: string
   pressureMinPa?: number
   pressureMaxPa?: number
+  createdAfter?: Date
+  createdBefore?: Date
   sort: 'created_at' | 'updated_at' | 'nominal_pressure_pa' | 'state' | 'title' | 'submitted_at'
   order: 'asc' | 'desc'
   limit: number
@@ -64,6 +66,8 @@ export async function listDataSets(db: Db, o: DataSetQuery): Promise<{ items: Da
   if (o.createdBy) q = q.where('d.created_by', '=', o.createdBy)
   if (o.pressureMinPa !== undefined) q = q.where('d.nominal_pressure_pa', '>=', o.pressureMinPa)
   if (o.pressureMaxPa !== undefined) q = q.where('d.nominal_pressure_pa', '<=', o.pressureMaxPa)
+  if (o.createdAfter) q = q.where('d.created_at', '>=', o.createdAfter)
+  if (o.createdBefore) q = q.where('d.created_at', '<', o.createdBefore)
   if (o.q) {
     const like = `%${o.q}%`
     q = q.where((eb) => eb.or([eb('d.title', 'ilike', like), eb('d.project_ref', 'ilike', like), eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like)]))

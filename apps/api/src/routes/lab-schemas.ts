@@ -105,6 +105,8 @@ export const dataSetQuery = z.object({
   q: z.string().trim().max(100).optional(),
   pressureMinPa: z.coerce.number().positive().optional(),
   pressureMaxPa: z.coerce.number().positive().optional(),
+  createdAfter: z.coerce.date().optional(),
+  createdBefore: z.coerce.date().optional(),
   sort: z.enum(['created_at', 'updated_at', 'nominal_pressure_pa', 'state', 'title', 'submitted_at']).default('updated_at'),
   ...pageQuery,
 })

@@ -36,6 +36,8 @@ export interface ListOptions {
   q?: string
   pressureMinPa?: number
   pressureMaxPa?: number
+  createdAfter?: Date
+  createdBefore?: Date
   sort: repo.DataSetQuery['sort']
   order: 'asc' | 'desc'
   page: number
