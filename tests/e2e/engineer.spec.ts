@@ -1,0 +1,138 @@
+import { readFileSync } from 'node:fs'
+import { expect, test, type Page } from '@playwright/test'
+import { DEMO, shot, signIn } from './support/helpers'
+
+// Journey 4: an engineer uses the approved acetone/methanol system of the demo scenario for design.
+const SYSTEM = 'acetone + methanol'
+const VERSION = 'Kestrel acetone recycle'
+
+/** "x₁ = y₁ = 0.795 at 55.41 °C" → numbers. */
+async function readAzeotrope(page: Page): Promise<{ x1: number; tC: number }> {
+  const text = (await page.getByTestId('azeotrope-value').textContent()) ?? ''
+  const m = text.match(/x₁ = y₁ = ([\d.]+) at ([\d.]+) °C/)
+  if (!m) throw new Error(`no azeotrope in "${text}"`)
+  return { x1: Number(m[1]), tC: Number(m[2]) }
+}
+
+/** Full-page screenshot from the top (the frame's sticky bars would otherwise be drawn mid-page). */
+async function snapTop(page: Page, name: string) {
+  await page.evaluate(() => window.scrollTo(0, 0))
+  await shot(page, name)
+}
+
+async function download(page: Page, testId: string): Promise<{ name: string; text: string }> {
+  const [dl] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testId).click()])
+  return { name: dl.suggestedFilename(), text: readFileSync((await dl.path())!, 'utf8') }
+}
+
+test('an engineer opens an approved system, changes the pressure, reads the azeotrope, estimates a column, runs a batch still and downloads the parameters', async ({ page }) => {
+  await signIn(page, DEMO.engineer)
+  await page.getByRole('link', { name: 'Approved systems' }).first().click()
+  await expect(page.getByRole('heading', { level: 1, name: 'Approved systems' })).toBeVisible()
+
+  // Search by CAS number of acetone (67-64-1), then by name.
+  await page.getByTestId('catalogue-search').fill('67-64-1')
+  const table = page.getByTestId('catalogue-table')
+  await expect(table).toContainText(SYSTEM)
+  await expect(table).toContainText(VERSION)
+  await expect(table).toContainText('Wilson')
+  await snapTop(page, 'eng-01-catalogue')
+  await table.getByRole('link', { name: SYSTEM }).click()
+  await expect(page.getByTestId('system-title')).toHaveText(SYSTEM)
+
+  // At 1 atm. Handbook azeotrope of acetone–methanol: 55.5 °C at 88 wt % acetone, x ≈ 0.80
+  // (Horsley, Azeotropic Data; from memory). The approved Wilson fit to the invented demo points must land near it.
+  await expect(page.getByTestId('azeotrope-value')).toContainText('x₁ = y₁')
+  const atm = await readAzeotrope(page)
+  expect(Math.abs(atm.x1 - 0.8)).toBeLessThan(0.04)
+  expect(Math.abs(atm.tC - 55.5)).toBeLessThan(1.0)
+  // Pure boiling points at 1 atm from SVNA 7th ed. Table B.2 normal boiling points: acetone 56.2 °C, methanol 64.7 °C.
+  await expect(page.getByTestId('plot-txy')).toBeVisible()
+  await expect(page.getByTestId('design-caution').first()).toContainText('licensed engineer')
+  await snapTop(page, 'eng-02-system-1atm')
+
+  // Lower the pressure to 50 kPa: everything boils lower and the azeotrope moves.
+  const pressure = page.locator('#sys-pressure')
+  await pressure.fill('50')
+  await pressure.press('Tab')
+  await expect(page.getByText('Azeotrope at 50.00 kPa')).toBeVisible()
+  const half = await readAzeotrope(page)
+  expect(half.tC).toBeLessThan(atm.tC - 10)
+  expect(half.x1).not.toBe(atm.x1)
+  await snapTop(page, 'eng-03-system-50kpa')
+
+  // Curve table: 101 computed rows in the documented layout.
+  const curve = await download(page, 'export-curve-csv')
+  const rows = curve.text.trim().split('\n').filter((l) => !l.startsWith('#'))
+  expect(rows[0]).toBe('x1,y1,t_k,t_c,alpha12')
+  expect(rows).toHaveLength(102)
+  expect(rows[1].split(',')[0]).toBe('0.000000')
+
+  // Column estimate at 50 kPa with the suggested targets (distillate short of the azeotrope).
+  await page.getByTestId('tab-column').click()
+  await page.getByTestId('col-run').click()
+  await expect(page.getByTestId('col-stages')).toBeVisible()
+  const nmin = Number(await page.getByTestId('col-nmin').textContent())
+  const stages = Number(await page.getByTestId('col-stages').textContent())
+  const feed = Number(await page.getByTestId('col-feed').textContent())
+  // Fenske's total-reflux stages are a lower bound on the stages at finite reflux (common practice, no source).
+  expect(nmin).toBeGreaterThan(1)
+  expect(stages).toBeGreaterThan(nmin)
+  expect(feed).toBeGreaterThanOrEqual(1)
+  expect(feed).toBeLessThanOrEqual(stages)
+  await expect(page.getByRole('group', { name: 'Stage construction at 50.00 kPa' })).toBeVisible()
+  await expect(page.getByTestId('design-caution').first()).toContainText('Preliminary estimate from equilibrium data.')
+  await snapTop(page, 'eng-04-column-estimate')
+
+  // A distillate beyond the azeotrope cannot be reached by distillation.
+  await page.locator('#col-xD').fill('0.95')
+  await page.locator('#col-xD').press('Tab')
+  await page.getByTestId('col-run').click()
+  await expect(page.getByTestId('col-failure')).toContainText('The target cannot be reached by distillation at 50.00 kPa.')
+  await expect(page.getByTestId('col-failure')).toContainText('lies between xB = 0.05 and xD = 0.95')
+  await snapTop(page, 'eng-05-column-azeotrope')
+
+  // Batch still: 100 mol at x1 = 0.5 with three stages above the pot at R = 3.
+  await page.getByTestId('tab-batch').click()
+  for (const [id, v] of [['#bs-x1', '0.5'], ['#bs-stagesAbovePot', '3'], ['#bs-R', '3']]) {
+    await page.locator(id).fill(v)
+    await page.locator(id).press('Tab')
+  }
+  await page.getByTestId('bs-run').click()
+  await expect(page.getByTestId('bs-pause')).toBeVisible()
+  await page.waitForTimeout(800)
+  await page.getByTestId('bs-pause').click()
+  await expect(page.getByTestId('bs-play')).toBeVisible()
+  const midway = await page.getByTestId('bs-distilled').textContent()
+  // Scrub to the end with the keyboard: 60 % of the charge distilled.
+  await page.getByTestId('bs-scrub').locator('[role="slider"]').focus()
+  await page.keyboard.press('End')
+  await expect(page.getByTestId('bs-distilled')).toHaveText('60.0 mol (60 %)')
+  expect(midway).not.toBe('60.0 mol (60 %)')
+  // The pot is left richer in methanol than the charge (acetone distils over first).
+  expect(Number(await page.getByTestId('bs-pot-x1').textContent())).toBeLessThan(0.5)
+  await expect(page.getByTestId('bs-cuts').locator('tbody tr')).toHaveCount(4)
+  await snapTop(page, 'eng-06-batch-still')
+
+  // Parameters as JSON: Ebullio's documented layout, with the published Antoine constants it was computed from.
+  const json = await download(page, 'download-parameters-json')
+  expect(json.name).toMatch(/-parameters\.json$/)
+  const p = JSON.parse(json.text)
+  expect(p.format).toBe('ebullio-parameters/1')
+  expect(p.dataSet.state).toBe('approved')
+  expect(p.system.component1.name).toBe('acetone')
+  expect(p.system.component2.name).toBe('methanol')
+  // SVNA 7th ed. Table B.2: acetone A = 14.3145, B = 2756.22, C = 228.060 (ln, kPa, °C).
+  expect(p.vaporPressure[0]).toMatchObject({ kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
+  expect(p.vaporPressure[0].source).toContain('Table B.2')
+  const recommended = p.fits.find((f: { recommended: boolean }) => f.recommended)
+  expect(recommended.model).toBe('wilson')
+  expect(recommended.id).toBe(p.recommendedFitId)
+  expect(recommended.parameters.map((x: { name: string; unit: string }) => `${x.name} ${x.unit}`)).toEqual(['a12 J/mol', 'a21 J/mol'])
+  expect(p.approval?.digest).toMatch(/^[0-9a-f]{64}$/)
+
+  const csv = await download(page, 'download-parameters-csv')
+  const lines = csv.text.trim().split('\n')
+  expect(lines[0]).toBe('fit_id,model,recommended,parameter,value,standard_error,unit')
+  expect(lines.some((l) => l.includes(`${recommended.id},wilson,true,a12,`))).toBe(true)
+})
