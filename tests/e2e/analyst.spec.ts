@@ -12,6 +12,15 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await page.getByRole('link', { name: 'Data sets' }).first().click()
   await expect(page.getByRole('heading', { name: 'Data sets' })).toBeVisible()
   await expect(page.getByTestId('datasets-table')).toContainText('Kestrel acetone recycle')
+  await expect(page.locator('.p-datatable-mask')).toHaveCount(0)
+  // Filtering is done by the server: only the returned data set is listed.
+  await page.getByRole('combobox', { name: 'State' }).click()
+  await page.getByRole('option', { name: 'Returned' }).click()
+  await expect(page.getByTestId('datasets-table').locator('tbody tr')).toHaveCount(1)
+  await expect(page.getByTestId('datasets-table')).toContainText('SR-24 acetone/chloroform cut')
+  await page.getByRole('button', { name: 'Clear filters' }).click()
+  await expect(page.getByTestId('datasets-table')).toContainText('Kestrel acetone recycle')
+  await expect(page.locator('.p-datatable-mask')).toHaveCount(0)
   await snap(page, 'lab-01-datasets-list')
 
   await page.getByTestId('new-dataset').click()
