@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler } from 'express'
 import { AppError } from './app-error.js'
+import { fromPostgres } from './postgres.js'
 
 /** Turns every error into `{ error: { code, message, details } }`; unknown errors are logged and answered generically. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
@@ -23,6 +24,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (e.code === 'LIMIT_UNEXPECTED_FILE') {
     res.status(400).json({ error: { code: 'unexpected_file', message: 'Send one file in the form field "file".', details: null } })
+    return
+  }
+  const pgError = fromPostgres(err)
+  if (pgError) {
+    req.log?.warn({ err }, 'database refused a write')
+    res.status(pgError.status).json({ error: { code: pgError.code, message: pgError.message, details: pgError.details ?? null } })
     return
   }
   req.log?.error({ err }, 'unhandled error')
