@@ -95,6 +95,8 @@ export interface Azeotrope {
   T: number
   P: number
   kind: 'minimum-boiling' | 'maximum-boiling'
+  /** Range warnings of the vapour-pressure models at the azeotrope (always set by findAzeotrope). */
+  warnings?: string[]
 }
 
 /** A T–x–y curve at fixed P (Pa), or a P–x–y curve at fixed T (K); arrays run from x1 = 0 to x1 = 1. */

@@ -1,5 +1,6 @@
 import { ThermoError } from '../errors.js'
 import { buildFitData, type BinaryPoint } from '../fitting/fit-input.js'
+import { spanWarnings } from '../vapor-pressure/compiled.js'
 import type { VaporPressureModel } from '../types.js'
 
 /** Result of {@link heringtonAreaTest}. */
@@ -52,7 +53,7 @@ export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressur
   const Tmax = Math.max(...temps)
   const D = absArea > 0 ? (100 * Math.abs(area)) / absArea : 0
   const J = (150 * (Tmax - Tmin)) / Tmin
-  const warnings: string[] = []
+  const warnings: string[] = spanWarnings(options.vaporPressure, Tmin, Tmax)
   const pressures = points.filter((p) => !p.excluded).map((p) => p.P)
   if (Math.max(...pressures) > 1.01 * Math.min(...pressures)) {
     warnings.push('The pressures differ by more than 1 %; the area test is meant for isobaric data.')

@@ -3,6 +3,7 @@ import { res, solveBubbleT } from '../equilibrium/kernel.js'
 import { fitTemperatureOnly } from '../fitting/fit-binary.js'
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { FittableModel } from '../fitting/parameters.js'
+import { spanWarnings } from '../vapor-pressure/compiled.js'
 import type { ActivityModel, VaporPressureModel } from '../types.js'
 
 /** Options of {@link pointTest}: the model fitted to T–x, with its extra inputs as in fitBinary. */
@@ -40,6 +41,8 @@ export function pointTest(points: BinaryPoint[], options: PointTestOptions): Poi
   })
   const used = residuals.filter((r) => Number.isFinite(r.dy))
   const meanAbsDeltaY = used.reduce((s, r) => s + Math.abs(r.dy), 0) / used.length
-  const warnings = fit.converged ? [] : ['The T–x fit stopped before it fully converged.']
+  const temps = fit.index.map((i) => points[i].T)
+  const warnings = spanWarnings(options.vaporPressure, Math.min(...temps), Math.max(...temps))
+  if (!fit.converged) warnings.push('The T–x fit stopped before it fully converged.')
   return { meanAbsDeltaY, residuals, passed: meanAbsDeltaY < 0.01, activity: fit.activity, warnings }
 }

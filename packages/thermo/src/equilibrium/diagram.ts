@@ -80,7 +80,7 @@ function azeotropeBetween(c: CompiledSystem, condition: DiagramCondition, a: num
   const P = condition.P ?? res[5]
   assertOneLiquid(c, x1, T)
   // α > 1 below the azeotrope and < 1 above: the vapour is richer in 1 on the left, so the boiling point has a minimum.
-  return { x1, T, P, kind: fallsThrough ? 'minimum-boiling' : 'maximum-boiling' }
+  return { x1, T, P, kind: fallsThrough ? 'minimum-boiling' : 'maximum-boiling', warnings: systemWarnings(c, T, x1) }
 }
 
 /**

@@ -1,4 +1,5 @@
 import { unstableRange } from '../activity/activity.js'
+import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { ThermoError } from '../errors.js'
 import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.js'
 import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './fit-input.js'
@@ -151,6 +152,7 @@ function finishFit(
   const flagged = residuals.filter((r) => r.flagged && !r.excluded).length
   if (flagged > 0) warnings.push(`${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`)
   const Ts = Array.from(data.T)
+  warnings.push(...spanWarnings(options.vaporPressure, Math.min(...Ts), Math.max(...Ts)))
   for (const T of [Math.min(...Ts), Math.max(...Ts)]) {
     const split = unstableRange(activity, T, 50)
     if (split) {

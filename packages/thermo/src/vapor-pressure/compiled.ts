@@ -92,3 +92,20 @@ export function rangeWarnings(model: VaporPressureModel, vp: LnPsat, T: number, 
     `${label}: ${T.toFixed(2)} K (${tC} °C) is outside the range of its vapour-pressure correlation (${describeRange(model)}); the value is extrapolated.`,
   ]
 }
+
+/**
+ * One warning per component whose vapour-pressure range does not cover the temperatures [Tmin, Tmax] (K)
+ * that a data set or curve spans; empty when both are covered.
+ */
+export function spanWarnings(models: [VaporPressureModel, VaporPressureModel], Tmin: number, Tmax: number, names?: [string, string]): string[] {
+  const out: string[] = []
+  models.forEach((model, i) => {
+    const vp = compileVaporPressure(model)
+    if (Tmin >= vp.tMin && Tmax <= vp.tMax) return
+    const label = names?.[i] ?? `Component ${i + 1}`
+    out.push(
+      `${label}: temperatures from ${(Tmin - 273.15).toFixed(2)} to ${(Tmax - 273.15).toFixed(2)} °C reach outside the range of its vapour-pressure correlation (${describeRange(model)}); values there are extrapolated.`,
+    )
+  })
+  return out
+}

@@ -43,6 +43,13 @@ const cases: { name: string; system: BinarySystem; model: FittableModel; truth: 
     truth: { A12: 0.45, A21: 0.35 },
     extra: {},
   },
+  {
+    name: 'Van Laar, ethanol/water (A12 = 1.6798, A21 = 0.9227, a textbook-standard pair; from memory)',
+    system: { vaporPressure: [b2('ethanol'), b2('water')], activity: { kind: 'van-laar', A12: 1.6798, A21: 0.9227 } },
+    model: 'van-laar',
+    truth: { A12: 1.6798, A21: 0.9227 },
+    extra: {},
+  },
 ]
 
 describe('fitBinary recovers known parameters from noisy generated data', () => {
@@ -86,6 +93,19 @@ describe('fitBinary recovers known parameters from noisy generated data', () => 
     const a = fitBinary({ points: generate(c.system, 7), vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     const b = fitBinary({ points: generate(c.system, 7), vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     expect(a.parameters).toEqual(b.parameters)
+  })
+})
+
+describe('range warnings', () => {
+  // Table B.2 ranges (S): benzene 6 to 104 °C, cyclohexane 9 to 105 °C. At 3 bar the mixture boils
+  // above 110 °C, beyond both ranges, and the fit must say so.
+  it('a fit whose data leave the vapour-pressure ranges says so for each component', () => {
+    const system = cases[2].system
+    const points = generate(system, 5).map((p) => ({ ...p, P: 300000 }))
+    const hot = points.map((p) => ({ ...p, T: bubbleTemperature(system, { P: 300000, x1: p.x1 }).T }))
+    const fit = fitBinary({ points: hot, vaporPressure: system.vaporPressure, model: 'margules' })
+    expect(fit.warnings.filter((w) => w.includes('outside the range of its vapour-pressure correlation')).length).toBe(2)
+    expect(fit.warnings[0]).toMatch(/^Component 1: temperatures from \d+\.\d\d to \d+\.\d\d °C reach outside the range of its vapour-pressure correlation \(6 to 104 °C\); values there are extrapolated\.$/)
   })
 })
 
