@@ -46,8 +46,14 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   const atm = await readAzeotrope(page)
   expect(Math.abs(atm.x1 - 0.8)).toBeLessThan(0.04)
   expect(Math.abs(atm.tC - 55.5)).toBeLessThan(1.0)
-  // Pure boiling points at 1 atm from SVNA 7th ed. Table B.2 normal boiling points: acetone 56.2 °C, methanol 64.7 °C.
+  // Pure boiling points at 1 atm against SVNA 7th ed. Table B.2 normal boiling points: acetone 56.2 °C, methanol 64.7 °C (±0.1 K).
+  const pure = (await page.getByTestId('pure-value').textContent()) ?? ''
+  const [tAcetone, tMethanol] = [...pure.matchAll(/([\d.]+) °C/g)].map((m) => Number(m[1]))
+  expect(Math.abs(tAcetone - 56.2)).toBeLessThan(0.1)
+  expect(Math.abs(tMethanol - 64.7)).toBeLessThan(0.1)
+  // The approved data set's measured points are drawn at the pressure they were measured at.
   await expect(page.getByTestId('plot-txy')).toBeVisible()
+  await expect(page.getByTestId('plot-txy')).toHaveAttribute('aria-label', /T–x–y/)
   await expect(page.getByTestId('design-caution').first()).toContainText('licensed engineer')
   await snapTop(page, 'eng-02-system-1atm')
 
@@ -59,6 +65,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   const half = await readAzeotrope(page)
   expect(half.tC).toBeLessThan(atm.tC - 10)
   expect(half.x1).not.toBe(atm.x1)
+  await expect(page.getByText('Measured points are drawn at the pressure they were measured at (101.33 kPa).')).toBeVisible()
   await snapTop(page, 'eng-03-system-50kpa')
 
   // Curve table: 101 computed rows in the documented layout.

@@ -65,6 +65,27 @@ export interface ParametersExport {
   approval: { signedBy: string; signedAt: string; reason: string; digest: string } | null
 }
 
+/** A measured equilibrium state of an approved data set: T in K, P in Pa, standard uncertainties (k = 1). */
+export interface MeasuredPoint {
+  id: string
+  seq: number
+  sampleLabel: string
+  temperatureK: number
+  pressurePa: number
+  x1: number
+  x1Uncertainty: number
+  y1: number
+  y1Uncertainty: number
+  excluded: boolean
+  exclusionReason: string | null
+}
+
+/** The part of a data set's detail the design screens read: its points and the residuals of each fit. */
+export interface MeasuredData {
+  points: MeasuredPoint[]
+  fits: { id: string; pointIds: string[]; residuals: Record<string, unknown>[] }[]
+}
+
 const base = (id: string) => `/api/data-sets/${encodeURIComponent(id)}`
 
 /** Download URLs (the browser fetches them with the session cookie; the server names the file). */
@@ -79,4 +100,6 @@ export const catalogueApi = {
     api.get<{ items: CatalogueEntry[]; total: number; page: number; pageSize: number }>('/api/catalogue' + query({ q, page, pageSize })),
   /** Everything needed to compute with an approved version: vapour-pressure sets and every fit. */
   parameters: (dataSetId: string) => api.get<ParametersExport>(exportUrls.parametersJson(dataSetId)),
+  /** The approved version's measured points (engineers may read approved versions). */
+  measured: (dataSetId: string) => api.get<MeasuredData>(base(dataSetId)),
 }

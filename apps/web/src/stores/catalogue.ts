@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import { ref } from 'vue'
-import { catalogueApi, type CatalogueEntry, type ParametersExport } from '../api/catalogue'
+import { catalogueApi, type CatalogueEntry, type MeasuredData, type ParametersExport } from '../api/catalogue'
 
 /** The engineers' catalogue of approved systems and the parameters of the versions opened. */
 export const useCatalogueStore = defineStore('catalogue', () => {
@@ -38,5 +38,15 @@ export const useCatalogueStore = defineStore('catalogue', () => {
     parameters.value[dataSetId] = p
     return p
   }
-  return { items, total, loading, error, load, entry, parametersOf }
+  const measured = ref<Record<string, MeasuredData>>({})
+  /** Points and fit residuals of an approved version (kept, as above). */
+  async function measuredOf(dataSetId: string): Promise<MeasuredData> {
+    const cached = measured.value[dataSetId]
+    if (cached) return cached
+    const r = await catalogueApi.measured(dataSetId)
+    const m = { points: r.points, fits: r.fits.map((f) => ({ id: f.id, pointIds: f.pointIds, residuals: f.residuals })) }
+    measured.value[dataSetId] = m
+    return m
+  }
+  return { items, total, loading, error, load, entry, parametersOf, measuredOf }
 })

@@ -18,7 +18,8 @@ import {
   type BinarySystem,
   type VaporPressureModel,
 } from '@ebullio/thermo'
-import type { ParametersExport } from '../../api/catalogue'
+import type { MeasuredData, ParametersExport } from '../../api/catalogue'
+import type { TxyPoint } from '../plots'
 
 /** thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default). */
 export function systemFromParameters(p: ParametersExport, fitId?: string | null): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
@@ -163,4 +164,21 @@ export function cutsOf(frames: StillFrame[], charge: number, count: number): Cut
     cuts.push({ n: n + 1, fromFraction: a.distilledFraction, toFraction: b.distilledFraction, moles: df * charge, x1, potTStart: a.potT, potTEnd: b.potT })
   }
   return cuts
+}
+
+/**
+ * Measured points for the plots, with the chosen fit's outlier flags. The residual rows are matched to
+ * points by `pointId` when present, else by position in the fit's `pointIds`.
+ */
+export function measuredForPlot(m: MeasuredData, fitId: string | null): TxyPoint[] {
+  const fit = m.fits.find((f) => f.id === fitId)
+  const flagged = new Set<string>()
+  fit?.residuals.forEach((r, i) => {
+    const id = typeof r.pointId === 'string' ? r.pointId : fit.pointIds[i]
+    if (id && (r.flagged === true || r.outlier === true)) flagged.add(id)
+  })
+  return m.points.map((p) => ({
+    id: p.id, T: p.temperatureK, x1: p.x1, y1: p.y1, ux1: p.x1Uncertainty, uy1: p.y1Uncertainty,
+    excluded: p.excluded, outlier: flagged.has(p.id), note: p.exclusionReason ? `${p.sampleLabel} (excluded: ${p.exclusionReason})` : p.sampleLabel,
+  }))
 }
