@@ -9,6 +9,7 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   const queue = page.getByTestId('approvals-table')
   await expect(queue).toContainText(SUBMITTED_WITH_THREADS)
   await expect(queue.locator('tr').filter({ hasText: SUBMITTED_WITH_THREADS })).toContainText('unresolved')
+  await expect(page.locator('.p-datatable-mask')).toHaveCount(0)
   await snap(page, 'lab-20-approvals-queue')
   await queue.getByRole('link', { name: SUBMITTED_WITH_THREADS }).click()
   await expect(page.getByRole('heading', { level: 1, name: SUBMITTED_WITH_THREADS })).toBeVisible()

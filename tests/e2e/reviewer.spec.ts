@@ -31,4 +31,7 @@ test('a reviewer comments on one point, chosen on the T–x–y plot', async ({ 
   await page.getByRole('link', { name: 'My open threads' }).click()
   await expect(page.getByTestId('my-threads')).toContainText(text)
   await snap(page, 'lab-11-my-open-threads')
+  // The thread opens beside its point.
+  await page.getByTestId('my-threads').getByText(text).click()
+  await expect(page.getByTestId('point-details')).toContainText(label)
 })

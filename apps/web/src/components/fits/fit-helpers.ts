@@ -1,0 +1,63 @@
+/**
+ * Pure helpers of the fit panel and plots, with no engine code, so the workspace can show tables at once
+ * while @ebullio/thermo (which brings mathjs) loads in the background for the curves.
+ */
+import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/thermo'
+import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
+
+/** Display names of the models, in the order the fit panel offers them. */
+export const MODEL_LABELS: Record<ModelName, string> = { ideal: 'Ideal (Raoult)', margules: 'Margules', 'van-laar': 'Van Laar', wilson: 'Wilson', nrtl: 'NRTL' }
+/** Models the server fits; the ideal solution is drawn as a reference curve, it has nothing to fit. */
+export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl']
+
+/** Name of a fit for legends: the model, with the run time when the same model was fitted more than once. */
+export function fitLabel(f: Fit, all: Fit[]): string {
+  const base = MODEL_LABELS[f.model] ?? f.model
+  const same = all.filter((g) => g.model === f.model)
+  if (same.length < 2) return base
+  return `${base} (${new Date(f.runAt).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })})`
+}
+
+/** The two vapour-pressure models, wherever the server put them; null when the system has none yet. */
+export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPressureModel] | null {
+  const direct = d.vaporPressure
+  if (Array.isArray(direct) && direct.length === 2) return direct as unknown as [VaporPressureModel, VaporPressureModel]
+  const pick = (c: DataSetDetail['system']['component1']) => {
+    const sets = c.vaporPressureSets ?? []
+    const s = sets.find((v) => v.preferred) ?? sets[0]
+    return s ? (s.parameters as unknown as VaporPressureModel) : null
+  }
+  const a = pick(d.system.component1)
+  const b = pick(d.system.component2)
+  return a && b ? [a, b] : null
+}
+
+export interface FitCurve {
+  fitId: string
+  name: string
+  diagram: PhaseDiagram & { kind: 'isobaric' }
+  azeotrope: Azeotrope | null
+}
+
+/** Residuals of one fit, tolerant of the field names thermo and the server may use: ΔT in K, Δy mole fraction. */
+export function residualsOf(f: Fit): { pointId: string; dT: number | null; dy: number | null; outlier: boolean }[] {
+  return (f.residuals ?? []).map((r, i) => {
+    const o = r as Record<string, unknown>
+    const num = (...keys: string[]) => {
+      for (const k of keys) if (typeof o[k] === 'number') return o[k] as number
+      return null
+    }
+    return {
+      pointId: String(o.pointId ?? o.id ?? f.pointIds[i] ?? ''),
+      dT: num('dT', 'deltaT', 'temperature', 'T'),
+      dy: num('dy', 'dy1', 'deltaY', 'y1', 'y'),
+      outlier: o.flagged === true || o.outlier === true,
+    }
+  })
+}
+
+/** Root mean square of the finite values (the σ of the ±2σ band), null when there are none. */
+export function rms(values: (number | null)[]): number | null {
+  const v = values.filter((x): x is number => x !== null && Number.isFinite(x))
+  return v.length ? Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length) : null
+}
