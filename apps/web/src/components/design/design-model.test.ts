@@ -1,0 +1,93 @@
+import type { BinarySystem } from '@ebullio/thermo'
+import { describe, expect, it } from 'vitest'
+import { curveTableCsv, cutsOf, diagramsAt, measuredForPlot, tidyWarnings, type StillFrame } from './design-model'
+
+// Antoine constants, ln(P/kPa) = A − B/(t/°C + C): Smith, Van Ness & Abbott, 7th ed., Table B.2
+// (benzene A,B,C read in print; toluene from memory, it reproduces the table's normal boiling point).
+const benzeneToluene: BinarySystem = {
+  vaporPressure: [
+    { kind: 'antoine', A: 13.7819, B: 2726.81, C: 217.572, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' },
+    { kind: 'antoine', A: 13.932, B: 3056.96, C: 217.625, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' },
+  ],
+  activity: { kind: 'ideal' },
+}
+
+describe('diagramsAt (benzene–toluene, ideal, 101.325 kPa)', () => {
+  const d = diagramsAt(benzeneToluene, 101325)
+
+  it('puts the pure ends at the normal boiling points of SVNA 7th ed. Table B.2 (80.0 and 110.6 °C, ±0.15 K)', () => {
+    expect(Math.abs(d.pure.T1 - 273.15 - 80.0)).toBeLessThan(0.15)
+    expect(Math.abs(d.pure.T2 - 273.15 - 110.6)).toBeLessThan(0.15)
+  })
+
+  it('boils an equimolar liquid near 92 °C with 70–75 % benzene in the first vapour (common practice, no source)', () => {
+    const mid = d.table.find((r) => r.x1 === 0.5)!
+    expect(Math.abs(mid.T - 273.15 - 92)).toBeLessThan(1.5)
+    expect(mid.y1).toBeGreaterThan(0.7)
+    expect(mid.y1).toBeLessThan(0.75)
+  })
+
+  it('finds no azeotrope in an ideal pair and keeps α above 1', () => {
+    expect(d.azeotrope).toBeNull()
+    expect(Math.min(...d.alpha)).toBeGreaterThan(1)
+  })
+
+  it('writes the curve table with a header, a caution line and one row per computed point', () => {
+    const lines = curveTableCsv(d, ['benzene', 'toluene'], 'Ideal').trim().split('\n')
+    expect(lines[0]).toBe('# Ebullio curve table; benzene (1) + toluene (2); model Ideal; P = 101.3250 kPa')
+    expect(lines[1]).toBe('# Preliminary estimate from equilibrium data; not an engineered design.')
+    expect(lines[2]).toBe('x1,y1,t_k,t_c,alpha12')
+    expect(lines).toHaveLength(3 + d.x1.length)
+  })
+})
+
+describe('cutsOf', () => {
+  // Synthetic frames (invented): cumulative distillate composition falling as the still runs.
+  const frames: StillFrame[] = Array.from({ length: 11 }, (_, i) => ({
+    distilledFraction: i * 0.05,
+    potMoles: 100 - i * 5,
+    potX1: 0.5 - i * 0.02,
+    potT: 350 + i,
+    instantaneousDistillateY1: 0.9 - i * 0.03,
+    cumulativeDistillateX1: 0.9 - i * 0.015,
+  }))
+
+  it('splits the distillate into equal cuts whose component-1 balance matches the collected total', () => {
+    const cuts = cutsOf(frames, 100, 5)
+    expect(cuts).toHaveLength(5)
+    expect(cuts.map((c) => c.moles)).toEqual([10, 10, 10, 10, 10].map((v) => expect.closeTo(v, 10)))
+    const collected1 = cuts.reduce((s, c) => s + c.moles * c.x1, 0)
+    const last = frames.at(-1)!
+    expect(collected1).toBeCloseTo(last.cumulativeDistillateX1 * last.distilledFraction * 100, 10)
+    expect(cuts[0].potTStart).toBe(350)
+    expect(cuts[4].potTEnd).toBe(360)
+  })
+})
+
+describe('tidyWarnings', () => {
+  it('folds per-temperature range warnings into one line', () => {
+    const ws = [
+      'methanol: 373.13 K (99.98 °C) is outside the range of its vapour-pressure correlation (−11 to 83 °C); the value is extrapolated.',
+      'methanol: 372.99 K (99.84 °C) is outside the range of its vapour-pressure correlation (−11 to 83 °C); the value is extrapolated.',
+    ]
+    expect(tidyWarnings(ws)).toEqual([
+      'methanol: part of this calculation is outside the range of its vapour-pressure correlation (−11 to 83 °C); the value is extrapolated.',
+    ])
+  })
+})
+
+describe('measuredForPlot', () => {
+  it('flags the points the chosen fit marked, by point id or by position', () => {
+    const p = (id: string) => ({ id, seq: 1, sampleLabel: id, temperatureK: 330, pressurePa: 101325, x1: 0.3, x1Uncertainty: 0.002, y1: 0.5, y1Uncertainty: 0.003, excluded: false, exclusionReason: null })
+    const m = {
+      points: [p('a'), p('b'), p('c')],
+      fits: [
+        { id: 'f1', pointIds: ['a', 'b', 'c'], residuals: [{ flagged: false }, { flagged: true }, { flagged: false }] },
+        { id: 'f2', pointIds: ['a', 'b', 'c'], residuals: [{ pointId: 'c', outlier: true }] },
+      ],
+    }
+    expect(measuredForPlot(m, 'f1').map((x) => x.outlier)).toEqual([false, true, false])
+    expect(measuredForPlot(m, 'f2').map((x) => x.outlier)).toEqual([false, false, true])
+    expect(measuredForPlot(m, null).some((x) => x.outlier)).toBe(false)
+  })
+})

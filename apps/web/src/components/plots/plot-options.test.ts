@@ -1,0 +1,75 @@
+import { describe, expect, it } from 'vitest'
+import { lineOption } from './line-option'
+import { residualOption } from './residual-option'
+import { txyOption } from './txy-option'
+import { xyOption } from './xy-option'
+
+type Series = { type: string; name: string; data: unknown[]; lineStyle?: { type?: string }; markArea?: { data: { yAxis: number }[][] } }
+const names: [string, string] = ['acetone', 'methanol']
+// Invented shapes for the option builders; no chemistry is checked here.
+const curve = { name: 'Wilson', x1: [0, 0.5, 1], y1: [0, 0.6, 1], T: [337.85, 330, 329.35] }
+
+describe('txyOption', () => {
+  const o = txyOption({
+    title: 'T–x–y', names, unit: 'C', k: 2, curves: [curve],
+    points: [
+      { id: 'p1', T: 330.15, x1: 0.4, y1: 0.55, uT: 0.05, ux1: 0.002, uy1: 0.003 },
+      { id: 'p2', T: 331.15, x1: 0.3, y1: null, excluded: true, outlier: true },
+    ],
+    pure: { T1: 329.35, T2: 337.85 },
+  })
+  const series = o.series as Series[]
+
+  it('shows kelvin as degrees Celsius (t/°C = T/K − 273.15, SI Brochure 9th ed., 2.3.1)', () => {
+    const liquid = series.find((s) => s.type === 'scatter' && s.name === 'Liquid x₁')!
+    expect((liquid.data[0] as { value: number[] }).value[1]).toBeCloseTo(57, 10)
+    expect((o.yAxis as { name: string }).name).toBe('T / °C')
+  })
+
+  it('gives a model’s bubble (solid) and dew (dashed) lines one name, so one legend entry toggles both', () => {
+    const lines = series.filter((s) => s.type === 'line')
+    expect(lines.map((s) => s.name)).toEqual(['Wilson', 'Wilson'])
+    expect(lines[1].lineStyle?.type).toBe('dashed')
+  })
+
+  it('draws error bars of ±k·u, a hollow excluded point, no vapour for a liquid-only point, and rings the outlier', () => {
+    const bars = series.find((s) => s.type === 'custom' && s.name === 'Liquid x₁')!
+    expect(bars.data[0]).toEqual([0.4, expect.closeTo(57, 10), 0.004, 0.1])
+    const liquid = series.find((s) => s.type === 'scatter' && s.name === 'Liquid x₁')!
+    expect((liquid.data[1] as { itemStyle: { color: string } }).itemStyle.color).toBe('#ffffff')
+    expect(series.find((s) => s.name === 'Vapour y₁' && s.type === 'scatter')!.data).toHaveLength(1)
+    expect(series.find((s) => s.name === 'Flagged outlier')!.data).toHaveLength(1)
+  })
+})
+
+describe('xyOption', () => {
+  it('always draws the diagonal and numbers the stages (every k-th when there are many)', () => {
+    const staircase = Array.from({ length: 61 }, (_, i) => ({ x: 1 - i / 70, y: 1 - i / 70 }))
+    const o = xyOption({
+      title: 'x–y', names, curves: [curve], points: [],
+      stages: { staircase, rectifying: { slope: 0.7, intercept: 0.27 }, stripping: { slope: 1.3, intercept: -0.015 }, intersection: { x: 0.5, y: 0.62 }, xF: 0.5, xD: 0.9, xB: 0.05, q: 1, feedStage: 12 },
+    })
+    const series = o.series as Series[]
+    expect(series[0].data).toEqual([[0, 0], [1, 1]])
+    const labels = series.find((s) => s.type === 'scatter' && s.name === 'Theoretical stages')!
+    expect(labels.data.length).toBeLessThanOrEqual(14)
+  })
+})
+
+describe('residualOption', () => {
+  it('shades ±2σ around zero for each model', () => {
+    const o = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series: [{ name: 'NRTL', sigma: 0.1, points: [{ id: 'a', x1: 0.2, residual: 0.05 }] }] })
+    const s = (o.series as Series[])[0]
+    expect(s.markArea?.data[0].map((d) => d.yAxis)).toEqual([-0.2, 0.2])
+  })
+})
+
+describe('lineOption', () => {
+  it('puts right-axis series on the second y axis and draws the cursor', () => {
+    const o = lineOption({ title: 't', xName: 'x', yName: 'y', y2Name: 'T / °C', digits: 2, cursorX: 0.3, series: [{ name: 'a', x: [0, 1], y: [0, 1] }, { name: 'b', x: [0, 1], y: [5, 6], rightAxis: true }] })
+    const series = o.series as (Series & { yAxisIndex: number; markLine?: { data: { xAxis: number }[] } })[]
+    expect(series.map((s) => s.yAxisIndex)).toEqual([0, 1])
+    expect(series[0].markLine?.data[0].xAxis).toBe(0.3)
+    expect(o.yAxis as unknown[]).toHaveLength(2)
+  })
+})
