@@ -68,6 +68,17 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await expect(page.getByText('Measured points are drawn at the pressure they were measured at (101.33 kPa).')).toBeVisible()
   await snapTop(page, 'eng-03-system-50kpa')
 
+  // Plot exports: SVG from a second render with the SVG renderer (true vectors), PNG from the canvas.
+  const txy = page.getByTestId('plot-txy')
+  const [svgDl] = await Promise.all([page.waitForEvent('download'), txy.getByTestId('export-svg').click()])
+  expect(svgDl.suggestedFilename()).toBe('txy.svg')
+  const svgText = readFileSync((await svgDl.path())!, 'utf8')
+  expect(svgText).toMatch(/^<svg[\s\S]*<\/svg>$/)
+  expect(svgText).toContain('T / °C')
+  const [pngDl] = await Promise.all([page.waitForEvent('download'), txy.getByTestId('export-png').click()])
+  expect(pngDl.suggestedFilename()).toBe('txy.png')
+  expect(readFileSync((await pngDl.path())!).subarray(1, 4).toString()).toBe('PNG')
+
   // Curve table: 101 computed rows in the documented layout.
   const curve = await download(page, 'export-curve-csv')
   const rows = curve.text.trim().split('\n').filter((l) => !l.startsWith('#'))
@@ -120,6 +131,12 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   expect(Number(await page.getByTestId('bs-pot-x1').textContent())).toBeLessThan(0.5)
   await expect(page.getByTestId('bs-cuts').locator('tbody tr')).toHaveCount(4)
   await snapTop(page, 'eng-06-batch-still')
+  // On a 768-px tablet the same screen stacks its panels.
+  await page.setViewportSize({ width: 768, height: 1024 })
+  await expect(page.getByTestId('bs-cuts')).toBeVisible()
+  await page.waitForTimeout(400) // the navigation drawer slides away at this width
+  await snapTop(page, 'eng-07-batch-still-tablet')
+  await page.setViewportSize({ width: 1280, height: 800 })
 
   // Parameters as JSON: Ebullio's documented layout, with the published Antoine constants it was computed from.
   const json = await download(page, 'download-parameters-json')
