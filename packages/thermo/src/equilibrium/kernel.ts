@@ -54,7 +54,9 @@ export function solveBubbleT(act: ActivityModel, vp1: LnPsat, vp2: LnPsat, lnP: 
     const a = Math.abs(dT)
     // Newton's error after this step is about C·dT², with C estimated from the last two steps;
     // stop once that is below 1e-9 K (and y1, γ are carried to the new T to first order).
-    if (a < 1e-9 || (a < 1e-3 && (a / (prevStep * prevStep)) * a * a < 1e-10)) {
+    // With no earlier step to estimate C from, only a step below 1e-6 K is accepted.
+    const settled = prevStep === Infinity ? a < 1e-6 : a < 1e-3 && (a / (prevStep * prevStep)) * a * a < 1e-10
+    if (a < 1e-9 || settled) {
       const y1 = (k1 / S) * (1 + (e1 - fp) * dT)
       res[0] = T + dT
       res[1] = y1 > 1 ? 1 : y1
