@@ -1,3 +1,4 @@
 export * from './auth.js'
 export * from './design.js'
 export * from './lab-admin.js'
+export * from './lab.js'

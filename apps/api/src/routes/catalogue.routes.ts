@@ -5,7 +5,8 @@ import * as catalogue from '../services/catalogue.service.js'
 import * as exportsService from '../services/exports.service.js'
 import { downloadUpload } from '../services/uploads.service.js'
 import { defineRoutes } from './define.js'
-import { catalogueQuery, curveQuery, idParams, uuid } from './lab-schemas.js'
+import { curveQuerySchema as curveQuery } from '@ebullio/schemas'
+import { catalogueQuery, idParams, uuid } from './lab-schemas.js'
 import { parseParams, parseQuery } from './validate.js'
 
 const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const

@@ -7,7 +7,8 @@ import { listFits } from '../repositories/fits.repository.js'
 import { findDataSet } from '../repositories/datasets.repository.js'
 import { visibleOrNotFound } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
-import { commentParams, commentSchema, consistencySchema, fitSchema, idParams, recommendedSchema, rowVersionSchema, signatureSchema } from './lab-schemas.js'
+import { commentSchema, consistencyRequestSchema, fitRequestSchema, recommendedFitSchema, rowVersionSchema, signatureSchema } from '@ebullio/schemas'
+import { commentParams, idParams } from './lab-schemas.js'
 import { parseBody, parseParams } from './validate.js'
 
 const AUTHORS = ['analyst', 'lead_chemist'] as const
@@ -18,7 +19,7 @@ export const reviewRoutes = defineRoutes([
     method: 'post', path: '/api/data-sets/:id/fits', access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
-      res.status(201).json(await fits.runFits(db, user, parseParams(idParams, req).id, parseBody(fitSchema, req)))
+      res.status(201).json(await fits.runFits(db, user, parseParams(idParams, req).id, parseBody(fitRequestSchema, req)))
     },
   },
   {
@@ -35,7 +36,7 @@ export const reviewRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
-      res.json(await fits.markRecommended(db, user, id, parseBody(recommendedSchema, req).fitId))
+      res.json(await fits.markRecommended(db, user, id, parseBody(recommendedFitSchema, req).fitId))
     },
   },
   {
@@ -43,7 +44,7 @@ export const reviewRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
-      res.status(201).json(await fits.runConsistency(db, user, id, parseBody(consistencySchema, req).model))
+      res.status(201).json(await fits.runConsistency(db, user, id, parseBody(consistencyRequestSchema, req).model))
     },
   },
   {

@@ -1,0 +1,170 @@
+import { z } from 'zod'
+
+/**
+ * Request bodies of the lab API (issue 5), shared by the API (which parses with them) and the web app
+ * (which can check a form with the same rules and messages before sending it). Units are the engine's:
+ * Pa, K, mole fractions, g/mol, cm³/mol. The API's query-string, path and multipart schemas stay in
+ * apps/api/src/routes/lab-schemas.ts.
+ */
+
+/** A lab entity id (UUID); `what` names it in the message, e.g. `labId('data set')` → "Not a data set id". */
+export const labId = (what: string) => z.string().uuid(`Not a ${what} id`)
+
+const text = (max: number) => z.string().trim().max(max)
+const optionalText = (max: number) => text(max).nullable().optional().transform((v) => (v === '' ? null : v ?? null))
+const rowVersion = z.number().int().min(1)
+
+/** The states of a data set version, in workflow order. */
+export const DATA_SET_STATES = ['draft', 'submitted', 'approved', 'returned', 'superseded'] as const
+export type DataSetStateName = (typeof DATA_SET_STATES)[number]
+
+/** The activity models a data set can be fitted with. */
+export const FIT_MODELS = ['margules', 'van-laar', 'wilson', 'nrtl'] as const
+export type FitModel = (typeof FIT_MODELS)[number]
+
+/** Pressure units accepted wherever a pressure is given with its unit (converted to Pa by the API). */
+export const PRESSURE_UNITS = ['Pa', 'kPa', 'MPa', 'bar', 'mbar', 'atm', 'mmHg', 'torr', 'psi'] as const
+export type PressureUnit = (typeof PRESSURE_UNITS)[number]
+/** Temperature units accepted with a temperature (C = degrees Celsius). */
+export const TEMPERATURE_UNITS = ['K', 'C'] as const
+export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number]
+
+/** A pressure as typed, with its unit. */
+export const pressureWithUnitSchema = z.object({
+  value: z.number().positive('Pressure must be positive'),
+  unit: z.enum(PRESSURE_UNITS),
+})
+/** A temperature as typed, with its unit; the absolute-zero check needs the unit, so it is made on the pair. */
+export const temperatureWithUnitSchema = z.object({ value: z.number(), unit: z.enum(TEMPERATURE_UNITS) })
+  .refine((t) => (t.unit === 'K' ? t.value : t.value + 273.15) > 0, { message: 'Temperature must be above absolute zero', path: ['value'] })
+
+const casNumber = z.string().trim().regex(/^\d{2,7}-\d{2}-\d$/, 'Write the CAS number as digits in three groups, e.g. 67-64-1').nullable()
+
+/** POST /api/components. molarMass in g/mol, liquidMolarVolume in cm³/mol. */
+export const componentSchema = z.object({
+  name: text(120).min(1, 'Enter a name'),
+  casNumber: casNumber.optional().transform((v) => v ?? null),
+  formula: optionalText(60),
+  molarMass: z.number().positive('Molar mass must be positive (g/mol)'),
+  liquidMolarVolume: z.number().positive('Liquid molar volume must be positive (cm³/mol)').nullable().optional().transform((v) => v ?? null),
+})
+/** PATCH /api/components/:id (send the rowVersion you loaded). */
+export const componentPatchSchema = z.object({
+  rowVersion,
+  name: text(120).min(1).optional(),
+  casNumber: casNumber.optional(),
+  formula: text(60).nullable().optional(),
+  molarMass: z.number().positive().optional(),
+  liquidMolarVolume: z.number().positive().nullable().optional(),
+})
+
+const range = z.tuple([z.number(), z.number()]).refine(([a, b]) => a < b, 'The range must run from low to high').optional()
+/** A vapour-pressure correlation in the form and units it was published in (range in its temperature unit). */
+export const vaporPressureModelSchema = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('antoine'), A: z.number(), B: z.number(), C: z.number(), log: z.enum(['log10', 'ln']),
+    pressureUnit: z.enum(['Pa', 'kPa', 'bar', 'mmHg', 'atm']), temperatureUnit: z.enum(['C', 'K']), range,
+  }),
+  z.object({ kind: z.literal('clausius-clapeyron'), Tref: z.number().positive(), Pref: z.number().positive(), dHvap: z.number().positive(), range }),
+])
+/** POST /api/components/:id/vapor-pressure-sets. */
+export const vaporPressureSetSchema = z.object({
+  model: vaporPressureModelSchema,
+  source: text(400).min(1, 'Name the source (book, edition, table) of the constants'),
+  preferred: z.boolean().default(true),
+})
+/** POST /api/components/:id/pure-measurements: a measured boiling point (K) at a measured pressure (Pa). */
+export const pureMeasurementSchema = z.object({
+  temperatureK: z.number().positive('Temperature must be positive (K)'),
+  pressurePa: z.number().positive('Pressure must be positive (Pa)'),
+  note: optionalText(400),
+})
+
+/** POST /api/systems (component 1 is the lighter one by convention). */
+export const systemSchema = z.object({ component1Id: labId('component'), component2Id: labId('component'), notes: optionalText(1000) })
+
+/** POST /api/gc-methods. */
+export const gcMethodSchema = z.object({
+  name: text(120).min(1, 'Enter a name'),
+  detector: z.enum(['FID', 'TCD']),
+  columnDescription: optionalText(400),
+  conditions: optionalText(2000),
+})
+
+/** POST /api/data-sets; nominalPressurePa in Pa. */
+export const dataSetSchema = z.object({
+  systemId: labId('system'),
+  title: text(200).min(1, 'Enter a title'),
+  nominalPressurePa: z.number().positive('Pressure must be positive (Pa)').max(1e8),
+  apparatusNotes: optionalText(4000),
+  projectRef: optionalText(200),
+})
+/** PATCH /api/data-sets/:id (draft or returned; send the rowVersion you loaded). */
+export const dataSetPatchSchema = z.object({
+  rowVersion,
+  title: text(200).min(1).optional(),
+  nominalPressurePa: z.number().positive().max(1e8).optional(),
+  apparatusNotes: text(4000).nullable().optional(),
+  projectRef: text(200).nullable().optional(),
+})
+
+/** PATCH /api/data-sets/:id/points/:pointId: exclude (a reason is required) or include a point. */
+export const exclusionSchema = z.object({
+  rowVersion,
+  excluded: z.boolean(),
+  reason: z.string().trim().max(1000).nullable().optional(),
+}).refine((v) => !v.excluded || (v.reason && v.reason.length > 0), { message: 'Give a reason for excluding this point', path: ['reason'] })
+
+/** POST /api/data-sets/:id/fits. alpha: NRTL non-randomness (default 0.3), fitted too when fitAlpha. */
+export const fitRequestSchema = z.object({
+  models: z.array(z.enum(FIT_MODELS)).min(1, 'Choose at least one model').max(4),
+  objective: z.enum(['bubble-point', 'activity']).default('bubble-point'),
+  alpha: z.number().positive().max(1).optional(),
+  fitAlpha: z.boolean().optional(),
+})
+/** POST /api/data-sets/:id/recommended-fit. */
+export const recommendedFitSchema = z.object({ fitId: labId('fit') })
+/** POST /api/data-sets/:id/consistency: the activity model the point test uses. */
+export const consistencyRequestSchema = z.object({ model: z.enum(FIT_MODELS).default('nrtl') })
+
+/** POST /api/data-sets/:id/comments: on the data set, pinned to a point, or a reply (parentId). */
+export const commentSchema = z.object({
+  body: text(4000).min(1, 'Write a comment'),
+  pointId: labId('point').nullable().optional(),
+  parentId: labId('comment').nullable().optional(),
+})
+
+/** POST /api/data-sets/:id/submit and other writes that only need the version the user saw. */
+export const rowVersionSchema = z.object({ rowVersion })
+/** POST /api/data-sets/:id/approve and /return: an e-signature (password re-entered) with its reason. */
+export const signatureSchema = z.object({
+  password: z.string().min(1, 'Re-enter your password to sign').max(200),
+  reason: text(2000).min(1, 'Give the reason for your signature'),
+  rowVersion,
+  overrideReason: text(2000).nullable().optional(),
+})
+
+const queryPressure = {
+  pressure: z.coerce.number().positive('Pressure must be positive'),
+  unit: z.enum(PRESSURE_UNITS).default('kPa'),
+}
+/** GET /api/data-sets/:id/curve query: pressure in `unit` (default kPa), grid points, optional fit. */
+export const curveQuerySchema = z.object({
+  ...queryPressure,
+  points: z.coerce.number().int().min(3).max(1001).default(101),
+  fitId: labId('fit').optional(),
+})
+/** GET /api/data-sets/:id/fits/:fitId/band query: pressure in `unit` (default: the data set's nominal pressure). */
+export const bandQuerySchema = z.object({
+  pressure: queryPressure.pressure.optional(),
+  unit: queryPressure.unit,
+  points: z.coerce.number().int().min(3).max(1001).default(51),
+})
+/** GET /api/data-sets/:id/fits/:fitId/next-compositions query: how many suggestions (1–20, default 5) at which pressure. */
+export const nextCompositionsQuerySchema = z.object({
+  pressure: queryPressure.pressure.optional(),
+  unit: queryPressure.unit,
+  count: z.coerce.number().int().min(1).max(20).default(5),
+})
+/** POST /api/data-sets/:id/pure-component-check: agreement asked of a pure boiling point, K (default 0.3 K). */
+export const pureComponentCheckSchema = z.object({ toleranceK: z.number().positive('The tolerance must be positive (K)').max(10).optional() })
