@@ -68,7 +68,11 @@ export function createApp(services: AppServices, logger: Logger, routes: RouteDe
     pinoHttp({
       logger,
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      redact: { paths: ['req.headers.cookie', 'req.headers.authorization', 'res.headers["set-cookie"]', 'req.body'], remove: true },
+      // Method, path and status only: no headers (cookies), no bodies (passwords), no query strings (tokens).
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, path: req.url.split('?')[0] }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
     }),
   )
   app.use('/api', express.json({ limit: config.jsonLimit }))
