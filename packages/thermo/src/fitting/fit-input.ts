@@ -15,8 +15,9 @@ export interface BinaryPoint {
   excluded?: boolean
 }
 
-/** Default measurement uncertainties (common practice, no source): 0.1 K on T and 0.005 on y1. */
+/** Default uncertainty of a measured boiling temperature, K (common practice, no source). */
 export const DEFAULT_SIGMA_T = 0.1
+/** Default uncertainty of a measured vapour mole fraction (common practice, no source). */
 export const DEFAULT_SIGMA_Y = 0.005
 
 const MODEL_NAMES: Record<FittableModel, string> = { margules: 'Margules', 'van-laar': 'Van Laar', wilson: 'Wilson', nrtl: 'NRTL' }

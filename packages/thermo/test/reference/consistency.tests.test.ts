@@ -84,6 +84,9 @@ describe('pure-component boiling points against the vapour-pressure models', () 
     expect(Math.abs(r.checks[1].dT - 0.6)).toBeLessThan(0.01)
     expect(r.passed).toBe(false)
   })
+  it('refuses a bad tolerance with an exact message', () => {
+    expect(() => pureComponentCheck([], { vaporPressure, tolerance: 0 })).toThrow('The tolerance must be a positive number of kelvins; got 0.')
+  })
   it('says so when there is nothing to compare', () => {
     expect(pureComponentCheck([{ T: 365, P: 101325, x1: 0.3 }], { vaporPressure }).warnings).toEqual([
       'No pure-component points (x1 = 0 or 1) to compare with the vapour-pressure models.',

@@ -33,6 +33,7 @@ const cases: [string, () => unknown, string][] = [
   ['Antoine pole', () => vaporPressure(b2('water'), 40), 'The Antoine equation has no value at 40 K: T + C is zero or negative there.'],
   ['beyond Antoine', () => saturationTemperature(b2('water'), 1e12), 'No saturation temperature at 1000000000000 Pa: the pressure is beyond what this vapour-pressure correlation can reach.'],
   ['Clausius–Clapeyron', () => vaporPressure({ kind: 'clausius-clapeyron', Tref: 373.15, Pref: 101325, dHvap: -1 }, 300), 'Clausius–Clapeyron needs a positive Tref (K), Pref (Pa) and enthalpy of vaporization (J/mol).'],
+  ['pressure no liquid can boil at', () => bubbleTemperature(system, { P: 1e12, x1: 0.5 }), 'The bubble-temperature calculation did not converge at x1 = 0.5 and 1000000000000 Pa; check the vapour-pressure constants and activity parameters.'],
   ['one model', () => bubbleTemperature({ vaporPressure: [b2('water')], activity: { kind: 'ideal' } } as never, { P: 1e5, x1: 0.5 }), 'A binary system needs two vapour-pressure models and an activity model.'],
 ]
 

@@ -1,3 +1,4 @@
+import psychrolib from 'psychrolib'
 import { describe, expect, it } from 'vitest'
 import { fitAntoine, fitClausiusClapeyron, saturationTemperature, vaporPressure } from '../../src/index.js'
 import { b2 } from './helpers/constants.js'
@@ -51,6 +52,22 @@ describe('fitAntoine', () => {
     expect(() => fitAntoine([{ T: 300, P: 1e4 }, { T: 310, P: 2e4 }, { T: 320, P: 1.5e4 }])).toThrow(
       'Vapour pressure must rise with temperature, but the point at 320 K (15000 Pa) is not above the point at 310 K (20000 Pa).',
     )
+  })
+})
+
+describe('fitAntoine on independent data: water from psychrolib (ASHRAE Handbook—Fundamentals 2017, ch. 1)', () => {
+  psychrolib.SetUnitSystem(psychrolib.SI)
+  const points = Array.from({ length: 19 }, (_, i) => ({ T: 283.15 + 5 * i, P: psychrolib.GetSatVapPres(10 + 5 * i) }))
+  it('reproduces the IAPWS-IF97 boiling points within 0.05 K (IF97 check value Tsat(0.1 MPa) = 372.755919 K; tn 373.124 K)', () => {
+    const fit = fitAntoine(points)
+    expect(Math.abs(saturationTemperature(fit.model, 1e5) - 372.755919)).toBeLessThan(0.05)
+    expect(Math.abs(saturationTemperature(fit.model, 101325) - 373.124)).toBeLessThan(0.05)
+    expect(fit.rmsRelative).toBeLessThan(0.001)
+  })
+  it('lands near the classic log10/mmHg water constants for 1–100 °C, B = 1730.63, C = 233.426 (from memory)', () => {
+    const fit = fitAntoine(points, { log: 'log10', pressureUnit: 'mmHg', temperatureUnit: 'C' })
+    expect(Math.abs(fit.model.B - 1730.63)).toBeLessThan(10)
+    expect(Math.abs(fit.model.C - 233.426)).toBeLessThan(1)
   })
 })
 
