@@ -70,6 +70,22 @@ describe('bubble and dew solvers converge everywhere', () => {
   })
 })
 
+describe('dew point where plain substitution stalls', () => {
+  // Found by a randomised search (illustrative parameters): cyclohexane (1) / 1-propanol (2), NRTL
+  // b12 = 5135, b21 = 1997 J/mol, α = 0.231, y1 = 0.7018 at 1 atm. The substitution on x1 does not settle,
+  // so the bracketed search on x1 must finish the job, and the answer must be a bubble point of its own x1.
+  it('falls back to the bracketed search and still inverts the bubble point', () => {
+    const system: BinarySystem = {
+      vaporPressure: [b2('cyclohexane'), b2('1-propanol')],
+      activity: { kind: 'nrtl', b12: 5134.952511172742, b21: 1996.7137286439538, alpha: 0.23102350528351964 },
+    }
+    const d = dewTemperature(system, { P: 101325, y1: 0.701814528554678 })
+    const b = bubbleTemperature(system, { P: 101325, x1: d.x1 })
+    expect(Math.abs(b.T - d.T)).toBeLessThan(1e-6)
+    expect(Math.abs(b.y1 - 0.701814528554678)).toBeLessThan(1e-9)
+  })
+})
+
 describe('no solution is reported, not looped on', () => {
   // Symmetric Margules with A > 2 splits into two liquids (SVNA 7th ed., §14.4, stability criterion; from memory).
   const split: BinarySystem = { vaporPressure: [b2('benzene'), b2('toluene')], activity: { kind: 'margules', A12: 3, A21: 3 } }
