@@ -108,6 +108,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.getByTestId('col-run').click()
   await expect(page.getByTestId('col-failure')).toContainText('The target cannot be reached by distillation at 50.00 kPa.')
   await expect(page.getByTestId('col-failure')).toContainText('lies between xB = 0.05 and xD = 0.95')
+  await page.waitForTimeout(400) // let the message finish its entrance before the screenshot
   await snapTop(page, 'eng-05-column-azeotrope')
 
   // Batch still: 100 mol at x1 = 0.5 with three stages above the pot at R = 3.

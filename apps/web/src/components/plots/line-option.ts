@@ -13,6 +13,8 @@ export interface LineOptionInput {
   xMax?: number
   /** A vertical cursor at this x (e.g. the animation's current time). */
   cursorX?: number | null
+  /** A dotted horizontal reference line at this y (e.g. α = 1). */
+  refY?: number | null
   digits: number
 }
 
@@ -31,6 +33,12 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
   })
   if (o.cursorX !== undefined && o.cursorX !== null && series.length) {
     series[0].markLine = { silent: true, symbol: 'none', label: { show: false }, lineStyle: { color: '#c98a12', width: 1.5 }, data: [{ xAxis: o.cursorX }] }
+  }
+  if (o.refY !== undefined && o.refY !== null) {
+    series.push({
+      type: 'line', name: 'reference', silent: true, showSymbol: false, data: [], yAxisIndex: 0,
+      markLine: { silent: true, symbol: 'none', label: { show: true, position: 'insideEndTop', formatter: `${o.yName} = ${o.refY}`, color: '#635e53', fontSize: 11 }, lineStyle: { color: '#635e53', type: 'dotted', width: 1 }, data: [{ yAxis: o.refY }] },
+    })
   }
   const yAxis = [valueAxis(o.yName, { scale: true, nameGap: 48 })]
   if (hasRight) yAxis.push(valueAxis(o.y2Name ?? '', { scale: true, nameGap: 48, position: 'right', splitLine: { show: false } }))

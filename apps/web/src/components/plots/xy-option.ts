@@ -9,6 +9,8 @@ export interface XyOptionInput {
   points: XyPoint[]
   azeotrope?: AzeotropeMark | null
   stages?: StageConstruction | null
+  /** Design targets to mark on the diagonal when no stage construction is drawn. */
+  targets?: { xF?: number; xD?: number; xB?: number } | null
   names: [string, string]
 }
 
@@ -39,9 +41,9 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
     {
       type: 'scatter', name: 'Targets', z: 6, symbol: 'circle', symbolSize: 7, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
       data: [
-        { value: [s.xD, s.xD], name: `x_D = ${fmt(s.xD, 3)}` },
-        { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
-        { value: [s.xB, s.xB], name: `x_B = ${fmt(s.xB, 3)}` },
+        { value: [s.xD, s.xD], name: `xD = ${fmt(s.xD, 3)}` },
+        { value: [s.xF, s.xF], name: `xF = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
+        { value: [s.xB, s.xB], name: `xB = ${fmt(s.xB, 3)}` },
       ],
       tooltip: { formatter: (p: { name: string }) => p.name },
     },
@@ -77,6 +79,17 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
     })
   }
   if (o.stages) series.push(...stageSeries(o.stages))
+  else if (o.targets) {
+    const t = o.targets
+    const marks = ([['xD', t.xD], ['xF', t.xF], ['xB', t.xB]] as const).filter(([, v]) => v !== undefined)
+    series.push({
+      type: 'scatter', name: 'Targets', z: 6, symbolSize: 8, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
+      // xD sits near the top-right corner: its label goes to the left so it stays inside the plot.
+      data: marks.map(([n, v]) => ({ value: [v, v], name: `${n} = ${fmt(v as number, 3)}`, label: { position: n === 'xD' ? 'left' : 'right' } })),
+      label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string }) => p.name },
+      tooltip: { formatter: (p: { name: string }) => p.name },
+    })
+  }
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
   const names = [...o.curves.map((c) => c.name), ...(o.points.length ? ['Measured'] : []), ...(o.stages ? ['Operating lines', 'Theoretical stages'] : [])]
   const { legend, top } = legendFor(names, selected)
