@@ -166,5 +166,7 @@ export const nextCompositionsQuerySchema = z.object({
   unit: queryPressure.unit,
   count: z.coerce.number().int().min(1).max(20).default(5),
 })
-/** POST /api/data-sets/:id/pure-component-check: agreement asked of a pure boiling point, K (default 0.3 K). */
-export const pureComponentCheckSchema = z.object({ toleranceK: z.number().positive('The tolerance must be positive (K)').max(10).optional() })
+/** GET /api/data-sets/:id/pure-component-check query: agreement asked of a pure boiling point, K (default 0.3 K). */
+export const pureComponentCheckQuerySchema = z.object({
+  toleranceK: z.coerce.number().positive('The tolerance must be positive (K)').max(10, 'Use a tolerance of at most 10 K').optional(),
+})

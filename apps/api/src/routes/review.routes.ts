@@ -2,17 +2,27 @@ import { ctx } from '../context.js'
 import { listOpenThreadsOf } from '../repositories/comments.repository.js'
 import * as comments from '../services/comments.service.js'
 import * as fits from '../services/fits.service.js'
+import * as uncertainty from '../services/uncertainty.service.js'
 import * as workflow from '../services/workflow.service.js'
 import { listFits } from '../repositories/fits.repository.js'
 import { findDataSet } from '../repositories/datasets.repository.js'
 import { visibleOrNotFound } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
-import { commentSchema, consistencyRequestSchema, fitRequestSchema, recommendedFitSchema, rowVersionSchema, signatureSchema } from '@ebullio/schemas'
-import { commentParams, idParams } from './lab-schemas.js'
-import { parseBody, parseParams } from './validate.js'
+import {
+  bandQuerySchema, commentSchema, consistencyRequestSchema, fitRequestSchema, nextCompositionsQuerySchema, pureComponentCheckQuerySchema,
+  recommendedFitSchema, rowVersionSchema, signatureSchema,
+} from '@ebullio/schemas'
+import { toPascal } from '@ebullio/thermo'
+import { z } from 'zod'
+import { commentParams, idParams, uuid } from './lab-schemas.js'
+import { parseBody, parseParams, parseQuery } from './validate.js'
 
 const AUTHORS = ['analyst', 'lead_chemist'] as const
 const DISCUSSANTS = ['analyst', 'lead_chemist', 'reviewer'] as const
+const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
+const fitParams = z.object({ id: uuid('data set'), fitId: uuid('fit') })
+/** A query's pressure in Pa, or undefined for the data set's nominal pressure. */
+const pascal = (q: { pressure?: number; unit: Parameters<typeof toPascal>[1] }) => (q.pressure === undefined ? undefined : toPascal(q.pressure, q.unit))
 
 export const reviewRoutes = defineRoutes([
   {
@@ -29,6 +39,32 @@ export const reviewRoutes = defineRoutes([
       const { id } = parseParams(idParams, req)
       visibleOrNotFound(user, await findDataSet(db, id))
       res.json({ items: await listFits(db, id) })
+    },
+  },
+  {
+    method: 'get', path: '/api/data-sets/:id/fits/:fitId/band', access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id, fitId } = parseParams(fitParams, req)
+      const q = parseQuery(bandQuerySchema, req)
+      res.json(await uncertainty.fitBand(db, user, id, fitId, { P: pascal(q), points: q.points }))
+    },
+  },
+  {
+    method: 'get', path: '/api/data-sets/:id/fits/:fitId/next-compositions', access: LAB,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id, fitId } = parseParams(fitParams, req)
+      const q = parseQuery(nextCompositionsQuerySchema, req)
+      res.json(await uncertainty.nextCompositions(db, user, id, fitId, { P: pascal(q), count: q.count }))
+    },
+  },
+  {
+    method: 'get', path: '/api/data-sets/:id/pure-component-check', access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(idParams, req)
+      res.json(await uncertainty.dataSetPureComponentCheck(db, user, id, parseQuery(pureComponentCheckQuerySchema, req).toleranceK))
     },
   },
   {

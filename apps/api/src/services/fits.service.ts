@@ -2,7 +2,7 @@
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database } from '../db/index.js'
-import { conflict, notFound } from '../errors/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
@@ -10,6 +10,7 @@ import { listPoints, type PointRecord } from '../repositories/points.repository.
 import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
+import { bandOf, pureComponentChecks, suggestionsOf } from './uncertainty.service.js'
 
 /** The activity models a data set can be fitted with (thermo's fitBinary). */
 export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
@@ -31,8 +32,9 @@ function onlyLeadOnceSubmitted(user: SessionUser, d: repo.DataSetRecord, action:
 const included = (points: PointRecord[]) => points.filter((p) => !p.excluded)
 
 function statistics(r: FitBinaryResult) {
-  const { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings } = r
-  return { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings }
+  const { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings, settings } = r
+  // settings (weights, residual variance) let the prediction band and next-composition design run on the stored fit.
+  return { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings, settings }
 }
 
 /**
@@ -56,7 +58,7 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
     }))
     return { model, options, r }
   })
-  return db.transaction().execute(async (tx) => {
+  const saved = await db.transaction().execute(async (tx) => {
     const locked = await repo.lockDataSet(tx, id)
     requireState(locked!, FITTABLE_STATES, 'fitting')
     const stored: fits.FitRecord[] = []
@@ -74,6 +76,20 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
     const after = await repo.updateDataSet(tx, id, {})
     return { fits: stored, rowVersion: after!.rowVersion }
   })
+  return { ...saved, predictions: saved.fits.map((f, i) => predictionsOf(f, results[i].r, d.nominalPressurePa)) }
+}
+
+/** Band and next compositions at the nominal pressure; a fit whose band cannot be computed says why instead. */
+function predictionsOf(fit: fits.FitRecord, r: FitBinaryResult, P: number) {
+  const attempt = <T>(fn: () => T): T | { error: string } => {
+    try {
+      return fn()
+    } catch (err) {
+      if (err instanceof AppError) return { error: err.message }
+      throw err
+    }
+  }
+  return { fitId: fit.id, band: attempt(() => bandOf(fit, r, P, 51)), nextCompositions: attempt(() => suggestionsOf(fit, r, P, 5)) }
 }
 
 /** The lead chemist's choice of the fit the data set is approved with. */
@@ -95,13 +111,15 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   requireState(d, FITTABLE_STATES, 'running consistency tests')
   onlyLeadOnceSubmitted(user, d, 'running consistency tests')
-  const pts = included(await listPoints(db, id)).map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1 }))
+  const all = await listPoints(db, id)
+  const pts = included(all).map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1 }))
   if (pts.length === 0) throw conflict('This data set has no included points to test.')
   const inputs = await engineInputs(db, d.systemId)
   const area = thermo('Area test', () => heringtonAreaTest(pts, { vaporPressure: inputs.vaporPressure }))
   const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
   const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, ...volumes }))
-  return db.transaction().execute(async (tx) => {
+  const pureComponent = await pureComponentChecks(db, inputs, all)
+  const saved = await db.transaction().execute(async (tx) => {
     const out = []
     for (const [test, r] of [['herington-area', area], ['point', point]] as const) {
       const result = JSON.parse(JSON.stringify({ ...r, model: test === 'point' ? model : undefined }))
@@ -112,4 +130,6 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
     const after = await repo.updateDataSet(tx, id, {})
     return { items: out, rowVersion: after!.rowVersion }
   })
+  // Computed, not stored: it compares with today's vapour-pressure sets and pure measurements.
+  return { ...saved, pureComponent }
 }

@@ -1,0 +1,120 @@
+/**
+ * How sure a fit is, and what to measure next: thermo's prediction band and sequential design on a stored
+ * fit, and the pure-component boiling-point check of a data set. Nothing here is stored; every answer is
+ * recomputed from the stored fit, points and vapour-pressure sets.
+ */
+import {
+  fitBinary, predictionBand, PURE_COMPONENT_TOLERANCE, pureComponentCheck, suggestNextCompositions,
+  type ActivityModel, type FitBinaryResult, type PureComponentCheck,
+} from '@ebullio/thermo'
+import type { SessionUser } from '../auth/index.js'
+import type { Db } from '../db/index.js'
+import { notFound } from '../errors/index.js'
+import { listPureMeasurements } from '../repositories/components.repository.js'
+import * as repo from '../repositories/datasets.repository.js'
+import { findFit, type FitRecord } from '../repositories/fits.repository.js'
+import { listPoints, type PointRecord } from '../repositories/points.repository.js'
+import { thermo, visibleOrNotFound } from './lab-access.js'
+import { engineInputs, type EngineInputs } from './systems.service.js'
+
+/** What the band means, sent with it so a plot can say so. */
+export const BAND_NOTE =
+  'Band of ±2σ around the fitted curve from the parameter covariance (linear propagation): how well the fit pins the curve down, not the scatter to expect of a single new measurement.'
+
+type Settings = FitBinaryResult['settings']
+
+/** JSON turns NaN into null; the engine expects NaN for "not available". */
+const numbers = (m: unknown): number[][] => (Array.isArray(m) ? m.map((row: unknown[]) => row.map((v) => (typeof v === 'number' ? v : NaN))) : [])
+
+/**
+ * The fit's own settings (weights and residual variance). Fits stored before these were kept are fitted
+ * again on the same points with the same options; the stored parameters and covariance are still used.
+ */
+function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs): Settings {
+  const stored = fit.statistics.settings as Settings | undefined
+  if (stored && typeof stored.residualVariance === 'number') return stored
+  const used = new Set(fit.pointIds)
+  const o = fit.options as { objective?: 'bubble-point' | 'activity'; V1?: number; V2?: number; alpha?: number; fitAlpha?: boolean }
+  const again = thermo(`Fitting ${fit.model}`, () => fitBinary({
+    model: fit.model, objective: o.objective, V1: o.V1, V2: o.V2, alpha: o.alpha, fitAlpha: o.fitAlpha, vaporPressure: inputs.vaporPressure,
+    points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: !used.has(p.id) })),
+  }))
+  return again.settings
+}
+
+/** thermo's FitBinaryResult for a stored fit: the parts the band and the suggestions read. */
+export function storedFitResult(fit: FitRecord, points: PointRecord[], inputs: EngineInputs): FitBinaryResult {
+  const stats = fit.statistics
+  return {
+    activity: fit.activity as unknown as ActivityModel,
+    system: { vaporPressure: inputs.vaporPressure, activity: fit.activity as unknown as ActivityModel },
+    parameters: fit.parameters,
+    covariance: numbers(stats.covariance),
+    correlation: numbers(stats.correlation),
+    converged: Boolean(stats.converged),
+    iterations: Number(stats.iterations),
+    objective: Number(stats.objective),
+    objectiveKind: (fit.options.objective as 'bubble-point' | 'activity' | undefined) ?? 'bubble-point',
+    rmsT: Number(stats.rmsT), rmsY: Number(stats.rmsY), aadT: Number(stats.aadT), aadY: Number(stats.aadY),
+    maxAbsT: Number(stats.maxAbsT), maxAbsY: Number(stats.maxAbsY), aic: Number(stats.aic),
+    residuals: [],
+    warnings: [],
+    settings: fitSettings(fit, points, inputs),
+  }
+}
+
+async function loadFit(db: Db, user: SessionUser, id: string, fitId: string) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const fit = await findFit(db, fitId)
+  if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
+  const inputs = await engineInputs(db, d.systemId)
+  return { d, fit, inputs, result: storedFitResult(fit, await listPoints(db, id), inputs) }
+}
+
+/** The band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */
+export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, points: number) {
+  const band = thermo('Prediction band', () => predictionBand(result, { P, points }))
+  return { fitId: fit.id, model: fit.model, ...band, note: BAND_NOTE }
+}
+
+/** Up to `count` liquid compositions to measure next at P (Pa), best first (largest σy reduction). */
+export function suggestionsOf(fit: FitRecord, result: FitBinaryResult, P: number, count: number) {
+  const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count }))
+  return { fitId: fit.id, model: fit.model, P, items }
+}
+
+export async function fitBand(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; points: number }) {
+  const { d, fit, result } = await loadFit(db, user, id, fitId)
+  return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points) }
+}
+
+export async function nextCompositions(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; count: number }) {
+  const { d, fit, result } = await loadFit(db, user, id, fitId)
+  return { dataSetId: id, ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count) }
+}
+
+/** A pure-component comparison, saying where the boiling point came from. */
+export type SourcedCheck = Omit<PureComponentCheck, 'index'> & { source: 'point'; pointId: string } | Omit<PureComponentCheck, 'index'> & { source: 'pure-measurement'; measurementId: string }
+
+/**
+ * Measured pure-component boiling points against the vapour-pressure sets the data set computes with:
+ * the data set's included points at x1 = 0 or 1, and the boiling points measured for either component.
+ * @param toleranceK allowed |T measured − T model|, K (thermo's default 0.3 K).
+ */
+export async function pureComponentChecks(db: Db, inputs: EngineInputs, points: PointRecord[], toleranceK?: number) {
+  const [m1, m2] = await Promise.all([listPureMeasurements(db, inputs.system.component1.id), listPureMeasurements(db, inputs.system.component2.id)])
+  const own = points.filter((p) => !p.excluded && (p.x1 === 0 || p.x1 === 1))
+  const rows = [
+    ...own.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, ref: { source: 'point' as const, pointId: p.id } })),
+    ...m1.map((m) => ({ T: m.temperatureK, P: m.pressurePa, x1: 1, ref: { source: 'pure-measurement' as const, measurementId: m.id } })),
+    ...m2.map((m) => ({ T: m.temperatureK, P: m.pressurePa, x1: 0, ref: { source: 'pure-measurement' as const, measurementId: m.id } })),
+  ]
+  const r = thermo('Pure-component check', () => pureComponentCheck(rows.map(({ T, P, x1 }) => ({ T, P, x1 })), { vaporPressure: inputs.vaporPressure, tolerance: toleranceK }))
+  const checks: SourcedCheck[] = r.checks.map(({ index, ...c }) => ({ ...c, ...rows[index].ref }))
+  return { toleranceK: toleranceK ?? PURE_COMPONENT_TOLERANCE, passed: r.passed, checks, warnings: r.warnings, components: [inputs.system.component1.name, inputs.system.component2.name] }
+}
+
+export async function dataSetPureComponentCheck(db: Db, user: SessionUser, id: string, toleranceK?: number) {
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  return { dataSetId: id, ...(await pureComponentChecks(db, await engineInputs(db, d.systemId), await listPoints(db, id), toleranceK)) }
+}
