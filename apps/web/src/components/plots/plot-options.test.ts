@@ -42,6 +42,16 @@ describe('txyOption', () => {
   })
 })
 
+describe('txyOption tooltip', () => {
+  it('shows a hovered point’s values with its uncertainties and flags', () => {
+    const point = { id: 'p2', T: 331.15, x1: 0.3, y1: 0.45, uT: 0.05, ux1: 0.002, excluded: true, outlier: true, note: 'S-07' }
+    const o = txyOption({ title: 'T–x–y', names, unit: 'C', k: 1, curves: [], points: [point] })
+    const fmt = (o.tooltip as { formatter: (p: unknown) => string }).formatter
+    const html = fmt({ data: { point, phase: 'liquid' }, seriesName: 'Liquid x₁' })
+    expect(html).toBe('<b>S-07</b> · liquid<br>T = 58.00 °C ± 0.05<br>x₁ = 0.3000 ± 0.0020<br>y₁ = 0.4500<br><i>excluded from fits</i><br><span style="color:#a3321f">flagged as an outlier</span>')
+  })
+})
+
 describe('xyOption', () => {
   it('always draws the diagonal and numbers the stages (every k-th when there are many)', () => {
     const staircase = Array.from({ length: 61 }, (_, i) => ({ x: 1 - i / 70, y: 1 - i / 70 }))
