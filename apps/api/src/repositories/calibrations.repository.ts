@@ -1,3 +1,4 @@
+import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { Calibration, GcMethod } from '../db/lab-tables.js'
 
@@ -35,8 +36,23 @@ export const toCalibration = (c: Calibration): CalibrationRecord => ({
   rangeMax: c.range_max, status: c.status, uploadId: c.upload_id, createdBy: c.created_by, createdAt: c.created_at, retiredAt: c.retired_at,
 })
 
+const GC_METHOD_SORT = { name: 'name', detector: 'detector', created_at: 'created_at' } as const
+
 export async function listGcMethods(db: Db): Promise<GcMethodRecord[]> {
   return (await db.selectFrom('gc_method').selectAll().orderBy('name').execute()).map(toGcMethod)
+}
+
+/** One page of GC methods; `q` matches the name, column description or conditions. */
+export async function listGcMethodsPage(db: Db, f: { q?: string; detector?: 'FID' | 'TCD'; sort: keyof typeof GC_METHOD_SORT; order: 'asc' | 'desc'; limit: number; offset: number }): Promise<{ items: GcMethodRecord[]; total: number }> {
+  let q = db.selectFrom('gc_method')
+  if (f.detector) q = q.where('detector', '=', f.detector)
+  if (f.q) {
+    const like = `%${f.q}%`
+    q = q.where((eb) => eb.or([eb('name', 'ilike', like), eb('column_description', 'ilike', like), eb('conditions', 'ilike', like)]))
+  }
+  const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
+  const rows = await q.selectAll().orderBy(GC_METHOD_SORT[f.sort], f.order).orderBy('name').orderBy('id').limit(f.limit).offset(f.offset).execute()
+  return { items: rows.map(toGcMethod), total: Number(total.n) }
 }
 
 export async function findGcMethod(db: Db, id: string): Promise<GcMethodRecord | undefined> {
@@ -56,12 +72,52 @@ export async function insertGcMethod(db: Db, m: Omit<GcMethodRecord, 'id' | 'cre
   return toGcMethod(r)
 }
 
+export interface CalibrationQuery {
+  gcMethodId?: string
+  systemId?: string
+  status?: 'active' | 'retired'
+  model?: CalibrationRecord['model']
+  /** matches the GC method's name or either component's name */
+  q?: string
+  createdAfter?: Date
+  createdBefore?: Date
+  sort: 'created_at' | 'status' | 'model' | 'gc_method' | 'system'
+  order: 'asc' | 'desc'
+  limit: number
+  offset: number
+}
+
+const CALIBRATION_SORT = { created_at: 'k.created_at', status: 'k.status', model: 'k.model', gc_method: 'g.name', system: 'c1.name' } as const
+
 export async function listCalibrations(db: Db, f: { gcMethodId?: string; systemId?: string; status?: 'active' | 'retired' }): Promise<CalibrationRecord[]> {
   let q = db.selectFrom('calibration').selectAll()
   if (f.gcMethodId) q = q.where('gc_method_id', '=', f.gcMethodId)
   if (f.systemId) q = q.where('system_id', '=', f.systemId)
   if (f.status) q = q.where('status', '=', f.status)
   return (await q.orderBy('created_at', 'desc').execute()).map(toCalibration)
+}
+
+/** One page of calibrations, each with its GC method's and system's names. */
+export async function listCalibrationsPage(db: Db, f: CalibrationQuery): Promise<{ items: (CalibrationRecord & { gcMethodName: string; systemName: string })[]; total: number }> {
+  let q = db.selectFrom('calibration as k')
+    .innerJoin('gc_method as g', 'g.id', 'k.gc_method_id')
+    .innerJoin('binary_system as s', 's.id', 'k.system_id')
+    .innerJoin('component as c1', 'c1.id', 's.component1_id')
+    .innerJoin('component as c2', 'c2.id', 's.component2_id')
+  if (f.gcMethodId) q = q.where('k.gc_method_id', '=', f.gcMethodId)
+  if (f.systemId) q = q.where('k.system_id', '=', f.systemId)
+  if (f.status) q = q.where('k.status', '=', f.status)
+  if (f.model) q = q.where('k.model', '=', f.model)
+  if (f.createdAfter) q = q.where('k.created_at', '>=', f.createdAfter)
+  if (f.createdBefore) q = q.where('k.created_at', '<', f.createdBefore)
+  if (f.q) {
+    const like = `%${f.q}%`
+    q = q.where((eb) => eb.or([eb('g.name', 'ilike', like), eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like)]))
+  }
+  const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
+  const rows = await q.selectAll('k').select(['g.name as gc_method_name', sql<string>`c1.name || ' / ' || c2.name`.as('system_name')])
+    .orderBy(CALIBRATION_SORT[f.sort], f.order).orderBy('k.created_at', 'desc').orderBy('k.id').limit(f.limit).offset(f.offset).execute()
+  return { items: rows.map((r) => ({ ...toCalibration(r), gcMethodName: r.gc_method_name, systemName: r.system_name })), total: Number(total.n) }
 }
 
 export async function findCalibration(db: Db, id: string): Promise<CalibrationRecord | undefined> {

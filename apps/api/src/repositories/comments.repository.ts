@@ -50,13 +50,16 @@ export async function countOpenThreads(db: Db, dataSetId: string): Promise<numbe
 }
 
 /** Open threads anywhere that the user started or replied to ("my open threads"). */
-export async function listOpenThreadsOf(db: Db, userId: string) {
-  return db.selectFrom('comment as c').innerJoin('data_set as d', 'd.id', 'c.data_set_id')
-    .select(['c.id', 'c.data_set_id', 'c.point_id', 'c.body', 'c.created_at', 'd.title', 'd.version'])
+/** Open threads the user started or replied to, newest first, one page (`limit`, `offset`). */
+export async function listOpenThreadsOf(db: Db, userId: string, page: { limit: number; offset: number } = { limit: 1000, offset: 0 }) {
+  const q = db.selectFrom('comment as c').innerJoin('data_set as d', 'd.id', 'c.data_set_id')
     .where('c.parent_id', 'is', null).where('c.resolved', '=', false)
     .where((eb) => eb.or([
       eb('c.author_id', '=', userId),
       eb.exists(eb.selectFrom('comment as r').select('r.id').whereRef('r.parent_id', '=', 'c.id').where('r.author_id', '=', userId)),
     ]))
-    .orderBy('c.created_at', 'desc').execute()
+  const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
+  const items = await q.select(['c.id', 'c.data_set_id', 'c.point_id', 'c.body', 'c.created_at', 'd.title', 'd.version'])
+    .orderBy('c.created_at', 'desc').orderBy('c.id').limit(page.limit).offset(page.offset).execute()
+  return { items, total: Number(total.n) }
 }

@@ -23,9 +23,26 @@ export const componentQuery = z.object({
 
 export const systemQuery = z.object({ q: z.string().trim().max(100).optional(), ...pageQuery })
 
+/** Lists the web reads whole (calibrations, GC methods, my threads) page by 100 unless asked otherwise. */
+const widePage = { ...pageQuery, pageSize: z.coerce.number().int().min(1).max(200).default(100) }
+const dateQuery = { createdAfter: z.coerce.date().optional(), createdBefore: z.coerce.date().optional() }
+
 export const calibrationQuery = z.object({
   gcMethodId: uuid('GC method').optional(), systemId: uuid('system').optional(), status: z.enum(['active', 'retired']).optional(),
+  model: z.enum(['response-factor', 'linear', 'quadratic']).optional(),
+  q: z.string().trim().max(100).optional(),
+  ...dateQuery,
+  sort: z.enum(['created_at', 'status', 'model', 'gc_method', 'system']).default('created_at'),
+  ...widePage,
 })
+export const gcMethodQuery = z.object({
+  q: z.string().trim().max(100).optional(),
+  detector: z.enum(['FID', 'TCD']).optional(),
+  sort: z.enum(['name', 'detector', 'created_at']).default('name'),
+  ...widePage,
+  order: z.enum(['asc', 'desc']).default('asc'),
+})
+export const myThreadsQuery = z.object({ ...widePage })
 const formBool = z.enum(['true', 'false']).default('false').transform((v) => v === 'true')
 export const calibrationForm = z.object({
   gcMethodId: uuid('GC method'), systemId: uuid('system'), model: z.enum(['response-factor', 'linear', 'quadratic']).default('response-factor'),

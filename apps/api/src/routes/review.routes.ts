@@ -6,7 +6,7 @@ import * as uncertainty from '../services/uncertainty.service.js'
 import * as workflow from '../services/workflow.service.js'
 import { listFits } from '../repositories/fits.repository.js'
 import { findDataSet } from '../repositories/datasets.repository.js'
-import { visibleOrNotFound } from '../services/lab-access.js'
+import { pageWindow, visibleOrNotFound } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
 import {
   bandQuerySchema, commentSchema, consistencyRequestSchema, fitRequestSchema, nextCompositionsQuerySchema, pureComponentCheckQuerySchema,
@@ -14,7 +14,7 @@ import {
 } from '@ebullio/schemas'
 import { toPascal } from '@ebullio/thermo'
 import { z } from 'zod'
-import { commentParams, idParams, uuid } from './lab-schemas.js'
+import { commentParams, idParams, myThreadsQuery, uuid } from './lab-schemas.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
 
 const AUTHORS = ['analyst', 'lead_chemist'] as const
@@ -110,7 +110,8 @@ export const reviewRoutes = defineRoutes([
     method: 'get', path: '/api/comments/mine', access: DISCUSSANTS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
-      res.json({ items: await listOpenThreadsOf(db, user.id) })
+      const { page, pageSize } = parseQuery(myThreadsQuery, req)
+      res.json({ ...(await listOpenThreadsOf(db, user.id, pageWindow(page, pageSize))), page, pageSize })
     },
   },
   {

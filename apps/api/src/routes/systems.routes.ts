@@ -4,10 +4,10 @@ import { listSystems } from '../repositories/systems.repository.js'
 import * as calibrations from '../services/calibrations.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import * as service from '../services/systems.service.js'
-import { listCalibrations, listGcMethods } from '../repositories/calibrations.repository.js'
+import { listCalibrationsPage, listGcMethodsPage } from '../repositories/calibrations.repository.js'
 import { defineRoutes } from './define.js'
 import { gcMethodSchema, systemSchema } from '@ebullio/schemas'
-import { calibrationForm, calibrationQuery, systemQuery, uuid } from './lab-schemas.js'
+import { calibrationForm, calibrationQuery, gcMethodQuery, systemQuery, uuid } from './lab-schemas.js'
 import { csvUpload, receivedFile } from './upload-middleware.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
 
@@ -39,7 +39,10 @@ export const systemRoutes = defineRoutes([
   },
   {
     method: 'get', path: '/api/gc-methods', access: LAB,
-    handler: async (req, res) => void res.json({ items: await listGcMethods(ctx(req).db) }),
+    handler: async (req, res) => {
+      const { page, pageSize, ...q } = parseQuery(gcMethodQuery, req)
+      res.json({ ...(await listGcMethodsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })
+    },
   },
   {
     method: 'post', path: '/api/gc-methods', access: ['analyst', 'lead_chemist', 'admin'],
@@ -50,7 +53,10 @@ export const systemRoutes = defineRoutes([
   },
   {
     method: 'get', path: '/api/calibrations', access: LAB,
-    handler: async (req, res) => void res.json({ items: await listCalibrations(ctx(req).db, parseQuery(calibrationQuery, req)) }),
+    handler: async (req, res) => {
+      const { page, pageSize, ...q } = parseQuery(calibrationQuery, req)
+      res.json({ ...(await listCalibrationsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })
+    },
   },
   {
     method: 'get', path: '/api/calibrations/:id', access: LAB,
