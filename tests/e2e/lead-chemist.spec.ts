@@ -58,4 +58,11 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
   await expect(page.getByTestId('open-approve')).toHaveCount(0)
   await snap(page, 'lab-23-approved-record')
+
+  // The record tab tells the story: the files as received and the audit trail ending in the signature.
+  await page.getByRole('tab', { name: 'Record' }).click()
+  await expect(page.getByTestId('dataset-record')).toContainText('Files as received')
+  await expect(page.getByTestId('audit-trail').locator('li').last()).toContainText('Dr. Tobias Lindqvist approve')
+  await expect(page.getByTestId('audit-trail')).toContainText('Mira Okonkwo submit')
+  await snap(page, 'lab-24-record-and-audit')
 })

@@ -145,6 +145,18 @@ export interface LabSystem {
   component2: LabComponent
 }
 
+/** One line of the append-only audit log of a data set's lineage. */
+export interface AuditEntry {
+  id: string
+  at: string
+  actorId: string | null
+  actorName: string | null
+  entity: string
+  entityId: string
+  action: string
+  dataSetId: string | null
+}
+
 export interface DataSetListQuery {
   state?: string
   systemId?: string
@@ -189,4 +201,6 @@ export const datasetsApi = {
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
+  audit: (id: string) => api.get<{ items: AuditEntry[] }>(`${base}/${id}/audit`),
+  uploadUrl: (uploadId: string) => `/api/uploads/${uploadId}/content`,
 }
