@@ -28,20 +28,14 @@ export function modelName(model: FittableModel): string {
 }
 
 function checkPoint(pt: BinaryPoint, i: number): void {
-  const at = `Point ${i + 1}:`
-  if (pt === null || typeof pt !== 'object') throw new ThermoError('invalid-input', `${at} expected an object with T, P, x1 and y1.`)
-  if (!(Number.isFinite(pt.T) && pt.T > 0)) throw new ThermoError('invalid-input', `${at} temperature must be a positive number of kelvins; got ${pt.T}.`)
-  if (!(Number.isFinite(pt.P) && pt.P > 0)) throw new ThermoError('invalid-input', `${at} pressure must be a positive number of pascals; got ${pt.P}.`)
-  if (!(Number.isFinite(pt.x1) && pt.x1 >= 0 && pt.x1 <= 1)) {
-    throw new ThermoError('invalid-input', `${at} liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
-  }
-  if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1)) {
-    throw new ThermoError('invalid-input', `${at} vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
-  }
-  for (const key of ['sigmaT', 'sigmaY'] as const) {
-    const s = pt[key]
-    if (s !== undefined && !(Number.isFinite(s) && s > 0)) throw new ThermoError('invalid-input', `${at} ${key} must be a positive number; got ${s}.`)
-  }
+  const fail = (text: string) => new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
+  if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1.')
+  if (!(Number.isFinite(pt.T) && pt.T > 0)) throw fail(`temperature must be a positive number of kelvins; got ${pt.T}.`)
+  if (!(Number.isFinite(pt.P) && pt.P > 0)) throw fail(`pressure must be a positive number of pascals; got ${pt.P}.`)
+  if (!(Number.isFinite(pt.x1) && pt.x1 >= 0 && pt.x1 <= 1)) throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
+  if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1)) throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
+  if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0)) throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
+  if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0)) throw fail(`sigmaY must be a positive number; got ${pt.sigmaY}.`)
 }
 
 /** Check the model choice and its extra inputs. */

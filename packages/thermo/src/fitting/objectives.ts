@@ -7,7 +7,7 @@
  * Activity: residuals ln γi(model) − ln γi(exp), γi(exp) = yi·P/(xi·Pi_sat(T)).
  */
 import { lnGammaT } from '../activity/kernel.js'
-import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
+import { res, solveBubbleT } from '../equilibrium/kernel.js'
 import type { LnPsat } from '../vapor-pressure/compiled.js'
 import type { ActivityModel } from '../types.js'
 import type { LeastSquaresProblem } from './lm.js'
@@ -87,7 +87,8 @@ export function bubbleSensitivities(
 export function bubbleProblem(d: FitData, layout: ParameterLayout, useY: boolean): LeastSquaresProblem & { Tguess: Float64Array } {
   const m = layout.names.length
   const Tguess = new Float64Array(d.n)
-  for (let i = 0; i < d.n; i++) Tguess[i] = startTemperature(d.vp1, d.vp2, d.lnP[i], d.x1[i])
+  // The measured temperature is the best first guess of each bubble point (within the noise of it).
+  for (let i = 0; i < d.n; i++) Tguess[i] = d.T[i]
   const dlng = new Float64Array(2 * m)
   const dT = new Float64Array(m)
   const dy = new Float64Array(m)
