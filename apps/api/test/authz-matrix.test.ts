@@ -76,6 +76,7 @@ const expected: Record<string, Access> = {
   'GET /api/data-sets/:id/export/parameters.json': 'authenticated',
   'GET /api/data-sets/:id/export/parameters.csv': 'authenticated',
   'GET /api/uploads/:id/content': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'GET /api/audit': ['admin'],
 }
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`

@@ -65,3 +65,36 @@ export async function listAuditForLineage(db: Db, lineageId: string): Promise<Au
     after: r.after,
   }))
 }
+
+export interface AuditQuery {
+  entity?: string
+  entityId?: string
+  actorId?: string
+  action?: string
+  after?: Date
+  before?: Date
+  order: 'asc' | 'desc'
+  limit: number
+  offset: number
+}
+
+/** One page of the whole audit log (all entities, not only lab data), in append order. */
+export async function listAudit(db: Db, f: AuditQuery): Promise<{ items: AuditRecord[]; total: number }> {
+  let q = db.selectFrom('audit_log').leftJoin('app_user', 'app_user.id', 'audit_log.actor_id')
+  if (f.entity) q = q.where('audit_log.entity', '=', f.entity)
+  if (f.entityId) q = q.where('audit_log.entity_id', '=', f.entityId)
+  if (f.actorId) q = q.where('audit_log.actor_id', '=', f.actorId)
+  if (f.action) q = q.where('audit_log.action', '=', f.action)
+  if (f.after) q = q.where('audit_log.at', '>=', f.after)
+  if (f.before) q = q.where('audit_log.at', '<', f.before)
+  const total = await q.select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow()
+  const rows = await q.selectAll('audit_log').select('app_user.display_name')
+    .orderBy('audit_log.id', f.order).limit(f.limit).offset(f.offset).execute()
+  return {
+    items: rows.map((r) => ({
+      id: String(r.id), at: r.at, actorId: r.actor_id, actorName: r.display_name, entity: r.entity, entityId: r.entity_id,
+      action: r.action, dataSetId: r.data_set_id, before: r.before, after: r.after,
+    })),
+    total: Number(total.n),
+  }
+}

@@ -25,7 +25,7 @@ export const adminRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, config, user, mailer } = ctx(req)
       const body = parseBody(inviteSchema, req)
-      const id = await service.inviteUser(db, config, user.displayName, body)
+      const id = await service.inviteUser(db, config, user.displayName, body, user.id)
       void mailer.deliverPending().catch(() => {})
       res.status(201).json({ id })
     },

@@ -1,4 +1,5 @@
 import { adminRoutes } from './admin.routes.js'
+import { auditRoutes } from './audit.routes.js'
 import { authRoutes } from './auth.routes.js'
 import { defineRoutes, type RouteDef } from './define.js'
 import { catalogueRoutes } from './catalogue.routes.js'
@@ -21,4 +22,5 @@ export const allRoutes: RouteDef[] = [
   ...dataSetRoutes,
   ...reviewRoutes,
   ...catalogueRoutes,
+  ...auditRoutes,
 ]

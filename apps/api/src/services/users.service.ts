@@ -7,7 +7,13 @@ import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
 import { AppError, badRequest, conflict, notFound } from '../errors/index.js'
 import { enqueueMail } from '../mail/outbox.js'
+import { appendAudit } from '../repositories/audit.repository.js'
 import * as users from '../repositories/users.repository.js'
+
+/** Run fn in the caller's transaction, or in a new one, so an account change and its audit row commit together. */
+function atomically<T>(db: Db, fn: (tx: Db) => Promise<T>): Promise<T> {
+  return db.isTransaction ? fn(db) : db.transaction().execute(fn)
+}
 
 const BAD_SIGN_IN = 'The e-mail address or password is not correct, or the account is not active.'
 const BAD_LINK = 'This link is not valid any more. It may have been used already or have expired; ask for a new one.'
@@ -45,9 +51,12 @@ export async function inviteUser(
   config: Config,
   invitedBy: string,
   o: { email: string; displayName: string; roles: Role[] },
+  invitedById: string | null = null,
 ): Promise<string> {
   return db.transaction().execute(async (tx) => {
     const id = await createUser(tx, o)
+    await appendAudit(tx, { actorId: invitedById, entity: 'app_user', entityId: id, action: 'invite user',
+      after: { email: o.email.toLowerCase(), displayName: o.displayName, roles: o.roles, invitedBy } })
     const token = await issueToken(tx, 'invite', id, config.inviteHours * 60)
     await enqueueMail(tx, {
       to: o.email,
@@ -93,6 +102,7 @@ export async function acceptInvite(db: Kysely<Database>, token: string, password
   return db.transaction().execute(async (tx) => {
     const userId = await consumeToken(tx, 'invite', token)
     await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', userId).execute()
+    await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'accept invite' })
     return userId
   })
 }
@@ -119,6 +129,7 @@ export async function resetPassword(db: Kysely<Database>, sessions: Sessions, to
   const userId = await db.transaction().execute(async (tx) => {
     const id = await consumeToken(tx, 'password_reset', token)
     await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', id).execute()
+    await appendAudit(tx, { actorId: id, entity: 'app_user', entityId: id, action: 'reset password' })
     return id
   })
   await sessions.endAllFor(userId)
@@ -127,18 +138,32 @@ export async function resetPassword(db: Kysely<Database>, sessions: Sessions, to
 export async function changePassword(db: Db, userId: string, current: string, next: string): Promise<void> {
   const u = await users.findUserById(db, userId)
   if (!u || !(await verifyPassword(u.password_hash, current))) throw badRequest('Your current password is not correct.')
-  await db.updateTable('app_user').set({ password_hash: await hashPassword(next), updated_at: new Date() }).where('id', '=', userId).execute()
+  const passwordHash = await hashPassword(next)
+  await atomically(db, async (tx) => {
+    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', userId).execute()
+    await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change password' })
+  })
 }
 
 export async function setActive(db: Db, sessions: Sessions, actorId: string, userId: string, active: boolean): Promise<void> {
   if (actorId === userId && !active) throw badRequest('You cannot deactivate your own account.')
-  const r = await db.updateTable('app_user').set({ active, updated_at: new Date() }).where('id', '=', userId).executeTakeFirst()
-  if (Number(r.numUpdatedRows) === 0) throw notFound('No such user.')
+  await atomically(db, async (tx) => {
+    const before = await users.findUserById(tx, userId)
+    const r = await tx.updateTable('app_user').set({ active, updated_at: new Date() }).where('id', '=', userId).executeTakeFirst()
+    if (Number(r.numUpdatedRows) === 0) throw notFound('No such user.')
+    await appendAudit(tx, { actorId, entity: 'app_user', entityId: userId, action: active ? 'activate user' : 'deactivate user',
+      before: { active: before?.active ?? null }, after: { active } })
+  })
   if (!active) await sessions.endAllFor(userId)
 }
 
 export async function assignRoles(db: Db, actorId: string, userId: string, roles: Role[]): Promise<void> {
   if (!(await users.findUserById(db, userId))) throw notFound('No such user.')
   if (actorId === userId && !roles.includes('admin')) throw badRequest('You cannot remove your own administrator role.')
-  await users.setRoles(db, userId, [...new Set(roles)])
+  const next = [...new Set(roles)]
+  await atomically(db, async (tx) => {
+    const before = await users.rolesOf(tx, userId)
+    await users.setRoles(tx, userId, next)
+    await appendAudit(tx, { actorId, entity: 'app_user', entityId: userId, action: 'change roles', before: { roles: before }, after: { roles: next } })
+  })
 }
