@@ -21,8 +21,9 @@ export interface LnPsat {
   tMax: number
 }
 
-function checkRange(range: [number, number] | undefined): void {
-  if (range === undefined) return
+function checkRange(range: [number, number] | undefined | null): void {
+  // Stored models may carry `range: null` (no range), which means the same as leaving it out.
+  if (range === undefined || range === null) return
   if (!Array.isArray(range) || range.length !== 2 || !range.every(Number.isFinite) || range[0] >= range[1]) {
     throw new ThermoError('invalid-model', 'A vapour-pressure range must be two finite numbers [min, max] with min < max.')
   }
