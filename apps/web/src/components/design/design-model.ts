@@ -29,6 +29,24 @@ export function systemFromParameters(p: ParametersExport, fitId?: string | null)
   return { system: { vaporPressure: vp, activity: fit.activity as unknown as ActivityModel, names: [p.system.component1.name, p.system.component2.name] }, fit }
 }
 
+/**
+ * Bubble and dew lines of every other fit of the version at pressure P (Pa), for comparison on the plots.
+ * A fit whose curve cannot be computed at this pressure is left out rather than failing the page.
+ */
+export function otherFitCurves(p: ParametersExport, chosenFitId: string | null, P: number, label: (model: string) => string) {
+  return p.fits
+    .filter((f) => f.id !== chosenFitId)
+    .flatMap((f) => {
+      try {
+        const { system } = systemFromParameters(p, f.id)
+        const d = phaseDiagram(system, { P }, { points: 61 })
+        return [{ name: label(f.model), x1: d.x1, y1: d.y1, T: d.kind === 'isobaric' ? d.T : [], hidden: true }]
+      } catch {
+        return []
+      }
+    })
+}
+
 /** Message of a thermo error (written for a chemist), or a generic one. */
 export function errorText(e: unknown): string {
   return e instanceof Error && e.message ? e.message : 'The calculation failed for these inputs.'

@@ -68,7 +68,7 @@ export function baseOption(title: string): Record<string, unknown> {
  * A wrapping legend of the given entries and the grid top that leaves room for it.
  * The row count is estimated from the text length (about 7 px a character plus the swatch) for a half-width plot.
  */
-export function legendFor(names: string[], selected: Record<string, boolean> = {}, widthPx = 520): { legend: Record<string, unknown>; top: number } {
+export function legendFor(names: string[], selected: Record<string, boolean> = {}, widthPx = 430): { legend: Record<string, unknown>; top: number } {
   const widths = names.map((n) => n.length * 6.3 + 44)
   let rows = names.length ? 1 : 0
   let used = 0
