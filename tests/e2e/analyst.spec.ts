@@ -25,7 +25,7 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
 
   await page.getByTestId('new-dataset').click()
   await page.getByRole('button', { name: 'Create and upload files' }).click()
-  await expect(page.getByText('Give the data set a title of at least 3 characters.')).toBeVisible()
+  await expect(page.getByText('Enter a title')).toBeVisible()
   await expect(page.getByText('Choose the binary system that was measured.')).toBeVisible()
   const title = `Recycle acetone check ${Date.now().toString(36)}`
   await page.getByLabel('Title').fill(title)
@@ -75,7 +75,7 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   const third = page.getByTestId('points-table').locator('tbody tr').nth(2)
   await third.getByTestId('exclude-point').click()
   await page.getByRole('dialog').getByRole('button', { name: 'Exclude point', exact: true }).click()
-  await expect(page.getByText('Say why the point is excluded (at least 3 characters); the reason stays on the record.')).toBeVisible()
+  await expect(page.getByText('Give a reason for excluding this point')).toBeVisible()
   await page.getByRole('dialog').getByLabel('Reason').fill('Still not at steady state when sampled')
   await page.getByRole('dialog').getByRole('button', { name: 'Exclude point', exact: true }).click()
   await expect(third).toContainText('Excluded: Still not at steady state when sampled')

@@ -36,8 +36,8 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(dialog.getByTestId('sign-points')).toContainText('12 measured')
   await expect(dialog.getByTestId('sign-fit')).toContainText('Wilson')
   await dialog.getByTestId('sign').click()
-  await expect(dialog.getByText('Enter your password to sign.')).toBeVisible()
-  await expect(dialog.getByText('Give the reason for this decision (at least 3 characters).')).toBeVisible()
+  await expect(dialog.getByText('Re-enter your password to sign')).toBeVisible()
+  await expect(dialog.getByText('Give the reason for your signature')).toBeVisible()
 
   await dialog.getByLabel('Reason').fill('Points consistent with the plant samples; Wilson recommended for the mother-liquor column.')
   const override = dialog.getByLabel(/still open: why approve anyway/)

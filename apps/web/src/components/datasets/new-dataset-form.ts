@@ -1,14 +1,12 @@
+import { dataSetSchema } from '@ebullio/schemas'
 import { z } from 'zod'
 
 /**
- * The new data set form as the person types it (pressure in their display unit).
- * Kept beside the form until issue 5 publishes its create-data-set schema in @ebullio/schemas;
- * the messages are the ones a 422 from the server would put on the same fields.
+ * The new data set form as the person types it: the API's own schema (@ebullio/schemas `dataSetSchema`,
+ * same messages as a 422), except that the pressure is typed in the chosen unit and converted to Pa on
+ * submit, and the system picker gets a message that says what to do.
  */
-export const newDatasetFormSchema = z.object({
-  title: z.string().trim().min(3, 'Give the data set a title of at least 3 characters.').max(200, 'Keep the title under 200 characters.'),
+export const newDatasetFormSchema = dataSetSchema.omit({ nominalPressurePa: true, systemId: true }).extend({
   systemId: z.string().min(1, 'Choose the binary system that was measured.'),
   pressure: z.number({ error: 'Enter the nominal pressure.' }).positive('The nominal pressure must be above zero.'),
-  projectRef: z.string().trim().max(100, 'Keep the project reference under 100 characters.'),
-  apparatusNotes: z.string().trim().max(4000, 'Keep the notes under 4000 characters.'),
 })
