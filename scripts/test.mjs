@@ -23,7 +23,7 @@ const reportDir = path.join(root, '.data')
 mkdirSync(reportDir, { recursive: true })
 
 const sh = (cmd, args, env = {}) => spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } }).status ?? 1
-const counts = { unit: { passed: 0, failed: 0, skipped: 0 }, e2e: { passed: 0, failed: 0, skipped: 0 } }
+const counts = { unit: { passed: 0, failed: 0, skipped: 0 }, e2e: { passed: 0, failed: 0, skipped: 0 }, types: 'not run' }
 let failure = false
 
 try {
@@ -41,6 +41,13 @@ try {
     }
     if (code !== 0) failure = true
     if (code !== 0 && counts.unit.failed === 0) counts.unit.failed = 1 // a crash outside any test still fails the run
+  }
+
+  if (!only) {
+    log('type checks of every package (tsc, vue-tsc)')
+    const ok = sh('pnpm', ['-r', '--if-present', '--reporter-hide-prefix', 'typecheck']) === 0
+    counts.types = ok ? 'passed' : 'FAILED'
+    if (!ok) failure = true
   }
 
   if (only !== 'unit') {
@@ -73,6 +80,6 @@ const total = { passed: counts.unit.passed + counts.e2e.passed, failed: counts.u
 const secs = Math.round((Date.now() - started) / 1000)
 console.log(
   `\nEbullio test suite: ${failure ? 'FAILED' : 'PASSED'} — ${total.passed} passed, ${total.failed} failed, ${total.skipped} skipped ` +
-    `(vitest ${counts.unit.passed}/${counts.unit.passed + counts.unit.failed}, browser ${counts.e2e.passed}/${counts.e2e.passed + counts.e2e.failed}) in ${secs} s`,
+    `(vitest ${counts.unit.passed}/${counts.unit.passed + counts.unit.failed}, browser ${counts.e2e.passed}/${counts.e2e.passed + counts.e2e.failed}; type checks ${counts.types}) in ${secs} s`,
 )
 process.exit(failure ? 1 : 0)
