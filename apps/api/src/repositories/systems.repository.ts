@@ -38,11 +38,17 @@ export async function findSystemByPair(db: Db, a: string, b: string): Promise<Sy
   return row ? (await hydrate(db, [row]))[0] : undefined
 }
 
-/** Systems whose component names or CAS numbers match `q`, one page. */
-export async function listSystems(db: Db, o: { q?: string; limit: number; offset: number }): Promise<{ items: SystemRecord[]; total: number }> {
+/**
+ * Systems whose component names or CAS numbers match `q`, one page; with `published`, only systems that
+ * have an approved or superseded data set (the engineers' catalogue).
+ */
+export async function listSystems(db: Db, o: { q?: string; published?: boolean; limit: number; offset: number }): Promise<{ items: SystemRecord[]; total: number }> {
   let query = db.selectFrom('binary_system as s')
     .innerJoin('component as c1', 'c1.id', 's.component1_id')
     .innerJoin('component as c2', 'c2.id', 's.component2_id')
+  if (o.published) {
+    query = query.where((eb) => eb.exists(eb.selectFrom('data_set as d').select('d.id').whereRef('d.system_id', '=', 's.id').where('d.state', 'in', ['approved', 'superseded'])))
+  }
   if (o.q) {
     const like = `%${o.q}%`
     query = query.where((eb) => eb.or([eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like), eb('c1.cas_number', 'like', like), eb('c2.cas_number', 'like', like)]))

@@ -7,34 +7,32 @@ import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { findFit } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
-import { thermo, visibleOrNotFound } from './lab-access.js'
+import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
 
 /** Shown with every design-related result (see the product rules on results that can hurt someone). */
 export const DESIGN_CAUTION =
   'Preliminary estimate from equilibrium data (modified Raoult\'s law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer\'s review.'
 
-/** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit. */
+/** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit; paged in SQL. */
 export async function catalogue(db: Db, o: { q?: string; page: number; pageSize: number }) {
-  const systems = await listSystems(db, { q: o.q, limit: 1000, offset: 0 })
-  const rows = await db.selectFrom('data_set as d').leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
+  const systems = await listSystems(db, { q: o.q, published: true, ...pageWindow(o.page, o.pageSize) })
+  const ids = systems.items.map((s) => s.id)
+  const rows = ids.length === 0 ? [] : await db.selectFrom('data_set as d').leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
     .select(['d.id', 'd.system_id', 'd.version', 'd.state', 'd.title', 'd.nominal_pressure_pa', 'd.approved_at', 'f.id as fit_id', 'f.model', 'f.parameters', sql<unknown>`f.statistics`.as('statistics')])
-    .where('d.state', 'in', ['approved', 'superseded']).orderBy('d.version', 'desc').execute()
-  const items = systems.items.flatMap((s) => {
+    .where('d.state', 'in', ['approved', 'superseded']).where('d.system_id', 'in', ids).orderBy('d.version', 'desc').execute()
+  const items = systems.items.map((s) => {
     const versions = rows.filter((r) => r.system_id === s.id)
-    if (versions.length === 0) return []
-    const current = versions.filter((v) => v.state === 'approved')
-    return [{
+    return {
       system: s,
-      approved: current.map((v) => ({
+      approved: versions.filter((v) => v.state === 'approved').map((v) => ({
         dataSetId: v.id, title: v.title, version: v.version, nominalPressurePa: v.nominal_pressure_pa, approvedAt: v.approved_at,
         recommendedFit: v.fit_id ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
       })),
       superseded: versions.filter((v) => v.state === 'superseded').map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
-    }]
+    }
   })
-  const start = (o.page - 1) * o.pageSize
-  return { items: items.slice(start, start + o.pageSize), total: items.length, page: o.page, pageSize: o.pageSize }
+  return { items, total: systems.total, page: o.page, pageSize: o.pageSize }
 }
 
 /** The activity model to compute with: the fit asked for, else the recommended one. */
