@@ -94,7 +94,7 @@ export async function nextCompositions(db: Db, user: SessionUser, id: string, fi
 }
 
 /** A pure-component comparison, saying where the boiling point came from. */
-export type SourcedCheck = Omit<PureComponentCheck, 'index'> & { source: 'point'; pointId: string } | Omit<PureComponentCheck, 'index'> & { source: 'pure-measurement'; measurementId: string }
+export type SourcedCheck = Omit<PureComponentCheck, 'index'> & ({ source: 'point'; pointId: string } | { source: 'pure-measurement'; measurementId: string })
 
 /**
  * Measured pure-component boiling points against the vapour-pressure sets the data set computes with:
