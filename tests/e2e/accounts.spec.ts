@@ -68,6 +68,7 @@ test('a wrong password gets a message that does not reveal whether the account e
   await page.getByRole('button', { name: 'Sign in' }).click()
   await expect(page.getByTestId('form-error')).toHaveText('The e-mail address or password is not correct, or the account is not active.')
   await page.getByRole('link', { name: 'Forgotten your password?' }).click()
+  await expect(page.getByRole('heading', { name: 'Forgotten password' })).toBeVisible()
   await page.getByLabel('E-mail address').fill(DEMO.reviewer)
   await page.getByRole('button', { name: 'Send the link' }).click()
   await expect(page.getByText('If this address belongs to an account')).toBeVisible()
