@@ -4,6 +4,7 @@
  * azeotropes. Systems and tables are tabulated once and interpolated with a monotone cubic, so a design
  * run costs one table of bubble points however many stages it steps.
  */
+import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { ThermoError } from '../errors.js'
 import { bubbleTemperature } from '../equilibrium/index.js'
 import type { BinarySystem } from '../types.js'
@@ -145,7 +146,9 @@ function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
   }
   const names = system.names ? `${system.names[0]}–${system.names[1]}, ` : ''
   const curve = tabulatedCurve('system', xs, ys, Ts, `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ideal vapour`)
-  curve.warnings.push(...warnings)
+  // One line per component for the whole temperature span, not one per tabulated node.
+  const pointwise = [...warnings].filter((w) => !w.includes('outside the range of its vapour-pressure correlation'))
+  curve.warnings.push(...pointwise, ...spanWarnings(system.vaporPressure, Math.min(...Ts), Math.max(...Ts), system.names))
   return curve
 }
 
