@@ -29,6 +29,29 @@ describe('sign-in', () => {
     expect(await t.db.selectFrom('user_session').selectAll().where('user_id', '=', me.body.user.id).execute()).toHaveLength(1)
   })
 
+  it('ends sessions after the idle timeout and after the absolute lifetime', async () => {
+    const idle = await signedInAgent(t.app, 'ana@lab.test')
+    await t.db.updateTable('user_session').set({ expires_at: new Date(Date.now() - 1000) }).execute()
+    expect((await idle.get('/api/auth/me')).status).toBe(401)
+
+    const old = await signedInAgent(t.app, 'ana@lab.test')
+    const hours = t.config.sessionAbsoluteHours + 1
+    await t.db.updateTable('user_session').set({ created_at: new Date(Date.now() - hours * 3.6e6) }).execute()
+    expect((await old.get('/api/auth/me')).status).toBe(401)
+    expect(await t.db.selectFrom('user_session').selectAll().execute()).toHaveLength(0)
+  })
+
+  it('marks the cookie Secure when the app is served over https', async () => {
+    const https = await createTestContext({ PUBLIC_URL: 'https://vle.lab.example' })
+    try {
+      const r = await agent(https.app, 'https://vle.lab.example').post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD })
+      expect(r.status).toBe(200)
+      expect(String(r.headers['set-cookie'])).toMatch(/Secure/)
+    } finally {
+      await https.close()
+    }
+  })
+
   it('gives the same answer for a wrong password and an unknown e-mail', async () => {
     const wrong = await agent(t.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: 'nope' })
     const unknown = await agent(t.app).post('/api/auth/sign-in').send({ email: 'nobody@lab.test', password: 'nope' })
