@@ -85,5 +85,8 @@ describe('my open threads', () => {
     expect(r.status).toBe(200)
     expect(r.body).toMatchObject({ total: 3, page: 1, pageSize: 2 })
     expect(r.body.items.map((c: { body: string }) => c.body)).toEqual(['third', 'second'])
+    // camelCase like every other answer
+    expect(Object.keys(r.body.items[0]).sort()).toEqual(['body', 'createdAt', 'dataSetId', 'id', 'pointId', 'title', 'version'])
+    expect(r.body.items[0]).toMatchObject({ dataSetId: ds.id, pointId: null, title: 'Threads', version: 1 })
   })
 })

@@ -49,9 +49,19 @@ export async function countOpenThreads(db: Db, dataSetId: string): Promise<numbe
   return r.n
 }
 
-/** Open threads anywhere that the user started or replied to ("my open threads"). */
+/** One of "my open threads": a root comment with the data set version it belongs to (createdAt as stored). */
+export interface OpenThreadRecord {
+  id: string
+  dataSetId: string
+  pointId: string | null
+  body: string
+  createdAt: Date
+  title: string
+  version: number
+}
+
 /** Open threads the user started or replied to, newest first, one page (`limit`, `offset`). */
-export async function listOpenThreadsOf(db: Db, userId: string, page: { limit: number; offset: number } = { limit: 1000, offset: 0 }) {
+export async function listOpenThreadsOf(db: Db, userId: string, page: { limit: number; offset: number } = { limit: 1000, offset: 0 }): Promise<{ items: OpenThreadRecord[]; total: number }> {
   const q = db.selectFrom('comment as c').innerJoin('data_set as d', 'd.id', 'c.data_set_id')
     .where('c.parent_id', 'is', null).where('c.resolved', '=', false)
     .where((eb) => eb.or([
@@ -59,7 +69,9 @@ export async function listOpenThreadsOf(db: Db, userId: string, page: { limit: n
       eb.exists(eb.selectFrom('comment as r').select('r.id').whereRef('r.parent_id', '=', 'c.id').where('r.author_id', '=', userId)),
     ]))
   const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const items = await q.select(['c.id', 'c.data_set_id', 'c.point_id', 'c.body', 'c.created_at', 'd.title', 'd.version'])
+  const rows = await q.select(['c.id', 'c.data_set_id', 'c.point_id', 'c.body', 'c.created_at', 'd.title', 'd.version'])
     .orderBy('c.created_at', 'desc').orderBy('c.id').limit(page.limit).offset(page.offset).execute()
+  // Mapped to camelCase like every other route's answer.
+  const items = rows.map((r) => ({ id: r.id, dataSetId: r.data_set_id, pointId: r.point_id, body: r.body, createdAt: r.created_at, title: r.title, version: r.version }))
   return { items, total: Number(total.n) }
 }

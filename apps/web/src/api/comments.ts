@@ -15,13 +15,13 @@ export interface CommentItem {
   createdAt: string
 }
 
-/** An open thread somewhere that the signed-in person started or replied to (the server sends its columns as stored). */
+/** An open thread somewhere that the signed-in person started or replied to. */
 export interface MyThread {
   id: string
-  data_set_id: string
-  point_id: string | null
+  dataSetId: string
+  pointId: string | null
   body: string
-  created_at: string
+  createdAt: string
   title: string
   version: number
 }
