@@ -90,3 +90,21 @@ describe('my open threads', () => {
     expect(r.body.items[0]).toMatchObject({ dataSetId: ds.id, pointId: null, title: 'Threads', version: 1 })
   })
 })
+
+describe('data sets by date', () => {
+  it('filters by creation and by last change, server-side, the end exclusive', async () => {
+    const make = async (title: string) => (await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title, nominalPressurePa: 101325 }).expect(201)).body
+    const old = await make('Dated: made in March, changed in May')
+    const fresh = await make('Dated: made and changed today')
+    await t.db.updateTable('data_set').set({ created_at: new Date('2026-03-10T09:00:00Z'), updated_at: new Date('2026-05-02T09:00:00Z') }).where('id', '=', old.id).execute()
+    const titles = async (query: Record<string, string>) =>
+      (await lab.analyst.get('/api/data-sets').query({ q: 'Dated', sort: 'title', order: 'asc', ...query }).expect(200)).body.items.map((d: { title: string }) => d.title)
+    expect(await titles({ createdAfter: '2026-03-01', createdBefore: '2026-04-01' })).toEqual([old.title])
+    expect(await titles({ updatedAfter: '2026-05-01', updatedBefore: '2026-05-03' })).toEqual([old.title])
+    expect(await titles({ updatedBefore: '2026-05-02T09:00:00Z' })).toEqual([])
+    expect(await titles({ createdAfter: '2026-04-01' })).toEqual([fresh.title])
+    const bad = await lab.analyst.get('/api/data-sets').query({ updatedAfter: '2026-05-03', updatedBefore: '2026-05-01' })
+    expect(bad.status).toBe(422)
+    expect(bad.body.error.details).toEqual(expect.arrayContaining([expect.objectContaining({ message: 'The changed range must end after it starts' })]))
+  })
+})

@@ -39,8 +39,12 @@ export interface DataSetQuery {
   q?: string
   pressureMinPa?: number
   pressureMaxPa?: number
+  /** created at or after (inclusive) / before (exclusive) */
   createdAfter?: Date
   createdBefore?: Date
+  /** last changed at or after (inclusive) / before (exclusive) */
+  updatedAfter?: Date
+  updatedBefore?: Date
   sort: 'created_at' | 'updated_at' | 'nominal_pressure_pa' | 'state' | 'title' | 'submitted_at'
   order: 'asc' | 'desc'
   limit: number
@@ -68,6 +72,8 @@ export async function listDataSets(db: Db, o: DataSetQuery): Promise<{ items: Da
   if (o.pressureMaxPa !== undefined) q = q.where('d.nominal_pressure_pa', '<=', o.pressureMaxPa)
   if (o.createdAfter) q = q.where('d.created_at', '>=', o.createdAfter)
   if (o.createdBefore) q = q.where('d.created_at', '<', o.createdBefore)
+  if (o.updatedAfter) q = q.where('d.updated_at', '>=', o.updatedAfter)
+  if (o.updatedBefore) q = q.where('d.updated_at', '<', o.updatedBefore)
   if (o.q) {
     const like = `%${o.q}%`
     q = q.where((eb) => eb.or([eb('d.title', 'ilike', like), eb('d.project_ref', 'ilike', like), eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like)]))

@@ -64,9 +64,13 @@ export const dataSetQuery = z.object({
   pressureMaxPa: z.coerce.number().positive().optional(),
   createdAfter: z.coerce.date().optional(),
   createdBefore: z.coerce.date().optional(),
+  /** last change (any content or state change bumps updated_at) */
+  updatedAfter: z.coerce.date().optional(),
+  updatedBefore: z.coerce.date().optional(),
   sort: z.enum(['created_at', 'updated_at', 'nominal_pressure_pa', 'state', 'title', 'submitted_at']).default('updated_at'),
   ...pageQuery,
-})
+}).refine((q) => !(q.createdAfter && q.createdBefore && q.createdAfter >= q.createdBefore), { message: 'The created range must end after it starts', path: ['createdBefore'] })
+  .refine((q) => !(q.updatedAfter && q.updatedBefore && q.updatedAfter >= q.updatedBefore), { message: 'The changed range must end after it starts', path: ['updatedBefore'] })
 export const pointParams = z.object({ id: uuid('data set'), pointId: uuid('point') })
 export const commentParams = z.object({ id: uuid('data set'), commentId: uuid('comment') })
 

@@ -38,6 +38,8 @@ export interface ListOptions {
   pressureMaxPa?: number
   createdAfter?: Date
   createdBefore?: Date
+  updatedAfter?: Date
+  updatedBefore?: Date
   sort: repo.DataSetQuery['sort']
   order: 'asc' | 'desc'
   page: number

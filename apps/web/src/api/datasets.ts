@@ -164,8 +164,11 @@ export interface DataSetListQuery {
   createdBy?: string
   pressureMinPa?: number
   pressureMaxPa?: number
-  from?: string
-  to?: string
+  /** ISO instants: created or last changed at or after …After, before …Before (exclusive) */
+  createdAfter?: string
+  createdBefore?: string
+  updatedAfter?: string
+  updatedBefore?: string
   sort?: string
   order?: 'asc' | 'desc'
   limit: number
