@@ -150,6 +150,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   // SVNA 7th ed. Table B.2: acetone A = 14.3145, B = 2756.22, C = 228.060 (ln, kPa, °C).
   expect(p.vaporPressure[0]).toMatchObject({ kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
   expect(p.vaporPressure[0].source).toContain('Table B.2')
+  expect(p.vaporPressure.map((v: { component: unknown }) => v.component)).toEqual([{ index: 1, name: 'acetone', cas: '67-64-1' }, { index: 2, name: 'methanol', cas: '67-56-1' }])
   const recommended = p.fits.find((f: { recommended: boolean }) => f.recommended)
   expect(recommended.model).toBe('wilson')
   expect(recommended.id).toBe(p.recommendedFitId)
@@ -158,6 +159,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
 
   const csv = await download(page, 'download-parameters-csv')
   const lines = csv.text.trim().split('\n')
-  expect(lines[0]).toBe('fit_id,model,recommended,parameter,value,standard_error,unit')
+  expect(lines[0]).toBe('fit_id,model,recommended,parameter,value,standard_error,unit,component,component_name,cas')
   expect(lines.some((l) => l.includes(`${recommended.id},wilson,true,a12,`))).toBe(true)
+  expect(lines).toContain(',vapour-pressure/antoine,,A,14.3145,,,1,acetone,67-64-1')
 })

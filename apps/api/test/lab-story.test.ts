@@ -95,7 +95,7 @@ describe('the lab story, end to end', () => {
     expect(params.body.recommendedFitId).toBe(wilson.id)
     expect(params.body.approval.digest).toBe(approved.body.digest)
     const paramsCsv = await a.jonas.get(`/api/data-sets/${ds.body.id}/export/parameters.csv`).expect(200)
-    expect(paramsCsv.text.split('\n')[0]).toBe('fit_id,model,recommended,parameter,value,standard_error,unit')
+    expect(paramsCsv.text.split('\n')[0]).toBe('fit_id,model,recommended,parameter,value,standard_error,unit,component,component_name,cas')
 
     // every mail of the story went through the outbox to the fake SMTP server
     const mail = await t.mail()

@@ -49,8 +49,8 @@ export interface ParametersExport {
     component1: { name: string; cas: string | null; liquidMolarVolume: number | null }
     component2: { name: string; cas: string | null; liquidMolarVolume: number | null }
   }
-  /** thermo VaporPressureModel fields plus `source`. */
-  vaporPressure: (Record<string, unknown> & { kind: string; source: string })[]
+  /** thermo VaporPressureModel fields plus the component they describe (1 = lighter) and `source`. */
+  vaporPressure: (Record<string, unknown> & { kind: string; source: string; component: { index: 1 | 2; name: string; cas: string | null } })[]
   recommendedFitId: string | null
   fits: {
     id: string

@@ -25,7 +25,9 @@ import type { TxyPoint } from '../plots'
 export function systemFromParameters(p: ParametersExport, fitId?: string | null): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
   const fit = p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ?? p.fits.find((f) => f.recommended) ?? p.fits[0]
   if (!fit) throw new Error('This approved data set has no fitted model to compute with.')
-  const vp = p.vaporPressure.map(({ source: _s, ...m }) => m as unknown as VaporPressureModel) as [VaporPressureModel, VaporPressureModel]
+  // the export labels each set with its component; pick by that label (older exports: by position) and hand thermo the model alone
+  const byIndex = (i: 1 | 2) => p.vaporPressure.find((v) => v.component?.index === i) ?? p.vaporPressure[i - 1]
+  const vp = [byIndex(1), byIndex(2)].map(({ source: _s, component: _c, ...m }) => m as unknown as VaporPressureModel) as [VaporPressureModel, VaporPressureModel]
   return { system: { vaporPressure: vp, activity: fit.activity as unknown as ActivityModel, names: [p.system.component1.name, p.system.component2.name] }, fit }
 }
 
