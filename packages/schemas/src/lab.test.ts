@@ -23,6 +23,12 @@ describe('lab request schemas (shared with the API, same messages)', () => {
     expect(issues(fitRequestSchema.safeParse({ models: [] }))).toEqual([['models', 'Choose at least one model']])
   })
 
+  it('keeps NRTL α within (0, 1], fixed or as the start of a fitted α', () => {
+    expect(issues(fitRequestSchema.safeParse({ models: ['nrtl'], alpha: 0 }))).toEqual([['alpha', 'NRTL α must be above 0 and at most 1']])
+    expect(issues(fitRequestSchema.safeParse({ models: ['nrtl'], alpha: 1.2 }))).toEqual([['alpha', 'NRTL α must be above 0 and at most 1']])
+    expect(fitRequestSchema.parse({ models: ['nrtl'], alpha: 0.5081, fitAlpha: true })).toMatchObject({ alpha: 0.5081, fitAlpha: true })
+  })
+
   it('checks a temperature against absolute zero in its own unit', () => {
     expect(temperatureWithUnitSchema.safeParse({ value: -10, unit: 'C' }).success).toBe(true)
     expect(issues(temperatureWithUnitSchema.safeParse({ value: -300, unit: 'C' }))).toEqual([['value', 'Temperature must be above absolute zero']])

@@ -115,11 +115,21 @@ export const exclusionSchema = z.object({
   reason: z.string().trim().max(1000).nullable().optional(),
 }).refine((v) => !v.excluded || (v.reason && v.reason.length > 0), { message: 'Give a reason for excluding this point', path: ['reason'] })
 
-/** POST /api/data-sets/:id/fits. alpha: NRTL non-randomness (default 0.3), fitted too when fitAlpha. */
+/**
+ * NRTL's non-randomness α when none is given: 0.3, the usual choice when nothing better is known
+ * (common practice, no source; tabulated values mostly lie between 0.2 and 0.5).
+ */
+export const DEFAULT_NRTL_ALPHA = 0.3
+const ALPHA_RANGE = 'NRTL α must be above 0 and at most 1'
+/**
+ * POST /api/data-sets/:id/fits. alpha: NRTL non-randomness (dimensionless, default DEFAULT_NRTL_ALPHA), held
+ * fixed, or the starting value when fitAlpha asks for α to be fitted with b12, b21. Wilson takes the
+ * components' liquid molar volumes (cm³/mol) from the component records; nothing to send for it.
+ */
 export const fitRequestSchema = z.object({
   models: z.array(z.enum(FIT_MODELS)).min(1, 'Choose at least one model').max(4),
   objective: z.enum(['bubble-point', 'activity']).default('bubble-point'),
-  alpha: z.number().positive().max(1).optional(),
+  alpha: z.number({ message: 'Enter α as a number' }).gt(0, ALPHA_RANGE).max(1, ALPHA_RANGE).optional(),
   fitAlpha: z.boolean().optional(),
 })
 /** POST /api/data-sets/:id/recommended-fit. */

@@ -7,6 +7,7 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
+import { DEFAULT_NRTL_ALPHA } from '@ebullio/schemas'
 import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
@@ -50,7 +51,8 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
   const inputs = await engineInputs(db, d.systemId)
   const results = req.models.map((model) => {
     const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
-    const nrtl = model === 'nrtl' ? { alpha: req.alpha, fitAlpha: req.fitAlpha } : {}
+    // The α used is stored with the fit, so a default α stays readable after the default changes.
+    const nrtl = model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA, fitAlpha: req.fitAlpha ?? false } : {}
     const options = { model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }
     const r = thermo(`Fitting ${model}`, () => fitBinary({
       ...options, vaporPressure: inputs.vaporPressure,

@@ -183,6 +183,14 @@ export interface NewDataSet {
   projectRef: string | null
 }
 
+/** POST …/fits body: models, NRTL α (dimensionless) held or fitted. */
+export interface FitRequest {
+  models: Exclude<ModelName, 'ideal'>[]
+  objective?: 'bubble-point' | 'activity'
+  alpha?: number
+  fitAlpha?: boolean
+}
+
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
@@ -198,7 +206,7 @@ export const datasetsApi = {
   update: (id: string, body: Partial<NewDataSet> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body),
   exclude: (id: string, pointId: string, rowVersion: number, excluded: boolean, reason: string | null) =>
     api.patch<Point>(`${base}/${id}/points/${pointId}`, { rowVersion, excluded, reason }, { quiet: true }),
-  runFits: (id: string, models: ModelName[]) => api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, { models }, { quiet: true }),
+  runFits: (id: string, req: FitRequest) => api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, req, { quiet: true }),
   recommend: (id: string, fitId: string) => api.post<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
   runConsistency: (id: string, model?: ModelName) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),

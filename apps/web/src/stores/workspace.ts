@@ -1,7 +1,7 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { commentsApi, type CommentItem } from '../api/comments'
-import { datasetsApi, type DataSetDetail, type ModelName, type VaporPressureSet } from '../api/datasets'
+import { datasetsApi, type DataSetDetail, type FitRequest, type ModelName, type VaporPressureSet } from '../api/datasets'
 import { systemsLabApi } from '../api/systems-lab'
 
 /** The preferred (else newest) vapour-pressure set's model, as the server picks it for its own curves. */
@@ -61,8 +61,8 @@ export const useWorkspaceStore = defineStore('workspace', () => {
     await datasetsApi.exclude(ds.value!.id, pointId, ds.value!.rowVersion, excluded, reason)
     await reload()
   }
-  async function runFits(models: ModelName[]) {
-    await datasetsApi.runFits(ds.value!.id, models)
+  async function runFits(req: FitRequest) {
+    await datasetsApi.runFits(ds.value!.id, req)
     await reload()
   }
   async function recommend(fitId: string) {
