@@ -99,4 +99,18 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   await gm.getByRole('button', { name: 'Add method' }).click()
   await expect(gm).toBeHidden()
   await expect(page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' })).toContainText('TCD')
+
+  // Retiring a method asks first, then marks it and explains what that means for its calibrations.
+  await page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' }).click()
+  await page.getByTestId('gc-method-retire').click()
+  const ask = page.getByRole('alertdialog')
+  await expect(ask).toContainText('Retire TCD-C, molecular sieve? It has no active calibration.')
+  await ask.getByRole('button', { name: 'Keep in use' }).click()
+  await expect(page.getByTestId('gc-method-retire')).toBeVisible()
+  await page.getByTestId('gc-method-retire').click()
+  await page.getByRole('alertdialog').getByRole('button', { name: 'Retire method' }).click()
+  await expect(page.getByTestId('gc-retired-note')).toContainText('cannot be made active or used for new uploads')
+  await expect(page.getByTestId('gc-method-retire')).toHaveCount(0)
+  await expect(page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' }).getByTestId('gc-method-retired')).toContainText('Retired')
+  await snapTop(page, 'admin-05-gc-method-retired')
 })

@@ -39,6 +39,7 @@ const expected: Record<string, Access> = {
   'GET /api/systems/:id': 'authenticated',
   'GET /api/gc-methods': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/gc-methods': ['analyst', 'lead_chemist', 'admin'],
+  'POST /api/gc-methods/:id/retire': ['lead_chemist', 'admin'],
   'GET /api/calibrations': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/calibrations/:id': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/calibrations/preview': ['analyst', 'lead_chemist'],

@@ -69,6 +69,10 @@ export interface GcMethodTable {
   conditions: string | null
   created_by: string | null
   created_at: DefaultTimestamp
+  /** 20261201_04: a retired method's calibrations are all retired and no new one can be made active. */
+  status: Generated<'active' | 'retired'>
+  retired_at: Timestamp | null
+  retired_by: string | null
 }
 
 export interface UploadTable {

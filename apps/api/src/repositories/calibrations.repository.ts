@@ -9,6 +9,9 @@ export interface GcMethodRecord {
   columnDescription: string | null
   conditions: string | null
   createdAt: Date
+  /** A retired method keeps its history; none of its calibrations can be active. */
+  status: 'active' | 'retired'
+  retiredAt: Date | null
 }
 
 export interface CalibrationRecord {
@@ -29,6 +32,7 @@ export interface CalibrationRecord {
 
 export const toGcMethod = (m: GcMethod): GcMethodRecord => ({
   id: m.id, name: m.name, detector: m.detector, columnDescription: m.column_description, conditions: m.conditions, createdAt: m.created_at,
+  status: m.status, retiredAt: m.retired_at,
 })
 
 export const toCalibration = (c: Calibration): CalibrationRecord => ({
@@ -43,9 +47,10 @@ export async function listGcMethods(db: Db): Promise<GcMethodRecord[]> {
 }
 
 /** One page of GC methods; `q` matches the name, column description or conditions. */
-export async function listGcMethodsPage(db: Db, f: { q?: string; detector?: 'FID' | 'TCD'; sort: keyof typeof GC_METHOD_SORT; order: 'asc' | 'desc'; limit: number; offset: number }): Promise<{ items: GcMethodRecord[]; total: number }> {
+export async function listGcMethodsPage(db: Db, f: { q?: string; detector?: 'FID' | 'TCD'; status?: 'active' | 'retired'; sort: keyof typeof GC_METHOD_SORT; order: 'asc' | 'desc'; limit: number; offset: number }): Promise<{ items: GcMethodRecord[]; total: number }> {
   let q = db.selectFrom('gc_method')
   if (f.detector) q = q.where('detector', '=', f.detector)
+  if (f.status) q = q.where('status', '=', f.status)
   if (f.q) {
     const like = `%${f.q}%`
     q = q.where((eb) => eb.or([eb('name', 'ilike', like), eb('column_description', 'ilike', like), eb('conditions', 'ilike', like)]))
@@ -65,7 +70,7 @@ export async function findGcMethodByName(db: Db, name: string): Promise<GcMethod
   return r && toGcMethod(r)
 }
 
-export async function insertGcMethod(db: Db, m: Omit<GcMethodRecord, 'id' | 'createdAt'>, by: string): Promise<GcMethodRecord> {
+export async function insertGcMethod(db: Db, m: Omit<GcMethodRecord, 'id' | 'createdAt' | 'status' | 'retiredAt'>, by: string): Promise<GcMethodRecord> {
   const r = await db.insertInto('gc_method').values({
     name: m.name, detector: m.detector, column_description: m.columnDescription, conditions: m.conditions, created_by: by,
   }).returningAll().executeTakeFirstOrThrow()
@@ -143,6 +148,18 @@ export async function retireActive(db: Db, gcMethodId: string, systemId: string)
     .where('gc_method_id', '=', gcMethodId).where('system_id', '=', systemId).where('status', '=', 'active')
     .returning('id').execute()
   return rows.map((r) => r.id)
+}
+
+/** Retire every active calibration of a method (before the method itself: the database insists). */
+export async function retireMethodCalibrations(db: Db, gcMethodId: string): Promise<string[]> {
+  const rows = await db.updateTable('calibration').set({ status: 'retired', retired_at: new Date() })
+    .where('gc_method_id', '=', gcMethodId).where('status', '=', 'active').returning('id').execute()
+  return rows.map((r) => r.id)
+}
+
+export async function retireGcMethod(db: Db, id: string, by: string): Promise<GcMethodRecord> {
+  const r = await db.updateTable('gc_method').set({ status: 'retired', retired_at: new Date(), retired_by: by }).where('id', '=', id).returningAll().executeTakeFirstOrThrow()
+  return toGcMethod(r)
 }
 
 export async function retireCalibration(db: Db, id: string): Promise<void> {

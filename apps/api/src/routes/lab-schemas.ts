@@ -38,6 +38,7 @@ export const calibrationQuery = z.object({
 export const gcMethodQuery = z.object({
   q: z.string().trim().max(100).optional(),
   detector: z.enum(['FID', 'TCD']).optional(),
+  status: z.enum(['active', 'retired']).optional(),
   sort: z.enum(['name', 'detector', 'created_at']).default('name'),
   ...widePage,
   order: z.enum(['asc', 'desc']).default('asc'),

@@ -15,6 +15,7 @@ import { parseBody, parseParams, parseQuery } from './validate.js'
 const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
 const systemParams = z.object({ id: uuid('system') })
 const calibrationParams = z.object({ id: uuid('calibration') })
+const gcMethodParams = z.object({ id: uuid('GC method') })
 
 export const systemRoutes = defineRoutes([
   {
@@ -49,6 +50,13 @@ export const systemRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await calibrations.createGcMethod(db, user.id, parseBody(gcMethodSchema, req)))
+    },
+  },
+  {
+    method: 'post', path: '/api/gc-methods/:id/retire', access: ['lead_chemist', 'admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.json(await calibrations.retireGcMethod(db, user.id, parseParams(gcMethodParams, req).id))
     },
   },
   {

@@ -12,7 +12,10 @@ import { translateDbError } from './lab-access.js'
 import { getSystem } from './systems.service.js'
 import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
 
-export async function createGcMethod(db: Db, actorId: string, m: Omit<repo.GcMethodRecord, 'id' | 'createdAt'>): Promise<repo.GcMethodRecord> {
+/** Refusal for a retired method's calibrations (asserted word for word in the tests). */
+export const RETIRED_METHOD_MESSAGE = 'This GC method is retired: its calibrations cannot be made active or used for new uploads.'
+
+export async function createGcMethod(db: Db, actorId: string, m: Omit<repo.GcMethodRecord, 'id' | 'createdAt' | 'status' | 'retiredAt'>): Promise<repo.GcMethodRecord> {
   try {
     const method = await repo.insertGcMethod(db, m, actorId)
     await appendAudit(db, { actorId, entity: 'gc_method', entityId: method.id, action: 'create', after: m })
@@ -41,7 +44,9 @@ export interface CalibrationRequest {
 
 /** Parse and fit a calibration sheet without storing anything. */
 export async function previewCalibration(db: Db, req: CalibrationRequest, file: UploadedFile): Promise<CalibrationPreview> {
-  if (!(await repo.findGcMethod(db, req.gcMethodId))) throw notFound('There is no such GC method.')
+  const method = await repo.findGcMethod(db, req.gcMethodId)
+  if (!method) throw notFound('There is no such GC method.')
+  if (method.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
   const system = await getSystem(db, req.systemId)
   const parsed = parseCalibrationFile(file.content)
   const problems = [...parsed.problems]
@@ -72,6 +77,9 @@ export async function commitCalibration(db: Kysely<Database>, actorId: string, r
   assertCommittable(preview.problems, acceptWarnings)
   const cal = preview.calibration!
   return db.transaction().execute(async (tx) => {
+    // the method may have been retired since the preview above; the row lock makes the check and the insert one step
+    const locked = await tx.selectFrom('gc_method').select('status').where('id', '=', req.gcMethodId).forUpdate().executeTakeFirst()
+    if (locked?.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
     const upload = await insertUpload(tx, { kind: 'calibration', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: actorId, dataSetId: null })
     const retired = await repo.retireActive(tx, req.gcMethodId, req.systemId)
     const record = await repo.insertCalibration(tx, {
@@ -97,4 +105,21 @@ export async function retireCalibration(db: Db, actorId: string, id: string): Pr
   if (c.status === 'retired') throw conflict('This calibration is already retired.')
   await repo.retireCalibration(db, id)
   await appendAudit(db, { actorId, entity: 'calibration', entityId: id, action: 'retire' })
+}
+
+/**
+ * Retire a GC method: its active calibrations are retired with it (one transaction, each audited), so no
+ * new upload can use them; the calibrations and the points computed with them stay for the record.
+ */
+export async function retireGcMethod(db: Kysely<Database>, actorId: string, id: string): Promise<repo.GcMethodRecord> {
+  return db.transaction().execute(async (tx) => {
+    const m = await tx.selectFrom('gc_method').select(['id', 'status']).where('id', '=', id).forUpdate().executeTakeFirst()
+    if (!m) throw notFound('There is no such GC method.')
+    if (m.status === 'retired') throw conflict('This GC method is already retired.')
+    const calibrationIds = await repo.retireMethodCalibrations(tx, id)
+    for (const c of calibrationIds) await appendAudit(tx, { actorId, entity: 'calibration', entityId: c, action: 'retire', after: { reason: 'GC method retired' } })
+    const method = await repo.retireGcMethod(tx, id, actorId)
+    await appendAudit(tx, { actorId, entity: 'gc_method', entityId: id, action: 'retire', after: { retiredCalibrations: calibrationIds.length } })
+    return method
+  })
 }

@@ -6,7 +6,8 @@ import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
-import { findCalibration, listCalibrations, type CalibrationRecord } from '../repositories/calibrations.repository.js'
+import { findCalibration, findGcMethod, listCalibrations, type CalibrationRecord } from '../repositories/calibrations.repository.js'
+import { RETIRED_METHOD_MESSAGE } from './calibrations.service.js'
 import * as datasets from '../repositories/datasets.repository.js'
 import { insertPoints, nextSeq } from '../repositories/points.repository.js'
 import { findUploadContent, insertUpload } from '../repositories/uploads.repository.js'
@@ -48,6 +49,7 @@ async function chooseCalibration(db: Db, systemId: string, calibrationId: string
     const c = await findCalibration(db, calibrationId)
     if (!c) throw notFound('There is no such calibration.')
     if (c.systemId !== systemId) throw conflict('This calibration belongs to another binary system.')
+    if ((await findGcMethod(db, c.gcMethodId))?.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
     if (c.status !== 'active') throw conflict('This calibration is retired; choose the active one.')
     return c
   }

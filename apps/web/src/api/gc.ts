@@ -8,6 +8,9 @@ export interface GcMethod {
   columnDescription: string | null
   conditions: string | null
   createdAt: string
+  /** A retired method's calibrations are retired with it and cannot be used for new uploads. */
+  status: 'active' | 'retired'
+  retiredAt: string | null
 }
 
 /** thermo's fitted Calibration as stored (subset the screens read). */
@@ -64,6 +67,8 @@ export const gcApi = {
     api.get<{ items: Calibration[] }>('/api/calibrations' + query(f)),
   calibration: (id: string) => api.get<Calibration & { standards: CalibrationStandard[] }>(`/api/calibrations/${id}`),
   retire: (id: string) => api.post<{ ok: true }>(`/api/calibrations/${id}/retire`),
+  /** Retire a GC method and, with it, its active calibrations. */
+  retireMethod: (id: string) => api.post<GcMethod>(`/api/gc-methods/${encodeURIComponent(id)}/retire`),
   /** System names for the calibration table (first 200 systems). */
   systems: () => api.get<{ items: { id: string; name: string }[] }>('/api/systems' + query({ page: 1, pageSize: 200 })),
   /** The uploaded calibration file as received (server names it). */

@@ -32,5 +32,10 @@ export const useGcStore = defineStore('gc', () => {
     await gcApi.retire(id)
     calibrations.value = (await gcApi.calibrations()).items
   }
-  return { methods, calibrations, systemNames, loading, error, load, createMethod, retire }
+  /** Retire a method; its calibrations are retired with it, so both lists are read again. */
+  async function retireMethod(id: string) {
+    await gcApi.retireMethod(id)
+    await load()
+  }
+  return { methods, calibrations, systemNames, loading, error, load, createMethod, retire, retireMethod }
 })
