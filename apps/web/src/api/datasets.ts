@@ -191,6 +191,54 @@ export interface FitRequest {
   fitAlpha?: boolean
 }
 
+/** A fit's T–x–y curve with its ±2σ band at P (Pa): T in K, compositions as mole fractions of component 1. */
+export interface FitBand {
+  fitId: string
+  model: ModelName
+  P: number
+  x1: number[]
+  T: number[]
+  y1: number[]
+  sigmaT: number[]
+  sigmaY: number[]
+  Tlow: number[]
+  Thigh: number[]
+  ylow: number[]
+  yhigh: number[]
+  warnings: string[]
+  /** what the band means, from the server */
+  note: string
+}
+
+/** A liquid composition to measure next, with its bubble T (K), predicted y1 and σy there before measuring. */
+export interface SuggestedComposition {
+  x1: number
+  T: number
+  y1: number
+  sigmaY: number
+}
+
+/** One pure-component boiling point compared with the vapour-pressure set: T, Tmodel, dT in K, P in Pa. */
+export interface PureCheck {
+  component: 1 | 2
+  T: number
+  P: number
+  Tmodel: number
+  dT: number
+  passed: boolean
+  source: 'point' | 'pure-measurement'
+  pointId?: string
+  measurementId?: string
+}
+
+export interface PureCheckResult {
+  toleranceK: number
+  passed: boolean
+  checks: PureCheck[]
+  warnings: string[]
+  components: [string, string]
+}
+
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
@@ -211,6 +259,10 @@ export const datasetsApi = {
   runConsistency: (id: string, model?: ModelName) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
+  band: (id: string, fitId: string) => api.get<FitBand>(`${base}/${id}/fits/${fitId}/band`, { quiet: true }),
+  nextCompositions: (id: string, fitId: string, count = 5) =>
+    api.get<{ items: SuggestedComposition[]; P: number }>(`${base}/${id}/fits/${fitId}/next-compositions` + query({ count }), { quiet: true }),
+  pureComponentCheck: (id: string) => api.get<PureCheckResult>(`${base}/${id}/pure-component-check`, { quiet: true }),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
   audit: (id: string) => api.get<{ items: AuditEntry[] }>(`${base}/${id}/audit`),
   uploadUrl: (uploadId: string) => `/api/uploads/${uploadId}/content`,

@@ -33,6 +33,24 @@ export interface TxyCurve {
   hidden?: boolean
 }
 
+/** A fitted curve's ±2σ band (thermo's predictionBand): T, Tlow, Thigh in K at each liquid x1; ylow, yhigh the dew side. */
+export interface TxyBand {
+  name: string
+  x1: number[]
+  T: number[]
+  Tlow: number[]
+  Thigh: number[]
+  ylow: number[]
+  yhigh: number[]
+}
+
+/** A liquid composition suggested for the next measurement, with its bubble T (K) and σy before measuring. */
+export interface TxySuggestion {
+  x1: number
+  T: number
+  sigmaY: number
+}
+
 /** Pure-component boiling points at the plot's pressure, K (component 1 at x1 = 1, component 2 at x1 = 0). */
 export interface PureBoiling {
   T1: number

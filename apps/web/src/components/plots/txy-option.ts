@@ -1,7 +1,8 @@
 /** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
+import { bandSeries, suggestionSeries } from './band-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, showT, tLabel, valueAxis, VAPOUR, WARN } from './plot-style'
-import type { AzeotropeMark, PureBoiling, TemperatureUnit, TxyCurve, TxyPoint } from './plot-types'
+import type { AzeotropeMark, PureBoiling, TemperatureUnit, TxyBand, TxyCurve, TxyPoint, TxySuggestion } from './plot-types'
 
 /** Inputs of `txyOption`; see TxyPlot.vue for what each means. */
 export interface TxyOptionInput {
@@ -14,6 +15,10 @@ export interface TxyOptionInput {
   names: [string, string]
   /** Error bars are ±k·u; k = 1 shows the standard uncertainty. */
   k: number
+  /** ±2σ band of one fitted curve, drawn behind it */
+  band?: TxyBand | null
+  /** liquid compositions to measure next, marked on the composition axis (best first) */
+  suggested?: TxySuggestion[] | null
 }
 
 export const LIQUID_NAME = 'Liquid x₁'
@@ -106,6 +111,17 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
   return out
 }
 
+/** The band takes the colour of its curve when that curve is drawn; the marks are amber like the azeotrope. */
+function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
+  const out: Record<string, unknown>[] = []
+  if (o.band) {
+    const i = o.curves.findIndex((c) => c.name === o.band!.name)
+    out.push(...bandSeries(o.band, o.unit, CURVE_COLOURS[(i < 0 ? 0 : i) % CURVE_COLOURS.length]))
+  }
+  if (o.suggested?.length) out.push(suggestionSeries(o.suggested, o.unit, '#c98a12'))
+  return out
+}
+
 /** Build the whole option. */
 export function txyOption(o: TxyOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
@@ -123,6 +139,6 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
     yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),
-    series: [...curveSeries(o), ...measuredSeries(o), ...markerSeries(o)],
+    series: [...extraSeries(o), ...curveSeries(o), ...measuredSeries(o), ...markerSeries(o)],
   }
 }
