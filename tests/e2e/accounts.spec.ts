@@ -19,6 +19,14 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
   await expect(page.getByRole('cell', { name: email })).toBeVisible()
   await expect(dialog).toBeHidden()
   await shot(page, 'admin-people')
+  // The list is searched on the server: the new colleague alone, then an empty search result.
+  await page.getByTestId('people-search').fill('noor haddad')
+  await expect(page.getByTestId('people-table').locator('tbody tr')).toHaveCount(1)
+  await expect(page.getByRole('cell', { name: email })).toBeVisible()
+  await page.getByTestId('people-search').fill('nobody-by-this-name')
+  await expect(page.getByTestId('people-table')).toContainText('Nobody matches this search.')
+  await page.getByTestId('people-search').fill('')
+  await expect(page.getByRole('cell', { name: email })).toBeVisible()
 
   const body = await waitForMail(email, /invited/)
   await nav(page).getByRole('link', { name: 'Captured mail' }).click()

@@ -1,4 +1,5 @@
 import type { Role } from '@ebullio/schemas'
+import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 
 export interface UserRecord {
@@ -20,19 +21,47 @@ export async function findUserById(db: Db, id: string) {
   return db.selectFrom('app_user').selectAll().where('id', '=', id).executeTakeFirst()
 }
 
-export async function listUsers(db: Db): Promise<UserRecord[]> {
-  const users = await db.selectFrom('app_user').selectAll().orderBy('display_name').execute()
-  const roles = await db.selectFrom('user_role').selectAll().execute()
-  return users.map((u) => ({
-    id: u.id,
-    email: u.email,
-    displayName: u.display_name,
-    active: u.active,
-    notifyMail: u.notify_mail,
-    invitePending: u.password_hash === null,
-    roles: roles.filter((r) => r.user_id === u.id).map((r) => r.role as Role),
-    createdAt: u.created_at,
-  }))
+/** Filters of the admin people list; `q` matches name or e-mail (case-insensitive). */
+export interface UserListFilter {
+  q?: string
+  role?: Role
+  /** `active` = can sign in (password set), `invited` = invitation not yet accepted, `deactivated`. */
+  status?: 'active' | 'invited' | 'deactivated'
+  sort: 'name' | 'email' | 'created_at'
+  order: 'asc' | 'desc'
+  limit: number
+  offset: number
+}
+
+const USER_SORT = { name: 'display_name', email: 'email', created_at: 'created_at' } as const
+
+/** One page of accounts with their roles, and how many match the filter in all. */
+export async function listUsersPage(db: Db, f: UserListFilter): Promise<{ items: UserRecord[]; total: number }> {
+  let q = db.selectFrom('app_user')
+  if (f.q) {
+    const like = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
+    q = q.where((eb) => eb.or([eb('display_name', 'ilike', like), eb('email', 'ilike', like)]))
+  }
+  if (f.role) q = q.where('id', 'in', db.selectFrom('user_role').select('user_id').where('role', '=', f.role))
+  if (f.status === 'deactivated') q = q.where('active', '=', false)
+  if (f.status === 'invited') q = q.where('active', '=', true).where('password_hash', 'is', null)
+  if (f.status === 'active') q = q.where('active', '=', true).where('password_hash', 'is not', null)
+  const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
+  const users = await q.selectAll().orderBy(USER_SORT[f.sort], f.order).orderBy('display_name').orderBy('id').limit(f.limit).offset(f.offset).execute()
+  const roles = users.length ? await db.selectFrom('user_role').selectAll().where('user_id', 'in', users.map((u) => u.id)).execute() : []
+  return {
+    total: Number(total.n),
+    items: users.map((u) => ({
+      id: u.id,
+      email: u.email,
+      displayName: u.display_name,
+      active: u.active,
+      notifyMail: u.notify_mail,
+      invitePending: u.password_hash === null,
+      roles: roles.filter((r) => r.user_id === u.id).map((r) => r.role as Role),
+      createdAt: u.created_at,
+    })),
+  }
 }
 
 export async function setRoles(db: Db, userId: string, roles: Role[]): Promise<void> {

@@ -1,13 +1,24 @@
-import { inviteSchema, setRolesSchema } from '@ebullio/schemas'
+import { inviteSchema, ROLES, setRolesSchema } from '@ebullio/schemas'
 import { z } from 'zod'
 import { ctx } from '../context.js'
 import { notFound } from '../errors/index.js'
-import { listUsers } from '../repositories/users.repository.js'
+import { listUsersPage } from '../repositories/users.repository.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
-import { parseBody, parseParams } from './validate.js'
+import { parseBody, parseParams, parseQuery } from './validate.js'
 
 const idParams = z.object({ id: z.string().uuid('Not a user id') })
+
+/** People list query; 100 a page by default so a caller that does not page still gets a lab's accounts. */
+const userQuery = z.object({
+  q: z.string().trim().max(100).optional(),
+  role: z.enum(ROLES).optional(),
+  status: z.enum(['active', 'invited', 'deactivated']).optional(),
+  sort: z.enum(['name', 'email', 'created_at']).default('name'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(100),
+})
 
 export const adminRoutes = defineRoutes([
   {
@@ -15,7 +26,8 @@ export const adminRoutes = defineRoutes([
     path: '/api/admin/users',
     access: ['admin'],
     handler: async (req, res) => {
-      res.json({ items: await listUsers(ctx(req).db) })
+      const { page, pageSize, ...f } = parseQuery(userQuery, req)
+      res.json({ ...(await listUsersPage(ctx(req).db, { ...f, limit: pageSize, offset: (page - 1) * pageSize })), page, pageSize })
     },
   },
   {

@@ -1,5 +1,5 @@
 import type { Role } from '@ebullio/schemas'
-import { api } from './client'
+import { api, query } from './client'
 
 export interface UserRow {
   id: string
@@ -9,6 +9,17 @@ export interface UserRow {
   invitePending: boolean
   roles: Role[]
   createdAt: string
+}
+
+/** Query of the people list (server-side paging, search on name or e-mail). */
+export interface UserQuery {
+  q?: string
+  role?: Role
+  status?: 'active' | 'invited' | 'deactivated'
+  sort?: 'name' | 'email' | 'created_at'
+  order?: 'asc' | 'desc'
+  page?: number
+  pageSize?: number
 }
 
 export interface CapturedMail {
@@ -21,7 +32,7 @@ export interface CapturedMail {
 }
 
 export const adminApi = {
-  users: () => api.get<{ items: UserRow[] }>('/api/admin/users'),
+  users: (q: UserQuery = {}) => api.get<{ items: UserRow[]; total: number; page: number; pageSize: number }>('/api/admin/users' + query({ ...q })),
   invite: (body: { email: string; displayName: string; roles: Role[] }) => api.post<{ id: string }>('/api/admin/users', body, { quiet: true }),
   setRoles: (id: string, roles: Role[]) => api.put<{ ok: true }>(`/api/admin/users/${id}/roles`, { roles }),
   deactivate: (id: string) => api.post<{ ok: true }>(`/api/admin/users/${id}/deactivate`),
