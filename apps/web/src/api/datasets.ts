@@ -251,7 +251,7 @@ export const datasetsApi = {
     api.get<{ items: DataSetListItem[]; total: number }>(base + query({ ...q, page: Math.floor(offset / limit) + 1, pageSize: limit })),
   create: (body: NewDataSet) => api.post<DataSet>(base, body, { quiet: true }),
   get: getDetail,
-  update: (id: string, body: Partial<NewDataSet> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body),
+  update: (id: string, body: Partial<Omit<NewDataSet, 'systemId'>> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body, { quiet: true }),
   exclude: (id: string, pointId: string, rowVersion: number, excluded: boolean, reason: string | null) =>
     api.patch<Point>(`${base}/${id}/points/${pointId}`, { rowVersion, excluded, reason }, { quiet: true }),
   runFits: (id: string, req: FitRequest) => api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, req, { quiet: true }),
