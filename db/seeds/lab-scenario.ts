@@ -1,7 +1,9 @@
 /**
- * The demo's data sets, one per workflow state (INVENTED measurements, generated from published
- * parameters): approved, submitted with comments, returned with a signed reason, superseded by a
- * revised approved version, and an open draft. Each is skipped when a data set with its title exists.
+ * The demo's data sets, one or more per workflow state (INVENTED measurements, generated from published
+ * parameters plus simulated GC noise): approved, submitted with comments (three submitted series, so the
+ * lead chemist's, the reviewer's and the rework browser journeys each have their own), returned with a
+ * signed reason, superseded by a revised approved version, and an open draft. Each is skipped when a data
+ * set with its title exists.
  */
 import type { SessionUser } from '../../apps/api/src/auth/index.js'
 import * as comments from '../../apps/api/src/services/comments.service.js'
@@ -54,6 +56,27 @@ async function safeConsistency(ctx: SeedContext, id: string, model: FitModelName
 
 const sign = (ctx: SeedContext, reason: string, rowVersion: number) => ({ password: DEMO_PASSWORD, reason, rowVersion })
 
+/**
+ * Two more submitted series (INVENTED points from the SVNA 7th ed. Table 12.5 parameters in demo-systems.ts,
+ * plus GC noise): methanol/water with a reviewer's question, and a second acetone/methanol campaign.
+ */
+async function moreSubmitted(ctx: SeedContext): Promise<void> {
+  const { users } = ctx
+  const wash = 'Kestrel wash water: methanol/water at 1 atm'
+  if (!(await exists(ctx, wash))) {
+    const d = await draftWithRun(ctx, 'methanol-water', { title: wash, project: 'KES-2026-03', samples: 10, seed: 61, prefix: 'WW', notes: 'Still no. 2; water by TCD.' })
+    const run = await fits.runFits(ctx.db, users.analyst, d.id, { models: ['nrtl', 'wilson'] })
+    await workflow.submit(ctx.db, ctx.config, users.analyst, d.id, run.rowVersion)
+    await comments.addComment(ctx.db, ctx.config, users.reviewer, d.id, { body: 'Which TCD calibration was used for water? Please name it in the apparatus notes.' })
+  }
+  const repeat = 'Kestrel recycle repeat: acetone/methanol at 1 atm'
+  if (!(await exists(ctx, repeat))) {
+    const d = await draftWithRun(ctx, 'acetone-methanol', { title: repeat, project: 'KES-2026-03', samples: 8, seed: 71, prefix: 'KR', notes: 'Still no. 1, second campaign.' })
+    const run = await fits.runFits(ctx.db, users.analyst, d.id, { models: ['wilson', 'nrtl'] })
+    await workflow.submit(ctx.db, ctx.config, users.analyst, d.id, run.rowVersion)
+  }
+}
+
 export async function scenarioDataSets(ctx: SeedContext): Promise<void> {
   const { users } = ctx
   // approved: acetone/methanol, minimum-boiling azeotrope
@@ -73,6 +96,7 @@ export async function scenarioDataSets(ctx: SeedContext): Promise<void> {
     await comments.addComment(ctx.db, ctx.config, users.analyst, d.id, { body: 'Mixed by hand; I will re-inject the retained sample.', parentId: c.id })
     await comments.addComment(ctx.db, ctx.config, users.reviewer, d.id, { body: 'Please add the barometer calibration date to the apparatus notes.' })
   }
+  await moreSubmitted(ctx)
   // returned for rework: acetone/chloroform, maximum-boiling azeotrope
   const chl = 'SR-24 acetone/chloroform cut at 1 atm'
   if (!(await exists(ctx, chl))) {

@@ -1,15 +1,15 @@
 import { expect, test } from '@playwright/test'
 import { DEMO, signIn } from './support/helpers'
-import { SUBMITTED_WITH_THREADS, clickLiquidPoint, openDataSet, snap } from './support/lab'
+import { SUBMITTED_FOR_REVIEW, clickLiquidPoint, openDataSet, snap } from './support/lab'
 
-// Journey 2 works on the demo scenario's submitted data set, so it does not depend on journey 1.
+// Journey 2 works on a submitted data set of its own in the demo scenario (the lead chemist approves another one), so it depends on no other journey.
 test('a reviewer comments on one point, chosen on the T–x–y plot', async ({ page }) => {
   await signIn(page, DEMO.reviewer)
   await expect(page.getByRole('button', { name: 'New data set' })).toHaveCount(0)
-  await openDataSet(page, SUBMITTED_WITH_THREADS)
+  await openDataSet(page, SUBMITTED_FOR_REVIEW)
   await expect(page.getByTestId('open-upload')).toHaveCount(0)
   await expect(page.getByTestId('open-approve')).toHaveCount(0)
-  await expect(page.getByTestId('threads-panel')).toContainText('barometer calibration date')
+  await expect(page.getByTestId('threads-panel')).toContainText('Which TCD calibration was used for water?')
 
   // The third point, read from the table, then found and clicked on the plot.
   const row = page.getByTestId('points-table').locator('tbody tr').nth(2)

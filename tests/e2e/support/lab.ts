@@ -1,14 +1,24 @@
 import { expect, type Locator, type Page } from '@playwright/test'
 import { shot } from './helpers'
 
-/** The demo scenario's data set that is submitted with review threads (db/seeds/lab-scenario.ts). */
+/** The demo scenario's data set that is submitted with review threads (db/seeds/lab-scenario.ts): the lead chemist approves it. */
 export const SUBMITTED_WITH_THREADS = 'SR-24 mother liquor: 1-propanol/water at 1 atm'
+/** A second submitted series with one open question: the reviewer's journey comments on it. */
+export const SUBMITTED_FOR_REVIEW = 'Kestrel wash water: methanol/water at 1 atm'
+/** A third submitted series: the rework journey returns it, the analyst reworks and resubmits it. */
+export const SUBMITTED_FOR_REWORK = 'Kestrel recycle repeat: acetone/methanol at 1 atm'
+/** Approved as version 2 (version 1 superseded): the rework journey revises it into version 3. */
+export const APPROVED_TO_REVISE = 'Wash solvent: n-hexane/n-heptane at 1 atm'
+/** The open draft: the workspace-tools journey fits, edits and checks it. */
+export const OPEN_DRAFT = 'Column feed: methanol/water at 1 atm'
 
-/** Open a data set from the list by its title. */
-export async function openDataSet(page: Page, title: string) {
+/** Open a data set from the list by its title (and version, when several versions share the title). */
+export async function openDataSet(page: Page, title: string, version?: number) {
   await page.goto('/datasets')
   await page.getByLabel('Search').fill(title.split(':')[0])
-  await page.getByRole('link', { name: title }).first().click()
+  const rows = page.getByTestId('datasets-table').locator('tbody tr').filter({ hasText: title })
+  const row = version === undefined ? rows.first() : rows.filter({ hasText: `v${version}` }).first()
+  await row.getByRole('link', { name: title }).click()
   await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible()
 }
 
