@@ -139,6 +139,36 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await snapTop(page, 'eng-07-batch-still-tablet')
   await page.setViewportSize({ width: 1280, height: 800 })
 
+  // Stop by pot composition: a column only makes the pot leaner in acetone, so x1 = 0.7 cannot be reached.
+  await page.getByTestId('bs-stopBy').click()
+  await page.getByRole('option', { name: 'Pot composition' }).click()
+  await expect(page.locator('label[for="bs-stopValue"]')).toHaveText('Stop at pot x₁')
+  await page.locator('#bs-stopValue').fill('0.7')
+  await page.locator('#bs-stopValue').press('Tab')
+  await page.getByTestId('bs-run').click()
+  await expect(page.getByTestId('bs-failure')).toHaveText(
+    'The still cannot reach a pot x₁ of 0.7. With 3 stages above the pot at R = 3 the distillate is richer in acetone than the pot, so the pot only gets leaner in it: from x₁ = 0.5 it heads towards pure methanol (x₁ = 0) and never passes it. Choose a pot x₁ between 0.000 and 0.500, or stop by another condition.',
+  )
+  await snapTop(page, 'eng-08-batch-stop-unreachable')
+  await page.locator('#bs-stopValue').fill('0.2')
+  await page.locator('#bs-stopValue').press('Tab')
+  await page.getByTestId('bs-run').click()
+  await expect(page.getByTestId('bs-failure')).toHaveCount(0)
+  await page.getByTestId('bs-scrub').locator('[role="slider"]').focus()
+  await page.keyboard.press('End')
+  await expect(page.getByTestId('bs-pot-x1')).toHaveText('0.2000')
+  // Stop by recovery: 90 % of the acetone overhead; the pot's acetone is what is left (balance, exact).
+  await page.getByTestId('bs-stopBy').click()
+  await page.getByRole('option', { name: 'Recovery of component 1' }).click()
+  await expect(page.locator('#bs-stopValue')).toHaveValue('0.90')
+  await page.getByTestId('bs-run').click()
+  await page.getByTestId('bs-scrub').locator('[role="slider"]').focus()
+  await page.keyboard.press('End')
+  const left = Number((await page.getByTestId('bs-distilled').textContent())?.split(' ')[0])
+  const potX1 = Number(await page.getByTestId('bs-pot-x1').textContent())
+  expect((100 - left) * potX1).toBeCloseTo(0.1 * 100 * 0.5, 0)
+  await snapTop(page, 'eng-09-batch-stop-recovery')
+
   // Parameters as JSON: Ebullio's documented layout, with the published Antoine constants it was computed from.
   const json = await download(page, 'download-parameters-json')
   expect(json.name).toMatch(/-parameters\.json$/)

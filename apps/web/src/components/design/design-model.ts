@@ -3,7 +3,6 @@
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
 import {
-  batchRectification,
   bubbleTemperature,
   fenske,
   findAzeotrope,
@@ -11,7 +10,6 @@ import {
   minimumReflux,
   phaseDiagram,
   relativeVolatility,
-  simpleBatchDistillation,
   type ActivityModel,
   type Azeotrope,
   type BatchFrame,
@@ -137,28 +135,8 @@ export function columnEstimate(system: BinarySystem, P: number, c: ColumnInputs)
 }
 export type ColumnEstimate = ReturnType<typeof columnEstimate>
 
-/** Inputs of a batch-still run: charge in mol, theoretical stages above the pot (0 = simple still), constant R, stop at a distilled fraction. */
-export interface BatchInputs {
-  moles: number
-  x1: number
-  stagesAbovePot: number
-  R: number
-  /** Stop when this fraction of the charge has been distilled (0–1). */
-  distilledFraction: number
-}
-
 /** A frame of the still with the still-head temperature when there is a column. */
 export type StillFrame = BatchFrame & { stillHeadT?: number | null }
-
-/** Run the still: Rayleigh for a simple still, quasi-steady rectification with stages. */
-export function batchRun(system: BinarySystem, P: number, b: BatchInputs, frames = 121) {
-  const source = { system, P }
-  const until = { distillateMoles: b.distilledFraction * b.moles }
-  const charge = { moles: b.moles, x1: b.x1 }
-  if (b.stagesAbovePot === 0) return simpleBatchDistillation(source, { charge, until, frames })
-  return batchRectification(source, { charge, stages: b.stagesAbovePot + 1, R: b.R, until, frames })
-}
-export type BatchRun = ReturnType<typeof batchRun>
 
 /** One cut of distillate: amounts in mol, compositions as mole fractions, temperatures K. */
 export interface Cut {
