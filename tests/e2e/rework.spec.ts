@@ -25,7 +25,7 @@ test('a lead chemist returns a data set for rework with a signed reason; the ana
   await expect(record).toContainText(reason)
   await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
   await expect(page.getByTestId('open-return')).toHaveCount(0)
-  expect(await waitForMail(DEMO.analyst, /returned for rework/)).toContain(reason)
+  expect(await waitForMail(DEMO.analyst, /Kestrel recycle repeat.* v1 returned for rework/)).toContain(reason)
   await signOut(page)
 
   // The analyst reworks the returned version itself: same version number, details edited, submitted again.

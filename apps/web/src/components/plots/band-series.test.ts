@@ -28,7 +28,8 @@ describe('bandSeries', () => {
 describe('suggestionSeries and the T–x–y option', () => {
   it('numbers the suggested compositions best first and puts the band behind the curves', () => {
     const s = suggestionSeries([{ x1: 0.12, T: 365, sigmaY: 0.004 }, { x1: 0.8, T: 362, sigmaY: 0.003 }], 'K', '#c98a12') as unknown as Custom
-    expect(s.data.map((d) => [d[0], d[1]])).toEqual([[0.12, 1], [0.8, 2]])
+    // x, bubble T (shown unit, so the temperature axis keeps its range), rank
+    expect(s.data.map((d) => [d[0], d[1], d[2]])).toEqual([[0.12, 365, 1], [0.8, 362, 2]])
     const o = txyOption({ title: 'T–x–y', names: ['a', 'b'], unit: 'C', k: 1, points: [], curves: [{ name: 'NRTL', x1: [0, 1], y1: [0, 1], T: [373, 370] }], band, suggested: [{ x1: 0.3, T: 360, sigmaY: 0.01 }] })
     const series = o.series as { type: string; name: string }[]
     expect(series.slice(0, 3).map((x) => [x.type, x.name])).toEqual([['custom', 'NRTL'], ['custom', 'NRTL'], ['custom', 'Measure next']])

@@ -41,9 +41,10 @@ const MARK = 7 // px, half the width of a "measure next" mark
 export function suggestionSeries(items: TxySuggestion[], unit: TemperatureUnit, colour: string): Record<string, unknown> {
   const tU = unit === 'C' ? '°C' : 'K'
   return {
-    type: 'custom', name: 'Measure next', z: 7, encode: { x: 0 },
-    data: items.map((s, i) => [s.x1, i + 1, showT(s.T, unit), s.sigmaY]),
-    tooltip: { formatter: (p: { value: number[] }) => `Measure next (#${p.value[1]})<br>x₁ = ${fmt(p.value[0], 2)}<br>bubble T ≈ ${fmt(p.value[2], 2)} ${tU}<br>σ(y₁) now ${fmt(p.value[3], 4)}` },
+    // y is the bubble temperature, so the marks never stretch the temperature axis; they are drawn on the x axis.
+    type: 'custom', name: 'Measure next', z: 7, encode: { x: 0, y: 1 },
+    data: items.map((s, i) => [s.x1, showT(s.T, unit), i + 1, s.sigmaY]),
+    tooltip: { formatter: (p: { value: number[] }) => `Measure next (#${p.value[2]})<br>x₁ = ${fmt(p.value[0], 2)}<br>bubble T ≈ ${fmt(p.value[1], 2)} ${tU}<br>σ(y₁) now ${fmt(p.value[3], 4)}` },
     renderItem: (params: Params, api: Api) => {
       const x = api.coord([api.value(0), 0])[0]
       const base = params.coordSys.y + params.coordSys.height
@@ -51,7 +52,7 @@ export function suggestionSeries(items: TxySuggestion[], unit: TemperatureUnit, 
         type: 'group',
         children: [
           { type: 'polygon', shape: { points: [[x, base], [x - MARK, base - 2 * MARK], [x + MARK, base - 2 * MARK]] }, style: { fill: colour, stroke: '#ffffff', lineWidth: 1 } },
-          { type: 'text', x, y: base - 2 * MARK - 2, style: { text: String(api.value(1)), fill: colour, font: '600 11px Inter, sans-serif', align: 'center', verticalAlign: 'bottom' } },
+          { type: 'text', x, y: base - 2 * MARK - 2, style: { text: String(api.value(2)), fill: colour, font: '600 11px Inter, sans-serif', align: 'center', verticalAlign: 'bottom' } },
         ],
       }
     },
