@@ -3,12 +3,14 @@
  * mathjs does the arithmetic; two of its definitions are tightened: mathjs rounds the
  * millimetre of mercury to 133.322 Pa, while the conventional value is 133.322387415 Pa
  * and the torr is exactly 101325/760 Pa (BIPM SI Brochure, 9th ed., 2019, Table 8).
+ * Only mathjs's unit functions are created (its tree-shakable factory API): the expression
+ * parser, matrices and the rest of the library stay out of the web app's bundle.
  */
-import { all, create } from 'mathjs'
+import { create, createUnitDependencies, unitDependencies } from 'mathjs'
 import { ThermoError } from './errors.js'
 import type { PressureUnit } from './types.js'
 
-const math = create(all)
+const math = create({ unitDependencies, createUnitDependencies })
 math.createUnit('mmHg', '133.322387415 Pa', { override: true })
 math.createUnit('torr', { definition: `${101325 / 760} Pa` }, { override: true })
 

@@ -1,5 +1,4 @@
 import type { RouteRecordRaw } from 'vue-router'
-import AppFrame from '../components/base/AppFrame.vue'
 
 const Placeholder = () => import('../views/PlaceholderView.vue')
 
@@ -86,6 +85,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/forgot-password', name: 'forgot', component: () => import('../views/auth/ForgotPasswordView.vue'), meta: { public: true, title: 'Forgotten password' } },
   { path: '/reset-password/:token', name: 'reset', component: () => import('../views/auth/ResetPasswordView.vue'), meta: { public: true, title: 'New password' } },
   { path: '/welcome/:token', name: 'welcome', component: () => import('../views/auth/AcceptInviteView.vue'), meta: { public: true, title: 'Welcome' } },
-  { path: '/', component: AppFrame, children: appRoutes },
+  // lazily loaded, so the sign-in page carries neither the frame's navigation nor what it imports
+  { path: '/', component: () => import('../components/base/AppFrame.vue'), children: appRoutes },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true, title: 'Page not found' } },
 ]
