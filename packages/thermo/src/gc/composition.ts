@@ -21,6 +21,24 @@ function sensitivities(cal: Calibration, s: number): { dxds: number; dxdc: numbe
   return { dxds, dxdc: powers }
 }
 
+/**
+ * Scatter of the standards about the curve that replicate injections do not explain (preparation of the
+ * standards, lack of fit), in x1: s²_between = max(0, Σ residual²/ν − mean replicate variance of a standard's mean).
+ * It applies in full to every sample read on this calibration, however often the sample is injected.
+ */
+function betweenStandardsScatter(cal: Calibration): number {
+  if (cal.degreesOfFreedom <= 0 || cal.residuals.length === 0) return 0
+  const residualVar = cal.residuals.reduce((sum, r) => sum + r.residual ** 2, 0) / cal.degreesOfFreedom
+  const rsd = cal.repeatability?.ratioRsd ?? 0
+  const ratio = cal.model === 'response-factor'
+  const replicateVar =
+    cal.residuals.reduce((sum, r) => {
+      const signalSd = ratio ? r.signal * rsd : r.signal * (1 - r.signal) * rsd
+      return sum + (sensitivities(cal, r.signal).dxds * signalSd) ** 2 / Math.max(r.injections, 1)
+    }, 0) / cal.residuals.length
+  return Math.sqrt(Math.max(0, residualVar - replicateVar))
+}
+
 /** Degrees-of-freedom weighted pool of the sample's RSD and the method repeatability; null when neither exists. */
 function pooledReplicateRsd(own: number | null, ownDof: number, method: Calibration['repeatability']): number | null {
   const dof = (own === null ? 0 : ownDof) + (method?.degreesOfFreedom ?? 0)
@@ -35,7 +53,9 @@ function pooledReplicateRsd(own: number | null, ownDof: number, method: Calibrat
  * The injections are averaged (mean area ratio r̄ for 'response-factor', mean area fraction f̄ otherwise;
  * call the mean s̄). Linear propagation (GUM, first order):
  *
- *   u²(x1) = (∂x1/∂s)² · u²(s̄)  +  gᵀ · Σ · g,   g = ∂x1/∂b (coefficient sensitivities), Σ = calibration covariance.
+ *   u²(x1) = (∂x1/∂s)² · u²(s̄)  +  gᵀ · Σ · g  +  s²_between,
+ *   g = ∂x1/∂b (coefficient sensitivities), Σ = calibration covariance, s_between = the scatter of the standards
+ *   about the curve beyond what their replicate injections explain (standard preparation, lack of fit).
  *
  * For 'response-factor', x1 = r̄/(k + r̄), ∂x1/∂r = k/(k + r̄)², ∂x1/∂k = −r̄/(k + r̄)².
  * For 'linear'/'quadratic', x1 = Σ bj·f̄^j, ∂x1/∂f = b1 + 2·b2·f̄, g = [1, f̄, f̄²].
@@ -83,10 +103,11 @@ export function compositionFromAreas(calibration: Calibration, options: Composit
     warnings.push(`The sample lies outside the calibrated range (standards x1 = ${xlo.toFixed(3)}–${xhi.toFixed(3)}): the result is an extrapolation.`)
   }
   if (x1 < 0 || x1 > 1) warnings.push(`The calibration gives x1 = ${x1.toFixed(4)}, outside 0–1: check the peaks and the calibration range.`)
+  const betweenStandards = betweenStandardsScatter(calibration)
   return {
     x1,
-    standardUncertainty: Math.hypot(replicate, calibrationPart),
-    uncertaintyBudget: { replicate, calibration: calibrationPart },
+    standardUncertainty: Math.sqrt(replicate ** 2 + calibrationPart ** 2 + betweenStandards ** 2),
+    uncertaintyBudget: { replicate, calibration: calibrationPart, betweenStandards },
     signal,
     replicateRsd: summary.rsd,
     pooledRsd,

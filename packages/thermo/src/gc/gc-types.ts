@@ -66,10 +66,13 @@ export interface Calibration {
 export interface CompositionResult {
   /** Mole fraction of component 1. */
   x1: number
-  /** Standard uncertainty u(x1) (k = 1), from replicate scatter and calibration covariance combined. */
+  /** Standard uncertainty u(x1) (k = 1): replicate scatter, calibration covariance and between-standards scatter combined. */
   standardUncertainty: number
-  /** The two parts of u(x1) before combining in quadrature. */
-  uncertaintyBudget: { replicate: number; calibration: number }
+  /**
+   * The parts of u(x1) before combining in quadrature: the sample's replicate scatter, the calibration
+   * coefficients' covariance, and the standards' scatter about the curve beyond their own replicates.
+   */
+  uncertaintyBudget: { replicate: number; calibration: number; betweenStandards: number }
   /** Mean signal (area ratio or area fraction, as the calibration's `signalKind`). */
   signal: number
   /** Relative standard deviation of the sample's replicate area ratios (fraction); null with one injection. */
