@@ -13,7 +13,7 @@ beforeAll(async () => {
   // A second calibration of the same method retires the first; a TCD method gets one of its own.
   const calibrate = async (gcMethodId: string, model: string) => {
     const r = await csv(lab.analyst.post('/api/calibrations'), example('calibration-acetone-methanol.csv'), 'calibration.csv')
-      .field('gcMethodId', gcMethodId).field('systemId', lab.systemId).field('model', model).field('acceptWarnings', 'true')
+      .field('gcMethodId', gcMethodId).field('systemId', lab.systemId).field('model', model).field('acceptWarnings', 'true').field('replaceActive', 'true')
     if (r.status !== 201) throw new Error(JSON.stringify(r.body))
   }
   await calibrate(lab.gcMethodId, 'linear')

@@ -193,3 +193,62 @@ export async function insertCalibration(db: Db, c: NewCalibrationInput): Promise
   }
   return toCalibration(row)
 }
+
+/** What a person needs to recognise a calibration: its file, date, model, coefficients ± u, range and use. */
+export interface CalibrationSummary {
+  id: string
+  gcMethodId: string
+  gcMethodName: string
+  model: CalibrationRecord['model']
+  status: CalibrationRecord['status']
+  coefficientNames: string[]
+  coefficients: number[]
+  /** standard errors of the coefficients, same order */
+  standardErrors: number[]
+  /** calibrated range, mole fraction of component 1 */
+  rangeMin: number
+  rangeMax: number
+  createdAt: Date
+  retiredAt: Date | null
+  uploadId: string
+  originalName: string
+  sha256: string
+  /** data sets (lineages, all versions counted once) with points computed with it */
+  dataSetCount: number
+}
+
+/** Summaries of the given calibrations (any order in, creation order out). */
+export async function summarizeCalibrations(db: Db, ids: string[]): Promise<CalibrationSummary[]> {
+  if (ids.length === 0) return []
+  const rows = await db.selectFrom('calibration as k')
+    .innerJoin('gc_method as g', 'g.id', 'k.gc_method_id')
+    .innerJoin('upload as u', 'u.id', 'k.upload_id')
+    .select(['k.id', 'k.gc_method_id', 'g.name as gc_method_name', 'k.model', 'k.status', 'k.result', 'k.range_min', 'k.range_max',
+      'k.created_at', 'k.retired_at', 'k.upload_id', 'u.original_name', 'u.sha256'])
+    .select((eb) => eb.selectFrom('point as p').innerJoin('data_set as d', 'd.id', 'p.data_set_id')
+      .select(sql<string>`count(distinct d.lineage_id)`.as('n')).whereRef('p.calibration_id', '=', 'k.id').as('data_set_count'))
+    .where('k.id', 'in', ids).orderBy('k.created_at').execute()
+  return rows.map((r) => {
+    const result = r.result as { coefficients?: number[]; coefficientNames?: string[]; standardErrors?: number[] }
+    return {
+      id: r.id, gcMethodId: r.gc_method_id, gcMethodName: r.gc_method_name, model: r.model, status: r.status,
+      coefficientNames: result.coefficientNames ?? [], coefficients: result.coefficients ?? [], standardErrors: result.standardErrors ?? [],
+      rangeMin: r.range_min, rangeMax: r.range_max, createdAt: r.created_at, retiredAt: r.retired_at,
+      uploadId: r.upload_id, originalName: r.original_name, sha256: r.sha256, dataSetCount: Number(r.data_set_count ?? 0),
+    }
+  })
+}
+
+/** The active calibration of a GC method for a system, if any (at most one: a unique index says so). */
+export async function findActiveCalibration(db: Db, gcMethodId: string, systemId: string): Promise<CalibrationRecord | undefined> {
+  const r = await db.selectFrom('calibration').selectAll().where('gc_method_id', '=', gcMethodId).where('system_id', '=', systemId)
+    .where('status', '=', 'active').executeTakeFirst()
+  return r && toCalibration(r)
+}
+
+/** The calibrations behind a data set's points, in the order they were made. */
+export async function calibrationsOfDataSet(db: Db, dataSetId: string): Promise<CalibrationSummary[]> {
+  const ids = await db.selectFrom('point').select('calibration_id').distinct().where('data_set_id', '=', dataSetId)
+    .where('calibration_id', 'is not', null).execute()
+  return summarizeCalibrations(db, ids.map((r) => r.calibration_id!))
+}

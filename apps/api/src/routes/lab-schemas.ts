@@ -48,6 +48,10 @@ const formBool = z.enum(['true', 'false']).default('false').transform((v) => v =
 export const calibrationForm = z.object({
   gcMethodId: uuid('GC method'), systemId: uuid('system'), model: z.enum(['response-factor', 'linear', 'quadratic']).default('response-factor'),
   acceptWarnings: formBool,
+  /** acknowledges that the active calibration of this method and system is retired by this one */
+  replaceActive: formBool,
+  /** the data set whose upload dialog sends it (its audit trail records the commit) */
+  dataSetId: uuid('data set').optional(),
 })
 export const runForm = z.object({
   calibrationId: uuid('calibration').optional(),

@@ -74,8 +74,8 @@ export const systemRoutes = defineRoutes([
     method: 'post', path: '/api/calibrations/preview', access: ['analyst', 'lead_chemist'],
     handler: [csvUpload, async (req, res) => {
       const file = receivedFile(req)
-      const { acceptWarnings: _a, ...form } = parseBody(calibrationForm, req)
-      res.json(await calibrations.previewCalibration(ctx(req).db, form, file))
+      const { gcMethodId, systemId, model } = parseBody(calibrationForm, req)
+      res.json(await calibrations.previewCalibration(ctx(req).db, { gcMethodId, systemId, model }, file))
     }],
   },
   {
@@ -83,8 +83,8 @@ export const systemRoutes = defineRoutes([
     handler: [csvUpload, async (req, res) => {
       const { db, user } = ctx(req)
       const file = receivedFile(req)
-      const { acceptWarnings, ...form } = parseBody(calibrationForm, req)
-      res.status(201).json(await calibrations.commitCalibration(db, user.id, form, file, acceptWarnings))
+      const { acceptWarnings, replaceActive, dataSetId, gcMethodId, systemId, model } = parseBody(calibrationForm, req)
+      res.status(201).json(await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, { replaceActive, dataSetId }))
     }],
   },
   {

@@ -2,15 +2,20 @@
 import { fitCalibration, type Calibration, type CalibrationModel } from '@ebullio/thermo'
 import type { Kysely } from 'kysely'
 import type { Database, Db } from '../db/index.js'
-import { conflict, notFound } from '../errors/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/calibrations.repository.js'
+import { findDataSet } from '../repositories/datasets.repository.js'
 import { insertUpload } from '../repositories/uploads.repository.js'
 import { parseCalibrationFile, type CalibrationFileParse } from '../uploads/calibration-file.js'
 import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
-import { translateDbError } from './lab-access.js'
+import { EDITABLE_STATES, requireState, translateDbError } from './lab-access.js'
 import { getSystem } from './systems.service.js'
 import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
+
+/** Refusal of a commit that would replace an active calibration without saying so (asserted word for word in the tests). */
+export const REPLACE_NOT_CONFIRMED_MESSAGE =
+  'This GC method already has an active calibration for this system; confirm that the new one replaces it (replaceActive), or choose another GC method.'
 
 /** Refusal for a retired method's calibrations (asserted word for word in the tests). */
 export const RETIRED_METHOD_MESSAGE = 'This GC method is retired: its calibrations cannot be made active or used for new uploads.'
@@ -31,9 +36,25 @@ export interface CalibrationPreview extends Omit<CalibrationFileParse, 'problems
   systemId: string
   model: CalibrationModel
   calibration: Calibration | null
+  /** the active calibration of this method and system that committing would retire, null when there is none */
+  replaces: repo.CalibrationSummary | null
   problems: UploadProblem[]
   errorCount: number
   warningCount: number
+}
+
+/** How a calibration commit was asked for: the replacement acknowledged, and the data set it was made from. */
+export interface CalibrationCommitOptions {
+  /** true when the person saw and accepted that the active calibration of this method and system is retired */
+  replaceActive?: boolean
+  /** the data set whose upload dialog made it: the commit goes into that data set's audit trail too */
+  dataSetId?: string | null
+}
+
+/** The active calibration a new one would replace, described for the person who decides. */
+async function activeSummary(db: Db, gcMethodId: string, systemId: string): Promise<repo.CalibrationSummary | null> {
+  const active = await repo.findActiveCalibration(db, gcMethodId, systemId)
+  return active ? (await repo.summarizeCalibrations(db, [active.id]))[0] ?? null : null
 }
 
 export interface CalibrationRequest {
@@ -68,11 +89,23 @@ export async function previewCalibration(db: Db, req: CalibrationRequest, file: 
       problems.push(uploadError(null, null, null, `The calibration could not be fitted: ${(err as Error).message}`))
     }
   }
-  return { ...parsed, ...req, file: summarizeFile(file), calibration, problems, ...countProblems(problems) }
+  const replaces = await activeSummary(db, req.gcMethodId, req.systemId)
+  return { ...parsed, ...req, file: summarizeFile(file), calibration, replaces, problems, ...countProblems(problems) }
 }
 
-/** Store the file, the standards and the fitted calibration (all or nothing); it becomes the active one. */
-export async function commitCalibration(db: Kysely<Database>, actorId: string, req: CalibrationRequest, file: UploadedFile, acceptWarnings: boolean): Promise<repo.CalibrationRecord> {
+/**
+ * Store the file, the standards and the fitted calibration (all or nothing); it becomes the active one.
+ * Replacing the active calibration of the same method and system must be acknowledged (`replaceActive`):
+ * it changes what every later upload on that method computes with, for the whole lab.
+ */
+export async function commitCalibration(db: Kysely<Database>, actorId: string, req: CalibrationRequest, file: UploadedFile, acceptWarnings: boolean, o: CalibrationCommitOptions = {}): Promise<repo.CalibrationRecord> {
+  const dataSetId = o.dataSetId ?? null
+  if (dataSetId) {
+    const d = await findDataSet(db, dataSetId)
+    if (!d) throw notFound('There is no such data set.')
+    if (d.systemId !== req.systemId) throw conflict('This calibration belongs to another binary system than the data set.')
+    requireState(d, EDITABLE_STATES, 'uploading')
+  }
   const preview = await previewCalibration(db, req, file)
   assertCommittable(preview.problems, acceptWarnings)
   const cal = preview.calibration!
@@ -80,15 +113,22 @@ export async function commitCalibration(db: Kysely<Database>, actorId: string, r
     // the method may have been retired since the preview above; the row lock makes the check and the insert one step
     const locked = await tx.selectFrom('gc_method').select('status').where('id', '=', req.gcMethodId).forUpdate().executeTakeFirst()
     if (locked?.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
+    // checked again under the lock: someone may have committed another calibration since the preview
+    const replaces = await activeSummary(tx, req.gcMethodId, req.systemId)
+    if (replaces && !o.replaceActive) throw new AppError(409, 'replacement_not_confirmed', REPLACE_NOT_CONFIRMED_MESSAGE, { replaces })
     const upload = await insertUpload(tx, { kind: 'calibration', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: actorId, dataSetId: null })
     const retired = await repo.retireActive(tx, req.gcMethodId, req.systemId)
     const record = await repo.insertCalibration(tx, {
       ...req, result: cal, rangeMin: cal.calibratedRange.x1[0], rangeMax: cal.calibratedRange.x1[1], uploadId: upload.id, createdBy: actorId,
       standards: preview.standards.map((s, i) => ({ label: s.label, basis: s.basis, fraction1: s.fraction1, x1: cal.residuals[i].x1, injections: s.injections })),
     })
-    await appendAudit(tx, { actorId, entity: 'upload', entityId: upload.id, action: 'upload calibration file', after: preview.file })
-    for (const id of retired) await appendAudit(tx, { actorId, entity: 'calibration', entityId: id, action: 'retire', after: { replacedBy: record.id } })
-    await appendAudit(tx, { actorId, entity: 'calibration', entityId: record.id, action: 'create', after: { model: req.model, coefficients: cal.coefficients, range: cal.calibratedRange.x1 } })
+    await appendAudit(tx, { actorId, entity: 'upload', entityId: upload.id, action: 'upload calibration file', dataSetId, after: preview.file })
+    for (const id of retired) {
+      await appendAudit(tx, { actorId, entity: 'calibration', entityId: id, action: 'retire', dataSetId,
+        after: { replacedBy: record.id, usedByDataSets: replaces?.id === id ? replaces.dataSetCount : null } })
+    }
+    await appendAudit(tx, { actorId, entity: 'calibration', entityId: record.id, action: 'create', dataSetId,
+      after: { model: req.model, coefficients: cal.coefficients, standardErrors: cal.standardErrors, range: cal.calibratedRange.x1, file: file.originalName, replaces: retired } })
     return record
   })
 }

@@ -11,6 +11,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { copyFits, listConsistency, listFits } from '../repositories/fits.repository.js'
 import * as points from '../repositories/points.repository.js'
 import { listUploadsOf } from '../repositories/uploads.repository.js'
+import { calibrationsOfDataSet } from '../repositories/calibrations.repository.js'
 import { EDITABLE_STATES, PUBLISHED_STATES, pageWindow, readsEverything, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 import { getSystem } from './systems.service.js'
 
@@ -67,6 +68,8 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
     consistency: await listConsistency(db, id),
     comments: full ? await listComments(db, id) : [],
     uploads: full ? await listUploadsOf(db, id) : [],
+    /** the calibrations behind the points (file, date, model, coefficients ± u, range) */
+    calibrations: await calibrationsOfDataSet(db, id),
     approvals: await listApprovals(db, id),
     versions: (await repo.listVersions(db, d.lineageId))
       .filter((v) => full || PUBLISHED_STATES.includes(v.state))

@@ -6,7 +6,7 @@ import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
-import { findCalibration, findGcMethod, listCalibrations, type CalibrationRecord } from '../repositories/calibrations.repository.js'
+import { findCalibration, findGcMethod, listCalibrations, summarizeCalibrations, type CalibrationRecord, type CalibrationSummary } from '../repositories/calibrations.repository.js'
 import { RETIRED_METHOD_MESSAGE } from './calibrations.service.js'
 import * as datasets from '../repositories/datasets.repository.js'
 import { insertPoints, nextSeq } from '../repositories/points.repository.js'
@@ -31,12 +31,20 @@ export interface PreviewSample {
   y1Rsd: number | null
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  /** injections used of those in the file, per phase; lines whose phase could not be read are listed apart */
+  coverage: { liquid: { used: number; of: number }; vapour: { used: number; of: number }; unreadRows: number[] }
+  /** lines of this sample with an error: its compositions, if any, come from the other lines only */
+  errorRows: number[]
+  /** true when some line of the sample was not used or has an error */
+  partial: boolean
 }
 
 export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
   file: FileSummary
   dataSetId: string
   calibrationId: string
+  /** the calibration the compositions are computed with (file, date, model, coefficients ± u, range) */
+  calibrationUsed: CalibrationSummary
   samples: PreviewSample[]
   problems: UploadProblem[]
   errorCount: number
@@ -87,6 +95,19 @@ function phaseComposition(cal: CalibrationRecord, s: RunSample, phase: 'liquid' 
   return r
 }
 
+/** Which of a sample's lines its compositions rest on, so a preview with errors can mark partial samples. */
+function coverageOf(s: RunSample, problems: UploadProblem[]): Pick<PreviewSample, 'coverage' | 'errorRows' | 'partial'> {
+  const lines = new Set(s.rows)
+  const errorRows = [...new Set(problems.filter((p) => p.severity === 'error' && p.row !== null && lines.has(p.row)).map((p) => p.row!))].sort((a, b) => a - b)
+  const coverage = {
+    liquid: { used: s.liquid.length, of: s.phaseRows.liquid.length },
+    vapour: { used: s.vapour.length, of: s.phaseRows.vapour.length },
+    unreadRows: s.phaseRows.unknown,
+  }
+  const partial = errorRows.length > 0 || coverage.unreadRows.length > 0 || coverage.liquid.used < coverage.liquid.of || coverage.vapour.used < coverage.vapour.of
+  return { coverage, errorRows, partial }
+}
+
 /** Parse a run sheet and compute every sample's x and y, storing nothing. */
 export async function previewRun(db: Db, config: Config, user: SessionUser, dataSetId: string, file: UploadedFile, calibrationId?: string): Promise<RunPreview> {
   const d = visibleOrNotFound(user, await datasets.findDataSet(db, dataSetId))
@@ -101,12 +122,13 @@ export async function previewRun(db: Db, config: Config, user: SessionUser, data
       label: s.label, rows: s.rows, temperatureK: s.temperatureK, pressurePa: s.pressurePa,
       x1: x?.x1 ?? null, x1Uncertainty: x?.standardUncertainty ?? null, x1Rsd: x?.replicateRsd ?? null,
       y1: y?.x1 ?? null, y1Uncertainty: y?.standardUncertainty ?? null, y1Rsd: y?.replicateRsd ?? null,
-      liquid: s.liquid, vapour: s.vapour,
+      liquid: s.liquid, vapour: s.vapour, ...coverageOf(s, problems),
     }
   })
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
   const { samples: _s, problems: _p, ...rest } = parsed
-  return { ...rest, file: summarizeFile(file), dataSetId, calibrationId: cal.id, samples, problems, ...countProblems(problems) }
+  const [calibrationUsed] = await summarizeCalibrations(db, [cal.id])
+  return { ...rest, file: summarizeFile(file), dataSetId, calibrationId: cal.id, calibrationUsed, samples, problems, ...countProblems(problems) }
 }
 
 /** Store the file and every sample as a point, all or nothing; refuses a stale row version. */

@@ -34,7 +34,12 @@ export interface RunSample {
   raw: { temperature: string; temperatureUnit: string; pressure: string; pressureUnit: string }
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  /** every line of the sample by the phase it names (`unknown`: phase missing or unreadable), used or not */
+  phaseRows: PhaseRows
 }
+
+/** The lines of one sample by phase, so a preview can say "1 of 2 injections used". */
+export interface PhaseRows { liquid: number[]; vapour: number[]; unknown: number[] }
 
 export interface RunFileParse {
   format: CsvFormat
@@ -53,6 +58,7 @@ interface Draft {
   p?: { value: number; unit: PressureUnitName; raw: string; rawUnit: string; line: number }
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  phaseRows: PhaseRows
 }
 
 type Cells = (name: string) => string
@@ -84,11 +90,12 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
   const label = cell('sample')
   if (label === '') { problems.push(uploadError(line, 'sample', '', 'Sample id is missing.')); return }
   let s = samples.get(label)
-  if (!s) { s = { label, rows: [], liquid: [], vapour: [] }; samples.set(label, s) }
+  if (!s) { s = { label, rows: [], liquid: [], vapour: [], phaseRows: { liquid: [], vapour: [], unknown: [] } }; samples.set(label, s) }
   s.rows.push(line)
   readConditions(cell, line, dc, s, problems)
   const phaseRaw = cell('phase')
   const phase = PHASES[phaseRaw.toLowerCase()]
+  s.phaseRows[phase ?? 'unknown'].push(line)
   if (phaseRaw === '') problems.push(uploadError(line, 'phase', '', 'Phase is missing; use liquid or vapour.'))
   else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid or vapour.'))
   const injection = injectionCell(cell, line, dc, problems)
@@ -130,7 +137,7 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
   return {
     label: s.label, firstRow: first, rows: s.rows, temperatureK, pressurePa,
     raw: { temperature: s.t.raw, temperatureUnit: s.t.rawUnit, pressure: s.p.raw, pressureUnit: s.p.rawUnit },
-    liquid: s.liquid, vapour: s.vapour,
+    liquid: s.liquid, vapour: s.vapour, phaseRows: s.phaseRows,
   }
 }
 

@@ -4,6 +4,7 @@
  */
 import { api, query } from './client'
 import type { CommentItem } from './comments'
+import type { CalibrationSummary } from './uploads'
 
 export type DataSetState = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
 export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl'
@@ -111,6 +112,8 @@ export interface DataSetDetail {
   comments: CommentItem[]
   uploads: { id: string; kind: string; originalName: string; sizeBytes?: number; sha256?: string; uploadedAt?: string; [k: string]: unknown }[]
   versions: { id: string; version: number; state: DataSetState; approvedAt: string | null }[]
+  /** the calibrations behind the points (file, date, model, coefficients ± u, range) */
+  calibrations: CalibrationSummary[]
   /** the two components' preferred vapour-pressure models, when they could be read */
   vaporPressure?: [Record<string, unknown>, Record<string, unknown>] | null
   authorName?: string
@@ -155,6 +158,8 @@ export interface AuditEntry {
   entityId: string
   action: string
   dataSetId: string | null
+  /** summary of the change after it (shape depends on the action) */
+  after?: unknown
 }
 
 export interface DataSetListQuery {
@@ -242,8 +247,8 @@ export interface PureCheckResult {
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
-  const { system, points, fits, consistency, approvals, comments, uploads, versions, ...dataSet } = await api.get<DetailAnswer>(`${base}/${id}`)
-  return { dataSet: dataSet as DataSet, system, points, fits, consistency, approvals, comments: comments ?? [], uploads: uploads ?? [], versions: versions ?? [] }
+  const { system, points, fits, consistency, approvals, comments, uploads, versions, calibrations, ...dataSet } = await api.get<DetailAnswer>(`${base}/${id}`)
+  return { dataSet: dataSet as DataSet, system, points, fits, consistency, approvals, comments: comments ?? [], uploads: uploads ?? [], versions: versions ?? [], calibrations: calibrations ?? [] }
 }
 
 export const datasetsApi = {

@@ -10,6 +10,36 @@ export interface UploadProblem {
   severity: 'error' | 'warning'
 }
 
+/** A stored calibration as a person recognises it: file, date, model, coefficients ± u, calibrated range, use. */
+export interface CalibrationSummary {
+  id: string
+  gcMethodId: string
+  gcMethodName: string
+  model: 'response-factor' | 'linear' | 'quadratic'
+  status: 'active' | 'retired'
+  coefficientNames: string[]
+  coefficients: number[]
+  standardErrors: number[]
+  /** calibrated range, mole fraction of component 1 */
+  rangeMin: number
+  rangeMax: number
+  createdAt: string
+  retiredAt: string | null
+  uploadId: string
+  originalName: string
+  sha256: string
+  /** data sets (all versions counted once) with points computed with it */
+  dataSetCount: number
+}
+
+/** Which injections of a sample its compositions rest on (a file with errors drops lines). */
+export interface SampleCoverage {
+  liquid: { used: number; of: number }
+  vapour: { used: number; of: number }
+  /** lines whose phase could not be read */
+  unreadRows: number[]
+}
+
 /** A sample's composition computed from its areas: mole fractions with standard uncertainties. */
 export interface PreviewSample {
   label: string
@@ -20,6 +50,11 @@ export interface PreviewSample {
   x1Uncertainty?: number | null
   y1?: number | null
   y1Uncertainty?: number | null
+  coverage?: SampleCoverage
+  /** lines of this sample with an error */
+  errorRows?: number[]
+  /** some line of the sample was not used or has an error */
+  partial?: boolean
   [k: string]: unknown
 }
 
@@ -40,6 +75,10 @@ export interface UploadPreview {
   errorCount?: number
   warningCount?: number
   calibrationId?: string
+  /** run preview: the calibration the compositions are computed with */
+  calibrationUsed?: CalibrationSummary
+  /** calibration preview: the active calibration committing would replace (null: none) */
+  replaces?: CalibrationSummary | null
   problems: UploadProblem[]
 }
 
