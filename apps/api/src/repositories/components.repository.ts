@@ -1,32 +1,13 @@
+import type { ComponentDto, VaporPressureSetDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { Component, PureMeasurement, VaporPressureSet } from '../db/lab-tables.js'
 
-/** A pure component as the API shows it. Molar mass in g/mol, liquid molar volume in cm³/mol. */
-export interface ComponentRecord {
-  id: string
-  name: string
-  casNumber: string | null
-  formula: string | null
-  molarMass: number
-  liquidMolarVolume: number | null
-  rowVersion: number
-  createdAt: Date
-}
+/** A pure component as the API shows it (the shared wire type, with Date timestamps). Molar mass in g/mol, liquid molar volume in cm³/mol. */
+export type ComponentRecord = ComponentDto<Date>
 
-export interface VaporPressureRecord {
-  id: string
-  componentId: string
-  kind: 'antoine' | 'clausius-clapeyron'
-  parameters: Record<string, unknown>
-  rangeMin: number | null
-  rangeMax: number | null
-  rangeUnit: 'C' | 'K' | null
-  source: string
-  preferred: boolean
-  enteredBy: string | null
-  createdAt: Date
-}
+/** A vapour-pressure set as the API shows it. */
+export type VaporPressureRecord = VaporPressureSetDto<Date>
 
 export const toComponent = (c: Component): ComponentRecord => ({
   id: c.id, name: c.name, casNumber: c.cas_number, formula: c.formula, molarMass: c.molar_mass,

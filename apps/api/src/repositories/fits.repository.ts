@@ -1,20 +1,9 @@
+import type { FitDto } from '@ebullio/schemas'
 import type { Db } from '../db/index.js'
 import type { ConsistencyResult, Fit } from '../db/lab-tables.js'
 
-/** A stored model fit: parameters with standard errors, statistics and per-point residuals as thermo returned them. */
-export interface FitRecord {
-  id: string
-  dataSetId: string
-  model: 'margules' | 'van-laar' | 'wilson' | 'nrtl'
-  options: Record<string, unknown>
-  activity: Record<string, unknown>
-  parameters: { name: string; value: number; standardError: number }[]
-  statistics: Record<string, unknown>
-  residuals: Record<string, unknown>[]
-  pointIds: string[]
-  runBy: string
-  runAt: Date
-}
+/** A stored model fit: parameters with standard errors, statistics and per-point residuals as thermo returned them (the shared wire type, with Date timestamps). */
+export type FitRecord = FitDto<Date>
 
 export interface ConsistencyRecord {
   id: string

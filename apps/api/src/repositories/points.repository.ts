@@ -1,25 +1,10 @@
+import type { PointDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { Point } from '../db/lab-tables.js'
 
-/** One equilibrium state. T in K, P in Pa; x1, y1 mole fractions with standard uncertainties (k = 1). */
-export interface PointRecord {
-  id: string
-  dataSetId: string
-  seq: number
-  sampleLabel: string
-  temperatureK: number
-  pressurePa: number
-  x1: number
-  x1Uncertainty: number
-  y1: number
-  y1Uncertainty: number
-  excluded: boolean
-  exclusionReason: string | null
-  uploadId: string | null
-  calibrationId: string | null
-  rowRefs: number[]
-}
+/** One equilibrium state (the shared wire type). T in K, P in Pa; x1, y1 mole fractions with standard uncertainties (k = 1). */
+export type PointRecord = PointDto
 
 export interface InjectionRecord {
   phase: 'liquid' | 'vapour'

@@ -1,16 +1,10 @@
+import type { SystemDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
-import { toComponent, type ComponentRecord } from './components.repository.js'
+import { toComponent } from './components.repository.js'
 
-/** A binary system: component 1 is the lighter (lower-boiling) one by convention. */
-export interface SystemRecord {
-  id: string
-  component1: ComponentRecord
-  component2: ComponentRecord
-  name: string
-  notes: string | null
-  createdAt: Date
-}
+/** A binary system: component 1 is the lighter (lower-boiling) one by convention (the shared wire type, with Date timestamps). */
+export type SystemRecord = SystemDto<Date>
 
 async function hydrate(db: Db, rows: { id: string; component1_id: string; component2_id: string; notes: string | null; created_at: Date }[]): Promise<SystemRecord[]> {
   const ids = [...new Set(rows.flatMap((r) => [r.component1_id, r.component2_id]))]

@@ -1,4 +1,5 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
+import type { CatalogueEntryDto } from '@ebullio/schemas'
 import { findAzeotrope, phaseDiagram, relativeVolatility, type ActivityModel } from '@ebullio/thermo'
 import { sql } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
@@ -15,7 +16,7 @@ export const DESIGN_CAUTION =
   'Preliminary estimate from equilibrium data (modified Raoult\'s law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer\'s review.'
 
 /** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit; paged in SQL. */
-export async function catalogue(db: Db, o: { q?: string; page: number; pageSize: number }) {
+export async function catalogue(db: Db, o: { q?: string; page: number; pageSize: number }): Promise<{ items: CatalogueEntryDto<Date>[]; total: number; page: number; pageSize: number }> {
   const systems = await listSystems(db, { q: o.q, published: true, ...pageWindow(o.page, o.pageSize) })
   const ids = systems.items.map((s) => s.id)
   const rows = ids.length === 0 ? [] : await db.selectFrom('data_set as d').leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
@@ -27,7 +28,7 @@ export async function catalogue(db: Db, o: { q?: string; page: number; pageSize:
       system: s,
       approved: versions.filter((v) => v.state === 'approved').map((v) => ({
         dataSetId: v.id, title: v.title, version: v.version, nominalPressurePa: v.nominal_pressure_pa, approvedAt: v.approved_at,
-        recommendedFit: v.fit_id ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+        recommendedFit: v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
       })),
       superseded: versions.filter((v) => v.state === 'superseded').map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
     }

@@ -2,44 +2,15 @@
  * The engineers' catalogue of approved systems and what can be downloaded from an approved data set
  * (issue 5's catalogue and export routes). T in K, P in Pa, compositions as mole fractions of component 1.
  */
+import type { ApprovedVersionDto, CatalogueEntryDto, ComponentDto, FitDto, PointDto, SystemDto } from '@ebullio/schemas'
 import { api, query } from './client'
 
-/** A pure component as the catalogue shows it. */
-export interface CatalogueComponent {
-  id: string
-  name: string
-  casNumber: string | null
-  formula: string | null
-  /** g/mol */
-  molarMass: number
-  /** cm³/mol */
-  liquidMolarVolume: number | null
-}
-
-export interface CatalogueSystem {
-  id: string
-  name: string
-  notes: string | null
-  component1: CatalogueComponent
-  component2: CatalogueComponent
-}
-
+/** A pure component as the catalogue shows it (the API's own wire type, from @ebullio/schemas). */
+export type CatalogueComponent = ComponentDto
+export type CatalogueSystem = SystemDto
 /** An approved version of a data set with the fit it was approved with. */
-export interface ApprovedVersion {
-  dataSetId: string
-  title: string
-  version: number
-  /** Pa */
-  nominalPressurePa: number
-  approvedAt: string | null
-  recommendedFit: { id: string; model: string; parameters: { name: string; value: number; standardError: number }[] } | null
-}
-
-export interface CatalogueEntry {
-  system: CatalogueSystem
-  approved: ApprovedVersion[]
-  superseded: { dataSetId: string; version: number; approvedAt: string | null }[]
-}
+export type ApprovedVersion = ApprovedVersionDto
+export type CatalogueEntry = CatalogueEntryDto
 
 /** The documented `ebullio-parameters/1` export of an approved data set (docs/csv-formats.md). */
 export interface ParametersExport {
@@ -65,25 +36,13 @@ export interface ParametersExport {
   approval: { signedBy: string; signedAt: string; reason: string; digest: string } | null
 }
 
-/** A measured equilibrium state of an approved data set: T in K, P in Pa, standard uncertainties (k = 1). */
-export interface MeasuredPoint {
-  id: string
-  seq: number
-  sampleLabel: string
-  temperatureK: number
-  pressurePa: number
-  x1: number
-  x1Uncertainty: number
-  y1: number
-  y1Uncertainty: number
-  excluded: boolean
-  exclusionReason: string | null
-}
+/** A measured equilibrium state of an approved data set, the fields the design screens read: T in K, P in Pa, standard uncertainties (k = 1). */
+export type MeasuredPoint = Pick<PointDto, 'id' | 'seq' | 'sampleLabel' | 'temperatureK' | 'pressurePa' | 'x1' | 'x1Uncertainty' | 'y1' | 'y1Uncertainty' | 'excluded' | 'exclusionReason'>
 
 /** The part of a data set's detail the design screens read: its points and the residuals of each fit. */
 export interface MeasuredData {
   points: MeasuredPoint[]
-  fits: { id: string; pointIds: string[]; residuals: Record<string, unknown>[] }[]
+  fits: Pick<FitDto, 'id' | 'pointIds' | 'residuals'>[]
 }
 
 const base = (id: string) => `/api/data-sets/${encodeURIComponent(id)}`

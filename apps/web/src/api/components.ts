@@ -1,31 +1,11 @@
 /** Pure components and their vapour-pressure sets (issue 5's `/api/components` routes). Molar mass g/mol, volume cm³/mol. */
+import type { ComponentDto, VaporPressureSetDto } from '@ebullio/schemas'
 import { api, query } from './client'
 
-export interface Component {
-  id: string
-  name: string
-  casNumber: string | null
-  formula: string | null
-  molarMass: number
-  liquidMolarVolume: number | null
-  rowVersion: number
-  createdAt: string
-}
+export type Component = ComponentDto
 
 /** A published vapour-pressure correlation, stored as published (thermo's VaporPressureModel in `parameters`). */
-export interface VaporPressureSet {
-  id: string
-  componentId: string
-  kind: 'antoine' | 'clausius-clapeyron'
-  parameters: Record<string, unknown> & { kind: string }
-  rangeMin: number | null
-  rangeMax: number | null
-  rangeUnit: 'C' | 'K' | null
-  source: string
-  preferred: boolean
-  enteredBy: string | null
-  createdAt: string
-}
+export type VaporPressureSet = Omit<VaporPressureSetDto, 'parameters'> & { parameters: Record<string, unknown> & { kind: string } }
 
 /** A measured pure-component boiling point: T in K at P in Pa. */
 export interface PureMeasurement {

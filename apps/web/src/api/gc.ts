@@ -1,17 +1,8 @@
 /** GC methods and calibrations (issue 5's `/api/gc-methods` and `/api/calibrations` routes). */
+import type { CalibrationDto, GcMethodDto } from '@ebullio/schemas'
 import { api, query } from './client'
 
-export interface GcMethod {
-  id: string
-  name: string
-  detector: 'FID' | 'TCD'
-  columnDescription: string | null
-  conditions: string | null
-  createdAt: string
-  /** A retired method's calibrations are retired with it and cannot be used for new uploads. */
-  status: 'active' | 'retired'
-  retiredAt: string | null
-}
+export type GcMethod = GcMethodDto
 
 /** thermo's fitted Calibration as stored (subset the screens read). */
 export interface CalibrationResult {
@@ -29,20 +20,7 @@ export interface CalibrationResult {
   warnings: string[]
 }
 
-export interface Calibration {
-  id: string
-  gcMethodId: string
-  systemId: string
-  model: 'response-factor' | 'linear' | 'quadratic'
-  result: CalibrationResult
-  rangeMin: number
-  rangeMax: number
-  status: 'active' | 'retired'
-  uploadId: string
-  createdBy: string
-  createdAt: string
-  retiredAt: string | null
-}
+export type Calibration = CalibrationDto<string, CalibrationResult>
 
 export interface CalibrationStandard {
   id: string

@@ -1,0 +1,139 @@
+/**
+ * Types only: the JSON the API answers with and the web app reads, for the engineer and admin screens
+ * (components, systems, points, fits, the catalogue, GC methods and calibrations). `D` is the type of a
+ * timestamp: `Date` in the API before serialisation, `string` (ISO 8601) on the wire, the default.
+ * Units: T in K, P in Pa, molar mass g/mol, liquid molar volume cm³/mol, compositions as mole fractions of
+ * component 1 (the lighter one), uncertainties standard (k = 1).
+ */
+
+/** A pure component. */
+export interface ComponentDto<D = string> {
+  id: string
+  name: string
+  casNumber: string | null
+  formula: string | null
+  /** g/mol */
+  molarMass: number
+  /** cm³/mol */
+  liquidMolarVolume: number | null
+  rowVersion: number
+  createdAt: D
+}
+
+/** A published vapour-pressure correlation, stored as published (thermo's VaporPressureModel in `parameters`). */
+export interface VaporPressureSetDto<D = string> {
+  id: string
+  componentId: string
+  kind: 'antoine' | 'clausius-clapeyron'
+  parameters: Record<string, unknown>
+  rangeMin: number | null
+  rangeMax: number | null
+  rangeUnit: 'C' | 'K' | null
+  source: string
+  preferred: boolean
+  enteredBy: string | null
+  createdAt: D
+}
+
+/** A binary system; component 1 is the lighter (lower-boiling) one. */
+export interface SystemDto<D = string> {
+  id: string
+  component1: ComponentDto<D>
+  component2: ComponentDto<D>
+  name: string
+  notes: string | null
+  createdAt: D
+}
+
+/** One measured equilibrium state of a data set. */
+export interface PointDto {
+  id: string
+  dataSetId: string
+  seq: number
+  sampleLabel: string
+  /** K */
+  temperatureK: number
+  /** Pa */
+  pressurePa: number
+  x1: number
+  x1Uncertainty: number
+  y1: number
+  y1Uncertainty: number
+  excluded: boolean
+  exclusionReason: string | null
+  uploadId: string | null
+  calibrationId: string | null
+  /** Lines of the uploaded file the point came from (the header is line 1). */
+  rowRefs: number[]
+}
+
+/** Activity models a fit can use. */
+export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+
+/** A fitted parameter in thermo's name and unit (Margules/Van Laar A12, A21; Wilson a12, a21 J/mol; NRTL b12, b21 J/mol, alpha). */
+export interface FitParameterDto {
+  name: string
+  value: number
+  standardError: number
+}
+
+/** A stored model fit as thermo returned it. */
+export interface FitDto<D = string> {
+  id: string
+  dataSetId: string
+  model: FitModelName
+  options: Record<string, unknown>
+  activity: Record<string, unknown>
+  parameters: FitParameterDto[]
+  statistics: Record<string, unknown>
+  residuals: Record<string, unknown>[]
+  pointIds: string[]
+  runBy: string
+  runAt: D
+}
+
+/** An approved version of a data set in the catalogue, with the fit it was approved with. */
+export interface ApprovedVersionDto<D = string> {
+  dataSetId: string
+  title: string
+  version: number
+  /** Pa */
+  nominalPressurePa: number
+  approvedAt: D | null
+  recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+}
+
+/** One system of the engineers' catalogue: its approved versions (newest first) and the superseded ones. */
+export interface CatalogueEntryDto<D = string> {
+  system: SystemDto<D>
+  approved: ApprovedVersionDto<D>[]
+  superseded: { dataSetId: string; version: number; approvedAt: D | null }[]
+}
+
+/** A GC method; a retired one keeps its history and none of its calibrations can be active. */
+export interface GcMethodDto<D = string> {
+  id: string
+  name: string
+  detector: 'FID' | 'TCD'
+  columnDescription: string | null
+  conditions: string | null
+  createdAt: D
+  status: 'active' | 'retired'
+  retiredAt: D | null
+}
+
+/** A fitted GC calibration of a method for a system; `R` is thermo's fitted Calibration as stored. */
+export interface CalibrationDto<D = string, R = Record<string, unknown>> {
+  id: string
+  gcMethodId: string
+  systemId: string
+  model: 'response-factor' | 'linear' | 'quadratic'
+  result: R
+  rangeMin: number
+  rangeMax: number
+  status: 'active' | 'retired'
+  uploadId: string
+  createdBy: string
+  createdAt: D
+  retiredAt: D | null
+}
