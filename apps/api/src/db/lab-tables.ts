@@ -221,6 +221,8 @@ export interface ApprovalTable {
   self_approval: Generated<boolean>
   override_reason: string | null
   signed_at: DefaultTimestamp
+  /** the outlier flags as signed ({ fitId, model, pointIds, sampleLabels, rule }); null before they were kept */
+  outliers: Json<unknown> | null
 }
 
 export interface AuditLogTable {

@@ -13,12 +13,24 @@ export interface ApprovalRecord {
   selfApproval: boolean
   overrideReason: string | null
   signedAt: Date
+  /** the outlier flags the signer saw (null: no recommended fit, or signed before flags were kept) */
+  outliers: SignedOutliers | null
 }
 
-export async function insertApproval(db: Db, a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName'>): Promise<string> {
+/** Points beyond ±2σ of one fit, as shown when signing. */
+export interface SignedOutliers {
+  fitId: string
+  model: string
+  pointIds: string[]
+  sampleLabels: string[]
+  /** how they were judged, in words */
+  rule: string
+}
+
+export async function insertApproval(db: Db, a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName' | 'outliers'> & { outliers?: SignedOutliers | null }): Promise<string> {
   const r = await db.insertInto('approval').values({
     data_set_id: a.dataSetId, signer_id: a.signerId, meaning: a.meaning, reason: a.reason, digest: a.digest,
-    self_approval: a.selfApproval, override_reason: a.overrideReason,
+    self_approval: a.selfApproval, override_reason: a.overrideReason, outliers: a.outliers ? JSON.stringify(a.outliers) : null,
   }).returning('id').executeTakeFirstOrThrow()
   return r.id
 }
@@ -30,5 +42,6 @@ export async function listApprovals(db: Db, dataSetId: string): Promise<Approval
   return rows.map((r) => ({
     id: r.id, dataSetId: r.data_set_id, signerId: r.signer_id, signerName: r.display_name, meaning: r.meaning, reason: r.reason,
     digest: r.digest, selfApproval: r.self_approval, overrideReason: r.override_reason, signedAt: r.signed_at,
+    outliers: (r.outliers as SignedOutliers | null) ?? null,
   }))
 }

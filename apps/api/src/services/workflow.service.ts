@@ -7,6 +7,7 @@ import type { Database, Db } from '../db/index.js'
 import { AppError, conflict, notFound } from '../errors/index.js'
 import { notifyUser } from '../mail/outbox.js'
 import { insertApproval, listApprovals } from '../repositories/approvals.repository.js'
+import { signedOutliers } from './outliers.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import { countOpenThreads } from '../repositories/comments.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
@@ -83,7 +84,8 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
       throw conflict(`This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`, { openThreads: open })
     }
     const digest = await contentDigest(tx, id)
-    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'approved', reason: s.reason, digest, selfApproval, overrideReason: open > 0 ? override : null })
+    const outliers = await signedOutliers(tx, id, d.recommendedFitId)
+    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'approved', reason: s.reason, digest, selfApproval, overrideReason: open > 0 ? override : null, outliers })
     const after = await repo.updateDataSet(tx, id, { state: 'approved', approvedAt: new Date() })
     for (const v of await repo.listVersions(tx, d.lineageId)) {
       if (v.id !== id && v.state === 'approved') {
@@ -109,7 +111,8 @@ export async function returnForRework(db: Kysely<Database>, config: Config, user
     requireState(d, ['submitted'], 'returning')
     await checkSignaturePassword(tx, user, s.password)
     const digest = await contentDigest(tx, id)
-    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'returned for rework', reason: s.reason, digest, selfApproval: false, overrideReason: null })
+    const outliers = await signedOutliers(tx, id, d.recommendedFitId)
+    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'returned for rework', reason: s.reason, digest, selfApproval: false, overrideReason: null, outliers })
     const after = await repo.updateDataSet(tx, id, { state: 'returned' })
     await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'return', dataSetId: id, before: { state: 'submitted' }, after: { state: 'returned', approvalId, reason: s.reason } })
     await notifyUser(tx, d.createdBy, {
