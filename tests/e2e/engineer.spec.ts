@@ -3,7 +3,7 @@ import { expect, test, type Page } from '@playwright/test'
 import { DEMO, shot, signIn } from './support/helpers'
 
 // Journey 4: an engineer uses the approved acetone/methanol system of the demo scenario for design.
-const SYSTEM = 'acetone + methanol'
+const SYSTEM = 'acetone / methanol'
 const VERSION = 'Kestrel acetone recycle'
 
 /** "x₁ = y₁ = 0.795 at 55.41 °C" → numbers. */
@@ -55,10 +55,33 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await expect(page.getByTestId('plot-txy')).toBeVisible()
   await expect(page.getByTestId('plot-txy')).toHaveAttribute('aria-label', /T–x–y/)
   await expect(page.getByTestId('design-caution').first()).toContainText('licensed engineer')
+  await expect(page.getByTestId('system-lead')).toContainText('component 1 is acetone, the lighter one at 101.33 kPa')
+  await expect(page.getByTestId('alpha-note')).toContainText('Crosses 1: the order of volatility reverses')
   await snapTop(page, 'eng-02-system-1atm')
 
-  // Lower the pressure to 50 kPa: everything boils lower and the azeotrope moves.
+  // 40 bar: by Table B.2's Antoine equations acetone would boil near 230 °C and methanol near 200 °C, far above
+  // the ranges the equations were fitted for (to 77 and 83 °C). The lines cross, so methanol is the lighter there;
+  // the diagrams are marked as extrapolation and the designs are refused. 60 bar is outside the field's limits.
   const pressure = page.locator('#sys-pressure')
+  await pressure.fill('4000')
+  await pressure.press('Tab')
+  await expect(page.getByTestId('system-lead')).toContainText('at 4000.00 kPa methanol boils lower and is the lighter one')
+  const banner = page.getByTestId('extrapolation-banner')
+  await expect(banner).toContainText('Extrapolated at 4000.00 kPa:')
+  await expect(banner).toContainText('above the range its vapour-pressure equation was fitted for (-26 to 77 °C)')
+  await expect(banner).toContainText('column and batch designs are not offered at this pressure')
+  await expect(page.getByTestId('extrapolation-banner')).toHaveCount(1)
+  await snapTop(page, 'eng-02b-system-40bar')
+  await page.getByTestId('tab-column').click()
+  await expect(page.getByTestId('design-blocked')).toContainText('No column estimate at 4000.00 kPa')
+  await expect(page.getByTestId('col-run')).toHaveCount(0)
+  await page.getByTestId('tab-diagrams').click()
+  await pressure.fill('6000')
+  await pressure.press('Tab')
+  await expect(page.getByTestId('pressure-error')).toHaveText('Enter a pressure from 0.50 kPa to 5000.00 kPa; 6000.00 kPa is outside what the approved data can support.')
+  await expect(page.getByTestId('system-lead')).toContainText('at 4000.00 kPa')
+
+  // Lower the pressure to 50 kPa: everything boils lower and the azeotrope moves.
   await pressure.fill('50')
   await pressure.press('Tab')
   await expect(page.getByText('Azeotrope at 50.00 kPa')).toBeVisible()
@@ -96,6 +119,11 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   // Fenske's total-reflux stages are a lower bound on the stages at finite reflux (common practice, no source).
   expect(nmin).toBeGreaterThan(1)
   expect(stages).toBeGreaterThan(nmin)
+  // The minimum is stepped on the model's curve at total reflux; Fenske's constant-α figure stands beside it. α falls
+  // towards the azeotrope at the top, so the geometric mean overstates it there and Fenske counts fewer stages.
+  const fenske = Number((await page.getByTestId('col-fenske').textContent())?.match(/estimate: ([\d.]+)/)?.[1])
+  expect(fenske).toBeGreaterThan(1)
+  expect(fenske).toBeLessThan(nmin)
   expect(feed).toBeGreaterThanOrEqual(1)
   expect(feed).toBeLessThanOrEqual(stages)
   await expect(page.getByRole('group', { name: 'Stage construction at 50.00 kPa' })).toBeVisible()
@@ -107,9 +135,15 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.locator('#col-xD').press('Tab')
   await page.getByTestId('col-run').click()
   await expect(page.getByTestId('col-failure')).toContainText('The target cannot be reached by distillation at 50.00 kPa.')
+  // the engine's "xB", "xD" are set as italic symbols with subscripts
   await expect(page.getByTestId('col-failure')).toContainText('lies between xB = 0.05 and xD = 0.95')
+  await expect(page.getByTestId('col-failure').locator('sub')).toHaveText(['1', 'B', 'D'])
   await page.waitForTimeout(400) // let the message finish its entrance before the screenshot
   await snapTop(page, 'eng-05-column-azeotrope')
+  // New inputs clear the old failure.
+  await page.locator('#col-xD').fill('0.7')
+  await page.locator('#col-xD').press('Tab')
+  await expect(page.getByTestId('col-failure')).toHaveCount(0)
 
   // Batch still: 100 mol at x1 = 0.5 with three stages above the pot at R = 3.
   await page.getByTestId('tab-batch').click()

@@ -1,30 +1,41 @@
 import { defineStore } from 'pinia'
 import { ref, watch } from 'vue'
 
-/** Temperature display units: degrees Celsius or kelvin. */
-export type TemperatureChoice = 'C' | 'K'
+/** Temperature display units: degrees Celsius, kelvin or degrees Fahrenheit. */
+export type TemperatureChoice = 'C' | 'K' | 'F'
 /** Pressure display units offered in the picker. */
-export type PressureChoice = 'kPa' | 'mmHg' | 'bar' | 'atm'
+export type PressureChoice = 'kPa' | 'mmHg' | 'bar' | 'atm' | 'psi'
 
 export const TEMPERATURE_CHOICES: { value: TemperatureChoice; label: string }[] = [
   { value: 'C', label: '°C' },
   { value: 'K', label: 'K' },
+  { value: 'F', label: '°F' },
 ]
 export const PRESSURE_CHOICES: { value: PressureChoice; label: string }[] = [
   { value: 'kPa', label: 'kPa' },
   { value: 'mmHg', label: 'mmHg' },
   { value: 'bar', label: 'bar' },
   { value: 'atm', label: 'atm' },
+  { value: 'psi', label: 'psi' },
 ]
 
 /**
  * Pascals per display unit. Kept here rather than imported from @ebullio/thermo's units module,
  * which pulls mathjs into the first page; the values are the same conventional ones
- * (BIPM SI Brochure, 9th ed., 2019, Table 8: 1 mmHg = 133.322387415 Pa, 1 atm = 101325 Pa, 1 bar = 1e5 Pa).
+ * (BIPM SI Brochure, 9th ed., 2019, Table 8: 1 mmHg = 133.322387415 Pa, 1 atm = 101325 Pa, 1 bar = 1e5 Pa;
+ * NIST SP 811, 2008 ed., Appendix B.8 (from memory): 1 psi = 6894.757293168 Pa).
  */
-export const PA_PER: Readonly<Record<PressureChoice, number>> = { kPa: 1000, mmHg: 133.322387415, bar: 1e5, atm: 101325 }
+export const PA_PER: Readonly<Record<PressureChoice, number>> = { kPa: 1000, mmHg: 133.322387415, bar: 1e5, atm: 101325, psi: 6894.757293168 }
 /** Decimals that keep a typical laboratory reading meaningful in each unit. */
-const P_DECIMALS: Record<PressureChoice, number> = { kPa: 2, mmHg: 1, bar: 4, atm: 4 }
+const P_DECIMALS: Record<PressureChoice, number> = { kPa: 2, mmHg: 1, bar: 4, atm: 4, psi: 3 }
+
+/**
+ * The one rounding rule for a shown number: half away from zero on its shortest decimal form (Intl, as PrimeVue's
+ * InputNumber formats), so a field and a label show the same digits (101325 Pa is 1.0133 bar in both).
+ */
+export function roundShown(v: number, decimals: number): string {
+  return new Intl.NumberFormat('en-US', { useGrouping: false, minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(v)
+}
 
 const KEY = 'ebullio.units'
 
@@ -32,8 +43,8 @@ function readStored(): { t: TemperatureChoice; p: PressureChoice } {
   try {
     const v = JSON.parse(localStorage.getItem(KEY) ?? '{}') as { t?: string; p?: string }
     return {
-      t: v.t === 'K' ? 'K' : 'C',
-      p: (['kPa', 'mmHg', 'bar', 'atm'] as string[]).includes(v.p ?? '') ? (v.p as PressureChoice) : 'kPa',
+      t: v.t === 'K' || v.t === 'F' ? v.t : 'C',
+      p: (['kPa', 'mmHg', 'bar', 'atm', 'psi'] as string[]).includes(v.p ?? '') ? (v.p as PressureChoice) : 'kPa',
     }
   } catch {
     return { t: 'C', p: 'kPa' }
@@ -47,28 +58,34 @@ export const usePreferencesStore = defineStore('preferences', () => {
   const pressureUnit = ref<PressureChoice>(stored.p)
   watch([temperatureUnit, pressureUnit], ([t, p]) => localStorage.setItem(KEY, JSON.stringify({ t, p })))
 
-  /** Label of the temperature unit ("°C" or "K"). */
-  const tLabel = () => (temperatureUnit.value === 'C' ? '°C' : 'K')
+  /** Label of the temperature unit ("°C", "K" or "°F"). */
+  const tLabel = () => ({ C: '°C', K: 'K', F: '°F' })[temperatureUnit.value]
+  /** Label of a temperature difference: "K" for °C and K, "°F" for °F. */
+  const dTLabel = () => (temperatureUnit.value === 'F' ? '°F' : 'K')
   /** Label of the pressure unit. */
   const pLabel = () => pressureUnit.value
 
-  /** Kelvin → display value. */
-  const tFromK = (T: number) => (temperatureUnit.value === 'C' ? T - 273.15 : T)
+  /** Kelvin → display value (°F = (T − 273.15)·9/5 + 32, exact by definition). */
+  const tFromK = (T: number) => (temperatureUnit.value === 'C' ? T - 273.15 : temperatureUnit.value === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T)
   /** Display value → kelvin. */
-  const tToK = (v: number) => (temperatureUnit.value === 'C' ? v + 273.15 : v)
-  /** A temperature difference in K is the same number in °C; kept for readability at call sites. */
-  const dT = (d: number) => d
+  const tToK = (v: number) => (temperatureUnit.value === 'C' ? v + 273.15 : temperatureUnit.value === 'F' ? ((v - 32) * 5) / 9 + 273.15 : v)
+  /** A temperature difference in K → the display unit's difference (the same number in °C, × 9/5 in °F). */
+  const dT = (d: number) => (temperatureUnit.value === 'F' ? (d * 9) / 5 : d)
   /** Pascal → display value. */
   const pFromPa = (P: number) => P / PA_PER[pressureUnit.value]
   /** Display value → pascal. */
   const pToPa = (v: number) => v * PA_PER[pressureUnit.value]
+  /** Decimals shown for a pressure in the chosen unit. */
+  const pDecimals = () => P_DECIMALS[pressureUnit.value]
+  /** Pascal → the display value rounded as everywhere it is shown (fields and labels alike). */
+  const pShown = (P: number) => Number(roundShown(pFromPa(P), pDecimals()))
 
   /** "63.12 °C" from kelvin. */
   const fmtT = (T: number | null | undefined, decimals = 2) =>
     T === null || T === undefined || !Number.isFinite(T) ? '—' : `${tFromK(T).toFixed(decimals)} ${tLabel()}`
   /** "101.33 kPa" from pascal. */
   const fmtP = (P: number | null | undefined, decimals?: number) =>
-    P === null || P === undefined || !Number.isFinite(P) ? '—' : `${pFromPa(P).toFixed(decimals ?? P_DECIMALS[pressureUnit.value])} ${pLabel()}`
+    P === null || P === undefined || !Number.isFinite(P) ? '—' : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
 
-  return { temperatureUnit, pressureUnit, tLabel, pLabel, tFromK, tToK, dT, pFromPa, pToPa, fmtT, fmtP }
+  return { temperatureUnit, pressureUnit, tLabel, dTLabel, pLabel, tFromK, tToK, dT, pFromPa, pToPa, pDecimals, pShown, fmtT, fmtP }
 })

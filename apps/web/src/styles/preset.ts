@@ -33,4 +33,30 @@ export const EbullioPreset = definePreset(Nora, {
       },
     },
   },
+  // Warnings in dark ink on the light amber (--eb-amber-soft, edged with --eb-amber): the base's white text on
+  // mid-yellow falls far short of WCAG AA contrast (4.5:1); ink #221f1b on #fbf1dc is about 15:1.
+  components: {
+    message: {
+      colorScheme: {
+        light: {
+          warn: {
+            background: '#fbf1dc', borderColor: '#c98a12', color: '#221f1b', shadow: 'none',
+            closeButton: { hoverBackground: '#f2dfb4', focusRing: { color: '#221f1b', shadow: 'none' } },
+            outlined: { color: '#7a5408', borderColor: '#c98a12' },
+            simple: { color: '#7a5408' },
+          },
+        },
+      },
+    },
+    toast: {
+      colorScheme: {
+        light: {
+          warn: {
+            background: '#fbf1dc', borderColor: '#c98a12', color: '#221f1b', detailColor: '#221f1b', shadow: '{overlay.popover.shadow}',
+            closeButton: { hoverBackground: '#f2dfb4', focusRing: { color: '#221f1b', shadow: 'none' } },
+          },
+        },
+      },
+    },
+  },
 })

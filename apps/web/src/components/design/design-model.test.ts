@@ -1,6 +1,6 @@
-import type { BinarySystem } from '@ebullio/thermo'
+import { dewTemperature, type BinarySystem } from '@ebullio/thermo'
 import { describe, expect, it } from 'vitest'
-import { curveTableCsv, cutsOf, diagramsAt, measuredForPlot, tidyWarnings, type StillFrame } from './design-model'
+import { ALPHA_VARIES_RATIO, curveTableCsv, cutsOf, diagramsAt, measuredForPlot, minimumStages, panelWarnings, tidyWarnings, type StillFrame } from './design-model'
 
 // Antoine constants, ln(P/kPa) = A − B/(t/°C + C): Smith, Van Ness & Abbott, 7th ed., Table B.2
 // (benzene A,B,C read in print; toluene from memory, it reproduces the table's normal boiling point).
@@ -89,5 +89,68 @@ describe('measuredForPlot', () => {
     expect(measuredForPlot(m, 'f1').map((x) => x.outlier)).toEqual([false, true, false])
     expect(measuredForPlot(m, 'f2').map((x) => x.outlier)).toEqual([false, false, true])
     expect(measuredForPlot(m, null).some((x) => x.outlier)).toBe(false)
+  })
+})
+
+describe('minimumStages (acetone / methanol, the demo system: SVNA 7th ed. Table 12.5 Wilson, Table B.2 Antoine, 101.325 kPa)', () => {
+  const CAL = 4.184 // J per thermochemical calorie
+  const acetoneMethanol: BinarySystem = {
+    vaporPressure: [
+      { kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C', range: [-26, 77] },
+      { kind: 'antoine', A: 16.5785, B: 3638.27, C: 239.5, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C', range: [-11, 83] },
+    ],
+    activity: { kind: 'wilson', a12: -161.88 * CAL, a21: 583.11 * CAL, V1: 74.05, V2: 40.73 },
+    names: ['acetone', 'methanol'],
+  }
+  // The column screen's default targets for this system (distillate short of the azeotrope near x1 = 0.79).
+  const targets = { xF: 0.41, q: 1, xD: 0.76, xB: 0.05 }
+  const m = minimumStages(acetoneMethanol, 101325, targets)
+
+  /**
+   * Total-reflux stepping done independently, point by point with the engine's dew point (the definition of
+   * the construction, common practice, no source): the operating line is the diagonal, so each stage's liquid
+   * is the dew-point liquid of the vapour leaving it, and that liquid's composition is the vapour of the stage
+   * below; the last stage is counted as the fraction of its step needed to reach xB.
+   */
+  function steppedByHand(xD: number, xB: number): number {
+    let y = xD
+    for (let n = 1; n < 100; n++) {
+      const x = dewTemperature(acetoneMethanol, { P: 101325, y1: y }).x1
+      if (x <= xB) return n - 1 + (y - xB) / (y - x)
+      y = x
+    }
+    throw new Error('did not reach xB')
+  }
+
+  it('steps at total reflux on the model curve: the same count as stepping by hand with dew points (±0.05 stage)', () => {
+    expect(Math.abs(m.Nmin - steppedByHand(0.76, 0.05))).toBeLessThan(0.05)
+    expect(m.wholeStages).toBe(Math.ceil(m.Nmin - 1e-9))
+  })
+
+  it('puts the Fenske constant-α figure beside it, lower, and flags how strongly α varies between the targets', () => {
+    // Fenske with the geometric-mean α: ln[(xD/(1 − xD))·((1 − xB)/xB)] / ln √(α_top·α_bottom).
+    const f = m.fenske
+    expect(f.Nmin).toBeCloseTo(Math.log((0.76 / 0.24) * (0.95 / 0.05)) / Math.log(Math.sqrt(f.alphaTop * f.alphaBottom)), 10)
+    expect(f.Nmin).toBeLessThan(m.Nmin - 2)
+    expect(m.alphaRange.min).toBeCloseTo(Math.min(f.alphaTop, f.alphaBottom), 12)
+    expect(m.alphaRange.max / m.alphaRange.min).toBeGreaterThan(ALPHA_VARIES_RATIO)
+    expect(m.alphaVaries).toBe(true)
+  })
+
+  it('does not flag a nearly constant α (benzene–toluene, ideal)', () => {
+    const ideal = minimumStages(benzeneToluene, 101325, { xF: 0.5, q: 1, xD: 0.95, xB: 0.05 })
+    expect(ideal.alphaVaries).toBe(false)
+    // With α almost constant, stepping and Fenske agree closely (common practice, no source): within 0.3 stage.
+    expect(Math.abs(ideal.Nmin - ideal.fenske.Nmin)).toBeLessThan(0.3)
+  })
+})
+
+describe('panelWarnings', () => {
+  it('leaves out the range warnings (summarised once per screen) and keeps the others', () => {
+    const ws = [
+      'n-hexane: temperatures from 68.70 to 98.40 °C reach outside the range of its vapour-pressure correlation (-19 to 92 °C); values there are extrapolated.',
+      'xD is at or below the vapour in equilibrium with the feed: any reflux ratio reaches it (Rmin = 0).',
+    ]
+    expect(panelWarnings(ws)).toEqual([ws[1]])
   })
 })

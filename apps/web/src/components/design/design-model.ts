@@ -17,6 +17,7 @@ import {
   type VaporPressureModel,
 } from '@ebullio/thermo'
 import type { MeasuredData, ParametersExport } from '../../api/catalogue'
+import { isRangeWarning } from './design-limits'
 import type { TxyPoint } from '../plots'
 
 /** thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default). */
@@ -59,6 +60,14 @@ export function errorText(e: unknown): string {
 export function tidyWarnings(ws: string[]): string[] {
   const out = ws.map((w) => w.replace(/: -?[\d.]+ K \(-?[\d.]+ °C\) is/, ': part of this calculation is'))
   return [...new Set(out)]
+}
+
+/**
+ * The warnings a design panel shows itself: the engine's vapour-pressure range warnings are left out because
+ * the system screen lists what is extrapolated at this pressure once, in one banner (design-limits.ts).
+ */
+export function panelWarnings(ws: string[]): string[] {
+  return tidyWarnings(ws.filter((w) => !isRangeWarning(w)))
 }
 
 /** Everything the diagrams tab shows at one pressure. T in K, P in Pa. */
@@ -125,10 +134,38 @@ export interface ColumnInputs {
   rFactor: number
 }
 
-/** Fenske, minimum reflux and a McCabe–Thiele stage count on the approved model at pressure P (Pa). */
+/**
+ * Above this ratio of the larger to the smaller end value of α between x_B and x_D the Fenske figure is flagged
+ * as unreliable: the equation assumes α roughly constant (common practice, no source; 20 % is our threshold).
+ */
+export const ALPHA_VARIES_RATIO = 1.2
+
+/**
+ * Minimum theoretical stages (reboiler counted) at pressure P (Pa): stepped at total reflux (R = Infinity) on the
+ * model's own x–y curve — the figure to use — and, beside it, the Fenske constant-α estimate with the α range
+ * between x_B (bottom) and x_D (top) and whether α varies too much for Fenske to be trusted.
+ */
+export function minimumStages(system: BinarySystem, P: number, c: Omit<ColumnInputs, 'rFactor'>) {
+  const source = { system, P }
+  const stepped = mccabeThiele(source, { xF: c.xF, q: c.q, xD: c.xD, xB: c.xB, R: Infinity })
+  const constantAlpha = fenske(source, { xD: c.xD, xB: c.xB })
+  const lo = Math.min(constantAlpha.alphaTop, constantAlpha.alphaBottom)
+  const hi = Math.max(constantAlpha.alphaTop, constantAlpha.alphaBottom)
+  return {
+    Nmin: stepped.fractionalStages,
+    wholeStages: stepped.stages,
+    fenske: constantAlpha,
+    alphaRange: { min: lo, max: hi },
+    alphaVaries: hi / lo > ALPHA_VARIES_RATIO,
+    warnings: [...stepped.warnings, ...constantAlpha.warnings],
+  }
+}
+export type MinimumStages = ReturnType<typeof minimumStages>
+
+/** Minimum stages (stepped, with Fenske beside), minimum reflux and a McCabe–Thiele stage count on the approved model at pressure P (Pa). */
 export function columnEstimate(system: BinarySystem, P: number, c: ColumnInputs) {
   const source = { system, P }
-  const minStages = fenske(source, { xD: c.xD, xB: c.xB })
+  const minStages = minimumStages(system, P, c)
   const rmin = minimumReflux(source, { xF: c.xF, q: c.q, xD: c.xD })
   const stages = mccabeThiele(source, { xF: c.xF, q: c.q, xD: c.xD, xB: c.xB, R: { timesMinimum: c.rFactor } })
   return { minStages, rmin, stages }

@@ -2,7 +2,7 @@
  * The ±2σ band of a fitted T–x–y curve and the "measure next" marks on the composition axis, as ECharts
  * custom series (ECharts has no band series that follows a curve in both directions).
  */
-import { fmt, showT } from './plot-style'
+import { fmt, showT, tUnit } from './plot-style'
 import type { TemperatureUnit, TxyBand, TxySuggestion } from './plot-types'
 
 type Api = { coord: (v: number[]) => number[]; value: (i: number) => number }
@@ -39,7 +39,7 @@ const MARK = 7 // px, half the width of a "measure next" mark
 
 /** Numbered marks standing on the composition axis at each suggested liquid composition, best first. */
 export function suggestionSeries(items: TxySuggestion[], unit: TemperatureUnit, colour: string): Record<string, unknown> {
-  const tU = unit === 'C' ? '°C' : 'K'
+  const tU = tUnit(unit)
   return {
     // y is the bubble temperature, so the marks never stretch the temperature axis; they are drawn on the x axis.
     type: 'custom', name: 'Measure next', z: 7, encode: { x: 0, y: 1 },

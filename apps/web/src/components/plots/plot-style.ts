@@ -13,12 +13,22 @@ export const VAPOUR = { colour: '#c98a12', symbol: 'diamond' }
 
 /** Temperature in kelvin → the shown unit. */
 export function showT(T: number, unit: TemperatureUnit): number {
-  return unit === 'C' ? T - 273.15 : T
+  return unit === 'C' ? T - 273.15 : unit === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T
 }
 
-/** Axis label of a temperature: "T / °C" or "T / K". */
+/** A temperature difference in K → the shown unit (× 9/5 in °F). */
+export function showDT(d: number, unit: TemperatureUnit): number {
+  return unit === 'F' ? (d * 9) / 5 : d
+}
+
+/** The unit's symbol: "°C", "K" or "°F". */
+export function tUnit(unit: TemperatureUnit): string {
+  return unit === 'C' ? '°C' : unit === 'F' ? '°F' : 'K'
+}
+
+/** Axis label of a temperature: "T / °C", "T / K" or "T / °F". */
 export function tLabel(unit: TemperatureUnit): string {
-  return unit === 'C' ? 'T / °C' : 'T / K'
+  return `T / ${tUnit(unit)}`
 }
 
 /** A number for a tooltip, with a fixed count of decimals and no trailing noise. */

@@ -1,7 +1,7 @@
 /** Shapes the plot components take. Temperatures are always given in kelvin; the unit prop only changes what is shown. */
 
 /** Temperature shown on an axis: kelvin or degrees Celsius. */
-export type TemperatureUnit = 'K' | 'C'
+export type TemperatureUnit = 'K' | 'C' | 'F'
 
 /** One measured equilibrium state for the T–x–y plot. T in K, compositions as mole fractions of component 1. */
 export interface TxyPoint {

@@ -1,7 +1,7 @@
 /** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
 import { bandSeries, suggestionSeries } from './band-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
-import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, showT, tLabel, valueAxis, VAPOUR, WARN } from './plot-style'
+import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, showDT, showT, tLabel, tUnit, valueAxis, VAPOUR, WARN } from './plot-style'
 import type { AzeotropeMark, PureBoiling, TemperatureUnit, TxyBand, TxyCurve, TxyPoint, TxySuggestion } from './plot-types'
 
 /** Inputs of `txyOption`; see TxyPlot.vue for what each means. */
@@ -40,10 +40,10 @@ function pointItem(p: TxyPoint, phase: 'liquid' | 'vapour', unit: TemperatureUni
 
 function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput): string {
   const p = d.point
-  const tU = o.unit === 'C' ? '°C' : 'K'
+  const tU = tUnit(o.unit)
   const lines = [
     `<b>${p.note ? p.note : 'Point'}</b> · ${d.phase}`,
-    `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(p.uT, 2)}` : ''}`,
+    `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(showDT(p.uT, o.unit), 2)}` : ''}`,
     `x₁ = ${fmt(p.x1)}${p.ux1 ? ` ± ${fmt(p.ux1)}` : ''}`,
     `y₁ = ${fmt(p.y1)}${p.uy1 ? ` ± ${fmt(p.uy1)}` : ''}`,
   ]
@@ -55,8 +55,8 @@ function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput):
 function measuredSeries(o: TxyOptionInput): Record<string, unknown>[] {
   const liquid = o.points.map((p) => pointItem(p, 'liquid', o.unit))
   const vapour = o.points.filter((p) => p.y1 !== null).map((p) => pointItem(p, 'vapour', o.unit))
-  const barsL: ErrorBarDatum[] = o.points.map((p) => [p.x1, showT(p.T, o.unit), o.k * (p.ux1 ?? 0), o.k * (p.uT ?? 0)])
-  const barsV: ErrorBarDatum[] = o.points.filter((p) => p.y1 !== null).map((p) => [p.y1 as number, showT(p.T, o.unit), o.k * (p.uy1 ?? 0), o.k * (p.uT ?? 0)])
+  const barsL: ErrorBarDatum[] = o.points.map((p) => [p.x1, showT(p.T, o.unit), o.k * (p.ux1 ?? 0), o.k * showDT(p.uT ?? 0, o.unit)])
+  const barsV: ErrorBarDatum[] = o.points.filter((p) => p.y1 !== null).map((p) => [p.y1 as number, showT(p.T, o.unit), o.k * (p.uy1 ?? 0), o.k * showDT(p.uT ?? 0, o.unit)])
   const flagged = o.points
     .filter((p) => p.outlier)
     .flatMap((p) => [[p.x1, showT(p.T, o.unit)], ...(p.y1 !== null ? [[p.y1, showT(p.T, o.unit)]] : [])])
@@ -87,7 +87,7 @@ function curveSeries(o: TxyOptionInput): Record<string, unknown>[] {
 function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
   const out: Record<string, unknown>[] = []
   if (o.pure) {
-    const tU = o.unit === 'C' ? '°C' : 'K'
+    const tU = tUnit(o.unit)
     const data = [
       // Labels sit just inside the plot, on a light backing so a curve passing behind them does not hide them.
       { value: [1, showT(o.pure.T1, o.unit)], label: { position: 'left', offset: [-2, -12] }, name: o.names[0] },
@@ -100,7 +100,7 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
     })
   }
   if (o.azeotrope && o.azeotrope.T !== undefined) {
-    const tU = o.unit === 'C' ? '°C' : 'K'
+    const tU = tUnit(o.unit)
     out.push({
       type: 'scatter', name: 'Azeotrope', z: 6, symbol: 'triangle', symbolSize: 13,
       itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },

@@ -1,0 +1,50 @@
+import { createPinia, setActivePinia } from 'pinia'
+import { beforeEach, describe, expect, it } from 'vitest'
+import { PA_PER, PRESSURE_CHOICES, roundShown, TEMPERATURE_CHOICES, usePreferencesStore } from './preferences'
+
+beforeEach(() => {
+  localStorage.clear()
+  setActivePinia(createPinia())
+})
+
+describe('preferences: display units', () => {
+  it('offers °F and psi beside the earlier units', () => {
+    expect(TEMPERATURE_CHOICES.map((c) => c.label)).toEqual(['°C', 'K', '°F'])
+    expect(PRESSURE_CHOICES.map((c) => c.value)).toEqual(['kPa', 'mmHg', 'bar', 'atm', 'psi'])
+  })
+
+  it('converts to °F by the definition t/°F = 1.8·(T/K − 273.15) + 32 (NIST SP 811, 2008 ed.; section from memory): water boils at 212 °F, 1 K is 1.8 °F', () => {
+    const p = usePreferencesStore()
+    p.temperatureUnit = 'F'
+    expect(p.tFromK(373.15)).toBeCloseTo(212, 10)
+    expect(p.tToK(32)).toBeCloseTo(273.15, 10)
+    expect(p.fmtT(373.15)).toBe('212.00 °F')
+    expect(p.dT(1)).toBeCloseTo(1.8, 12)
+    expect(p.dTLabel()).toBe('°F')
+  })
+
+  it('shows 1 atm as 14.696 psi (1 psi = 6894.757293168 Pa, NIST SP 811, 2008 ed., Appendix B.8, from memory)', () => {
+    const p = usePreferencesStore()
+    p.pressureUnit = 'psi'
+    expect(PA_PER.psi).toBe(6894.757293168)
+    expect(p.fmtP(101325)).toBe('14.696 psi')
+  })
+
+  it('rounds a pressure the same way in a field and in a label (101325 Pa → 1.0133 bar)', () => {
+    const p = usePreferencesStore()
+    p.pressureUnit = 'bar'
+    expect(p.fmtP(101325)).toBe('1.0133 bar')
+    expect(p.pShown(101325)).toBe(1.0133)
+    expect(roundShown(101.325, 2)).toBe('101.33')
+  })
+
+  it('remembers °F and psi in this browser', async () => {
+    const p = usePreferencesStore()
+    p.temperatureUnit = 'F'
+    p.pressureUnit = 'psi'
+    await Promise.resolve()
+    setActivePinia(createPinia())
+    const again = usePreferencesStore()
+    expect([again.temperatureUnit, again.pressureUnit]).toEqual(['F', 'psi'])
+  })
+})
