@@ -1,6 +1,7 @@
 import { ThermoError } from '../errors.js'
 import { buildFitData, type BinaryPoint } from '../fitting/fit-input.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
+import { saturationTemperature } from '../vapor-pressure/index.js'
 import type { VaporPressureModel } from '../types.js'
 
 /** Result of {@link heringtonAreaTest}. */
@@ -9,6 +10,10 @@ export interface HeringtonResult {
   D: number
   /** J = 150·(Tmax − Tmin)/Tmin, temperatures in K. */
   J: number
+  /** The boiling range behind J, in K, and where it came from. */
+  Tmax: number
+  Tmin: number
+  temperatureSpan: string
   passed: boolean
   integrand: { x1: number; lnGammaRatio: number }[]
   rule: string
@@ -20,7 +25,9 @@ export interface HeringtonResult {
  * passes when D − J < 10. ln(γ1/γ2) = ln(y1·x2/(y2·x1)) + ln(P2sat/P1sat) at each measured T.
  * Integration: trapezoidal rule over the measured compositions, sorted by x1, without extrapolation to
  * the pure ends. Points with x1 or y1 equal to 0 or 1, and excluded points, are not in the integrand;
- * Tmax and Tmin use every point that is not excluded, pure ones included.
+ * Tmax and Tmin span the boiling range of the system: every point that is not excluded, and the pure-component
+ * boiling points at the mean pressure from the vapour-pressure models (measured points rarely reach both ends,
+ * and a range taken from the points alone understates J).
  * @param points T in K, P in Pa, mole fractions; at least 3 mixture points.
  */
 export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressure: [VaporPressureModel, VaporPressureModel] }): HeringtonResult {
@@ -48,13 +55,16 @@ export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressur
     area += 0.5 * h * (a.lnGammaRatio + b.lnGammaRatio)
     absArea += trapezoidAbs(h, a.lnGammaRatio, b.lnGammaRatio)
   }
-  const temps = points.filter((p) => !p.excluded).map((p) => p.T)
+  const kept = points.filter((p) => !p.excluded)
+  const meanP = kept.reduce((sum, p) => sum + p.P, 0) / kept.length
+  const pureBoiling = options.vaporPressure.map((m) => saturationTemperature(m, meanP))
+  const temps = [...kept.map((p) => p.T), ...pureBoiling]
   const Tmin = Math.min(...temps)
   const Tmax = Math.max(...temps)
   const D = absArea > 0 ? (100 * Math.abs(area)) / absArea : 0
   const J = (150 * (Tmax - Tmin)) / Tmin
   const warnings: string[] = spanWarnings(options.vaporPressure, Tmin, Tmax)
-  const pressures = points.filter((p) => !p.excluded).map((p) => p.P)
+  const pressures = kept.map((p) => p.P)
   if (Math.max(...pressures) > 1.01 * Math.min(...pressures)) {
     warnings.push('The pressures differ by more than 1 %; the area test is meant for isobaric data.')
   }
@@ -62,6 +72,9 @@ export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressur
     D,
     J,
     passed: D - J < 10,
+    Tmax,
+    Tmin,
+    temperatureSpan: `measured points and both pure boiling points at the mean pressure (${(meanP / 1000).toFixed(2)} kPa)`,
     integrand,
     rule: 'trapezoidal rule over the measured compositions (no extrapolation to the pure ends)',
     warnings,

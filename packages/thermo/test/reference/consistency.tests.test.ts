@@ -93,3 +93,21 @@ describe('pure-component boiling points against the vapour-pressure models', () 
     ])
   })
 })
+
+describe('Herington J spans the system boiling range', () => {
+  // Herington's J uses the boiling range of the system (E. F. G. Herington, J. Inst. Petrol. 37 (1951) 457;
+  // the use of the whole range is from memory). Points only from x1 = 0.2 to 0.8 must not shrink it.
+  it('takes the pure boiling points at the mean pressure into Tmax and Tmin', () => {
+    const P = 101325
+    const points: BinaryPoint[] = [0.2, 0.35, 0.5, 0.65, 0.8].map((x1) => {
+      const b = bubbleTemperature(system, { P, x1 })
+      return { T: b.T, P, x1, y1: b.y1 }
+    })
+    const r = heringtonAreaTest(points, { vaporPressure })
+    // SVNA Table B.2: water boils at 100.0 °C; 1-propanol at 97.2 °C; the mixture's minimum lies inside the points.
+    expect(r.Tmax - 273.15).toBeCloseTo(100.0, 1)
+    expect(r.Tmin).toBeCloseTo(Math.min(...points.map((p) => p.T)), 10)
+    expect(r.J).toBeCloseTo((150 * (r.Tmax - r.Tmin)) / r.Tmin, 12)
+    expect(r.temperatureSpan).toBe('measured points and both pure boiling points at the mean pressure (101.33 kPa)')
+  })
+})
