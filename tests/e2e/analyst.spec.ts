@@ -45,6 +45,10 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await snap(page, 'lab-03-calibration-preview')
   const ack = dialog.getByTestId('ack-warnings')
   if (await ack.count()) await dialog.getByText(/I have checked the/).click()
+  // The demo lab already has an active calibration on this GC method: replacing it must be acknowledged.
+  await expect(dialog.getByTestId('replaces-calibration')).toContainText(/This replaces the active calibration of calibration-acetone-methanol\.csv .*k = .* ± .*, x₁ .*used by \d+ data sets?/)
+  await expect(dialog.getByTestId('commit-upload')).toBeDisabled()
+  await dialog.getByText('Retire the active calibration and use this one from now on').click()
   await dialog.getByTestId('commit-upload').click()
   await expect(page.getByText('Calibration stored')).toBeVisible()
 
@@ -56,6 +60,10 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await expect(dialog.locator('tr[data-line="10"] td[data-problem="error"]')).toContainText('130x365.0')
   await expect(dialog.getByTestId('commit-upload')).toBeDisabled()
   await expect(dialog.getByTestId('commit-blocked')).toBeVisible()
+  // The run preview names the calibration it computes with, and greys the samples resting on part of their injections.
+  await expect(dialog.getByTestId('run-calibration')).toContainText('calibration-acetone-methanol.csv')
+  await expect(dialog.getByTestId('partial-sample')).toHaveCount(3)
+  await expect(dialog.getByTestId('preview-samples')).toContainText('liquid: 1 of 2 injections used')
   await snap(page, 'lab-04-run-preview-with-errors')
 
   await dialog.getByTestId('another-file').click()
@@ -117,4 +125,12 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await expect(page.getByTestId('dataset-state')).toHaveText('Submitted')
   await expect(page.getByTestId('open-upload')).toHaveCount(0)
   await snap(page, 'lab-09-submitted')
+
+  // The record names the calibration behind the points, and the audit trail has its commit and the replacement.
+  await page.getByRole('tab', { name: 'Record' }).click()
+  await expect(page.getByTestId('record-calibrations')).toContainText('calibration-acetone-methanol.csv')
+  await expect(page.getByTestId('record-calibrations')).toContainText('Relative response factor')
+  await expect(page.getByTestId('audit-trail')).toContainText('upload calibration file')
+  await expect(page.getByTestId('audit-trail')).toContainText('retire')
+  await snap(page, 'lab-10-record-calibration')
 })

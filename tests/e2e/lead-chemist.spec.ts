@@ -35,6 +35,9 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(dialog.getByTestId('sign-version')).toHaveText('1')
   await expect(dialog.getByTestId('sign-points')).toContainText('12 measured')
   await expect(dialog.getByTestId('sign-fit')).toContainText('Wilson')
+  await expect(dialog.getByTestId('sign-fit')).toContainText(/a12 = \S+ ± \S+ J\/mol/)
+  await expect(dialog.getByTestId('sign-calibrations')).toContainText('Relative response factor, k = ')
+  await expect(dialog.getByTestId('sign-outliers')).toContainText('against Wilson (recommended)')
   await dialog.getByTestId('sign').click()
   await expect(dialog.getByText('Re-enter your password to sign')).toBeVisible()
   await expect(dialog.getByText('Give the reason for your signature')).toBeVisible()
@@ -56,6 +59,8 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(record).toContainText('Dr. Tobias Lindqvist')
   await expect(record).toContainText('Wilson recommended for the mother-liquor column')
   await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
+  await expect(record.getByTestId('approval-outliers')).toContainText('Outliers as signed, against Wilson (recommended)')
+  await expect(record.getByTestId('approval-parameters')).toContainText('J/mol')
   await expect(page.getByTestId('open-approve')).toHaveCount(0)
   await snap(page, 'lab-23-approved-record')
 

@@ -99,6 +99,8 @@ export interface Approval {
   selfApproval: boolean
   overrideReason: string | null
   signedAt: string
+  /** the outlier flags the signer saw (null: signed before they were kept, or no recommended fit) */
+  outliers?: { fitId: string; model: string; pointIds: string[]; sampleLabels: string[]; rule: string } | null
 }
 
 /** Everything the workspace shows about one data set version. */

@@ -1,0 +1,25 @@
+import { describe, expect, it } from 'vitest'
+import type { Fit } from '../../api/datasets'
+import { fitLabel } from './fit-helpers'
+
+const fit = (id: string, model: Fit['model'], runAt: string, options: Record<string, unknown> = {}, points = 12): Fit => ({
+  id, dataSetId: 'd', model, options, activity: { kind: model }, parameters: [], statistics: {}, residuals: [],
+  pointIds: Array.from({ length: points }, (_, i) => `p${i}`), runBy: 'u', runAt,
+})
+
+describe('fit labels', () => {
+  it('numbers repeated fits of a model in run order and names the settings that differ', () => {
+    const a = fit('a', 'nrtl', '2026-12-01T10:00:00Z', { objective: 'bubble-point', alpha: 0.3 })
+    const b = fit('b', 'nrtl', '2026-12-01T10:05:00Z', { objective: 'bubble-point', alpha: 0.5081 })
+    const w = fit('w', 'wilson', '2026-12-01T10:00:00Z')
+    const all = [b, a, w]
+    expect(fitLabel(a, all)).toBe('NRTL #1 (α = 0.3)')
+    expect(fitLabel(b, all)).toBe('NRTL #2 (α = 0.5081)')
+    expect(fitLabel(w, all)).toBe('Wilson')
+    const c = fit('c', 'margules', '2026-12-01T10:00:00Z', {}, 12)
+    const e = fit('e', 'margules', '2026-12-01T10:01:00Z', {}, 11)
+    expect([fitLabel(c, [c, e]), fitLabel(e, [c, e])]).toEqual(['Margules #1 (12 points)', 'Margules #2 (11 points)'])
+    const f = fit('f', 'margules', '2026-12-01T10:02:00Z', {}, 12)
+    expect(fitLabel(f, [c, f])).toMatch(/^Margules #2 \(run .+\)$/)
+  })
+})
