@@ -132,5 +132,5 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await expect(page.getByTestId('record-calibrations')).toContainText('Relative response factor')
   await expect(page.getByTestId('audit-trail')).toContainText('upload calibration file')
   await expect(page.getByTestId('audit-trail')).toContainText('retire')
-  await snap(page, 'lab-10-record-calibration')
+  await snap(page, 'lab-09b-record-calibration')
 })

@@ -64,7 +64,7 @@ describe('replacing the active calibration', () => {
     expect(audit.map((a) => [a.entity, a.action])).toEqual([
       ['data_set', 'create'], ['upload', 'upload calibration file'], ['calibration', 'retire'], ['calibration', 'create'],
     ])
-    expect(audit[2]).toMatchObject({ entityId: lab.calibrationId, after: { replacedBy: replacement, usedByDataSets: 1 } })
+    expect(audit[2]).toMatchObject({ entityId: lab.calibrationId, after: { replacedBy: replacement, file: 'calibration.csv', usedByDataSets: 1 } })
     expect(audit[3]).toMatchObject({ entityId: replacement, after: { model: 'response-factor', file: 'calibration-2026-12-02.csv', replaces: [lab.calibrationId] } })
   })
 

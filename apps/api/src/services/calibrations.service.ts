@@ -125,7 +125,7 @@ export async function commitCalibration(db: Kysely<Database>, actorId: string, r
     await appendAudit(tx, { actorId, entity: 'upload', entityId: upload.id, action: 'upload calibration file', dataSetId, after: preview.file })
     for (const id of retired) {
       await appendAudit(tx, { actorId, entity: 'calibration', entityId: id, action: 'retire', dataSetId,
-        after: { replacedBy: record.id, usedByDataSets: replaces?.id === id ? replaces.dataSetCount : null } })
+        after: { replacedBy: record.id, ...(replaces?.id === id && { file: replaces.originalName, madeAt: replaces.createdAt, usedByDataSets: replaces.dataSetCount }) } })
     }
     await appendAudit(tx, { actorId, entity: 'calibration', entityId: record.id, action: 'create', dataSetId,
       after: { model: req.model, coefficients: cal.coefficients, standardErrors: cal.standardErrors, range: cal.calibratedRange.x1, file: file.originalName, replaces: retired } })
