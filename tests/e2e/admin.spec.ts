@@ -112,5 +112,6 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   await expect(page.getByTestId('gc-retired-note')).toContainText('cannot be made active or used for new uploads')
   await expect(page.getByTestId('gc-method-retire')).toHaveCount(0)
   await expect(page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' }).getByTestId('gc-method-retired')).toContainText('Retired')
+  await page.waitForTimeout(400) // let the note finish its entrance before the screenshot
   await snapTop(page, 'admin-05-gc-method-retired')
 })
