@@ -77,13 +77,13 @@ function rangeText(range: [number, number], u: TemperatureDisplay): string {
 
 /**
  * Plain words for the components whose boiling temperature at P lies outside their correlation's range,
- * e.g. "acetone boils at 262.81 °C here, 185.8 K above the range its vapour-pressure equation was fitted
- * for (−26 to 77 °C)". Empty when both are inside.
+ * e.g. "acetone boils at 262.81 °C, 185.8 K above its vapour-pressure equation's range (−26 to 77 °C)".
+ * Empty when both are inside.
  */
 export function outOfRangeLines(v: PressureVerdict, u: TemperatureDisplay): string[] {
   return v.pure
     .filter((p) => p.side && p.range)
-    .map((p) => `${p.name} boils at ${u.fmtT(p.T)} here, ${u.dT(p.beyondK).toFixed(1)} ${u.dTLabel()} ${p.side} the range its vapour-pressure equation was fitted for (${rangeText(p.range!, u)})`)
+    .map((p) => `${p.name} boils at ${u.fmtT(p.T)}, ${u.dT(p.beyondK).toFixed(1)} ${u.dTLabel()} ${p.side} its vapour-pressure equation's range (${rangeText(p.range!, u)})`)
 }
 
 /** True for the engine's vapour-pressure range warnings, which the screen summarises in one banner instead. */
