@@ -133,6 +133,16 @@ describe('invites and password resets', () => {
     expect(expired.body.error.code).toBe('invalid_link')
   })
 
+  it('saves the notification preference and audits the change', async () => {
+    const a = await signedInAgent(t.app, 'ana@lab.test')
+    await a.patch('/api/auth/me/preferences').send({ notifyMail: false }).expect(200)
+    expect((await a.get('/api/auth/me')).body.user.notifyMail).toBe(false)
+    const rows = await t.db.selectFrom('audit_log').selectAll().where('action', '=', 'change notification preference').execute()
+    expect(rows).toHaveLength(1)
+    const bad = await a.patch('/api/auth/me/preferences').send({ notifyMail: 'sometimes' })
+    expect(bad.status).toBe(422)
+  })
+
   it('changes a password after checking the current one', async () => {
     const a = await signedInAgent(t.app, 'ana@lab.test')
     const bad = await a.post('/api/auth/change-password').send({ currentPassword: 'wrong', newPassword: 'long-enough-password' })

@@ -7,6 +7,7 @@ import {
 } from '@ebullio/schemas'
 import { z } from 'zod'
 import { ctx } from '../context.js'
+import { findUserById } from '../repositories/users.repository.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
 import { parseBody, parseParams } from './validate.js'
@@ -42,8 +43,8 @@ export const authRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       const { user, db } = ctx(req)
-      const row = await db.selectFrom('app_user').select('notify_mail').where('id', '=', user.id).executeTakeFirstOrThrow()
-      res.json({ user: { ...user, notifyMail: row.notify_mail }, devMode: req.ctx.config.nodeEnv !== 'production' })
+      const row = await findUserById(db, user.id)
+      res.json({ user: { ...user, notifyMail: row?.notify_mail ?? true }, devMode: req.ctx.config.nodeEnv !== 'production' })
     },
   },
   {
@@ -53,7 +54,7 @@ export const authRoutes = defineRoutes([
     handler: async (req, res) => {
       const { user, db } = ctx(req)
       const { notifyMail } = parseBody(preferencesSchema, req)
-      await db.updateTable('app_user').set({ notify_mail: notifyMail }).where('id', '=', user.id).execute()
+      await service.setNotifyMail(db, user.id, notifyMail)
       res.json({ ok: true })
     },
   },

@@ -167,3 +167,13 @@ export async function assignRoles(db: Db, actorId: string, userId: string, roles
     await appendAudit(tx, { actorId, entity: 'app_user', entityId: userId, action: 'change roles', before: { roles: before }, after: { roles: next } })
   })
 }
+
+/** The user's choice to receive notification mail (submissions, approvals, replies), audited. */
+export async function setNotifyMail(db: Db, userId: string, notifyMail: boolean): Promise<void> {
+  await atomically(db, async (tx) => {
+    const before = await users.findUserById(tx, userId)
+    if (!before) throw notFound('No such user.')
+    await tx.updateTable('app_user').set({ notify_mail: notifyMail, updated_at: new Date() }).where('id', '=', userId).execute()
+    await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change notification preference', before: { notifyMail: before.notify_mail }, after: { notifyMail } })
+  })
+}
