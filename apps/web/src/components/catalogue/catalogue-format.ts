@@ -5,11 +5,5 @@ export function systemName(names: readonly [string, string]): string {
   return `${names[0]} / ${names[1]}`
 }
 
-const DATE = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' })
-
-/** A calendar date in the browser's locale, medium style ("Dec 1, 2026" in English); "—" when missing. */
-export function formatDate(iso: string | null | undefined): string {
-  if (!iso) return '—'
-  const d = new Date(iso)
-  return Number.isNaN(d.getTime()) ? '—' : DATE.format(d)
-}
+/** A calendar date in the browser's locale, as on every screen. */
+export { formatDate } from '../../utils/dates'
