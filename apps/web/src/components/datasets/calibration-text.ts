@@ -1,4 +1,5 @@
 /** Words for calibrations and for what a run preview rests on, shared by the upload dialog, the record and point details. */
+import { formatDate } from '../../utils/dates'
 import type { CalibrationSummary, PreviewSample } from '../../api/uploads'
 
 /** Display names of the calibration models (the API's ids are `response-factor`, `linear`, `quadratic`). */
@@ -17,7 +18,7 @@ export function coefficientsText(c: Pick<CalibrationSummary, 'coefficientNames' 
 }
 
 /** "Dec 1, 2026" in the reader's locale. */
-export const calibrationDate = (iso: string) => new Date(iso).toLocaleDateString(undefined, { dateStyle: 'medium' })
+export const calibrationDate = (iso: string) => formatDate(iso)
 
 /** "x₁ 0.020–0.985" (mole fraction of component 1). */
 export const rangeText = (c: Pick<CalibrationSummary, 'rangeMin' | 'rangeMax'>) => `x₁ ${c.rangeMin.toFixed(3)}–${c.rangeMax.toFixed(3)}`
