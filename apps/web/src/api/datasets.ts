@@ -2,6 +2,7 @@
  * Data sets, their points, fits and consistency results (issue 5's `/api/data-sets` routes).
  * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
  */
+import type { PointDto } from '@ebullio/schemas'
 import { api, query } from './client'
 import type { CommentItem } from './comments'
 import type { CalibrationSummary } from './uploads'
@@ -39,23 +40,7 @@ export interface DataSetListItem extends DataSet {
 }
 
 /** One equilibrium state. T in K, P in Pa, x1/y1 mole fractions with standard uncertainties (k = 1). */
-export interface Point {
-  id: string
-  dataSetId: string
-  seq: number
-  sampleLabel: string
-  temperatureK: number
-  pressurePa: number
-  x1: number
-  x1Uncertainty: number
-  y1: number
-  y1Uncertainty: number
-  excluded: boolean
-  exclusionReason: string | null
-  uploadId: string | null
-  calibrationId: string | null
-  rowRefs: number[]
-}
+export type Point = PointDto
 
 /** One residual of a fit at a point: ΔT in K, Δy1 mole fraction (measured − model). */
 export interface FitResidual {
