@@ -107,7 +107,7 @@ export function extrapolationItems(system: BinarySystem, v: PressureVerdict, spa
       if (beyond.length) items.push(`${p.name}'s vapour pressure ${beyond.join(' and ')} in part of the diagram (its equation covers ${rangeText(r, u)})`)
     })
   }
-  if (farFromMeasured) items.push(`the activity model, fitted to data measured at ${farFromMeasured}`)
+  if (farFromMeasured) items.push(`the activity model, which was fitted to data measured at ${farFromMeasured} and is used here far from that pressure`)
   return items
 }
 
