@@ -11,3 +11,13 @@ export function retireMethodText(name: string, activeCalibrations: number): stri
     : `Its ${activeCalibrations === 1 ? 'active calibration is' : `${activeCalibrations} active calibrations are`} retired with it.`
   return `Retire ${name}? ${cals} Nobody can fit a new calibration on it or upload runs with its calibrations; points already computed keep their link. This cannot be undone here.`
 }
+
+/** R² of a calibration with 5 decimals, as the calibration preview and the run preview show it ("0.99999"); "—" when missing. */
+export function rSquaredText(r: number | null | undefined): string {
+  return r === null || r === undefined || !Number.isFinite(r) ? '—' : r.toFixed(5)
+}
+
+/** A calibration's range of x₁ with 3 decimals, as the lab screens write it ("0.020–0.985"). */
+export function calibrationRangeText(min: number, max: number): string {
+  return `${min.toFixed(3)}–${max.toFixed(3)}`
+}
