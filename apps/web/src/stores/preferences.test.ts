@@ -23,6 +23,18 @@ describe('preferences: display units', () => {
     expect(p.dTLabel()).toBe('°F')
   })
 
+  it('shows a temperature difference ×1.8 in °F and unchanged in K and °C (a 1 K step is 1.8 °F by the definition of the scales, NIST SP 811, 2008 ed., from memory)', () => {
+    const p = usePreferencesStore()
+    expect(p.fmtDT(0.067)).toBe('0.067 K')
+    expect(p.fmtDT(-0.093, 3, true)).toBe('-0.093 K')
+    p.temperatureUnit = 'F'
+    expect(p.fmtDT(0.067)).toBe('0.121 °F')
+    expect(p.fmtDT(0.3, 2, true)).toBe('+0.54 °F')
+    expect(p.fmtDT(null)).toBe('—')
+    p.temperatureUnit = 'K'
+    expect(p.fmtDT(0.3, 1)).toBe('0.3 K')
+  })
+
   it('shows 1 atm as 14.696 psi (1 psi = 6894.757293168 Pa, NIST SP 811, 2008 ed., Appendix B.8, from memory)', () => {
     const p = usePreferencesStore()
     p.pressureUnit = 'psi'

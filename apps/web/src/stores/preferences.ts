@@ -83,9 +83,12 @@ export const usePreferencesStore = defineStore('preferences', () => {
   /** "63.12 °C" from kelvin. */
   const fmtT = (T: number | null | undefined, decimals = 2) =>
     T === null || T === undefined || !Number.isFinite(T) ? '—' : `${tFromK(T).toFixed(decimals)} ${tLabel()}`
+  /** "0.121 °F" from a difference in K ("+0.12 K" with `signed`); "—" when missing. */
+  const fmtDT = (d: number | null | undefined, decimals = 3, signed = false) =>
+    d === null || d === undefined || !Number.isFinite(d) ? '—' : `${signed && dT(d) >= 0 ? '+' : ''}${dT(d).toFixed(decimals)} ${dTLabel()}`
   /** "101.33 kPa" from pascal. */
   const fmtP = (P: number | null | undefined, decimals?: number) =>
     P === null || P === undefined || !Number.isFinite(P) ? '—' : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
 
-  return { temperatureUnit, pressureUnit, tLabel, dTLabel, pLabel, tFromK, tToK, dT, pFromPa, pToPa, pDecimals, pShown, fmtT, fmtP }
+  return { temperatureUnit, pressureUnit, tLabel, dTLabel, pLabel, tFromK, tToK, dT, pFromPa, pToPa, pDecimals, pShown, fmtT, fmtDT, fmtP }
 })

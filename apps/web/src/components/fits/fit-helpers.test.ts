@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { Fit } from '../../api/datasets'
-import { fitLabel } from './fit-helpers'
+import { fitLabel, labelWithNote } from './fit-helpers'
 
 const fit = (id: string, model: Fit['model'], runAt: string, options: Record<string, unknown> = {}, points = 12): Fit => ({
   id, dataSetId: 'd', model, options, activity: { kind: model }, parameters: [], statistics: {}, residuals: [],
@@ -21,5 +21,10 @@ describe('fit labels', () => {
     expect([fitLabel(c, [c, e]), fitLabel(e, [c, e])]).toEqual(['Margules #1 (12 points)', 'Margules #2 (11 points)'])
     const f = fit('f', 'margules', '2026-12-01T10:02:00Z', {}, 12)
     expect(fitLabel(f, [c, f])).toMatch(/^Margules #2 \(run .+\)$/)
+  })
+
+  it('merges a note into a label’s own parentheses instead of doubling them', () => {
+    expect(labelWithNote('Wilson', 'recommended')).toBe('Wilson (recommended)')
+    expect(labelWithNote('Wilson #1 (run 08:14 PM)', 'recommended')).toBe('Wilson #1 (run 08:14 PM; recommended)')
   })
 })

@@ -33,6 +33,14 @@ export function fitLabel(f: Fit, all: Fit[]): string {
   return `${base} #${same.indexOf(f) + 1} (${note})`
 }
 
+/**
+ * A fit's label with a note in parentheses, merged into the label's own parentheses when it has them:
+ * "Wilson (recommended)", "Wilson #1 (run 08:14 PM; recommended)", never "(…) (…)".
+ */
+export function labelWithNote(label: string, note: string): string {
+  return label.endsWith(')') ? `${label.slice(0, -1)}; ${note})` : `${label} (${note})`
+}
+
 /** The two vapour-pressure models, wherever the server put them; null when the system has none yet. */
 export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPressureModel] | null {
   const direct = d.vaporPressure
