@@ -73,12 +73,17 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
       })
       stored.push(fit)
       await appendAudit(tx, { actorId: user.id, entity: 'fit', entityId: fit.id, action: 'run fit', dataSetId: id,
-        after: { model, parameters: r.parameters, rmsT: r.rmsT, rmsY: r.rmsY, converged: r.converged, points: fit.pointIds.length } })
+        after: { model, ...nrtlAudit(options), parameters: r.parameters, rmsT: r.rmsT, rmsY: r.rmsY, converged: r.converged, points: fit.pointIds.length } })
     }
     const after = await repo.updateDataSet(tx, id, {})
     return { fits: stored, rowVersion: after!.rowVersion }
   })
   return { ...saved, predictions: saved.fits.map((f, i) => predictionsOf(f, results[i].r, d.nominalPressurePa)) }
+}
+
+/** NRTL's α as the audit line states it: the value held, or the start value when α was fitted too. */
+function nrtlAudit(o: { model: string; alpha?: number; fitAlpha?: boolean }) {
+  return o.model === 'nrtl' ? { alpha: o.alpha, fitAlpha: o.fitAlpha } : {}
 }
 
 /** Band and next compositions at the nominal pressure; a fit whose band cannot be computed says why instead. */
