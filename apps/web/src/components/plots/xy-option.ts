@@ -41,9 +41,9 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
     {
       type: 'scatter', name: 'Targets', z: 6, symbol: 'circle', symbolSize: 7, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
       data: [
-        { value: [s.xD, s.xD], name: `xD = ${fmt(s.xD, 3)}` },
-        { value: [s.xF, s.xF], name: `xF = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
-        { value: [s.xB, s.xB], name: `xB = ${fmt(s.xB, 3)}` },
+        { value: [s.xD, s.xD], name: `x_D = ${fmt(s.xD, 3)}` },
+        { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
+        { value: [s.xB, s.xB], name: `x_B = ${fmt(s.xB, 3)}` },
       ],
       tooltip: { formatter: (p: { name: string }) => p.name },
     },
@@ -81,11 +81,12 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
   if (o.stages) series.push(...stageSeries(o.stages))
   else if (o.targets) {
     const t = o.targets
-    const marks = ([['xD', t.xD], ['xF', t.xF], ['xB', t.xB]] as const).filter(([, v]) => v !== undefined)
+    // Labels as the screens write the symbols (x_D, x_F, x_B), not the engine's plain keys.
+    const marks = ([['x_D', t.xD], ['x_F', t.xF], ['x_B', t.xB]] as const).filter(([, v]) => v !== undefined)
     series.push({
       type: 'scatter', name: 'Targets', z: 6, symbolSize: 8, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
       // xD sits near the top-right corner: its label goes to the left so it stays inside the plot.
-      data: marks.map(([n, v]) => ({ value: [v, v], name: `${n} = ${fmt(v as number, 3)}`, label: { position: n === 'xD' ? 'left' : 'right' } })),
+      data: marks.map(([n, v]) => ({ value: [v, v], name: `${n} = ${fmt(v as number, 3)}`, label: { position: n === 'x_D' ? 'left' : 'right' } })),
       label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string }) => p.name },
       tooltip: { formatter: (p: { name: string }) => p.name },
     })
