@@ -72,6 +72,14 @@ describe('residualOption', () => {
     const s = (o.series as Series[])[0]
     expect(s.markArea?.data[0].map((d) => d.yAxis)).toEqual([-0.2, 0.2])
   })
+
+  it('keeps six fits on one scrolling legend row above the grid, so the legend never covers the points', () => {
+    const series = ['Van Laar', 'Margules', 'Wilson #1 (run 08:14 PM)', 'NRTL #1 (α = 0.3)', 'Wilson #2 (run 08:15 PM)', 'NRTL #2 (α fitted from 0.3)']
+      .map((name) => ({ name, sigma: 0.1, points: [{ id: name, x1: 0.5, residual: 0.01 }] }))
+    const o = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series })
+    expect((o.legend as { type: string }).type).toBe('scroll')
+    expect((o.grid as { top: number }).top).toBe(34)
+  })
 })
 
 describe('lineOption', () => {

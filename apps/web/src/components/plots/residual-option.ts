@@ -33,7 +33,10 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
     type: 'line', name: 'zero', silent: true, showSymbol: false, data: [[0, 0], [1, 0]], lineStyle: { color: MUTED, width: 1 }, color: MUTED,
   } as never)
   const selected = Object.fromEntries(o.series.map((s) => [s.name, !s.hidden]))
-  const { legend, top } = legendFor(o.series.map((s) => s.name), selected)
+  // One scrolling row: residual plots are short, and a wrapping legend of 5–6 fits would cover the points.
+  const { legend: wrapping } = legendFor(o.series.map((s) => s.name), selected)
+  const legend = { ...wrapping, type: 'scroll', orient: 'horizontal', pageIconSize: 10, pageTextStyle: { color: MUTED, fontSize: 11 } }
+  const top = o.series.length ? 34 : 14
   return {
     ...base,
     legend,
