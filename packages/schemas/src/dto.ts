@@ -74,7 +74,10 @@ export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
 export interface FitParameterDto {
   name: string
   value: number
-  standardError: number
+  /** null when the parameter was held at a bound (a fitted NRTL α at 0.1 or 0.7). */
+  standardError: number | null
+  /** true when a fitted parameter reached its bound and was held there. */
+  atBound?: boolean
 }
 
 /** A stored model fit as thermo returned it. */

@@ -179,7 +179,7 @@ export interface FitTable {
   model: 'margules' | 'van-laar' | 'wilson' | 'nrtl'
   options: Json<Record<string, unknown>>
   activity: Json<Record<string, unknown>>
-  parameters: Json<{ name: string; value: number; standardError: number }[]>
+  parameters: Json<{ name: string; value: number; standardError: number | null; atBound?: boolean }[]>
   statistics: Json<Record<string, unknown>>
   residuals: Json<Record<string, unknown>[]>
   point_ids: string[]

@@ -5,6 +5,7 @@ import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.j
 import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './fit-input.js'
 import { levenbergMarquardt, type LeastSquaresProblem, type LeastSquaresResult } from './lm.js'
 import { activityProblem, bubbleProblem, type FitData } from './objectives.js'
+import { alphaOf, boundedAlphaLayout, boundReached } from './alpha-bounds.js'
 import { parameterLayout, type FittableModel, type ParameterLayout } from './parameters.js'
 import { pointResiduals, summarise } from './report.js'
 import { fitStatistics } from './statistics.js'
@@ -34,11 +35,23 @@ export interface PointResidual {
   excluded: boolean
 }
 
+/** One fitted parameter; standardError in the parameter's unit, null when it was held at a bound. */
+export interface FittedParameter {
+  name: string
+  value: number
+  standardError: number | null
+  atBound?: boolean
+}
+
 /** Result of {@link fitBinary}. */
 export interface FitBinaryResult {
   activity: ActivityModel
   system: BinarySystem
-  parameters: { name: string; value: number; standardError: number }[]
+  /**
+   * Fitted parameters. A fitted NRTL α that reached a bound of NRTL_ALPHA_BOUNDS is held there: its entry
+   * has atBound true and standardError null, and covariance/correlation cover the other parameters only.
+   */
+  parameters: FittedParameter[]
   covariance: number[][]
   correlation: number[][]
   converged: boolean
@@ -110,33 +123,75 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
   checkModelOptions(options)
   const objectiveKind = options.objective ?? 'bubble-point'
   const alpha = options.alpha ?? 0.3
-  const fitAlpha = options.fitAlpha ?? false
+  const fitAlpha = options.model === 'nrtl' && (options.fitAlpha ?? false)
   const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha })
   const m = layout.names.length
   const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m)
-  const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
-  let fit: LeastSquaresResult | null
-  let problem: LeastSquaresProblem
-  if (objectiveKind === 'activity') {
-    problem = activityProblem(data, layout)
-    fit = candidates[0] ?? null
-  } else {
-    problem = bubbleProblem(data, layout, true)
-    const starts = candidates.length > 0 ? candidates.slice(0, 2).map((c) => c.p) : layout.starts
-    fit = bestBubbleFit(problem, starts)
-    if (!fit && candidates.length > 0) fit = bestBubbleFit(problem, layout.starts)
-  }
+  // A fitted α is searched through a bounded transform, then settled in α itself (settleAlpha).
+  const search = fitAlpha ? boundedAlphaLayout(layout) : layout
+  const fit = searchFit(data, search, objectiveKind)
   if (!fit) {
     throw new ThermoError('no-convergence', `The ${modelName(options.model)} fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`)
   }
-  return finishFit(options, layout, data, index, fit, problem.nResiduals, objectiveKind, { alpha, fitAlpha })
+  if (!fitAlpha) {
+    return finishFit(options, layout, data, index, fit, objectiveKind, { alpha, fitAlpha, held: null })
+  }
+  return settleAlpha(options, data, index, fit, objectiveKind)
+}
+
+/** Residuals and Jacobian of `problem` at p, as a result with the given convergence flag; null on failure. */
+function atPoint(problem: LeastSquaresProblem, p: number[], converged: boolean): LeastSquaresResult | null {
+  const r = new Float64Array(problem.nResiduals)
+  const J = new Float64Array(problem.nResiduals * problem.nParams)
+  if (!problem.jacobian(Float64Array.from(p), r, J)) return null
+  return { p: Float64Array.from(p), cost: r.reduce((t, v) => t + v * v, 0), iterations: 0, converged, r, J }
+}
+
+function problemOf(data: FitData, layout: ParameterLayout, objectiveKind: 'bubble-point' | 'activity'): LeastSquaresProblem {
+  return objectiveKind === 'activity' ? activityProblem(data, layout) : bubbleProblem(data, layout, true)
+}
+
+/** Multi-start search: activity-objective candidates, then the bubble-point refinement. */
+function searchFit(data: FitData, layout: ParameterLayout, objectiveKind: 'bubble-point' | 'activity'): LeastSquaresResult | null {
+  const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
+  if (objectiveKind === 'activity') return candidates[0] ?? null
+  const problem = problemOf(data, layout, objectiveKind)
+  const starts = candidates.length > 0 ? candidates.slice(0, 2).map((c) => c.p) : layout.starts
+  let fit = bestBubbleFit(problem, starts)
+  if (!fit && candidates.length > 0) fit = bestBubbleFit(problem, layout.starts)
+  return fit
+}
+
+/**
+ * From the bounded search's optimum, polish in (b12, b21, α) so that the covariance is in α; when α
+ * ends within ALPHA_BOUND_TOLERANCE of a bound, hold it there and fit b12, b21 alone.
+ */
+function settleAlpha(
+  options: FitBinaryOptions, data: FitData, index: number[], bounded: LeastSquaresResult, objectiveKind: 'bubble-point' | 'activity',
+): FitBinaryResult {
+  const direct = parameterLayout('nrtl', { alpha: alphaOf(bounded.p[2]), fitAlpha: true })
+  const start = [bounded.p[0], bounded.p[1], alphaOf(bounded.p[2])]
+  const polished = levenbergMarquardt(problemOf(data, direct, objectiveKind), start, { maxIterations: 200 })
+  const best = polished && polished.cost <= bounded.cost * (1 + 1e-9) ? polished : null
+  const a = best ? best.p[2] : start[2]
+  const bound = boundReached(a)
+  const inside = bound === null ? best ?? atPoint(problemOf(data, direct, objectiveKind), start, bounded.converged) : null
+  if (inside) return finishFit(options, direct, data, index, inside, objectiveKind, { alpha: a, fitAlpha: true, held: null })
+  const heldAlpha = bound ?? a
+  const held = parameterLayout('nrtl', { alpha: heldAlpha, fitAlpha: false })
+  const fit = levenbergMarquardt(problemOf(data, held, objectiveKind), start.slice(0, 2), { maxIterations: 200 })
+  if (!fit) {
+    throw new ThermoError('no-convergence', `The NRTL fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`)
+  }
+  return finishFit(options, held, data, index, fit, objectiveKind, { alpha: heldAlpha, fitAlpha: false, held: bound ?? heldAlpha })
 }
 
 function finishFit(
   options: FitBinaryOptions, layout: ParameterLayout, data: FitData, index: number[], fit: LeastSquaresResult,
-  nRows: number, objectiveKind: 'bubble-point' | 'activity', nrtl: { alpha: number; fitAlpha: boolean },
+  objectiveKind: 'bubble-point' | 'activity', nrtl: { alpha: number; fitAlpha: boolean; held: number | null },
 ): FitBinaryResult {
   const m = layout.names.length
+  const nRows = fit.r.length
   const stats = fitStatistics(fit.r, fit.J, nRows, m)
   const activity = layout.build(fit.p)
   const system: BinarySystem = { vaporPressure: options.vaporPressure, activity }
@@ -144,6 +199,7 @@ function finishFit(
   const summary = summarise(residuals, index)
   const warnings: string[] = []
   if (!fit.converged) warnings.push('The fit stopped before it fully converged; treat the parameters with care.')
+  if (nrtl.held !== null) warnings.push(`α reached its bound ${nrtl.held}: the data do not determine α; hold it at a fixed value.`)
   if (!stats.inverse) warnings.push('The parameters are not separately determined by these data (singular fit); standard errors are not available.')
   for (let i = 0; i < m; i++) for (let j = 0; j < i; j++) {
     const r = stats.correlation[i][j]
@@ -165,7 +221,10 @@ function finishFit(
   return {
     activity,
     system,
-    parameters: layout.names.map((name, j) => ({ name, value: fit.p[j], standardError: stats.standardErrors[j] })),
+    parameters: [
+      ...layout.names.map((name, j) => ({ name, value: fit.p[j], standardError: stats.standardErrors[j] })),
+      ...(nrtl.held !== null ? [{ name: 'alpha', value: nrtl.held, standardError: null, atBound: true }] : []),
+    ],
     covariance: stats.covariance,
     correlation: stats.correlation,
     converged: fit.converged,

@@ -3,6 +3,7 @@
  * typical scales (for finite-difference steps and starting grids) and validity limits.
  */
 import type { ActivityModel } from '../types.js'
+import { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
 
 /** The models fitBinary can fit. */
 export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
@@ -61,7 +62,7 @@ export function parameterLayout(model: FittableModel, opts: { V1?: number; V2?: 
           names: ['b12', 'b21', 'alpha'],
           scales: [100, 100, 0.01],
           build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha: p[2] }),
-          valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && p[2] > 0.01 && p[2] <= 1,
+          valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && p[2] >= NRTL_ALPHA_BOUNDS[0] && p[2] <= NRTL_ALPHA_BOUNDS[1],
           starts: grid(ENERGY_GRID).map(([a, b]) => [a, b, alpha]),
         }
       }

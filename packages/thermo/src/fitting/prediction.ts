@@ -10,7 +10,8 @@ import { parameterLayout } from './parameters.js'
 function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
   const s = fit.settings
   const layout = parameterLayout(s.model, { V1: s.V1, V2: s.V2, alpha: s.alpha, fitAlpha: s.fitAlpha })
-  const p = Float64Array.from(fit.parameters, (q) => q.value)
+  // A parameter held at its bound (NRTL α) is part of the layout's fixed settings, not of p.
+  const p = Float64Array.from(fit.parameters.filter((q) => !q.atBound), (q) => q.value)
   const c = compileSystem(fit.system)
   const pm = perturbedModels(layout, p)
   const m = p.length
@@ -105,7 +106,7 @@ export interface SuggestedComposition {
 export function suggestNextCompositions(fit: FitBinaryResult, options: { P: number; count: number }): SuggestedComposition[] {
   checkPressure(options.P)
   checkCount('suggestions', options.count, 1, 20)
-  const m = fit.parameters.length
+  const m = fit.covariance.length
   const info = new Float64Array(m * m)
   fit.covariance.forEach((row, i) => row.forEach((v, j) => (info[i * m + j] = v)))
   const inv = invertSymmetric(info, m)

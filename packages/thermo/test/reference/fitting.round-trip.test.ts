@@ -59,7 +59,7 @@ describe('fitBinary recovers known parameters from noisy generated data', () => 
       const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: c.model, ...c.extra })
       expect(fit.converged).toBe(true)
       for (const p of fit.parameters) {
-        expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(3 * p.standardError)
+        expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(3 * (p.standardError as number))
       }
       // The scatter matches the noise put in (rough, 24 points): RMS ΔT near 0.1 K, RMS Δy near 0.005.
       expect(fit.rmsT).toBeGreaterThan(0.05)
@@ -77,7 +77,7 @@ describe('fitBinary recovers known parameters from noisy generated data', () => 
     const points = generate(c.system, 7)
     const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha, objective: 'activity' })
     expect(fit.objectiveKind).toBe('activity')
-    for (const p of fit.parameters) expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(5 * p.standardError)
+    for (const p of fit.parameters) expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(5 * (p.standardError as number))
   })
 
   it('fitting α as well still brackets the true NRTL values', () => {
@@ -85,7 +85,7 @@ describe('fitBinary recovers known parameters from noisy generated data', () => 
     const fit = fitBinary({ points: generate(c.system, 7, 40), vaporPressure: c.system.vaporPressure, model: 'nrtl', fitAlpha: true })
     const truth = { ...c.truth, alpha: pw.alpha } as Record<string, number>
     expect(fit.parameters.map((p) => p.name)).toEqual(['b12', 'b21', 'alpha'])
-    for (const p of fit.parameters) expect(Math.abs(p.value - truth[p.name])).toBeLessThan(3 * p.standardError)
+    for (const p of fit.parameters) expect(Math.abs(p.value - truth[p.name])).toBeLessThan(3 * (p.standardError as number))
   })
 
   it('is deterministic: the same data give the same numbers', () => {
@@ -125,7 +125,7 @@ describe('outliers and excluded points', () => {
     const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     const others = clean.parameters.map((p) => p.value)
     // Removing one of 24 points shifts the estimates by well under one standard error.
-    fit.parameters.forEach((p, j) => expect(Math.abs(p.value - others[j])).toBeLessThan(p.standardError))
+    fit.parameters.forEach((p, j) => expect(Math.abs(p.value - others[j])).toBeLessThan(p.standardError as number))
     expect(fit.residuals[5].excluded).toBe(true)
     expect(fit.residuals[5].flagged).toBe(true)
     expect(Math.abs(fit.residuals[5].dy + 0.05)).toBeLessThan(0.02)
