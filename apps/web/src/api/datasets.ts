@@ -58,7 +58,8 @@ export interface Fit {
   options: Record<string, unknown>
   /** thermo's ActivityModel */
   activity: Record<string, unknown> & { kind: string }
-  parameters: { name: string; value: number; standardError: number; unit?: string }[]
+  /** standardError null and atBound true when a fitted parameter (NRTL α) was held at its bound */
+  parameters: { name: string; value: number; standardError: number | null; atBound?: boolean; unit?: string }[]
   statistics: { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean; [k: string]: unknown }
   residuals: FitResidual[]
   pointIds: string[]

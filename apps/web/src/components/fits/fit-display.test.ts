@@ -25,6 +25,10 @@ describe('fit display', () => {
   it('uses the fit’s own bound mark when it carries one', () => {
     const marked = fit([{ name: 'alpha', value: 0.45, standardError: 0.05, atBound: true } as Fit['parameters'][number]])
     expect(atBound(marked, marked.parameters[0])).toBe(true)
+    const engine = fit([{ name: 'b12', value: 949.31, standardError: 71.5 }, { name: 'alpha', value: 0.7, standardError: null, atBound: true } as unknown as Fit['parameters'][number]])
+    expect(paramValueText(engine, engine.parameters[1])).toBe('0.7000 (at bound)')
+    const noSe = fit([{ name: 'b12', value: 12.5, standardError: null } as unknown as Fit['parameters'][number]])
+    expect(paramValueText(noSe, noSe.parameters[0])).toBe('12.5000')
     const listed = fit([{ name: 'b12', value: 10, standardError: 1 }], { converged: true, atBound: ['b12'] })
     expect(atBound(listed, listed.parameters[0])).toBe(true)
   })

@@ -17,7 +17,7 @@ type Param = Fit['parameters'][number] & { atBound?: unknown; bound?: unknown; a
 
 /**
  * True when the parameter sits on (or past) a bound of its search range: the fit's own mark when it carries one
- * (`atBound`, `bound` or `atLimit` on the parameter, or a parameter name listed in `statistics.atBound`),
+ * (thermo's `atBound` on the parameter, also `bound` or `atLimit`, or a parameter name listed in `statistics.atBound`),
  * else α outside NRTL_ALPHA_BOUNDS (within 1e-6; earlier fits ran α up to 1).
  */
 export function atBound(f: Fit, p: Fit['parameters'][number]): boolean {
@@ -34,7 +34,9 @@ export function atBound(f: Fit, p: Fit['parameters'][number]): boolean {
 /** "b12 = 949.3 ± 71.5" or "α = 0.7000 (at bound)": a ± on a parameter held by its bound means nothing. */
 export function paramValueText(f: Fit, p: Fit['parameters'][number]): string {
   const digits = Math.abs(p.value) >= 100 ? 1 : 4
-  return atBound(f, p) ? `${p.value.toFixed(digits)} (at bound)` : `${p.value.toFixed(digits)} ± ${p.standardError.toFixed(digits)}`
+  if (atBound(f, p)) return `${p.value.toFixed(digits)} (at bound)`
+  const se = p.standardError as number | null | undefined
+  return typeof se === 'number' && Number.isFinite(se) ? `${p.value.toFixed(digits)} ± ${se.toFixed(digits)}` : p.value.toFixed(digits)
 }
 
 /** The solver's verdict: true, false, or null when the fit does not say. */

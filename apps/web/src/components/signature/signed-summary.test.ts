@@ -6,6 +6,8 @@ describe('signed parameter words', () => {
   it('puts a space and the unit after every parameter', () => {
     expect(parameterText({ name: 'a12', value: -686.4823, standardError: 65.31 })).toBe('a12 = -686.482 ± 65.3 J/mol')
     expect(parameterText({ name: 'A12', value: 0.58123, standardError: 0.0121 })).toBe('A12 = 0.581230 ± 0.0121 (dimensionless)')
+    // thermo holds a fitted α at its bound (0.1–0.7) with no standard error
+    expect(parameterText({ name: 'alpha', value: 0.7, standardError: null, atBound: true })).toBe('α = 0.700000 (at bound) (dimensionless)')
   })
   it("names NRTL's held α", () => {
     const f = { model: 'nrtl' as const, options: { alpha: 0.3 }, parameters: [{ name: 'b12', value: 2094, standardError: 40 }, { name: 'b21', value: 7385, standardError: 90 }] }

@@ -11,8 +11,8 @@ const symbol = (name: string) => (name === 'alpha' ? 'α' : name)
 const withUnit = (text: string, unit: string | undefined) => (!unit ? text : unit === 'dimensionless' ? `${text} (dimensionless)` : `${text} ${unit}`)
 
 /** "a12 = -686.482 ± 65.3 J/mol" (value to 6 significant digits, standard error to 3). */
-export function parameterText(p: { name: string; value: number; standardError?: number | null; unit?: string }): string {
-  const se = typeof p.standardError === 'number' && Number.isFinite(p.standardError) ? ` ± ${p.standardError.toPrecision(3)}` : ''
+export function parameterText(p: { name: string; value: number; standardError?: number | null; atBound?: boolean; unit?: string }): string {
+  const se = p.atBound ? ' (at bound)' : typeof p.standardError === 'number' && Number.isFinite(p.standardError) ? ` ± ${p.standardError.toPrecision(3)}` : ''
   return withUnit(`${symbol(p.name)} = ${p.value.toPrecision(6)}${se}`, p.unit ?? PARAMETER_UNITS[p.name])
 }
 
