@@ -86,13 +86,13 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.getByTestId('tab-diagrams').click()
   await pressure.fill('6000')
   await pressure.press('Tab')
-  await expect(page.getByTestId('pressure-error')).toHaveText('Enter a pressure from 0.50 kPa to 5000.00 kPa; 6000.00 kPa is outside what the approved data can support.')
+  await expect(page.getByTestId('pressure-error')).toHaveText('Enter a pressure from 0.5 kPa to 5000 kPa; 6000 kPa is outside what the approved data can support.')
   await expect(page.getByTestId('system-lead')).toContainText('at 4000 kPa')
 
   // Lower the pressure to 50 kPa: everything boils lower and the azeotrope moves.
   await pressure.fill('50')
   await pressure.press('Tab')
-  await expect(page.getByText('Azeotrope at 50.00 kPa')).toBeVisible()
+  await expect(page.getByText('Azeotrope at 50 kPa')).toBeVisible()
   const half = await readAzeotrope(page)
   expect(half.tC).toBeLessThan(atm.tC - 10)
   expect(half.x1).not.toBe(atm.x1)
@@ -134,7 +134,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   expect(fenske).toBeLessThan(nmin)
   expect(feed).toBeGreaterThanOrEqual(1)
   expect(feed).toBeLessThanOrEqual(stages)
-  await expect(page.getByRole('group', { name: 'Stage construction at 50.00 kPa' })).toBeVisible()
+  await expect(page.getByRole('group', { name: 'Stage construction at 50 kPa' })).toBeVisible()
   await expect(page.getByTestId('design-caution').first()).toContainText('Preliminary estimate from equilibrium data.')
   await snapTop(page, 'eng-04-column-estimate')
 
@@ -142,7 +142,7 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.locator('#col-xD').fill('0.95')
   await page.locator('#col-xD').press('Tab')
   await page.getByTestId('col-run').click()
-  await expect(page.getByTestId('col-failure')).toContainText('The target cannot be reached by distillation at 50.00 kPa.')
+  await expect(page.getByTestId('col-failure')).toContainText('The target cannot be reached by distillation at 50 kPa.')
   // the engine's "xB", "xD" are set as italic symbols with subscripts
   await expect(page.getByTestId('col-failure')).toContainText('lies between xB = 0.05 and xD = 0.95')
   await expect(page.getByTestId('col-failure').locator('sub')).toHaveText(['1', 'B', 'D'])
