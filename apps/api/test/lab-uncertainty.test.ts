@@ -110,6 +110,7 @@ describe('where to measure next', () => {
     expect(r.body.P).toBe(101325)
     const items: { x1: number; T: number; y1: number; sigmaY: number }[] = r.body.items
     expect(items).toHaveLength(3)
+    expect(r.body.criterion).toBe('sigma-y')
     for (const s of items) {
       expect(s.x1).toBeGreaterThanOrEqual(0.01)
       expect(s.x1).toBeLessThanOrEqual(0.99)

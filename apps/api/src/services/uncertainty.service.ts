@@ -77,10 +77,15 @@ export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, point
   return { fitId: fit.id, model: fit.model, ...band, note: BAND_NOTE }
 }
 
-/** Up to `count` liquid compositions to measure next at P (Pa), best first (largest σy reduction). */
+/**
+ * Up to `count` liquid compositions to measure next at P (Pa), best first, by thermo's default criterion
+ * 'sigma-y' (largest predicted σy); named in the response. Deterministic for a stored fit: the stored
+ * parameters and covariance are used, so the list changes only when a different fit is asked for.
+ */
 export function suggestionsOf(fit: FitRecord, result: FitBinaryResult, P: number, count: number) {
-  const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count }))
-  return { fitId: fit.id, model: fit.model, P, items }
+  const criterion = 'sigma-y' as const
+  const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count, criterion }))
+  return { fitId: fit.id, model: fit.model, P, criterion, items }
 }
 
 export async function fitBand(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; points: number }) {

@@ -96,16 +96,46 @@ export interface SuggestedComposition {
   sigmaY: number
 }
 
+/** How {@link suggestNextCompositions} ranks a candidate composition. */
+export type SuggestionCriterion = 'sigma-y' | 'd-optimal'
+
+/** det(I₂ + UᵀCU)/… for the two rows u1 = gT/σT, u2 = gY/σY of one hypothetical point, scaled by 1/s². */
+function determinantGain(cov: number[][], gT: Float64Array, gY: Float64Array, wT: number, wY: number, s2: number): number {
+  const m = gT.length
+  let tt = 0
+  let ty = 0
+  let yy = 0
+  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
+    tt += gT[i] * cov[i][j] * gT[j]
+    ty += gT[i] * cov[i][j] * gY[j]
+    yy += gY[i] * cov[i][j] * gY[j]
+  }
+  const a = 1 + (tt * wT * wT) / s2
+  const d = 1 + (yy * wY * wY) / s2
+  const b = (ty * wT * wY) / s2
+  return a * d - b * b
+}
+
 /**
- * Where to measure next: liquid compositions that most reduce the uncertainty of the predicted vapour
- * composition. Greedy sequential design on a grid x1 = 0.01…0.99: pick the composition with the largest
- * predicted σy, add a hypothetical measurement there (σT, σy as in the fit) to the parameter
- * information, and repeat; picks stay at least min(0.05, 0.5/count) apart. Best first.
- * @param options P in Pa, count 1–20.
+ * Where to measure next: liquid compositions on a grid x1 = 0.01…0.99, chosen greedily (sequential
+ * design): rank every composition, pick the best, add a hypothetical measurement there (σT, σy as in the
+ * fit) to the parameter information, and repeat; picks stay at least min(0.05, 0.5/count) apart. Best first.
+ * Criteria: 'sigma-y' (default) picks the largest predicted σy of the curve; 'd-optimal' picks the
+ * largest reduction of det(covariance), i.e. the largest det(I + UᵀCU) for the point's T and y rows U
+ * (A. C. Atkinson, A. N. Donev, Optimum Experimental Designs, 1992, ch. 11; from memory). For a
+ * two-parameter model D-optimal picks go toward the dilute ends, where γ∞ and so the parameters are
+ * pinned. Pure: the same fit and options always give the same list.
+ * @param options P in Pa, count 1–20, criterion (default 'sigma-y').
  */
-export function suggestNextCompositions(fit: FitBinaryResult, options: { P: number; count: number }): SuggestedComposition[] {
+export function suggestNextCompositions(
+  fit: FitBinaryResult, options: { P: number; count: number; criterion?: SuggestionCriterion },
+): SuggestedComposition[] {
   checkPressure(options.P)
   checkCount('suggestions', options.count, 1, 20)
+  const criterion = options.criterion ?? 'sigma-y'
+  if (criterion !== 'sigma-y' && criterion !== 'd-optimal') {
+    throw new ThermoError('invalid-input', `The suggestion criterion must be 'sigma-y' or 'd-optimal'; got ${String(criterion)}.`)
+  }
   const m = fit.covariance.length
   const info = new Float64Array(m * m)
   fit.covariance.forEach((row, i) => row.forEach((v, j) => (info[i * m + j] = v)))
@@ -120,15 +150,16 @@ export function suggestNextCompositions(fit: FitBinaryResult, options: { P: numb
   let cov = fit.covariance
   for (let k = 0; k < options.count; k++) {
     let best = -1
-    let bestSigma = -1
+    let bestScore = -Infinity
     rows.forEach((r, i) => {
       if (picks.some((p) => Math.abs(p.x1 - r.x1) < spacing - 1e-12)) return
-      const s = Math.sqrt(variance(cov, r.gY))
-      if (s > bestSigma) { bestSigma = s; best = i }
+      const score = criterion === 'sigma-y' ? variance(cov, r.gY) : determinantGain(cov, r.gT, r.gY, 1 / sigmaT, 1 / sigmaY, s2)
+      // Strictly greater: ties go to the lower x1, so the list is reproducible.
+      if (score > bestScore) { bestScore = score; best = i }
     })
     if (best < 0) break
     const r = rows[best]
-    picks.push({ x1: r.x1, T: r.T, y1: r.y1, sigmaY: bestSigma })
+    picks.push({ x1: r.x1, T: r.T, y1: r.y1, sigmaY: Math.sqrt(variance(cov, r.gY)) })
     // Information of the hypothetical point: its T and y rows, weighted as the fit weighted its data.
     for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
       inv[i * m + j] += (r.gT[i] * r.gT[j] / (sigmaT * sigmaT) + r.gY[i] * r.gY[j] / (sigmaY * sigmaY)) / s2

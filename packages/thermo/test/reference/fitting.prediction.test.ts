@@ -75,6 +75,25 @@ describe('suggestNextCompositions', () => {
     const inside = worst([...points, ...generate([0.2], 99)])
     expect(there).toBeLessThan(inside)
   })
+  it('is deterministic: the same fit gives the same list, for both criteria', () => {
+    for (const criterion of ['sigma-y', 'd-optimal'] as const) {
+      const a = suggestNextCompositions(fit, { P: 101325, count: 5, criterion })
+      const b = suggestNextCompositions(fitOf(generate(spread(10, 0.03, 0.35), 21)), { P: 101325, count: 5, criterion })
+      expect(b).toEqual(a)
+    }
+  })
+  it('D-optimal on a two-parameter NRTL fit over the whole range reaches a dilute end (x1 < 0.15 or > 0.85)', () => {
+    // 20 points evenly over 0.03–0.97: the middle is well covered; the determinant of the covariance of
+    // b12, b21 falls most where γ∞ is pinned.
+    const even = fitOf(generate(spread(20), 11))
+    const s = suggestNextCompositions(even, { P: 101325, count: 5, criterion: 'd-optimal' })
+    expect(s.length).toBe(5)
+    expect(s.some((p) => p.x1 < 0.15 || p.x1 > 0.85)).toBe(true)
+    for (let i = 0; i < s.length; i++) for (let j = 0; j < i; j++) expect(Math.abs(s[i].x1 - s[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-12)
+  })
+  it('refuses an unknown criterion with an exact message', () => {
+    expect(() => suggestNextCompositions(fit, { P: 101325, count: 2, criterion: 'widest' as 'sigma-y' })).toThrow("The suggestion criterion must be 'sigma-y' or 'd-optimal'; got widest.")
+  })
   it('refuses a bad count with an exact message', () => {
     expect(() => suggestNextCompositions(fit, { P: 101325, count: 0 })).toThrow('The number of suggestions must be a whole number from 1 to 20; got 0.')
     expect(() => predictionBand(fit, { P: -1 })).toThrow('Pressure must be a positive number of pascals; got -1.')
