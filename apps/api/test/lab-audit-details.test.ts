@@ -39,4 +39,15 @@ describe('audit details', () => {
       ['nrtl', 0.3, true, 10],
     ])
   })
+
+  it('the area test answers with the boiling range behind J (Tmin, Tmax in K, and where the span came from)', async () => {
+    const r = await analyst.post(`/api/data-sets/${id}/consistency`).send({ model: 'wilson' }).expect(201)
+    const area = r.body.items.find((i: { test: string }) => i.test === 'herington-area').result
+    // methanol/water at 1 atm boils between about 337.7 K and 373.1 K (SVNA 7th ed. Table B.2 normal boiling points, from memory)
+    expect(area.Tmin).toBeGreaterThan(336)
+    expect(area.Tmin).toBeLessThan(339)
+    expect(area.Tmax).toBeGreaterThan(372)
+    expect(area.Tmax).toBeLessThan(374.5)
+    expect(area.temperatureSpan).toMatch(/^measured points and both pure boiling points at the mean pressure/)
+  })
 })
