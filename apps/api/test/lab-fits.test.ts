@@ -110,3 +110,18 @@ describe('lists and exports', () => {
     expect(bad.body.error.details).toEqual([{ path: 'pressure', message: 'Pressure must be positive' }])
   })
 })
+
+describe('recommended fit', () => {
+  it('refuses a fit that did not converge', async () => {
+    const r = await lab.analyst.post(`/api/data-sets/${ds.id}/fits`).send({ models: ['margules'] })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+    const fitId = r.body.fits[0].id
+    // Mark the stored result as unconverged, as the solver reports when it stops short of an optimum.
+    const row = await t.db.selectFrom('fit').select('statistics').where('id', '=', fitId).executeTakeFirstOrThrow()
+    const stats = { ...(row.statistics as Record<string, unknown>), converged: false }
+    await t.db.updateTable('fit').set({ statistics: JSON.stringify(stats) } as never).where('id', '=', fitId).execute()
+    const refused = await lab.lead.post(`/api/data-sets/${ds.id}/recommended-fit`).send({ fitId })
+    expect(refused.status).toBe(409)
+    expect(refused.body.error.message).toBe('This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.')
+  })
+})

@@ -106,6 +106,10 @@ export async function markRecommended(db: Kysely<Database>, user: SessionUser, i
     const fit = await fits.findFit(tx, fitId)
     if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
     requireState(d, FITTABLE_STATES, 'choosing the recommended fit')
+    // An unconverged optimum is not a result: its parameters and standard errors mean nothing.
+    if ((fit.statistics as { converged?: boolean }).converged === false) {
+      throw conflict('This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.')
+    }
     const after = await repo.updateDataSet(tx, id, { recommendedFitId: fitId })
     await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'mark recommended fit', dataSetId: id,
       before: { recommendedFitId: d.recommendedFitId }, after: { recommendedFitId: fitId, model: fit.model } })
