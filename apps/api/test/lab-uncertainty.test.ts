@@ -126,6 +126,30 @@ describe('where to measure next', () => {
     expect(bad.body.error.details[0].path).toBe('count')
     expect((await lab.engineer.get(`/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`)).status).toBe(403)
   })
+
+  it('ranks by the D-optimal criterion when asked, and names it', async () => {
+    const url = `/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`
+    const d = await lab.lead.get(url).query({ count: 2, criterion: 'd-optimal' })
+    expect(d.status, JSON.stringify(d.body)).toBe(200)
+    expect(d.body.criterion).toBe('d-optimal')
+    expect(d.body.fitId).toBe(fit.id)
+    const xs: number[] = d.body.items.map((s: { x1: number }) => s.x1)
+    expect(xs).toHaveLength(2)
+    // A two-parameter model is pinned by its γ∞ values, so D-optimal picks lie toward the dilute ends
+    // (Atkinson & Donev, Optimum Experimental Designs, 1992, ch. 11; from memory).
+    expect(Math.min(...xs.map((x) => Math.min(x, 1 - x)))).toBeLessThan(0.25)
+    const again = await lab.lead.get(url).query({ count: 2, criterion: 'd-optimal' })
+    expect(again.body.items).toEqual(d.body.items)
+    const plain = await lab.lead.get(url).query({ count: 2, criterion: 'sigma-y' })
+    expect(plain.body.criterion).toBe('sigma-y')
+    expect(plain.body.items).toEqual((await lab.lead.get(url).query({ count: 2 })).body.items)
+  })
+
+  it('refuses an unknown criterion, naming the field', async () => {
+    const bad = await lab.lead.get(`/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`).query({ criterion: 'widest' })
+    expect(bad.status).toBe(422)
+    expect(bad.body.error.details).toEqual([{ path: 'criterion', message: "The criterion must be 'sigma-y' or 'd-optimal'" }])
+  })
 })
 
 describe('pure-component check', () => {

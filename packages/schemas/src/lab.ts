@@ -170,11 +170,16 @@ export const bandQuerySchema = z.object({
   unit: queryPressure.unit,
   points: z.coerce.number().int().min(3).max(1001).default(51),
 })
-/** GET /api/data-sets/:id/fits/:fitId/next-compositions query: how many suggestions (1–20, default 5) at which pressure. */
+/** How the next compositions are ranked: largest predicted σy, or the largest gain in parameter information (D-optimal). */
+export const SUGGESTION_CRITERIA = ['sigma-y', 'd-optimal'] as const
+/** One of {@link SUGGESTION_CRITERIA}. */
+export type SuggestionCriterionName = (typeof SUGGESTION_CRITERIA)[number]
+/** GET /api/data-sets/:id/fits/:fitId/next-compositions query: how many suggestions (1–20, default 5) at which pressure, by which criterion (default 'sigma-y'). */
 export const nextCompositionsQuerySchema = z.object({
   pressure: queryPressure.pressure.optional(),
   unit: queryPressure.unit,
   count: z.coerce.number().int().min(1).max(20).default(5),
+  criterion: z.enum(SUGGESTION_CRITERIA, { error: "The criterion must be 'sigma-y' or 'd-optimal'" }).default('sigma-y'),
 })
 /** GET /api/data-sets/:id/pure-component-check query: agreement asked of a pure boiling point, K (default 0.3 K). */
 export const pureComponentCheckQuerySchema = z.object({

@@ -56,7 +56,7 @@ export const reviewRoutes = defineRoutes([
       const { db, user } = ctx(req)
       const { id, fitId } = parseParams(fitParams, req)
       const q = parseQuery(nextCompositionsQuerySchema, req)
-      res.json(await uncertainty.nextCompositions(db, user, id, fitId, { P: pascal(q), count: q.count }))
+      res.json(await uncertainty.nextCompositions(db, user, id, fitId, { P: pascal(q), count: q.count, criterion: q.criterion }))
     },
   },
   {

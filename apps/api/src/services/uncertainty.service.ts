@@ -5,7 +5,7 @@
  */
 import {
   fitBinary, predictionBand, PURE_COMPONENT_TOLERANCE, pureComponentCheck, suggestNextCompositions,
-  type ActivityModel, type FitBinaryResult, type PureComponentCheck,
+  type ActivityModel, type FitBinaryResult, type PureComponentCheck, type SuggestionCriterion,
 } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
@@ -78,12 +78,12 @@ export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, point
 }
 
 /**
- * Up to `count` liquid compositions to measure next at P (Pa), best first, by thermo's default criterion
- * 'sigma-y' (largest predicted σy); named in the response. Deterministic for a stored fit: the stored
- * parameters and covariance are used, so the list changes only when a different fit is asked for.
+ * Up to `count` liquid compositions to measure next at P (Pa), best first, by `criterion` (default
+ * 'sigma-y', largest predicted σy; 'd-optimal', largest gain in parameter information); named in the
+ * response. Deterministic for a stored fit: the stored parameters and covariance are used, so the list
+ * changes only when a different fit or criterion is asked for.
  */
-export function suggestionsOf(fit: FitRecord, result: FitBinaryResult, P: number, count: number) {
-  const criterion = 'sigma-y' as const
+export function suggestionsOf(fit: FitRecord, result: FitBinaryResult, P: number, count: number, criterion: SuggestionCriterion = 'sigma-y') {
   const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count, criterion }))
   return { fitId: fit.id, model: fit.model, P, criterion, items }
 }
@@ -93,9 +93,9 @@ export async function fitBand(db: Db, user: SessionUser, id: string, fitId: stri
   return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points) }
 }
 
-export async function nextCompositions(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; count: number }) {
+export async function nextCompositions(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; count: number; criterion?: SuggestionCriterion }) {
   const { d, fit, result } = await loadFit(db, user, id, fitId)
-  return { dataSetId: id, ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count) }
+  return { dataSetId: id, ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count, o.criterion) }
 }
 
 /** A pure-component comparison, saying where the boiling point came from. */

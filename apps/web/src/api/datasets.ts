@@ -2,7 +2,7 @@
  * Data sets, their points, fits and consistency results (issue 5's `/api/data-sets` routes).
  * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
  */
-import type { PointDto } from '@ebullio/schemas'
+import type { PointDto, SuggestionCriterionName } from '@ebullio/schemas'
 import { api, query } from './client'
 import type { CommentItem } from './comments'
 import type { CalibrationSummary } from './uploads'
@@ -253,8 +253,9 @@ export const datasetsApi = {
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   band: (id: string, fitId: string) => api.get<FitBand>(`${base}/${id}/fits/${fitId}/band`, { quiet: true }),
-  nextCompositions: (id: string, fitId: string, count = 5) =>
-    api.get<{ items: SuggestedComposition[]; P: number }>(`${base}/${id}/fits/${fitId}/next-compositions` + query({ count }), { quiet: true }),
+  nextCompositions: (id: string, fitId: string, count = 5, criterion: SuggestionCriterionName = 'sigma-y') =>
+    api.get<{ items: SuggestedComposition[]; P: number; fitId: string; criterion: SuggestionCriterionName }>(
+      `${base}/${id}/fits/${fitId}/next-compositions` + query({ count, criterion }), { quiet: true }),
   pureComponentCheck: (id: string) => api.get<PureCheckResult>(`${base}/${id}/pure-component-check`, { quiet: true }),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
   audit: (id: string) => api.get<{ items: AuditEntry[] }>(`${base}/${id}/audit`),
