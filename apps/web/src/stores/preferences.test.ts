@@ -26,7 +26,9 @@ describe('preferences: display units', () => {
   it('shows a temperature difference ×1.8 in °F and unchanged in K and °C (a 1 K step is 1.8 °F by the definition of the scales, NIST SP 811, 2008 ed., from memory)', () => {
     const p = usePreferencesStore()
     expect(p.fmtDT(0.067)).toBe('0.067 K')
-    expect(p.fmtDT(-0.093, 3, true)).toBe('-0.093 K')
+    expect(p.fmtDT(-0.093, 3, true)).toBe('−0.093 K')
+    expect(p.fmtDT(-0.093)).toBe('−0.093 K')
+    expect(p.fmtDT(-0.0001, 3, true)).toBe('+0.000 K')
     p.temperatureUnit = 'F'
     expect(p.fmtDT(0.067)).toBe('0.121 °F')
     expect(p.fmtDT(0.3, 2, true)).toBe('+0.54 °F')
@@ -58,5 +60,21 @@ describe('preferences: display units', () => {
     setActivePinia(createPinia())
     const again = usePreferencesStore()
     expect([again.temperatureUnit, again.pressureUnit]).toEqual(['F', 'psi'])
+  })
+})
+
+describe('preferences: negative temperatures', () => {
+  it('writes negatives with the true minus sign "−" (U+2212): −40 °C is −40 °F, the point where the scales meet (definition of the scales, NIST SP 811, 2008 ed., from memory)', () => {
+    const p = usePreferencesStore()
+    expect(p.fmtT(233.15)).toBe('−40.00 °C')
+    p.temperatureUnit = 'F'
+    expect(p.fmtT(233.15)).toBe('−40.00 °F')
+    expect(p.fmtT(233.15, 0)).not.toContain('-')
+  })
+
+  it('never shows a sign on a value that rounds to zero', () => {
+    const p = usePreferencesStore()
+    expect(p.fmtT(273.149)).toBe('0.00 °C')
+    expect(p.fmtDT(-0.0004)).toBe('0.000 K')
   })
 })

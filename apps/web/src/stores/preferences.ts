@@ -37,6 +37,15 @@ export function roundShown(v: number, decimals: number): string {
   return new Intl.NumberFormat('en-US', { useGrouping: false, minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(v)
 }
 
+/**
+ * `v.toFixed(decimals)` with the true minus sign "−" (U+2212) for negatives, as the other screens write them;
+ * a value that rounds to zero shows no sign ("0.00", never "−0.00").
+ */
+export function fixedText(v: number, decimals: number): string {
+  const s = v.toFixed(decimals)
+  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s.replace(/^-/, '−')
+}
+
 const KEY = 'ebullio.units'
 
 function readStored(): { t: TemperatureChoice; p: PressureChoice } {
@@ -80,12 +89,15 @@ export const usePreferencesStore = defineStore('preferences', () => {
   /** Pascal → the display value rounded as everywhere it is shown (fields and labels alike). */
   const pShown = (P: number) => Number(roundShown(pFromPa(P), pDecimals()))
 
-  /** "63.12 °C" from kelvin. */
+  /** "63.12 °C" from kelvin ("−40.00 °C" with the true minus sign). */
   const fmtT = (T: number | null | undefined, decimals = 2) =>
-    T === null || T === undefined || !Number.isFinite(T) ? '—' : `${tFromK(T).toFixed(decimals)} ${tLabel()}`
-  /** "0.121 °F" from a difference in K ("+0.12 K" with `signed`); "—" when missing. */
-  const fmtDT = (d: number | null | undefined, decimals = 3, signed = false) =>
-    d === null || d === undefined || !Number.isFinite(d) ? '—' : `${signed && dT(d) >= 0 ? '+' : ''}${dT(d).toFixed(decimals)} ${dTLabel()}`
+    T === null || T === undefined || !Number.isFinite(T) ? '—' : `${fixedText(tFromK(T), decimals)} ${tLabel()}`
+  /** "0.121 °F" from a difference in K ("+0.12 K" or "−0.09 K" with `signed`); "—" when missing. */
+  const fmtDT = (d: number | null | undefined, decimals = 3, signed = false) => {
+    if (d === null || d === undefined || !Number.isFinite(d)) return '—'
+    const s = fixedText(dT(d), decimals)
+    return `${signed && !s.startsWith('−') ? '+' : ''}${s} ${dTLabel()}`
+  }
   /** "101.33 kPa" from pascal. */
   const fmtP = (P: number | null | undefined, decimals?: number) =>
     P === null || P === undefined || !Number.isFinite(P) ? '—' : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
