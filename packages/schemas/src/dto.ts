@@ -140,3 +140,28 @@ export interface CalibrationDto<D = string, R = Record<string, unknown>> {
   createdAt: D
   retiredAt: D | null
 }
+
+/** Where a data set version stands in the review workflow. */
+export type DataSetStateDto = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
+
+/** A data set version as the API shows it. Pressure in Pa; `D` is Date on the server and string on the wire. */
+export interface DataSetDto<D = string> {
+  id: string
+  lineageId: string
+  version: number
+  previousVersionId: string | null
+  systemId: string
+  title: string
+  state: DataSetStateDto
+  nominalPressurePa: number
+  apparatusNotes: string | null
+  projectRef: string | null
+  recommendedFitId: string | null
+  createdBy: string
+  createdAt: D
+  updatedAt: D
+  submittedAt: D | null
+  approvedAt: D | null
+  supersededAt: D | null
+  rowVersion: number
+}

@@ -1,28 +1,10 @@
+import type { DataSetDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { DataSet, DataSetState } from '../db/lab-tables.js'
 
-/** A data set version as the API shows it. Pressure in Pa. */
-export interface DataSetRecord {
-  id: string
-  lineageId: string
-  version: number
-  previousVersionId: string | null
-  systemId: string
-  title: string
-  state: DataSetState
-  nominalPressurePa: number
-  apparatusNotes: string | null
-  projectRef: string | null
-  recommendedFitId: string | null
-  createdBy: string
-  createdAt: Date
-  updatedAt: Date
-  submittedAt: Date | null
-  approvedAt: Date | null
-  supersededAt: Date | null
-  rowVersion: number
-}
+/** A data set version as the API shows it (the shared wire type, with Date timestamps). Pressure in Pa. */
+export type DataSetRecord = DataSetDto<Date>
 
 export const toDataSet = (d: DataSet): DataSetRecord => ({
   id: d.id, lineageId: d.lineage_id, version: d.version, previousVersionId: d.previous_version_id, systemId: d.system_id,

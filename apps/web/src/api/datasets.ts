@@ -2,35 +2,16 @@
  * Data sets, their points, fits and consistency results (issue 5's `/api/data-sets` routes).
  * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
  */
-import type { PointDto, SuggestionCriterionName } from '@ebullio/schemas'
+import type { DataSetDto, DataSetStateDto, PointDto, SuggestionCriterionName } from '@ebullio/schemas'
+import type { PredictionBand } from '@ebullio/thermo'
 import { api, query } from './client'
 import type { CommentItem } from './comments'
 import type { CalibrationSummary } from './uploads'
 
-export type DataSetState = 'draft' | 'submitted' | 'approved' | 'returned' | 'superseded'
+export type DataSetState = DataSetStateDto
 export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl'
 
-export interface DataSet {
-  id: string
-  lineageId: string
-  version: number
-  previousVersionId: string | null
-  systemId: string
-  title: string
-  state: DataSetState
-  /** Pa */
-  nominalPressurePa: number
-  apparatusNotes: string | null
-  projectRef: string | null
-  recommendedFitId: string | null
-  createdBy: string
-  createdAt: string
-  updatedAt: string
-  submittedAt: string | null
-  approvedAt: string | null
-  supersededAt: string | null
-  rowVersion: number
-}
+export type DataSet = DataSetDto
 
 export interface DataSetListItem extends DataSet {
   systemName: string
@@ -185,20 +166,9 @@ export interface FitRequest {
 }
 
 /** A fit's T–x–y curve with its ±2σ band at P (Pa): T in K, compositions as mole fractions of component 1. */
-export interface FitBand {
+export interface FitBand extends PredictionBand {
   fitId: string
   model: ModelName
-  P: number
-  x1: number[]
-  T: number[]
-  y1: number[]
-  sigmaT: number[]
-  sigmaY: number[]
-  Tlow: number[]
-  Thigh: number[]
-  ylow: number[]
-  yhigh: number[]
-  warnings: string[]
   /** what the band means, from the server */
   note: string
 }
