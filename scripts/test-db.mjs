@@ -5,7 +5,7 @@
 import { startCluster, dataDirFor } from './lib/postgres.mjs'
 import { root } from './lib/system.mjs'
 
-export const TEST_DB = { port: 54329, database: 'ebullio_test' }
+export const TEST_DB = { port: Number(process.env.TEST_PG_PORT ?? 54329), database: 'ebullio_test' }
 
 const cmd = process.argv[2] ?? 'start'
 const dataDir = dataDirFor(root, 'pg-test')
