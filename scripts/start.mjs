@@ -12,7 +12,11 @@ ensureDependencies()
 
 const env = { ...loadDotEnv(root), ...process.env }
 const dbUrl = env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54320/ebullio'
-const pg = startCluster({ dataDir: dataDirFor(root, 'pg'), port: portOf(dbUrl, 54320), database: new URL(dbUrl).pathname.slice(1) || 'ebullio' })
+const pg = startCluster({
+  dataDir: dataDirFor(root, 'pg'),
+  port: portOf(dbUrl, 54320),
+  database: new URL(dbUrl).pathname.slice(1) || 'ebullio',
+})
 const appEnv = { ...env, DATABASE_URL: pg.url, NODE_ENV: env.NODE_ENV ?? 'development', SERVE_WEB: 'true' }
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx')
 
@@ -31,7 +35,11 @@ try {
   process.exit(1)
 }
 
-const server = spawn(tsx, ['apps/api/src/server.ts'], { cwd: root, env: appEnv, stdio: ['ignore', 'inherit', 'inherit'] })
+const server = spawn(tsx, ['apps/api/src/server.ts'], {
+  cwd: root,
+  env: appEnv,
+  stdio: ['ignore', 'inherit', 'inherit'],
+})
 const url = appEnv.PUBLIC_URL ?? `http://127.0.0.1:${appEnv.PORT ?? 3000}`
 setTimeout(() => {
   const secs = Math.round((Date.now() - started) / 1000)

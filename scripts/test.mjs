@@ -22,8 +22,13 @@ const bin = (name) => path.join(root, 'node_modules', '.bin', name)
 const reportDir = path.join(root, '.data')
 mkdirSync(reportDir, { recursive: true })
 
-const sh = (cmd, args, env = {}) => spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } }).status ?? 1
-const counts = { unit: { passed: 0, failed: 0, skipped: 0 }, e2e: { passed: 0, failed: 0, skipped: 0 }, types: 'not run' }
+const sh = (cmd, args, env = {}) =>
+  spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } }).status ?? 1
+const counts = {
+  unit: { passed: 0, failed: 0, skipped: 0 },
+  e2e: { passed: 0, failed: 0, skipped: 0 },
+  types: 'not run',
+}
 let failure = false
 
 try {
@@ -31,13 +36,21 @@ try {
     log('unit and integration tests (vitest)')
     const vitestJson = path.join(reportDir, 'vitest-report.json')
     rmSync(vitestJson, { force: true })
-    const code = sh(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`], {
-      DATABASE_URL: unitDb.url,
-      NODE_ENV: 'test',
-    })
+    const code = sh(
+      bin('vitest'),
+      ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`],
+      {
+        DATABASE_URL: unitDb.url,
+        NODE_ENV: 'test',
+      },
+    )
     if (existsSync(vitestJson)) {
       const r = JSON.parse(readFileSync(vitestJson, 'utf8'))
-      counts.unit = { passed: r.numPassedTests, failed: r.numFailedTests, skipped: r.numPendingTests + (r.numTodoTests ?? 0) }
+      counts.unit = {
+        passed: r.numPassedTests,
+        failed: r.numFailedTests,
+        skipped: r.numPendingTests + (r.numTodoTests ?? 0),
+      }
     }
     if (code !== 0) failure = true
     if (code !== 0 && counts.unit.failed === 0) counts.unit.failed = 1 // a crash outside any test still fails the run
@@ -52,11 +65,15 @@ try {
 
   if (only !== 'unit') {
     log('preparing the browser-test database (migrations + demo scenario)')
-    if (sh(process.execPath, ['scripts/lib/reset-db.mjs', e2eDb.url]) !== 0) throw new Error('could not reset the e2e database')
-    if (sh(bin('tsx'), ['db/migrate.ts'], { DATABASE_URL: e2eDb.url }) !== 0) throw new Error('migrations failed on the e2e database')
-    if (sh(bin('tsx'), ['db/seeds/index.ts'], { DATABASE_URL: e2eDb.url }) !== 0) throw new Error('the demo scenario did not load on the e2e database')
+    if (sh(process.execPath, ['scripts/lib/reset-db.mjs', e2eDb.url]) !== 0)
+      throw new Error('could not reset the e2e database')
+    if (sh(bin('tsx'), ['db/migrate.ts'], { DATABASE_URL: e2eDb.url }) !== 0)
+      throw new Error('migrations failed on the e2e database')
+    if (sh(bin('tsx'), ['db/seeds/index.ts'], { DATABASE_URL: e2eDb.url }) !== 0)
+      throw new Error('the demo scenario did not load on the e2e database')
     log('building the web app')
-    if (sh('pnpm', ['--filter', '@ebullio/web', 'build', '--logLevel', 'warn']) !== 0) throw new Error('web build failed')
+    if (sh('pnpm', ['--filter', '@ebullio/web', 'build', '--logLevel', 'warn']) !== 0)
+      throw new Error('web build failed')
     log('browser tests (Playwright in Debian chromium)')
     mkdirSync(path.join(root, 'tests/artifacts/screens'), { recursive: true })
     const pwJson = path.join(reportDir, 'playwright-report.json')
@@ -76,7 +93,11 @@ try {
   unitDb.stop()
 }
 
-const total = { passed: counts.unit.passed + counts.e2e.passed, failed: counts.unit.failed + counts.e2e.failed, skipped: counts.unit.skipped + counts.e2e.skipped }
+const total = {
+  passed: counts.unit.passed + counts.e2e.passed,
+  failed: counts.unit.failed + counts.e2e.failed,
+  skipped: counts.unit.skipped + counts.e2e.skipped,
+}
 const secs = Math.round((Date.now() - started) / 1000)
 console.log(
   `\nEbullio test suite: ${failure ? 'FAILED' : 'PASSED'} — ${total.passed} passed, ${total.failed} failed, ${total.skipped} skipped ` +

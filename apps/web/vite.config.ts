@@ -8,11 +8,31 @@ import { defineConfig } from 'vite'
  * left to automatic splitting: grouping them would put the data table into the first page.
  */
 const VENDOR_GROUPS = [
-  { name: 'vendor-vue', test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(vue|@vue|vue-router|pinia)[\\/]/, priority: 40 },
-  { name: 'vendor-prime', test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(@primevue[\\/]core|@primeuix[\\/](themes|utils|styled))[\\/]/, priority: 30 },
-  { name: 'vendor-charts', test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(echarts|zrender|vue-echarts)[\\/]/, priority: 20 },
-  { name: 'thermo', test: /[\\/](packages[\\/]thermo[\\/]src|node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(mathjs|decimal\.js|complex\.js|fraction\.js|typed-function|javascript-natural-sort|escape-latex|seedrandom|tiny-emitter|ml-[^\\/]+))[\\/]/, priority: 20 },
-  { name: 'vendor-zod', test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?zod[\\/]/, priority: 10 },
+  {
+    name: 'vendor-vue',
+    test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(vue|@vue|vue-router|pinia)[\\/]/,
+    priority: 40,
+  },
+  {
+    name: 'vendor-prime',
+    test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(@primevue[\\/]core|@primeuix[\\/](themes|utils|styled))[\\/]/,
+    priority: 30,
+  },
+  {
+    name: 'vendor-charts',
+    test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(echarts|zrender|vue-echarts)[\\/]/,
+    priority: 20,
+  },
+  {
+    name: 'thermo',
+    test: /[\\/](packages[\\/]thermo[\\/]src|node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(mathjs|decimal\.js|complex\.js|fraction\.js|typed-function|javascript-natural-sort|escape-latex|seedrandom|tiny-emitter|ml-[^\\/]+))[\\/]/,
+    priority: 20,
+  },
+  {
+    name: 'vendor-zod',
+    test: /[\\/]node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?zod[\\/]/,
+    priority: 10,
+  },
 ]
 
 export default defineConfig({

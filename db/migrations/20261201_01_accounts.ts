@@ -74,7 +74,15 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const t of ['captured_mail', 'mail_outbox', 'password_reset', 'invite', 'user_session', 'user_role', 'app_user']) {
+  for (const t of [
+    'captured_mail',
+    'mail_outbox',
+    'password_reset',
+    'invite',
+    'user_session',
+    'user_role',
+    'app_user',
+  ]) {
     await db.schema.dropTable(t).ifExists().execute()
   }
 }

@@ -18,15 +18,27 @@ export async function up(db: Kysely<any>): Promise<void> {
 
 export async function down(db: Kysely<any>): Promise<void> {
   for (const t of [
-    'audit_log', 'approval', 'comment', 'consistency_result', 'point_injection', 'point',
-    'fit', 'data_set', 'upload', 'calibration_injection', 'calibration_standard', 'calibration',
-    'gc_method', 'binary_system', 'pure_measurement', 'vapor_pressure_set', 'component',
+    'audit_log',
+    'approval',
+    'comment',
+    'consistency_result',
+    'point_injection',
+    'point',
+    'fit',
+    'data_set',
+    'upload',
+    'calibration_injection',
+    'calibration_standard',
+    'calibration',
+    'gc_method',
+    'binary_system',
+    'pure_measurement',
+    'vapor_pressure_set',
+    'component',
   ]) {
     await sql`drop table if exists ${sql.table(t)} cascade`.execute(db)
   }
-  for (const f of [
-    'lab_cas_valid(text)', 'lab_reject_change()', 'lab_data_set_guard()', 'lab_child_guard()',
-  ]) {
+  for (const f of ['lab_cas_valid(text)', 'lab_reject_change()', 'lab_data_set_guard()', 'lab_child_guard()']) {
     await sql.raw(`drop function if exists ${f} cascade`).execute(db)
   }
 }
@@ -75,7 +87,10 @@ async function createCatalogueTables(db: Kysely<any>): Promise<void> {
     .addColumn('preferred', 'boolean', (c) => c.notNull().defaultTo(false))
     .addColumn('entered_by', 'text', (c) => c.references('app_user.id'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addCheckConstraint('vapor_pressure_range_order', sql`range_min is null or range_max is null or range_min < range_max`)
+    .addCheckConstraint(
+      'vapor_pressure_range_order',
+      sql`range_min is null or range_max is null or range_min < range_max`,
+    )
     .execute()
 
   await db.schema
@@ -139,7 +154,12 @@ async function createCalibrationTables(db: Kysely<any>): Promise<void> {
     .addColumn('result', 'jsonb', (c) => c.notNull())
     .addColumn('range_min', 'double precision', (c) => c.notNull())
     .addColumn('range_max', 'double precision', (c) => c.notNull())
-    .addColumn('status', 'text', (c) => c.notNull().defaultTo('active').check(sql`status in ('active', 'retired')`))
+    .addColumn('status', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('active')
+        .check(sql`status in ('active', 'retired')`),
+    )
     .addColumn('upload_id', 'uuid', (c) => c.notNull().references('upload.id'))
     .addColumn('created_by', 'text', (c) => c.notNull().references('app_user.id'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
@@ -176,12 +196,21 @@ async function createDataSetTables(db: Kysely<any>): Promise<void> {
     .createTable('data_set')
     .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(sql`gen_random_uuid()`))
     .addColumn('lineage_id', 'uuid', (c) => c.notNull())
-    .addColumn('version', 'integer', (c) => c.notNull().defaultTo(1).check(sql`version >= 1`))
+    .addColumn('version', 'integer', (c) =>
+      c
+        .notNull()
+        .defaultTo(1)
+        .check(sql`version >= 1`),
+    )
     .addColumn('previous_version_id', 'uuid', (c) => c.references('data_set.id'))
     .addColumn('system_id', 'uuid', (c) => c.notNull().references('binary_system.id'))
     .addColumn('title', 'text', (c) => c.notNull())
     .addColumn('state', 'text', (c) =>
-      c.notNull().defaultTo('draft').check(sql`state in ('draft', 'submitted', 'approved', 'returned', 'superseded')`))
+      c
+        .notNull()
+        .defaultTo('draft')
+        .check(sql`state in ('draft', 'submitted', 'approved', 'returned', 'superseded')`),
+    )
     .addColumn('nominal_pressure_pa', 'double precision', (c) => c.notNull().check(sql`nominal_pressure_pa > 0`))
     .addColumn('apparatus_notes', 'text')
     .addColumn('project_ref', 'text')
@@ -231,8 +260,10 @@ async function createDataSetTables(db: Kysely<any>): Promise<void> {
     .addColumn('calibration_id', 'uuid', (c) => c.references('calibration.id'))
     .addColumn('row_refs', sql`integer[]`, (c) => c.notNull())
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addCheckConstraint('point_exclusion_reason',
-      sql`not excluded or (exclusion_reason is not null and length(trim(exclusion_reason)) > 0)`)
+    .addCheckConstraint(
+      'point_exclusion_reason',
+      sql`not excluded or (exclusion_reason is not null and length(trim(exclusion_reason)) > 0)`,
+    )
     .addUniqueConstraint('point_seq', ['data_set_id', 'seq'])
     .execute()
 
@@ -260,7 +291,8 @@ async function createDataSetTables(db: Kysely<any>): Promise<void> {
     .execute()
 
   // Which uploads fed which data set (calibration uploads have none).
-  await db.schema.alterTable('upload')
+  await db.schema
+    .alterTable('upload')
     .addColumn('data_set_id', 'uuid', (c) => c.references('data_set.id').onDelete('cascade'))
     .execute()
   await sql`create index point_data_set on point (data_set_id)`.execute(db)

@@ -9,7 +9,12 @@ import { type Kysely, sql } from 'kysely'
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .alterTable('gc_method')
-    .addColumn('status', 'text', (c) => c.notNull().defaultTo('active').check(sql`status in ('active', 'retired')`))
+    .addColumn('status', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('active')
+        .check(sql`status in ('active', 'retired')`),
+    )
     .addColumn('retired_at', 'timestamptz')
     .addColumn('retired_by', 'text', (c) => c.references('app_user.id'))
     .execute()
@@ -21,7 +26,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       end if;
       return new;
     end $$`.execute(db)
-  await sql`create trigger calibration_method_active before insert or update on calibration for each row execute function lab_calibration_method_active()`.execute(db)
+  await sql`create trigger calibration_method_active before insert or update on calibration for each row execute function lab_calibration_method_active()`.execute(
+    db,
+  )
   await sql`
     create function lab_gc_method_retire_guard() returns trigger language plpgsql as $$
     begin
@@ -30,7 +37,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       end if;
       return new;
     end $$`.execute(db)
-  await sql`create trigger gc_method_retire_guard before update of status on gc_method for each row execute function lab_gc_method_retire_guard()`.execute(db)
+  await sql`create trigger gc_method_retire_guard before update of status on gc_method for each row execute function lab_gc_method_retire_guard()`.execute(
+    db,
+  )
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
@@ -38,5 +47,10 @@ export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop function if exists lab_gc_method_retire_guard()`.execute(db)
   await sql`drop trigger if exists calibration_method_active on calibration`.execute(db)
   await sql`drop function if exists lab_calibration_method_active()`.execute(db)
-  await db.schema.alterTable('gc_method').dropColumn('retired_by').dropColumn('retired_at').dropColumn('status').execute()
+  await db.schema
+    .alterTable('gc_method')
+    .dropColumn('retired_by')
+    .dropColumn('retired_at')
+    .dropColumn('status')
+    .execute()
 }

@@ -29,18 +29,81 @@ export interface DemoComponent {
 }
 
 const antoine = (c: DemoComponent): VaporPressureModel => ({
-  kind: 'antoine', A: c.antoine.A, B: c.antoine.B, C: c.antoine.C, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C', range: c.antoine.range,
+  kind: 'antoine',
+  A: c.antoine.A,
+  B: c.antoine.B,
+  C: c.antoine.C,
+  log: 'ln',
+  pressureUnit: 'kPa',
+  temperatureUnit: 'C',
+  range: c.antoine.range,
 })
 
 // Molar masses: IUPAC atomic weights (common practice, no source). CAS numbers: check digits verified by the database.
 export const DEMO_COMPONENTS: Record<string, DemoComponent> = {
-  acetone: { name: 'acetone', cas: '67-64-1', formula: 'C3H6O', molarMass: 58.08, molarVolume: 74.05, antoine: { A: 14.3145, B: 2756.22, C: 228.06, range: [-26, 77] }, source: SVNA_B2 },
-  methanol: { name: 'methanol', cas: '67-56-1', formula: 'CH4O', molarMass: 32.042, molarVolume: 40.73, antoine: { A: 16.5785, B: 3638.27, C: 239.5, range: [-11, 83] }, source: SVNA_B2 },
-  water: { name: 'water', cas: '7732-18-5', formula: 'H2O', molarMass: 18.015, molarVolume: 18.07, antoine: { A: 16.3872, B: 3885.7, C: 230.17, range: [0, 200] }, source: SVNA_B2 },
-  '1-propanol': { name: '1-propanol', cas: '71-23-8', formula: 'C3H8O', molarMass: 60.096, molarVolume: 75.14, antoine: { A: 16.1154, B: 3483.67, C: 205.807, range: [20, 116] }, source: SVNA_B2 },
-  chloroform: { name: 'chloroform', cas: '67-66-3', formula: 'CHCl3', molarMass: 119.38, molarVolume: 80.7, antoine: { A: 13.7324, B: 2548.74, C: 218.552, range: [-23, 84] }, source: SVNA_B2 },
-  'n-hexane': { name: 'n-hexane', cas: '110-54-3', formula: 'C6H14', molarMass: 86.175, molarVolume: 131.6, antoine: { A: 13.8193, B: 2696.04, C: 224.317, range: [-19, 92] }, source: SVNA_B2 },
-  'n-heptane': { name: 'n-heptane', cas: '142-82-5', formula: 'C7H16', molarMass: 100.202, molarVolume: 147.5, antoine: { A: 13.8622, B: 2910.26, C: 216.432, range: [4, 123] }, source: SVNA_B2 },
+  acetone: {
+    name: 'acetone',
+    cas: '67-64-1',
+    formula: 'C3H6O',
+    molarMass: 58.08,
+    molarVolume: 74.05,
+    antoine: { A: 14.3145, B: 2756.22, C: 228.06, range: [-26, 77] },
+    source: SVNA_B2,
+  },
+  methanol: {
+    name: 'methanol',
+    cas: '67-56-1',
+    formula: 'CH4O',
+    molarMass: 32.042,
+    molarVolume: 40.73,
+    antoine: { A: 16.5785, B: 3638.27, C: 239.5, range: [-11, 83] },
+    source: SVNA_B2,
+  },
+  water: {
+    name: 'water',
+    cas: '7732-18-5',
+    formula: 'H2O',
+    molarMass: 18.015,
+    molarVolume: 18.07,
+    antoine: { A: 16.3872, B: 3885.7, C: 230.17, range: [0, 200] },
+    source: SVNA_B2,
+  },
+  '1-propanol': {
+    name: '1-propanol',
+    cas: '71-23-8',
+    formula: 'C3H8O',
+    molarMass: 60.096,
+    molarVolume: 75.14,
+    antoine: { A: 16.1154, B: 3483.67, C: 205.807, range: [20, 116] },
+    source: SVNA_B2,
+  },
+  chloroform: {
+    name: 'chloroform',
+    cas: '67-66-3',
+    formula: 'CHCl3',
+    molarMass: 119.38,
+    molarVolume: 80.7,
+    antoine: { A: 13.7324, B: 2548.74, C: 218.552, range: [-23, 84] },
+    source: SVNA_B2,
+  },
+  'n-hexane': {
+    name: 'n-hexane',
+    cas: '110-54-3',
+    formula: 'C6H14',
+    molarMass: 86.175,
+    molarVolume: 131.6,
+    antoine: { A: 13.8193, B: 2696.04, C: 224.317, range: [-19, 92] },
+    source: SVNA_B2,
+  },
+  'n-heptane': {
+    name: 'n-heptane',
+    cas: '142-82-5',
+    formula: 'C7H16',
+    molarMass: 100.202,
+    molarVolume: 147.5,
+    antoine: { A: 13.8622, B: 2910.26, C: 216.432, range: [4, 123] },
+    source: SVNA_B2,
+  },
 }
 
 /** A binary system of the demo and the model its invented points are generated from. */
@@ -58,42 +121,61 @@ export interface DemoSystem {
 
 export const DEMO_SYSTEMS: DemoSystem[] = [
   {
-    key: 'acetone-methanol', light: 'acetone', heavy: 'methanol',
+    key: 'acetone-methanol',
+    light: 'acetone',
+    heavy: 'methanol',
     // Wilson a12, a21 in cal/mol from SVNA Table 12.5 (reference-values: M), converted to J/mol.
     activity: { kind: 'wilson', a12: -161.88 * CAL, a21: 583.11 * CAL, V1: 74.05, V2: 40.73 },
-    modelSource: `${SVNA_12_5} (Wilson, acetone/methanol)`, detector: 'FID', responseFactor: 1.32,
+    modelSource: `${SVNA_12_5} (Wilson, acetone/methanol)`,
+    detector: 'FID',
+    responseFactor: 1.32,
     note: 'Minimum-boiling azeotrope near 55 °C at 1 atm.',
   },
   {
-    key: '1-propanol-water', light: '1-propanol', heavy: 'water',
+    key: '1-propanol-water',
+    light: '1-propanol',
+    heavy: 'water',
     // NRTL b12, b21 in cal/mol and α from SVNA Table 12.5 (reference-values: S), converted to J/mol.
     activity: { kind: 'nrtl', b12: 500.4 * CAL, b21: 1636.57 * CAL, alpha: 0.5081 },
-    modelSource: `${SVNA_12_5} (NRTL, 1-propanol/water)`, detector: 'TCD', responseFactor: 1.85,
+    modelSource: `${SVNA_12_5} (NRTL, 1-propanol/water)`,
+    detector: 'TCD',
+    responseFactor: 1.85,
     note: 'Minimum-boiling azeotrope near 87.7 °C at 1 atm (CRC Handbook); water needs a TCD.',
   },
   {
-    key: 'acetone-chloroform', light: 'acetone', heavy: 'chloroform',
+    key: 'acetone-chloroform',
+    light: 'acetone',
+    heavy: 'chloroform',
     // Two-parameter Margules chosen so that, with the Table B.2 Antoine constants, the model reproduces the
     // handbook maximum-boiling azeotrope (about 64.5 °C, about 20 wt % acetone, CRC Handbook; tag M).
     // Derived here (tag C): at x1 = 0.339, 64.5 °C, γi = 101.325 kPa / Pi_sat → A12 = −0.8485, A21 = −0.5291.
     activity: { kind: 'margules', A12: -0.8485, A21: -0.5291 },
-    modelSource: 'Margules fitted to the CRC Handbook azeotrope (about 64.5 °C, 20 wt % acetone) with SVNA Table B.2 Antoine constants',
-    detector: 'TCD', responseFactor: 0.78,
+    modelSource:
+      'Margules fitted to the CRC Handbook azeotrope (about 64.5 °C, 20 wt % acetone) with SVNA Table B.2 Antoine constants',
+    detector: 'TCD',
+    responseFactor: 0.78,
     note: 'Maximum-boiling azeotrope near 64.5 °C at 1 atm.',
   },
   {
-    key: 'hexane-heptane', light: 'n-hexane', heavy: 'n-heptane',
+    key: 'hexane-heptane',
+    light: 'n-hexane',
+    heavy: 'n-heptane',
     // Neighbouring n-alkanes form nearly ideal solutions (common practice, no source): Raoult's law.
     activity: { kind: 'ideal' },
     modelSource: "Raoult's law (neighbouring n-alkanes are nearly ideal; common practice, no source)",
-    detector: 'FID', responseFactor: 1.04,
+    detector: 'FID',
+    responseFactor: 1.04,
     note: 'Nearly ideal pair, no azeotrope.',
   },
   {
-    key: 'methanol-water', light: 'methanol', heavy: 'water',
+    key: 'methanol-water',
+    light: 'methanol',
+    heavy: 'water',
     // NRTL b12, b21 in cal/mol and α from SVNA Table 12.5 (reference-values: M), converted to J/mol.
     activity: { kind: 'nrtl', b12: -253.88 * CAL, b21: 845.21 * CAL, alpha: 0.2994 },
-    modelSource: `${SVNA_12_5} (NRTL, methanol/water)`, detector: 'TCD', responseFactor: 1.42,
+    modelSource: `${SVNA_12_5} (NRTL, methanol/water)`,
+    detector: 'TCD',
+    responseFactor: 1.42,
     note: 'Non-ideal, no azeotrope at 1 atm (CRC Handbook).',
   },
 ]

@@ -76,10 +76,19 @@ export interface GeneratedState {
  * A run sheet at a nominal pressure (Pa): liquid compositions spread over 0.04–0.96, each boiled at the
  * day's barometric pressure, T and y from the model's bubble point, two injections per phase.
  */
-export function runCsv(system: DemoSystem, o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels }): { csv: string; states: GeneratedState[] } {
+export function runCsv(
+  system: DemoSystem,
+  o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels },
+): { csv: string; states: GeneratedState[] } {
   const noise = o.noise ?? DEFAULT_NOISE
   const rand = seededRandom(o.seed)
-  const model = { vaporPressure: [demoVaporPressure(system.light), demoVaporPressure(system.heavy)] as [ReturnType<typeof demoVaporPressure>, ReturnType<typeof demoVaporPressure>], activity: system.activity }
+  const model = {
+    vaporPressure: [demoVaporPressure(system.light), demoVaporPressure(system.heavy)] as [
+      ReturnType<typeof demoVaporPressure>,
+      ReturnType<typeof demoVaporPressure>,
+    ],
+    activity: system.activity,
+  }
   const lines = ['sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit']
   const states: GeneratedState[] = []
   for (let i = 0; i < o.samples; i++) {
@@ -89,7 +98,10 @@ export function runCsv(system: DemoSystem, o: { seed: number; pressurePa: number
     const label = `${o.prefix}-${String(i + 1).padStart(2, '0')}`
     states.push({ label, x1, y1: bubble.y1, T: bubble.T, P })
     const tC = bubble.T - 273.15 + noise.thermometer * gaussian(rand)
-    for (const [phase, z] of [['liquid', x1], ['vapour', bubble.y1]] as const) {
+    for (const [phase, z] of [
+      ['liquid', x1],
+      ['vapour', bubble.y1],
+    ] as const) {
       for (let inj = 1; inj <= 2; inj++) {
         const [a1, a2] = injectionAreas(z, system.responseFactor, rand, noise.injectionRsd)
         const cond = phase === 'liquid' && inj === 1 ? `${fmt(tC, 2)},C,${fmt(P / 1000, 2)},kPa` : ',,,'

@@ -12,7 +12,11 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../../apps/api/src/auth/index.js'
 import { loadConfig, type Config } from '../../apps/api/src/config.js'
 import type { Database } from '../../apps/api/src/db/index.js'
-import { findComponentByName, insertComponent, insertVaporPressureSet } from '../../apps/api/src/repositories/components.repository.js'
+import {
+  findComponentByName,
+  insertComponent,
+  insertVaporPressureSet,
+} from '../../apps/api/src/repositories/components.repository.js'
 import { findGcMethodByName, listCalibrations } from '../../apps/api/src/repositories/calibrations.repository.js'
 import { findSystemByPair, insertSystem } from '../../apps/api/src/repositories/systems.repository.js'
 import { commitCalibration, createGcMethod } from '../../apps/api/src/services/calibrations.service.js'
@@ -29,8 +33,18 @@ export interface SeedContext {
 }
 
 const GC_METHODS = {
-  FID: { name: 'FID-A, wax capillary', detector: 'FID' as const, columnDescription: 'polyethylene glycol capillary, 30 m × 0.32 mm', conditions: '60 °C 3 min, 10 K/min to 160 °C; split 50:1' },
-  TCD: { name: 'TCD-B, porous polymer', detector: 'TCD' as const, columnDescription: 'porous polymer packed, 2 m', conditions: '150 °C isothermal; helium 30 mL/min' },
+  FID: {
+    name: 'FID-A, wax capillary',
+    detector: 'FID' as const,
+    columnDescription: 'polyethylene glycol capillary, 30 m × 0.32 mm',
+    conditions: '60 °C 3 min, 10 K/min to 160 °C; split 50:1',
+  },
+  TCD: {
+    name: 'TCD-B, porous polymer',
+    detector: 'TCD' as const,
+    columnDescription: 'porous polymer packed, 2 m',
+    conditions: '150 °C isothermal; helium 30 mL/min',
+  },
 }
 
 function sessionUsers(ids: Record<string, string>): SeedContext['users'] {
@@ -38,37 +52,75 @@ function sessionUsers(ids: Record<string, string>): SeedContext['users'] {
     const u = DEMO_USERS.find((d) => d.email === email)!
     return { id: ids[email], email, displayName: u.displayName, roles: [...u.roles] }
   }
-  return { analyst: by('analyst@demo.ebullio.test'), lead: by('lead@demo.ebullio.test'), reviewer: by('reviewer@demo.ebullio.test'), engineer: by('engineer@demo.ebullio.test'), admin: by('admin@demo.ebullio.test') }
+  return {
+    analyst: by('analyst@demo.ebullio.test'),
+    lead: by('lead@demo.ebullio.test'),
+    reviewer: by('reviewer@demo.ebullio.test'),
+    engineer: by('engineer@demo.ebullio.test'),
+    admin: by('admin@demo.ebullio.test'),
+  }
 }
 
 async function seedComponents(db: Kysely<Database>, adminId: string): Promise<Record<string, string>> {
   const ids: Record<string, string> = {}
   for (const c of Object.values(DEMO_COMPONENTS)) {
     const existing = await findComponentByName(db, c.name)
-    if (existing) { ids[c.name] = existing.id; continue }
-    const row = await insertComponent(db, { name: c.name, casNumber: c.cas, formula: c.formula, molarMass: c.molarMass, liquidMolarVolume: c.molarVolume }, adminId)
+    if (existing) {
+      ids[c.name] = existing.id
+      continue
+    }
+    const row = await insertComponent(
+      db,
+      { name: c.name, casNumber: c.cas, formula: c.formula, molarMass: c.molarMass, liquidMolarVolume: c.molarVolume },
+      adminId,
+    )
     const m = demoVaporPressure(c.name)
-    await insertVaporPressureSet(db, { componentId: row.id, kind: 'antoine', parameters: m as never, rangeMin: c.antoine.range[0], rangeMax: c.antoine.range[1], rangeUnit: 'C', source: c.source, preferred: true, enteredBy: adminId })
+    await insertVaporPressureSet(db, {
+      componentId: row.id,
+      kind: 'antoine',
+      parameters: m as never,
+      rangeMin: c.antoine.range[0],
+      rangeMax: c.antoine.range[1],
+      rangeUnit: 'C',
+      source: c.source,
+      preferred: true,
+      enteredBy: adminId,
+    })
     ids[c.name] = row.id
   }
   return ids
 }
 
 /** Systems, GC methods and one active calibration per system, from generated calibration sheets. */
-async function seedSystemsAndCalibrations(ctx: Omit<SeedContext, 'systemIds'>, components: Record<string, string>): Promise<Record<string, string>> {
+async function seedSystemsAndCalibrations(
+  ctx: Omit<SeedContext, 'systemIds'>,
+  components: Record<string, string>,
+): Promise<Record<string, string>> {
   const { db, users } = ctx
   const systemIds: Record<string, string> = {}
   for (const [i, s] of DEMO_SYSTEMS.entries()) {
     const c1 = components[s.light]
     const c2 = components[s.heavy]
-    const sys = (await findSystemByPair(db, c1, c2)) ?? (await insertSystem(db, { component1Id: c1, component2Id: c2, notes: `${s.note} Demo model: ${s.modelSource}.`, createdBy: users.analyst.id }))
+    const sys =
+      (await findSystemByPair(db, c1, c2)) ??
+      (await insertSystem(db, {
+        component1Id: c1,
+        component2Id: c2,
+        notes: `${s.note} Demo model: ${s.modelSource}.`,
+        createdBy: users.analyst.id,
+      }))
     systemIds[s.key] = sys.id
     const spec = GC_METHODS[s.detector]
     const method = (await findGcMethodByName(db, spec.name)) ?? (await createGcMethod(db, users.analyst.id, spec))
     if ((await listCalibrations(db, { gcMethodId: method.id, systemId: sys.id, status: 'active' })).length > 0) continue
     const content = Buffer.from(calibrationCsv(s, 1000 + i))
-    await commitCalibration(db, users.analyst.id, { gcMethodId: method.id, systemId: sys.id, model: 'response-factor' },
-      { originalName: `calibration-${s.key}.csv`, contentType: 'text/csv', content }, true)
+    await commitCalibration(
+      db,
+      users.analyst.id,
+      { gcMethodId: method.id, systemId: sys.id, model: 'response-factor' },
+      { originalName: `calibration-${s.key}.csv`, contentType: 'text/csv', content },
+      true,
+    )
   }
   return systemIds
 }

@@ -29,9 +29,17 @@ export async function seedUsers(db: Kysely<any>): Promise<Record<string, string>
     await db.transaction().execute(async (tx) => {
       await tx
         .insertInto('app_user')
-        .values({ id, email: u.email, display_name: u.displayName, password_hash: await hash(DEMO_PASSWORD, { memoryCost: 19456, timeCost: 2, parallelism: 1 }) })
+        .values({
+          id,
+          email: u.email,
+          display_name: u.displayName,
+          password_hash: await hash(DEMO_PASSWORD, { memoryCost: 19456, timeCost: 2, parallelism: 1 }),
+        })
         .execute()
-      await tx.insertInto('user_role').values(u.roles.map((role) => ({ user_id: id, role }))).execute()
+      await tx
+        .insertInto('user_role')
+        .values(u.roles.map((role) => ({ user_id: id, role })))
+        .execute()
     })
     ids[u.email] = id
   }

@@ -22,7 +22,15 @@ export function spoilRunCsv(csv: string): string {
 
 /** The same file as an instrument with European settings would write it: BOM, `;`, decimal commas, CRLF. */
 export function europeanCsv(csv: string): string {
-  const body = csv.trimEnd().split('\n').map((l) => l.split(',').map((c) => c.replace('.', ',')).join(';'))
+  const body = csv
+    .trimEnd()
+    .split('\n')
+    .map((l) =>
+      l
+        .split(',')
+        .map((c) => c.replace('.', ','))
+        .join(';'),
+    )
   return '\uFEFF' + body.join('\r\n') + '\r\n\r\n'
 }
 

@@ -34,13 +34,26 @@ export function startCluster({ dataDir, port, database, fresh = false }) {
     mkdirSync(dataDir, { recursive: true })
     if (isRoot) execFileSync('chown', ['-R', 'postgres:postgres', dataDir])
     chmodSync(dataDir, 0o700)
-    must(asOwner(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C.UTF-8']), 'initdb')
+    must(
+      asOwner(path.join(bin, 'initdb'), [
+        '-D',
+        dataDir,
+        '-U',
+        'postgres',
+        '-A',
+        'trust',
+        '-E',
+        'UTF8',
+        '--locale=C.UTF-8',
+      ]),
+      'initdb',
+    )
     const conf = [
       "listen_addresses = '127.0.0.1'",
       `port = ${port}`,
       `unix_socket_directories = '${dataDir}'`,
       'fsync = on',
-      "log_min_messages = warning",
+      'log_min_messages = warning',
     ]
     writeFileSync(path.join(dataDir, 'ebullio.conf'), conf.join('\n') + '\n')
     must(asOwner('sh', ['-c', `echo "include 'ebullio.conf'" >> ${dataDir}/postgresql.conf`]), 'configure')
@@ -50,14 +63,37 @@ export function startCluster({ dataDir, port, database, fresh = false }) {
   if (status.status !== 0) {
     log(`starting PostgreSQL on 127.0.0.1:${port}`)
     must(
-      asOwner(pgCtl, ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o', `-p ${port} -k ${dataDir}`, 'start']),
+      asOwner(pgCtl, [
+        '-D',
+        dataDir,
+        '-l',
+        path.join(dataDir, 'server.log'),
+        '-w',
+        '-t',
+        '60',
+        '-o',
+        `-p ${port} -k ${dataDir}`,
+        'start',
+      ]),
       'pg_ctl start',
     )
   }
   const psql = path.join(bin, 'psql')
-  const exists = asOwner(psql, ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname='${database}'`])
+  const exists = asOwner(psql, [
+    '-h',
+    '127.0.0.1',
+    '-p',
+    String(port),
+    '-U',
+    'postgres',
+    '-tAc',
+    `SELECT 1 FROM pg_database WHERE datname='${database}'`,
+  ])
   if (!exists.stdout.includes('1')) {
-    must(asOwner(path.join(bin, 'createdb'), ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', database]), 'createdb')
+    must(
+      asOwner(path.join(bin, 'createdb'), ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', database]),
+      'createdb',
+    )
   }
   return {
     url: `postgres://postgres@127.0.0.1:${port}/${database}`,

@@ -34,7 +34,10 @@ export function aptInstall(...pkgs) {
   log(`installing Debian packages: ${pkgs.join(' ')}`)
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' }
   if (!aptUpdated) {
-    spawnSync(isRoot ? 'apt-get' : 'sudo', isRoot ? ['update', '-qq'] : ['apt-get', 'update', '-qq'], { stdio: 'inherit', env })
+    spawnSync(isRoot ? 'apt-get' : 'sudo', isRoot ? ['update', '-qq'] : ['apt-get', 'update', '-qq'], {
+      stdio: 'inherit',
+      env,
+    })
     aptUpdated = true
   }
   asRoot('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...pkgs])

@@ -1,7 +1,9 @@
 import { expect, test } from '@playwright/test'
 import { DEMO, linkFrom, nav, shot, signIn, signOut, waitForMail } from './support/helpers'
 
-test('an admin invites a colleague, who sets a password, signs in, sees their navigation and signs out', async ({ page }) => {
+test('an admin invites a colleague, who sets a password, signs in, sees their navigation and signs out', async ({
+  page,
+}) => {
   const email = `new.reviewer.${Date.now()}@lab.example`
   await signIn(page, DEMO.admin)
   await shot(page, 'admin-home')
@@ -51,7 +53,9 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
   await signOut(page)
 })
 
-test('a deep link without a session goes to sign-in and back; a forced URL without the role shows 403', async ({ page }) => {
+test('a deep link without a session goes to sign-in and back; a forced URL without the role shows 403', async ({
+  page,
+}) => {
   await page.goto('/admin/people')
   await expect(page).toHaveURL(/\/sign-in\?next=(%2F|\/)admin(%2F|\/)people/)
   await shot(page, 'sign-in')
@@ -69,12 +73,16 @@ test('a deep link without a session goes to sign-in and back; a forced URL witho
   await shot(page, 'forbidden')
 })
 
-test('a wrong password gets a message that does not reveal whether the account exists; forgotten password sends a link', async ({ page }) => {
+test('a wrong password gets a message that does not reveal whether the account exists; forgotten password sends a link', async ({
+  page,
+}) => {
   await page.goto('/sign-in')
   await page.getByLabel('E-mail address').fill('nobody@lab.example')
   await page.locator('#password').fill('whatever')
   await page.getByRole('button', { name: 'Sign in' }).click()
-  await expect(page.getByTestId('form-error')).toHaveText('The e-mail address or password is not correct, or the account is not active.')
+  await expect(page.getByTestId('form-error')).toHaveText(
+    'The e-mail address or password is not correct, or the account is not active.',
+  )
   await page.getByRole('link', { name: 'Forgotten your password?' }).click()
   await expect(page.getByRole('heading', { name: 'Forgotten password' })).toBeVisible()
   await page.getByLabel('E-mail address').fill(DEMO.reviewer)

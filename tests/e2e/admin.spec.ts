@@ -12,7 +12,9 @@ async function choose(page: Page, inputId: string, option: string) {
   await page.getByRole('option', { name: option, exact: true }).click()
 }
 
-test('an admin reads a component’s vapour-pressure sources, adds a component with an Antoine set, and manages GC calibrations', async ({ page }) => {
+test('an admin reads a component’s vapour-pressure sources, adds a component with an Antoine set, and manages GC calibrations', async ({
+  page,
+}) => {
   await signIn(page, DEMO.admin)
   await nav(page).getByRole('link', { name: 'Components' }).click()
   await expect(page.getByRole('heading', { level: 1, name: 'Components' })).toBeVisible()
@@ -51,13 +53,21 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   const ant = page.getByTestId('antoine-form')
   await choose(page, 'ant-log', 'ln')
   await choose(page, 'ant-p', 'kPa')
-  for (const [id, v] of [['ant-A', '16.6796'], ['ant-B', '3640.20'], ['ant-C', '219.610'], ['ant-rmin', '8'], ['ant-rmax', '100']]) {
+  for (const [id, v] of [
+    ['ant-A', '16.6796'],
+    ['ant-B', '3640.20'],
+    ['ant-C', '219.610'],
+    ['ant-rmin', '8'],
+    ['ant-rmax', '100'],
+  ]) {
     await ant.locator(`#${id}`).fill(v)
     await ant.locator(`#${id}`).press('Tab')
   }
   await ant.getByRole('button', { name: 'Add set' }).click()
   await expect(ant.getByText('Name the source (book, edition, table) of the constants')).toBeVisible()
-  await ant.getByLabel('Source').fill('Smith, Van Ness & Abbott, Introduction to Chemical Engineering Thermodynamics, 7th ed., Table B.2')
+  await ant
+    .getByLabel('Source')
+    .fill('Smith, Van Ness & Abbott, Introduction to Chemical Engineering Thermodynamics, 7th ed., Table B.2')
   await expect(ant).toContainText('ln(P/kPa) = 16.6796 − 3640.2 / (t/°C + 219.61)')
   await ant.getByRole('button', { name: 'Add set' }).click()
   await expect(ant).toBeHidden()
@@ -94,7 +104,11 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   await gm.getByRole('button', { name: 'Add method' }).click()
   await expect(gm.getByText('Enter a name')).toBeVisible()
   await gm.getByLabel('Name').fill('TCD-C, molecular sieve')
-  await gm.getByRole('radio', { name: 'TCD' }).or(gm.getByRole('button', { name: 'TCD' })).first().click()
+  await gm
+    .getByRole('radio', { name: 'TCD' })
+    .or(gm.getByRole('button', { name: 'TCD' }))
+    .first()
+    .click()
   await gm.getByLabel('Column').fill('molecular sieve 5A packed, 2 m')
   await gm.getByRole('button', { name: 'Add method' }).click()
   await expect(gm).toBeHidden()
@@ -111,7 +125,9 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   await page.getByRole('alertdialog').getByRole('button', { name: 'Retire method' }).click()
   await expect(page.getByTestId('gc-retired-note')).toContainText('cannot be made active or used for new uploads')
   await expect(page.getByTestId('gc-method-retire')).toHaveCount(0)
-  await expect(page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' }).getByTestId('gc-method-retired')).toContainText('Retired')
+  await expect(
+    page.getByTestId('gc-method').filter({ hasText: 'TCD-C, molecular sieve' }).getByTestId('gc-method-retired'),
+  ).toContainText('Retired')
   await page.waitForTimeout(400) // let the note finish its entrance before the screenshot
   await snapTop(page, 'admin-05-gc-method-retired')
 })

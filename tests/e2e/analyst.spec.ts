@@ -7,7 +7,9 @@ import { snap } from './support/lab'
 // acetone/methanol Wilson parameters); the spoiled run sheet has its mistakes on known lines (docs/csv-formats.md).
 const examples = path.resolve('docs/examples')
 
-test('an analyst creates a data set, uploads a calibration and a run file, fixes the flagged file, fits NRTL and Wilson and submits', async ({ page }) => {
+test('an analyst creates a data set, uploads a calibration and a run file, fixes the flagged file, fits NRTL and Wilson and submits', async ({
+  page,
+}) => {
   await signIn(page, DEMO.analyst)
   await page.getByRole('link', { name: 'Data sets' }).first().click()
   await expect(page.getByRole('heading', { name: 'Data sets' })).toBeVisible()
@@ -32,7 +34,9 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await page.getByLabel('Binary system').fill('methanol')
   await page.getByRole('option', { name: /acetone \/ methanol/ }).click()
   await page.getByLabel('Project or campaign reference (optional)').fill('KES-2026-03')
-  await page.getByLabel('Apparatus and method notes (optional)').fill('Recirculating still no. 2, Pt100 in the vapour space.')
+  await page
+    .getByLabel('Apparatus and method notes (optional)')
+    .fill('Recirculating still no. 2, Pt100 in the vapour space.')
   await snap(page, 'lab-02-new-dataset')
   await page.getByTestId('create-dataset').click()
 
@@ -46,7 +50,9 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   const ack = dialog.getByTestId('ack-warnings')
   if (await ack.count()) await dialog.getByText(/I have checked the/).click()
   // The demo lab already has an active calibration on this GC method: replacing it must be acknowledged.
-  await expect(dialog.getByTestId('replaces-calibration')).toContainText(/This replaces the active calibration of calibration-acetone-methanol\.csv .*k = .* ± .*, x₁ .*used by \d+ data sets?/)
+  await expect(dialog.getByTestId('replaces-calibration')).toContainText(
+    /This replaces the active calibration of calibration-acetone-methanol\.csv .*k = .* ± .*, x₁ .*used by \d+ data sets?/,
+  )
   await expect(dialog.getByTestId('commit-upload')).toBeDisabled()
   await dialog.getByText('Retire the active calibration and use this one from now on').click()
   await dialog.getByTestId('commit-upload').click()

@@ -25,7 +25,9 @@ async function download(page: Page, testId: string): Promise<{ name: string; tex
   return { name: dl.suggestedFilename(), text: readFileSync((await dl.path())!, 'utf8') }
 }
 
-test('an engineer opens an approved system, changes the pressure, reads the azeotrope, estimates a column, runs a batch still and downloads the parameters', async ({ page }) => {
+test('an engineer opens an approved system, changes the pressure, reads the azeotrope, estimates a column, runs a batch still and downloads the parameters', async ({
+  page,
+}) => {
   await signIn(page, DEMO.engineer)
   await page.getByRole('link', { name: 'Approved systems' }).first().click()
   await expect(page.getByRole('heading', { level: 1, name: 'Approved systems' })).toBeVisible()
@@ -71,7 +73,9 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await expect(banner).toContainText("above its vapour-pressure equation's range (-26 to 77 °C)")
   await expect(banner).toContainText('column and batch designs are not offered at this pressure')
   await expect(page.getByTestId('extrapolation-banner')).toHaveCount(1)
-  await expect(banner).toContainText('the activity model, which was fitted to data measured at 101.33 kPa and is used here far from that pressure')
+  await expect(banner).toContainText(
+    'the activity model, which was fitted to data measured at 101.33 kPa and is used here far from that pressure',
+  )
   // No headline azeotrope, α or pure Tb from extrapolated boiling points: the cards are greyed instead.
   await expect(page.getByTestId('facts-blocked')).toContainText('not computed for design: extrapolation')
   await expect(page.getByTestId('azeotrope-value')).toHaveCount(0)
@@ -86,7 +90,9 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.getByTestId('tab-diagrams').click()
   await pressure.fill('6000')
   await pressure.press('Tab')
-  await expect(page.getByTestId('pressure-error')).toHaveText('Enter a pressure from 0.5 kPa to 5000 kPa; 6000 kPa is outside what the approved data can support.')
+  await expect(page.getByTestId('pressure-error')).toHaveText(
+    'Enter a pressure from 0.5 kPa to 5000 kPa; 6000 kPa is outside what the approved data can support.',
+  )
   await expect(page.getByTestId('system-lead')).toContainText('at 4000 kPa')
 
   // Lower the pressure to 50 kPa: everything boils lower and the azeotrope moves.
@@ -96,7 +102,9 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   const half = await readAzeotrope(page)
   expect(half.tC).toBeLessThan(atm.tC - 10)
   expect(half.x1).not.toBe(atm.x1)
-  await expect(page.getByText('Measured points are drawn at the pressure they were measured at (101.33 kPa).')).toBeVisible()
+  await expect(
+    page.getByText('Measured points are drawn at the pressure they were measured at (101.33 kPa).'),
+  ).toBeVisible()
   await snapTop(page, 'eng-03-system-50kpa')
 
   // Plot exports: SVG from a second render with the SVG renderer (true vectors), PNG from the canvas.
@@ -108,11 +116,18 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   expect(svgText).toContain('T / °C')
   const [pngDl] = await Promise.all([page.waitForEvent('download'), txy.getByTestId('export-png').click()])
   expect(pngDl.suggestedFilename()).toBe('txy.png')
-  expect(readFileSync((await pngDl.path())!).subarray(1, 4).toString()).toBe('PNG')
+  expect(
+    readFileSync((await pngDl.path())!)
+      .subarray(1, 4)
+      .toString(),
+  ).toBe('PNG')
 
   // Curve table: 101 computed rows in the documented layout.
   const curve = await download(page, 'export-curve-csv')
-  const rows = curve.text.trim().split('\n').filter((l) => !l.startsWith('#'))
+  const rows = curve.text
+    .trim()
+    .split('\n')
+    .filter((l) => !l.startsWith('#'))
   expect(rows[0]).toBe('x1,y1,t_k,t_c,alpha12')
   expect(rows).toHaveLength(102)
   expect(rows[1].split(',')[0]).toBe('0.000000')
@@ -155,7 +170,11 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
 
   // Batch still: 100 mol at x1 = 0.5 with three stages above the pot at R = 3.
   await page.getByTestId('tab-batch').click()
-  for (const [id, v] of [['#bs-x1', '0.5'], ['#bs-stagesAbovePot', '3'], ['#bs-R', '3']]) {
+  for (const [id, v] of [
+    ['#bs-x1', '0.5'],
+    ['#bs-stagesAbovePot', '3'],
+    ['#bs-R', '3'],
+  ]) {
     await page.locator(id).fill(v)
     await page.locator(id).press('Tab')
   }
@@ -169,7 +188,9 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await page.getByTestId('bs-scrub').locator('[role="slider"]').focus()
   await page.keyboard.press('End')
   await expect(page.getByTestId('bs-distilled')).toHaveText('60.0 mol (60 %)')
-  await expect(page.getByTestId('bs-readout-state')).toHaveText('End of the run: the read-out is the state at the stop.')
+  await expect(page.getByTestId('bs-readout-state')).toHaveText(
+    'End of the run: the read-out is the state at the stop.',
+  )
   expect(midway).not.toBe('60.0 mol (60 %)')
   // The pot is left richer in methanol than the charge (acetone distils over first).
   expect(Number(await page.getByTestId('bs-pot-x1').textContent())).toBeLessThan(0.5)
@@ -230,13 +251,27 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   expect(p.system.component1.name).toBe('acetone')
   expect(p.system.component2.name).toBe('methanol')
   // SVNA 7th ed. Table B.2: acetone A = 14.3145, B = 2756.22, C = 228.060 (ln, kPa, °C).
-  expect(p.vaporPressure[0]).toMatchObject({ kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
+  expect(p.vaporPressure[0]).toMatchObject({
+    kind: 'antoine',
+    A: 14.3145,
+    B: 2756.22,
+    C: 228.06,
+    log: 'ln',
+    pressureUnit: 'kPa',
+    temperatureUnit: 'C',
+  })
   expect(p.vaporPressure[0].source).toContain('Table B.2')
-  expect(p.vaporPressure.map((v: { component: unknown }) => v.component)).toEqual([{ index: 1, name: 'acetone', cas: '67-64-1' }, { index: 2, name: 'methanol', cas: '67-56-1' }])
+  expect(p.vaporPressure.map((v: { component: unknown }) => v.component)).toEqual([
+    { index: 1, name: 'acetone', cas: '67-64-1' },
+    { index: 2, name: 'methanol', cas: '67-56-1' },
+  ])
   const recommended = p.fits.find((f: { recommended: boolean }) => f.recommended)
   expect(recommended.model).toBe('wilson')
   expect(recommended.id).toBe(p.recommendedFitId)
-  expect(recommended.parameters.map((x: { name: string; unit: string }) => `${x.name} ${x.unit}`)).toEqual(['a12 J/mol', 'a21 J/mol'])
+  expect(recommended.parameters.map((x: { name: string; unit: string }) => `${x.name} ${x.unit}`)).toEqual([
+    'a12 J/mol',
+    'a21 J/mol',
+  ])
   expect(p.approval?.digest).toMatch(/^[0-9a-f]{64}$/)
 
   const csv = await download(page, 'download-parameters-csv')

@@ -6,7 +6,9 @@ import { openDataSet, snap } from './support/lab'
 const APPROVED = 'Kestrel acetone recycle: acetone/methanol at 1 atm'
 
 // °F is a scale of its own for differences too: 1 K = 1.8 °F (NIST SP 811, 2008 ed., from memory).
-test('in °F every temperature difference on the lab screens is in °F, and the workspace fits a 768 px screen', async ({ page }) => {
+test('in °F every temperature difference on the lab screens is in °F, and the workspace fits a 768 px screen', async ({
+  page,
+}) => {
   await signIn(page, DEMO.analyst)
   await openDataSet(page, APPROVED)
   await page.getByTestId('units-picker').click()

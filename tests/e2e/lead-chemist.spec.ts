@@ -20,7 +20,11 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(thread).toContainText('I will re-inject the retained sample')
   await thread.getByTestId('resolve').click()
   await expect(panel.locator('article').filter({ hasText: 'condensate well mixed' })).toHaveCount(0)
-  await panel.getByRole('radio', { name: 'All' }).or(panel.getByRole('button', { name: 'All' })).first().click()
+  await panel
+    .getByRole('radio', { name: 'All' })
+    .or(panel.getByRole('button', { name: 'All' }))
+    .first()
+    .click()
   await expect(panel.locator('article').filter({ hasText: 'condensate well mixed' })).toContainText('Resolved')
 
   // Wilson has the lowest AIC on this data set; the lead chemist recommends it.
@@ -42,9 +46,12 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(dialog.getByText('Re-enter your password to sign')).toBeVisible()
   await expect(dialog.getByText('Give the reason for your signature')).toBeVisible()
 
-  await dialog.getByLabel('Reason').fill('Points consistent with the plant samples; Wilson recommended for the mother-liquor column.')
+  await dialog
+    .getByLabel('Reason')
+    .fill('Points consistent with the plant samples; Wilson recommended for the mother-liquor column.')
   const override = dialog.getByLabel(/still open: why approve anyway/)
-  if (await override.count()) await override.fill('The remaining thread asks for a note in the apparatus record; it does not affect the data.')
+  if (await override.count())
+    await override.fill('The remaining thread asks for a note in the apparatus record; it does not affect the data.')
   await dialog.getByLabel('Your password').fill('not-my-password')
   await dialog.getByTestId('sign').click()
   await expect(dialog.locator('.p-message-error, small.eb-error')).toBeVisible()
@@ -59,7 +66,9 @@ test('a lead chemist resolves the thread, marks the recommended fit and approves
   await expect(record).toContainText('Dr. Tobias Lindqvist')
   await expect(record).toContainText('Wilson recommended for the mother-liquor column')
   await expect(record).toContainText(/SHA-256 [0-9a-f]{64}/)
-  await expect(record.getByTestId('approval-outliers')).toContainText('Outliers as signed, against Wilson (recommended)')
+  await expect(record.getByTestId('approval-outliers')).toContainText(
+    'Outliers as signed, against Wilson (recommended)',
+  )
   await expect(record.getByTestId('approval-parameters')).toContainText('J/mol')
   await expect(page.getByTestId('open-approve')).toHaveCount(0)
   await snap(page, 'lab-23-approved-record')

@@ -25,7 +25,9 @@ test('a reviewer comments on one point, chosen on the T–x–y plot', async ({ 
   await snap(page, 'lab-10-reviewer-comment-on-point')
   await page.getByTestId('post-comment').click()
   await expect(page.getByTestId('threads-panel')).toContainText(text)
-  await expect(page.getByTestId('threads-panel').locator('article').filter({ hasText: text })).toContainText(`Point 3 (${label})`)
+  await expect(page.getByTestId('threads-panel').locator('article').filter({ hasText: text })).toContainText(
+    `Point 3 (${label})`,
+  )
   await expect(page.getByLabel(/New thread on/)).toHaveValue('')
 
   await page.getByRole('link', { name: 'My open threads' }).click()

@@ -3,7 +3,9 @@ import { DEMO, DEMO_PASSWORD, signIn, signOut, waitForMail } from './support/hel
 import { APPROVED_TO_REVISE, SUBMITTED_FOR_REWORK, openDataSet, snap } from './support/lab'
 
 // Two demo data sets of their own (db/seeds/lab-scenario.ts): a submitted series to return, and an approved version to revise.
-test('a lead chemist returns a data set for rework with a signed reason; the analyst reworks the same version and resubmits it', async ({ page }) => {
+test('a lead chemist returns a data set for rework with a signed reason; the analyst reworks the same version and resubmits it', async ({
+  page,
+}) => {
   await signIn(page, DEMO.lead)
   await openDataSet(page, SUBMITTED_FOR_REWORK)
   await page.getByTestId('open-return').click()
@@ -36,7 +38,9 @@ test('a lead chemist returns a data set for rework with a signed reason; the ana
   await expect(page.getByTestId('revise')).toHaveCount(0)
   await page.getByTestId('open-metadata').click()
   const edit = page.getByTestId('metadata-dialog')
-  await edit.getByLabel('Apparatus and method notes').fill('Still no. 1, second campaign. Two samples added near the acetone end (logbook p. 52).')
+  await edit
+    .getByLabel('Apparatus and method notes')
+    .fill('Still no. 1, second campaign. Two samples added near the acetone end (logbook p. 52).')
   await edit.getByTestId('save-metadata').click()
   await expect(edit).toBeHidden()
   await expect(page.getByTestId('fact-notes')).toContainText('logbook p. 52')
@@ -51,7 +55,9 @@ test('a lead chemist returns a data set for rework with a signed reason; the ana
   await expect(trail.locator('li').last()).toContainText('Mira Okonkwo submit')
 })
 
-test('revising an approved data set makes a new draft version; once that is approved the old one is superseded', async ({ page }) => {
+test('revising an approved data set makes a new draft version; once that is approved the old one is superseded', async ({
+  page,
+}) => {
   await signIn(page, DEMO.analyst)
   await openDataSet(page, APPROVED_TO_REVISE, 2)
   await expect(page.getByTestId('dataset-state')).toHaveText('Approved')

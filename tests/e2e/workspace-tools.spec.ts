@@ -28,7 +28,9 @@ test('the data sets list filters by the day a data set was created or last chang
   await snap(page, 'lab-40-list-date-filter')
 })
 
-test('on a draft: NRTL α held or fitted, the ±2σ band, where to measure next, the pure-component check and the details', async ({ page }) => {
+test('on a draft: NRTL α held or fitted, the ±2σ band, where to measure next, the pure-component check and the details', async ({
+  page,
+}) => {
   await signIn(page, DEMO.analyst)
   await openDataSet(page, OPEN_DRAFT)
 

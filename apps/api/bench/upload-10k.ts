@@ -28,7 +28,8 @@ async function prepareDatabase(): Promise<string> {
     await admin.end()
     url = base.replace(/\/[^/]+$/, '/ebullio_bench_test')
   }
-  if (!/bench|test/.test(new URL(url).pathname)) throw new Error(`Refusing to wipe ${url}: use a database whose name contains "bench" or "test"`)
+  if (!/bench|test/.test(new URL(url).pathname))
+    throw new Error(`Refusing to wipe ${url}: use a database whose name contains "bench" or "test"`)
   const db = new Kysely<any>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 1 }) }) })
   await sql`drop schema public cascade; create schema public`.execute(db)
   await db.destroy()
@@ -54,27 +55,48 @@ async function main(): Promise<void> {
     const previews: number[] = []
     const commits: number[] = []
     for (let i = 0; i < 3; i++) {
-      const d = await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title: `bench ${i}`, nominalPressurePa: 101325 })
+      const d = await lab.analyst
+        .post('/api/data-sets')
+        .send({ systemId: lab.systemId, title: `bench ${i}`, nominalPressurePa: 101325 })
       const [tp, p] = await time(() => csv(lab.analyst.post(`/api/data-sets/${d.body.id}/uploads/preview`), file))
       if (p.status !== 200 || p.body.samples.length !== 2500) throw new Error(`preview failed: ${p.status}`)
       previews.push(tp)
-      const [tc, c] = await time(() => csv(lab.analyst.post(`/api/data-sets/${d.body.id}/uploads`), file).field('rowVersion', String(d.body.rowVersion)).field('acceptWarnings', 'true'))
-      if (c.status !== 201 || c.body.pointCount !== 2500) throw new Error(`commit failed: ${c.status} ${JSON.stringify(c.body).slice(0, 300)}`)
+      const [tc, c] = await time(() =>
+        csv(lab.analyst.post(`/api/data-sets/${d.body.id}/uploads`), file)
+          .field('rowVersion', String(d.body.rowVersion))
+          .field('acceptWarnings', 'true'),
+      )
+      if (c.status !== 201 || c.body.pointCount !== 2500)
+        throw new Error(`commit failed: ${c.status} ${JSON.stringify(c.body).slice(0, 300)}`)
       commits.push(tc)
     }
     console.log(`run file: ${rows} rows, ${(file.length / 1024).toFixed(0)} KiB, 2500 samples`)
-    console.log(`  preview (parse + 5000 compositions, HTTP): median ${median(previews).toFixed(0)} ms  [${previews.map((x) => x.toFixed(0)).join(', ')}]`)
-    console.log(`  commit  (re-check + store 2500 points, 10000 injections): median ${median(commits).toFixed(0)} ms  [${commits.map((x) => x.toFixed(0)).join(', ')}]`)
+    console.log(
+      `  preview (parse + 5000 compositions, HTTP): median ${median(previews).toFixed(0)} ms  [${previews.map((x) => x.toFixed(0)).join(', ')}]`,
+    )
+    console.log(
+      `  commit  (re-check + store 2500 points, 10000 injections): median ${median(commits).toFixed(0)} ms  [${commits.map((x) => x.toFixed(0)).join(', ')}]`,
+    )
 
-    const d = await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title: 'bench fits', nominalPressurePa: 101325 })
-    await csv(lab.analyst.post(`/api/data-sets/${d.body.id}/uploads`), generatedRun(100, 9002)).field('rowVersion', String(d.body.rowVersion)).field('acceptWarnings', 'true')
+    const d = await lab.analyst
+      .post('/api/data-sets')
+      .send({ systemId: lab.systemId, title: 'bench fits', nominalPressurePa: 101325 })
+    await csv(lab.analyst.post(`/api/data-sets/${d.body.id}/uploads`), generatedRun(100, 9002))
+      .field('rowVersion', String(d.body.rowVersion))
+      .field('acceptWarnings', 'true')
     const fits: number[] = []
     for (let i = 0; i < 3; i++) {
-      const [tf, r] = await time(() => lab.analyst.post(`/api/data-sets/${d.body.id}/fits`).send({ models: ['margules', 'van-laar', 'wilson', 'nrtl'] }))
+      const [tf, r] = await time(() =>
+        lab.analyst
+          .post(`/api/data-sets/${d.body.id}/fits`)
+          .send({ models: ['margules', 'van-laar', 'wilson', 'nrtl'] }),
+      )
       if (r.status !== 201) throw new Error(`fit failed: ${r.status} ${JSON.stringify(r.body)}`)
       fits.push(tf)
     }
-    console.log(`fits: 4 models (multi-start, bubble-point objective) on 100 points in one request: median ${median(fits).toFixed(0)} ms  [${fits.map((x) => x.toFixed(0)).join(', ')}]`)
+    console.log(
+      `fits: 4 models (multi-start, bubble-point objective) on 100 points in one request: median ${median(fits).toFixed(0)} ms  [${fits.map((x) => x.toFixed(0)).join(', ')}]`,
+    )
   } finally {
     await t.close()
   }

@@ -23,14 +23,23 @@ function signInLimiters(services: AppServices) {
     next(new AppError(429, 'too_many_attempts', message))
   const window = 15 * 60_000
   return [
-    rateLimit({ windowMs: window, limit: config.rateLimitSigninPerIp, standardHeaders: 'draft-8', legacyHeaders: false, handler: tooMany('Too many sign-in attempts from this address. Wait 15 minutes and try again.') }),
+    rateLimit({
+      windowMs: window,
+      limit: config.rateLimitSigninPerIp,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      handler: tooMany('Too many sign-in attempts from this address. Wait 15 minutes and try again.'),
+    }),
     rateLimit({
       windowMs: window,
       limit: config.rateLimitSigninPerAccount,
       skipSuccessfulRequests: true,
       standardHeaders: false,
       legacyHeaders: false,
-      keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+      keyGenerator: (req) =>
+        `account:${String(req.body?.email ?? '')
+          .trim()
+          .toLowerCase()}`,
       validate: { keyGeneratorIpFallback: false },
       handler: tooMany('Too many failed sign-in attempts for this account. Wait 15 minutes and try again.'),
     }),
@@ -70,7 +79,11 @@ export function createApp(services: AppServices, logger: Logger, routes: RouteDe
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
       // Method, path and status only: no headers (cookies), no bodies (passwords), no query strings (tokens).
       serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, path: req.url.split('?')[0] }),
+        req: (req: { id: unknown; method: string; url: string }) => ({
+          id: req.id,
+          method: req.method,
+          path: req.url.split('?')[0],
+        }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
     }),

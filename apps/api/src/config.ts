@@ -1,8 +1,6 @@
 import { z } from 'zod'
 
-const bool = z
-  .enum(['true', 'false', '1', '0', 'yes', 'no'])
-  .transform((v) => v === 'true' || v === '1' || v === 'yes')
+const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes')
 
 /** Every setting of the server, read once from the environment and checked. Defaults suit a local lab machine. */
 const schema = z.object({
@@ -19,7 +17,11 @@ const schema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().default(72),
   COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
   DEMO_DATA: bool.default(true),
-  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(5 * 1024 * 1024),
+  UPLOAD_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(5 * 1024 * 1024),
   JSON_LIMIT: z.string().default('1mb'),
   SERVE_WEB: bool.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -9,7 +9,11 @@ beforeAll(async () => {
   await resetDatabase(t.db)
   await createUser(t.db, { email: 'ada@lab.test', roles: ['admin'], displayName: 'Ada Admin' })
   for (let i = 1; i <= 12; i++) {
-    await createUser(t.db, { email: `analyst${String(i).padStart(2, '0')}@lab.test`, roles: ['analyst'], displayName: `Analyst ${String(i).padStart(2, '0')}` })
+    await createUser(t.db, {
+      email: `analyst${String(i).padStart(2, '0')}@lab.test`,
+      roles: ['analyst'],
+      displayName: `Analyst ${String(i).padStart(2, '0')}`,
+    })
   }
   await createUser(t.db, { email: 'lee@lab.test', roles: ['lead_chemist', 'reviewer'], displayName: 'Lee 100%_Lead' })
   admin = await signedInAgent(t.app, 'ada@lab.test')
@@ -24,7 +28,12 @@ describe('GET /api/admin/users', () => {
     expect(r.body).toMatchObject({ total: 14, page: 1, pageSize: 100 })
     expect(r.body.items).toHaveLength(14)
     expect(names(r.body).slice(0, 2)).toEqual(['Ada Admin', 'Analyst 01'])
-    expect(r.body.items[0]).toMatchObject({ email: 'ada@lab.test', roles: ['admin'], active: true, invitePending: false })
+    expect(r.body.items[0]).toMatchObject({
+      email: 'ada@lab.test',
+      roles: ['admin'],
+      active: true,
+      invitePending: false,
+    })
   })
 
   it('pages in SQL: page 2 of 5 continues page 1, the total stays', async () => {
@@ -35,16 +44,32 @@ describe('GET /api/admin/users', () => {
   })
 
   it('searches name and e-mail, literally (% and _ are not wildcards), and filters by role and status', async () => {
-    expect(names((await admin.get('/api/admin/users').query({ q: 'ANALYST1' }).expect(200)).body)).toEqual(['Analyst 10', 'Analyst 11', 'Analyst 12'])
-    expect(names((await admin.get('/api/admin/users').query({ q: '100%_' }).expect(200)).body)).toEqual(['Lee 100%_Lead'])
+    expect(names((await admin.get('/api/admin/users').query({ q: 'ANALYST1' }).expect(200)).body)).toEqual([
+      'Analyst 10',
+      'Analyst 11',
+      'Analyst 12',
+    ])
+    expect(names((await admin.get('/api/admin/users').query({ q: '100%_' }).expect(200)).body)).toEqual([
+      'Lee 100%_Lead',
+    ])
     expect((await admin.get('/api/admin/users').query({ q: '%' }).expect(200)).body.total).toBe(1)
     const reviewers = await admin.get('/api/admin/users').query({ role: 'reviewer' }).expect(200)
-    expect(reviewers.body.items).toEqual([expect.objectContaining({ displayName: 'Lee 100%_Lead', roles: expect.arrayContaining(['lead_chemist', 'reviewer']) })])
+    expect(reviewers.body.items).toEqual([
+      expect.objectContaining({
+        displayName: 'Lee 100%_Lead',
+        roles: expect.arrayContaining(['lead_chemist', 'reviewer']),
+      }),
+    ])
     const lee = reviewers.body.items[0].id
     await admin.post(`/api/admin/users/${lee}/deactivate`).expect(200)
-    expect(names((await admin.get('/api/admin/users').query({ status: 'deactivated' }).expect(200)).body)).toEqual(['Lee 100%_Lead'])
+    expect(names((await admin.get('/api/admin/users').query({ status: 'deactivated' }).expect(200)).body)).toEqual([
+      'Lee 100%_Lead',
+    ])
     expect((await admin.get('/api/admin/users').query({ status: 'active' }).expect(200)).body.total).toBe(13)
-    expect((await admin.get('/api/admin/users').query({ sort: 'email', order: 'desc', pageSize: 1 }).expect(200)).body.items[0].email).toBe('lee@lab.test')
+    expect(
+      (await admin.get('/api/admin/users').query({ sort: 'email', order: 'desc', pageSize: 1 }).expect(200)).body
+        .items[0].email,
+    ).toBe('lee@lab.test')
   })
 
   it('lists every bad query field', async () => {

@@ -1,6 +1,15 @@
 /** Account changes leave an audit trail: invites, accepted invites, role changes, (de)activation, password changes and resets. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { agent, createTestContext, createUser, linkIn, PASSWORD, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
+import {
+  agent,
+  createTestContext,
+  createUser,
+  linkIn,
+  PASSWORD,
+  resetDatabase,
+  signedInAgent,
+  type TestContext,
+} from './helpers.js'
 
 let t: TestContext
 let adminId: string
@@ -17,19 +26,29 @@ const trail = async (entityId: string) => {
   const admin = await signedInAgent(t.app, 'ada@lab.test')
   const r = await admin.get('/api/audit').query({ entity: 'app_user', entityId, order: 'asc' })
   expect(r.status, JSON.stringify(r.body)).toBe(200)
-  return r.body.items as { action: string; actorId: string | null; actorName: string | null; before: unknown; after: unknown }[]
+  return r.body.items as {
+    action: string
+    actorId: string | null
+    actorName: string | null
+    before: unknown
+    after: unknown
+  }[]
 }
 
 describe('audit of account changes', () => {
   it('records an invite with the inviting admin, and its acceptance by the new user', async () => {
     const admin = await signedInAgent(t.app, 'ada@lab.test')
-    const created = await admin.post('/api/admin/users').send({ email: 'Rui@Lab.test', displayName: 'Rui Reviewer', roles: ['reviewer'] }).expect(201)
+    const created = await admin
+      .post('/api/admin/users')
+      .send({ email: 'Rui@Lab.test', displayName: 'Rui Reviewer', roles: ['reviewer'] })
+      .expect(201)
     const token = linkIn((await t.mail())[0].body_text, '/welcome/').split('/welcome/')[1]
     await agent(t.app).post('/api/auth/accept-invite').send({ token, password: 'a-new-long-password' }).expect(200)
     const rows = await trail(created.body.id)
     expect(rows.map((r) => r.action)).toEqual(['invite user', 'accept invite'])
     expect(rows[0]).toMatchObject({
-      actorId: adminId, actorName: 'Ada Admin',
+      actorId: adminId,
+      actorName: 'Ada Admin',
       after: { email: 'rui@lab.test', displayName: 'Rui Reviewer', roles: ['reviewer'], invitedBy: 'Ada Admin' },
     })
     expect(rows[1].actorId).toBe(created.body.id)
@@ -37,7 +56,10 @@ describe('audit of account changes', () => {
 
   it('records role changes with the roles before and after, and (de)activation', async () => {
     const admin = await signedInAgent(t.app, 'ada@lab.test')
-    await admin.put(`/api/admin/users/${anaId}/roles`).send({ roles: ['analyst', 'reviewer', 'analyst'] }).expect(200)
+    await admin
+      .put(`/api/admin/users/${anaId}/roles`)
+      .send({ roles: ['analyst', 'reviewer', 'analyst'] })
+      .expect(200)
     await admin.post(`/api/admin/users/${anaId}/deactivate`).expect(200)
     await admin.post(`/api/admin/users/${anaId}/activate`).expect(200)
     const rows = await trail(anaId)
@@ -64,7 +86,10 @@ describe('audit of account changes', () => {
 
   it('records password changes and resets without any secret', async () => {
     const ana = await signedInAgent(t.app, 'ana@lab.test')
-    await ana.post('/api/auth/change-password').send({ currentPassword: PASSWORD, newPassword: 'long-enough-password' }).expect(200)
+    await ana
+      .post('/api/auth/change-password')
+      .send({ currentPassword: PASSWORD, newPassword: 'long-enough-password' })
+      .expect(200)
     await agent(t.app).post('/api/auth/forgot-password').send({ email: 'ana@lab.test' }).expect(200)
     const token = linkIn((await t.mail())[0].body_text, '/reset-password/').split('/reset-password/')[1]
     await agent(t.app).post('/api/auth/reset-password').send({ token, password: 'brand-new-password' }).expect(200)

@@ -1,5 +1,14 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
-import { agent, createTestContext, createUser, linkIn, PASSWORD, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
+import {
+  agent,
+  createTestContext,
+  createUser,
+  linkIn,
+  PASSWORD,
+  resetDatabase,
+  signedInAgent,
+  type TestContext,
+} from './helpers.js'
 
 let t: TestContext
 beforeAll(async () => {
@@ -20,23 +29,32 @@ describe('sign-in', () => {
     const me = await a.get('/api/auth/me')
     expect(me.status).toBe(200)
     expect(me.body.user).toMatchObject({ email: 'ana@lab.test', roles: ['analyst'] })
-    const cookie = (await agent(t.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD })).headers['set-cookie']
+    const cookie = (await agent(t.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD }))
+      .headers['set-cookie']
     expect(String(cookie)).toMatch(/HttpOnly/)
     expect(String(cookie)).toMatch(/SameSite=Lax/)
     expect(String(cookie)).not.toMatch(/Secure/)
     await a.post('/api/auth/sign-out').expect(200)
     expect((await a.get('/api/auth/me')).status).toBe(401)
-    expect(await t.db.selectFrom('user_session').selectAll().where('user_id', '=', me.body.user.id).execute()).toHaveLength(1)
+    expect(
+      await t.db.selectFrom('user_session').selectAll().where('user_id', '=', me.body.user.id).execute(),
+    ).toHaveLength(1)
   })
 
   it('ends sessions after the idle timeout and after the absolute lifetime', async () => {
     const idle = await signedInAgent(t.app, 'ana@lab.test')
-    await t.db.updateTable('user_session').set({ expires_at: new Date(Date.now() - 1000) }).execute()
+    await t.db
+      .updateTable('user_session')
+      .set({ expires_at: new Date(Date.now() - 1000) })
+      .execute()
     expect((await idle.get('/api/auth/me')).status).toBe(401)
 
     const old = await signedInAgent(t.app, 'ana@lab.test')
     const hours = t.config.sessionAbsoluteHours + 1
-    await t.db.updateTable('user_session').set({ created_at: new Date(Date.now() - hours * 3.6e6) }).execute()
+    await t.db
+      .updateTable('user_session')
+      .set({ created_at: new Date(Date.now() - hours * 3.6e6) })
+      .execute()
     expect((await old.get('/api/auth/me')).status).toBe(401)
     expect(await t.db.selectFrom('user_session').selectAll().execute()).toHaveLength(0)
   })
@@ -44,7 +62,9 @@ describe('sign-in', () => {
   it('marks the cookie Secure when the app is served over https', async () => {
     const https = await createTestContext({ PUBLIC_URL: 'https://vle.lab.example' })
     try {
-      const r = await agent(https.app, 'https://vle.lab.example').post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD })
+      const r = await agent(https.app, 'https://vle.lab.example')
+        .post('/api/auth/sign-in')
+        .send({ email: 'ana@lab.test', password: PASSWORD })
       expect(r.status).toBe(200)
       expect(String(r.headers['set-cookie'])).toMatch(/Secure/)
     } finally {
@@ -61,7 +81,7 @@ describe('sign-in', () => {
     expect(unknown.body).toEqual(wrong.body)
   })
 
-  it('ends a deactivated user\'s sessions at once', async () => {
+  it("ends a deactivated user's sessions at once", async () => {
     const ana = await signedInAgent(t.app, 'ana@lab.test')
     const admin = await signedInAgent(t.app, 'ada@lab.test')
     const users = (await admin.get('/api/admin/users')).body.items
@@ -75,10 +95,13 @@ describe('sign-in', () => {
   it('rate-limits failed attempts per account', async () => {
     const strict = await createTestContext({ RATE_LIMIT_SIGNIN_PER_ACCOUNT: '3' })
     try {
-      for (let i = 0; i < 3; i++) await agent(strict.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: 'x' }).expect(401)
+      for (let i = 0; i < 3; i++)
+        await agent(strict.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: 'x' }).expect(401)
       const r = await agent(strict.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD })
       expect(r.status).toBe(429)
-      expect(r.body.error.message).toBe('Too many failed sign-in attempts for this account. Wait 15 minutes and try again.')
+      expect(r.body.error.message).toBe(
+        'Too many failed sign-in attempts for this account. Wait 15 minutes and try again.',
+      )
     } finally {
       await strict.close()
     }
@@ -100,12 +123,18 @@ describe('sign-in', () => {
 describe('invites and password resets', () => {
   it('invites a user by mail; the link sets a password once', async () => {
     const admin = await signedInAgent(t.app, 'ada@lab.test')
-    await admin.post('/api/admin/users').send({ email: 'rui@lab.test', displayName: 'Rui Reviewer', roles: ['reviewer'] }).expect(201)
+    await admin
+      .post('/api/admin/users')
+      .send({ email: 'rui@lab.test', displayName: 'Rui Reviewer', roles: ['reviewer'] })
+      .expect(201)
     const [mail] = await t.mail()
     expect(mail.envelope_to).toBe('rui@lab.test')
     expect(mail.subject).toBe('You are invited to Ebullio')
     const token = linkIn(mail.body_text, '/welcome/').split('/welcome/')[1]
-    expect((await agent(t.app).get(`/api/auth/invites/${token}`)).body).toEqual({ email: 'rui@lab.test', displayName: 'Rui Reviewer' })
+    expect((await agent(t.app).get(`/api/auth/invites/${token}`)).body).toEqual({
+      email: 'rui@lab.test',
+      displayName: 'Rui Reviewer',
+    })
     const rui = agent(t.app)
     await rui.post('/api/auth/accept-invite').send({ token, password: 'a-new-long-password' }).expect(200)
     expect((await rui.get('/api/auth/me')).body.user.roles).toEqual(['reviewer'])
@@ -124,12 +153,21 @@ describe('invites and password resets', () => {
     await agent(t.app).post('/api/auth/reset-password').send({ token, password: 'brand-new-password' }).expect(200)
     await signedInAgent(t.app, 'ana@lab.test', 'brand-new-password')
     const reused = await agent(t.app).post('/api/auth/reset-password').send({ token, password: 'brand-new-password-2' })
-    expect(reused.body.error).toMatchObject({ code: 'invalid_link', message: 'This link is not valid any more. It may have been used already or have expired; ask for a new one.' })
+    expect(reused.body.error).toMatchObject({
+      code: 'invalid_link',
+      message: 'This link is not valid any more. It may have been used already or have expired; ask for a new one.',
+    })
 
     await agent(t.app).post('/api/auth/forgot-password').send({ email: 'ana@lab.test' }).expect(200)
     const second = linkIn((await t.mail())[0].body_text, '/reset-password/').split('/reset-password/')[1]
-    await t.db.updateTable('password_reset').set({ expires_at: new Date(Date.now() - 1000) }).where('used_at', 'is', null).execute()
-    const expired = await agent(t.app).post('/api/auth/reset-password').send({ token: second, password: 'brand-new-password-3' })
+    await t.db
+      .updateTable('password_reset')
+      .set({ expires_at: new Date(Date.now() - 1000) })
+      .where('used_at', 'is', null)
+      .execute()
+    const expired = await agent(t.app)
+      .post('/api/auth/reset-password')
+      .send({ token: second, password: 'brand-new-password-3' })
     expect(expired.body.error.code).toBe('invalid_link')
   })
 
@@ -137,7 +175,11 @@ describe('invites and password resets', () => {
     const a = await signedInAgent(t.app, 'ana@lab.test')
     await a.patch('/api/auth/me/preferences').send({ notifyMail: false }).expect(200)
     expect((await a.get('/api/auth/me')).body.user.notifyMail).toBe(false)
-    const rows = await t.db.selectFrom('audit_log').selectAll().where('action', '=', 'change notification preference').execute()
+    const rows = await t.db
+      .selectFrom('audit_log')
+      .selectAll()
+      .where('action', '=', 'change notification preference')
+      .execute()
     expect(rows).toHaveLength(1)
     const bad = await a.patch('/api/auth/me/preferences').send({ notifyMail: 'sometimes' })
     expect(bad.status).toBe(422)
@@ -145,9 +187,14 @@ describe('invites and password resets', () => {
 
   it('changes a password after checking the current one', async () => {
     const a = await signedInAgent(t.app, 'ana@lab.test')
-    const bad = await a.post('/api/auth/change-password').send({ currentPassword: 'wrong', newPassword: 'long-enough-password' })
+    const bad = await a
+      .post('/api/auth/change-password')
+      .send({ currentPassword: 'wrong', newPassword: 'long-enough-password' })
     expect(bad.body.error.message).toBe('Your current password is not correct.')
-    await a.post('/api/auth/change-password').send({ currentPassword: PASSWORD, newPassword: 'long-enough-password' }).expect(200)
+    await a
+      .post('/api/auth/change-password')
+      .send({ currentPassword: PASSWORD, newPassword: 'long-enough-password' })
+      .expect(200)
     await signedInAgent(t.app, 'ana@lab.test', 'long-enough-password')
   })
 })
@@ -166,8 +213,12 @@ describe('errors and request hygiene', () => {
   it('answers malformed and oversize JSON with the error shape', async () => {
     const bad = await agent(t.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email":')
     expect(bad.status).toBe(400)
-    expect(bad.body).toEqual({ error: { code: 'malformed_json', message: 'The request body is not valid JSON.', details: null } })
-    const big = await agent(t.app).post('/api/auth/sign-in').send({ email: 'a@b.test', password: 'x'.repeat(2_000_000) })
+    expect(bad.body).toEqual({
+      error: { code: 'malformed_json', message: 'The request body is not valid JSON.', details: null },
+    })
+    const big = await agent(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'a@b.test', password: 'x'.repeat(2_000_000) })
     expect(big.status).toBe(413)
     expect(big.body.error.code).toBe('payload_too_large')
   })

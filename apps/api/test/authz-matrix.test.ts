@@ -82,7 +82,9 @@ const expected: Record<string, Access> = {
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`
 const concrete = (path: string) =>
-  path.replace(/:(\w+)/g, (_m, name: string) => (name === 'token' ? 'x'.repeat(40) : '00000000-0000-4000-8000-000000000000'))
+  path.replace(/:(\w+)/g, (_m, name: string) =>
+    name === 'token' ? 'x'.repeat(40) : '00000000-0000-4000-8000-000000000000',
+  )
 
 let t: TestContext
 const agents: Partial<Record<Role, Awaited<ReturnType<typeof signedInAgent>>>> = {}

@@ -22,19 +22,22 @@ afterAll(() => t.close())
 
 /** A small RFC 4180 reader (quoted cells, doubled quotes, no line breaks inside cells), enough for the export. */
 function parseCsv(text: string): string[][] {
-  return text.trim().split('\n').map((l) => {
-    const cells: string[] = []
-    let cell = ''
-    let quoted = false
-    for (let i = 0; i < l.length; i++) {
-      const ch = l[i]
-      if (quoted && ch === '"' && l[i + 1] === '"') (cell += '"'), i++
-      else if (ch === '"') quoted = !quoted
-      else if (ch === ',' && !quoted) cells.push(cell), (cell = '')
-      else cell += ch
-    }
-    return [...cells, cell]
-  })
+  return text
+    .trim()
+    .split('\n')
+    .map((l) => {
+      const cells: string[] = []
+      let cell = ''
+      let quoted = false
+      for (let i = 0; i < l.length; i++) {
+        const ch = l[i]
+        if (quoted && ch === '"' && l[i + 1] === '"') ((cell += '"'), i++)
+        else if (ch === '"') quoted = !quoted
+        else if (ch === ',' && !quoted) (cells.push(cell), (cell = ''))
+        else cell += ch
+      }
+      return [...cells, cell]
+    })
 }
 
 describe('parameters export', () => {
@@ -47,14 +50,33 @@ describe('parameters export', () => {
       { index: 2, name: 'methanol', cas: '67-56-1' },
     ])
     // SVNA 7th ed. Table B.2: acetone A = 14.3145, B = 2756.22, C = 228.060 (ln, kPa, °C); methanol A = 16.5785
-    expect(p.vaporPressure[0]).toMatchObject({ kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
+    expect(p.vaporPressure[0]).toMatchObject({
+      kind: 'antoine',
+      A: 14.3145,
+      B: 2756.22,
+      C: 228.06,
+      log: 'ln',
+      pressureUnit: 'kPa',
+      temperatureUnit: 'C',
+    })
     expect(p.vaporPressure[1]).toMatchObject({ kind: 'antoine', A: 16.5785 })
   })
 
   it('keeps the original seven CSV columns first and adds labelled vapour-pressure rows after the fit rows', async () => {
     const res = await engineer.get(`/api/data-sets/${dataSetId}/export/parameters.csv`).expect(200)
     const rows = parseCsv(res.text)
-    expect(rows[0]).toEqual(['fit_id', 'model', 'recommended', 'parameter', 'value', 'standard_error', 'unit', 'component', 'component_name', 'cas'])
+    expect(rows[0]).toEqual([
+      'fit_id',
+      'model',
+      'recommended',
+      'parameter',
+      'value',
+      'standard_error',
+      'unit',
+      'component',
+      'component_name',
+      'cas',
+    ])
     expect(rows.every((r) => r.length === 10)).toBe(true)
     const body = rows.slice(1)
     const firstVp = body.findIndex((r) => r[1].startsWith('vapour-pressure/'))
@@ -64,7 +86,14 @@ describe('parameters export', () => {
     expect(vp.every((r) => r[1] === 'vapour-pressure/antoine' && r[0] === '' && r[2] === '')).toBe(true)
     const acetone = vp.filter((r) => r[7] === '1')
     expect(acetone.every((r) => r[8] === 'acetone' && r[9] === '67-64-1')).toBe(true)
-    expect(Object.fromEntries(acetone.map((r) => [r[3], r[4]]))).toMatchObject({ A: '14.3145', B: '2756.22', C: '228.06', log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
+    expect(Object.fromEntries(acetone.map((r) => [r[3], r[4]]))).toMatchObject({
+      A: '14.3145',
+      B: '2756.22',
+      C: '228.06',
+      log: 'ln',
+      pressureUnit: 'kPa',
+      temperatureUnit: 'C',
+    })
     expect(acetone.at(-1)?.[3]).toBe('source')
     expect(acetone.at(-1)?.[4]).toContain('Table B.2')
     expect(vp.filter((r) => r[7] === '2').every((r) => r[8] === 'methanol' && r[9] === '67-56-1')).toBe(true)

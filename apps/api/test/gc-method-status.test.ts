@@ -12,14 +12,26 @@ beforeAll(async () => {
   t = await createTestContext()
   await resetDatabase(t.db)
   lab = await buildLab(t)
-  const d = await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title: 'Retired method check', nominalPressurePa: 101325, apparatusNotes: null, projectRef: null }).expect(201)
+  const d = await lab.analyst
+    .post('/api/data-sets')
+    .send({
+      systemId: lab.systemId,
+      title: 'Retired method check',
+      nominalPressurePa: 101325,
+      apparatusNotes: null,
+      projectRef: null,
+    })
+    .expect(201)
   dataSet = { id: d.body.id, rowVersion: d.body.rowVersion }
 })
 afterAll(() => t.close())
 
 const calibrationCommit = (gcMethodId: string) =>
   csv(lab.analyst.post('/api/calibrations'), example('calibration-acetone-methanol.csv'), 'calibration.csv')
-    .field('gcMethodId', gcMethodId).field('systemId', lab.systemId).field('model', 'response-factor').field('acceptWarnings', 'true')
+    .field('gcMethodId', gcMethodId)
+    .field('systemId', lab.systemId)
+    .field('model', 'response-factor')
+    .field('acceptWarnings', 'true')
 
 describe('GC method status', () => {
   it('lists a new method as active and filters by status', async () => {
@@ -48,27 +60,47 @@ describe('GC method status', () => {
   })
 
   it('refuses a new calibration on the retired method, in preview and commit', async () => {
-    const preview = await csv(lab.analyst.post('/api/calibrations/preview'), example('calibration-acetone-methanol.csv'), 'cal.csv')
-      .field('gcMethodId', lab.gcMethodId).field('systemId', lab.systemId).field('model', 'response-factor').expect(409)
+    const preview = await csv(
+      lab.analyst.post('/api/calibrations/preview'),
+      example('calibration-acetone-methanol.csv'),
+      'cal.csv',
+    )
+      .field('gcMethodId', lab.gcMethodId)
+      .field('systemId', lab.systemId)
+      .field('model', 'response-factor')
+      .expect(409)
     expect(preview.body.error.message).toBe(RETIRED)
     const commit = await calibrationCommit(lab.gcMethodId).expect(409)
     expect(commit.body.error.message).toBe(RETIRED)
   })
 
   it("refuses a run upload with the retired method's calibration", async () => {
-    const r = await csv(lab.analyst.post(`/api/data-sets/${dataSet.id}/uploads/preview`), example('run-acetone-methanol.csv')).field('calibrationId', lab.calibrationId).expect(409)
+    const r = await csv(
+      lab.analyst.post(`/api/data-sets/${dataSet.id}/uploads/preview`),
+      example('run-acetone-methanol.csv'),
+    )
+      .field('calibrationId', lab.calibrationId)
+      .expect(409)
     expect(r.body.error.message).toBe(RETIRED)
     const c = await csv(lab.analyst.post(`/api/data-sets/${dataSet.id}/uploads`), example('run-acetone-methanol.csv'))
-      .field('calibrationId', lab.calibrationId).field('rowVersion', String(dataSet.rowVersion)).field('acceptWarnings', 'true').expect(409)
+      .field('calibrationId', lab.calibrationId)
+      .field('rowVersion', String(dataSet.rowVersion))
+      .field('acceptWarnings', 'true')
+      .expect(409)
     expect(c.body.error.message).toBe(RETIRED)
   })
 
   it('keeps the rule in the database whatever the app does', async () => {
-    await expect(sql`update calibration set status = 'active', retired_at = null where id = ${lab.calibrationId}`.execute(t.db))
-      .rejects.toThrow('a calibration of a retired GC method cannot be active')
-    const other = await lab.analyst.post('/api/gc-methods').send({ name: 'TCD-molsieve', detector: 'TCD', columnDescription: null, conditions: null }).expect(201)
+    await expect(
+      sql`update calibration set status = 'active', retired_at = null where id = ${lab.calibrationId}`.execute(t.db),
+    ).rejects.toThrow('a calibration of a retired GC method cannot be active')
+    const other = await lab.analyst
+      .post('/api/gc-methods')
+      .send({ name: 'TCD-molsieve', detector: 'TCD', columnDescription: null, conditions: null })
+      .expect(201)
     await calibrationCommit(other.body.id).expect(201)
-    await expect(sql`update gc_method set status = 'retired' where id = ${other.body.id}`.execute(t.db))
-      .rejects.toThrow('retire the active calibrations of a GC method before the method')
+    await expect(
+      sql`update gc_method set status = 'retired' where id = ${other.body.id}`.execute(t.db),
+    ).rejects.toThrow('retire the active calibrations of a GC method before the method')
   })
 })

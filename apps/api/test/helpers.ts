@@ -24,7 +24,10 @@ export interface TestContext {
 }
 
 /** An app wired to the test database, with its own fake SMTP on a free port. */
-export async function createTestContext(env: Record<string, string> = {}, logger: Logger = pino({ level: 'silent' })): Promise<TestContext> {
+export async function createTestContext(
+  env: Record<string, string> = {},
+  logger: Logger = pino({ level: 'silent' }),
+): Promise<TestContext> {
   const config = loadConfig({
     ...process.env,
     NODE_ENV: 'test',
@@ -60,14 +63,20 @@ export async function createTestContext(env: Record<string, string> = {}, logger
 export async function resetDatabase(db: Kysely<Database>): Promise<void> {
   const { rows } = await sql<{ tablename: string }>`
     select tablename from pg_tables where schemaname = 'public' and tablename not like 'kysely_%'`.execute(db)
-  if (rows.length) await sql.raw(`truncate ${rows.map((r) => `"${r.tablename}"`).join(', ')} restart identity cascade`).execute(db)
+  if (rows.length)
+    await sql.raw(`truncate ${rows.map((r) => `"${r.tablename}"`).join(', ')} restart identity cascade`).execute(db)
 }
 
 export async function createUser(
   db: Kysely<Database>,
   o: { email: string; roles: Role[]; password?: string; displayName?: string },
 ): Promise<string> {
-  return createUserService(db, { email: o.email, roles: o.roles, password: o.password ?? PASSWORD, displayName: o.displayName ?? o.email.split('@')[0] })
+  return createUserService(db, {
+    email: o.email,
+    roles: o.roles,
+    password: o.password ?? PASSWORD,
+    displayName: o.displayName ?? o.email.split('@')[0],
+  })
 }
 
 /** A supertest agent that keeps cookies and sends a same-origin Origin header, like the web app does. */

@@ -15,7 +15,13 @@ beforeAll(async () => {
   await resetDatabase(t.db)
   await seedLab(t.db, await seedUsers(t.db))
   analyst = await signedInAgent(t.app, 'analyst@demo.ebullio.test', DEMO_PASSWORD)
-  id = (await t.db.selectFrom('data_set').select('id').where('title', '=', 'Column feed: methanol/water at 1 atm').executeTakeFirstOrThrow()).id
+  id = (
+    await t.db
+      .selectFrom('data_set')
+      .select('id')
+      .where('title', '=', 'Column feed: methanol/water at 1 atm')
+      .executeTakeFirstOrThrow()
+  ).id
 })
 afterAll(() => t.close())
 
@@ -25,12 +31,22 @@ const trail = async (): Promise<Line[]> => (await analyst.get(`/api/data-sets/${
 describe('audit details', () => {
   it('an exclusion names the sample and the reason', async () => {
     const ex = (await trail()).find((a) => a.action === 'exclude point')!
-    expect(ex.after).toMatchObject({ excluded: true, reason: 'Septum leak suspected on this injection series.', sample: expect.stringMatching(/^MW-/) })
+    expect(ex.after).toMatchObject({
+      excluded: true,
+      reason: 'Septum leak suspected on this injection series.',
+      sample: expect.stringMatching(/^MW-/),
+    })
   })
 
   it('a fit names its model, NRTL its α held or fitted, and the number of points used', async () => {
-    await analyst.post(`/api/data-sets/${id}/fits`).send({ models: ['wilson', 'nrtl'], alpha: 0.3 }).expect(201)
-    await analyst.post(`/api/data-sets/${id}/fits`).send({ models: ['nrtl'], alpha: 0.3, fitAlpha: true }).expect(201)
+    await analyst
+      .post(`/api/data-sets/${id}/fits`)
+      .send({ models: ['wilson', 'nrtl'], alpha: 0.3 })
+      .expect(201)
+    await analyst
+      .post(`/api/data-sets/${id}/fits`)
+      .send({ models: ['nrtl'], alpha: 0.3, fitAlpha: true })
+      .expect(201)
     const fits = (await trail()).filter((a) => a.action === 'run fit').map((a) => a.after!)
     // 11 samples in the draft, one excluded by the seed
     expect(fits.map((f) => [f.model, f.alpha, f.fitAlpha, f.points])).toEqual([

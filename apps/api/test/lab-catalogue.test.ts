@@ -19,11 +19,17 @@ describe('catalogue', () => {
     // demo: acetone/methanol approved; n-hexane/n-heptane v2 approved superseding v1; the other three systems unapproved
     const all = await engineer.get('/api/catalogue').expect(200)
     expect(all.body.total).toBe(2)
-    expect(all.body.items.map((i: { system: { name: string } }) => i.system.name)).toEqual(['acetone / methanol', 'n-hexane / n-heptane'])
+    expect(all.body.items.map((i: { system: { name: string } }) => i.system.name)).toEqual([
+      'acetone / methanol',
+      'n-hexane / n-heptane',
+    ])
     const p1 = await engineer.get('/api/catalogue').query({ pageSize: 1 }).expect(200)
     const p2 = await engineer.get('/api/catalogue').query({ pageSize: 1, page: 2 }).expect(200)
     expect([p1.body.total, p2.body.total]).toEqual([2, 2])
-    expect([...p1.body.items, ...p2.body.items].map((i: { system: { name: string } }) => i.system.name)).toEqual(['acetone / methanol', 'n-hexane / n-heptane'])
+    expect([...p1.body.items, ...p2.body.items].map((i: { system: { name: string } }) => i.system.name)).toEqual([
+      'acetone / methanol',
+      'n-hexane / n-heptane',
+    ])
     const hex = await engineer.get('/api/catalogue').query({ q: 'heptane' }).expect(200)
     expect(hex.body.total).toBe(1)
     expect(hex.body.items[0].approved.map((v: { version: number }) => v.version)).toEqual([2])
@@ -34,7 +40,9 @@ describe('catalogue', () => {
   it('gives an engineer the band of an approved recommended fit', async () => {
     const cat = await engineer.get('/api/catalogue').query({ q: 'methanol' }).expect(200)
     const v = cat.body.items[0].approved[0]
-    const band = await engineer.get(`/api/data-sets/${v.dataSetId}/fits/${v.recommendedFit.id}/band`).query({ pressure: 1, unit: 'atm', points: 5 })
+    const band = await engineer
+      .get(`/api/data-sets/${v.dataSetId}/fits/${v.recommendedFit.id}/band`)
+      .query({ pressure: 1, unit: 'atm', points: 5 })
     expect(band.status, JSON.stringify(band.body)).toBe(200)
     expect(band.body.P).toBeCloseTo(101325, 6)
     expect(band.body.sigmaT.every((s: number) => Number.isFinite(s) && s >= 0)).toBe(true)

@@ -16,7 +16,13 @@ beforeAll(async () => {
   await resetDatabase(t.db)
   await seedLab(t.db, await seedUsers(t.db))
   lead = await signedInAgent(t.app, 'lead@demo.ebullio.test', DEMO_PASSWORD)
-  id = (await t.db.selectFrom('data_set').select('id').where('title', '=', 'Kestrel recycle repeat: acetone/methanol at 1 atm').executeTakeFirstOrThrow()).id
+  id = (
+    await t.db
+      .selectFrom('data_set')
+      .select('id')
+      .where('title', '=', 'Kestrel recycle repeat: acetone/methanol at 1 atm')
+      .executeTakeFirstOrThrow()
+  ).id
 })
 afterAll(() => t.close())
 
@@ -26,13 +32,19 @@ describe('fitted NRTL α over the API', () => {
   it('keeps α within 0.1–0.7 and passes a held α through with its warning; suggestions are stable', async () => {
     const r = await lead.post(`/api/data-sets/${id}/fits`).send({ models: ['nrtl'], alpha: 0.3, fitAlpha: true })
     expect(r.status, JSON.stringify(r.body)).toBe(201)
-    const [fit] = r.body.fits as { id: string; parameters: Param[]; statistics: { warnings: string[]; covariance: number[][] } }[]
+    const [fit] = r.body.fits as {
+      id: string
+      parameters: Param[]
+      statistics: { warnings: string[]; covariance: number[][] }
+    }[]
     const alpha = fit.parameters.find((p) => p.name === 'alpha')!
     expect(alpha.value).toBeGreaterThanOrEqual(0.1)
     expect(alpha.value).toBeLessThanOrEqual(0.7)
     if (alpha.atBound) {
       expect(alpha.standardError).toBeNull()
-      expect(fit.statistics.warnings).toContain(`α reached its bound ${alpha.value}: the data do not determine α; hold it at a fixed value.`)
+      expect(fit.statistics.warnings).toContain(
+        `α reached its bound ${alpha.value}: the data do not determine α; hold it at a fixed value.`,
+      )
       expect(fit.statistics.covariance.length).toBe(2)
     }
     const url = `/api/data-sets/${id}/fits/${fit.id}/next-compositions`

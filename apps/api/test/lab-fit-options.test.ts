@@ -16,11 +16,22 @@ beforeAll(async () => {
   await seedLab(t.db, await seedUsers(t.db))
   // The series is submitted, so only a lead chemist may add fits.
   lead = await signedInAgent(t.app, 'lead@demo.ebullio.test', DEMO_PASSWORD)
-  id = (await t.db.selectFrom('data_set').select('id').where('title', '=', 'SR-24 mother liquor: 1-propanol/water at 1 atm').executeTakeFirstOrThrow()).id
+  id = (
+    await t.db
+      .selectFrom('data_set')
+      .select('id')
+      .where('title', '=', 'SR-24 mother liquor: 1-propanol/water at 1 atm')
+      .executeTakeFirstOrThrow()
+  ).id
 })
 afterAll(() => t.close())
 
-type FitOut = { model: string; options: Record<string, unknown>; parameters: { name: string; value: number }[]; statistics: { objective: number; rmsT: number; rmsY: number; converged: boolean } }
+type FitOut = {
+  model: string
+  options: Record<string, unknown>
+  parameters: { name: string; value: number }[]
+  statistics: { objective: number; rmsT: number; rmsY: number; converged: boolean }
+}
 async function fit(body: Record<string, unknown>): Promise<FitOut[]> {
   const r = await lead.post(`/api/data-sets/${id}/fits`).send(body)
   expect(r.status, JSON.stringify(r.body)).toBe(201)
@@ -28,7 +39,7 @@ async function fit(body: Record<string, unknown>): Promise<FitOut[]> {
 }
 
 describe('NRTL α and Wilson volumes', () => {
-  it('stores the default α = 0.3 (common practice, no source) with the fit, and Wilson the components\' liquid molar volumes', async () => {
+  it("stores the default α = 0.3 (common practice, no source) with the fit, and Wilson the components' liquid molar volumes", async () => {
     const [nrtl, wilson] = await fit({ models: ['nrtl', 'wilson'] })
     expect(nrtl.options).toMatchObject({ model: 'nrtl', alpha: 0.3, fitAlpha: false })
     expect(nrtl.parameters.map((p) => p.name)).toEqual(['b12', 'b21'])

@@ -16,7 +16,9 @@ afterAll(() => t.close())
 
 describe('fits and consistency', () => {
   it('fits every model, stores parameters with standard errors and residuals per point', async () => {
-    const r = await lab.analyst.post(`/api/data-sets/${ds.id}/fits`).send({ models: ['margules', 'van-laar', 'wilson', 'nrtl'] })
+    const r = await lab.analyst
+      .post(`/api/data-sets/${ds.id}/fits`)
+      .send({ models: ['margules', 'van-laar', 'wilson', 'nrtl'] })
     expect(r.status, JSON.stringify(r.body)).toBe(201)
     ds.rowVersion = r.body.rowVersion
     for (const f of r.body.fits) {
@@ -43,7 +45,9 @@ describe('fits and consistency', () => {
   })
 
   it('refuses the recommended-fit choice for a fit of another data set', async () => {
-    const r = await lab.lead.post(`/api/data-sets/${ds.id}/recommended-fit`).send({ fitId: '00000000-0000-4000-8000-000000000000' })
+    const r = await lab.lead
+      .post(`/api/data-sets/${ds.id}/recommended-fit`)
+      .send({ fitId: '00000000-0000-4000-8000-000000000000' })
     expect(r.status).toBe(404)
     expect(r.body.error.message).toBe('There is no such fit in this data set.')
   })
@@ -52,9 +56,18 @@ describe('fits and consistency', () => {
 describe('comments', () => {
   it('threads replies under the root, resolves and reopens, and respects mail preferences', async () => {
     const d = await lab.reviewer.get(`/api/data-sets/${ds.id}`).expect(200)
-    const root = await lab.reviewer.post(`/api/data-sets/${ds.id}/comments`).send({ body: 'Odd point', pointId: d.body.points[1].id }).expect(201)
-    const r1 = await lab.analyst.post(`/api/data-sets/${ds.id}/comments`).send({ body: 'Checking', parentId: root.body.id }).expect(201)
-    const r2 = await lab.lead.post(`/api/data-sets/${ds.id}/comments`).send({ body: 'Reply to the reply', parentId: r1.body.id }).expect(201)
+    const root = await lab.reviewer
+      .post(`/api/data-sets/${ds.id}/comments`)
+      .send({ body: 'Odd point', pointId: d.body.points[1].id })
+      .expect(201)
+    const r1 = await lab.analyst
+      .post(`/api/data-sets/${ds.id}/comments`)
+      .send({ body: 'Checking', parentId: root.body.id })
+      .expect(201)
+    const r2 = await lab.lead
+      .post(`/api/data-sets/${ds.id}/comments`)
+      .send({ body: 'Reply to the reply', parentId: r1.body.id })
+      .expect(201)
     expect(r2.body).toEqual({ id: r2.body.id, parentId: root.body.id, pointId: d.body.points[1].id })
     const resolveReply = await lab.reviewer.post(`/api/data-sets/${ds.id}/comments/${r1.body.id}/resolve`)
     expect(resolveReply.body.error.message).toBe('Resolve the thread from its first comment, not from a reply.')
@@ -69,7 +82,10 @@ describe('comments', () => {
     expect(told).toContain('analyst@lab.test Ebullio: Tobias Lead replied to your comment on "Fits and friends"')
     await lab.reviewer.patch('/api/auth/me/preferences').send({ notifyMail: false }).expect(200)
     const before = (await t.mail()).length
-    await lab.analyst.post(`/api/data-sets/${ds.id}/comments`).send({ body: 'Muted reply', parentId: root.body.id }).expect(201)
+    await lab.analyst
+      .post(`/api/data-sets/${ds.id}/comments`)
+      .send({ body: 'Muted reply', parentId: root.body.id })
+      .expect(201)
     expect((await t.mail()).length).toBe(before)
   })
 })
@@ -79,12 +95,20 @@ describe('lists and exports', () => {
     await draftWithPoints(t, lab, 'Second set')
     const page = await lab.analyst.get('/api/data-sets?pageSize=1&page=2&sort=title&order=asc').expect(200)
     expect(page.body).toMatchObject({ total: 2, page: 2, pageSize: 1 })
-    expect(page.body.items[0]).toMatchObject({ title: 'Second set', pointCount: 12, systemName: 'acetone / methanol', authorName: 'Mira Analyst' })
+    expect(page.body.items[0]).toMatchObject({
+      title: 'Second set',
+      pointCount: 12,
+      systemName: 'acetone / methanol',
+      authorName: 'Mira Analyst',
+    })
     const filtered = await lab.analyst.get(`/api/data-sets?state=submitted&systemId=${lab.systemId}`).expect(200)
     expect(filtered.body.total).toBe(0)
     const tomorrow = new Date(Date.now() + 86_400_000).toISOString()
     expect((await lab.analyst.get(`/api/data-sets?createdAfter=${tomorrow}`).expect(200)).body.total).toBe(0)
-    expect((await lab.analyst.get(`/api/data-sets?createdBefore=${tomorrow}&createdBy=${lab.ids.analyst}`).expect(200)).body.total).toBe(2)
+    expect(
+      (await lab.analyst.get(`/api/data-sets?createdBefore=${tomorrow}&createdBy=${lab.ids.analyst}`).expect(200)).body
+        .total,
+    ).toBe(2)
     const bad = await lab.analyst.get('/api/data-sets?state=finished')
     expect(bad.status).toBe(422)
   })
@@ -101,7 +125,9 @@ describe('lists and exports', () => {
   it('computes the curve with a fit chosen by id and rejects a bad pressure', async () => {
     const fits = await lab.analyst.get(`/api/data-sets/${ds.id}/fits`).expect(200)
     const nrtl = fits.body.items.find((f: { model: string }) => f.model === 'nrtl')
-    const r = await lab.analyst.get(`/api/data-sets/${ds.id}/curve?pressure=760&unit=mmHg&points=11&fitId=${nrtl.id}`).expect(200)
+    const r = await lab.analyst
+      .get(`/api/data-sets/${ds.id}/curve?pressure=760&unit=mmHg&points=11&fitId=${nrtl.id}`)
+      .expect(200)
     expect(r.body.diagram.x1).toHaveLength(11)
     expect(r.body.caution).toMatch(/licensed engineer/)
     const noFit = await lab.analyst.get(`/api/data-sets/${ds.id}/curve?pressure=1`)
@@ -119,9 +145,15 @@ describe('recommended fit', () => {
     // Mark the stored result as unconverged, as the solver reports when it stops short of an optimum.
     const row = await t.db.selectFrom('fit').select('statistics').where('id', '=', fitId).executeTakeFirstOrThrow()
     const stats = { ...(row.statistics as Record<string, unknown>), converged: false }
-    await t.db.updateTable('fit').set({ statistics: JSON.stringify(stats) } as never).where('id', '=', fitId).execute()
+    await t.db
+      .updateTable('fit')
+      .set({ statistics: JSON.stringify(stats) } as never)
+      .where('id', '=', fitId)
+      .execute()
     const refused = await lab.lead.post(`/api/data-sets/${ds.id}/recommended-fit`).send({ fitId })
     expect(refused.status).toBe(409)
-    expect(refused.body.error.message).toBe('This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.')
+    expect(refused.body.error.message).toBe(
+      'This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.',
+    )
   })
 })

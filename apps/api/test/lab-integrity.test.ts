@@ -12,11 +12,22 @@ let draft: { id: string; rowVersion: number }
 
 /** Fit, submit, recommend and approve a draft through the API. */
 async function approveThroughApi(id: string, rowVersion: number) {
-  const fit = await lab.analyst.post(`/api/data-sets/${id}/fits`).send({ models: ['margules'] }).expect(201)
-  const sub = await lab.analyst.post(`/api/data-sets/${id}/submit`).send({ rowVersion: fit.body.rowVersion }).expect(200)
-  const rec = await lab.lead.post(`/api/data-sets/${id}/recommended-fit`).send({ fitId: fit.body.fits[0].id }).expect(200)
+  const fit = await lab.analyst
+    .post(`/api/data-sets/${id}/fits`)
+    .send({ models: ['margules'] })
+    .expect(201)
+  const sub = await lab.analyst
+    .post(`/api/data-sets/${id}/submit`)
+    .send({ rowVersion: fit.body.rowVersion })
+    .expect(200)
+  const rec = await lab.lead
+    .post(`/api/data-sets/${id}/recommended-fit`)
+    .send({ fitId: fit.body.fits[0].id })
+    .expect(200)
   expect(rec.body.rowVersion).toBeGreaterThan(sub.body.rowVersion)
-  const ok = await lab.lead.post(`/api/data-sets/${id}/approve`).send({ password: PASSWORD, reason: 'Fit and points checked.', rowVersion: rec.body.rowVersion })
+  const ok = await lab.lead
+    .post(`/api/data-sets/${id}/approve`)
+    .send({ password: PASSWORD, reason: 'Fit and points checked.', rowVersion: rec.body.rowVersion })
   expect(ok.status, JSON.stringify(ok.body)).toBe(200)
   return ok.body as { digest: string; dataSet: { rowVersion: number } }
 }
@@ -39,29 +50,51 @@ describe('approved data is immutable', () => {
     const rv = detail.body.rowVersion
     const edit = await lab.analyst.patch(`/api/data-sets/${approved.id}`).send({ rowVersion: rv, title: 'changed' })
     expect(edit.status).toBe(409)
-    expect(edit.body.error.message).toBe('This data set is approved; editing is possible only when it is draft or returned.')
-    const excl = await lab.analyst.patch(`/api/data-sets/${approved.id}/points/${detail.body.points[0].id}`).send({ rowVersion: rv, excluded: true, reason: 'x' })
+    expect(edit.body.error.message).toBe(
+      'This data set is approved; editing is possible only when it is draft or returned.',
+    )
+    const excl = await lab.analyst
+      .patch(`/api/data-sets/${approved.id}/points/${detail.body.points[0].id}`)
+      .send({ rowVersion: rv, excluded: true, reason: 'x' })
     expect(excl.status).toBe(409)
     const fit = await lab.analyst.post(`/api/data-sets/${approved.id}/fits`).send({ models: ['nrtl'] })
-    expect(fit.body.error.message).toBe('This data set is approved; fitting is possible only when it is draft or returned or submitted.')
+    expect(fit.body.error.message).toBe(
+      'This data set is approved; fitting is possible only when it is draft or returned or submitted.',
+    )
     const del = await lab.analyst.delete(`/api/data-sets/${approved.id}`)
     expect(del.status).toBe(409)
   })
 
   it('refuses a direct SQL UPDATE or DELETE of the data set, its points, injections and fits (trigger)', async () => {
-    await expect(sql`update data_set set title = 'x' where id = ${approved.id}`.execute(t.db)).rejects.toThrow(DB_FROZEN)
-    await expect(sql`update point set x1 = 0.5 where data_set_id = ${approved.id}`.execute(t.db)).rejects.toThrow(DB_FROZEN)
+    await expect(sql`update data_set set title = 'x' where id = ${approved.id}`.execute(t.db)).rejects.toThrow(
+      DB_FROZEN,
+    )
+    await expect(sql`update point set x1 = 0.5 where data_set_id = ${approved.id}`.execute(t.db)).rejects.toThrow(
+      DB_FROZEN,
+    )
     await expect(sql`delete from point where data_set_id = ${approved.id}`.execute(t.db)).rejects.toThrow(DB_FROZEN)
-    await expect(sql`update point_injection set area1 = 1 where point_id in (select id from point where data_set_id = ${approved.id})`.execute(t.db)).rejects.toThrow(DB_FROZEN)
-    await expect(sql`update fit set parameters = '[]' where data_set_id = ${approved.id}`.execute(t.db)).rejects.toThrow(DB_FROZEN)
+    await expect(
+      sql`update point_injection set area1 = 1 where point_id in (select id from point where data_set_id = ${approved.id})`.execute(
+        t.db,
+      ),
+    ).rejects.toThrow(DB_FROZEN)
+    await expect(
+      sql`update fit set parameters = '[]' where data_set_id = ${approved.id}`.execute(t.db),
+    ).rejects.toThrow(DB_FROZEN)
     await expect(sql`delete from data_set where id = ${approved.id}`.execute(t.db)).rejects.toThrow('cannot be deleted')
     expect(await contentDigest(t.db, approved.id)).toBe(approved.digest)
   })
 
   it('keeps the audit log and the signatures append-only', async () => {
-    await expect(sql`update audit_log set action = 'nothing happened'`.execute(t.db)).rejects.toThrow('audit_log rows are append-only: UPDATE is not allowed')
-    await expect(sql`delete from audit_log`.execute(t.db)).rejects.toThrow('audit_log rows are append-only: DELETE is not allowed')
-    await expect(sql`update approval set reason = 'other'`.execute(t.db)).rejects.toThrow('approval rows are append-only: UPDATE is not allowed')
+    await expect(sql`update audit_log set action = 'nothing happened'`.execute(t.db)).rejects.toThrow(
+      'audit_log rows are append-only: UPDATE is not allowed',
+    )
+    await expect(sql`delete from audit_log`.execute(t.db)).rejects.toThrow(
+      'audit_log rows are append-only: DELETE is not allowed',
+    )
+    await expect(sql`update approval set reason = 'other'`.execute(t.db)).rejects.toThrow(
+      'approval rows are append-only: UPDATE is not allowed',
+    )
   })
 })
 
@@ -74,12 +107,15 @@ describe('approval digest', () => {
 
   it('detects content changed behind the trigger’s back', async () => {
     // a superuser can disable triggers; the signature still shows the change
-    await t.db.transaction().execute(async (tx) => {
-      await sql`alter table point disable trigger point_frozen`.execute(tx)
-      await sql`update point set y1 = y1 + 0.001 where data_set_id = ${approved.id} and seq = 3`.execute(tx)
-      expect(await contentDigest(tx, approved.id)).not.toBe(approved.digest)
-      throw new Error('rollback')
-    }).catch((e) => expect((e as Error).message).toBe('rollback'))
+    await t.db
+      .transaction()
+      .execute(async (tx) => {
+        await sql`alter table point disable trigger point_frozen`.execute(tx)
+        await sql`update point set y1 = y1 + 0.001 where data_set_id = ${approved.id} and seq = 3`.execute(tx)
+        expect(await contentDigest(tx, approved.id)).not.toBe(approved.digest)
+        throw new Error('rollback')
+      })
+      .catch((e) => expect((e as Error).message).toBe('rollback'))
     expect(await contentDigest(t.db, approved.id)).toBe(approved.digest)
   })
 })
@@ -87,9 +123,13 @@ describe('approval digest', () => {
 describe('optimistic concurrency', () => {
   it('refuses the second of two edits made from the same version of a draft', async () => {
     const d = await lab.analyst.get(`/api/data-sets/${draft.id}`).expect(200)
-    const first = await lab.analyst.patch(`/api/data-sets/${draft.id}`).send({ rowVersion: d.body.rowVersion, apparatusNotes: 'Still A, new thermometer' })
+    const first = await lab.analyst
+      .patch(`/api/data-sets/${draft.id}`)
+      .send({ rowVersion: d.body.rowVersion, apparatusNotes: 'Still A, new thermometer' })
     expect(first.status).toBe(200)
-    const second = await lab.analyst2.patch(`/api/data-sets/${draft.id}`).send({ rowVersion: d.body.rowVersion, apparatusNotes: 'Still B' })
+    const second = await lab.analyst2
+      .patch(`/api/data-sets/${draft.id}`)
+      .send({ rowVersion: d.body.rowVersion, apparatusNotes: 'Still B' })
     expect(second.status).toBe(409)
     expect(second.body.error).toEqual({
       code: 'stale_write',
@@ -104,14 +144,23 @@ describe('optimistic concurrency', () => {
   it('applies the same rule to point exclusions; a reason is mandatory', async () => {
     const d = await lab.analyst.get(`/api/data-sets/${draft.id}`).expect(200)
     const pid = d.body.points[2].id
-    const noReason = await lab.analyst.patch(`/api/data-sets/${draft.id}/points/${pid}`).send({ rowVersion: d.body.rowVersion, excluded: true })
+    const noReason = await lab.analyst
+      .patch(`/api/data-sets/${draft.id}/points/${pid}`)
+      .send({ rowVersion: d.body.rowVersion, excluded: true })
     expect(noReason.status).toBe(422)
     expect(noReason.body.error.details).toEqual([{ path: 'reason', message: 'Give a reason for excluding this point' }])
-    const ok = await lab.analyst.patch(`/api/data-sets/${draft.id}/points/${pid}`).send({ rowVersion: d.body.rowVersion, excluded: true, reason: 'Still not at steady state' }).expect(200)
+    const ok = await lab.analyst
+      .patch(`/api/data-sets/${draft.id}/points/${pid}`)
+      .send({ rowVersion: d.body.rowVersion, excluded: true, reason: 'Still not at steady state' })
+      .expect(200)
     expect(ok.body.point).toMatchObject({ excluded: true, exclusionReason: 'Still not at steady state' })
-    const stale = await lab.analyst2.patch(`/api/data-sets/${draft.id}/points/${pid}`).send({ rowVersion: d.body.rowVersion, excluded: false })
+    const stale = await lab.analyst2
+      .patch(`/api/data-sets/${draft.id}/points/${pid}`)
+      .send({ rowVersion: d.body.rowVersion, excluded: false })
     expect(stale.body.error.code).toBe('stale_write')
-    await expect(sql`update point set excluded = true, exclusion_reason = null where id = ${pid}`.execute(t.db)).rejects.toThrow('point_exclusion_reason')
+    await expect(
+      sql`update point set excluded = true, exclusion_reason = null where id = ${pid}`.execute(t.db),
+    ).rejects.toThrow('point_exclusion_reason')
   })
 })
 
@@ -133,23 +182,45 @@ describe('visibility for engineers', () => {
 describe('workflow rules', () => {
   it('refuses approval by the person who uploaded the data (four-eyes), records self-approval when allowed', async () => {
     const d = await draftWithPoints(t, { ...lab, analyst: lab.lead }, 'Lead uploads himself')
-    const fit = await lab.lead.post(`/api/data-sets/${d.id}/fits`).send({ models: ['margules'] }).expect(201)
+    const fit = await lab.lead
+      .post(`/api/data-sets/${d.id}/fits`)
+      .send({ models: ['margules'] })
+      .expect(201)
     await lab.lead.post(`/api/data-sets/${d.id}/submit`).send({ rowVersion: fit.body.rowVersion }).expect(200)
-    const rec = await lab.lead.post(`/api/data-sets/${d.id}/recommended-fit`).send({ fitId: fit.body.fits[0].id }).expect(200)
-    const self = await lab.lead.post(`/api/data-sets/${d.id}/approve`).send({ password: PASSWORD, reason: 'mine', rowVersion: rec.body.rowVersion })
+    const rec = await lab.lead
+      .post(`/api/data-sets/${d.id}/recommended-fit`)
+      .send({ fitId: fit.body.fits[0].id })
+      .expect(200)
+    const self = await lab.lead
+      .post(`/api/data-sets/${d.id}/approve`)
+      .send({ password: PASSWORD, reason: 'mine', rowVersion: rec.body.rowVersion })
     expect(self.status).toBe(403)
-    expect(self.body.error.message).toBe('You created or uploaded data in this data set; another lead chemist must approve it.')
-    const other = await lab.lead2.post(`/api/data-sets/${d.id}/approve`).send({ password: PASSWORD, reason: 'Checked by a second chemist.', rowVersion: rec.body.rowVersion }).expect(200)
+    expect(self.body.error.message).toBe(
+      'You created or uploaded data in this data set; another lead chemist must approve it.',
+    )
+    const other = await lab.lead2
+      .post(`/api/data-sets/${d.id}/approve`)
+      .send({ password: PASSWORD, reason: 'Checked by a second chemist.', rowVersion: rec.body.rowVersion })
+      .expect(200)
     expect(other.body.dataSet.state).toBe('approved')
 
     const solo = await createTestContext({ ALLOW_SELF_APPROVAL: 'true' })
     try {
       const leadSolo = await signedInAgent(solo.app, 'lead@lab.test')
       const d2 = await draftWithPoints(solo, { ...lab, analyst: leadSolo }, 'One-person lab')
-      const f2 = await leadSolo.post(`/api/data-sets/${d2.id}/fits`).send({ models: ['margules'] }).expect(201)
+      const f2 = await leadSolo
+        .post(`/api/data-sets/${d2.id}/fits`)
+        .send({ models: ['margules'] })
+        .expect(201)
       await leadSolo.post(`/api/data-sets/${d2.id}/submit`).send({ rowVersion: f2.body.rowVersion }).expect(200)
-      const r2 = await leadSolo.post(`/api/data-sets/${d2.id}/recommended-fit`).send({ fitId: f2.body.fits[0].id }).expect(200)
-      await leadSolo.post(`/api/data-sets/${d2.id}/approve`).send({ password: PASSWORD, reason: 'One-person lab.', rowVersion: r2.body.rowVersion }).expect(200)
+      const r2 = await leadSolo
+        .post(`/api/data-sets/${d2.id}/recommended-fit`)
+        .send({ fitId: f2.body.fits[0].id })
+        .expect(200)
+      await leadSolo
+        .post(`/api/data-sets/${d2.id}/approve`)
+        .send({ password: PASSWORD, reason: 'One-person lab.', rowVersion: r2.body.rowVersion })
+        .expect(200)
       const sig = await leadSolo.get(`/api/data-sets/${d2.id}/signatures/verify`).expect(200)
       expect(sig.body.signatures[0].selfApproval).toBe(true)
     } finally {
@@ -159,17 +230,33 @@ describe('workflow rules', () => {
 
   it('needs an override reason to approve with unresolved comments; returns are signed and mailed', async () => {
     const d = await draftWithPoints(t, lab, 'With open comments')
-    const fit = await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['margules'] }).expect(201)
+    const fit = await lab.analyst
+      .post(`/api/data-sets/${d.id}/fits`)
+      .send({ models: ['margules'] })
+      .expect(201)
     await lab.analyst.post(`/api/data-sets/${d.id}/submit`).send({ rowVersion: fit.body.rowVersion }).expect(200)
     await lab.reviewer.post(`/api/data-sets/${d.id}/comments`).send({ body: 'Check point 3.' }).expect(201)
-    const rec = await lab.lead.post(`/api/data-sets/${d.id}/recommended-fit`).send({ fitId: fit.body.fits[0].id }).expect(200)
-    const refused = await lab.lead.post(`/api/data-sets/${d.id}/approve`).send({ password: PASSWORD, reason: 'ok', rowVersion: rec.body.rowVersion })
+    const rec = await lab.lead
+      .post(`/api/data-sets/${d.id}/recommended-fit`)
+      .send({ fitId: fit.body.fits[0].id })
+      .expect(200)
+    const refused = await lab.lead
+      .post(`/api/data-sets/${d.id}/approve`)
+      .send({ password: PASSWORD, reason: 'ok', rowVersion: rec.body.rowVersion })
     expect(refused.status).toBe(409)
-    expect(refused.body.error.message).toBe('This data set has 1 unresolved comment thread; resolve them or give an override reason.')
-    const back = await lab.lead.post(`/api/data-sets/${d.id}/return`).send({ password: PASSWORD, reason: 'Re-measure the first three samples.', rowVersion: rec.body.rowVersion }).expect(200)
+    expect(refused.body.error.message).toBe(
+      'This data set has 1 unresolved comment thread; resolve them or give an override reason.',
+    )
+    const back = await lab.lead
+      .post(`/api/data-sets/${d.id}/return`)
+      .send({ password: PASSWORD, reason: 'Re-measure the first three samples.', rowVersion: rec.body.rowVersion })
+      .expect(200)
     expect(back.body.dataSet.state).toBe('returned')
     const mail = await t.mail()
-    expect(mail[0]).toMatchObject({ envelope_to: 'analyst@lab.test', subject: 'Ebullio: "With open comments" v1 returned for rework' })
+    expect(mail[0]).toMatchObject({
+      envelope_to: 'analyst@lab.test',
+      subject: 'Ebullio: "With open comments" v1 returned for rework',
+    })
     expect(mail[0].body_text).toContain('Reason: Re-measure the first three samples.')
   })
 

@@ -12,12 +12,23 @@ beforeAll(async () => {
   lab = await buildLab(t)
   // A second calibration of the same method retires the first; a TCD method gets one of its own.
   const calibrate = async (gcMethodId: string, model: string) => {
-    const r = await csv(lab.analyst.post('/api/calibrations'), example('calibration-acetone-methanol.csv'), 'calibration.csv')
-      .field('gcMethodId', gcMethodId).field('systemId', lab.systemId).field('model', model).field('acceptWarnings', 'true').field('replaceActive', 'true')
+    const r = await csv(
+      lab.analyst.post('/api/calibrations'),
+      example('calibration-acetone-methanol.csv'),
+      'calibration.csv',
+    )
+      .field('gcMethodId', gcMethodId)
+      .field('systemId', lab.systemId)
+      .field('model', model)
+      .field('acceptWarnings', 'true')
+      .field('replaceActive', 'true')
     if (r.status !== 201) throw new Error(JSON.stringify(r.body))
   }
   await calibrate(lab.gcMethodId, 'linear')
-  const tcd = await lab.analyst.post('/api/gc-methods').send({ name: 'TCD-packed', detector: 'TCD', columnDescription: 'packed, 2 m', conditions: null }).expect(201)
+  const tcd = await lab.analyst
+    .post('/api/gc-methods')
+    .send({ name: 'TCD-packed', detector: 'TCD', columnDescription: 'packed, 2 m', conditions: null })
+    .expect(201)
   tcdId = tcd.body.id
   await calibrate(tcdId, 'response-factor')
 })
@@ -52,8 +63,14 @@ describe('calibrations list', () => {
     const text = await lab.analyst.get('/api/calibrations').query({ q: 'tcd' })
     expect(text.body.items.map((c: { gcMethodName: string }) => c.gcMethodName)).toEqual(['TCD-packed'])
     const sorted = await lab.analyst.get('/api/calibrations').query({ sort: 'gc_method', order: 'asc' })
-    expect(sorted.body.items.map((c: { gcMethodName: string }) => c.gcMethodName)).toEqual(['FID-PoraBOND', 'FID-PoraBOND', 'TCD-packed'])
-    const later = await lab.analyst.get('/api/calibrations').query({ createdAfter: new Date(Date.now() + 60_000).toISOString() })
+    expect(sorted.body.items.map((c: { gcMethodName: string }) => c.gcMethodName)).toEqual([
+      'FID-PoraBOND',
+      'FID-PoraBOND',
+      'TCD-packed',
+    ])
+    const later = await lab.analyst
+      .get('/api/calibrations')
+      .query({ createdAfter: new Date(Date.now() + 60_000).toISOString() })
     expect(later.body.total).toBe(0)
   })
 
@@ -69,7 +86,11 @@ describe('GC methods list', () => {
     const all = await lab.analyst.get('/api/gc-methods')
     expect(all.body).toMatchObject({ total: 2, page: 1, pageSize: 100 })
     expect(all.body.items.map((m: { name: string }) => m.name)).toEqual(['FID-PoraBOND', 'TCD-packed'])
-    expect((await lab.analyst.get('/api/gc-methods').query({ detector: 'TCD' })).body.items.map((m: { name: string }) => m.name)).toEqual(['TCD-packed'])
+    expect(
+      (await lab.analyst.get('/api/gc-methods').query({ detector: 'TCD' })).body.items.map(
+        (m: { name: string }) => m.name,
+      ),
+    ).toEqual(['TCD-packed'])
     expect((await lab.analyst.get('/api/gc-methods').query({ q: 'porous' })).body.total).toBe(1)
     const desc = await lab.analyst.get('/api/gc-methods').query({ order: 'desc', pageSize: 1 })
     expect(desc.body.items.map((m: { name: string }) => m.name)).toEqual(['TCD-packed'])
@@ -79,32 +100,65 @@ describe('GC methods list', () => {
 
 describe('my open threads', () => {
   it('pages with a total', async () => {
-    const ds = (await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title: 'Threads', nominalPressurePa: 101325 }).expect(201)).body
-    for (const body of ['first', 'second', 'third']) await lab.reviewer.post(`/api/data-sets/${ds.id}/comments`).send({ body }).expect(201)
+    const ds = (
+      await lab.analyst
+        .post('/api/data-sets')
+        .send({ systemId: lab.systemId, title: 'Threads', nominalPressurePa: 101325 })
+        .expect(201)
+    ).body
+    for (const body of ['first', 'second', 'third'])
+      await lab.reviewer.post(`/api/data-sets/${ds.id}/comments`).send({ body }).expect(201)
     const r = await lab.reviewer.get('/api/comments/mine').query({ pageSize: 2 })
     expect(r.status).toBe(200)
     expect(r.body).toMatchObject({ total: 3, page: 1, pageSize: 2 })
     expect(r.body.items.map((c: { body: string }) => c.body)).toEqual(['third', 'second'])
     // camelCase like every other answer
-    expect(Object.keys(r.body.items[0]).sort()).toEqual(['body', 'createdAt', 'dataSetId', 'id', 'pointId', 'title', 'version'])
+    expect(Object.keys(r.body.items[0]).sort()).toEqual([
+      'body',
+      'createdAt',
+      'dataSetId',
+      'id',
+      'pointId',
+      'title',
+      'version',
+    ])
     expect(r.body.items[0]).toMatchObject({ dataSetId: ds.id, pointId: null, title: 'Threads', version: 1 })
   })
 })
 
 describe('data sets by date', () => {
   it('filters by creation and by last change, server-side, the end exclusive', async () => {
-    const make = async (title: string) => (await lab.analyst.post('/api/data-sets').send({ systemId: lab.systemId, title, nominalPressurePa: 101325 }).expect(201)).body
+    const make = async (title: string) =>
+      (
+        await lab.analyst
+          .post('/api/data-sets')
+          .send({ systemId: lab.systemId, title, nominalPressurePa: 101325 })
+          .expect(201)
+      ).body
     const old = await make('Dated: made in March, changed in May')
     const fresh = await make('Dated: made and changed today')
-    await t.db.updateTable('data_set').set({ created_at: new Date('2026-03-10T09:00:00Z'), updated_at: new Date('2026-05-02T09:00:00Z') }).where('id', '=', old.id).execute()
+    await t.db
+      .updateTable('data_set')
+      .set({ created_at: new Date('2026-03-10T09:00:00Z'), updated_at: new Date('2026-05-02T09:00:00Z') })
+      .where('id', '=', old.id)
+      .execute()
     const titles = async (query: Record<string, string>) =>
-      (await lab.analyst.get('/api/data-sets').query({ q: 'Dated', sort: 'title', order: 'asc', ...query }).expect(200)).body.items.map((d: { title: string }) => d.title)
+      (
+        await lab.analyst
+          .get('/api/data-sets')
+          .query({ q: 'Dated', sort: 'title', order: 'asc', ...query })
+          .expect(200)
+      ).body.items.map((d: { title: string }) => d.title)
     expect(await titles({ createdAfter: '2026-03-01', createdBefore: '2026-04-01' })).toEqual([old.title])
     expect(await titles({ updatedAfter: '2026-05-01', updatedBefore: '2026-05-03' })).toEqual([old.title])
     expect(await titles({ updatedBefore: '2026-05-02T09:00:00Z' })).toEqual([])
     expect(await titles({ createdAfter: '2026-04-01' })).toEqual([fresh.title])
-    const bad = await lab.analyst.get('/api/data-sets').query({ updatedAfter: '2026-05-03', updatedBefore: '2026-05-01' })
+    const bad = await lab.analyst
+      .get('/api/data-sets')
+      .query({ updatedAfter: '2026-05-03', updatedBefore: '2026-05-01' })
     expect(bad.status).toBe(422)
-    expect(bad.body.error.details).toEqual(expect.arrayContaining([expect.objectContaining({ message: 'The changed range must end after it starts' })]))
+    expect(bad.body.error.details).toEqual(
+      expect.arrayContaining([expect.objectContaining({ message: 'The changed range must end after it starts' })]),
+    )
   })
 })

@@ -20,7 +20,9 @@ let t: TestContext
 let lab: Lab
 let ds: { id: string; rowVersion: number }
 let fit: { id: string }
-let fitResponse: { predictions: { fitId: string; band: Record<string, number[]>; nextCompositions: { items: unknown[] } }[] }
+let fitResponse: {
+  predictions: { fitId: string; band: Record<string, number[]>; nextCompositions: { items: unknown[] } }[]
+}
 beforeAll(async () => {
   t = await createTestContext()
   await resetDatabase(t.db)
@@ -73,7 +75,9 @@ describe('prediction band', () => {
   })
 
   it('is drawn at a pressure given with its unit', async () => {
-    const r = await lab.analyst.get(`/api/data-sets/${ds.id}/fits/${fit.id}/band`).query({ pressure: 50, unit: 'kPa', points: 11 })
+    const r = await lab.analyst
+      .get(`/api/data-sets/${ds.id}/fits/${fit.id}/band`)
+      .query({ pressure: 50, unit: 'kPa', points: 11 })
     expect(r.status).toBe(200)
     expect(r.body.P).toBe(50000)
     expect(r.body.T[0]).toBeCloseTo(tsat(...METHANOL, 50), 3)
@@ -93,7 +97,7 @@ describe('prediction band', () => {
     expect(next.status, JSON.stringify(next.body)).toBe(200)
   })
 
-  it('answers 404 for another data set\'s fit, and engineers 404 for a draft', async () => {
+  it("answers 404 for another data set's fit, and engineers 404 for a draft", async () => {
     const other = await lab.analyst.get(`/api/data-sets/${ds.id}/fits/00000000-0000-4000-8000-000000000000/band`)
     expect(other.status).toBe(404)
     expect(other.body.error.message).toBe('There is no such fit in this data set.')
@@ -116,7 +120,8 @@ describe('where to measure next', () => {
       expect(s.x1).toBeLessThanOrEqual(0.99)
       expect(s.sigmaY).toBeGreaterThan(0)
     }
-    for (let i = 0; i < items.length; i++) for (let j = 0; j < i; j++) expect(Math.abs(items[i].x1 - items[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-9)
+    for (let i = 0; i < items.length; i++)
+      for (let j = 0; j < i; j++) expect(Math.abs(items[i].x1 - items[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-9)
     expect(items[0].sigmaY).toBeGreaterThanOrEqual(items[1].sigmaY)
   })
 
@@ -146,9 +151,13 @@ describe('where to measure next', () => {
   })
 
   it('refuses an unknown criterion, naming the field', async () => {
-    const bad = await lab.lead.get(`/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`).query({ criterion: 'widest' })
+    const bad = await lab.lead
+      .get(`/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`)
+      .query({ criterion: 'widest' })
     expect(bad.status).toBe(422)
-    expect(bad.body.error.details).toEqual([{ path: 'criterion', message: "The criterion must be 'sigma-y' or 'd-optimal'" }])
+    expect(bad.body.error.details).toEqual([
+      { path: 'criterion', message: "The criterion must be 'sigma-y' or 'd-optimal'" },
+    ])
   })
 })
 
@@ -159,10 +168,18 @@ describe('pure-component check', () => {
     const none = await lab.analyst.get(`/api/data-sets/${ds.id}/pure-component-check`)
     expect(none.status).toBe(200)
     expect(none.body.checks).toEqual([])
-    expect(none.body.warnings).toContain('No pure-component points (x1 = 0 or 1) to compare with the vapour-pressure models.')
+    expect(none.body.warnings).toContain(
+      'No pure-component points (x1 = 0 or 1) to compare with the vapour-pressure models.',
+    )
     // acetone at its SVNA Table B.2 normal boiling point; methanol measured 1 K too high.
-    await lab.analyst.post(`/api/components/${acetone}/pure-measurements`).send({ temperatureK: 56.2 + 273.15, pressurePa: 101325 }).expect(201)
-    await lab.analyst.post(`/api/components/${methanol}/pure-measurements`).send({ temperatureK: 65.7 + 273.15, pressurePa: 101325 }).expect(201)
+    await lab.analyst
+      .post(`/api/components/${acetone}/pure-measurements`)
+      .send({ temperatureK: 56.2 + 273.15, pressurePa: 101325 })
+      .expect(201)
+    await lab.analyst
+      .post(`/api/components/${methanol}/pure-measurements`)
+      .send({ temperatureK: 65.7 + 273.15, pressurePa: 101325 })
+      .expect(201)
     const r = await lab.reviewer.get(`/api/data-sets/${ds.id}/pure-component-check`)
     expect(r.status, JSON.stringify(r.body)).toBe(200)
     expect(r.body.toleranceK).toBe(0.3)

@@ -26,7 +26,10 @@ describe('mail outbox', () => {
     // Not due yet: the working server does not get it before its retry time…
     expect((await t.mail()).length).toBe(0)
     // …and does once the retry is due.
-    await t.db.updateTable('mail_outbox').set({ next_attempt_at: new Date(Date.now() - 1000) }).execute()
+    await t.db
+      .updateTable('mail_outbox')
+      .set({ next_attempt_at: new Date(Date.now() - 1000) })
+      .execute()
     const mails = await t.mail()
     expect(mails.map((m) => m.subject)).toEqual(['Data set returned'])
     const sent = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow()

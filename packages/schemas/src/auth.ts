@@ -16,10 +16,7 @@ export const roleSchema = z.enum(ROLES)
 export const emailSchema = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254)
 
 /** At least 10 characters: long enough to resist guessing, short enough to type at a lab bench. */
-export const newPasswordSchema = z
-  .string()
-  .min(10, 'Use at least 10 characters')
-  .max(200, 'Use at most 200 characters')
+export const newPasswordSchema = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters')
 
 export const signInSchema = z.object({
   email: emailSchema,

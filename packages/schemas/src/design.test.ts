@@ -5,7 +5,9 @@ const base = { moles: 100, x1: 0.3, stagesAbovePot: 0, R: 2 }
 /** The message on stopValue, or null when the input passes. */
 const stopMessage = (stopBy: string, stopValue: number, extra: Partial<typeof base> = {}) => {
   const r = batchStillSchema.safeParse({ ...base, ...extra, stopBy, stopValue })
-  return r.success ? null : r.error.issues.find((i) => i.path[0] === 'stopValue')?.message ?? r.error.issues[0].message
+  return r.success
+    ? null
+    : (r.error.issues.find((i) => i.path[0] === 'stopValue')?.message ?? r.error.issues[0].message)
 }
 
 describe('batchStillSchema stop conditions', () => {

@@ -14,13 +14,25 @@ describe('CAS check digit', () => {
   ])('%s → %s', (cas, ok) => expect(casCheckDigitOk(cas)).toBe(ok))
 
   it('names the bad check digit in the form message', () => {
-    const r = componentFormSchema.safeParse({ name: 'acetone', casNumber: '67-64-2', formula: null, molarMass: 58.08, liquidMolarVolume: null })
+    const r = componentFormSchema.safeParse({
+      name: 'acetone',
+      casNumber: '67-64-2',
+      formula: null,
+      molarMass: 58.08,
+      liquidMolarVolume: null,
+    })
     expect(r.success).toBe(false)
     expect(r.error?.issues[0].message).toBe('The CAS number is not valid (its check digit does not match).')
   })
 
   it('accepts an empty CAS number as none', () => {
-    const r = componentFormSchema.parse({ name: 'x', casNumber: '', formula: '', molarMass: 10, liquidMolarVolume: null })
+    const r = componentFormSchema.parse({
+      name: 'x',
+      casNumber: '',
+      formula: '',
+      molarMass: 10,
+      liquidMolarVolume: null,
+    })
     expect(r.casNumber).toBeNull()
     expect(r.formula).toBeNull()
   })

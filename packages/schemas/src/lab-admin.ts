@@ -3,10 +3,17 @@ import { z } from 'zod'
 /** The forms of the admin screens, with the same rules and messages as the API's component and GC-method bodies. */
 
 const text = (max: number) => z.string().trim().max(max, `Use at most ${max} characters`)
-const optionalText = (max: number) => text(max).nullable().optional().transform((v) => (v ? v : null))
+const optionalText = (max: number) =>
+  text(max)
+    .nullable()
+    .optional()
+    .transform((v) => (v ? v : null))
 
 /** CAS registry number as digits in three groups; the database also checks the check digit. */
-export const casNumberSchema = z.string().trim().regex(/^\d{2,7}-\d{2}-\d$/, 'Write the CAS number as digits in three groups, e.g. 67-64-1')
+export const casNumberSchema = z
+  .string()
+  .trim()
+  .regex(/^\d{2,7}-\d{2}-\d$/, 'Write the CAS number as digits in three groups, e.g. 67-64-1')
 
 /** The CAS check digit: Σ(position × digit) of the other digits, counted from the right, mod 10 (common practice, no source). */
 export function casCheckDigitOk(cas: string): boolean {
@@ -19,7 +26,10 @@ export function casCheckDigitOk(cas: string): boolean {
 export const componentFormSchema = z.object({
   name: text(120).min(1, 'Enter a name'),
   casNumber: z
-    .union([casNumberSchema.refine(casCheckDigitOk, 'The CAS number is not valid (its check digit does not match).'), z.literal('')])
+    .union([
+      casNumberSchema.refine(casCheckDigitOk, 'The CAS number is not valid (its check digit does not match).'),
+      z.literal(''),
+    ])
     .nullable()
     .transform((v) => (v ? v : null)),
   formula: optionalText(60),
@@ -43,8 +53,10 @@ export const antoineFormSchema = z
     preferred: z.boolean(),
   })
   .superRefine((v, ctx) => {
-    if ((v.rangeMin === null) !== (v.rangeMax === null)) ctx.addIssue({ code: 'custom', path: ['rangeMax'], message: 'Give both ends of the range, or neither' })
-    else if (v.rangeMin !== null && v.rangeMax !== null && !(v.rangeMin < v.rangeMax)) ctx.addIssue({ code: 'custom', path: ['rangeMax'], message: 'The range must run from low to high' })
+    if ((v.rangeMin === null) !== (v.rangeMax === null))
+      ctx.addIssue({ code: 'custom', path: ['rangeMax'], message: 'Give both ends of the range, or neither' })
+    else if (v.rangeMin !== null && v.rangeMax !== null && !(v.rangeMin < v.rangeMax))
+      ctx.addIssue({ code: 'custom', path: ['rangeMax'], message: 'The range must run from low to high' })
   })
 export type AntoineForm = z.output<typeof antoineFormSchema>
 

@@ -11,7 +11,11 @@ import { z } from 'zod'
 export const labId = (what: string) => z.string().uuid(`Not a ${what} id`)
 
 const text = (max: number) => z.string().trim().max(max)
-const optionalText = (max: number) => text(max).nullable().optional().transform((v) => (v === '' ? null : v ?? null))
+const optionalText = (max: number) =>
+  text(max)
+    .nullable()
+    .optional()
+    .transform((v) => (v === '' ? null : (v ?? null)))
 const rowVersion = z.number().int().min(1)
 
 /** The states of a data set version, in workflow order. */
@@ -35,10 +39,18 @@ export const pressureWithUnitSchema = z.object({
   unit: z.enum(PRESSURE_UNITS),
 })
 /** A temperature as typed, with its unit; the absolute-zero check needs the unit, so it is made on the pair. */
-export const temperatureWithUnitSchema = z.object({ value: z.number(), unit: z.enum(TEMPERATURE_UNITS) })
-  .refine((t) => (t.unit === 'K' ? t.value : t.value + 273.15) > 0, { message: 'Temperature must be above absolute zero', path: ['value'] })
+export const temperatureWithUnitSchema = z
+  .object({ value: z.number(), unit: z.enum(TEMPERATURE_UNITS) })
+  .refine((t) => (t.unit === 'K' ? t.value : t.value + 273.15) > 0, {
+    message: 'Temperature must be above absolute zero',
+    path: ['value'],
+  })
 
-const casNumber = z.string().trim().regex(/^\d{2,7}-\d{2}-\d$/, 'Write the CAS number as digits in three groups, e.g. 67-64-1').nullable()
+const casNumber = z
+  .string()
+  .trim()
+  .regex(/^\d{2,7}-\d{2}-\d$/, 'Write the CAS number as digits in three groups, e.g. 67-64-1')
+  .nullable()
 
 /** POST /api/components. molarMass in g/mol, liquidMolarVolume in cm³/mol. */
 export const componentSchema = z.object({
@@ -46,7 +58,12 @@ export const componentSchema = z.object({
   casNumber: casNumber.optional().transform((v) => v ?? null),
   formula: optionalText(60),
   molarMass: z.number().positive('Molar mass must be positive (g/mol)'),
-  liquidMolarVolume: z.number().positive('Liquid molar volume must be positive (cm³/mol)').nullable().optional().transform((v) => v ?? null),
+  liquidMolarVolume: z
+    .number()
+    .positive('Liquid molar volume must be positive (cm³/mol)')
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
 })
 /** PATCH /api/components/:id (send the rowVersion you loaded). */
 export const componentPatchSchema = z.object({
@@ -58,14 +75,29 @@ export const componentPatchSchema = z.object({
   liquidMolarVolume: z.number().positive().nullable().optional(),
 })
 
-const range = z.tuple([z.number(), z.number()]).refine(([a, b]) => a < b, 'The range must run from low to high').optional()
+const range = z
+  .tuple([z.number(), z.number()])
+  .refine(([a, b]) => a < b, 'The range must run from low to high')
+  .optional()
 /** A vapour-pressure correlation in the form and units it was published in (range in its temperature unit). */
 export const vaporPressureModelSchema = z.discriminatedUnion('kind', [
   z.object({
-    kind: z.literal('antoine'), A: z.number(), B: z.number(), C: z.number(), log: z.enum(['log10', 'ln']),
-    pressureUnit: z.enum(['Pa', 'kPa', 'bar', 'mmHg', 'atm']), temperatureUnit: z.enum(['C', 'K']), range,
+    kind: z.literal('antoine'),
+    A: z.number(),
+    B: z.number(),
+    C: z.number(),
+    log: z.enum(['log10', 'ln']),
+    pressureUnit: z.enum(['Pa', 'kPa', 'bar', 'mmHg', 'atm']),
+    temperatureUnit: z.enum(['C', 'K']),
+    range,
   }),
-  z.object({ kind: z.literal('clausius-clapeyron'), Tref: z.number().positive(), Pref: z.number().positive(), dHvap: z.number().positive(), range }),
+  z.object({
+    kind: z.literal('clausius-clapeyron'),
+    Tref: z.number().positive(),
+    Pref: z.number().positive(),
+    dHvap: z.number().positive(),
+    range,
+  }),
 ])
 /** POST /api/components/:id/vapor-pressure-sets. */
 export const vaporPressureSetSchema = z.object({
@@ -81,7 +113,11 @@ export const pureMeasurementSchema = z.object({
 })
 
 /** POST /api/systems (component 1 is the lighter one by convention). */
-export const systemSchema = z.object({ component1Id: labId('component'), component2Id: labId('component'), notes: optionalText(1000) })
+export const systemSchema = z.object({
+  component1Id: labId('component'),
+  component2Id: labId('component'),
+  notes: optionalText(1000),
+})
 
 /** POST /api/gc-methods. */
 export const gcMethodSchema = z.object({
@@ -109,11 +145,16 @@ export const dataSetPatchSchema = z.object({
 })
 
 /** PATCH /api/data-sets/:id/points/:pointId: exclude (a reason is required) or include a point. */
-export const exclusionSchema = z.object({
-  rowVersion,
-  excluded: z.boolean(),
-  reason: z.string().trim().max(1000).nullable().optional(),
-}).refine((v) => !v.excluded || (v.reason && v.reason.length > 0), { message: 'Give a reason for excluding this point', path: ['reason'] })
+export const exclusionSchema = z
+  .object({
+    rowVersion,
+    excluded: z.boolean(),
+    reason: z.string().trim().max(1000).nullable().optional(),
+  })
+  .refine((v) => !v.excluded || (v.reason && v.reason.length > 0), {
+    message: 'Give a reason for excluding this point',
+    path: ['reason'],
+  })
 
 /**
  * NRTL's non-randomness α when none is given: 0.3, the usual choice when nothing better is known
@@ -179,9 +220,15 @@ export const nextCompositionsQuerySchema = z.object({
   pressure: queryPressure.pressure.optional(),
   unit: queryPressure.unit,
   count: z.coerce.number().int().min(1).max(20).default(5),
-  criterion: z.enum(SUGGESTION_CRITERIA, { error: "The criterion must be 'sigma-y' or 'd-optimal'" }).default('sigma-y'),
+  criterion: z
+    .enum(SUGGESTION_CRITERIA, { error: "The criterion must be 'sigma-y' or 'd-optimal'" })
+    .default('sigma-y'),
 })
 /** GET /api/data-sets/:id/pure-component-check query: agreement asked of a pure boiling point, K (default 0.3 K). */
 export const pureComponentCheckQuerySchema = z.object({
-  toleranceK: z.coerce.number().positive('The tolerance must be positive (K)').max(10, 'Use a tolerance of at most 10 K').optional(),
+  toleranceK: z.coerce
+    .number()
+    .positive('The tolerance must be positive (K)')
+    .max(10, 'Use a tolerance of at most 10 K')
+    .optional(),
 })

@@ -93,38 +93,73 @@ function scipyComparison(points: BinaryPoint[], ours30: { wall: number; cpu: num
   const vp = nrtl.vaporPressure.map(compileVaporPressure).map((v) => [v.a, v.b, v.c])
   const input = JSON.stringify({
     points: points.map((p) => ({ T: p.T, lnP: Math.log(p.P), x1: p.x1, y1: p.y1 })),
-    vp, alpha: pw.alpha, sigmaT: 0.1, sigmaY: 0.005, start: [0, 0], repeats: 15,
+    vp,
+    alpha: pw.alpha,
+    sigmaT: 0.1,
+    sigmaY: 0.005,
+    start: [0, 0],
+    repeats: 15,
   })
   const run = spawnSync('python3', [script], { input, encoding: 'utf8' })
   if (run.status !== 0) {
-    console.log(`  scipy comparison skipped (python3 with scipy not available): ${(run.stderr || String(run.error)).split('\n')[0]}`)
+    console.log(
+      `  scipy comparison skipped (python3 with scipy not available): ${(run.stderr || String(run.error)).split('\n')[0]}`,
+    )
     return
   }
-  const sp = JSON.parse(run.stdout) as { medianMs: number; cpuMs: number; params: number[]; cost: number; nfev: number; success: boolean }
+  const sp = JSON.parse(run.stdout) as {
+    medianMs: number
+    cpuMs: number
+    params: number[]
+    cost: number
+    nfev: number
+    success: boolean
+  }
   const ours = fit.parameters.map((p) => p.value)
-  const same = sp.params.every((v, j) => Math.abs(v - ours[j]) <= 1e-4 * Math.max(1, Math.abs(ours[j]))) && Math.abs(sp.cost - fit.objective) <= 1e-6 * fit.objective
-  console.log(`  scipy least_squares (MINPACK lm, one start at b = 0, 0): ${sp.medianMs.toFixed(2)} ms wall median, ${sp.cpuMs.toFixed(2)} ms CPU, ${sp.nfev} evaluations`)
-  console.log(`  Ebullio fitBinary (multi-start):                      ${ours30.wall.toFixed(3)} ms wall median, ${ours30.cpu.toFixed(3)} ms CPU`)
+  const same =
+    sp.params.every((v, j) => Math.abs(v - ours[j]) <= 1e-4 * Math.max(1, Math.abs(ours[j]))) &&
+    Math.abs(sp.cost - fit.objective) <= 1e-6 * fit.objective
+  console.log(
+    `  scipy least_squares (MINPACK lm, one start at b = 0, 0): ${sp.medianMs.toFixed(2)} ms wall median, ${sp.cpuMs.toFixed(2)} ms CPU, ${sp.nfev} evaluations`,
+  )
+  console.log(
+    `  Ebullio fitBinary (multi-start):                      ${ours30.wall.toFixed(3)} ms wall median, ${ours30.cpu.toFixed(3)} ms CPU`,
+  )
   const ratio = sp.medianMs / ours30.wall
-  console.log(`  ratio ${ratio.toFixed(1)}× by wall clock, ${(sp.cpuMs / ours30.cpu).toFixed(1)}× by CPU time (target, wall clock ≥ 20×, ${ratio >= 20 ? 'met' : 'MISSED'}); same optimum: ${same ? 'yes' : 'NO'}`)
-  console.log(`    Ebullio b12 = ${ours[0].toFixed(4)}, b21 = ${ours[1].toFixed(4)} J/mol, objective ${fit.objective.toFixed(6)}`)
-  console.log(`    scipy   b12 = ${sp.params[0].toFixed(4)}, b21 = ${sp.params[1].toFixed(4)} J/mol, objective ${sp.cost.toFixed(6)}`)
+  console.log(
+    `  ratio ${ratio.toFixed(1)}× by wall clock, ${(sp.cpuMs / ours30.cpu).toFixed(1)}× by CPU time (target, wall clock ≥ 20×, ${ratio >= 20 ? 'met' : 'MISSED'}); same optimum: ${same ? 'yes' : 'NO'}`,
+  )
+  console.log(
+    `    Ebullio b12 = ${ours[0].toFixed(4)}, b21 = ${ours[1].toFixed(4)} J/mol, objective ${fit.objective.toFixed(6)}`,
+  )
+  console.log(
+    `    scipy   b12 = ${sp.params[0].toFixed(4)}, b21 = ${sp.params[1].toFixed(4)} J/mol, objective ${sp.cost.toFixed(6)}`,
+  )
 }
 
 async function main(): Promise<void> {
   console.log('Part 1 benchmarks (Node ' + process.version + ', one thread)')
-  for (const [name, system, target] of [['ideal (benzene–toluene)', ideal, 2e6], ['NRTL (1-propanol–water)', nrtl, 1e6]] as const) {
+  for (const [name, system, target] of [
+    ['ideal (benzene–toluene)', ideal, 2e6],
+    ['NRTL (1-propanol–water)', nrtl, 1e6],
+  ] as const) {
     const { rate, cpuRate, iterations } = solvesPerSecond(system)
     const n = (v: number) => Math.round(v).toLocaleString('en-US')
-    console.log(`  bubbleTemperature, ${name}: ${n(cpuRate)} solves per CPU-second (${n(rate)} by wall clock), ${iterations.toFixed(2)} Newton iterations; target ≥ ${n(target)} ${cpuRate >= target ? 'met' : 'MISSED'}`)
+    console.log(
+      `  bubbleTemperature, ${name}: ${n(cpuRate)} solves per CPU-second (${n(rate)} by wall clock), ${iterations.toFixed(2)} Newton iterations; target ≥ ${n(target)} ${cpuRate >= target ? 'met' : 'MISSED'}`,
+    )
   }
   const points30 = dataSet(30)
   const ms30 = fitMs(points30, 300)
-  console.log(`  30-point NRTL bubble-point fit: ${ms30.wall.toFixed(3)} ms wall median, ${ms30.cpu.toFixed(3)} ms CPU; target < 2 ms ${ms30.wall < 2 ? 'met' : 'MISSED'}`)
+  console.log(
+    `  30-point NRTL bubble-point fit: ${ms30.wall.toFixed(3)} ms wall median, ${ms30.cpu.toFixed(3)} ms CPU; target < 2 ms ${ms30.wall < 2 ? 'met' : 'MISSED'}`,
+  )
   console.log('  fit time against point count (NRTL; wall median, CPU per fit):')
   for (const n of [10, 30, 100, 300, 1000]) {
     const ms = fitMs(dataSet(n), n >= 300 ? 30 : 100)
-    console.log(`    ${String(n).padStart(5)} points: ${ms.wall.toFixed(3).padStart(8)} ms, ${ms.cpu.toFixed(3).padStart(8)} ms CPU  (${((1000 * ms.cpu) / n).toFixed(1)} µs CPU per point)`)
+    console.log(
+      `    ${String(n).padStart(5)} points: ${ms.wall.toFixed(3).padStart(8)} ms, ${ms.cpu.toFixed(3).padStart(8)} ms CPU  (${((1000 * ms.cpu) / n).toFixed(1)} µs CPU per point)`,
+    )
   }
   scipyComparison(points30, ms30)
   const design = new URL('./design.ts', import.meta.url)

@@ -19,7 +19,10 @@ export async function waitForMail(to: string, subject: RegExp, timeoutMs = 20_00
   try {
     const until = Date.now() + timeoutMs
     while (Date.now() < until) {
-      const r = await client.query('select subject, body_text from captured_mail where envelope_to = $1 order by id desc limit 5', [to])
+      const r = await client.query(
+        'select subject, body_text from captured_mail where envelope_to = $1 order by id desc limit 5',
+        [to],
+      )
       const hit = r.rows.find((m) => subject.test(m.subject))
       if (hit) return hit.body_text as string
       await new Promise((res) => setTimeout(res, 300))

@@ -34,8 +34,16 @@ export async function clickLiquidPoint(page: Page, plot: Locator, label: string,
   const x = box.x + 62 + x1 * (box.width - 62 - 24)
   for (let y = box.y + 30; y < box.y + box.height - 50; y += 3) {
     await page.mouse.move(x, y)
-    const tip = plot.locator('div').filter({ hasText: label }).filter({ hasText: /liquid/i })
-    if (await tip.first().isVisible().catch(() => false)) {
+    const tip = plot
+      .locator('div')
+      .filter({ hasText: label })
+      .filter({ hasText: /liquid/i })
+    if (
+      await tip
+        .first()
+        .isVisible()
+        .catch(() => false)
+    ) {
       await page.mouse.click(x, y)
       return
     }

@@ -18,10 +18,20 @@ export function fromPostgres(err: unknown): AppError | null {
     case '23505':
       return new AppError(409, 'duplicate', 'This would duplicate an existing record.', where)
     case '23503':
-      return new AppError(409, 'reference_conflict', 'This refers to a record that does not exist, or is still referred to by another record.', where)
+      return new AppError(
+        409,
+        'reference_conflict',
+        'This refers to a record that does not exist, or is still referred to by another record.',
+        where,
+      )
     case '23514':
     case '23502':
-      return new AppError(422, 'rule_violated', 'A value breaks a rule of the database (missing, or out of its allowed range).', where)
+      return new AppError(
+        422,
+        'rule_violated',
+        'A value breaks a rule of the database (missing, or out of its allowed range).',
+        where,
+      )
     case 'P0001':
       return new AppError(409, 'refused_by_database', e.message ?? 'The database refused this change.')
     case '22P02':

@@ -7,7 +7,11 @@ import type { Database } from '../db/index.js'
  * A local SMTP server for development and tests: it accepts every message on loopback and stores it in
  * `captured_mail`, where admins can read it in the app and tests can follow its links.
  */
-export async function startFakeSmtp(db: Kysely<Database>, port: number, host = '127.0.0.1'): Promise<{ port: number; close: () => Promise<void> }> {
+export async function startFakeSmtp(
+  db: Kysely<Database>,
+  port: number,
+  host = '127.0.0.1',
+): Promise<{ port: number; close: () => Promise<void> }> {
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],

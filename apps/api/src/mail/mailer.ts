@@ -39,7 +39,11 @@ export class Mailer {
       for (const m of batch) {
         try {
           await this.transport.sendMail({ from: this.from, to: m.to_address, subject: m.subject, text: m.body_text })
-          await this.db.updateTable('mail_outbox').set({ sent_at: new Date(), attempts: sql`attempts + 1` }).where('id', '=', m.id).execute()
+          await this.db
+            .updateTable('mail_outbox')
+            .set({ sent_at: new Date(), attempts: sql`attempts + 1` })
+            .where('id', '=', m.id)
+            .execute()
           sent++
         } catch (err) {
           const waitMinutes = Math.min(60, 2 ** m.attempts)
@@ -59,7 +63,10 @@ export class Mailer {
   }
 
   start(intervalMs = 2000): void {
-    this.timer ??= setInterval(() => void this.deliverPending().catch((err) => this.log?.error({ err }, 'outbox')), intervalMs)
+    this.timer ??= setInterval(
+      () => void this.deliverPending().catch((err) => this.log?.error({ err }, 'outbox')),
+      intervalMs,
+    )
     this.timer.unref()
   }
 

@@ -13,6 +13,10 @@ export async function enqueueMail(db: Db, m: MailMessage): Promise<void> {
 
 /** Queue a message only when the user wants mail (their notification preference). */
 export async function notifyUser(db: Db, userId: string, m: Omit<MailMessage, 'to'>): Promise<void> {
-  const u = await db.selectFrom('app_user').select(['email', 'notify_mail', 'active']).where('id', '=', userId).executeTakeFirst()
+  const u = await db
+    .selectFrom('app_user')
+    .select(['email', 'notify_mail', 'active'])
+    .where('id', '=', userId)
+    .executeTakeFirst()
   if (u && u.active && u.notify_mail) await enqueueMail(db, { ...m, to: u.email })
 }

@@ -27,21 +27,47 @@ export interface SignedOutliers {
   rule: string
 }
 
-export async function insertApproval(db: Db, a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName' | 'outliers'> & { outliers?: SignedOutliers | null }): Promise<string> {
-  const r = await db.insertInto('approval').values({
-    data_set_id: a.dataSetId, signer_id: a.signerId, meaning: a.meaning, reason: a.reason, digest: a.digest,
-    self_approval: a.selfApproval, override_reason: a.overrideReason, outliers: a.outliers ? JSON.stringify(a.outliers) : null,
-  }).returning('id').executeTakeFirstOrThrow()
+export async function insertApproval(
+  db: Db,
+  a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName' | 'outliers'> & { outliers?: SignedOutliers | null },
+): Promise<string> {
+  const r = await db
+    .insertInto('approval')
+    .values({
+      data_set_id: a.dataSetId,
+      signer_id: a.signerId,
+      meaning: a.meaning,
+      reason: a.reason,
+      digest: a.digest,
+      self_approval: a.selfApproval,
+      override_reason: a.overrideReason,
+      outliers: a.outliers ? JSON.stringify(a.outliers) : null,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow()
   return r.id
 }
 
 export async function listApprovals(db: Db, dataSetId: string): Promise<ApprovalRecord[]> {
-  const rows = await db.selectFrom('approval').innerJoin('app_user', 'app_user.id', 'approval.signer_id')
-    .selectAll('approval').select('app_user.display_name').where('approval.data_set_id', '=', dataSetId)
-    .orderBy('approval.signed_at').execute()
+  const rows = await db
+    .selectFrom('approval')
+    .innerJoin('app_user', 'app_user.id', 'approval.signer_id')
+    .selectAll('approval')
+    .select('app_user.display_name')
+    .where('approval.data_set_id', '=', dataSetId)
+    .orderBy('approval.signed_at')
+    .execute()
   return rows.map((r) => ({
-    id: r.id, dataSetId: r.data_set_id, signerId: r.signer_id, signerName: r.display_name, meaning: r.meaning, reason: r.reason,
-    digest: r.digest, selfApproval: r.self_approval, overrideReason: r.override_reason, signedAt: r.signed_at,
+    id: r.id,
+    dataSetId: r.data_set_id,
+    signerId: r.signer_id,
+    signerName: r.display_name,
+    meaning: r.meaning,
+    reason: r.reason,
+    digest: r.digest,
+    selfApproval: r.self_approval,
+    overrideReason: r.override_reason,
+    signedAt: r.signed_at,
     outliers: (r.outliers as SignedOutliers | null) ?? null,
   }))
 }

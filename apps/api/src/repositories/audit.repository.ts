@@ -88,12 +88,25 @@ export async function listAudit(db: Db, f: AuditQuery): Promise<{ items: AuditRe
   if (f.after) q = q.where('audit_log.at', '>=', f.after)
   if (f.before) q = q.where('audit_log.at', '<', f.before)
   const total = await q.select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow()
-  const rows = await q.selectAll('audit_log').select('app_user.display_name')
-    .orderBy('audit_log.id', f.order).limit(f.limit).offset(f.offset).execute()
+  const rows = await q
+    .selectAll('audit_log')
+    .select('app_user.display_name')
+    .orderBy('audit_log.id', f.order)
+    .limit(f.limit)
+    .offset(f.offset)
+    .execute()
   return {
     items: rows.map((r) => ({
-      id: String(r.id), at: r.at, actorId: r.actor_id, actorName: r.display_name, entity: r.entity, entityId: r.entity_id,
-      action: r.action, dataSetId: r.data_set_id, before: r.before, after: r.after,
+      id: String(r.id),
+      at: r.at,
+      actorId: r.actor_id,
+      actorName: r.display_name,
+      entity: r.entity,
+      entityId: r.entity_id,
+      action: r.action,
+      dataSetId: r.data_set_id,
+      before: r.before,
+      after: r.after,
     })),
     total: Number(total.n),
   }

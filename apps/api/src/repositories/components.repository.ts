@@ -10,19 +10,38 @@ export type ComponentRecord = ComponentDto<Date>
 export type VaporPressureRecord = VaporPressureSetDto<Date>
 
 export const toComponent = (c: Component): ComponentRecord => ({
-  id: c.id, name: c.name, casNumber: c.cas_number, formula: c.formula, molarMass: c.molar_mass,
-  liquidMolarVolume: c.liquid_molar_volume, rowVersion: c.row_version, createdAt: c.created_at,
+  id: c.id,
+  name: c.name,
+  casNumber: c.cas_number,
+  formula: c.formula,
+  molarMass: c.molar_mass,
+  liquidMolarVolume: c.liquid_molar_volume,
+  rowVersion: c.row_version,
+  createdAt: c.created_at,
 })
 
 export const toVaporPressure = (v: VaporPressureSet): VaporPressureRecord => ({
-  id: v.id, componentId: v.component_id, kind: v.kind, parameters: v.parameters, rangeMin: v.range_min,
-  rangeMax: v.range_max, rangeUnit: v.range_unit, source: v.source, preferred: v.preferred,
-  enteredBy: v.entered_by, createdAt: v.created_at,
+  id: v.id,
+  componentId: v.component_id,
+  kind: v.kind,
+  parameters: v.parameters,
+  rangeMin: v.range_min,
+  rangeMax: v.range_max,
+  rangeUnit: v.range_unit,
+  source: v.source,
+  preferred: v.preferred,
+  enteredBy: v.entered_by,
+  createdAt: v.created_at,
 })
 
 const toMeasurement = (m: PureMeasurement) => ({
-  id: m.id, componentId: m.component_id, temperatureK: m.temperature_k, pressurePa: m.pressure_pa,
-  note: m.note, measuredBy: m.measured_by, createdAt: m.created_at,
+  id: m.id,
+  componentId: m.component_id,
+  temperatureK: m.temperature_k,
+  pressurePa: m.pressure_pa,
+  note: m.note,
+  measuredBy: m.measured_by,
+  createdAt: m.created_at,
 })
 
 export interface ComponentQuery {
@@ -52,24 +71,47 @@ export async function findComponentByName(db: Db, name: string): Promise<Compone
   return row && toComponent(row)
 }
 
-export async function insertComponent(db: Db, c: Omit<ComponentRecord, 'id' | 'rowVersion' | 'createdAt'>, by: string | null): Promise<ComponentRecord> {
-  const row = await db.insertInto('component').values({
-    name: c.name, cas_number: c.casNumber, formula: c.formula, molar_mass: c.molarMass,
-    liquid_molar_volume: c.liquidMolarVolume, created_by: by,
-  }).returningAll().executeTakeFirstOrThrow()
+export async function insertComponent(
+  db: Db,
+  c: Omit<ComponentRecord, 'id' | 'rowVersion' | 'createdAt'>,
+  by: string | null,
+): Promise<ComponentRecord> {
+  const row = await db
+    .insertInto('component')
+    .values({
+      name: c.name,
+      cas_number: c.casNumber,
+      formula: c.formula,
+      molar_mass: c.molarMass,
+      liquid_molar_volume: c.liquidMolarVolume,
+      created_by: by,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toComponent(row)
 }
 
 /** Update when the row version still matches; undefined when it does not (a stale write). */
-export async function updateComponent(db: Db, id: string, rowVersion: number, patch: Partial<Omit<ComponentRecord, 'id' | 'rowVersion' | 'createdAt'>>): Promise<ComponentRecord | undefined> {
-  const row = await db.updateTable('component').set({
-    ...(patch.name !== undefined && { name: patch.name }),
-    ...(patch.casNumber !== undefined && { cas_number: patch.casNumber }),
-    ...(patch.formula !== undefined && { formula: patch.formula }),
-    ...(patch.molarMass !== undefined && { molar_mass: patch.molarMass }),
-    ...(patch.liquidMolarVolume !== undefined && { liquid_molar_volume: patch.liquidMolarVolume }),
-    row_version: sql`row_version + 1`,
-  }).where('id', '=', id).where('row_version', '=', rowVersion).returningAll().executeTakeFirst()
+export async function updateComponent(
+  db: Db,
+  id: string,
+  rowVersion: number,
+  patch: Partial<Omit<ComponentRecord, 'id' | 'rowVersion' | 'createdAt'>>,
+): Promise<ComponentRecord | undefined> {
+  const row = await db
+    .updateTable('component')
+    .set({
+      ...(patch.name !== undefined && { name: patch.name }),
+      ...(patch.casNumber !== undefined && { cas_number: patch.casNumber }),
+      ...(patch.formula !== undefined && { formula: patch.formula }),
+      ...(patch.molarMass !== undefined && { molar_mass: patch.molarMass }),
+      ...(patch.liquidMolarVolume !== undefined && { liquid_molar_volume: patch.liquidMolarVolume }),
+      row_version: sql`row_version + 1`,
+    })
+    .where('id', '=', id)
+    .where('row_version', '=', rowVersion)
+    .returningAll()
+    .executeTakeFirst()
   return row && toComponent(row)
 }
 
@@ -78,37 +120,79 @@ export async function deleteComponent(db: Db, id: string): Promise<void> {
 }
 
 export async function componentInUse(db: Db, id: string): Promise<boolean> {
-  const r = await db.selectFrom('binary_system').select('id')
-    .where((eb) => eb.or([eb('component1_id', '=', id), eb('component2_id', '=', id)])).executeTakeFirst()
+  const r = await db
+    .selectFrom('binary_system')
+    .select('id')
+    .where((eb) => eb.or([eb('component1_id', '=', id), eb('component2_id', '=', id)]))
+    .executeTakeFirst()
   return !!r
 }
 
 export async function listVaporPressureSets(db: Db, componentIds: string[]): Promise<VaporPressureRecord[]> {
   if (componentIds.length === 0) return []
-  const rows = await db.selectFrom('vapor_pressure_set').selectAll().where('component_id', 'in', componentIds)
-    .orderBy('preferred', 'desc').orderBy('created_at', 'desc').execute()
+  const rows = await db
+    .selectFrom('vapor_pressure_set')
+    .selectAll()
+    .where('component_id', 'in', componentIds)
+    .orderBy('preferred', 'desc')
+    .orderBy('created_at', 'desc')
+    .execute()
   return rows.map(toVaporPressure)
 }
 
-export async function insertVaporPressureSet(db: Db, v: Omit<VaporPressureRecord, 'id' | 'createdAt'>): Promise<VaporPressureRecord> {
+export async function insertVaporPressureSet(
+  db: Db,
+  v: Omit<VaporPressureRecord, 'id' | 'createdAt'>,
+): Promise<VaporPressureRecord> {
   if (v.preferred) {
-    await db.updateTable('vapor_pressure_set').set({ preferred: false }).where('component_id', '=', v.componentId).execute()
+    await db
+      .updateTable('vapor_pressure_set')
+      .set({ preferred: false })
+      .where('component_id', '=', v.componentId)
+      .execute()
   }
-  const row = await db.insertInto('vapor_pressure_set').values({
-    component_id: v.componentId, kind: v.kind, parameters: JSON.stringify(v.parameters), range_min: v.rangeMin,
-    range_max: v.rangeMax, range_unit: v.rangeUnit, source: v.source, preferred: v.preferred, entered_by: v.enteredBy,
-  }).returningAll().executeTakeFirstOrThrow()
+  const row = await db
+    .insertInto('vapor_pressure_set')
+    .values({
+      component_id: v.componentId,
+      kind: v.kind,
+      parameters: JSON.stringify(v.parameters),
+      range_min: v.rangeMin,
+      range_max: v.rangeMax,
+      range_unit: v.rangeUnit,
+      source: v.source,
+      preferred: v.preferred,
+      entered_by: v.enteredBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toVaporPressure(row)
 }
 
 export async function listPureMeasurements(db: Db, componentId: string) {
-  const rows = await db.selectFrom('pure_measurement').selectAll().where('component_id', '=', componentId).orderBy('temperature_k').execute()
+  const rows = await db
+    .selectFrom('pure_measurement')
+    .selectAll()
+    .where('component_id', '=', componentId)
+    .orderBy('temperature_k')
+    .execute()
   return rows.map(toMeasurement)
 }
 
-export async function insertPureMeasurement(db: Db, m: { componentId: string; temperatureK: number; pressurePa: number; note: string | null; measuredBy: string }) {
-  const row = await db.insertInto('pure_measurement').values({
-    component_id: m.componentId, temperature_k: m.temperatureK, pressure_pa: m.pressurePa, note: m.note, measured_by: m.measuredBy,
-  }).returningAll().executeTakeFirstOrThrow()
+export async function insertPureMeasurement(
+  db: Db,
+  m: { componentId: string; temperatureK: number; pressurePa: number; note: string | null; measuredBy: string },
+) {
+  const row = await db
+    .insertInto('pure_measurement')
+    .values({
+      component_id: m.componentId,
+      temperature_k: m.temperatureK,
+      pressure_pa: m.pressurePa,
+      note: m.note,
+      measured_by: m.measuredBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toMeasurement(row)
 }

@@ -7,10 +7,23 @@ import type { DataSet, DataSetState } from '../db/lab-tables.js'
 export type DataSetRecord = DataSetDto<Date>
 
 export const toDataSet = (d: DataSet): DataSetRecord => ({
-  id: d.id, lineageId: d.lineage_id, version: d.version, previousVersionId: d.previous_version_id, systemId: d.system_id,
-  title: d.title, state: d.state, nominalPressurePa: d.nominal_pressure_pa, apparatusNotes: d.apparatus_notes,
-  projectRef: d.project_ref, recommendedFitId: d.recommended_fit_id, createdBy: d.created_by, createdAt: d.created_at,
-  updatedAt: d.updated_at, submittedAt: d.submitted_at, approvedAt: d.approved_at, supersededAt: d.superseded_at,
+  id: d.id,
+  lineageId: d.lineage_id,
+  version: d.version,
+  previousVersionId: d.previous_version_id,
+  systemId: d.system_id,
+  title: d.title,
+  state: d.state,
+  nominalPressurePa: d.nominal_pressure_pa,
+  apparatusNotes: d.apparatus_notes,
+  projectRef: d.project_ref,
+  recommendedFitId: d.recommended_fit_id,
+  createdBy: d.created_by,
+  createdAt: d.created_at,
+  updatedAt: d.updated_at,
+  submittedAt: d.submitted_at,
+  approvedAt: d.approved_at,
+  supersededAt: d.superseded_at,
   rowVersion: d.row_version,
 })
 
@@ -42,7 +55,8 @@ export interface DataSetListItem extends DataSetRecord {
 
 /** One page of data sets with their system name, author, point count and unresolved comments. */
 export async function listDataSets(db: Db, o: DataSetQuery): Promise<{ items: DataSetListItem[]; total: number }> {
-  let q = db.selectFrom('data_set as d')
+  let q = db
+    .selectFrom('data_set as d')
     .innerJoin('binary_system as s', 's.id', 'd.system_id')
     .innerJoin('component as c1', 'c1.id', 's.component1_id')
     .innerJoin('component as c2', 'c2.id', 's.component2_id')
@@ -58,20 +72,49 @@ export async function listDataSets(db: Db, o: DataSetQuery): Promise<{ items: Da
   if (o.updatedBefore) q = q.where('d.updated_at', '<', o.updatedBefore)
   if (o.q) {
     const like = `%${o.q}%`
-    q = q.where((eb) => eb.or([eb('d.title', 'ilike', like), eb('d.project_ref', 'ilike', like), eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like)]))
+    q = q.where((eb) =>
+      eb.or([
+        eb('d.title', 'ilike', like),
+        eb('d.project_ref', 'ilike', like),
+        eb('c1.name', 'ilike', like),
+        eb('c2.name', 'ilike', like),
+      ]),
+    )
   }
   const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const rows = await q.selectAll('d')
+  const rows = await q
+    .selectAll('d')
     .select([
       sql<string>`c1.name || ' / ' || c2.name`.as('system_name'),
       'u.display_name as author_name',
-      (eb) => eb.selectFrom('point').select(sql<number>`count(*)::int`.as('n')).whereRef('point.data_set_id', '=', 'd.id').as('point_count'),
-      (eb) => eb.selectFrom('comment').select(sql<number>`count(*)::int`.as('n')).whereRef('comment.data_set_id', '=', 'd.id')
-        .where('comment.resolved', '=', false).where('comment.parent_id', 'is', null).as('open_comments'),
+      (eb) =>
+        eb
+          .selectFrom('point')
+          .select(sql<number>`count(*)::int`.as('n'))
+          .whereRef('point.data_set_id', '=', 'd.id')
+          .as('point_count'),
+      (eb) =>
+        eb
+          .selectFrom('comment')
+          .select(sql<number>`count(*)::int`.as('n'))
+          .whereRef('comment.data_set_id', '=', 'd.id')
+          .where('comment.resolved', '=', false)
+          .where('comment.parent_id', 'is', null)
+          .as('open_comments'),
     ])
-    .orderBy(`d.${o.sort}`, o.order).orderBy('d.id').limit(o.limit).offset(o.offset).execute()
+    .orderBy(`d.${o.sort}`, o.order)
+    .orderBy('d.id')
+    .limit(o.limit)
+    .offset(o.offset)
+    .execute()
   return {
-    items: rows.map((r) => ({ ...toDataSet(r), systemName: r.system_name, authorName: r.author_name, pointCount: r.point_count ?? 0, openComments: r.open_comments ?? 0 })),
+    items: rows.map((r) => ({
+      ...toDataSet(r),
+      systemName: r.system_name,
+      authorName: r.author_name,
+      pointCount: r.point_count ?? 0,
+      openComments: r.open_comments ?? 0,
+    })),
     total: Number(total.n),
   }
 }
@@ -88,39 +131,87 @@ export async function lockDataSet(db: Db, id: string): Promise<DataSetRecord | u
 }
 
 export async function listVersions(db: Db, lineageId: string): Promise<DataSetRecord[]> {
-  return (await db.selectFrom('data_set').selectAll().where('lineage_id', '=', lineageId).orderBy('version').execute()).map(toDataSet)
+  return (
+    await db.selectFrom('data_set').selectAll().where('lineage_id', '=', lineageId).orderBy('version').execute()
+  ).map(toDataSet)
 }
 
-export async function insertDataSet(db: Db, d: { id?: string; lineageId?: string; version?: number; previousVersionId?: string | null; systemId: string; title: string; nominalPressurePa: number; apparatusNotes: string | null; projectRef: string | null; createdBy: string }): Promise<DataSetRecord> {
+export async function insertDataSet(
+  db: Db,
+  d: {
+    id?: string
+    lineageId?: string
+    version?: number
+    previousVersionId?: string | null
+    systemId: string
+    title: string
+    nominalPressurePa: number
+    apparatusNotes: string | null
+    projectRef: string | null
+    createdBy: string
+  },
+): Promise<DataSetRecord> {
   const id = d.id ?? crypto.randomUUID()
-  const r = await db.insertInto('data_set').values({
-    id, lineage_id: d.lineageId ?? id, version: d.version ?? 1, previous_version_id: d.previousVersionId ?? null,
-    system_id: d.systemId, title: d.title, nominal_pressure_pa: d.nominalPressurePa, apparatus_notes: d.apparatusNotes,
-    project_ref: d.projectRef, created_by: d.createdBy,
-  }).returningAll().executeTakeFirstOrThrow()
+  const r = await db
+    .insertInto('data_set')
+    .values({
+      id,
+      lineage_id: d.lineageId ?? id,
+      version: d.version ?? 1,
+      previous_version_id: d.previousVersionId ?? null,
+      system_id: d.systemId,
+      title: d.title,
+      nominal_pressure_pa: d.nominalPressurePa,
+      apparatus_notes: d.apparatusNotes,
+      project_ref: d.projectRef,
+      created_by: d.createdBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toDataSet(r)
 }
 
-export type DataSetPatch = Partial<Pick<DataSetRecord, 'title' | 'nominalPressurePa' | 'apparatusNotes' | 'projectRef' | 'state' | 'recommendedFitId' | 'submittedAt' | 'approvedAt' | 'supersededAt'>>
+export type DataSetPatch = Partial<
+  Pick<
+    DataSetRecord,
+    | 'title'
+    | 'nominalPressurePa'
+    | 'apparatusNotes'
+    | 'projectRef'
+    | 'state'
+    | 'recommendedFitId'
+    | 'submittedAt'
+    | 'approvedAt'
+    | 'supersededAt'
+  >
+>
 
 /**
  * Apply a change and bump the row version. With `expectedRowVersion` the write happens only if nobody
  * changed the row since the caller read it; undefined means the write was stale.
  */
-export async function updateDataSet(db: Db, id: string, patch: DataSetPatch, expectedRowVersion?: number): Promise<DataSetRecord | undefined> {
-  let q = db.updateTable('data_set').set({
-    ...(patch.title !== undefined && { title: patch.title }),
-    ...(patch.nominalPressurePa !== undefined && { nominal_pressure_pa: patch.nominalPressurePa }),
-    ...(patch.apparatusNotes !== undefined && { apparatus_notes: patch.apparatusNotes }),
-    ...(patch.projectRef !== undefined && { project_ref: patch.projectRef }),
-    ...(patch.state !== undefined && { state: patch.state }),
-    ...(patch.recommendedFitId !== undefined && { recommended_fit_id: patch.recommendedFitId }),
-    ...(patch.submittedAt !== undefined && { submitted_at: patch.submittedAt }),
-    ...(patch.approvedAt !== undefined && { approved_at: patch.approvedAt }),
-    ...(patch.supersededAt !== undefined && { superseded_at: patch.supersededAt }),
-    updated_at: sql`now()`,
-    row_version: sql`row_version + 1`,
-  }).where('id', '=', id)
+export async function updateDataSet(
+  db: Db,
+  id: string,
+  patch: DataSetPatch,
+  expectedRowVersion?: number,
+): Promise<DataSetRecord | undefined> {
+  let q = db
+    .updateTable('data_set')
+    .set({
+      ...(patch.title !== undefined && { title: patch.title }),
+      ...(patch.nominalPressurePa !== undefined && { nominal_pressure_pa: patch.nominalPressurePa }),
+      ...(patch.apparatusNotes !== undefined && { apparatus_notes: patch.apparatusNotes }),
+      ...(patch.projectRef !== undefined && { project_ref: patch.projectRef }),
+      ...(patch.state !== undefined && { state: patch.state }),
+      ...(patch.recommendedFitId !== undefined && { recommended_fit_id: patch.recommendedFitId }),
+      ...(patch.submittedAt !== undefined && { submitted_at: patch.submittedAt }),
+      ...(patch.approvedAt !== undefined && { approved_at: patch.approvedAt }),
+      ...(patch.supersededAt !== undefined && { superseded_at: patch.supersededAt }),
+      updated_at: sql`now()`,
+      row_version: sql`row_version + 1`,
+    })
+    .where('id', '=', id)
   if (expectedRowVersion !== undefined) q = q.where('row_version', '=', expectedRowVersion)
   const r = await q.returningAll().executeTakeFirst()
   return r && toDataSet(r)

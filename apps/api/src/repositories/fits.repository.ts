@@ -16,16 +16,39 @@ export interface ConsistencyRecord {
 }
 
 export const toFit = (f: Fit): FitRecord => ({
-  id: f.id, dataSetId: f.data_set_id, model: f.model, options: f.options, activity: f.activity, parameters: f.parameters,
-  statistics: f.statistics, residuals: f.residuals, pointIds: f.point_ids, runBy: f.run_by, runAt: f.run_at,
+  id: f.id,
+  dataSetId: f.data_set_id,
+  model: f.model,
+  options: f.options,
+  activity: f.activity,
+  parameters: f.parameters,
+  statistics: f.statistics,
+  residuals: f.residuals,
+  pointIds: f.point_ids,
+  runBy: f.run_by,
+  runAt: f.run_at,
 })
 
 const toConsistency = (c: ConsistencyResult): ConsistencyRecord => ({
-  id: c.id, dataSetId: c.data_set_id, test: c.test, passed: c.passed, result: c.result, runBy: c.run_by, runAt: c.run_at,
+  id: c.id,
+  dataSetId: c.data_set_id,
+  test: c.test,
+  passed: c.passed,
+  result: c.result,
+  runBy: c.run_by,
+  runAt: c.run_at,
 })
 
 export async function listFits(db: Db, dataSetId: string): Promise<FitRecord[]> {
-  return (await db.selectFrom('fit').selectAll().where('data_set_id', '=', dataSetId).orderBy('run_at').orderBy('id').execute()).map(toFit)
+  return (
+    await db
+      .selectFrom('fit')
+      .selectAll()
+      .where('data_set_id', '=', dataSetId)
+      .orderBy('run_at')
+      .orderBy('id')
+      .execute()
+  ).map(toFit)
 }
 
 export async function findFit(db: Db, id: string): Promise<FitRecord | undefined> {
@@ -34,16 +57,31 @@ export async function findFit(db: Db, id: string): Promise<FitRecord | undefined
 }
 
 export async function insertFit(db: Db, f: Omit<FitRecord, 'id' | 'runAt'>): Promise<FitRecord> {
-  const r = await db.insertInto('fit').values({
-    data_set_id: f.dataSetId, model: f.model, options: JSON.stringify(f.options), activity: JSON.stringify(f.activity),
-    parameters: JSON.stringify(f.parameters), statistics: JSON.stringify(f.statistics), residuals: JSON.stringify(f.residuals),
-    point_ids: f.pointIds, run_by: f.runBy,
-  }).returningAll().executeTakeFirstOrThrow()
+  const r = await db
+    .insertInto('fit')
+    .values({
+      data_set_id: f.dataSetId,
+      model: f.model,
+      options: JSON.stringify(f.options),
+      activity: JSON.stringify(f.activity),
+      parameters: JSON.stringify(f.parameters),
+      statistics: JSON.stringify(f.statistics),
+      residuals: JSON.stringify(f.residuals),
+      point_ids: f.pointIds,
+      run_by: f.runBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toFit(r)
 }
 
 /** Copy fits to a new version, remapping point ids; returns old fit id → new fit id. */
-export async function copyFits(db: Db, fromId: string, toId: string, pointMap: Map<string, string>): Promise<Map<string, string>> {
+export async function copyFits(
+  db: Db,
+  fromId: string,
+  toId: string,
+  pointMap: Map<string, string>,
+): Promise<Map<string, string>> {
   const map = new Map<string, string>()
   for (const f of await listFits(db, fromId)) {
     const copy = await insertFit(db, { ...f, dataSetId: toId, pointIds: f.pointIds.map((p) => pointMap.get(p) ?? p) })
@@ -53,12 +91,30 @@ export async function copyFits(db: Db, fromId: string, toId: string, pointMap: M
 }
 
 export async function listConsistency(db: Db, dataSetId: string): Promise<ConsistencyRecord[]> {
-  return (await db.selectFrom('consistency_result').selectAll().where('data_set_id', '=', dataSetId).orderBy('run_at').execute()).map(toConsistency)
+  return (
+    await db
+      .selectFrom('consistency_result')
+      .selectAll()
+      .where('data_set_id', '=', dataSetId)
+      .orderBy('run_at')
+      .execute()
+  ).map(toConsistency)
 }
 
-export async function insertConsistency(db: Db, c: Omit<ConsistencyRecord, 'id' | 'runAt'>): Promise<ConsistencyRecord> {
-  const r = await db.insertInto('consistency_result').values({
-    data_set_id: c.dataSetId, test: c.test, passed: c.passed, result: JSON.stringify(c.result), run_by: c.runBy,
-  }).returningAll().executeTakeFirstOrThrow()
+export async function insertConsistency(
+  db: Db,
+  c: Omit<ConsistencyRecord, 'id' | 'runAt'>,
+): Promise<ConsistencyRecord> {
+  const r = await db
+    .insertInto('consistency_result')
+    .values({
+      data_set_id: c.dataSetId,
+      test: c.test,
+      passed: c.passed,
+      result: JSON.stringify(c.result),
+      run_by: c.runBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return toConsistency(r)
 }

@@ -6,14 +6,24 @@ import { toComponent } from './components.repository.js'
 /** A binary system: component 1 is the lighter (lower-boiling) one by convention (the shared wire type, with Date timestamps). */
 export type SystemRecord = SystemDto<Date>
 
-async function hydrate(db: Db, rows: { id: string; component1_id: string; component2_id: string; notes: string | null; created_at: Date }[]): Promise<SystemRecord[]> {
+async function hydrate(
+  db: Db,
+  rows: { id: string; component1_id: string; component2_id: string; notes: string | null; created_at: Date }[],
+): Promise<SystemRecord[]> {
   const ids = [...new Set(rows.flatMap((r) => [r.component1_id, r.component2_id]))]
   const comps = ids.length ? await db.selectFrom('component').selectAll().where('id', 'in', ids).execute() : []
   const byId = new Map(comps.map((c) => [c.id, toComponent(c)]))
   return rows.map((r) => {
     const c1 = byId.get(r.component1_id)!
     const c2 = byId.get(r.component2_id)!
-    return { id: r.id, component1: c1, component2: c2, name: `${c1.name} / ${c2.name}`, notes: r.notes, createdAt: r.created_at }
+    return {
+      id: r.id,
+      component1: c1,
+      component2: c2,
+      name: `${c1.name} / ${c2.name}`,
+      notes: r.notes,
+      createdAt: r.created_at,
+    }
   })
 }
 
@@ -24,11 +34,16 @@ export async function findSystem(db: Db, id: string): Promise<SystemRecord | und
 
 /** The system made of these two components, whichever way round it was entered. */
 export async function findSystemByPair(db: Db, a: string, b: string): Promise<SystemRecord | undefined> {
-  const row = await db.selectFrom('binary_system').selectAll()
-    .where((eb) => eb.or([
-      eb.and([eb('component1_id', '=', a), eb('component2_id', '=', b)]),
-      eb.and([eb('component1_id', '=', b), eb('component2_id', '=', a)]),
-    ])).executeTakeFirst()
+  const row = await db
+    .selectFrom('binary_system')
+    .selectAll()
+    .where((eb) =>
+      eb.or([
+        eb.and([eb('component1_id', '=', a), eb('component2_id', '=', b)]),
+        eb.and([eb('component1_id', '=', b), eb('component2_id', '=', a)]),
+      ]),
+    )
+    .executeTakeFirst()
   return row ? (await hydrate(db, [row]))[0] : undefined
 }
 
@@ -36,25 +51,60 @@ export async function findSystemByPair(db: Db, a: string, b: string): Promise<Sy
  * Systems whose component names or CAS numbers match `q`, one page; with `published`, only systems that
  * have an approved or superseded data set (the engineers' catalogue).
  */
-export async function listSystems(db: Db, o: { q?: string; published?: boolean; limit: number; offset: number }): Promise<{ items: SystemRecord[]; total: number }> {
-  let query = db.selectFrom('binary_system as s')
+export async function listSystems(
+  db: Db,
+  o: { q?: string; published?: boolean; limit: number; offset: number },
+): Promise<{ items: SystemRecord[]; total: number }> {
+  let query = db
+    .selectFrom('binary_system as s')
     .innerJoin('component as c1', 'c1.id', 's.component1_id')
     .innerJoin('component as c2', 'c2.id', 's.component2_id')
   if (o.published) {
-    query = query.where((eb) => eb.exists(eb.selectFrom('data_set as d').select('d.id').whereRef('d.system_id', '=', 's.id').where('d.state', 'in', ['approved', 'superseded'])))
+    query = query.where((eb) =>
+      eb.exists(
+        eb
+          .selectFrom('data_set as d')
+          .select('d.id')
+          .whereRef('d.system_id', '=', 's.id')
+          .where('d.state', 'in', ['approved', 'superseded']),
+      ),
+    )
   }
   if (o.q) {
     const like = `%${o.q}%`
-    query = query.where((eb) => eb.or([eb('c1.name', 'ilike', like), eb('c2.name', 'ilike', like), eb('c1.cas_number', 'like', like), eb('c2.cas_number', 'like', like)]))
+    query = query.where((eb) =>
+      eb.or([
+        eb('c1.name', 'ilike', like),
+        eb('c2.name', 'ilike', like),
+        eb('c1.cas_number', 'like', like),
+        eb('c2.cas_number', 'like', like),
+      ]),
+    )
   }
   const total = await query.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const rows = await query.selectAll('s').orderBy('c1.name').orderBy('c2.name').limit(o.limit).offset(o.offset).execute()
+  const rows = await query
+    .selectAll('s')
+    .orderBy('c1.name')
+    .orderBy('c2.name')
+    .limit(o.limit)
+    .offset(o.offset)
+    .execute()
   return { items: await hydrate(db, rows), total: Number(total.n) }
 }
 
-export async function insertSystem(db: Db, s: { component1Id: string; component2Id: string; notes: string | null; createdBy: string }): Promise<SystemRecord> {
-  const row = await db.insertInto('binary_system').values({
-    component1_id: s.component1Id, component2_id: s.component2Id, notes: s.notes, created_by: s.createdBy,
-  }).returningAll().executeTakeFirstOrThrow()
+export async function insertSystem(
+  db: Db,
+  s: { component1Id: string; component2Id: string; notes: string | null; createdBy: string },
+): Promise<SystemRecord> {
+  const row = await db
+    .insertInto('binary_system')
+    .values({
+      component1_id: s.component1Id,
+      component2_id: s.component2Id,
+      notes: s.notes,
+      created_by: s.createdBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow()
   return (await hydrate(db, [row]))[0]
 }

@@ -47,8 +47,25 @@ export async function listUsersPage(db: Db, f: UserListFilter): Promise<{ items:
   if (f.status === 'invited') q = q.where('active', '=', true).where('password_hash', 'is', null)
   if (f.status === 'active') q = q.where('active', '=', true).where('password_hash', 'is not', null)
   const total = await q.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const users = await q.selectAll().orderBy(USER_SORT[f.sort], f.order).orderBy('display_name').orderBy('id').limit(f.limit).offset(f.offset).execute()
-  const roles = users.length ? await db.selectFrom('user_role').selectAll().where('user_id', 'in', users.map((u) => u.id)).execute() : []
+  const users = await q
+    .selectAll()
+    .orderBy(USER_SORT[f.sort], f.order)
+    .orderBy('display_name')
+    .orderBy('id')
+    .limit(f.limit)
+    .offset(f.offset)
+    .execute()
+  const roles = users.length
+    ? await db
+        .selectFrom('user_role')
+        .selectAll()
+        .where(
+          'user_id',
+          'in',
+          users.map((u) => u.id),
+        )
+        .execute()
+    : []
   return {
     total: Number(total.n),
     items: users.map((u) => ({
@@ -66,7 +83,11 @@ export async function listUsersPage(db: Db, f: UserListFilter): Promise<{ items:
 
 export async function setRoles(db: Db, userId: string, roles: Role[]): Promise<void> {
   await db.deleteFrom('user_role').where('user_id', '=', userId).execute()
-  if (roles.length) await db.insertInto('user_role').values(roles.map((role) => ({ user_id: userId, role }))).execute()
+  if (roles.length)
+    await db
+      .insertInto('user_role')
+      .values(roles.map((role) => ({ user_id: userId, role })))
+      .execute()
 }
 
 export async function rolesOf(db: Db, userId: string): Promise<Role[]> {

@@ -27,7 +27,11 @@ export const adminRoutes = defineRoutes([
     access: ['admin'],
     handler: async (req, res) => {
       const { page, pageSize, ...f } = parseQuery(userQuery, req)
-      res.json({ ...(await listUsersPage(ctx(req).db, { ...f, limit: pageSize, offset: (page - 1) * pageSize })), page, pageSize })
+      res.json({
+        ...(await listUsersPage(ctx(req).db, { ...f, limit: pageSize, offset: (page - 1) * pageSize })),
+        page,
+        pageSize,
+      })
     },
   },
   {

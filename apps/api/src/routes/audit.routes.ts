@@ -20,7 +20,9 @@ const auditQuery = z.object({
 /** The whole audit log for administrators (account changes, components, calibrations, data sets), newest first by default. */
 export const auditRoutes = defineRoutes([
   {
-    method: 'get', path: '/api/audit', access: ['admin'],
+    method: 'get',
+    path: '/api/audit',
+    access: ['admin'],
     handler: async (req, res) => {
       const { page, pageSize, ...q } = parseQuery(auditQuery, req)
       res.json({ ...(await listAudit(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })

@@ -44,7 +44,10 @@ export const authRoutes = defineRoutes([
     handler: async (req, res) => {
       const { user, db } = ctx(req)
       const row = await findUserById(db, user.id)
-      res.json({ user: { ...user, notifyMail: row?.notify_mail ?? true }, devMode: req.ctx.config.nodeEnv !== 'production' })
+      res.json({
+        user: { ...user, notifyMail: row?.notify_mail ?? true },
+        devMode: req.ctx.config.nodeEnv !== 'production',
+      })
     },
   },
   {

@@ -13,20 +13,28 @@ const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
 
 export const catalogueRoutes = defineRoutes([
   {
-    method: 'get', path: '/api/catalogue', access: 'authenticated',
+    method: 'get',
+    path: '/api/catalogue',
+    access: 'authenticated',
     handler: async (req, res) => void res.json(await catalogue.catalogue(ctx(req).db, parseQuery(catalogueQuery, req))),
   },
   {
-    method: 'get', path: '/api/data-sets/:id/curve', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/curve',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
       const q = parseQuery(curveQuery, req)
-      res.json(await catalogue.curveAt(db, user, id, { P: toPascal(q.pressure, q.unit), points: q.points, fitId: q.fitId }))
+      res.json(
+        await catalogue.curveAt(db, user, id, { P: toPascal(q.pressure, q.unit), points: q.points, fitId: q.fitId }),
+      )
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/export/points.csv', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/export/points.csv',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { name, csv } = await exportsService.pointsCsv(db, user, parseParams(idParams, req).id)
@@ -34,7 +42,9 @@ export const catalogueRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/export/parameters.json', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/export/parameters.json',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { name, body } = await exportsService.parametersJson(db, user, parseParams(idParams, req).id)
@@ -42,7 +52,9 @@ export const catalogueRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/export/parameters.csv', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/export/parameters.csv',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { name, csv } = await exportsService.parametersCsv(db, user, parseParams(idParams, req).id)
@@ -50,7 +62,9 @@ export const catalogueRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/uploads/:id/content', access: LAB,
+    method: 'get',
+    path: '/api/uploads/:id/content',
+    access: LAB,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const f = await downloadUpload(db, user, parseParams(z.object({ id: uuid('file') }), req).id)

@@ -12,7 +12,9 @@ const params = z.object({ id: uuid('component') })
 
 export const componentRoutes = defineRoutes([
   {
-    method: 'get', path: '/api/components', access: 'authenticated',
+    method: 'get',
+    path: '/api/components',
+    access: 'authenticated',
     handler: async (req, res) => {
       const q = parseQuery(componentQuery, req)
       const r = await listComponents(ctx(req).db, { ...q, ...pageWindow(q.page, q.pageSize) })
@@ -20,20 +22,26 @@ export const componentRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/components', access: ['admin', 'lead_chemist'],
+    method: 'post',
+    path: '/api/components',
+    access: ['admin', 'lead_chemist'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await service.createComponent(db, user.id, parseBody(componentSchema, req)))
     },
   },
   {
-    method: 'get', path: '/api/components/:id', access: 'authenticated',
+    method: 'get',
+    path: '/api/components/:id',
+    access: 'authenticated',
     handler: async (req, res) => {
       res.json(await service.getComponent(ctx(req).db, parseParams(params, req).id))
     },
   },
   {
-    method: 'patch', path: '/api/components/:id', access: ['admin', 'lead_chemist'],
+    method: 'patch',
+    path: '/api/components/:id',
+    access: ['admin', 'lead_chemist'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(params, req)
@@ -42,7 +50,9 @@ export const componentRoutes = defineRoutes([
     },
   },
   {
-    method: 'delete', path: '/api/components/:id', access: ['admin'],
+    method: 'delete',
+    path: '/api/components/:id',
+    access: ['admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       await service.deleteComponent(db, user.id, parseParams(params, req).id)
@@ -50,7 +60,9 @@ export const componentRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/components/:id/vapor-pressure-sets', access: ['admin', 'lead_chemist'],
+    method: 'post',
+    path: '/api/components/:id/vapor-pressure-sets',
+    access: ['admin', 'lead_chemist'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(params, req)
@@ -58,7 +70,9 @@ export const componentRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/components/:id/pure-measurements', access: ['analyst', 'lead_chemist', 'admin'],
+    method: 'post',
+    path: '/api/components/:id/pure-measurements',
+    access: ['analyst', 'lead_chemist', 'admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(params, req)
@@ -66,7 +80,9 @@ export const componentRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/components/:id/vapor-pressure-sets/fit', access: ['admin', 'lead_chemist'],
+    method: 'post',
+    path: '/api/components/:id/vapor-pressure-sets/fit',
+    access: ['admin', 'lead_chemist'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(params, req)
@@ -75,4 +91,3 @@ export const componentRoutes = defineRoutes([
     },
   },
 ])
-

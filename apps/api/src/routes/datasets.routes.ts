@@ -13,28 +13,36 @@ const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
 
 export const dataSetRoutes = defineRoutes([
   {
-    method: 'get', path: '/api/data-sets', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.json(await service.listDataSets(db, user, parseQuery(dataSetQuery, req)))
     },
   },
   {
-    method: 'post', path: '/api/data-sets', access: AUTHORS,
+    method: 'post',
+    path: '/api/data-sets',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await service.createDataSet(db, user.id, parseBody(dataSetSchema, req)))
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.json(await service.getDataSetDetail(db, user, parseParams(idParams, req).id))
     },
   },
   {
-    method: 'patch', path: '/api/data-sets/:id', access: AUTHORS,
+    method: 'patch',
+    path: '/api/data-sets/:id',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -43,7 +51,9 @@ export const dataSetRoutes = defineRoutes([
     },
   },
   {
-    method: 'delete', path: '/api/data-sets/:id', access: AUTHORS,
+    method: 'delete',
+    path: '/api/data-sets/:id',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       await service.deleteDraft(db, user, parseParams(idParams, req).id)
@@ -51,14 +61,18 @@ export const dataSetRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/revise', access: AUTHORS,
+    method: 'post',
+    path: '/api/data-sets/:id/revise',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await service.reviseDataSet(db, user, parseParams(idParams, req).id))
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/points/:pointId', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/points/:pointId',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, pointId } = parseParams(pointParams, req)
@@ -66,7 +80,9 @@ export const dataSetRoutes = defineRoutes([
     },
   },
   {
-    method: 'patch', path: '/api/data-sets/:id/points/:pointId', access: AUTHORS,
+    method: 'patch',
+    path: '/api/data-sets/:id/points/:pointId',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, pointId } = parseParams(pointParams, req)
@@ -75,31 +91,46 @@ export const dataSetRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/audit', access: LAB,
+    method: 'get',
+    path: '/api/data-sets/:id/audit',
+    access: LAB,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.json({ items: await service.auditTrail(db, user, parseParams(idParams, req).id) })
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/uploads/preview', access: AUTHORS,
-    handler: [csvUpload, async (req, res) => {
-      const { db, config, user } = ctx(req)
-      const file = receivedFile(req)
-      const { id } = parseParams(idParams, req)
-      const form = parseBody(runForm, req)
-      res.json(await uploads.previewRun(db, config, user, id, file, form.calibrationId))
-    }],
+    method: 'post',
+    path: '/api/data-sets/:id/uploads/preview',
+    access: AUTHORS,
+    handler: [
+      csvUpload,
+      async (req, res) => {
+        const { db, config, user } = ctx(req)
+        const file = receivedFile(req)
+        const { id } = parseParams(idParams, req)
+        const form = parseBody(runForm, req)
+        res.json(await uploads.previewRun(db, config, user, id, file, form.calibrationId))
+      },
+    ],
   },
   {
-    method: 'post', path: '/api/data-sets/:id/uploads', access: AUTHORS,
-    handler: [csvUpload, async (req, res) => {
-      const { db, config, user } = ctx(req)
-      const file = receivedFile(req)
-      const { id } = parseParams(idParams, req)
-      const form = parseBody(runForm, req)
-      if (form.rowVersion === undefined) throw badRequest('Send the data set\'s rowVersion with the file, so a stale upload can be refused.')
-      res.status(201).json(await uploads.commitRun(db, config, user, id, file, { ...form, rowVersion: form.rowVersion }))
-    }],
+    method: 'post',
+    path: '/api/data-sets/:id/uploads',
+    access: AUTHORS,
+    handler: [
+      csvUpload,
+      async (req, res) => {
+        const { db, config, user } = ctx(req)
+        const file = receivedFile(req)
+        const { id } = parseParams(idParams, req)
+        const form = parseBody(runForm, req)
+        if (form.rowVersion === undefined)
+          throw badRequest("Send the data set's rowVersion with the file, so a stale upload can be refused.")
+        res
+          .status(201)
+          .json(await uploads.commitRun(db, config, user, id, file, { ...form, rowVersion: form.rowVersion }))
+      },
+    ],
   },
 ])

@@ -28,7 +28,9 @@ const widePage = { ...pageQuery, pageSize: z.coerce.number().int().min(1).max(20
 const dateQuery = { createdAfter: z.coerce.date().optional(), createdBefore: z.coerce.date().optional() }
 
 export const calibrationQuery = z.object({
-  gcMethodId: uuid('GC method').optional(), systemId: uuid('system').optional(), status: z.enum(['active', 'retired']).optional(),
+  gcMethodId: uuid('GC method').optional(),
+  systemId: uuid('system').optional(),
+  status: z.enum(['active', 'retired']).optional(),
   model: z.enum(['response-factor', 'linear', 'quadratic']).optional(),
   q: z.string().trim().max(100).optional(),
   ...dateQuery,
@@ -44,9 +46,14 @@ export const gcMethodQuery = z.object({
   order: z.enum(['asc', 'desc']).default('asc'),
 })
 export const myThreadsQuery = z.object({ ...widePage })
-const formBool = z.enum(['true', 'false']).default('false').transform((v) => v === 'true')
+const formBool = z
+  .enum(['true', 'false'])
+  .default('false')
+  .transform((v) => v === 'true')
 export const calibrationForm = z.object({
-  gcMethodId: uuid('GC method'), systemId: uuid('system'), model: z.enum(['response-factor', 'linear', 'quadratic']).default('response-factor'),
+  gcMethodId: uuid('GC method'),
+  systemId: uuid('system'),
+  model: z.enum(['response-factor', 'linear', 'quadratic']).default('response-factor'),
   acceptWarnings: formBool,
   /** acknowledges that the active calibration of this method and system is retired by this one */
   replaceActive: formBool,
@@ -59,23 +66,35 @@ export const runForm = z.object({
   rowVersion: z.coerce.number().int().min(1).optional(),
 })
 
-export const dataSetQuery = z.object({
-  state: z.union([z.enum(DATA_SET_STATES), z.array(z.enum(DATA_SET_STATES))]).optional()
-    .transform((v) => (v === undefined ? undefined : Array.isArray(v) ? v : [v])),
-  systemId: uuid('system').optional(),
-  createdBy: z.string().max(100).optional(),
-  q: z.string().trim().max(100).optional(),
-  pressureMinPa: z.coerce.number().positive().optional(),
-  pressureMaxPa: z.coerce.number().positive().optional(),
-  createdAfter: z.coerce.date().optional(),
-  createdBefore: z.coerce.date().optional(),
-  /** last change (any content or state change bumps updated_at) */
-  updatedAfter: z.coerce.date().optional(),
-  updatedBefore: z.coerce.date().optional(),
-  sort: z.enum(['created_at', 'updated_at', 'nominal_pressure_pa', 'state', 'title', 'submitted_at']).default('updated_at'),
-  ...pageQuery,
-}).refine((q) => !(q.createdAfter && q.createdBefore && q.createdAfter >= q.createdBefore), { message: 'The created range must end after it starts', path: ['createdBefore'] })
-  .refine((q) => !(q.updatedAfter && q.updatedBefore && q.updatedAfter >= q.updatedBefore), { message: 'The changed range must end after it starts', path: ['updatedBefore'] })
+export const dataSetQuery = z
+  .object({
+    state: z
+      .union([z.enum(DATA_SET_STATES), z.array(z.enum(DATA_SET_STATES))])
+      .optional()
+      .transform((v) => (v === undefined ? undefined : Array.isArray(v) ? v : [v])),
+    systemId: uuid('system').optional(),
+    createdBy: z.string().max(100).optional(),
+    q: z.string().trim().max(100).optional(),
+    pressureMinPa: z.coerce.number().positive().optional(),
+    pressureMaxPa: z.coerce.number().positive().optional(),
+    createdAfter: z.coerce.date().optional(),
+    createdBefore: z.coerce.date().optional(),
+    /** last change (any content or state change bumps updated_at) */
+    updatedAfter: z.coerce.date().optional(),
+    updatedBefore: z.coerce.date().optional(),
+    sort: z
+      .enum(['created_at', 'updated_at', 'nominal_pressure_pa', 'state', 'title', 'submitted_at'])
+      .default('updated_at'),
+    ...pageQuery,
+  })
+  .refine((q) => !(q.createdAfter && q.createdBefore && q.createdAfter >= q.createdBefore), {
+    message: 'The created range must end after it starts',
+    path: ['createdBefore'],
+  })
+  .refine((q) => !(q.updatedAfter && q.updatedBefore && q.updatedAfter >= q.updatedBefore), {
+    message: 'The changed range must end after it starts',
+    path: ['updatedBefore'],
+  })
 export const pointParams = z.object({ id: uuid('data set'), pointId: uuid('point') })
 export const commentParams = z.object({ id: uuid('data set'), commentId: uuid('comment') })
 

@@ -9,8 +9,15 @@ import { findDataSet } from '../repositories/datasets.repository.js'
 import { pageWindow, visibleOrNotFound } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
 import {
-  bandQuerySchema, commentSchema, consistencyRequestSchema, fitRequestSchema, nextCompositionsQuerySchema, pureComponentCheckQuerySchema,
-  recommendedFitSchema, rowVersionSchema, signatureSchema,
+  bandQuerySchema,
+  commentSchema,
+  consistencyRequestSchema,
+  fitRequestSchema,
+  nextCompositionsQuerySchema,
+  pureComponentCheckQuerySchema,
+  recommendedFitSchema,
+  rowVersionSchema,
+  signatureSchema,
 } from '@ebullio/schemas'
 import { toPascal } from '@ebullio/thermo'
 import { z } from 'zod'
@@ -22,18 +29,25 @@ const DISCUSSANTS = ['analyst', 'lead_chemist', 'reviewer'] as const
 const LAB = ['analyst', 'lead_chemist', 'reviewer', 'admin'] as const
 const fitParams = z.object({ id: uuid('data set'), fitId: uuid('fit') })
 /** A query's pressure in Pa, or undefined for the data set's nominal pressure. */
-const pascal = (q: { pressure?: number; unit: Parameters<typeof toPascal>[1] }) => (q.pressure === undefined ? undefined : toPascal(q.pressure, q.unit))
+const pascal = (q: { pressure?: number; unit: Parameters<typeof toPascal>[1] }) =>
+  q.pressure === undefined ? undefined : toPascal(q.pressure, q.unit)
 
 export const reviewRoutes = defineRoutes([
   {
-    method: 'post', path: '/api/data-sets/:id/fits', access: AUTHORS,
+    method: 'post',
+    path: '/api/data-sets/:id/fits',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
-      res.status(201).json(await fits.runFits(db, user, parseParams(idParams, req).id, parseBody(fitRequestSchema, req)))
+      res
+        .status(201)
+        .json(await fits.runFits(db, user, parseParams(idParams, req).id, parseBody(fitRequestSchema, req)))
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/fits', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/fits',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -42,7 +56,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/fits/:fitId/band', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/fits/:fitId/band',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, fitId } = parseParams(fitParams, req)
@@ -51,24 +67,43 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/fits/:fitId/next-compositions', access: LAB,
+    method: 'get',
+    path: '/api/data-sets/:id/fits/:fitId/next-compositions',
+    access: LAB,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, fitId } = parseParams(fitParams, req)
       const q = parseQuery(nextCompositionsQuerySchema, req)
-      res.json(await uncertainty.nextCompositions(db, user, id, fitId, { P: pascal(q), count: q.count, criterion: q.criterion }))
+      res.json(
+        await uncertainty.nextCompositions(db, user, id, fitId, {
+          P: pascal(q),
+          count: q.count,
+          criterion: q.criterion,
+        }),
+      )
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/pure-component-check', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/pure-component-check',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
-      res.json(await uncertainty.dataSetPureComponentCheck(db, user, id, parseQuery(pureComponentCheckQuerySchema, req).toleranceK))
+      res.json(
+        await uncertainty.dataSetPureComponentCheck(
+          db,
+          user,
+          id,
+          parseQuery(pureComponentCheckQuerySchema, req).toleranceK,
+        ),
+      )
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/recommended-fit', access: ['lead_chemist'],
+    method: 'post',
+    path: '/api/data-sets/:id/recommended-fit',
+    access: ['lead_chemist'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -76,7 +111,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/consistency', access: AUTHORS,
+    method: 'post',
+    path: '/api/data-sets/:id/consistency',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -84,14 +121,20 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/comments', access: DISCUSSANTS,
+    method: 'post',
+    path: '/api/data-sets/:id/comments',
+    access: DISCUSSANTS,
     handler: async (req, res) => {
       const { db, config, user } = ctx(req)
-      res.status(201).json(await comments.addComment(db, config, user, parseParams(idParams, req).id, parseBody(commentSchema, req)))
+      res
+        .status(201)
+        .json(await comments.addComment(db, config, user, parseParams(idParams, req).id, parseBody(commentSchema, req)))
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/comments/:commentId/resolve', access: DISCUSSANTS,
+    method: 'post',
+    path: '/api/data-sets/:id/comments/:commentId/resolve',
+    access: DISCUSSANTS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, commentId } = parseParams(commentParams, req)
@@ -99,7 +142,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/comments/:commentId/reopen', access: DISCUSSANTS,
+    method: 'post',
+    path: '/api/data-sets/:id/comments/:commentId/reopen',
+    access: DISCUSSANTS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { id, commentId } = parseParams(commentParams, req)
@@ -107,7 +152,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/comments/mine', access: DISCUSSANTS,
+    method: 'get',
+    path: '/api/comments/mine',
+    access: DISCUSSANTS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { page, pageSize } = parseQuery(myThreadsQuery, req)
@@ -115,7 +162,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/submit', access: AUTHORS,
+    method: 'post',
+    path: '/api/data-sets/:id/submit',
+    access: AUTHORS,
     handler: async (req, res) => {
       const { db, config, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -123,7 +172,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/approve', access: ['lead_chemist'],
+    method: 'post',
+    path: '/api/data-sets/:id/approve',
+    access: ['lead_chemist'],
     handler: async (req, res) => {
       const { db, config, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -131,7 +182,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'post', path: '/api/data-sets/:id/return', access: ['lead_chemist'],
+    method: 'post',
+    path: '/api/data-sets/:id/return',
+    access: ['lead_chemist'],
     handler: async (req, res) => {
       const { db, config, user } = ctx(req)
       const { id } = parseParams(idParams, req)
@@ -139,7 +192,9 @@ export const reviewRoutes = defineRoutes([
     },
   },
   {
-    method: 'get', path: '/api/data-sets/:id/signatures/verify', access: 'authenticated',
+    method: 'get',
+    path: '/api/data-sets/:id/signatures/verify',
+    access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.json(await workflow.verifySignatures(db, user, parseParams(idParams, req).id))

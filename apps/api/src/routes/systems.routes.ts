@@ -19,76 +19,123 @@ const gcMethodParams = z.object({ id: uuid('GC method') })
 
 export const systemRoutes = defineRoutes([
   {
-    method: 'get', path: '/api/systems', access: 'authenticated',
+    method: 'get',
+    path: '/api/systems',
+    access: 'authenticated',
     handler: async (req, res) => {
       const q = parseQuery(systemQuery, req)
-      res.json({ ...(await listSystems(ctx(req).db, { q: q.q, ...pageWindow(q.page, q.pageSize) })), page: q.page, pageSize: q.pageSize })
+      res.json({
+        ...(await listSystems(ctx(req).db, { q: q.q, ...pageWindow(q.page, q.pageSize) })),
+        page: q.page,
+        pageSize: q.pageSize,
+      })
     },
   },
   {
-    method: 'post', path: '/api/systems', access: ['analyst', 'lead_chemist', 'admin'],
+    method: 'post',
+    path: '/api/systems',
+    access: ['analyst', 'lead_chemist', 'admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await service.createSystem(db, user.id, parseBody(systemSchema, req)))
     },
   },
   {
-    method: 'get', path: '/api/systems/:id', access: 'authenticated',
+    method: 'get',
+    path: '/api/systems/:id',
+    access: 'authenticated',
     handler: async (req, res) => {
       res.json(await service.getSystem(ctx(req).db, parseParams(systemParams, req).id))
     },
   },
   {
-    method: 'get', path: '/api/gc-methods', access: LAB,
+    method: 'get',
+    path: '/api/gc-methods',
+    access: LAB,
     handler: async (req, res) => {
       const { page, pageSize, ...q } = parseQuery(gcMethodQuery, req)
       res.json({ ...(await listGcMethodsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })
     },
   },
   {
-    method: 'post', path: '/api/gc-methods', access: ['analyst', 'lead_chemist', 'admin'],
+    method: 'post',
+    path: '/api/gc-methods',
+    access: ['analyst', 'lead_chemist', 'admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await calibrations.createGcMethod(db, user.id, parseBody(gcMethodSchema, req)))
     },
   },
   {
-    method: 'post', path: '/api/gc-methods/:id/retire', access: ['lead_chemist', 'admin'],
+    method: 'post',
+    path: '/api/gc-methods/:id/retire',
+    access: ['lead_chemist', 'admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.json(await calibrations.retireGcMethod(db, user.id, parseParams(gcMethodParams, req).id))
     },
   },
   {
-    method: 'get', path: '/api/calibrations', access: LAB,
+    method: 'get',
+    path: '/api/calibrations',
+    access: LAB,
     handler: async (req, res) => {
       const { page, pageSize, ...q } = parseQuery(calibrationQuery, req)
-      res.json({ ...(await listCalibrationsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })
+      res.json({
+        ...(await listCalibrationsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })),
+        page,
+        pageSize,
+      })
     },
   },
   {
-    method: 'get', path: '/api/calibrations/:id', access: LAB,
-    handler: async (req, res) => void res.json(await calibrations.getCalibration(ctx(req).db, parseParams(calibrationParams, req).id)),
+    method: 'get',
+    path: '/api/calibrations/:id',
+    access: LAB,
+    handler: async (req, res) =>
+      void res.json(await calibrations.getCalibration(ctx(req).db, parseParams(calibrationParams, req).id)),
   },
   {
-    method: 'post', path: '/api/calibrations/preview', access: ['analyst', 'lead_chemist'],
-    handler: [csvUpload, async (req, res) => {
-      const file = receivedFile(req)
-      const { gcMethodId, systemId, model } = parseBody(calibrationForm, req)
-      res.json(await calibrations.previewCalibration(ctx(req).db, { gcMethodId, systemId, model }, file))
-    }],
+    method: 'post',
+    path: '/api/calibrations/preview',
+    access: ['analyst', 'lead_chemist'],
+    handler: [
+      csvUpload,
+      async (req, res) => {
+        const file = receivedFile(req)
+        const { gcMethodId, systemId, model } = parseBody(calibrationForm, req)
+        res.json(await calibrations.previewCalibration(ctx(req).db, { gcMethodId, systemId, model }, file))
+      },
+    ],
   },
   {
-    method: 'post', path: '/api/calibrations', access: ['analyst', 'lead_chemist'],
-    handler: [csvUpload, async (req, res) => {
-      const { db, user } = ctx(req)
-      const file = receivedFile(req)
-      const { acceptWarnings, replaceActive, dataSetId, gcMethodId, systemId, model } = parseBody(calibrationForm, req)
-      res.status(201).json(await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, { replaceActive, dataSetId }))
-    }],
+    method: 'post',
+    path: '/api/calibrations',
+    access: ['analyst', 'lead_chemist'],
+    handler: [
+      csvUpload,
+      async (req, res) => {
+        const { db, user } = ctx(req)
+        const file = receivedFile(req)
+        const { acceptWarnings, replaceActive, dataSetId, gcMethodId, systemId, model } = parseBody(
+          calibrationForm,
+          req,
+        )
+        res
+          .status(201)
+          .json(
+            await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, {
+              replaceActive,
+              dataSetId,
+            }),
+          )
+      },
+    ],
   },
   {
-    method: 'post', path: '/api/calibrations/:id/retire', access: ['lead_chemist', 'admin'],
+    method: 'post',
+    path: '/api/calibrations/:id/retire',
+    access: ['lead_chemist', 'admin'],
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       await calibrations.retireCalibration(db, user.id, parseParams(calibrationParams, req).id)

@@ -14,7 +14,13 @@ export const csvUpload: RequestHandler = (req, res, next) => {
     limits: { fileSize: req.ctx.config.uploadMaxBytes, files: 1, fields: 20 },
     fileFilter: (_req, file, cb) => {
       if (!/\.csv$/i.test(file.originalname) || !CSV_TYPES.has(file.mimetype.toLowerCase())) {
-        cb(new AppError(415, 'unsupported_file', `Only .csv files sent as text/csv are accepted; got "${file.originalname}" (${file.mimetype}).`))
+        cb(
+          new AppError(
+            415,
+            'unsupported_file',
+            `Only .csv files sent as text/csv are accepted; got "${file.originalname}" (${file.mimetype}).`,
+          ),
+        )
       } else cb(null, true)
     },
   }).single('file')

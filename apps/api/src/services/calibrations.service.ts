@@ -18,9 +18,14 @@ export const REPLACE_NOT_CONFIRMED_MESSAGE =
   'This GC method already has an active calibration for this system; confirm that the new one replaces it (replaceActive), or choose another GC method.'
 
 /** Refusal for a retired method's calibrations (asserted word for word in the tests). */
-export const RETIRED_METHOD_MESSAGE = 'This GC method is retired: its calibrations cannot be made active or used for new uploads.'
+export const RETIRED_METHOD_MESSAGE =
+  'This GC method is retired: its calibrations cannot be made active or used for new uploads.'
 
-export async function createGcMethod(db: Db, actorId: string, m: Omit<repo.GcMethodRecord, 'id' | 'createdAt' | 'status' | 'retiredAt'>): Promise<repo.GcMethodRecord> {
+export async function createGcMethod(
+  db: Db,
+  actorId: string,
+  m: Omit<repo.GcMethodRecord, 'id' | 'createdAt' | 'status' | 'retiredAt'>,
+): Promise<repo.GcMethodRecord> {
   try {
     const method = await repo.insertGcMethod(db, m, actorId)
     await appendAudit(db, { actorId, entity: 'gc_method', entityId: method.id, action: 'create', after: m })
@@ -54,7 +59,7 @@ export interface CalibrationCommitOptions {
 /** The active calibration a new one would replace, described for the person who decides. */
 async function activeSummary(db: Db, gcMethodId: string, systemId: string): Promise<repo.CalibrationSummary | null> {
   const active = await repo.findActiveCalibration(db, gcMethodId, systemId)
-  return active ? (await repo.summarizeCalibrations(db, [active.id]))[0] ?? null : null
+  return active ? ((await repo.summarizeCalibrations(db, [active.id]))[0] ?? null) : null
 }
 
 export interface CalibrationRequest {
@@ -64,7 +69,11 @@ export interface CalibrationRequest {
 }
 
 /** Parse and fit a calibration sheet without storing anything. */
-export async function previewCalibration(db: Db, req: CalibrationRequest, file: UploadedFile): Promise<CalibrationPreview> {
+export async function previewCalibration(
+  db: Db,
+  req: CalibrationRequest,
+  file: UploadedFile,
+): Promise<CalibrationPreview> {
   const method = await repo.findGcMethod(db, req.gcMethodId)
   if (!method) throw notFound('There is no such GC method.')
   if (method.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
@@ -98,12 +107,20 @@ export async function previewCalibration(db: Db, req: CalibrationRequest, file: 
  * Replacing the active calibration of the same method and system must be acknowledged (`replaceActive`):
  * it changes what every later upload on that method computes with, for the whole lab.
  */
-export async function commitCalibration(db: Kysely<Database>, actorId: string, req: CalibrationRequest, file: UploadedFile, acceptWarnings: boolean, o: CalibrationCommitOptions = {}): Promise<repo.CalibrationRecord> {
+export async function commitCalibration(
+  db: Kysely<Database>,
+  actorId: string,
+  req: CalibrationRequest,
+  file: UploadedFile,
+  acceptWarnings: boolean,
+  o: CalibrationCommitOptions = {},
+): Promise<repo.CalibrationRecord> {
   const dataSetId = o.dataSetId ?? null
   if (dataSetId) {
     const d = await findDataSet(db, dataSetId)
     if (!d) throw notFound('There is no such data set.')
-    if (d.systemId !== req.systemId) throw conflict('This calibration belongs to another binary system than the data set.')
+    if (d.systemId !== req.systemId)
+      throw conflict('This calibration belongs to another binary system than the data set.')
     requireState(d, EDITABLE_STATES, 'uploading')
   }
   const preview = await previewCalibration(db, req, file)
@@ -111,24 +128,82 @@ export async function commitCalibration(db: Kysely<Database>, actorId: string, r
   const cal = preview.calibration!
   return db.transaction().execute(async (tx) => {
     // the method may have been retired since the preview above; the row lock makes the check and the insert one step
-    const locked = await tx.selectFrom('gc_method').select('status').where('id', '=', req.gcMethodId).forUpdate().executeTakeFirst()
+    const locked = await tx
+      .selectFrom('gc_method')
+      .select('status')
+      .where('id', '=', req.gcMethodId)
+      .forUpdate()
+      .executeTakeFirst()
     if (locked?.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
     // checked again under the lock: someone may have committed another calibration since the preview
     const replaces = await activeSummary(tx, req.gcMethodId, req.systemId)
-    if (replaces && !o.replaceActive) throw new AppError(409, 'replacement_not_confirmed', REPLACE_NOT_CONFIRMED_MESSAGE, { replaces })
-    const upload = await insertUpload(tx, { kind: 'calibration', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: actorId, dataSetId: null })
+    if (replaces && !o.replaceActive)
+      throw new AppError(409, 'replacement_not_confirmed', REPLACE_NOT_CONFIRMED_MESSAGE, { replaces })
+    const upload = await insertUpload(tx, {
+      kind: 'calibration',
+      originalName: file.originalName,
+      contentType: file.contentType,
+      content: file.content,
+      sha256: preview.file.sha256,
+      uploadedBy: actorId,
+      dataSetId: null,
+    })
     const retired = await repo.retireActive(tx, req.gcMethodId, req.systemId)
     const record = await repo.insertCalibration(tx, {
-      ...req, result: cal, rangeMin: cal.calibratedRange.x1[0], rangeMax: cal.calibratedRange.x1[1], uploadId: upload.id, createdBy: actorId,
-      standards: preview.standards.map((s, i) => ({ label: s.label, basis: s.basis, fraction1: s.fraction1, x1: cal.residuals[i].x1, injections: s.injections })),
+      ...req,
+      result: cal,
+      rangeMin: cal.calibratedRange.x1[0],
+      rangeMax: cal.calibratedRange.x1[1],
+      uploadId: upload.id,
+      createdBy: actorId,
+      standards: preview.standards.map((s, i) => ({
+        label: s.label,
+        basis: s.basis,
+        fraction1: s.fraction1,
+        x1: cal.residuals[i].x1,
+        injections: s.injections,
+      })),
     })
-    await appendAudit(tx, { actorId, entity: 'upload', entityId: upload.id, action: 'upload calibration file', dataSetId, after: preview.file })
+    await appendAudit(tx, {
+      actorId,
+      entity: 'upload',
+      entityId: upload.id,
+      action: 'upload calibration file',
+      dataSetId,
+      after: preview.file,
+    })
     for (const id of retired) {
-      await appendAudit(tx, { actorId, entity: 'calibration', entityId: id, action: 'retire', dataSetId,
-        after: { replacedBy: record.id, ...(replaces?.id === id && { file: replaces.originalName, madeAt: replaces.createdAt, usedByDataSets: replaces.dataSetCount }) } })
+      await appendAudit(tx, {
+        actorId,
+        entity: 'calibration',
+        entityId: id,
+        action: 'retire',
+        dataSetId,
+        after: {
+          replacedBy: record.id,
+          ...(replaces?.id === id && {
+            file: replaces.originalName,
+            madeAt: replaces.createdAt,
+            usedByDataSets: replaces.dataSetCount,
+          }),
+        },
+      })
     }
-    await appendAudit(tx, { actorId, entity: 'calibration', entityId: record.id, action: 'create', dataSetId,
-      after: { model: req.model, coefficients: cal.coefficients, standardErrors: cal.standardErrors, range: cal.calibratedRange.x1, file: file.originalName, replaces: retired } })
+    await appendAudit(tx, {
+      actorId,
+      entity: 'calibration',
+      entityId: record.id,
+      action: 'create',
+      dataSetId,
+      after: {
+        model: req.model,
+        coefficients: cal.coefficients,
+        standardErrors: cal.standardErrors,
+        range: cal.calibratedRange.x1,
+        file: file.originalName,
+        replaces: retired,
+      },
+    })
     return record
   })
 }
@@ -153,13 +228,31 @@ export async function retireCalibration(db: Db, actorId: string, id: string): Pr
  */
 export async function retireGcMethod(db: Kysely<Database>, actorId: string, id: string): Promise<repo.GcMethodRecord> {
   return db.transaction().execute(async (tx) => {
-    const m = await tx.selectFrom('gc_method').select(['id', 'status']).where('id', '=', id).forUpdate().executeTakeFirst()
+    const m = await tx
+      .selectFrom('gc_method')
+      .select(['id', 'status'])
+      .where('id', '=', id)
+      .forUpdate()
+      .executeTakeFirst()
     if (!m) throw notFound('There is no such GC method.')
     if (m.status === 'retired') throw conflict('This GC method is already retired.')
     const calibrationIds = await repo.retireMethodCalibrations(tx, id)
-    for (const c of calibrationIds) await appendAudit(tx, { actorId, entity: 'calibration', entityId: c, action: 'retire', after: { reason: 'GC method retired' } })
+    for (const c of calibrationIds)
+      await appendAudit(tx, {
+        actorId,
+        entity: 'calibration',
+        entityId: c,
+        action: 'retire',
+        after: { reason: 'GC method retired' },
+      })
     const method = await repo.retireGcMethod(tx, id, actorId)
-    await appendAudit(tx, { actorId, entity: 'gc_method', entityId: id, action: 'retire', after: { retiredCalibrations: calibrationIds.length } })
+    await appendAudit(tx, {
+      actorId,
+      entity: 'gc_method',
+      entityId: id,
+      action: 'retire',
+      after: { retiredCalibrations: calibrationIds.length },
+    })
     return method
   })
 }

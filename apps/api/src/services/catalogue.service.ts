@@ -13,31 +13,67 @@ import { binarySystem, engineInputs } from './systems.service.js'
 
 /** Shown with every design-related result (see the product rules on results that can hurt someone). */
 export const DESIGN_CAUTION =
-  'Preliminary estimate from equilibrium data (modified Raoult\'s law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer\'s review.'
+  "Preliminary estimate from equilibrium data (modified Raoult's law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer's review."
 
 /** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit; paged in SQL. */
-export async function catalogue(db: Db, o: { q?: string; page: number; pageSize: number }): Promise<{ items: CatalogueEntryDto<Date>[]; total: number; page: number; pageSize: number }> {
+export async function catalogue(
+  db: Db,
+  o: { q?: string; page: number; pageSize: number },
+): Promise<{ items: CatalogueEntryDto<Date>[]; total: number; page: number; pageSize: number }> {
   const systems = await listSystems(db, { q: o.q, published: true, ...pageWindow(o.page, o.pageSize) })
   const ids = systems.items.map((s) => s.id)
-  const rows = ids.length === 0 ? [] : await db.selectFrom('data_set as d').leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
-    .select(['d.id', 'd.system_id', 'd.version', 'd.state', 'd.title', 'd.nominal_pressure_pa', 'd.approved_at', 'f.id as fit_id', 'f.model', 'f.parameters', sql<unknown>`f.statistics`.as('statistics')])
-    .where('d.state', 'in', ['approved', 'superseded']).where('d.system_id', 'in', ids).orderBy('d.version', 'desc').execute()
+  const rows =
+    ids.length === 0
+      ? []
+      : await db
+          .selectFrom('data_set as d')
+          .leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
+          .select([
+            'd.id',
+            'd.system_id',
+            'd.version',
+            'd.state',
+            'd.title',
+            'd.nominal_pressure_pa',
+            'd.approved_at',
+            'f.id as fit_id',
+            'f.model',
+            'f.parameters',
+            sql<unknown>`f.statistics`.as('statistics'),
+          ])
+          .where('d.state', 'in', ['approved', 'superseded'])
+          .where('d.system_id', 'in', ids)
+          .orderBy('d.version', 'desc')
+          .execute()
   const items = systems.items.map((s) => {
     const versions = rows.filter((r) => r.system_id === s.id)
     return {
       system: s,
-      approved: versions.filter((v) => v.state === 'approved').map((v) => ({
-        dataSetId: v.id, title: v.title, version: v.version, nominalPressurePa: v.nominal_pressure_pa, approvedAt: v.approved_at,
-        recommendedFit: v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
-      })),
-      superseded: versions.filter((v) => v.state === 'superseded').map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
+      approved: versions
+        .filter((v) => v.state === 'approved')
+        .map((v) => ({
+          dataSetId: v.id,
+          title: v.title,
+          version: v.version,
+          nominalPressurePa: v.nominal_pressure_pa,
+          approvedAt: v.approved_at,
+          recommendedFit:
+            v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+        })),
+      superseded: versions
+        .filter((v) => v.state === 'superseded')
+        .map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
     }
   })
   return { items, total: systems.total, page: o.page, pageSize: o.pageSize }
 }
 
 /** The activity model to compute with: the fit asked for, else the recommended one. */
-async function chosenActivity(db: Db, d: repo.DataSetRecord, fitId?: string): Promise<{ fitId: string; model: string; activity: ActivityModel }> {
+async function chosenActivity(
+  db: Db,
+  d: repo.DataSetRecord,
+  fitId?: string,
+): Promise<{ fitId: string; model: string; activity: ActivityModel }> {
   const id = fitId ?? d.recommendedFitId
   if (!id) throw conflict('This data set has no recommended fit yet; choose a fit.')
   const fit = await findFit(db, id)
@@ -58,8 +94,14 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
     return { x1, alpha: r.alpha, T: r.T }
   })
   return {
-    dataSetId: id, fitId: chosen.fitId, model: chosen.model, P: o.P,
+    dataSetId: id,
+    fitId: chosen.fitId,
+    model: chosen.model,
+    P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
-    diagram, azeotrope, relativeVolatility: volatility, caution: DESIGN_CAUTION,
+    diagram,
+    azeotrope,
+    relativeVolatility: volatility,
+    caution: DESIGN_CAUTION,
   }
 }

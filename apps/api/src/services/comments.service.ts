@@ -18,7 +18,13 @@ export interface CommentInput {
 }
 
 /** Start a thread (on the data set or a point) or reply to one. Replies go to the root of the thread. */
-export async function addComment(db: Kysely<Database>, config: Config, user: SessionUser, dataSetId: string, input: CommentInput) {
+export async function addComment(
+  db: Kysely<Database>,
+  config: Config,
+  user: SessionUser,
+  dataSetId: string,
+  input: CommentInput,
+) {
   return db.transaction().execute(async (tx) => {
     const d = visibleOrNotFound(user, await findDataSet(tx, dataSetId))
     let pointId = input.pointId ?? null
@@ -33,9 +39,21 @@ export async function addComment(db: Kysely<Database>, config: Config, user: Ses
       const p = await findPoint(tx, pointId)
       if (!p || p.dataSetId !== dataSetId) throw notFound('There is no such point in this data set.')
     }
-    const id = await repo.insertComment(tx, { dataSetId, pointId, parentId, authorId: user.id, body: input.body.trim() })
-    await appendAudit(tx, { actorId: user.id, entity: 'comment', entityId: id, action: parentId ? 'reply' : 'comment', dataSetId,
-      after: { pointId, parentId, body: input.body.trim().slice(0, 200) } })
+    const id = await repo.insertComment(tx, {
+      dataSetId,
+      pointId,
+      parentId,
+      authorId: user.id,
+      body: input.body.trim(),
+    })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'comment',
+      entityId: id,
+      action: parentId ? 'reply' : 'comment',
+      dataSetId,
+      after: { pointId, parentId, body: input.body.trim().slice(0, 200) },
+    })
     if (parentId) {
       const root = parentId === parent!.id ? parent! : await repo.findComment(tx, parentId)
       const notify = new Set([root!.author_id, parent!.author_id])
@@ -52,15 +70,28 @@ export async function addComment(db: Kysely<Database>, config: Config, user: Ses
 }
 
 /** Resolve or reopen a thread (its root comment). */
-export async function setThreadResolved(db: Kysely<Database>, user: SessionUser, dataSetId: string, commentId: string, resolved: boolean) {
+export async function setThreadResolved(
+  db: Kysely<Database>,
+  user: SessionUser,
+  dataSetId: string,
+  commentId: string,
+  resolved: boolean,
+) {
   return db.transaction().execute(async (tx) => {
     visibleOrNotFound(user, await findDataSet(tx, dataSetId))
     const c = await repo.findComment(tx, commentId)
     if (!c || c.data_set_id !== dataSetId) throw notFound('There is no such comment in this data set.')
     if (c.parent_id) throw conflict('Resolve the thread from its first comment, not from a reply.')
     await repo.setResolved(tx, commentId, resolved, user.id)
-    await appendAudit(tx, { actorId: user.id, entity: 'comment', entityId: commentId, action: resolved ? 'resolve thread' : 'reopen thread', dataSetId,
-      before: { resolved: c.resolved }, after: { resolved } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'comment',
+      entityId: commentId,
+      action: resolved ? 'resolve thread' : 'reopen thread',
+      dataSetId,
+      before: { resolved: c.resolved },
+      after: { resolved },
+    })
     return { id: commentId, resolved }
   })
 }

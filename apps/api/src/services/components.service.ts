@@ -6,7 +6,6 @@ import { conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/components.repository.js'
 
-
 const COMPONENT_ERRORS = {
   component_name_key: 'A component with this name already exists.',
   component_cas_number_key: 'A component with this CAS number already exists.',
@@ -35,15 +34,28 @@ export async function createComponent(db: Db, actorId: string, input: ComponentI
 export async function getComponent(db: Db, id: string) {
   const c = await repo.findComponent(db, id)
   if (!c) throw notFound('There is no such component.')
-  return { ...c, vaporPressureSets: await repo.listVaporPressureSets(db, [id]), pureMeasurements: await repo.listPureMeasurements(db, id) }
+  return {
+    ...c,
+    vaporPressureSets: await repo.listVaporPressureSets(db, [id]),
+    pureMeasurements: await repo.listPureMeasurements(db, id),
+  }
 }
 
-export async function updateComponent(db: Db, actorId: string, id: string, rowVersion: number, patch: Partial<ComponentInput>): Promise<repo.ComponentRecord> {
+export async function updateComponent(
+  db: Db,
+  actorId: string,
+  id: string,
+  rowVersion: number,
+  patch: Partial<ComponentInput>,
+): Promise<repo.ComponentRecord> {
   const before = await repo.findComponent(db, id)
   if (!before) throw notFound('There is no such component.')
   try {
     const after = await repo.updateComponent(db, id, rowVersion, patch)
-    if (!after) throw conflict(`This component was changed by someone else (you had version ${rowVersion}, it is now ${before.rowVersion}). Reload it.`)
+    if (!after)
+      throw conflict(
+        `This component was changed by someone else (you had version ${rowVersion}, it is now ${before.rowVersion}). Reload it.`,
+      )
     await appendAudit(db, { actorId, entity: 'component', entityId: id, action: 'update', before, after: patch })
     return after
   } catch (err) {
@@ -54,7 +66,8 @@ export async function updateComponent(db: Db, actorId: string, id: string, rowVe
 export async function deleteComponent(db: Db, actorId: string, id: string): Promise<void> {
   const before = await repo.findComponent(db, id)
   if (!before) throw notFound('There is no such component.')
-  if (await repo.componentInUse(db, id)) throw conflict('This component belongs to a binary system and cannot be deleted.')
+  if (await repo.componentInUse(db, id))
+    throw conflict('This component belongs to a binary system and cannot be deleted.')
   await repo.deleteComponent(db, id)
   await appendAudit(db, { actorId, entity: 'component', entityId: id, action: 'delete', before })
 }
@@ -71,14 +84,32 @@ export async function addVaporPressureSet(db: Db, actorId: string, componentId: 
   const m = input.model
   const range = m.range ?? null
   const set = await repo.insertVaporPressureSet(db, {
-    componentId, kind: m.kind, parameters: m as unknown as Record<string, unknown>, rangeMin: range?.[0] ?? null, rangeMax: range?.[1] ?? null,
-    rangeUnit: range ? (m.kind === 'antoine' ? m.temperatureUnit : 'K') : null, source: input.source, preferred: input.preferred, enteredBy: actorId,
+    componentId,
+    kind: m.kind,
+    parameters: m as unknown as Record<string, unknown>,
+    rangeMin: range?.[0] ?? null,
+    rangeMax: range?.[1] ?? null,
+    rangeUnit: range ? (m.kind === 'antoine' ? m.temperatureUnit : 'K') : null,
+    source: input.source,
+    preferred: input.preferred,
+    enteredBy: actorId,
   })
-  await appendAudit(db, { actorId, entity: 'vapor_pressure_set', entityId: set.id, action: 'create', after: { componentId, ...input } })
+  await appendAudit(db, {
+    actorId,
+    entity: 'vapor_pressure_set',
+    entityId: set.id,
+    action: 'create',
+    after: { componentId, ...input },
+  })
   return set
 }
 
-export async function addPureMeasurement(db: Db, actorId: string, componentId: string, m: { temperatureK: number; pressurePa: number; note: string | null }) {
+export async function addPureMeasurement(
+  db: Db,
+  actorId: string,
+  componentId: string,
+  m: { temperatureK: number; pressurePa: number; note: string | null },
+) {
   if (!(await repo.findComponent(db, componentId))) throw notFound('There is no such component.')
   const row = await repo.insertPureMeasurement(db, { componentId, ...m, measuredBy: actorId })
   await appendAudit(db, { actorId, entity: 'pure_measurement', entityId: row.id, action: 'create', after: m })
@@ -86,12 +117,19 @@ export async function addPureMeasurement(db: Db, actorId: string, componentId: s
 }
 
 /** Fit an Antoine set (thermo's fitAntoine) to the component's measured boiling points and store it. */
-export async function fitVaporPressureFromMeasurements(db: Db, actorId: string, componentId: string, preferred: boolean) {
+export async function fitVaporPressureFromMeasurements(
+  db: Db,
+  actorId: string,
+  componentId: string,
+  preferred: boolean,
+) {
   const measurements = await repo.listPureMeasurements(db, componentId)
   if (!(await repo.findComponent(db, componentId))) throw notFound('There is no such component.')
   const fit = thermo('Antoine fit', () => fitAntoine(measurements.map((m) => ({ T: m.temperatureK, P: m.pressurePa }))))
   const set = await addVaporPressureSet(db, actorId, componentId, {
-    model: fit.model, preferred, source: `Fitted in Ebullio to ${measurements.length} measured boiling points`,
+    model: fit.model,
+    preferred,
+    source: `Fitted in Ebullio to ${measurements.length} measured boiling points`,
   })
   return { set, fit }
 }

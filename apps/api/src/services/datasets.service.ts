@@ -12,7 +12,15 @@ import { copyFits, listConsistency, listFits } from '../repositories/fits.reposi
 import * as points from '../repositories/points.repository.js'
 import { listUploadsOf } from '../repositories/uploads.repository.js'
 import { calibrationsOfDataSet } from '../repositories/calibrations.repository.js'
-import { EDITABLE_STATES, PUBLISHED_STATES, pageWindow, readsEverything, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
+import {
+  EDITABLE_STATES,
+  PUBLISHED_STATES,
+  pageWindow,
+  readsEverything,
+  requireState,
+  staleWrite,
+  visibleOrNotFound,
+} from './lab-access.js'
 import { getSystem } from './systems.service.js'
 
 export interface DataSetInput {
@@ -26,7 +34,14 @@ export interface DataSetInput {
 export async function createDataSet(db: Db, actorId: string, input: DataSetInput): Promise<repo.DataSetRecord> {
   await getSystem(db, input.systemId)
   const d = await repo.insertDataSet(db, { ...input, createdBy: actorId })
-  await appendAudit(db, { actorId, entity: 'data_set', entityId: d.id, action: 'create', dataSetId: d.id, after: input })
+  await appendAudit(db, {
+    actorId,
+    entity: 'data_set',
+    entityId: d.id,
+    action: 'create',
+    dataSetId: d.id,
+    after: input,
+  })
   return d
 }
 
@@ -87,7 +102,13 @@ export async function getPointDetail(db: Db, user: SessionUser, dataSetId: strin
 export type MetadataPatch = Partial<Omit<DataSetInput, 'systemId'>>
 
 /** Edit metadata of a draft; refused when the caller's row version is stale. */
-export async function updateMetadata(db: Kysely<Database>, user: SessionUser, id: string, rowVersion: number, patch: MetadataPatch) {
+export async function updateMetadata(
+  db: Kysely<Database>,
+  user: SessionUser,
+  id: string,
+  rowVersion: number,
+  patch: MetadataPatch,
+) {
   return db.transaction().execute(async (tx) => {
     const before = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
     requireState(before, EDITABLE_STATES, 'editing')
@@ -95,14 +116,27 @@ export async function updateMetadata(db: Kysely<Database>, user: SessionUser, id
     const after = await repo.updateDataSet(tx, id, patch, rowVersion)
     if (!after) throw staleWrite(rowVersion, before.rowVersion + 1)
     const changed = Object.keys(patch) as (keyof MetadataPatch)[]
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'update metadata', dataSetId: id,
-      before: Object.fromEntries(changed.map((k) => [k, before[k]])), after: patch })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'update metadata',
+      dataSetId: id,
+      before: Object.fromEntries(changed.map((k) => [k, before[k]])),
+      after: patch,
+    })
     return after
   })
 }
 
 /** Exclude a point (a reason is mandatory) or include it again. */
-export async function setPointExclusion(db: Kysely<Database>, user: SessionUser, dataSetId: string, pointId: string, o: { excluded: boolean; reason: string | null; rowVersion: number }) {
+export async function setPointExclusion(
+  db: Kysely<Database>,
+  user: SessionUser,
+  dataSetId: string,
+  pointId: string,
+  o: { excluded: boolean; reason: string | null; rowVersion: number },
+) {
   return db.transaction().execute(async (tx) => {
     const d = visibleOrNotFound(user, await repo.lockDataSet(tx, dataSetId))
     const p = await points.findPoint(tx, pointId)
@@ -112,8 +146,15 @@ export async function setPointExclusion(db: Kysely<Database>, user: SessionUser,
     if (o.excluded && !o.reason?.trim()) throw conflict('Give a reason for excluding this point.')
     const after = await points.setExclusion(tx, pointId, o.excluded, o.reason?.trim() ?? null)
     const ds = await repo.updateDataSet(tx, dataSetId, {})
-    await appendAudit(tx, { actorId: user.id, entity: 'point', entityId: pointId, action: o.excluded ? 'exclude point' : 'include point', dataSetId,
-      before: { excluded: p.excluded, reason: p.exclusionReason }, after: { excluded: after.excluded, reason: after.exclusionReason, sample: p.sampleLabel } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'point',
+      entityId: pointId,
+      action: o.excluded ? 'exclude point' : 'include point',
+      dataSetId,
+      before: { excluded: p.excluded, reason: p.exclusionReason },
+      after: { excluded: after.excluded, reason: after.exclusionReason, sample: p.sampleLabel },
+    })
     return { point: after, rowVersion: ds!.rowVersion }
   })
 }
@@ -124,7 +165,13 @@ export async function deleteDraft(db: Kysely<Database>, user: SessionUser, id: s
     const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
     requireState(d, ['draft'], 'deleting')
     if (d.submittedAt) throw conflict('This data set has been submitted before; it is kept for the record.')
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'delete draft', before: { title: d.title, version: d.version } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'delete draft',
+      before: { title: d.title, version: d.version },
+    })
     await repo.deleteDataSet(tx, id)
   })
 }
@@ -136,17 +183,33 @@ export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id:
     requireState(d, ['approved'], 'revising')
     const versions = await repo.listVersions(tx, d.lineageId)
     const open = versions.find((v) => !PUBLISHED_STATES.includes(v.state))
-    if (open) throw conflict(`Version ${open.version} of this data set is already being worked on (${open.state}).`, { dataSetId: open.id })
+    if (open)
+      throw conflict(`Version ${open.version} of this data set is already being worked on (${open.state}).`, {
+        dataSetId: open.id,
+      })
     const next = await repo.insertDataSet(tx, {
-      lineageId: d.lineageId, version: Math.max(...versions.map((v) => v.version)) + 1, previousVersionId: d.id, systemId: d.systemId,
-      title: d.title, nominalPressurePa: d.nominalPressurePa, apparatusNotes: d.apparatusNotes, projectRef: d.projectRef, createdBy: user.id,
+      lineageId: d.lineageId,
+      version: Math.max(...versions.map((v) => v.version)) + 1,
+      previousVersionId: d.id,
+      systemId: d.systemId,
+      title: d.title,
+      nominalPressurePa: d.nominalPressurePa,
+      apparatusNotes: d.apparatusNotes,
+      projectRef: d.projectRef,
+      createdBy: user.id,
     })
     const pointMap = await points.copyPoints(tx, d.id, next.id)
     const fitMap = await copyFits(tx, d.id, next.id, pointMap)
-    const rec = d.recommendedFitId ? fitMap.get(d.recommendedFitId) ?? null : null
+    const rec = d.recommendedFitId ? (fitMap.get(d.recommendedFitId) ?? null) : null
     const after = rec ? await repo.updateDataSet(tx, next.id, { recommendedFitId: rec }) : next
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: next.id, action: 'revise', dataSetId: next.id,
-      after: { fromVersion: d.version, version: next.version, points: pointMap.size, fits: fitMap.size } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: next.id,
+      action: 'revise',
+      dataSetId: next.id,
+      after: { fromVersion: d.version, version: next.version, points: pointMap.size, fits: fitMap.size },
+    })
     return after!
   })
 }

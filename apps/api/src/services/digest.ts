@@ -15,7 +15,9 @@ export function canonicalJson(value: unknown): string {
   if (value instanceof Date) return JSON.stringify(value.toISOString())
   if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`
   const obj = value as Record<string, unknown>
-  const keys = Object.keys(obj).filter((k) => obj[k] !== undefined).sort()
+  const keys = Object.keys(obj)
+    .filter((k) => obj[k] !== undefined)
+    .sort()
   return `{${keys.map((k) => `${JSON.stringify(k)}:${canonicalJson(obj[k])}`).join(',')}}`
 }
 
@@ -27,11 +29,38 @@ export async function signedContent(db: Db, dataSetId: string) {
   const fits = (await listFits(db, dataSetId)).sort((a, b) => a.id.localeCompare(b.id))
   return {
     format: 'ebullio-signed-content/1',
-    dataSet: { id: d.id, lineageId: d.lineageId, version: d.version, systemId: d.systemId, title: d.title,
-      nominalPressurePa: d.nominalPressurePa, apparatusNotes: d.apparatusNotes, projectRef: d.projectRef },
-    points: points.map((p) => ({ id: p.id, seq: p.seq, sample: p.sampleLabel, T: p.temperatureK, P: p.pressurePa, x1: p.x1,
-      ux1: p.x1Uncertainty, y1: p.y1, uy1: p.y1Uncertainty, excluded: p.excluded, reason: p.exclusionReason, uploadId: p.uploadId, calibrationId: p.calibrationId })),
-    fits: fits.map((f) => ({ id: f.id, model: f.model, activity: f.activity, parameters: f.parameters, pointIds: f.pointIds })),
+    dataSet: {
+      id: d.id,
+      lineageId: d.lineageId,
+      version: d.version,
+      systemId: d.systemId,
+      title: d.title,
+      nominalPressurePa: d.nominalPressurePa,
+      apparatusNotes: d.apparatusNotes,
+      projectRef: d.projectRef,
+    },
+    points: points.map((p) => ({
+      id: p.id,
+      seq: p.seq,
+      sample: p.sampleLabel,
+      T: p.temperatureK,
+      P: p.pressurePa,
+      x1: p.x1,
+      ux1: p.x1Uncertainty,
+      y1: p.y1,
+      uy1: p.y1Uncertainty,
+      excluded: p.excluded,
+      reason: p.exclusionReason,
+      uploadId: p.uploadId,
+      calibrationId: p.calibrationId,
+    })),
+    fits: fits.map((f) => ({
+      id: f.id,
+      model: f.model,
+      activity: f.activity,
+      parameters: f.parameters,
+      pointIds: f.pointIds,
+    })),
     recommendedFitId: d.recommendedFitId,
   }
 }

@@ -33,9 +33,39 @@ function onlyLeadOnceSubmitted(user: SessionUser, d: repo.DataSetRecord, action:
 const included = (points: PointRecord[]) => points.filter((p) => !p.excluded)
 
 function statistics(r: FitBinaryResult) {
-  const { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings, settings } = r
+  const {
+    converged,
+    iterations,
+    objective,
+    rmsT,
+    rmsY,
+    aadT,
+    aadY,
+    maxAbsT,
+    maxAbsY,
+    aic,
+    covariance,
+    correlation,
+    warnings,
+    settings,
+  } = r
   // settings (weights, residual variance) let the prediction band and next-composition design run on the stored fit.
-  return { converged, iterations, objective, rmsT, rmsY, aadT, aadY, maxAbsT, maxAbsY, aic, covariance, correlation, warnings, settings }
+  return {
+    converged,
+    iterations,
+    objective,
+    rmsT,
+    rmsY,
+    aadT,
+    aadY,
+    maxAbsT,
+    maxAbsY,
+    aic,
+    covariance,
+    correlation,
+    warnings,
+    settings,
+  }
 }
 
 /**
@@ -54,10 +84,13 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
     // The α used is stored with the fit, so a default α stays readable after the default changes.
     const nrtl = model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA, fitAlpha: req.fitAlpha ?? false } : {}
     const options = { model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }
-    const r = thermo(`Fitting ${model}`, () => fitBinary({
-      ...options, vaporPressure: inputs.vaporPressure,
-      points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
-    }))
+    const r = thermo(`Fitting ${model}`, () =>
+      fitBinary({
+        ...options,
+        vaporPressure: inputs.vaporPressure,
+        points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+      }),
+    )
     return { model, options, r }
   })
   const saved = await db.transaction().execute(async (tx) => {
@@ -66,14 +99,33 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
     const stored: fits.FitRecord[] = []
     for (const { model, options, r } of results) {
       const fit = await fits.insertFit(tx, {
-        dataSetId: id, model, options: JSON.parse(JSON.stringify(options)), activity: r.activity as unknown as Record<string, unknown>,
-        parameters: r.parameters, statistics: statistics(r),
+        dataSetId: id,
+        model,
+        options: JSON.parse(JSON.stringify(options)),
+        activity: r.activity as unknown as Record<string, unknown>,
+        parameters: r.parameters,
+        statistics: statistics(r),
         residuals: r.residuals.map((res, i) => ({ pointId: points[i].id, ...res })),
-        pointIds: included(points).map((p) => p.id), runBy: user.id,
+        pointIds: included(points).map((p) => p.id),
+        runBy: user.id,
       })
       stored.push(fit)
-      await appendAudit(tx, { actorId: user.id, entity: 'fit', entityId: fit.id, action: 'run fit', dataSetId: id,
-        after: { model, ...nrtlAudit(options), parameters: r.parameters, rmsT: r.rmsT, rmsY: r.rmsY, converged: r.converged, points: fit.pointIds.length } })
+      await appendAudit(tx, {
+        actorId: user.id,
+        entity: 'fit',
+        entityId: fit.id,
+        action: 'run fit',
+        dataSetId: id,
+        after: {
+          model,
+          ...nrtlAudit(options),
+          parameters: r.parameters,
+          rmsT: r.rmsT,
+          rmsY: r.rmsY,
+          converged: r.converged,
+          points: fit.pointIds.length,
+        },
+      })
     }
     const after = await repo.updateDataSet(tx, id, {})
     return { fits: stored, rowVersion: after!.rowVersion }
@@ -96,7 +148,11 @@ function predictionsOf(fit: fits.FitRecord, r: FitBinaryResult, P: number) {
       throw err
     }
   }
-  return { fitId: fit.id, band: attempt(() => bandOf(fit, r, P, 51)), nextCompositions: attempt(() => suggestionsOf(fit, r, P, 5)) }
+  return {
+    fitId: fit.id,
+    band: attempt(() => bandOf(fit, r, P, 51)),
+    nextCompositions: attempt(() => suggestionsOf(fit, r, P, 5)),
+  }
 }
 
 /** The lead chemist's choice of the fit the data set is approved with. */
@@ -108,11 +164,20 @@ export async function markRecommended(db: Kysely<Database>, user: SessionUser, i
     requireState(d, FITTABLE_STATES, 'choosing the recommended fit')
     // An unconverged optimum is not a result: its parameters and standard errors mean nothing.
     if ((fit.statistics as { converged?: boolean }).converged === false) {
-      throw conflict('This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.')
+      throw conflict(
+        'This fit did not converge, so it cannot be the recommended fit. Run the model again or choose another fit.',
+      )
     }
     const after = await repo.updateDataSet(tx, id, { recommendedFitId: fitId })
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'mark recommended fit', dataSetId: id,
-      before: { recommendedFitId: d.recommendedFitId }, after: { recommendedFitId: fitId, model: fit.model } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'mark recommended fit',
+      dataSetId: id,
+      before: { recommendedFitId: d.recommendedFitId },
+      after: { recommendedFitId: fitId, model: fit.model },
+    })
     return after!
   })
 }
@@ -132,10 +197,20 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   const pureComponent = await pureComponentChecks(db, inputs, all)
   const saved = await db.transaction().execute(async (tx) => {
     const out = []
-    for (const [test, r] of [['herington-area', area], ['point', point]] as const) {
+    for (const [test, r] of [
+      ['herington-area', area],
+      ['point', point],
+    ] as const) {
       const result = JSON.parse(JSON.stringify({ ...r, model: test === 'point' ? model : undefined }))
       const rec = await fits.insertConsistency(tx, { dataSetId: id, test, passed: r.passed, result, runBy: user.id })
-      await appendAudit(tx, { actorId: user.id, entity: 'consistency_result', entityId: rec.id, action: `run ${test} test`, dataSetId: id, after: { passed: r.passed } })
+      await appendAudit(tx, {
+        actorId: user.id,
+        entity: 'consistency_result',
+        entityId: rec.id,
+        action: `run ${test} test`,
+        dataSetId: id,
+        after: { passed: r.passed },
+      })
       out.push(rec)
     }
     const after = await repo.updateDataSet(tx, id, {})

@@ -19,22 +19,28 @@ export function readsEverything(user: SessionUser): boolean {
 
 /** The data set, or 404 when it does not exist or the user may not know it exists (engineers, unapproved). */
 export function visibleOrNotFound<T extends DataSetRecord>(user: SessionUser, d: T | undefined): T {
-  if (!d || (!readsEverything(user) && !PUBLISHED_STATES.includes(d.state))) throw notFound('There is no such data set.')
+  if (!d || (!readsEverything(user) && !PUBLISHED_STATES.includes(d.state)))
+    throw notFound('There is no such data set.')
   return d
 }
 
 /** Refuse a change unless the data set is in one of the states. */
 export function requireState(d: DataSetRecord, states: readonly DataSetState[], action: string): void {
   if (!states.includes(d.state)) {
-    throw conflict(`This data set is ${d.state}; ${action} is possible only when it is ${states.join(' or ')}.`, { state: d.state })
+    throw conflict(`This data set is ${d.state}; ${action} is possible only when it is ${states.join(' or ')}.`, {
+      state: d.state,
+    })
   }
 }
 
 /** The optimistic-concurrency refusal: someone else saved first. */
 export function staleWrite(expected: number, current: number): AppError {
-  return new AppError(409, 'stale_write',
+  return new AppError(
+    409,
+    'stale_write',
     `This data set was changed by someone else since you loaded it (you had version ${expected}, it is now ${current}). Reload it and apply your change again.`,
-    { expectedRowVersion: expected, currentRowVersion: current })
+    { expectedRowVersion: expected, currentRowVersion: current },
+  )
 }
 
 /** Convert a PostgreSQL constraint violation into a user-facing error, or rethrow. */
@@ -59,7 +65,8 @@ export function thermo<T>(what: string, fn: () => T): T {
     return fn()
   } catch (err) {
     const e = err as { name?: string; code?: string; message?: string }
-    if (e.name === 'ThermoError') throw new AppError(422, 'computation_refused', `${what}: ${e.message}`, { thermoCode: e.code ?? null })
+    if (e.name === 'ThermoError')
+      throw new AppError(422, 'computation_refused', `${what}: ${e.message}`, { thermoCode: e.code ?? null })
     throw err
   }
 }

@@ -10,7 +10,12 @@ import { listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 
 /** One residual as stored with a fit (ΔT in K, Δy1 mole fraction). */
-export interface StoredResidual { pointId?: string; dT?: number; dy?: number; flagged?: boolean }
+export interface StoredResidual {
+  pointId?: string
+  dT?: number
+  dy?: number
+  flagged?: boolean
+}
 
 /** The rule in words, stored with the flags. */
 export const OUTLIER_RULE = 'flagged by the fit, or |ΔT| or |Δy₁| above 2 × RMS of the included points'
@@ -26,17 +31,33 @@ export function outlierPointIds(residuals: StoredResidual[], excludedIds: Set<st
   const used = residuals.filter((r) => r.pointId && !excludedIds.has(r.pointId))
   const sT = rms(used.map((r) => r.dT))
   const sY = rms(used.map((r) => r.dy))
-  const beyond = (v: number | undefined, s: number | null) => s !== null && s > 0 && typeof v === 'number' && Math.abs(v) > 2 * s
-  return residuals.filter((r) => r.pointId && (r.flagged === true || beyond(r.dT, sT) || beyond(r.dy, sY))).map((r) => r.pointId!)
+  const beyond = (v: number | undefined, s: number | null) =>
+    s !== null && s > 0 && typeof v === 'number' && Math.abs(v) > 2 * s
+  return residuals
+    .filter((r) => r.pointId && (r.flagged === true || beyond(r.dT, sT) || beyond(r.dy, sY)))
+    .map((r) => r.pointId!)
 }
 
 /** The flags against the recommended fit of a data set as stored now; null without a recommended fit. */
-export async function signedOutliers(db: Db, dataSetId: string, recommendedFitId: string | null): Promise<SignedOutliers | null> {
+export async function signedOutliers(
+  db: Db,
+  dataSetId: string,
+  recommendedFitId: string | null,
+): Promise<SignedOutliers | null> {
   if (!recommendedFitId) return null
   const fit = (await listFits(db, dataSetId)).find((f) => f.id === recommendedFitId)
   if (!fit) return null
   const points = await listPoints(db, dataSetId)
-  const ids = outlierPointIds(fit.residuals as StoredResidual[], new Set(points.filter((p) => p.excluded).map((p) => p.id)))
+  const ids = outlierPointIds(
+    fit.residuals as StoredResidual[],
+    new Set(points.filter((p) => p.excluded).map((p) => p.id)),
+  )
   const label = new Map(points.map((p) => [p.id, p.sampleLabel]))
-  return { fitId: fit.id, model: fit.model, pointIds: ids, sampleLabels: ids.map((id) => label.get(id) ?? id), rule: OUTLIER_RULE }
+  return {
+    fitId: fit.id,
+    model: fit.model,
+    pointIds: ids,
+    sampleLabels: ids.map((id) => label.get(id) ?? id),
+    rule: OUTLIER_RULE,
+  }
 }

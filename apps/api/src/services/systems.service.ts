@@ -3,10 +3,18 @@ import type { BinarySystem, VaporPressureModel } from '@ebullio/thermo'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
-import { findComponent, listVaporPressureSets, type VaporPressureRecord } from '../repositories/components.repository.js'
+import {
+  findComponent,
+  listVaporPressureSets,
+  type VaporPressureRecord,
+} from '../repositories/components.repository.js'
 import * as repo from '../repositories/systems.repository.js'
 
-export async function createSystem(db: Db, actorId: string, input: { component1Id: string; component2Id: string; notes: string | null }): Promise<repo.SystemRecord> {
+export async function createSystem(
+  db: Db,
+  actorId: string,
+  input: { component1Id: string; component2Id: string; notes: string | null },
+): Promise<repo.SystemRecord> {
   if (input.component1Id === input.component2Id) throw conflict('A binary system needs two different components.')
   for (const id of [input.component1Id, input.component2Id]) {
     if (!(await findComponent(db, id))) throw notFound('There is no such component.')

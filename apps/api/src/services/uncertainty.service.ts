@@ -4,8 +4,15 @@
  * recomputed from the stored fit, points and vapour-pressure sets.
  */
 import {
-  fitBinary, predictionBand, PURE_COMPONENT_TOLERANCE, pureComponentCheck, suggestNextCompositions,
-  type ActivityModel, type FitBinaryResult, type PureComponentCheck, type SuggestionCriterion,
+  fitBinary,
+  predictionBand,
+  PURE_COMPONENT_TOLERANCE,
+  pureComponentCheck,
+  suggestNextCompositions,
+  type ActivityModel,
+  type FitBinaryResult,
+  type PureComponentCheck,
+  type SuggestionCriterion,
 } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
@@ -24,7 +31,8 @@ export const BAND_NOTE =
 type Settings = FitBinaryResult['settings']
 
 /** JSON turns NaN into null; the engine expects NaN for "not available". */
-const numbers = (m: unknown): number[][] => (Array.isArray(m) ? m.map((row: unknown[]) => row.map((v) => (typeof v === 'number' ? v : NaN))) : [])
+const numbers = (m: unknown): number[][] =>
+  Array.isArray(m) ? m.map((row: unknown[]) => row.map((v) => (typeof v === 'number' ? v : NaN))) : []
 
 /**
  * The fit's own settings (weights and residual variance). Fits stored before these were kept are fitted
@@ -34,11 +42,31 @@ function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs
   const stored = fit.statistics.settings as Settings | undefined
   if (stored && typeof stored.residualVariance === 'number') return stored
   const used = new Set(fit.pointIds)
-  const o = fit.options as { objective?: 'bubble-point' | 'activity'; V1?: number; V2?: number; alpha?: number; fitAlpha?: boolean }
-  const again = thermo(`Fitting ${fit.model}`, () => fitBinary({
-    model: fit.model, objective: o.objective, V1: o.V1, V2: o.V2, alpha: o.alpha, fitAlpha: o.fitAlpha, vaporPressure: inputs.vaporPressure,
-    points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: !used.has(p.id) })),
-  }))
+  const o = fit.options as {
+    objective?: 'bubble-point' | 'activity'
+    V1?: number
+    V2?: number
+    alpha?: number
+    fitAlpha?: boolean
+  }
+  const again = thermo(`Fitting ${fit.model}`, () =>
+    fitBinary({
+      model: fit.model,
+      objective: o.objective,
+      V1: o.V1,
+      V2: o.V2,
+      alpha: o.alpha,
+      fitAlpha: o.fitAlpha,
+      vaporPressure: inputs.vaporPressure,
+      points: points.map((p) => ({
+        T: p.temperatureK,
+        P: p.pressurePa,
+        x1: p.x1,
+        y1: p.y1,
+        excluded: !used.has(p.id),
+      })),
+    }),
+  )
   return again.settings
 }
 
@@ -55,8 +83,13 @@ export function storedFitResult(fit: FitRecord, points: PointRecord[], inputs: E
     iterations: Number(stats.iterations),
     objective: Number(stats.objective),
     objectiveKind: (fit.options.objective as 'bubble-point' | 'activity' | undefined) ?? 'bubble-point',
-    rmsT: Number(stats.rmsT), rmsY: Number(stats.rmsY), aadT: Number(stats.aadT), aadY: Number(stats.aadY),
-    maxAbsT: Number(stats.maxAbsT), maxAbsY: Number(stats.maxAbsY), aic: Number(stats.aic),
+    rmsT: Number(stats.rmsT),
+    rmsY: Number(stats.rmsY),
+    aadT: Number(stats.aadT),
+    aadY: Number(stats.aadY),
+    maxAbsT: Number(stats.maxAbsT),
+    maxAbsY: Number(stats.maxAbsY),
+    aic: Number(stats.aic),
     residuals: [],
     warnings: [],
     settings: fitSettings(fit, points, inputs),
@@ -83,7 +116,13 @@ export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, point
  * response. Deterministic for a stored fit: the stored parameters and covariance are used, so the list
  * changes only when a different fit or criterion is asked for.
  */
-export function suggestionsOf(fit: FitRecord, result: FitBinaryResult, P: number, count: number, criterion: SuggestionCriterion = 'sigma-y') {
+export function suggestionsOf(
+  fit: FitRecord,
+  result: FitBinaryResult,
+  P: number,
+  count: number,
+  criterion: SuggestionCriterion = 'sigma-y',
+) {
   const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count, criterion }))
   return { fitId: fit.id, model: fit.model, P, criterion, items }
 }
@@ -93,13 +132,20 @@ export async function fitBand(db: Db, user: SessionUser, id: string, fitId: stri
   return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points) }
 }
 
-export async function nextCompositions(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; count: number; criterion?: SuggestionCriterion }) {
+export async function nextCompositions(
+  db: Db,
+  user: SessionUser,
+  id: string,
+  fitId: string,
+  o: { P?: number; count: number; criterion?: SuggestionCriterion },
+) {
   const { d, fit, result } = await loadFit(db, user, id, fitId)
   return { dataSetId: id, ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count, o.criterion) }
 }
 
 /** A pure-component comparison, saying where the boiling point came from. */
-export type SourcedCheck = Omit<PureComponentCheck, 'index'> & ({ source: 'point'; pointId: string } | { source: 'pure-measurement'; measurementId: string })
+export type SourcedCheck = Omit<PureComponentCheck, 'index'> &
+  ({ source: 'point'; pointId: string } | { source: 'pure-measurement'; measurementId: string })
 
 /**
  * Measured pure-component boiling points against the vapour-pressure sets the data set computes with:
@@ -107,19 +153,51 @@ export type SourcedCheck = Omit<PureComponentCheck, 'index'> & ({ source: 'point
  * @param toleranceK allowed |T measured − T model|, K (thermo's default 0.3 K).
  */
 export async function pureComponentChecks(db: Db, inputs: EngineInputs, points: PointRecord[], toleranceK?: number) {
-  const [m1, m2] = await Promise.all([listPureMeasurements(db, inputs.system.component1.id), listPureMeasurements(db, inputs.system.component2.id)])
+  const [m1, m2] = await Promise.all([
+    listPureMeasurements(db, inputs.system.component1.id),
+    listPureMeasurements(db, inputs.system.component2.id),
+  ])
   const own = points.filter((p) => !p.excluded && (p.x1 === 0 || p.x1 === 1))
   const rows = [
-    ...own.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, ref: { source: 'point' as const, pointId: p.id } })),
-    ...m1.map((m) => ({ T: m.temperatureK, P: m.pressurePa, x1: 1, ref: { source: 'pure-measurement' as const, measurementId: m.id } })),
-    ...m2.map((m) => ({ T: m.temperatureK, P: m.pressurePa, x1: 0, ref: { source: 'pure-measurement' as const, measurementId: m.id } })),
+    ...own.map((p) => ({
+      T: p.temperatureK,
+      P: p.pressurePa,
+      x1: p.x1,
+      ref: { source: 'point' as const, pointId: p.id },
+    })),
+    ...m1.map((m) => ({
+      T: m.temperatureK,
+      P: m.pressurePa,
+      x1: 1,
+      ref: { source: 'pure-measurement' as const, measurementId: m.id },
+    })),
+    ...m2.map((m) => ({
+      T: m.temperatureK,
+      P: m.pressurePa,
+      x1: 0,
+      ref: { source: 'pure-measurement' as const, measurementId: m.id },
+    })),
   ]
-  const r = thermo('Pure-component check', () => pureComponentCheck(rows.map(({ T, P, x1 }) => ({ T, P, x1 })), { vaporPressure: inputs.vaporPressure, tolerance: toleranceK }))
+  const r = thermo('Pure-component check', () =>
+    pureComponentCheck(
+      rows.map(({ T, P, x1 }) => ({ T, P, x1 })),
+      { vaporPressure: inputs.vaporPressure, tolerance: toleranceK },
+    ),
+  )
   const checks: SourcedCheck[] = r.checks.map(({ index, ...c }) => ({ ...c, ...rows[index].ref }))
-  return { toleranceK: toleranceK ?? PURE_COMPONENT_TOLERANCE, passed: r.passed, checks, warnings: r.warnings, components: [inputs.system.component1.name, inputs.system.component2.name] }
+  return {
+    toleranceK: toleranceK ?? PURE_COMPONENT_TOLERANCE,
+    passed: r.passed,
+    checks,
+    warnings: r.warnings,
+    components: [inputs.system.component1.name, inputs.system.component2.name],
+  }
 }
 
 export async function dataSetPureComponentCheck(db: Db, user: SessionUser, id: string, toleranceK?: number) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
-  return { dataSetId: id, ...(await pureComponentChecks(db, await engineInputs(db, d.systemId), await listPoints(db, id), toleranceK)) }
+  return {
+    dataSetId: id,
+    ...(await pureComponentChecks(db, await engineInputs(db, d.systemId), await listPoints(db, id), toleranceK)),
+  }
 }

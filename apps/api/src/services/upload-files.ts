@@ -17,7 +17,11 @@ export interface FileSummary {
 }
 
 export function summarizeFile(f: UploadedFile): FileSummary {
-  return { name: f.originalName, sizeBytes: f.content.length, sha256: createHash('sha256').update(f.content).digest('hex') }
+  return {
+    name: f.originalName,
+    sizeBytes: f.content.length,
+    sha256: createHash('sha256').update(f.content).digest('hex'),
+  }
 }
 
 export function countProblems(problems: UploadProblem[]): { errorCount: number; warningCount: number } {
@@ -29,9 +33,19 @@ export function countProblems(problems: UploadProblem[]): { errorCount: number; 
 export function assertCommittable(problems: UploadProblem[], acceptWarnings: boolean): void {
   if (hasErrors(problems)) {
     const { errorCount } = countProblems(problems)
-    throw new AppError(422, 'upload_rejected', `The file has ${errorCount} problem${errorCount === 1 ? '' : 's'}; nothing was stored. Fix the file and upload it again.`, problems)
+    throw new AppError(
+      422,
+      'upload_rejected',
+      `The file has ${errorCount} problem${errorCount === 1 ? '' : 's'}; nothing was stored. Fix the file and upload it again.`,
+      problems,
+    )
   }
   if (problems.length > 0 && !acceptWarnings) {
-    throw new AppError(422, 'warnings_not_accepted', `The file has ${problems.length} warning${problems.length === 1 ? '' : 's'}; confirm them (acceptWarnings) to store it.`, problems)
+    throw new AppError(
+      422,
+      'warnings_not_accepted',
+      `The file has ${problems.length} warning${problems.length === 1 ? '' : 's'}; confirm them (acceptWarnings) to store it.`,
+      problems,
+    )
   }
 }

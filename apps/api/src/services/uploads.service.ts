@@ -6,7 +6,14 @@ import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
-import { findCalibration, findGcMethod, listCalibrations, summarizeCalibrations, type CalibrationRecord, type CalibrationSummary } from '../repositories/calibrations.repository.js'
+import {
+  findCalibration,
+  findGcMethod,
+  listCalibrations,
+  summarizeCalibrations,
+  type CalibrationRecord,
+  type CalibrationSummary,
+} from '../repositories/calibrations.repository.js'
 import { RETIRED_METHOD_MESSAGE } from './calibrations.service.js'
 import * as datasets from '../repositories/datasets.repository.js'
 import { insertPoints, nextSeq } from '../repositories/points.repository.js'
@@ -52,7 +59,11 @@ export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
 }
 
 /** The calibration to use: the one asked for, or the only active one for the system. */
-async function chooseCalibration(db: Db, systemId: string, calibrationId: string | undefined): Promise<CalibrationRecord> {
+async function chooseCalibration(
+  db: Db,
+  systemId: string,
+  calibrationId: string | undefined,
+): Promise<CalibrationRecord> {
   if (calibrationId) {
     const c = await findCalibration(db, calibrationId)
     if (!c) throw notFound('There is no such calibration.')
@@ -62,54 +73,99 @@ async function chooseCalibration(db: Db, systemId: string, calibrationId: string
     return c
   }
   const active = await listCalibrations(db, { systemId, status: 'active' })
-  if (active.length === 0) throw conflict('There is no active calibration for this system; upload a calibration file first.')
-  if (active.length > 1) throw conflict('Several GC methods have an active calibration for this system; choose one (calibrationId).')
+  if (active.length === 0)
+    throw conflict('There is no active calibration for this system; upload a calibration file first.')
+  if (active.length > 1)
+    throw conflict('Several GC methods have an active calibration for this system; choose one (calibrationId).')
   return active[0]
 }
 
 /** x1 of one phase from its injections, with the problems it raises. */
-function phaseComposition(cal: CalibrationRecord, s: RunSample, phase: 'liquid' | 'vapour', rsdLimit: number, problems: UploadProblem[]): CompositionResult | null {
+function phaseComposition(
+  cal: CalibrationRecord,
+  s: RunSample,
+  phase: 'liquid' | 'vapour',
+  rsdLimit: number,
+  problems: UploadProblem[],
+): CompositionResult | null {
   const injections = s[phase]
   const name = phase === 'liquid' ? 'x1' : 'y1'
   const row = injections[0].row
   let r: CompositionResult
   try {
-    r = compositionFromAreas(cal.result as unknown as Calibration, { injections: injections.map((i) => ({ area1: i.area1, area2: i.area2 })) })
+    r = compositionFromAreas(cal.result as unknown as Calibration, {
+      injections: injections.map((i) => ({ area1: i.area1, area2: i.area2 })),
+    })
   } catch (err) {
     if ((err as Error).name !== 'ThermoError') throw err
     problems.push(uploadError(row, 'area_1', null, `Sample ${s.label}: ${(err as Error).message}`))
     return null
   }
   if (!(r.x1 >= 0 && r.x1 <= 1)) {
-    problems.push(uploadError(row, 'area_1', null, `Sample ${s.label}: the calibration gives ${name} = ${r.x1.toFixed(4)}, outside 0–1.`))
+    problems.push(
+      uploadError(
+        row,
+        'area_1',
+        null,
+        `Sample ${s.label}: the calibration gives ${name} = ${r.x1.toFixed(4)}, outside 0–1.`,
+      ),
+    )
     return null
   }
   if (r.replicateRsd !== null && r.replicateRsd > rsdLimit) {
-    problems.push(uploadWarning(row, 'area_1', `${(r.replicateRsd * 100).toFixed(2)} %`,
-      `Sample ${s.label}, ${phase}: replicate area ratios scatter by ${(r.replicateRsd * 100).toFixed(1)} % RSD, above the ${(rsdLimit * 100).toFixed(1)} % limit.`))
+    problems.push(
+      uploadWarning(
+        row,
+        'area_1',
+        `${(r.replicateRsd * 100).toFixed(2)} %`,
+        `Sample ${s.label}, ${phase}: replicate area ratios scatter by ${(r.replicateRsd * 100).toFixed(1)} % RSD, above the ${(rsdLimit * 100).toFixed(1)} % limit.`,
+      ),
+    )
   }
   if (r.outsideCalibratedRange) {
-    problems.push(uploadWarning(row, 'area_1', r.x1.toFixed(4),
-      `Sample ${s.label}, ${phase}: ${name} = ${r.x1.toFixed(4)} is outside the calibrated range ${cal.rangeMin.toFixed(3)}–${cal.rangeMax.toFixed(3)}.`))
+    problems.push(
+      uploadWarning(
+        row,
+        'area_1',
+        r.x1.toFixed(4),
+        `Sample ${s.label}, ${phase}: ${name} = ${r.x1.toFixed(4)} is outside the calibrated range ${cal.rangeMin.toFixed(3)}–${cal.rangeMax.toFixed(3)}.`,
+      ),
+    )
   }
   return r
 }
 
 /** Which of a sample's lines its compositions rest on, so a preview with errors can mark partial samples. */
-function coverageOf(s: RunSample, problems: UploadProblem[]): Pick<PreviewSample, 'coverage' | 'errorRows' | 'partial'> {
+function coverageOf(
+  s: RunSample,
+  problems: UploadProblem[],
+): Pick<PreviewSample, 'coverage' | 'errorRows' | 'partial'> {
   const lines = new Set(s.rows)
-  const errorRows = [...new Set(problems.filter((p) => p.severity === 'error' && p.row !== null && lines.has(p.row)).map((p) => p.row!))].sort((a, b) => a - b)
+  const errorRows = [
+    ...new Set(problems.filter((p) => p.severity === 'error' && p.row !== null && lines.has(p.row)).map((p) => p.row!)),
+  ].sort((a, b) => a - b)
   const coverage = {
     liquid: { used: s.liquid.length, of: s.phaseRows.liquid.length },
     vapour: { used: s.vapour.length, of: s.phaseRows.vapour.length },
     unreadRows: s.phaseRows.unknown,
   }
-  const partial = errorRows.length > 0 || coverage.unreadRows.length > 0 || coverage.liquid.used < coverage.liquid.of || coverage.vapour.used < coverage.vapour.of
+  const partial =
+    errorRows.length > 0 ||
+    coverage.unreadRows.length > 0 ||
+    coverage.liquid.used < coverage.liquid.of ||
+    coverage.vapour.used < coverage.vapour.of
   return { coverage, errorRows, partial }
 }
 
 /** Parse a run sheet and compute every sample's x and y, storing nothing. */
-export async function previewRun(db: Db, config: Config, user: SessionUser, dataSetId: string, file: UploadedFile, calibrationId?: string): Promise<RunPreview> {
+export async function previewRun(
+  db: Db,
+  config: Config,
+  user: SessionUser,
+  dataSetId: string,
+  file: UploadedFile,
+  calibrationId?: string,
+): Promise<RunPreview> {
   const d = visibleOrNotFound(user, await datasets.findDataSet(db, dataSetId))
   requireState(d, EDITABLE_STATES, 'uploading')
   const cal = await chooseCalibration(db, d.systemId, calibrationId)
@@ -119,20 +175,45 @@ export async function previewRun(db: Db, config: Config, user: SessionUser, data
     const x = phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
     const y = phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
     return {
-      label: s.label, rows: s.rows, temperatureK: s.temperatureK, pressurePa: s.pressurePa,
-      x1: x?.x1 ?? null, x1Uncertainty: x?.standardUncertainty ?? null, x1Rsd: x?.replicateRsd ?? null,
-      y1: y?.x1 ?? null, y1Uncertainty: y?.standardUncertainty ?? null, y1Rsd: y?.replicateRsd ?? null,
-      liquid: s.liquid, vapour: s.vapour, ...coverageOf(s, problems),
+      label: s.label,
+      rows: s.rows,
+      temperatureK: s.temperatureK,
+      pressurePa: s.pressurePa,
+      x1: x?.x1 ?? null,
+      x1Uncertainty: x?.standardUncertainty ?? null,
+      x1Rsd: x?.replicateRsd ?? null,
+      y1: y?.x1 ?? null,
+      y1Uncertainty: y?.standardUncertainty ?? null,
+      y1Rsd: y?.replicateRsd ?? null,
+      liquid: s.liquid,
+      vapour: s.vapour,
+      ...coverageOf(s, problems),
     }
   })
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
   const { samples: _s, problems: _p, ...rest } = parsed
   const [calibrationUsed] = await summarizeCalibrations(db, [cal.id])
-  return { ...rest, file: summarizeFile(file), dataSetId, calibrationId: cal.id, calibrationUsed, samples, problems, ...countProblems(problems) }
+  return {
+    ...rest,
+    file: summarizeFile(file),
+    dataSetId,
+    calibrationId: cal.id,
+    calibrationUsed,
+    samples,
+    problems,
+    ...countProblems(problems),
+  }
 }
 
 /** Store the file and every sample as a point, all or nothing; refuses a stale row version. */
-export async function commitRun(db: Kysely<Database>, config: Config, user: SessionUser, dataSetId: string, file: UploadedFile, o: { calibrationId?: string; acceptWarnings: boolean; rowVersion: number }) {
+export async function commitRun(
+  db: Kysely<Database>,
+  config: Config,
+  user: SessionUser,
+  dataSetId: string,
+  file: UploadedFile,
+  o: { calibrationId?: string; acceptWarnings: boolean; rowVersion: number },
+) {
   const preview = await previewRun(db, config, user, dataSetId, file, o.calibrationId)
   assertCommittable(preview.problems, o.acceptWarnings)
   return db.transaction().execute(async (tx) => {
@@ -140,18 +221,58 @@ export async function commitRun(db: Kysely<Database>, config: Config, user: Sess
     if (!d) throw notFound('There is no such data set.')
     requireState(d, EDITABLE_STATES, 'uploading')
     if (d.rowVersion !== o.rowVersion) throw staleWrite(o.rowVersion, d.rowVersion)
-    const upload = await insertUpload(tx, { kind: 'run', originalName: file.originalName, contentType: file.contentType, content: file.content, sha256: preview.file.sha256, uploadedBy: user.id, dataSetId })
+    const upload = await insertUpload(tx, {
+      kind: 'run',
+      originalName: file.originalName,
+      contentType: file.contentType,
+      content: file.content,
+      sha256: preview.file.sha256,
+      uploadedBy: user.id,
+      dataSetId,
+    })
     const first = await nextSeq(tx, dataSetId)
-    const ids = await insertPoints(tx, dataSetId, first, preview.samples.map((s) => ({
-      sampleLabel: s.label, temperatureK: s.temperatureK, pressurePa: s.pressurePa,
-      x1: s.x1!, x1Uncertainty: s.x1Uncertainty!, y1: s.y1!, y1Uncertainty: s.y1Uncertainty!,
-      uploadId: upload.id, calibrationId: preview.calibrationId, rowRefs: s.rows,
-      injections: [...s.liquid.map((i) => ({ ...i, phase: 'liquid' as const })), ...s.vapour.map((i) => ({ ...i, phase: 'vapour' as const }))],
-    })))
+    const ids = await insertPoints(
+      tx,
+      dataSetId,
+      first,
+      preview.samples.map((s) => ({
+        sampleLabel: s.label,
+        temperatureK: s.temperatureK,
+        pressurePa: s.pressurePa,
+        x1: s.x1!,
+        x1Uncertainty: s.x1Uncertainty!,
+        y1: s.y1!,
+        y1Uncertainty: s.y1Uncertainty!,
+        uploadId: upload.id,
+        calibrationId: preview.calibrationId,
+        rowRefs: s.rows,
+        injections: [
+          ...s.liquid.map((i) => ({ ...i, phase: 'liquid' as const })),
+          ...s.vapour.map((i) => ({ ...i, phase: 'vapour' as const })),
+        ],
+      })),
+    )
     const after = await datasets.updateDataSet(tx, dataSetId, {})
-    await appendAudit(tx, { actorId: user.id, entity: 'upload', entityId: upload.id, action: 'upload run file', dataSetId,
-      after: { ...preview.file, points: ids.length, calibrationId: preview.calibrationId, acceptedWarnings: preview.warningCount } })
-    return { uploadId: upload.id, pointIds: ids, pointCount: ids.length, rowVersion: after!.rowVersion, sha256: preview.file.sha256 }
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'upload',
+      entityId: upload.id,
+      action: 'upload run file',
+      dataSetId,
+      after: {
+        ...preview.file,
+        points: ids.length,
+        calibrationId: preview.calibrationId,
+        acceptedWarnings: preview.warningCount,
+      },
+    })
+    return {
+      uploadId: upload.id,
+      pointIds: ids,
+      pointCount: ids.length,
+      rowVersion: after!.rowVersion,
+      sha256: preview.file.sha256,
+    }
   })
 }
 

@@ -34,15 +34,28 @@ export async function createUser(
   const id = randomUUID()
   await db
     .insertInto('app_user')
-    .values({ id, email: o.email.toLowerCase(), display_name: o.displayName, password_hash: o.password ? await hashPassword(o.password) : null })
+    .values({
+      id,
+      email: o.email.toLowerCase(),
+      display_name: o.displayName,
+      password_hash: o.password ? await hashPassword(o.password) : null,
+    })
     .execute()
   await users.setRoles(db, id, o.roles)
   return id
 }
 
-async function issueToken(db: Db, table: 'invite' | 'password_reset', userId: string, minutes: number): Promise<string> {
+async function issueToken(
+  db: Db,
+  table: 'invite' | 'password_reset',
+  userId: string,
+  minutes: number,
+): Promise<string> {
   const { token, tokenHash } = newToken()
-  await db.insertInto(table).values({ token_hash: tokenHash, user_id: userId, expires_at: new Date(Date.now() + minutes * 60_000) }).execute()
+  await db
+    .insertInto(table)
+    .values({ token_hash: tokenHash, user_id: userId, expires_at: new Date(Date.now() + minutes * 60_000) })
+    .execute()
   return token
 }
 
@@ -55,8 +68,13 @@ export async function inviteUser(
 ): Promise<string> {
   return db.transaction().execute(async (tx) => {
     const id = await createUser(tx, o)
-    await appendAudit(tx, { actorId: invitedById, entity: 'app_user', entityId: id, action: 'invite user',
-      after: { email: o.email.toLowerCase(), displayName: o.displayName, roles: o.roles, invitedBy } })
+    await appendAudit(tx, {
+      actorId: invitedById,
+      entity: 'app_user',
+      entityId: id,
+      action: 'invite user',
+      after: { email: o.email.toLowerCase(), displayName: o.displayName, roles: o.roles, invitedBy },
+    })
     const token = await issueToken(tx, 'invite', id, config.inviteHours * 60)
     await enqueueMail(tx, {
       to: o.email,
@@ -101,7 +119,11 @@ export async function acceptInvite(db: Kysely<Database>, token: string, password
   const passwordHash = await hashPassword(password)
   return db.transaction().execute(async (tx) => {
     const userId = await consumeToken(tx, 'invite', token)
-    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', userId).execute()
+    await tx
+      .updateTable('app_user')
+      .set({ password_hash: passwordHash, updated_at: new Date() })
+      .where('id', '=', userId)
+      .execute()
     await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'accept invite' })
     return userId
   })
@@ -124,11 +146,20 @@ export async function requestPasswordReset(db: Kysely<Database>, config: Config,
   })
 }
 
-export async function resetPassword(db: Kysely<Database>, sessions: Sessions, token: string, password: string): Promise<void> {
+export async function resetPassword(
+  db: Kysely<Database>,
+  sessions: Sessions,
+  token: string,
+  password: string,
+): Promise<void> {
   const passwordHash = await hashPassword(password)
   const userId = await db.transaction().execute(async (tx) => {
     const id = await consumeToken(tx, 'password_reset', token)
-    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', id).execute()
+    await tx
+      .updateTable('app_user')
+      .set({ password_hash: passwordHash, updated_at: new Date() })
+      .where('id', '=', id)
+      .execute()
     await appendAudit(tx, { actorId: id, entity: 'app_user', entityId: id, action: 'reset password' })
     return id
   })
@@ -140,19 +171,39 @@ export async function changePassword(db: Db, userId: string, current: string, ne
   if (!u || !(await verifyPassword(u.password_hash, current))) throw badRequest('Your current password is not correct.')
   const passwordHash = await hashPassword(next)
   await atomically(db, async (tx) => {
-    await tx.updateTable('app_user').set({ password_hash: passwordHash, updated_at: new Date() }).where('id', '=', userId).execute()
+    await tx
+      .updateTable('app_user')
+      .set({ password_hash: passwordHash, updated_at: new Date() })
+      .where('id', '=', userId)
+      .execute()
     await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change password' })
   })
 }
 
-export async function setActive(db: Db, sessions: Sessions, actorId: string, userId: string, active: boolean): Promise<void> {
+export async function setActive(
+  db: Db,
+  sessions: Sessions,
+  actorId: string,
+  userId: string,
+  active: boolean,
+): Promise<void> {
   if (actorId === userId && !active) throw badRequest('You cannot deactivate your own account.')
   await atomically(db, async (tx) => {
     const before = await users.findUserById(tx, userId)
-    const r = await tx.updateTable('app_user').set({ active, updated_at: new Date() }).where('id', '=', userId).executeTakeFirst()
+    const r = await tx
+      .updateTable('app_user')
+      .set({ active, updated_at: new Date() })
+      .where('id', '=', userId)
+      .executeTakeFirst()
     if (Number(r.numUpdatedRows) === 0) throw notFound('No such user.')
-    await appendAudit(tx, { actorId, entity: 'app_user', entityId: userId, action: active ? 'activate user' : 'deactivate user',
-      before: { active: before?.active ?? null }, after: { active } })
+    await appendAudit(tx, {
+      actorId,
+      entity: 'app_user',
+      entityId: userId,
+      action: active ? 'activate user' : 'deactivate user',
+      before: { active: before?.active ?? null },
+      after: { active },
+    })
   })
   if (!active) await sessions.endAllFor(userId)
 }
@@ -164,7 +215,14 @@ export async function assignRoles(db: Db, actorId: string, userId: string, roles
   await atomically(db, async (tx) => {
     const before = await users.rolesOf(tx, userId)
     await users.setRoles(tx, userId, next)
-    await appendAudit(tx, { actorId, entity: 'app_user', entityId: userId, action: 'change roles', before: { roles: before }, after: { roles: next } })
+    await appendAudit(tx, {
+      actorId,
+      entity: 'app_user',
+      entityId: userId,
+      action: 'change roles',
+      before: { roles: before },
+      after: { roles: next },
+    })
   })
 }
 
@@ -173,7 +231,18 @@ export async function setNotifyMail(db: Db, userId: string, notifyMail: boolean)
   await atomically(db, async (tx) => {
     const before = await users.findUserById(tx, userId)
     if (!before) throw notFound('No such user.')
-    await tx.updateTable('app_user').set({ notify_mail: notifyMail, updated_at: new Date() }).where('id', '=', userId).execute()
-    await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change notification preference', before: { notifyMail: before.notify_mail }, after: { notifyMail } })
+    await tx
+      .updateTable('app_user')
+      .set({ notify_mail: notifyMail, updated_at: new Date() })
+      .where('id', '=', userId)
+      .execute()
+    await appendAudit(tx, {
+      actorId: userId,
+      entity: 'app_user',
+      entityId: userId,
+      action: 'change notification preference',
+      before: { notifyMail: before.notify_mail },
+      after: { notifyMail },
+    })
   })
 }

@@ -19,8 +19,13 @@ import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './
 const link = (config: Config, id: string) => `${config.publicUrl}/data-sets/${id}`
 
 async function leadChemists(db: Db): Promise<string[]> {
-  const rows = await db.selectFrom('user_role').innerJoin('app_user', 'app_user.id', 'user_role.user_id')
-    .select('app_user.id').where('user_role.role', '=', 'lead_chemist').where('app_user.active', '=', true).execute()
+  const rows = await db
+    .selectFrom('user_role')
+    .innerJoin('app_user', 'app_user.id', 'user_role.user_id')
+    .select('app_user.id')
+    .where('user_role.role', '=', 'lead_chemist')
+    .where('app_user.active', '=', true)
+    .execute()
   return rows.map((r) => r.id)
 }
 
@@ -39,7 +44,15 @@ export async function submit(db: Kysely<Database>, config: Config, user: Session
     const { included } = await countPoints(tx, id)
     if (included < 3) throw conflict(`A data set needs at least 3 included points to be submitted; it has ${included}.`)
     const after = await repo.updateDataSet(tx, id, { state: 'submitted', submittedAt: new Date() })
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'submit', dataSetId: id, before: { state: d.state }, after: { state: 'submitted' } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'submit',
+      dataSetId: id,
+      before: { state: d.state },
+      after: { state: 'submitted' },
+    })
     for (const lead of await leadChemists(tx)) {
       if (lead === user.id) continue
       await notifyUser(tx, lead, {
@@ -76,25 +89,56 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
     const authors = new Set([d.createdBy, ...(await uploadersOf(tx, id))])
     const selfApproval = authors.has(user.id)
     if (selfApproval && !config.allowSelfApproval) {
-      throw new AppError(403, 'four_eyes', 'You created or uploaded data in this data set; another lead chemist must approve it.')
+      throw new AppError(
+        403,
+        'four_eyes',
+        'You created or uploaded data in this data set; another lead chemist must approve it.',
+      )
     }
     const open = await countOpenThreads(tx, id)
     const override = s.overrideReason?.trim() || null
     if (open > 0 && !override) {
-      throw conflict(`This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`, { openThreads: open })
+      throw conflict(
+        `This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`,
+        { openThreads: open },
+      )
     }
     const digest = await contentDigest(tx, id)
     const outliers = await signedOutliers(tx, id, d.recommendedFitId)
-    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'approved', reason: s.reason, digest, selfApproval, overrideReason: open > 0 ? override : null, outliers })
+    const approvalId = await insertApproval(tx, {
+      dataSetId: id,
+      signerId: user.id,
+      meaning: 'approved',
+      reason: s.reason,
+      digest,
+      selfApproval,
+      overrideReason: open > 0 ? override : null,
+      outliers,
+    })
     const after = await repo.updateDataSet(tx, id, { state: 'approved', approvedAt: new Date() })
     for (const v of await repo.listVersions(tx, d.lineageId)) {
       if (v.id !== id && v.state === 'approved') {
         await repo.updateDataSet(tx, v.id, { state: 'superseded', supersededAt: new Date() })
-        await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: v.id, action: 'supersede', dataSetId: v.id, before: { state: 'approved' }, after: { state: 'superseded', by: id } })
+        await appendAudit(tx, {
+          actorId: user.id,
+          entity: 'data_set',
+          entityId: v.id,
+          action: 'supersede',
+          dataSetId: v.id,
+          before: { state: 'approved' },
+          after: { state: 'superseded', by: id },
+        })
       }
     }
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'approve', dataSetId: id, before: { state: 'submitted' },
-      after: { state: 'approved', approvalId, digest, selfApproval, overrideReason: open > 0 ? override : null } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'approve',
+      dataSetId: id,
+      before: { state: 'submitted' },
+      after: { state: 'approved', approvalId, digest, selfApproval, overrideReason: open > 0 ? override : null },
+    })
     await notifyUser(tx, d.createdBy, {
       subject: `Ebullio: "${d.title}" v${d.version} approved`,
       text: `${user.displayName} approved the data set "${d.title}" (version ${d.version}).\nReason: ${s.reason}\nSignature digest (SHA-256): ${digest}\n\n${link(config, id)}\n`,
@@ -105,16 +149,39 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
 }
 
 /** Return a submitted version for rework, signed with a reason. */
-export async function returnForRework(db: Kysely<Database>, config: Config, user: SessionUser, id: string, s: SignatureInput) {
+export async function returnForRework(
+  db: Kysely<Database>,
+  config: Config,
+  user: SessionUser,
+  id: string,
+  s: SignatureInput,
+) {
   return db.transaction().execute(async (tx) => {
     const d = await lockFresh(tx, user, id, s.rowVersion)
     requireState(d, ['submitted'], 'returning')
     await checkSignaturePassword(tx, user, s.password)
     const digest = await contentDigest(tx, id)
     const outliers = await signedOutliers(tx, id, d.recommendedFitId)
-    const approvalId = await insertApproval(tx, { dataSetId: id, signerId: user.id, meaning: 'returned for rework', reason: s.reason, digest, selfApproval: false, overrideReason: null, outliers })
+    const approvalId = await insertApproval(tx, {
+      dataSetId: id,
+      signerId: user.id,
+      meaning: 'returned for rework',
+      reason: s.reason,
+      digest,
+      selfApproval: false,
+      overrideReason: null,
+      outliers,
+    })
     const after = await repo.updateDataSet(tx, id, { state: 'returned' })
-    await appendAudit(tx, { actorId: user.id, entity: 'data_set', entityId: id, action: 'return', dataSetId: id, before: { state: 'submitted' }, after: { state: 'returned', approvalId, reason: s.reason } })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: 'return',
+      dataSetId: id,
+      before: { state: 'submitted' },
+      after: { state: 'returned', approvalId, reason: s.reason },
+    })
     await notifyUser(tx, d.createdBy, {
       subject: `Ebullio: "${d.title}" v${d.version} returned for rework`,
       text: `${user.displayName} returned the data set "${d.title}" (version ${d.version}) for rework.\nReason: ${s.reason}\n\n${link(config, id)}\n`,

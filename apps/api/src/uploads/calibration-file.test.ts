@@ -16,7 +16,14 @@ describe('parseCalibrationFile', () => {
     expect(p.standards).toHaveLength(2)
     expect(p.standards[0]).toMatchObject({ label: 'CAL-A', basis: 'mole', fraction1: 0.2, rows: [2, 3] })
     expect(p.standards[0].injections[1]).toEqual({ injection: 2, area1: 20610, area2: 80020, row: 3 })
-    expect(p.mapping).toEqual({ standard: 'standard', basis: 'basis', fraction_1: 'fraction_1', injection: 'injection', area_1: 'area_1', area_2: 'area_2' })
+    expect(p.mapping).toEqual({
+      standard: 'standard',
+      basis: 'basis',
+      fraction_1: 'fraction_1',
+      injection: 'injection',
+      area_1: 'area_1',
+      area_2: 'area_2',
+    })
   })
 
   it('reads a ;-delimited export with decimal commas, BOM and upper-case headers', () => {
@@ -55,12 +62,20 @@ describe('parseCalibrationFile', () => {
   it('stops at the header when a required column is missing', () => {
     const p = parseCalibrationFile('standard,fraction_1,area_1,area_2\nA,0.5,1,1\n')
     expect(p.problems).toEqual([
-      { row: 1, column: 'injection', value: null, message: 'Required column "injection" is missing.', severity: 'error' },
+      {
+        row: 1,
+        column: 'injection',
+        value: null,
+        message: 'Required column "injection" is missing.',
+        severity: 'error',
+      },
     ])
     expect(p.standards).toEqual([])
   })
 
   it('reports a header without data', () => {
-    expect(parseCalibrationFile('standard,fraction_1,injection,area_1,area_2\n').problems[0].message).toBe('The file has a header but no data rows.')
+    expect(parseCalibrationFile('standard,fraction_1,injection,area_1,area_2\n').problems[0].message).toBe(
+      'The file has a header but no data rows.',
+    )
   })
 })

@@ -40,7 +40,13 @@ export interface CalibrationFileParse {
 type Cells = (name: string) => string
 
 /** Read the numeric cell `name`; report a problem and return null when it is not a number. */
-export function numberCell(cell: Cells, name: string, line: number, decimalComma: boolean, problems: UploadProblem[]): number | null {
+export function numberCell(
+  cell: Cells,
+  name: string,
+  line: number,
+  decimalComma: boolean,
+  problems: UploadProblem[],
+): number | null {
   const raw = cell(name)
   if (raw === '') {
     problems.push(uploadError(line, name, raw, 'Value is missing.'))
@@ -52,7 +58,13 @@ export function numberCell(cell: Cells, name: string, line: number, decimalComma
 }
 
 /** Read the peak area `name`, which must be a number above zero. */
-export function areaCell(cell: Cells, name: string, line: number, decimalComma: boolean, problems: UploadProblem[]): number | null {
+export function areaCell(
+  cell: Cells,
+  name: string,
+  line: number,
+  decimalComma: boolean,
+  problems: UploadProblem[],
+): number | null {
   const n = numberCell(cell, name, line, decimalComma, problems)
   if (n !== null && n <= 0) {
     problems.push(uploadError(line, name, cell(name), 'Peak area must be greater than zero.'))
@@ -62,10 +74,17 @@ export function areaCell(cell: Cells, name: string, line: number, decimalComma: 
 }
 
 /** Read the replicate number, a whole number ≥ 1. */
-export function injectionCell(cell: Cells, line: number, decimalComma: boolean, problems: UploadProblem[]): number | null {
+export function injectionCell(
+  cell: Cells,
+  line: number,
+  decimalComma: boolean,
+  problems: UploadProblem[],
+): number | null {
   const n = numberCell(cell, 'injection', line, decimalComma, problems)
   if (n !== null && (!Number.isInteger(n) || n < 1)) {
-    problems.push(uploadError(line, 'injection', cell('injection'), 'Injection number must be a whole number of at least 1.'))
+    problems.push(
+      uploadError(line, 'injection', cell('injection'), 'Injection number must be a whole number of at least 1.'),
+    )
     return null
   }
   return n
@@ -114,12 +133,25 @@ export function parseCalibrationFile(content: Buffer | string): CalibrationFileP
       std = { label, basis, fraction1: fraction ?? NaN, injections: [], rows: [] }
       byLabel.set(label, std)
     } else if (fraction !== null && (std.fraction1 !== fraction || std.basis !== basis)) {
-      problems.push(uploadError(row.line, 'fraction_1', cell('fraction_1'),
-        `Standard ${label} has a different composition on line ${std.rows[0]}.`))
+      problems.push(
+        uploadError(
+          row.line,
+          'fraction_1',
+          cell('fraction_1'),
+          `Standard ${label} has a different composition on line ${std.rows[0]}.`,
+        ),
+      )
     }
     std.rows.push(row.line)
     if (injection !== null && std.injections.some((i) => i.injection === injection)) {
-      problems.push(uploadError(row.line, 'injection', cell('injection'), `Injection ${injection} of standard ${label} appears twice.`))
+      problems.push(
+        uploadError(
+          row.line,
+          'injection',
+          cell('injection'),
+          `Injection ${injection} of standard ${label} appears twice.`,
+        ),
+      )
     } else if (injection !== null && area1 !== null && area2 !== null) {
       std.injections.push({ injection, area1, area2, row: row.line })
     }

@@ -25,7 +25,9 @@ describe('readCsvTable', () => {
   })
 
   it('reports binary content', () => {
-    expect(readCsvTable(Buffer.from([0x50, 0x4b, 0x03, 0x00, 0x01])).problems[0].message).toBe('The file is not a text CSV file.')
+    expect(readCsvTable(Buffer.from([0x50, 0x4b, 0x03, 0x00, 0x01])).problems[0].message).toBe(
+      'The file is not a text CSV file.',
+    )
   })
 
   it('picks the delimiter from the header line', () => {

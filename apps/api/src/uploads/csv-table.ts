@@ -47,7 +47,12 @@ export function readCsvTable(content: Buffer | string): CsvTable {
   const delimiter = detectDelimiter(text)
   const format: CsvFormat = { delimiter, decimalComma: delimiter === ';', byteOrderMark }
   if (text.includes('\u0000')) {
-    return { format, header: [], rows: [], problems: [uploadError(null, null, null, 'The file is not a text CSV file.')] }
+    return {
+      format,
+      header: [],
+      rows: [],
+      problems: [uploadError(null, null, null, 'The file is not a text CSV file.')],
+    }
   }
   let records: { info: { lines: number }; record: string[] }[]
   try {
@@ -61,7 +66,12 @@ export function readCsvTable(content: Buffer | string): CsvTable {
     }) as unknown as typeof records
   } catch (err) {
     const line = (err as { lines?: number }).lines ?? null
-    return { format, header: [], rows: [], problems: [uploadError(line, null, null, `The file could not be read as CSV: ${(err as Error).message}`)] }
+    return {
+      format,
+      header: [],
+      rows: [],
+      problems: [uploadError(line, null, null, `The file could not be read as CSV: ${(err as Error).message}`)],
+    }
   }
   if (records.length === 0) {
     return { format, header: [], rows: [], problems: [uploadError(null, null, null, 'The file is empty.')] }
@@ -85,7 +95,11 @@ export interface ColumnMapping {
 }
 
 /** Match `required` and `optional` canonical names against the header, case- and space-insensitively. */
-export function mapColumns(header: string[], required: readonly string[], optional: readonly string[] = []): ColumnMapping {
+export function mapColumns(
+  header: string[],
+  required: readonly string[],
+  optional: readonly string[] = [],
+): ColumnMapping {
   const norm = (h: string) => h.trim().toLowerCase().replace(/\s+/g, '_')
   const known = new Set([...required, ...optional])
   const columns: ColumnMapping['columns'] = {}

@@ -36,6 +36,8 @@ describe('docs/examples', () => {
     const euro = parseRunFile(read('run-acetone-methanol-semicolon.csv'))
     expect(euro.problems).toEqual([])
     expect(euro.format).toEqual({ delimiter: ';', decimalComma: true, byteOrderMark: true })
-    expect(euro.samples.map((s) => [s.label, s.temperatureK, s.liquid])).toEqual(plain.samples.map((s) => [s.label, s.temperatureK, s.liquid]))
+    expect(euro.samples.map((s) => [s.label, s.temperatureK, s.liquid])).toEqual(
+      plain.samples.map((s) => [s.label, s.temperatureK, s.liquid]),
+    )
   })
 })

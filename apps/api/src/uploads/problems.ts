@@ -12,12 +12,22 @@ export interface UploadProblem {
 }
 
 /** Shorthand for an error-level problem. */
-export function uploadError(row: number | null, column: string | null, value: string | null, message: string): UploadProblem {
+export function uploadError(
+  row: number | null,
+  column: string | null,
+  value: string | null,
+  message: string,
+): UploadProblem {
   return { row, column, value, message, severity: 'error' }
 }
 
 /** Shorthand for a warning-level problem. */
-export function uploadWarning(row: number | null, column: string | null, value: string | null, message: string): UploadProblem {
+export function uploadWarning(
+  row: number | null,
+  column: string | null,
+  value: string | null,
+  message: string,
+): UploadProblem {
   return { row, column, value, message, severity: 'warning' }
 }
 

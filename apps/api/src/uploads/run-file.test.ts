@@ -24,7 +24,13 @@ describe('parseRunFile', () => {
   })
 
   it('accepts mmHg, K and short phase names in any case', () => {
-    const text = [HEADER, 'S1,L,1,1,1,350,k,760,TORR', 'S1,V,1,2,1,,,,', 'S2,liquid,1,1,1,350,K,760,MMHG', 'S2,Vapor,1,2,1,,,,'].join('\n')
+    const text = [
+      HEADER,
+      'S1,L,1,1,1,350,k,760,TORR',
+      'S1,V,1,2,1,,,,',
+      'S2,liquid,1,1,1,350,K,760,MMHG',
+      'S2,Vapor,1,2,1,,,,',
+    ].join('\n')
     const p = parseRunFile(text)
     expect(p.problems).toEqual([])
     // 760 Torr = 101325 Pa exactly; 1 mmHg = 133.322387415 Pa (BIPM SI Brochure, 9th ed., 2019, Table 8)

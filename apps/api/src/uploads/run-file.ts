@@ -9,7 +9,17 @@ import { areaCell, injectionCell, type ParsedInjection } from './calibration-fil
 import { mapColumns, parseNumber, readCsvTable, type CsvFormat } from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
 
-export const RUN_REQUIRED = ['sample', 'phase', 'injection', 'area_1', 'area_2', 't_boil', 't_unit', 'p_baro', 'p_unit'] as const
+export const RUN_REQUIRED = [
+  'sample',
+  'phase',
+  'injection',
+  'area_1',
+  'area_2',
+  't_boil',
+  't_unit',
+  'p_baro',
+  'p_unit',
+] as const
 
 /** Plausible bounds for a boiling measurement (SI). Defaults: 150–650 K, 0.5 kPa–5 MPa. */
 export interface PlausibleBounds {
@@ -18,11 +28,30 @@ export interface PlausibleBounds {
 }
 export const DEFAULT_BOUNDS: PlausibleBounds = { temperatureK: [150, 650], pressurePa: [500, 5e6] }
 
-const TEMPERATURE_UNITS: Record<string, TemperatureUnitName> = { c: 'C', '°c': 'C', degc: 'C', k: 'K', f: 'F', '°f': 'F', degf: 'F' }
+const TEMPERATURE_UNITS: Record<string, TemperatureUnitName> = {
+  c: 'C',
+  '°c': 'C',
+  degc: 'C',
+  k: 'K',
+  f: 'F',
+  '°f': 'F',
+  degf: 'F',
+}
 const PRESSURE_UNITS: Record<string, PressureUnitName> = Object.fromEntries(
-  (['Pa', 'kPa', 'MPa', 'bar', 'mbar', 'atm', 'mmHg', 'torr', 'psi'] as PressureUnitName[]).map((u) => [u.toLowerCase(), u]),
+  (['Pa', 'kPa', 'MPa', 'bar', 'mbar', 'atm', 'mmHg', 'torr', 'psi'] as PressureUnitName[]).map((u) => [
+    u.toLowerCase(),
+    u,
+  ]),
 )
-const PHASES: Record<string, 'liquid' | 'vapour'> = { liquid: 'liquid', l: 'liquid', liq: 'liquid', vapour: 'vapour', vapor: 'vapour', v: 'vapour', vap: 'vapour' }
+const PHASES: Record<string, 'liquid' | 'vapour'> = {
+  liquid: 'liquid',
+  l: 'liquid',
+  liq: 'liquid',
+  vapour: 'vapour',
+  vapor: 'vapour',
+  v: 'vapour',
+  vap: 'vapour',
+}
 
 /** One equilibrium state gathered from its rows. */
 export interface RunSample {
@@ -39,7 +68,11 @@ export interface RunSample {
 }
 
 /** The lines of one sample by phase, so a preview can say "1 of 2 injections used". */
-export interface PhaseRows { liquid: number[]; vapour: number[]; unknown: number[] }
+export interface PhaseRows {
+  liquid: number[]
+  vapour: number[]
+  unknown: number[]
+}
 
 export interface RunFileParse {
   format: CsvFormat
@@ -66,20 +99,42 @@ type Cells = (name: string) => string
 /** Read the optional T and P cells of a row into the sample; conflicting repeats are problems. */
 function readConditions(cell: Cells, line: number, dc: boolean, s: Draft, problems: UploadProblem[]): void {
   const pairs = [
-    { key: 't' as const, value: 't_boil', unit: 't_unit', units: TEMPERATURE_UNITS as Record<string, string>, what: 'temperature', hint: 'C, K or F' },
-    { key: 'p' as const, value: 'p_baro', unit: 'p_unit', units: PRESSURE_UNITS as Record<string, string>, what: 'pressure', hint: 'Pa, kPa, MPa, bar, mbar, atm, mmHg, torr or psi' },
+    {
+      key: 't' as const,
+      value: 't_boil',
+      unit: 't_unit',
+      units: TEMPERATURE_UNITS as Record<string, string>,
+      what: 'temperature',
+      hint: 'C, K or F',
+    },
+    {
+      key: 'p' as const,
+      value: 'p_baro',
+      unit: 'p_unit',
+      units: PRESSURE_UNITS as Record<string, string>,
+      what: 'pressure',
+      hint: 'Pa, kPa, MPa, bar, mbar, atm, mmHg, torr or psi',
+    },
   ]
   for (const pr of pairs) {
     const raw = cell(pr.value)
     if (raw === '') continue
     const value = parseNumber(raw, dc)
-    if (value === null) { problems.push(uploadError(line, pr.value, raw, 'Not a number.')); continue }
+    if (value === null) {
+      problems.push(uploadError(line, pr.value, raw, 'Not a number.'))
+      continue
+    }
     const rawUnit = cell(pr.unit)
     const unit = pr.units[rawUnit.toLowerCase()]
-    if (!unit) { problems.push(uploadError(line, pr.unit, rawUnit, `Unknown ${pr.what} unit; use ${pr.hint}.`)); continue }
+    if (!unit) {
+      problems.push(uploadError(line, pr.unit, rawUnit, `Unknown ${pr.what} unit; use ${pr.hint}.`))
+      continue
+    }
     const prev = s[pr.key]
     if (prev && (prev.value !== value || prev.unit !== unit)) {
-      problems.push(uploadError(line, pr.value, raw, `Sample ${s.label} has a different ${pr.what} on line ${prev.line}.`))
+      problems.push(
+        uploadError(line, pr.value, raw, `Sample ${s.label} has a different ${pr.what} on line ${prev.line}.`),
+      )
     } else if (!prev) {
       s[pr.key] = { value, unit, raw, rawUnit, line } as never
     }
@@ -88,9 +143,15 @@ function readConditions(cell: Cells, line: number, dc: boolean, s: Draft, proble
 
 function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Draft>, problems: UploadProblem[]): void {
   const label = cell('sample')
-  if (label === '') { problems.push(uploadError(line, 'sample', '', 'Sample id is missing.')); return }
+  if (label === '') {
+    problems.push(uploadError(line, 'sample', '', 'Sample id is missing.'))
+    return
+  }
   let s = samples.get(label)
-  if (!s) { s = { label, rows: [], liquid: [], vapour: [], phaseRows: { liquid: [], vapour: [], unknown: [] } }; samples.set(label, s) }
+  if (!s) {
+    s = { label, rows: [], liquid: [], vapour: [], phaseRows: { liquid: [], vapour: [], unknown: [] } }
+    samples.set(label, s)
+  }
   s.rows.push(line)
   readConditions(cell, line, dc, s, problems)
   const phaseRaw = cell('phase')
@@ -104,7 +165,14 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
   if (!phase || injection === null || area1 === null || area2 === null) return
   const list = s[phase]
   if (list.some((i) => i.injection === injection)) {
-    problems.push(uploadError(line, 'injection', cell('injection'), `Injection ${injection} of the ${phase} of sample ${label} appears twice.`))
+    problems.push(
+      uploadError(
+        line,
+        'injection',
+        cell('injection'),
+        `Injection ${injection} of the ${phase} of sample ${label} appears twice.`,
+      ),
+    )
   } else {
     list.push({ injection, area1, area2, row: line })
   }
@@ -113,8 +181,14 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
 /** Turn a gathered sample into SI values, listing what is missing or implausible. */
 function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem[]): RunSample | null {
   const first = s.rows[0]
-  if (s.liquid.length > 0 && s.vapour.length === 0) problems.push(uploadError(first, 'phase', s.label, `Sample ${s.label} has liquid injections but no vapour injection.`))
-  if (s.vapour.length > 0 && s.liquid.length === 0) problems.push(uploadError(first, 'phase', s.label, `Sample ${s.label} has vapour injections but no liquid injection.`))
+  if (s.liquid.length > 0 && s.vapour.length === 0)
+    problems.push(
+      uploadError(first, 'phase', s.label, `Sample ${s.label} has liquid injections but no vapour injection.`),
+    )
+  if (s.vapour.length > 0 && s.liquid.length === 0)
+    problems.push(
+      uploadError(first, 'phase', s.label, `Sample ${s.label} has vapour injections but no liquid injection.`),
+    )
   if (!s.t) problems.push(uploadError(first, 't_boil', null, `Sample ${s.label} has no boiling temperature.`))
   if (!s.p) problems.push(uploadError(first, 'p_baro', null, `Sample ${s.label} has no pressure.`))
   if (!s.t || !s.p || s.liquid.length === 0 || s.vapour.length === 0) return null
@@ -125,19 +199,37 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
   let ok = true
   if (!(temperatureK >= tMin && temperatureK <= tMax)) {
     ok = false
-    problems.push(uploadError(s.t.line, 't_boil', s.t.raw,
-      `Boiling temperature ${temperatureK.toFixed(2)} K is outside the plausible range ${tMin}–${tMax} K.`))
+    problems.push(
+      uploadError(
+        s.t.line,
+        't_boil',
+        s.t.raw,
+        `Boiling temperature ${temperatureK.toFixed(2)} K is outside the plausible range ${tMin}–${tMax} K.`,
+      ),
+    )
   }
   if (!(pressurePa >= pMin && pressurePa <= pMax)) {
     ok = false
-    problems.push(uploadError(s.p.line, 'p_baro', s.p.raw,
-      `Pressure ${(pressurePa / 1000).toFixed(3)} kPa is outside the plausible range ${pMin / 1000}–${pMax / 1000} kPa.`))
+    problems.push(
+      uploadError(
+        s.p.line,
+        'p_baro',
+        s.p.raw,
+        `Pressure ${(pressurePa / 1000).toFixed(3)} kPa is outside the plausible range ${pMin / 1000}–${pMax / 1000} kPa.`,
+      ),
+    )
   }
   if (!ok) return null
   return {
-    label: s.label, firstRow: first, rows: s.rows, temperatureK, pressurePa,
+    label: s.label,
+    firstRow: first,
+    rows: s.rows,
+    temperatureK,
+    pressurePa,
     raw: { temperature: s.t.raw, temperatureUnit: s.t.rawUnit, pressure: s.p.raw, pressureUnit: s.p.rawUnit },
-    liquid: s.liquid, vapour: s.vapour, phaseRows: s.phaseRows,
+    liquid: s.liquid,
+    vapour: s.vapour,
+    phaseRows: s.phaseRows,
   }
 }
 

@@ -32,8 +32,10 @@ export interface CapturedMail {
 }
 
 export const adminApi = {
-  users: (q: UserQuery = {}) => api.get<{ items: UserRow[]; total: number; page: number; pageSize: number }>('/api/admin/users' + query({ ...q })),
-  invite: (body: { email: string; displayName: string; roles: Role[] }) => api.post<{ id: string }>('/api/admin/users', body, { quiet: true }),
+  users: (q: UserQuery = {}) =>
+    api.get<{ items: UserRow[]; total: number; page: number; pageSize: number }>('/api/admin/users' + query({ ...q })),
+  invite: (body: { email: string; displayName: string; roles: Role[] }) =>
+    api.post<{ id: string }>('/api/admin/users', body, { quiet: true }),
   setRoles: (id: string, roles: Role[]) => api.put<{ ok: true }>(`/api/admin/users/${id}/roles`, { roles }),
   deactivate: (id: string) => api.post<{ ok: true }>(`/api/admin/users/${id}/deactivate`),
   activate: (id: string) => api.post<{ ok: true }>(`/api/admin/users/${id}/activate`),

@@ -11,6 +11,8 @@ export interface SignatureBody {
 }
 
 export const approvalsApi = {
-  approve: (dataSetId: string, body: SignatureBody) => api.post<{ dataSet: DataSet; approval: Approval }>(`/api/data-sets/${dataSetId}/approve`, body, { quiet: true }),
-  giveBack: (dataSetId: string, body: SignatureBody) => api.post<{ dataSet: DataSet; approval: Approval }>(`/api/data-sets/${dataSetId}/return`, body, { quiet: true }),
+  approve: (dataSetId: string, body: SignatureBody) =>
+    api.post<{ dataSet: DataSet; approval: Approval }>(`/api/data-sets/${dataSetId}/approve`, body, { quiet: true }),
+  giveBack: (dataSetId: string, body: SignatureBody) =>
+    api.post<{ dataSet: DataSet; approval: Approval }>(`/api/data-sets/${dataSetId}/return`, body, { quiet: true }),
 }

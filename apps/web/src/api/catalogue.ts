@@ -21,7 +21,11 @@ export interface ParametersExport {
     component2: { name: string; cas: string | null; liquidMolarVolume: number | null }
   }
   /** thermo VaporPressureModel fields plus the component they describe (1 = lighter) and `source`. */
-  vaporPressure: (Record<string, unknown> & { kind: string; source: string; component: { index: 1 | 2; name: string; cas: string | null } })[]
+  vaporPressure: (Record<string, unknown> & {
+    kind: string
+    source: string
+    component: { index: 1 | 2; name: string; cas: string | null }
+  })[]
   recommendedFitId: string | null
   fits: {
     id: string
@@ -37,7 +41,20 @@ export interface ParametersExport {
 }
 
 /** A measured equilibrium state of an approved data set, the fields the design screens read: T in K, P in Pa, standard uncertainties (k = 1). */
-export type MeasuredPoint = Pick<PointDto, 'id' | 'seq' | 'sampleLabel' | 'temperatureK' | 'pressurePa' | 'x1' | 'x1Uncertainty' | 'y1' | 'y1Uncertainty' | 'excluded' | 'exclusionReason'>
+export type MeasuredPoint = Pick<
+  PointDto,
+  | 'id'
+  | 'seq'
+  | 'sampleLabel'
+  | 'temperatureK'
+  | 'pressurePa'
+  | 'x1'
+  | 'x1Uncertainty'
+  | 'y1'
+  | 'y1Uncertainty'
+  | 'excluded'
+  | 'exclusionReason'
+>
 
 /** The part of a data set's detail the design screens read: its points and the residuals of each fit. */
 export interface MeasuredData {
@@ -56,7 +73,9 @@ export const exportUrls = {
 export const catalogueApi = {
   /** Approved systems whose component names or CAS numbers match `q`. */
   list: (q: string, page = 1, pageSize = 50) =>
-    api.get<{ items: CatalogueEntry[]; total: number; page: number; pageSize: number }>('/api/catalogue' + query({ q, page, pageSize })),
+    api.get<{ items: CatalogueEntry[]; total: number; page: number; pageSize: number }>(
+      '/api/catalogue' + query({ q, page, pageSize }),
+    ),
   /** Everything needed to compute with an approved version: vapour-pressure sets and every fit. */
   parameters: (dataSetId: string) => api.get<ParametersExport>(exportUrls.parametersJson(dataSetId)),
   /** The approved version's measured points (engineers may read approved versions). */

@@ -11,7 +11,8 @@ export class ApiError extends Error {
   /** Field → message, for inline form validation from a 422 answer. */
   fieldErrors(): Record<string, string> {
     const out: Record<string, string> = {}
-    if (Array.isArray(this.details)) for (const d of this.details as { path: string; message: string }[]) out[d.path] ??= d.message
+    if (Array.isArray(this.details))
+      for (const d of this.details as { path: string; message: string }[]) out[d.path] ??= d.message
     return out
   }
 }
@@ -37,7 +38,10 @@ async function request<T>(method: string, url: string, body?: unknown, opts: Req
     res = await fetch(url, {
       method,
       credentials: 'same-origin',
-      headers: body === undefined || isForm ? { Accept: 'application/json' } : { 'Content-Type': 'application/json', Accept: 'application/json' },
+      headers:
+        body === undefined || isForm
+          ? { Accept: 'application/json' }
+          : { 'Content-Type': 'application/json', Accept: 'application/json' },
       body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
       signal: opts.signal,
     })
@@ -51,7 +55,12 @@ async function request<T>(method: string, url: string, body?: unknown, opts: Req
   const data = type.includes('application/json') ? await res.json() : await res.text()
   if (!res.ok) {
     const e = (data as { error?: { code: string; message: string; details: unknown } })?.error
-    const err = new ApiError(res.status, e?.code ?? 'http_' + res.status, e?.message ?? `The server answered ${res.status}.`, e?.details ?? null)
+    const err = new ApiError(
+      res.status,
+      e?.code ?? 'http_' + res.status,
+      e?.message ?? `The server answered ${res.status}.`,
+      e?.details ?? null,
+    )
     if (!opts.quiet && res.status !== 401) listeners.forEach((l) => l(err))
     throw err
   }

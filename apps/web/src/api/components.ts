@@ -5,7 +5,9 @@ import { api, query } from './client'
 export type Component = ComponentDto
 
 /** A published vapour-pressure correlation, stored as published (thermo's VaporPressureModel in `parameters`). */
-export type VaporPressureSet = Omit<VaporPressureSetDto, 'parameters'> & { parameters: Record<string, unknown> & { kind: string } }
+export type VaporPressureSet = Omit<VaporPressureSetDto, 'parameters'> & {
+  parameters: Record<string, unknown> & { kind: string }
+}
 
 /** A measured pure-component boiling point: T in K at P in Pa. */
 export interface PureMeasurement {
@@ -35,11 +37,18 @@ export interface VaporPressureInput {
 }
 
 export const componentsApi = {
-  list: (o: { q?: string; page?: number; pageSize?: number; sort?: 'name' | 'created_at' | 'molar_mass'; order?: 'asc' | 'desc' }) =>
-    api.get<{ items: Component[]; total: number; page: number; pageSize: number }>('/api/components' + query(o)),
+  list: (o: {
+    q?: string
+    page?: number
+    pageSize?: number
+    sort?: 'name' | 'created_at' | 'molar_mass'
+    order?: 'asc' | 'desc'
+  }) => api.get<{ items: Component[]; total: number; page: number; pageSize: number }>('/api/components' + query(o)),
   get: (id: string) => api.get<ComponentDetail>(`/api/components/${id}`),
   create: (body: ComponentInput) => api.post<Component>('/api/components', body, { quiet: true }),
-  update: (id: string, rowVersion: number, patch: Partial<ComponentInput>) => api.patch<Component>(`/api/components/${id}`, { rowVersion, ...patch }, { quiet: true }),
+  update: (id: string, rowVersion: number, patch: Partial<ComponentInput>) =>
+    api.patch<Component>(`/api/components/${id}`, { rowVersion, ...patch }, { quiet: true }),
   remove: (id: string) => api.del<void>(`/api/components/${id}`),
-  addVaporPressureSet: (id: string, body: VaporPressureInput) => api.post<VaporPressureSet>(`/api/components/${id}/vapor-pressure-sets`, body, { quiet: true }),
+  addVaporPressureSet: (id: string, body: VaporPressureInput) =>
+    api.post<VaporPressureSet>(`/api/components/${id}/vapor-pressure-sets`, body, { quiet: true }),
 }

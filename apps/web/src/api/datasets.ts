@@ -79,7 +79,15 @@ export interface DataSetDetail {
   consistency: ConsistencyResult[]
   approvals: Approval[]
   comments: CommentItem[]
-  uploads: { id: string; kind: string; originalName: string; sizeBytes?: number; sha256?: string; uploadedAt?: string; [k: string]: unknown }[]
+  uploads: {
+    id: string
+    kind: string
+    originalName: string
+    sizeBytes?: number
+    sha256?: string
+    uploadedAt?: string
+    [k: string]: unknown
+  }[]
   versions: { id: string; version: number; state: DataSetState; approvedAt: string | null }[]
   /** the calibrations behind the points (file, date, model, coefficients ± u, range) */
   calibrations: CalibrationSummary[]
@@ -205,27 +213,46 @@ export interface PureCheckResult {
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
-  const { system, points, fits, consistency, approvals, comments, uploads, versions, calibrations, ...dataSet } = await api.get<DetailAnswer>(`${base}/${id}`)
-  return { dataSet: dataSet as DataSet, system, points, fits, consistency, approvals, comments: comments ?? [], uploads: uploads ?? [], versions: versions ?? [], calibrations: calibrations ?? [] }
+  const { system, points, fits, consistency, approvals, comments, uploads, versions, calibrations, ...dataSet } =
+    await api.get<DetailAnswer>(`${base}/${id}`)
+  return {
+    dataSet: dataSet as DataSet,
+    system,
+    points,
+    fits,
+    consistency,
+    approvals,
+    comments: comments ?? [],
+    uploads: uploads ?? [],
+    versions: versions ?? [],
+    calibrations: calibrations ?? [],
+  }
 }
 
 export const datasetsApi = {
   list: ({ limit, offset, ...q }: DataSetListQuery) =>
-    api.get<{ items: DataSetListItem[]; total: number }>(base + query({ ...q, page: Math.floor(offset / limit) + 1, pageSize: limit })),
+    api.get<{ items: DataSetListItem[]; total: number }>(
+      base + query({ ...q, page: Math.floor(offset / limit) + 1, pageSize: limit }),
+    ),
   create: (body: NewDataSet) => api.post<DataSet>(base, body, { quiet: true }),
   get: getDetail,
-  update: (id: string, body: Partial<Omit<NewDataSet, 'systemId'>> & { rowVersion: number }) => api.patch<DataSet>(`${base}/${id}`, body, { quiet: true }),
+  update: (id: string, body: Partial<Omit<NewDataSet, 'systemId'>> & { rowVersion: number }) =>
+    api.patch<DataSet>(`${base}/${id}`, body, { quiet: true }),
   exclude: (id: string, pointId: string, rowVersion: number, excluded: boolean, reason: string | null) =>
     api.patch<Point>(`${base}/${id}/points/${pointId}`, { rowVersion, excluded, reason }, { quiet: true }),
-  runFits: (id: string, req: FitRequest) => api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, req, { quiet: true }),
+  runFits: (id: string, req: FitRequest) =>
+    api.post<{ fits: Fit[]; rowVersion: number }>(`${base}/${id}/fits`, req, { quiet: true }),
   recommend: (id: string, fitId: string) => api.post<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
-  runConsistency: (id: string, model?: ModelName) => api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
+  runConsistency: (id: string, model?: ModelName) =>
+    api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
   submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   band: (id: string, fitId: string) => api.get<FitBand>(`${base}/${id}/fits/${fitId}/band`, { quiet: true }),
   nextCompositions: (id: string, fitId: string, count = 5, criterion: SuggestionCriterionName = 'sigma-y') =>
     api.get<{ items: SuggestedComposition[]; P: number; fitId: string; criterion: SuggestionCriterionName }>(
-      `${base}/${id}/fits/${fitId}/next-compositions` + query({ count, criterion }), { quiet: true }),
+      `${base}/${id}/fits/${fitId}/next-compositions` + query({ count, criterion }),
+      { quiet: true },
+    ),
   pureComponentCheck: (id: string) => api.get<PureCheckResult>(`${base}/${id}/pure-component-check`, { quiet: true }),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
   audit: (id: string) => api.get<{ items: AuditEntry[] }>(`${base}/${id}/audit`),

@@ -68,8 +68,22 @@ export interface UploadPreview {
   mapping: Record<string, string>
   extraColumns: string[]
   samples?: PreviewSample[]
-  standards?: { label: string; basis?: string; fraction1?: number; injections?: { injection: number; area1: number; area2: number; row: number }[]; [k: string]: unknown }[]
-  calibration?: { model: string; coefficients: number[]; coefficientNames: string[]; standardErrors: number[]; rSquared: number; calibratedRange: { x1: [number, number] }; [k: string]: unknown } | null
+  standards?: {
+    label: string
+    basis?: string
+    fraction1?: number
+    injections?: { injection: number; area1: number; area2: number; row: number }[]
+    [k: string]: unknown
+  }[]
+  calibration?: {
+    model: string
+    coefficients: number[]
+    coefficientNames: string[]
+    standardErrors: number[]
+    rSquared: number
+    calibratedRange: { x1: [number, number] }
+    [k: string]: unknown
+  } | null
   file?: { name: string; sizeBytes: number; sha256: string }
   format?: { delimiter: string; decimalComma: boolean; byteOrderMark: boolean }
   errorCount?: number
@@ -95,7 +109,8 @@ function send<T>(url: string, form: FormData, onProgress?: (fraction: number) =>
     xhr.withCredentials = true
     xhr.setRequestHeader('Accept', 'application/json')
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress?.(e.loaded / e.total)
-    xhr.onerror = () => reject(new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.'))
+    xhr.onerror = () =>
+      reject(new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.'))
     xhr.onload = () => {
       let data: unknown = null
       try {
@@ -105,7 +120,14 @@ function send<T>(url: string, form: FormData, onProgress?: (fraction: number) =>
       }
       if (xhr.status >= 200 && xhr.status < 300) return resolve(data as T)
       const e = (data as { error?: { code: string; message: string; details: unknown } } | null)?.error
-      reject(new ApiError(xhr.status, e?.code ?? 'http_' + xhr.status, e?.message ?? `The server answered ${xhr.status}.`, e?.details ?? null))
+      reject(
+        new ApiError(
+          xhr.status,
+          e?.code ?? 'http_' + xhr.status,
+          e?.message ?? `The server answered ${xhr.status}.`,
+          e?.details ?? null,
+        ),
+      )
     }
     xhr.send(form)
   })
@@ -140,12 +162,28 @@ const target = (dataSetId: string, kind: UploadKind) =>
 
 export const uploadsApi = {
   /** Parse and check a file; nothing is stored. */
-  preview: (dataSetId: string, kind: UploadKind, file: File, fields: Record<string, string | undefined>, onProgress?: (f: number) => void) =>
-    send<UploadPreview>(`${target(dataSetId, kind)}/preview`, form(file, fields), onProgress),
+  preview: (
+    dataSetId: string,
+    kind: UploadKind,
+    file: File,
+    fields: Record<string, string | undefined>,
+    onProgress?: (f: number) => void,
+  ) => send<UploadPreview>(`${target(dataSetId, kind)}/preview`, form(file, fields), onProgress),
   /** Store the file and everything parsed from it, in one transaction. */
-  commit: (dataSetId: string, kind: UploadKind, file: File, fields: Record<string, string | undefined>, onProgress?: (f: number) => void) =>
-    send<{ uploadId?: string; pointCount?: number; id?: string; [k: string]: unknown }>(target(dataSetId, kind), form(file, fields), onProgress),
+  commit: (
+    dataSetId: string,
+    kind: UploadKind,
+    file: File,
+    fields: Record<string, string | undefined>,
+    onProgress?: (f: number) => void,
+  ) =>
+    send<{ uploadId?: string; pointCount?: number; id?: string; [k: string]: unknown }>(
+      target(dataSetId, kind),
+      form(file, fields),
+      onProgress,
+    ),
   gcMethods: () => api.get<{ items: GcMethodOption[] }>('/api/gc-methods'),
-  calibrations: (systemId: string) => api.get<{ items: ActiveCalibration[] }>(`/api/calibrations${query({ systemId, status: 'active' })}`),
+  calibrations: (systemId: string) =>
+    api.get<{ items: ActiveCalibration[] }>(`/api/calibrations${query({ systemId, status: 'active' })}`),
   originalUrl: (uploadId: string) => `/api/uploads/${uploadId}/file`,
 }

@@ -9,7 +9,7 @@ router.beforeEach(async (to) => {
   const session = useSessionStore()
   if (!session.loaded) await session.load().catch(() => null)
   if (to.meta.public) {
-    if (session.user && (to.name === 'sign-in')) return { path: (to.query.next as string) || '/' }
+    if (session.user && to.name === 'sign-in') return { path: (to.query.next as string) || '/' }
     return true
   }
   if (!session.user) return { name: 'sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} }

@@ -10,6 +10,12 @@ declare module 'vue-router' {
     /** Holders of any of these roles may open the page; absent = any signed-in user. */
     roles?: Role[]
     /** Show in the side navigation under this group. */
-    nav?: { group: 'Laboratory' | 'Review' | 'Design' | 'Administration' | 'You'; label: string; icon: string; order: number; devOnly?: boolean }
+    nav?: {
+      group: 'Laboratory' | 'Review' | 'Design' | 'Administration' | 'You'
+      label: string
+      icon: string
+      order: number
+      devOnly?: boolean
+    }
   }
 }

@@ -9,7 +9,11 @@ export const appRoutes: RouteRecordRaw[] = [
     path: '/datasets',
     name: 'datasets',
     component: () => import('../views/datasets/DatasetsListView.vue'),
-    meta: { title: 'Data sets', roles: ['analyst', 'lead_chemist', 'reviewer'], nav: { group: 'Laboratory', label: 'Data sets', icon: 'pi pi-table', order: 10 } },
+    meta: {
+      title: 'Data sets',
+      roles: ['analyst', 'lead_chemist', 'reviewer'],
+      nav: { group: 'Laboratory', label: 'Data sets', icon: 'pi pi-table', order: 10 },
+    },
   },
   {
     path: '/datasets/new',
@@ -27,19 +31,31 @@ export const appRoutes: RouteRecordRaw[] = [
     path: '/approvals',
     name: 'approvals',
     component: () => import('../views/approvals/ApprovalsQueueView.vue'),
-    meta: { title: 'Awaiting signature', roles: ['lead_chemist'], nav: { group: 'Review', label: 'Awaiting signature', icon: 'pi pi-verified', order: 20 } },
+    meta: {
+      title: 'Awaiting signature',
+      roles: ['lead_chemist'],
+      nav: { group: 'Review', label: 'Awaiting signature', icon: 'pi pi-verified', order: 20 },
+    },
   },
   {
     path: '/threads',
     name: 'threads',
     component: () => import('../views/threads/MyThreadsView.vue'),
-    meta: { title: 'My open threads', roles: ['reviewer', 'lead_chemist', 'analyst'], nav: { group: 'Review', label: 'My open threads', icon: 'pi pi-comments', order: 21 } },
+    meta: {
+      title: 'My open threads',
+      roles: ['reviewer', 'lead_chemist', 'analyst'],
+      nav: { group: 'Review', label: 'My open threads', icon: 'pi pi-comments', order: 21 },
+    },
   },
   {
     path: '/systems',
     name: 'catalogue',
     component: () => import('../views/catalogue/CatalogueView.vue'),
-    meta: { title: 'Approved systems', roles: ['engineer'], nav: { group: 'Design', label: 'Approved systems', icon: 'pi pi-book', order: 30 } },
+    meta: {
+      title: 'Approved systems',
+      roles: ['engineer'],
+      nav: { group: 'Design', label: 'Approved systems', icon: 'pi pi-book', order: 30 },
+    },
   },
   {
     path: '/systems/:id',
@@ -51,25 +67,41 @@ export const appRoutes: RouteRecordRaw[] = [
     path: '/admin/people',
     name: 'admin-users',
     component: () => import('../views/admin/AdminUsersView.vue'),
-    meta: { title: 'People and roles', roles: ['admin'], nav: { group: 'Administration', label: 'People and roles', icon: 'pi pi-users', order: 40 } },
+    meta: {
+      title: 'People and roles',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'People and roles', icon: 'pi pi-users', order: 40 },
+    },
   },
   {
     path: '/admin/components',
     name: 'admin-components',
     component: () => import('../views/admin/AdminComponentsView.vue'),
-    meta: { title: 'Components', roles: ['admin'], nav: { group: 'Administration', label: 'Components', icon: 'pi pi-box', order: 41 } },
+    meta: {
+      title: 'Components',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'Components', icon: 'pi pi-box', order: 41 },
+    },
   },
   {
     path: '/admin/gc-methods',
     name: 'admin-gc',
     component: () => import('../views/admin/AdminGcMethodsView.vue'),
-    meta: { title: 'GC methods', roles: ['admin'], nav: { group: 'Administration', label: 'GC methods', icon: 'pi pi-sliders-h', order: 42 } },
+    meta: {
+      title: 'GC methods',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'GC methods', icon: 'pi pi-sliders-h', order: 42 },
+    },
   },
   {
     path: '/admin/mail',
     name: 'admin-mail',
     component: () => import('../views/admin/MailCaptureView.vue'),
-    meta: { title: 'Captured mail', roles: ['admin'], nav: { group: 'Administration', label: 'Captured mail', icon: 'pi pi-envelope', order: 43, devOnly: true } },
+    meta: {
+      title: 'Captured mail',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'Captured mail', icon: 'pi pi-envelope', order: 43, devOnly: true },
+    },
   },
   {
     path: '/account',
@@ -77,15 +109,45 @@ export const appRoutes: RouteRecordRaw[] = [
     component: () => import('../views/AccountView.vue'),
     meta: { title: 'Your account', nav: { group: 'You', label: 'Your account', icon: 'pi pi-user', order: 90 } },
   },
-  { path: '/forbidden', name: 'forbidden', component: () => import('../views/ForbiddenView.vue'), meta: { title: 'Not allowed' } },
+  {
+    path: '/forbidden',
+    name: 'forbidden',
+    component: () => import('../views/ForbiddenView.vue'),
+    meta: { title: 'Not allowed' },
+  },
 ]
 
 export const routes: RouteRecordRaw[] = [
-  { path: '/sign-in', name: 'sign-in', component: () => import('../views/auth/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
-  { path: '/forgot-password', name: 'forgot', component: () => import('../views/auth/ForgotPasswordView.vue'), meta: { public: true, title: 'Forgotten password' } },
-  { path: '/reset-password/:token', name: 'reset', component: () => import('../views/auth/ResetPasswordView.vue'), meta: { public: true, title: 'New password' } },
-  { path: '/welcome/:token', name: 'welcome', component: () => import('../views/auth/AcceptInviteView.vue'), meta: { public: true, title: 'Welcome' } },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('../views/auth/SignInView.vue'),
+    meta: { public: true, title: 'Sign in' },
+  },
+  {
+    path: '/forgot-password',
+    name: 'forgot',
+    component: () => import('../views/auth/ForgotPasswordView.vue'),
+    meta: { public: true, title: 'Forgotten password' },
+  },
+  {
+    path: '/reset-password/:token',
+    name: 'reset',
+    component: () => import('../views/auth/ResetPasswordView.vue'),
+    meta: { public: true, title: 'New password' },
+  },
+  {
+    path: '/welcome/:token',
+    name: 'welcome',
+    component: () => import('../views/auth/AcceptInviteView.vue'),
+    meta: { public: true, title: 'Welcome' },
+  },
   // lazily loaded, so the sign-in page carries neither the frame's navigation nor what it imports
   { path: '/', component: () => import('../components/base/AppFrame.vue'), children: appRoutes },
-  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true, title: 'Page not found' } },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('../views/NotFoundView.vue'),
+    meta: { public: true, title: 'Page not found' },
+  },
 ]

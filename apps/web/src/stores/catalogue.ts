@@ -44,7 +44,10 @@ export const useCatalogueStore = defineStore('catalogue', () => {
     const cached = measured.value[dataSetId]
     if (cached) return cached
     const r = await catalogueApi.measured(dataSetId)
-    const m = { points: r.points, fits: r.fits.map((f) => ({ id: f.id, pointIds: f.pointIds, residuals: f.residuals })) }
+    const m = {
+      points: r.points,
+      fits: r.fits.map((f) => ({ id: f.id, pointIds: f.pointIds, residuals: f.residuals })),
+    }
     measured.value[dataSetId] = m
     return m
   }

@@ -1,6 +1,12 @@
 import { defineStore } from 'pinia'
 import { ref } from 'vue'
-import { componentsApi, type Component, type ComponentDetail, type ComponentInput, type VaporPressureInput } from '../api/components'
+import {
+  componentsApi,
+  type Component,
+  type ComponentDetail,
+  type ComponentInput,
+  type VaporPressureInput,
+} from '../api/components'
 
 /** Pure components for the admin screen: one page of the list and the component opened. */
 export const useComponentsStore = defineStore('components', () => {
@@ -10,7 +16,13 @@ export const useComponentsStore = defineStore('components', () => {
   const error = ref<string | null>(null)
   const current = ref<ComponentDetail | null>(null)
   const currentLoading = ref(false)
-  const query = ref({ q: '', page: 1, pageSize: 25, sort: 'name' as 'name' | 'created_at' | 'molar_mass', order: 'asc' as 'asc' | 'desc' })
+  const query = ref({
+    q: '',
+    page: 1,
+    pageSize: 25,
+    sort: 'name' as 'name' | 'created_at' | 'molar_mass',
+    order: 'asc' as 'asc' | 'desc',
+  })
 
   async function load() {
     loading.value = true
@@ -51,5 +63,19 @@ export const useComponentsStore = defineStore('components', () => {
     await componentsApi.addVaporPressureSet(id, body)
     await open(id)
   }
-  return { items, total, loading, error, current, currentLoading, query, load, open, create, update, remove, addVaporPressureSet }
+  return {
+    items,
+    total,
+    loading,
+    error,
+    current,
+    currentLoading,
+    query,
+    load,
+    open,
+    create,
+    update,
+    remove,
+    addVaporPressureSet,
+  }
 })

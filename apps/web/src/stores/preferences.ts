@@ -25,7 +25,13 @@ export const PRESSURE_CHOICES: { value: PressureChoice; label: string }[] = [
  * (BIPM SI Brochure, 9th ed., 2019, Table 8: 1 mmHg = 133.322387415 Pa, 1 atm = 101325 Pa, 1 bar = 1e5 Pa;
  * NIST SP 811, 2008 ed., Appendix B.8 (from memory): 1 psi = 6894.757293168 Pa).
  */
-export const PA_PER: Readonly<Record<PressureChoice, number>> = { kPa: 1000, mmHg: 133.322387415, bar: 1e5, atm: 101325, psi: 6894.757293168 }
+export const PA_PER: Readonly<Record<PressureChoice, number>> = {
+  kPa: 1000,
+  mmHg: 133.322387415,
+  bar: 1e5,
+  atm: 101325,
+  psi: 6894.757293168,
+}
 /** Decimals that keep a typical laboratory reading meaningful in each unit. */
 const P_DECIMALS: Record<PressureChoice, number> = { kPa: 2, mmHg: 1, bar: 4, atm: 4, psi: 3 }
 
@@ -34,7 +40,11 @@ const P_DECIMALS: Record<PressureChoice, number> = { kPa: 2, mmHg: 1, bar: 4, at
  * InputNumber formats), so a field and a label show the same digits (101325 Pa is 1.0133 bar in both).
  */
 export function roundShown(v: number, decimals: number): string {
-  return new Intl.NumberFormat('en-US', { useGrouping: false, minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(v)
+  return new Intl.NumberFormat('en-US', {
+    useGrouping: false,
+    minimumFractionDigits: decimals,
+    maximumFractionDigits: decimals,
+  }).format(v)
 }
 
 /**
@@ -75,9 +85,11 @@ export const usePreferencesStore = defineStore('preferences', () => {
   const pLabel = () => pressureUnit.value
 
   /** Kelvin → display value (°F = (T − 273.15)·9/5 + 32, exact by definition). */
-  const tFromK = (T: number) => (temperatureUnit.value === 'C' ? T - 273.15 : temperatureUnit.value === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T)
+  const tFromK = (T: number) =>
+    temperatureUnit.value === 'C' ? T - 273.15 : temperatureUnit.value === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T
   /** Display value → kelvin. */
-  const tToK = (v: number) => (temperatureUnit.value === 'C' ? v + 273.15 : temperatureUnit.value === 'F' ? ((v - 32) * 5) / 9 + 273.15 : v)
+  const tToK = (v: number) =>
+    temperatureUnit.value === 'C' ? v + 273.15 : temperatureUnit.value === 'F' ? ((v - 32) * 5) / 9 + 273.15 : v
   /** A temperature difference in K → the display unit's difference (the same number in °C, × 9/5 in °F). */
   const dT = (d: number) => (temperatureUnit.value === 'F' ? (d * 9) / 5 : d)
   /** Pascal → display value. */
@@ -100,7 +112,25 @@ export const usePreferencesStore = defineStore('preferences', () => {
   }
   /** "101.33 kPa" from pascal. */
   const fmtP = (P: number | null | undefined, decimals?: number) =>
-    P === null || P === undefined || !Number.isFinite(P) ? '—' : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
+    P === null || P === undefined || !Number.isFinite(P)
+      ? '—'
+      : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
 
-  return { temperatureUnit, pressureUnit, tLabel, dTLabel, pLabel, tFromK, tToK, dT, pFromPa, pToPa, pDecimals, pShown, fmtT, fmtDT, fmtP }
+  return {
+    temperatureUnit,
+    pressureUnit,
+    tLabel,
+    dTLabel,
+    pLabel,
+    tFromK,
+    tToK,
+    dT,
+    pFromPa,
+    pToPa,
+    pDecimals,
+    pShown,
+    fmtT,
+    fmtDT,
+    fmtP,
+  }
 })

@@ -7,8 +7,17 @@ import { adminApi, type UserQuery, type UserRow } from '../api/admin'
 export const useUsersStore = defineStore('users', () => {
   const items = ref<UserRow[]>([])
   const total = ref(0)
-  const filter = reactive<Required<Pick<UserQuery, 'page' | 'pageSize' | 'sort' | 'order'>> & Omit<UserQuery, 'page' | 'pageSize' | 'sort' | 'order'>>({
-    q: '', role: undefined, status: undefined, sort: 'name', order: 'asc', page: 1, pageSize: 20,
+  const filter = reactive<
+    Required<Pick<UserQuery, 'page' | 'pageSize' | 'sort' | 'order'>> &
+      Omit<UserQuery, 'page' | 'pageSize' | 'sort' | 'order'>
+  >({
+    q: '',
+    role: undefined,
+    status: undefined,
+    sort: 'name',
+    order: 'asc',
+    page: 1,
+    pageSize: 20,
   })
   const loading = ref(false)
   const error = ref<string | null>(null)

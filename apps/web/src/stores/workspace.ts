@@ -1,7 +1,13 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { commentsApi, type CommentItem } from '../api/comments'
-import { datasetsApi, type DataSetDetail, type FitRequest, type ModelName, type VaporPressureSet } from '../api/datasets'
+import {
+  datasetsApi,
+  type DataSetDetail,
+  type FitRequest,
+  type ModelName,
+  type VaporPressureSet,
+} from '../api/datasets'
 import { systemsLabApi } from '../api/systems-lab'
 
 /** The preferred (else newest) vapour-pressure set's model, as the server picks it for its own curves. */
@@ -22,7 +28,10 @@ export const useWorkspaceStore = defineStore('workspace', () => {
   async function vaporPressureFor(d: DataSetDetail): Promise<DataSetDetail['vaporPressure']> {
     if (vpCache.has(d.system.id)) return vpCache.get(d.system.id)
     try {
-      const [c1, c2] = await Promise.all([systemsLabApi.component(d.system.component1.id), systemsLabApi.component(d.system.component2.id)])
+      const [c1, c2] = await Promise.all([
+        systemsLabApi.component(d.system.component1.id),
+        systemsLabApi.component(d.system.component2.id),
+      ])
       const a = preferredModel(c1.vaporPressureSets)
       const b = preferredModel(c2.vaporPressureSets)
       const vp = a && b ? ([a, b] as [Record<string, unknown>, Record<string, unknown>]) : null
@@ -85,5 +94,22 @@ export const useWorkspaceStore = defineStore('workspace', () => {
     await (resolved ? commentsApi.resolve(ds.value!.id, id) : commentsApi.reopen(ds.value!.id, id))
     await reload()
   }
-  return { detail, comments, loading, error, status, ds, editable, load, reload, exclude, runFits, recommend, runConsistency, submit, addComment, setResolved }
+  return {
+    detail,
+    comments,
+    loading,
+    error,
+    status,
+    ds,
+    editable,
+    load,
+    reload,
+    exclude,
+    runFits,
+    recommend,
+    runConsistency,
+    submit,
+    addComment,
+    setResolved,
+  }
 })

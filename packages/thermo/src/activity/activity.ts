@@ -10,31 +10,41 @@ function finite(a: number, b: number): boolean {
 
 /** Validate an activity model once at the boundary; throws a ThermoError naming the bad field. */
 export function checkActivityModel(model: ActivityModel): void {
-  if (model === null || typeof model !== 'object') throw new ThermoError('invalid-model', 'An activity-coefficient model is required.')
+  if (model === null || typeof model !== 'object')
+    throw new ThermoError('invalid-model', 'An activity-coefficient model is required.')
   switch (model.kind) {
     case 'ideal':
       return
     case 'margules':
-      if (!finite(model.A12, model.A21)) throw new ThermoError('invalid-model', 'Margules parameters A12 and A21 must be finite numbers.')
+      if (!finite(model.A12, model.A21))
+        throw new ThermoError('invalid-model', 'Margules parameters A12 and A21 must be finite numbers.')
       return
     case 'van-laar':
-      if (!finite(model.A12, model.A21)) throw new ThermoError('invalid-model', 'Van Laar parameters A12 and A21 must be finite numbers.')
-      if (model.A12 * model.A21 < 0) throw new ThermoError('invalid-model', 'Van Laar parameters A12 and A21 must have the same sign.')
+      if (!finite(model.A12, model.A21))
+        throw new ThermoError('invalid-model', 'Van Laar parameters A12 and A21 must be finite numbers.')
+      if (model.A12 * model.A21 < 0)
+        throw new ThermoError('invalid-model', 'Van Laar parameters A12 and A21 must have the same sign.')
       return
     case 'wilson':
-      if (!finite(model.a12, model.a21)) throw new ThermoError('invalid-model', 'Wilson parameters a12 and a21 must be finite numbers (J/mol).')
+      if (!finite(model.a12, model.a21))
+        throw new ThermoError('invalid-model', 'Wilson parameters a12 and a21 must be finite numbers (J/mol).')
       if (!(model.V1 > 0 && model.V2 > 0 && finite(model.V1, model.V2))) {
         throw new ThermoError('invalid-model', 'Wilson needs positive liquid molar volumes V1 and V2 (cm³/mol).')
       }
       return
     case 'nrtl':
-      if (!finite(model.b12, model.b21)) throw new ThermoError('invalid-model', 'NRTL parameters b12 and b21 must be finite numbers (J/mol).')
+      if (!finite(model.b12, model.b21))
+        throw new ThermoError('invalid-model', 'NRTL parameters b12 and b21 must be finite numbers (J/mol).')
       if (!(model.alpha > 0 && model.alpha <= 1)) {
-        throw new ThermoError('invalid-model', `The NRTL non-randomness parameter alpha must be between 0 and 1; got ${model.alpha}.`)
+        throw new ThermoError(
+          'invalid-model',
+          `The NRTL non-randomness parameter alpha must be between 0 and 1; got ${model.alpha}.`,
+        )
       }
       return
     case 'uniquac':
-      if (!finite(model.a12, model.a21)) throw new ThermoError('invalid-model', 'UNIQUAC parameters a12 and a21 must be finite numbers (J/mol).')
+      if (!finite(model.a12, model.a21))
+        throw new ThermoError('invalid-model', 'UNIQUAC parameters a12 and a21 must be finite numbers (J/mol).')
       if (![model.r1, model.r2, model.q1, model.q2].every((v) => Number.isFinite(v) && v > 0)) {
         throw new ThermoError('invalid-model', 'UNIQUAC needs positive structural parameters r1, r2, q1 and q2.')
       }

@@ -1,1 +1,7 @@
-export { activityCoefficients, excessGibbsOverRT, checkActivityModel, thermodynamicFactor, unstableRange } from './activity.js'
+export {
+  activityCoefficients,
+  excessGibbsOverRT,
+  checkActivityModel,
+  thermodynamicFactor,
+  unstableRange,
+} from './activity.js'

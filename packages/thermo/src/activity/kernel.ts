@@ -12,25 +12,33 @@ export function lnGammaT(model: ActivityModel, x1: number, T: number, out: Float
   const x2 = 1 - x1
   switch (model.kind) {
     case 'ideal':
-      out[0] = 0; out[1] = 0; out[2] = 0; out[3] = 0
+      out[0] = 0
+      out[1] = 0
+      out[2] = 0
+      out[3] = 0
       return
     case 'margules': {
       const { A12, A21 } = model
       out[0] = x2 * x2 * (A12 + 2 * (A21 - A12) * x1)
       out[1] = x1 * x1 * (A21 + 2 * (A12 - A21) * x2)
-      out[2] = 0; out[3] = 0
+      out[2] = 0
+      out[3] = 0
       return
     }
     case 'van-laar': {
       const { A12, A21 } = model
       const d = A12 * x1 + A21 * x2
-      if (d === 0) { out[0] = 0; out[1] = 0 } else {
+      if (d === 0) {
+        out[0] = 0
+        out[1] = 0
+      } else {
         const f1 = (A21 * x2) / d
         const f2 = (A12 * x1) / d
         out[0] = A12 * f1 * f1
         out[1] = A21 * f2 * f2
       }
-      out[2] = 0; out[3] = 0
+      out[2] = 0
+      out[3] = 0
       return
     }
     case 'wilson':
@@ -42,7 +50,13 @@ export function lnGammaT(model: ActivityModel, x1: number, T: number, out: Float
   }
 }
 
-function wilson(m: Extract<ActivityModel, { kind: 'wilson' }>, x1: number, x2: number, T: number, out: Float64Array): void {
+function wilson(
+  m: Extract<ActivityModel, { kind: 'wilson' }>,
+  x1: number,
+  x2: number,
+  T: number,
+  out: Float64Array,
+): void {
   const RT = R * T
   const L12 = (m.V2 / m.V1) * Math.exp(-m.a12 / RT)
   const L21 = (m.V1 / m.V2) * Math.exp(-m.a21 / RT)
@@ -87,7 +101,13 @@ function nrtl(m: Extract<ActivityModel, { kind: 'nrtl' }>, x1: number, x2: numbe
   out[3] = x1 * x1 * (dt12 * v1 + t12 * dv1 + dt21 * v2 + t21 * dv2)
 }
 
-function uniquac(m: Extract<ActivityModel, { kind: 'uniquac' }>, x1: number, x2: number, T: number, out: Float64Array): void {
+function uniquac(
+  m: Extract<ActivityModel, { kind: 'uniquac' }>,
+  x1: number,
+  x2: number,
+  T: number,
+  out: Float64Array,
+): void {
   const { r1, r2, q1, q2 } = m
   const z2 = 5 // z/2 with coordination number z = 10
   const sr = r1 * x1 + r2 * x2

@@ -21,7 +21,15 @@ const B5 = [35 / 384, 0, 500 / 1113, 125 / 192, -2187 / 6784, 11 / 84, 0]
 const B4 = [5179 / 57600, 0, 7571 / 16695, 393 / 640, -92097 / 339200, 187 / 2100, 1 / 40]
 
 /** Coefficients of the 4th-order continuous extension (Hairer, Nørsett & Wanner, Solving ODEs I, dopri5 dense output). */
-const D = [-12715105075 / 11282082432, 0, 87487479700 / 32700410799, -10690763975 / 1880347072, 701980252875 / 199316789632, -1453857185 / 822651844, 69997945 / 29380423]
+const D = [
+  -12715105075 / 11282082432,
+  0,
+  87487479700 / 32700410799,
+  -10690763975 / 1880347072,
+  701980252875 / 199316789632,
+  -1453857185 / 822651844,
+  69997945 / 29380423,
+]
 
 /** One Dormand–Prince step of size h from x: the 5th-order value, the error estimate and the stage slopes. */
 export function dopriStep(f: (x: number) => number, x: number, h: number): { x: number; error: number; k: number[] } {
@@ -69,7 +77,14 @@ export interface AcceptedStep {
  * run at its first crossing, located by bisection on the step's continuous extension (no extra slope evaluations).
  * Every accepted step is pushed to `trace` so callers can read x anywhere by `valueAt`.
  */
-export function integrate(f: (x: number) => number, x0: number, tau1: number, stats: OdeStats, trace: AcceptedStep[], stopWhen?: (tau: number, x: number) => boolean): { tau: number; x: number } {
+export function integrate(
+  f: (x: number) => number,
+  x0: number,
+  tau1: number,
+  stats: OdeStats,
+  trace: AcceptedStep[],
+  stopWhen?: (tau: number, x: number) => boolean,
+): { tau: number; x: number } {
   let tau = 0
   let x = x0
   let h = Math.min(0.01, tau1)

@@ -44,7 +44,13 @@ function potFromDistillate(curve: EquilibriumCurve, xD: number, stages: number, 
  * The distillate composition that N stages at reflux R deliver from pot liquid xW: the root in (xW, 1) of
  * potFromDistillate(xD) = xW, by the Illinois variant of regula falsi (bracketed, superlinear).
  */
-export function distillateForPot(curve: EquilibriumCurve, xW: number, stages: number, R: number, hint?: number): number {
+export function distillateForPot(
+  curve: EquilibriumCurve,
+  xW: number,
+  stages: number,
+  R: number,
+  hint?: number,
+): number {
   const s = R / (R + 1)
   let a = xW
   let b = 1
@@ -81,10 +87,16 @@ export function distillateForPot(curve: EquilibriumCurve, xW: number, stages: nu
 
 function checkColumn(stages: number, R: number): void {
   if (!Number.isInteger(stages) || stages < 1 || stages > 200) {
-    throw new ThermoError('invalid-input', `stages must be a whole number of theoretical stages from 1 to 200 (the pot counts as one); got ${String(stages)}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `stages must be a whole number of theoretical stages from 1 to 200 (the pot counts as one); got ${String(stages)}.`,
+    )
   }
   if (typeof R !== 'number' || !Number.isFinite(R) || R <= 0) {
-    throw new ThermoError('invalid-input', `R must be a positive, finite reflux ratio L/D (at total reflux nothing is collected); got ${String(R)}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `R must be a positive, finite reflux ratio L/D (at total reflux nothing is collected); got ${String(R)}.`,
+    )
   }
 }
 
@@ -98,7 +110,10 @@ function checkColumn(stages: number, R: number): void {
  * @returns frames with the still-head temperature (top-stage bubble point, K), the end state, integration statistics
  * @throws ThermoError for a bad charge, stage count, reflux ratio or stopping condition, or an unreachable pot composition
  */
-export function batchRectification(source: EquilibriumSource, options: BatchRectificationOptions): BatchRectificationResult {
+export function batchRectification(
+  source: EquilibriumSource,
+  options: BatchRectificationOptions,
+): BatchRectificationResult {
   const curve = equilibriumCurve(source)
   checkCharge(options?.charge)
   checkColumn(options.stages, options.R)

@@ -42,7 +42,11 @@ export function simpleBatchDistillation(source: EquilibriumSource, options: Simp
     end: run.end,
     integration: run.integration,
     warnings: [...curve.warnings],
-    assumptions: designAssumptions(curve, ['one equilibrium stage (the pot), no column', 'vapour removed as soon as it forms', 'no holdup outside the pot']),
+    assumptions: designAssumptions(curve, [
+      'one equilibrium stage (the pot), no column',
+      'vapour removed as soon as it forms',
+      'no holdup outside the pot',
+    ]),
     caution: DESIGN_CAUTION,
   }
 }

@@ -1,1 +1,6 @@
-export { sydneyYoungCorrection, SYDNEY_YOUNG_C_ASSOCIATED, SYDNEY_YOUNG_C_NON_ASSOCIATED, type SydneyYoungResult } from './sydney-young.js'
+export {
+  sydneyYoungCorrection,
+  SYDNEY_YOUNG_C_ASSOCIATED,
+  SYDNEY_YOUNG_C_NON_ASSOCIATED,
+  type SydneyYoungResult,
+} from './sydney-young.js'

@@ -41,25 +41,36 @@ export function sydneyYoungCorrection(options: { T: number; P: number; c?: numbe
   const { T, P } = options ?? ({} as { T: number; P: number })
   const c = options?.c ?? SYDNEY_YOUNG_C_NON_ASSOCIATED
   if (typeof T !== 'number' || !Number.isFinite(T) || T <= 0) {
-    throw new ThermoError('invalid-temperature', `The boiling temperature must be a positive number of kelvin; got ${String(T)}.`)
+    throw new ThermoError(
+      'invalid-temperature',
+      `The boiling temperature must be a positive number of kelvin; got ${String(T)}.`,
+    )
   }
   if (typeof P !== 'number' || !Number.isFinite(P) || P <= 0) {
     throw new ThermoError('invalid-pressure', `The pressure must be a positive number of pascals; got ${String(P)}.`)
   }
   if (typeof c !== 'number' || !Number.isFinite(c) || c <= 0) {
-    throw new ThermoError('invalid-coefficient', `The Sydney Young coefficient c must be a positive number per mmHg; got ${String(c)}.`)
+    throw new ThermoError(
+      'invalid-coefficient',
+      `The Sydney Young coefficient c must be a positive number per mmHg; got ${String(c)}.`,
+    )
   }
   // 273.15 + t/°C is simply T in kelvin
   const deltaT = c * (760 - P / PA_PER_MMHG) * T
   const warnings: string[] = []
   if (Math.abs(P - P_STANDARD) > LARGE_DIFFERENCE_PA) {
-    warnings.push(`The measurement pressure is ${(P / 1000).toFixed(1)} kPa, far from 101.325 kPa: Sydney Young's rule is meant for small differences; use a vapour-pressure equation instead.`)
+    warnings.push(
+      `The measurement pressure is ${(P / 1000).toFixed(1)} kPa, far from 101.325 kPa: Sydney Young's rule is meant for small differences; use a vapour-pressure equation instead.`,
+    )
   }
   return {
     T: T + deltaT,
     deltaT,
     c,
     warnings,
-    assumptions: ['Sydney Young rule: Δt proportional to the pressure difference and the absolute temperature', 'for display and quick checks only; fits use each point\'s measured pressure'],
+    assumptions: [
+      'Sydney Young rule: Δt proportional to the pressure difference and the absolute temperature',
+      "for display and quick checks only; fits use each point's measured pressure",
+    ],
   }
 }

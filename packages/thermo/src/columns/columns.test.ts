@@ -38,8 +38,14 @@ describe('mccabeThiele', () => {
   })
 
   it.each([
-    [{ ...base, R: 1 }, 'R = 1.0000 is not above the minimum reflux Rmin = 1.2559 (pinch at x1 = 0.4500): the column cannot reach xD.'],
-    [{ ...base, R: 0 }, 'R must be a positive reflux ratio L/D, Infinity for total reflux, or { timesMinimum }; got 0.'],
+    [
+      { ...base, R: 1 },
+      'R = 1.0000 is not above the minimum reflux Rmin = 1.2559 (pinch at x1 = 0.4500): the column cannot reach xD.',
+    ],
+    [
+      { ...base, R: 0 },
+      'R must be a positive reflux ratio L/D, Infinity for total reflux, or { timesMinimum }; got 0.',
+    ],
     [{ ...base, R: { timesMinimum: 0.9 } }, 'R.timesMinimum must be a number greater than 1; got 0.9.'],
     [{ ...base, xB: 0.5, R: 4 }, 'The compositions must satisfy xB < xF < xD; got xB = 0.5, xF = 0.45, xD = 0.95.'],
     [{ ...base, xD: 1, R: 4 }, 'xD must be a mole fraction strictly between 0 and 1; got 1.'],
@@ -56,8 +62,12 @@ describe('unreachable targets end with a clear error', () => {
     expect(() => mccabeThiele(azeo, { xF: 0.3, q: 1, xD: 0.9, xB: 0.05, R: 10 })).toThrow(
       'The azeotrope at x1 = 0.5000 lies between xB = 0.05 and xD = 0.9: distillation at this pressure cannot cross it.',
     )
-    expect(() => minimumReflux(azeo, { xF: 0.3, q: 1, xD: 0.9 })).toThrow('The azeotrope at x1 = 0.5000 lies between xF = 0.3 and xD = 0.9')
-    expect(() => fenske(azeo, { xD: 0.9, xB: 0.05 })).toThrow('The azeotrope at x1 = 0.5000 lies between xB = 0.05 and xD = 0.9')
+    expect(() => minimumReflux(azeo, { xF: 0.3, q: 1, xD: 0.9 })).toThrow(
+      'The azeotrope at x1 = 0.5000 lies between xF = 0.3 and xD = 0.9',
+    )
+    expect(() => fenske(azeo, { xD: 0.9, xB: 0.05 })).toThrow(
+      'The azeotrope at x1 = 0.5000 lies between xB = 0.05 and xD = 0.9',
+    )
   })
 
   it('a stripping-section pinch raises Rmin above the rectifying value', () => {
@@ -68,7 +78,9 @@ describe('unreachable targets end with a clear error', () => {
     const both = minimumReflux(hug, spec)
     expect(both.governs).toBe('stripping-tangent-pinch')
     expect(both.Rmin).toBeGreaterThan(rectifyingOnly.Rmin * 1.5)
-    expect(() => mccabeThiele(hug, { ...spec, R: 3 })).toThrow(/^R = 3\.0000 is not above the minimum reflux Rmin = 4\.32\d\d \(stripping-tangent-pinch at x1 = 0\.0\d+\): the column cannot reach xD\.$/)
+    expect(() => mccabeThiele(hug, { ...spec, R: 3 })).toThrow(
+      /^R = 3\.0000 is not above the minimum reflux Rmin = 4\.32\d\d \(stripping-tangent-pinch at x1 = 0\.0\d+\): the column cannot reach xD\.$/,
+    )
     expect(mccabeThiele(hug, { ...spec, R: { timesMinimum: 1.2 } }).stages).toBeGreaterThan(50)
   })
 
@@ -80,7 +92,9 @@ describe('unreachable targets end with a clear error', () => {
   })
 
   it('R just above Rmin needs more than MAX_STAGES stages', () => {
-    expect(() => mccabeThiele({ alpha: 1.05 }, { xF: 0.5, q: 1, xD: 0.999, xB: 0.001, R: { timesMinimum: 1.0001 } })).toThrow(/^More than 1000 theoretical stages are needed: R = \d+\.\d{4} is too close to Rmin = \d+\.\d{4}\.$/)
+    expect(() =>
+      mccabeThiele({ alpha: 1.05 }, { xF: 0.5, q: 1, xD: 0.999, xB: 0.001, R: { timesMinimum: 1.0001 } }),
+    ).toThrow(/^More than 1000 theoretical stages are needed: R = \d+\.\d{4} is too close to Rmin = \d+\.\d{4}\.$/)
   })
 
   it('a multiple of a zero Rmin', () => {

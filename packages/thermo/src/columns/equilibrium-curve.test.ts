@@ -14,7 +14,14 @@ describe('equilibriumCurve', () => {
   })
 
   it('a table is interpolated monotonically, passes its rows, adds the ends and inverts exactly', () => {
-    const rows = [{ x: 0.059, y: 0.271 }, { x: 0.145, y: 0.521 }, { x: 0.254, y: 0.701 }, { x: 0.398, y: 0.836 }, { x: 0.594, y: 0.925 }, { x: 0.867, y: 0.984 }]
+    const rows = [
+      { x: 0.059, y: 0.271 },
+      { x: 0.145, y: 0.521 },
+      { x: 0.254, y: 0.701 },
+      { x: 0.398, y: 0.836 },
+      { x: 0.594, y: 0.925 },
+      { x: 0.867, y: 0.984 },
+    ]
     const c = equilibriumCurve({ table: rows })
     rows.forEach((r) => expect(c.y(r.x)).toBeCloseTo(r.y, 14))
     expect(c.y(0)).toBe(0)
@@ -37,11 +44,33 @@ describe('equilibriumCurve', () => {
   })
 
   it.each([
-    [{ alpha: 1 }, 'The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got 1.'],
-    [{ alpha: Number.NaN }, 'The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got NaN.'],
+    [
+      { alpha: 1 },
+      'The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got 1.',
+    ],
+    [
+      { alpha: Number.NaN },
+      'The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got NaN.',
+    ],
     [{ table: [{ x: 0.2, y: 0.4 }] }, 'The equilibrium table needs at least 2 rows.'],
-    [{ table: [{ x: 0.2, y: 0.4 }, { x: 0.1, y: 0.5 }] }, 'Equilibrium table row 2: x and y must both increase from row to row.'],
-    [{ table: [{ x: 0.2, y: 1.4 }, { x: 0.3, y: 0.5 }] }, 'Equilibrium table row 1: x and y must be mole fractions between 0 and 1 and T, if given, a positive number of kelvins.'],
+    [
+      {
+        table: [
+          { x: 0.2, y: 0.4 },
+          { x: 0.1, y: 0.5 },
+        ],
+      },
+      'Equilibrium table row 2: x and y must both increase from row to row.',
+    ],
+    [
+      {
+        table: [
+          { x: 0.2, y: 1.4 },
+          { x: 0.3, y: 0.5 },
+        ],
+      },
+      'Equilibrium table row 1: x and y must be mole fractions between 0 and 1 and T, if given, a positive number of kelvins.',
+    ],
     [{}, 'Give the equilibrium as { alpha }, { system, P } or { table }.'],
   ])('rejects %j', (source, message) => {
     expect(() => equilibriumCurve(source as never)).toThrow(message)

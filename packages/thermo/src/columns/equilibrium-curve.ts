@@ -18,7 +18,8 @@ export interface EquilibriumTableRow {
 }
 
 /** Where equilibrium comes from: constant α (> 1), a BinarySystem at P (Pa), or an x–y table. */
-export type EquilibriumSource = { alpha: number } | { system: BinarySystem; P: number } | { table: EquilibriumTableRow[] }
+export type EquilibriumSource =
+  { alpha: number } | { system: BinarySystem; P: number } | { table: EquilibriumTableRow[] }
 
 /** The equilibrium curve the design functions step on. Component 1 is the more volatile one at its dilute end. */
 export interface EquilibriumCurve {
@@ -45,7 +46,10 @@ function positive(v: unknown): v is number {
 
 function constantAlphaCurve(alpha: number): EquilibriumCurve {
   if (!(typeof alpha === 'number' && Number.isFinite(alpha) && alpha > 1)) {
-    throw new ThermoError('invalid-alpha', `The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got ${String(alpha)}.`)
+    throw new ThermoError(
+      'invalid-alpha',
+      `The relative volatility alpha must be a number greater than 1 (component 1 the more volatile); got ${String(alpha)}.`,
+    )
   }
   return {
     kind: 'constant-alpha',
@@ -81,7 +85,13 @@ function findAzeotropes(y: (x: number) => number, grid: number[]): number[] {
 }
 
 /** Build a curve from tabulated nodes (x from 0 to 1 included, y increasing). */
-function tabulatedCurve(kind: 'system' | 'table', xs: number[], ys: number[], Ts: number[] | null, description: string): EquilibriumCurve {
+function tabulatedCurve(
+  kind: 'system' | 'table',
+  xs: number[],
+  ys: number[],
+  Ts: number[] | null,
+  description: string,
+): EquilibriumCurve {
   const yOfX: MonotoneSpline = monotoneSpline(xs, ys)
   const tOfX = Ts ? monotoneSpline(xs, Ts) : null
   const y = (x: number) => Math.min(1, Math.max(0, yOfX.at(x)))
@@ -95,23 +105,39 @@ function tabulatedCurve(kind: 'system' | 'table', xs: number[], ys: number[], Ts
       const v = y(x)
       return (v * (1 - x)) / (x * (1 - v))
     },
-    azeotropes: findAzeotropes(y, [...new Set([...xs, ...dense])].sort((a, b) => a - b)),
+    azeotropes: findAzeotropes(
+      y,
+      [...new Set([...xs, ...dense])].sort((a, b) => a - b),
+    ),
     description,
     warnings: [],
   }
 }
 
 function tableCurve(rows: EquilibriumTableRow[]): EquilibriumCurve {
-  if (!Array.isArray(rows) || rows.length < 2) throw new ThermoError('invalid-table', 'The equilibrium table needs at least 2 rows.')
+  if (!Array.isArray(rows) || rows.length < 2)
+    throw new ThermoError('invalid-table', 'The equilibrium table needs at least 2 rows.')
   rows.forEach((r, i) => {
-    const ok = r && [r.x, r.y].every((v) => typeof v === 'number' && v >= 0 && v <= 1) && (r.T === undefined || positive(r.T))
-    if (!ok) throw new ThermoError('invalid-table', `Equilibrium table row ${i + 1}: x and y must be mole fractions between 0 and 1 and T, if given, a positive number of kelvins.`)
+    const ok =
+      r && [r.x, r.y].every((v) => typeof v === 'number' && v >= 0 && v <= 1) && (r.T === undefined || positive(r.T))
+    if (!ok)
+      throw new ThermoError(
+        'invalid-table',
+        `Equilibrium table row ${i + 1}: x and y must be mole fractions between 0 and 1 and T, if given, a positive number of kelvins.`,
+      )
     if (i > 0 && !(r.x > rows[i - 1].x && r.y > rows[i - 1].y)) {
-      throw new ThermoError('invalid-table', `Equilibrium table row ${i + 1}: x and y must both increase from row to row.`)
+      throw new ThermoError(
+        'invalid-table',
+        `Equilibrium table row ${i + 1}: x and y must both increase from row to row.`,
+      )
     }
   })
   const withT = rows.every((r) => r.T !== undefined) && rows[0].x === 0 && rows[rows.length - 1].x === 1
-  const full = [...(rows[0].x > 0 ? [{ x: 0, y: 0 }] : []), ...rows, ...(rows[rows.length - 1].x < 1 ? [{ x: 1, y: 1 }] : [])]
+  const full = [
+    ...(rows[0].x > 0 ? [{ x: 0, y: 0 }] : []),
+    ...rows,
+    ...(rows[rows.length - 1].x < 1 ? [{ x: 1, y: 1 }] : []),
+  ]
   return tabulatedCurve(
     'table',
     full.map((r) => r.x),
@@ -129,8 +155,11 @@ export const SYSTEM_NODES = 161
  * non-ideal curves bend most. Interpolation error is below 1e-5 in y for the systems in the tests.
  */
 function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
-  if (!positive(P)) throw new ThermoError('invalid-input', `Pressure must be a positive number of pascals; got ${String(P)}.`)
-  const xs = Array.from({ length: SYSTEM_NODES }, (_, i) => (i === 0 ? 0 : i === SYSTEM_NODES - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (SYSTEM_NODES - 1)))))
+  if (!positive(P))
+    throw new ThermoError('invalid-input', `Pressure must be a positive number of pascals; got ${String(P)}.`)
+  const xs = Array.from({ length: SYSTEM_NODES }, (_, i) =>
+    i === 0 ? 0 : i === SYSTEM_NODES - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (SYSTEM_NODES - 1))),
+  )
   const ys: number[] = []
   const Ts: number[] = []
   const warnings = new Set<string>()
@@ -142,13 +171,25 @@ function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
   }
   const bad = ys.findIndex((y, i) => i > 0 && !(y > ys[i - 1]))
   if (bad > 0) {
-    throw new ThermoError('non-monotone-equilibrium', `The model's vapour composition does not rise with x1 near x1 = ${xs[bad].toFixed(3)}; stage calculations need y1 increasing with x1.`)
+    throw new ThermoError(
+      'non-monotone-equilibrium',
+      `The model's vapour composition does not rise with x1 near x1 = ${xs[bad].toFixed(3)}; stage calculations need y1 increasing with x1.`,
+    )
   }
   const names = system.names ? `${system.names[0]}–${system.names[1]}, ` : ''
-  const curve = tabulatedCurve('system', xs, ys, Ts, `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ideal vapour`)
+  const curve = tabulatedCurve(
+    'system',
+    xs,
+    ys,
+    Ts,
+    `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ideal vapour`,
+  )
   // One line per component for the whole temperature span, not one per tabulated node.
   const pointwise = [...warnings].filter((w) => !w.includes('outside the range of its vapour-pressure correlation'))
-  curve.warnings.push(...pointwise, ...spanWarnings(system.vaporPressure, Math.min(...Ts), Math.max(...Ts), system.names))
+  curve.warnings.push(
+    ...pointwise,
+    ...spanWarnings(system.vaporPressure, Math.min(...Ts), Math.max(...Ts), system.names),
+  )
   return curve
 }
 

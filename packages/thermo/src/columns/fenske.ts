@@ -37,9 +37,24 @@ export function fenske(source: EquilibriumSource, spec: { xD: number; xB: number
   const alphaBottom = curve.alpha(xB)
   const alpha = Math.sqrt(alphaTop * alphaBottom)
   if (!(alpha > 1)) {
-    throw new ThermoError('invalid-alpha', `The relative volatility between xB and xD is ${alpha.toFixed(4)}, not above 1: component 1 is not the more volatile there.`)
+    throw new ThermoError(
+      'invalid-alpha',
+      `The relative volatility between xB and xD is ${alpha.toFixed(4)}, not above 1: component 1 is not the more volatile there.`,
+    )
   }
   const Nmin = Math.log(((xD / (1 - xD)) * (1 - xB)) / xB) / Math.log(alpha)
-  const extra = curve.kind === 'constant-alpha' ? ['total reflux'] : ['total reflux', 'α taken as the geometric mean of the top and bottom values']
-  return { Nmin, alpha, alphaTop, alphaBottom, includesReboiler: true, warnings: [...curve.warnings], assumptions: designAssumptions(curve, extra), caution: DESIGN_CAUTION }
+  const extra =
+    curve.kind === 'constant-alpha'
+      ? ['total reflux']
+      : ['total reflux', 'α taken as the geometric mean of the top and bottom values']
+  return {
+    Nmin,
+    alpha,
+    alphaTop,
+    alphaBottom,
+    includesReboiler: true,
+    warnings: [...curve.warnings],
+    assumptions: designAssumptions(curve, extra),
+    caution: DESIGN_CAUTION,
+  }
 }

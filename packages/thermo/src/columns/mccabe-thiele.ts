@@ -60,7 +60,11 @@ function checkSpec(spec: McCabeThieleSpec): void {
   checkOpenFraction(xD, 'xD')
   checkOpenFraction(xB, 'xB')
   checkQ(q)
-  if (!(xB < xF && xF < xD)) throw new ThermoError('invalid-input', `The compositions must satisfy xB < xF < xD; got xB = ${xB}, xF = ${xF}, xD = ${xD}.`)
+  if (!(xB < xF && xF < xD))
+    throw new ThermoError(
+      'invalid-input',
+      `The compositions must satisfy xB < xF < xD; got xB = ${xB}, xF = ${xF}, xD = ${xD}.`,
+    )
 }
 
 function resolveReflux(R: RefluxSpec, Rmin: number): number {
@@ -69,11 +73,18 @@ function resolveReflux(R: RefluxSpec, Rmin: number): number {
     if (typeof f !== 'number' || !Number.isFinite(f) || f <= 1) {
       throw new ThermoError('invalid-input', `R.timesMinimum must be a number greater than 1; got ${String(f)}.`)
     }
-    if (Rmin === 0) throw new ThermoError('invalid-input', 'Rmin is 0 for this feed and distillate, so R cannot be a multiple of it; give R as a number.')
+    if (Rmin === 0)
+      throw new ThermoError(
+        'invalid-input',
+        'Rmin is 0 for this feed and distillate, so R cannot be a multiple of it; give R as a number.',
+      )
     return f * Rmin
   }
   if (typeof R !== 'number' || Number.isNaN(R) || R <= 0) {
-    throw new ThermoError('invalid-input', `R must be a positive reflux ratio L/D, Infinity for total reflux, or { timesMinimum }; got ${String(R)}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `R must be a positive reflux ratio L/D, Infinity for total reflux, or { timesMinimum }; got ${String(R)}.`,
+    )
   }
   return R
 }
@@ -93,7 +104,13 @@ function lines(spec: McCabeThieleSpec, R: number) {
 }
 
 /** Step from (xD, xD) down to xB; throws when a step stops making progress. */
-function stepOff(curve: EquilibriumCurve, spec: McCabeThieleSpec, ops: ReturnType<typeof lines>, R: number, Rmin: number) {
+function stepOff(
+  curve: EquilibriumCurve,
+  spec: McCabeThieleSpec,
+  ops: ReturnType<typeof lines>,
+  R: number,
+  Rmin: number,
+) {
   const steps: StagePoint[] = []
   const staircase = [{ x: spec.xD, y: spec.xD }]
   let y = spec.xD
@@ -104,7 +121,11 @@ function stepOff(curve: EquilibriumCurve, spec: McCabeThieleSpec, ops: ReturnTyp
     const x = curve.x(y)
     if (!(x < xPrev - 1e-12)) {
       const where = stripping ? 'below the feed; raise R' : 'above the feed; raise R'
-      throw new ThermoError('pinched-column', `The operating line meets the equilibrium curve near x1 = ${x.toFixed(4)} ${where}: no more separation per stage.`, { x })
+      throw new ThermoError(
+        'pinched-column',
+        `The operating line meets the equilibrium curve near x1 = ${x.toFixed(4)} ${where}: no more separation per stage.`,
+        { x },
+      )
     }
     steps.push({ stage: n, x, y, T: curve.T(x) })
     staircase.push({ x, y })
@@ -115,7 +136,9 @@ function stepOff(curve: EquilibriumCurve, spec: McCabeThieleSpec, ops: ReturnTyp
     staircase.push({ x, y })
     xPrev = x
   }
-  const why = Number.isFinite(R) ? `R = ${R.toFixed(4)} is too close to Rmin = ${Rmin.toFixed(4)}` : 'even at total reflux the relative volatility is too close to 1 for this separation'
+  const why = Number.isFinite(R)
+    ? `R = ${R.toFixed(4)} is too close to Rmin = ${Rmin.toFixed(4)}`
+    : 'even at total reflux the relative volatility is too close to 1 for this separation'
   throw new ThermoError('too-many-stages', `More than ${MAX_STAGES} theoretical stages are needed: ${why}.`)
 }
 
@@ -137,17 +160,24 @@ export function mccabeThiele(source: EquilibriumSource, spec: McCabeThieleSpec):
   const pinch = minimumRefluxOnCurve(curve, spec.xF, spec.q, spec.xD, spec.xB)
   const R = resolveReflux(spec.R, pinch.Rmin)
   if (R <= pinch.Rmin * (1 + 1e-9)) {
-    throw new ThermoError('reflux-below-minimum', `R = ${R.toFixed(4)} is not above the minimum reflux Rmin = ${pinch.Rmin.toFixed(4)} (${pinch.governs} at x1 = ${pinch.touch.x.toFixed(4)}): the column cannot reach xD.`, { Rmin: pinch.Rmin })
+    throw new ThermoError(
+      'reflux-below-minimum',
+      `R = ${R.toFixed(4)} is not above the minimum reflux Rmin = ${pinch.Rmin.toFixed(4)} (${pinch.governs} at x1 = ${pinch.touch.x.toFixed(4)}): the column cannot reach xD.`,
+      { Rmin: pinch.Rmin },
+    )
   }
   if (Number.isFinite(R) && Math.abs(R + spec.q) < 1e-12) {
-    throw new ThermoError('invalid-input', 'The q-line is parallel to the rectifying line (q = −R): the feed condition and R are inconsistent.')
+    throw new ThermoError(
+      'invalid-input',
+      'The q-line is parallel to the rectifying line (q = −R): the feed condition and R are inconsistent.',
+    )
   }
   const ops = lines(spec, R)
   const run = stepOff(curve, spec, ops, R, pinch.Rmin)
   return {
     stages: run.steps.length,
     fractionalStages: run.fractional,
-    feedStage: Number.isFinite(R) ? run.feedStage ?? run.steps.length : null,
+    feedStage: Number.isFinite(R) ? (run.feedStage ?? run.steps.length) : null,
     steps: run.steps,
     staircase: run.staircase,
     R,
@@ -156,7 +186,11 @@ export function mccabeThiele(source: EquilibriumSource, spec: McCabeThieleSpec):
     operatingLines: ops,
     includesReboiler: true,
     warnings: pinch.warnings,
-    assumptions: designAssumptions(curve, ['total condenser', 'partial reboiler counted as the last stage', 'optimal feed location']),
+    assumptions: designAssumptions(curve, [
+      'total condenser',
+      'partial reboiler counted as the last stage',
+      'optimal feed location',
+    ]),
     caution: DESIGN_CAUTION,
   }
 }

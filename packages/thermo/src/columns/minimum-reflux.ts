@@ -23,7 +23,11 @@ export interface MinimumRefluxResult {
 
 /** Check and read q: liquid fraction of the feed (1 saturated liquid, 0 saturated vapour, > 1 subcooled, < 0 superheated). */
 export function checkQ(q: unknown): asserts q is number {
-  if (typeof q !== 'number' || !Number.isFinite(q)) throw new ThermoError('invalid-input', `q must be a finite number (1 for a saturated-liquid feed); got ${String(q)}.`)
+  if (typeof q !== 'number' || !Number.isFinite(q))
+    throw new ThermoError(
+      'invalid-input',
+      `q must be a finite number (1 for a saturated-liquid feed); got ${String(q)}.`,
+    )
 }
 
 /** The point where the q-line y = q/(q−1)·x − xF/(q−1) through (xF, xF) cuts the equilibrium curve. */
@@ -73,7 +77,14 @@ function steepestRequirement(curve: EquilibriumCurve, xD: number, x0: number): {
 }
 
 /** Largest excess of the stripping line over the equilibrium curve between xB and the operating-line intersection, and where. */
-function strippingExcess(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB: number, R: number): { excess: number; x: number } {
+function strippingExcess(
+  curve: EquilibriumCurve,
+  xF: number,
+  q: number,
+  xD: number,
+  xB: number,
+  R: number,
+): { excess: number; x: number } {
   const xi = ((q - 1) * xD + (R + 1) * xF) / (R + q)
   const yi = (R / (R + 1)) * xi + xD / (R + 1)
   const slope = (yi - xB) / (xi - xB)
@@ -90,7 +101,14 @@ function strippingExcess(curve: EquilibriumCurve, xF: number, q: number, xD: num
  * The smallest R at which the stripping line clears the equilibrium curve, when the rectifying Rmin is not enough
  * (curves that hug the diagonal at the bottom). Bisection on R: the stripping line falls towards the diagonal as R rises.
  */
-function strippingMinimum(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB: number, rectifyingRmin: number): { R: number; x: number } | null {
+function strippingMinimum(
+  curve: EquilibriumCurve,
+  xF: number,
+  q: number,
+  xD: number,
+  xB: number,
+  rectifyingRmin: number,
+): { R: number; x: number } | null {
   const tolerance = 1e-9
   if (strippingExcess(curve, xF, q, xD, xB, Math.max(rectifyingRmin, 1e-12)).excess <= tolerance) return null
   let lo = Math.max(rectifyingRmin, 1e-12)
@@ -105,7 +123,13 @@ function strippingMinimum(curve: EquilibriumCurve, xF: number, q: number, xD: nu
 }
 
 /** Rmin on an already built curve; shared with mccabeThiele. Inputs already checked; xB (optional) adds the stripping check. */
-export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: number, xD: number, xB?: number): Omit<MinimumRefluxResult, 'assumptions' | 'caution'> {
+export function minimumRefluxOnCurve(
+  curve: EquilibriumCurve,
+  xF: number,
+  q: number,
+  xD: number,
+  xB?: number,
+): Omit<MinimumRefluxResult, 'assumptions' | 'caution'> {
   checkNoAzeotropeBetween(curve, xF, xD, 'xF', 'xD')
   const feedPinch = qLinePinch(curve, xF, q)
   const warnings: string[] = [...curve.warnings]
@@ -117,12 +141,22 @@ export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: num
   // a tangent pinch must beat the feed pinch by more than rounding to count as governing
   const tangent = need.slope > slopeThrough(curve, xD, feedPinch.x) + 1e-9
   if (need.slope >= 1) {
-    throw new ThermoError('unreachable-distillate', `The equilibrium curve meets the diagonal near x1 = ${need.x.toFixed(4)}, below xD = ${xD}: no reflux ratio reaches xD.`)
+    throw new ThermoError(
+      'unreachable-distillate',
+      `The equilibrium curve meets the diagonal near x1 = ${need.x.toFixed(4)}, below xD = ${xD}: no reflux ratio reaches xD.`,
+    )
   }
   const Rmin = Math.max(0, need.slope / (1 - need.slope))
   const touch = tangent ? { x: need.x, y: curve.y(need.x) } : feedPinch
   const stripping = xB === undefined ? null : strippingMinimum(curve, xF, q, xD, xB, Rmin)
-  if (stripping) return { Rmin: stripping.R, governs: 'stripping-tangent-pinch', feedPinch, touch: { x: stripping.x, y: curve.y(stripping.x) }, warnings }
+  if (stripping)
+    return {
+      Rmin: stripping.R,
+      governs: 'stripping-tangent-pinch',
+      feedPinch,
+      touch: { x: stripping.x, y: curve.y(stripping.x) },
+      warnings,
+    }
   return { Rmin, governs: tangent ? 'tangent-pinch' : 'pinch', feedPinch, touch, warnings }
 }
 
@@ -136,7 +170,10 @@ export function minimumRefluxOnCurve(curve: EquilibriumCurve, xF: number, q: num
  * @param spec.xF feed mole fraction; spec.q feed liquid fraction (1 saturated liquid); spec.xD distillate (> xF); spec.xB optional bottoms (< xF)
  * @throws ThermoError for compositions outside (0, 1), xD ≤ xF, or an azeotrope between xF and xD
  */
-export function minimumReflux(source: EquilibriumSource, spec: { xF: number; q: number; xD: number; xB?: number }): MinimumRefluxResult {
+export function minimumReflux(
+  source: EquilibriumSource,
+  spec: { xF: number; q: number; xD: number; xB?: number },
+): MinimumRefluxResult {
   const curve = equilibriumCurve(source)
   const { xF, q, xD, xB } = spec ?? ({} as { xF: number; q: number; xD: number })
   checkOpenFraction(xF, 'xF')
@@ -149,5 +186,9 @@ export function minimumReflux(source: EquilibriumSource, spec: { xF: number; q: 
     checkNoAzeotropeBetween(curve, xB, xF, 'xB', 'xF')
   }
   const r = minimumRefluxOnCurve(curve, xF, q, xD, xB)
-  return { ...r, assumptions: designAssumptions(curve, ['total condenser', 'minimum reflux means infinitely many stages']), caution: DESIGN_CAUTION }
+  return {
+    ...r,
+    assumptions: designAssumptions(curve, ['total condenser', 'minimum reflux means infinitely many stages']),
+    caution: DESIGN_CAUTION,
+  }
 }

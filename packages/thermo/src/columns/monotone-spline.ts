@@ -61,13 +61,22 @@ export function monotoneSpline(xs: number[], ys: number[]): MonotoneSpline {
     const t = (x - xs[i]) / h
     const t2 = t * t
     const t3 = t2 * t
-    return (2 * t3 - 3 * t2 + 1) * ys[i] + (t3 - 2 * t2 + t) * h * m[i] + (-2 * t3 + 3 * t2) * ys[i + 1] + (t3 - t2) * h * m[i + 1]
+    return (
+      (2 * t3 - 3 * t2 + 1) * ys[i] +
+      (t3 - 2 * t2 + t) * h * m[i] +
+      (-2 * t3 + 3 * t2) * ys[i + 1] +
+      (t3 - t2) * h * m[i + 1]
+    )
   }
   const segmentSlope = (i: number, x: number) => {
     const h = xs[i + 1] - xs[i]
     const t = (x - xs[i]) / h
     const t2 = t * t
-    return ((6 * t2 - 6 * t) * ys[i] + (-6 * t2 + 6 * t) * ys[i + 1]) / h + (3 * t2 - 4 * t + 1) * m[i] + (3 * t2 - 2 * t) * m[i + 1]
+    return (
+      ((6 * t2 - 6 * t) * ys[i] + (-6 * t2 + 6 * t) * ys[i + 1]) / h +
+      (3 * t2 - 4 * t + 1) * m[i] +
+      (3 * t2 - 2 * t) * m[i + 1]
+    )
   }
   const at = (x: number) => segment(interval(xs, x), x)
   const inverse = (y: number) => {

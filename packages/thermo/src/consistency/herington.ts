@@ -30,8 +30,13 @@ export interface HeringtonResult {
  * and a range taken from the points alone understates J).
  * @param points T in K, P in Pa, mole fractions; at least 3 mixture points.
  */
-export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressure: [VaporPressureModel, VaporPressureModel] }): HeringtonResult {
-  const usable = Array.isArray(points) ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1).length : 0
+export function heringtonAreaTest(
+  points: BinaryPoint[],
+  options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
+): HeringtonResult {
+  const usable = Array.isArray(points)
+    ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1).length
+    : 0
   if (usable < 3) throw insufficient(usable)
   const { data } = buildFitData(points, options.vaporPressure, 'margules', 0)
   const rows = Array.from({ length: data.n }, (_, i) => i).filter((i) => data.y1[i] > 0 && data.y1[i] < 1)
@@ -42,7 +47,8 @@ export function heringtonAreaTest(points: BinaryPoint[], options: { vaporPressur
       const T = data.T[i]
       const x = data.x1[i]
       const y = data.y1[i]
-      const lnRatio = Math.log((y * (1 - x)) / ((1 - y) * x)) + (vp2.a - vp2.b / (T + vp2.c)) - (vp1.a - vp1.b / (T + vp1.c))
+      const lnRatio =
+        Math.log((y * (1 - x)) / ((1 - y) * x)) + (vp2.a - vp2.b / (T + vp2.c)) - (vp1.a - vp1.b / (T + vp1.c))
       return { x1: x, lnGammaRatio: lnRatio }
     })
     .sort((a, b) => a.x1 - b.x1)
@@ -89,5 +95,8 @@ function trapezoidAbs(h: number, fa: number, fb: number): number {
 }
 
 function insufficient(n: number): ThermoError {
-  return new ThermoError('insufficient-data', `The area test needs at least 3 mixture points with 0 < x1 < 1 and 0 < y1 < 1; got ${n}.`)
+  return new ThermoError(
+    'insufficient-data',
+    `The area test needs at least 3 mixture points with 0 < x1 < 1 and 0 < y1 < 1; got ${n}.`,
+  )
 }

@@ -37,14 +37,20 @@ export function pureComponentCheck(
   points.forEach((p, index) => {
     if (p.excluded || (p.x1 !== 0 && p.x1 !== 1)) return
     if (!(p.T > 0 && Number.isFinite(p.T)) || !(p.P > 0 && Number.isFinite(p.P))) {
-      throw new ThermoError('invalid-input', `Point ${index + 1}: temperature and pressure must be positive finite numbers (K, Pa).`)
+      throw new ThermoError(
+        'invalid-input',
+        `Point ${index + 1}: temperature and pressure must be positive finite numbers (K, Pa).`,
+      )
     }
     const component = p.x1 === 1 ? 1 : 2
     const Tmodel = lnPsatInverse(vps[component - 1], Math.log(p.P))
     const dT = p.T - Tmodel
     checks.push({ index, component, T: p.T, P: p.P, Tmodel, dT, passed: Math.abs(dT) <= tolerance })
-    warnings.push(...rangeWarnings(options.vaporPressure[component - 1], vps[component - 1], Tmodel, `Component ${component}`))
+    warnings.push(
+      ...rangeWarnings(options.vaporPressure[component - 1], vps[component - 1], Tmodel, `Component ${component}`),
+    )
   })
-  if (checks.length === 0) warnings.push('No pure-component points (x1 = 0 or 1) to compare with the vapour-pressure models.')
+  if (checks.length === 0)
+    warnings.push('No pure-component points (x1 = 0 or 1) to compare with the vapour-pressure models.')
   return { checks, passed: checks.every((c) => c.passed), warnings }
 }

@@ -59,7 +59,12 @@ export function bubblePressure(system: BinarySystem, at: { T: number; x1: number
 /** {@link bubblePressure} on an already checked system. */
 export function bubblePressureCompiled(c: CompiledSystem, T: number, x1: number): BubblePressureResult {
   solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
-  const out: BubblePressureResult = { P: res[5], y1: res[1], gamma: [res[2], res[3]], warnings: systemWarnings(c, T, x1) }
+  const out: BubblePressureResult = {
+    P: res[5],
+    y1: res[1],
+    gamma: [res[2], res[3]],
+    warnings: systemWarnings(c, T, x1),
+  }
   assertOneLiquid(c, x1, T)
   return out
 }
@@ -85,10 +90,15 @@ export function dewTemperatureCompiled(c: CompiledSystem, P: number, y1: number)
   if (!ok) {
     // Substitution can stall near an azeotrope; y1(x1) rises monotonically for a stable liquid, so bracket x1 instead.
     let count = 0
-    const x1 = brent((x) => {
-      count++
-      return bubbleY(c, lnP, x) - y1
-    }, 0, 1, 1e-13)
+    const x1 = brent(
+      (x) => {
+        count++
+        return bubbleY(c, lnP, x) - y1
+      },
+      0,
+      1,
+      1e-13,
+    )
     ok = Number.isFinite(x1) && solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))
     res[1] = x1
     iterations = count
@@ -125,11 +135,16 @@ export function dewPressure(system: BinarySystem, at: { T: number; y1: number })
   let iterations = res[4]
   if (!ok) {
     let count = 0
-    const x1 = brent((x) => {
-      count++
-      solveBubbleP(c.act, c.vp1, c.vp2, T, x)
-      return res[1] - y1
-    }, 0, 1, 1e-13)
+    const x1 = brent(
+      (x) => {
+        count++
+        solveBubbleP(c.act, c.vp1, c.vp2, T, x)
+        return res[1] - y1
+      },
+      0,
+      1,
+      1e-13,
+    )
     ok = Number.isFinite(x1)
     if (ok) solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
     res[1] = x1

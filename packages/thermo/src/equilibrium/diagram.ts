@@ -12,7 +12,11 @@ export type DiagramCondition = { P: number; T?: undefined } | { T: number; P?: u
 function checkCondition(condition: DiagramCondition): void {
   if (condition?.P !== undefined) checkPressure(condition.P)
   else if (condition?.T !== undefined) checkTemperature(condition.T)
-  else throw new ThermoError('invalid-input', 'Give either a pressure P (Pa) for a T–x–y diagram or a temperature T (K) for a P–x–y diagram.')
+  else
+    throw new ThermoError(
+      'invalid-input',
+      'Give either a pressure P (Pa) for a T–x–y diagram or a temperature T (K) for a P–x–y diagram.',
+    )
 }
 
 /**
@@ -26,7 +30,8 @@ export function relativeVolatility(system: BinarySystem, at: { P: number; x1: nu
   checkMoleFraction(at.x1, 'x1')
   const b = bubbleTemperatureCompiled(c, at.P, at.x1)
   const T = b.T
-  const lnAlpha = Math.log(b.gamma[0] / b.gamma[1]) + (c.vp1.a - c.vp1.b / (T + c.vp1.c)) - (c.vp2.a - c.vp2.b / (T + c.vp2.c))
+  const lnAlpha =
+    Math.log(b.gamma[0] / b.gamma[1]) + (c.vp1.a - c.vp1.b / (T + c.vp1.c)) - (c.vp2.a - c.vp2.b / (T + c.vp2.c))
   return { alpha: Math.exp(lnAlpha), T, y1: b.y1, warnings: b.warnings }
 }
 
@@ -73,7 +78,13 @@ export function findAzeotrope(system: BinarySystem, condition: DiagramCondition)
   return null
 }
 
-function azeotropeBetween(c: CompiledSystem, condition: DiagramCondition, a: number, b: number, fallsThrough: boolean): Azeotrope {
+function azeotropeBetween(
+  c: CompiledSystem,
+  condition: DiagramCondition,
+  a: number,
+  b: number,
+  fallsThrough: boolean,
+): Azeotrope {
   const x1 = brent((x) => lnAlphaAt(c, condition, x), a, b, 1e-14)
   lnAlphaAt(c, condition, x1)
   const T = res[0]
@@ -89,12 +100,19 @@ function azeotropeBetween(c: CompiledSystem, condition: DiagramCondition, a: num
  * @param options points: number of liquid compositions, default 101 (3–10001).
  * Compositions where the model predicts two liquids are left out, with a warning.
  */
-export function phaseDiagram(system: BinarySystem, condition: DiagramCondition, options: { points?: number } = {}): PhaseDiagram {
+export function phaseDiagram(
+  system: BinarySystem,
+  condition: DiagramCondition,
+  options: { points?: number } = {},
+): PhaseDiagram {
   const c = compileSystem(system)
   checkCondition(condition)
   const n = options.points ?? 101
   if (!Number.isInteger(n) || n < 3 || n > 10001) {
-    throw new ThermoError('invalid-input', `The number of diagram points must be a whole number from 3 to 10001; got ${n}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `The number of diagram points must be a whole number from 3 to 10001; got ${n}.`,
+    )
   }
   const xs: number[] = []
   const ys: number[] = []
@@ -107,7 +125,10 @@ export function phaseDiagram(system: BinarySystem, condition: DiagramCondition, 
     if (condition.P !== undefined) {
       const start = Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1)
       if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, start)) {
-        throw new ThermoError('no-convergence', `The T–x–y diagram could not be computed at x1 = ${x1.toFixed(4)}; check the model parameters.`)
+        throw new ThermoError(
+          'no-convergence',
+          `The T–x–y diagram could not be computed at x1 = ${x1.toFixed(4)}; check the model parameters.`,
+        )
       }
       T = res[0]
     } else {
@@ -116,12 +137,20 @@ export function phaseDiagram(system: BinarySystem, condition: DiagramCondition, 
     xs.push(x1)
     ys.push(res[1])
     vs.push(condition.P !== undefined ? res[0] : res[5])
-    for (const w of systemWarnings(c, res[0], x1)) warnings.add(w.replace(/: [\d.]+ K \([-\d.]+ °C\) is/, ': part of this diagram is'))
+    for (const w of systemWarnings(c, res[0], x1))
+      warnings.add(w.replace(/: [\d.]+ K \([-\d.]+ °C\) is/, ': part of this diagram is'))
   }
   return finishDiagram(c, condition, xs, ys, vs, [...warnings])
 }
 
-function finishDiagram(c: CompiledSystem, condition: DiagramCondition, xs: number[], ys: number[], vs: number[], warnings: string[]): PhaseDiagram {
+function finishDiagram(
+  c: CompiledSystem,
+  condition: DiagramCondition,
+  xs: number[],
+  ys: number[],
+  vs: number[],
+  warnings: string[],
+): PhaseDiagram {
   // Each point is checked at its own temperature: inside the spinodal the one-liquid curve is not physical.
   const keep = xs.map((x, i) => thermodynamicFactor(c.act, x, condition.T ?? vs[i]) > 0)
   const dropped = xs.filter((_, i) => !keep[i])

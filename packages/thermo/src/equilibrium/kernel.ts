@@ -26,7 +26,14 @@ export function startTemperature(vp1: LnPsat, vp2: LnPsat, lnP: number, z1: numb
  * analytic ∂/∂T, kept inside a bracket that tightens as the sign of the residual is learned.
  * @returns false when it does not converge.
  */
-export function solveBubbleT(act: ActivityModel, vp1: LnPsat, vp2: LnPsat, lnP: number, x1: number, T0: number): boolean {
+export function solveBubbleT(
+  act: ActivityModel,
+  vp1: LnPsat,
+  vp2: LnPsat,
+  lnP: number,
+  x1: number,
+  T0: number,
+): boolean {
   const x2 = 1 - x1
   let lo = Math.max(-vp1.c, -vp2.c, 0)
   let hi = Infinity
@@ -111,7 +118,7 @@ export function solveDewT(act: ActivityModel, vp1: LnPsat, vp2: LnPsat, lnP: num
     const q2 = y2 > 0 ? y2 * Math.exp(lnP - g[1] - vp2.a + vp2.b / d2) : 0
     const Q = q1 + q2
     const fp = -(q1 * (g[2] + vp1.b / (d1 * d1)) + q2 * (g[3] + vp2.b / (d2 * d2))) / Q
-    let dT = -Math.log(Q) / (fp < 0 ? fp : -(q1 * vp1.b / (d1 * d1) + q2 * vp2.b / (d2 * d2)) / Q)
+    let dT = -Math.log(Q) / (fp < 0 ? fp : -((q1 * vp1.b) / (d1 * d1) + (q2 * vp2.b) / (d2 * d2)) / Q)
     if (!Number.isFinite(dT)) return false
     dT = Math.max(-50, Math.min(50, dT))
     const xn = q1 / Q

@@ -8,10 +8,25 @@ export function brent(f: (x: number) => number, a: number, b: number, tol = 1e-1
   if (fa === 0) return a
   if (fb === 0) return b
   if (!(fa * fb < 0)) return NaN
-  let c = a, fc = fa, d = b - a, e = d
+  let c = a,
+    fc = fa,
+    d = b - a,
+    e = d
   for (let i = 0; i < maxIterations; i++) {
-    if (fb * fc > 0) { c = a; fc = fa; d = b - a; e = d }
-    if (Math.abs(fc) < Math.abs(fb)) { a = b; b = c; c = a; fa = fb; fb = fc; fc = fa }
+    if (fb * fc > 0) {
+      c = a
+      fc = fa
+      d = b - a
+      e = d
+    }
+    if (Math.abs(fc) < Math.abs(fb)) {
+      a = b
+      b = c
+      c = a
+      fa = fb
+      fb = fc
+      fc = fa
+    }
     const tol1 = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tol
     const xm = 0.5 * (c - b)
     if (Math.abs(xm) <= tol1 || fb === 0) return b

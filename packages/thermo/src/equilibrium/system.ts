@@ -13,7 +13,12 @@ export interface CompiledSystem {
 
 /** Check a BinarySystem once and reduce its vapour-pressure models to the internal form. */
 export function compileSystem(system: BinarySystem): CompiledSystem {
-  if (system === null || typeof system !== 'object' || !Array.isArray(system.vaporPressure) || system.vaporPressure.length !== 2) {
+  if (
+    system === null ||
+    typeof system !== 'object' ||
+    !Array.isArray(system.vaporPressure) ||
+    system.vaporPressure.length !== 2
+  ) {
     throw new ThermoError('invalid-model', 'A binary system needs two vapour-pressure models and an activity model.')
   }
   checkActivityModel(system.activity)

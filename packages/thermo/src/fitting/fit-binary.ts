@@ -69,12 +69,22 @@ export interface FitBinaryResult {
   residuals: PointResidual[]
   warnings: string[]
   /** What is needed to rebuild the parameter layout (prediction bands, suggestions). */
-  settings: { model: FittableModel; V1?: number; V2?: number; alpha: number; fitAlpha: boolean; sigmaT: number; sigmaY: number; residualVariance: number }
+  settings: {
+    model: FittableModel
+    V1?: number
+    V2?: number
+    alpha: number
+    fitAlpha: boolean
+    sigmaT: number
+    sigmaY: number
+    residualVariance: number
+  }
 }
 
 /** Scaled distance between parameter vectors, to tell separate minima apart. */
 function distinct(a: ArrayLike<number>, b: ArrayLike<number>, layout: ParameterLayout): boolean {
-  for (let j = 0; j < a.length; j++) if (Math.abs(a[j] - b[j]) > 1e-3 * Math.max(Math.abs(a[j]), layout.scales[j])) return true
+  for (let j = 0; j < a.length; j++)
+    if (Math.abs(a[j] - b[j]) > 1e-3 * Math.max(Math.abs(a[j]), layout.scales[j])) return true
   return false
 }
 
@@ -131,7 +141,10 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
   const search = fitAlpha ? boundedAlphaLayout(layout) : layout
   const fit = searchFit(data, search, objectiveKind)
   if (!fit) {
-    throw new ThermoError('no-convergence', `The ${modelName(options.model)} fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`)
+    throw new ThermoError(
+      'no-convergence',
+      `The ${modelName(options.model)} fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`,
+    )
   }
   if (!fitAlpha) {
     return finishFit(options, layout, data, index, fit, objectiveKind, { alpha, fitAlpha, held: null })
@@ -147,12 +160,20 @@ function atPoint(problem: LeastSquaresProblem, p: number[], converged: boolean):
   return { p: Float64Array.from(p), cost: r.reduce((t, v) => t + v * v, 0), iterations: 0, converged, r, J }
 }
 
-function problemOf(data: FitData, layout: ParameterLayout, objectiveKind: 'bubble-point' | 'activity'): LeastSquaresProblem {
+function problemOf(
+  data: FitData,
+  layout: ParameterLayout,
+  objectiveKind: 'bubble-point' | 'activity',
+): LeastSquaresProblem {
   return objectiveKind === 'activity' ? activityProblem(data, layout) : bubbleProblem(data, layout, true)
 }
 
 /** Multi-start search: activity-objective candidates, then the bubble-point refinement. */
-function searchFit(data: FitData, layout: ParameterLayout, objectiveKind: 'bubble-point' | 'activity'): LeastSquaresResult | null {
+function searchFit(
+  data: FitData,
+  layout: ParameterLayout,
+  objectiveKind: 'bubble-point' | 'activity',
+): LeastSquaresResult | null {
   const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
   if (objectiveKind === 'activity') return candidates[0] ?? null
   const problem = problemOf(data, layout, objectiveKind)
@@ -167,7 +188,11 @@ function searchFit(data: FitData, layout: ParameterLayout, objectiveKind: 'bubbl
  * ends within ALPHA_BOUND_TOLERANCE of a bound, hold it there and fit b12, b21 alone.
  */
 function settleAlpha(
-  options: FitBinaryOptions, data: FitData, index: number[], bounded: LeastSquaresResult, objectiveKind: 'bubble-point' | 'activity',
+  options: FitBinaryOptions,
+  data: FitData,
+  index: number[],
+  bounded: LeastSquaresResult,
+  objectiveKind: 'bubble-point' | 'activity',
 ): FitBinaryResult {
   const direct = parameterLayout('nrtl', { alpha: alphaOf(bounded.p[2]), fitAlpha: true })
   const start = [bounded.p[0], bounded.p[1], alphaOf(bounded.p[2])]
@@ -175,44 +200,81 @@ function settleAlpha(
   const best = polished && polished.cost <= bounded.cost * (1 + 1e-9) ? polished : null
   const a = best ? best.p[2] : start[2]
   const bound = boundReached(a)
-  const inside = bound === null ? best ?? atPoint(problemOf(data, direct, objectiveKind), start, bounded.converged) : null
-  if (inside) return finishFit(options, direct, data, index, inside, objectiveKind, { alpha: a, fitAlpha: true, held: null })
+  const inside =
+    bound === null ? (best ?? atPoint(problemOf(data, direct, objectiveKind), start, bounded.converged)) : null
+  if (inside)
+    return finishFit(options, direct, data, index, inside, objectiveKind, { alpha: a, fitAlpha: true, held: null })
   const heldAlpha = bound ?? a
   const held = parameterLayout('nrtl', { alpha: heldAlpha, fitAlpha: false })
   const fit = levenbergMarquardt(problemOf(data, held, objectiveKind), start.slice(0, 2), { maxIterations: 200 })
   if (!fit) {
-    throw new ThermoError('no-convergence', `The NRTL fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`)
+    throw new ThermoError(
+      'no-convergence',
+      `The NRTL fit found no parameters for which every point has a bubble point; check the data and the vapour-pressure models.`,
+    )
   }
-  return finishFit(options, held, data, index, fit, objectiveKind, { alpha: heldAlpha, fitAlpha: false, held: bound ?? heldAlpha })
+  return finishFit(options, held, data, index, fit, objectiveKind, {
+    alpha: heldAlpha,
+    fitAlpha: false,
+    held: bound ?? heldAlpha,
+  })
 }
 
 function finishFit(
-  options: FitBinaryOptions, layout: ParameterLayout, data: FitData, index: number[], fit: LeastSquaresResult,
-  objectiveKind: 'bubble-point' | 'activity', nrtl: { alpha: number; fitAlpha: boolean; held: number | null },
+  options: FitBinaryOptions,
+  layout: ParameterLayout,
+  data: FitData,
+  index: number[],
+  fit: LeastSquaresResult,
+  objectiveKind: 'bubble-point' | 'activity',
+  nrtl: { alpha: number; fitAlpha: boolean; held: number | null },
 ): FitBinaryResult {
   const m = layout.names.length
   const nRows = fit.r.length
   const stats = fitStatistics(fit.r, fit.J, nRows, m)
   const activity = layout.build(fit.p)
   const system: BinarySystem = { vaporPressure: options.vaporPressure, activity }
-  const residuals = pointResiduals(options.points, system, data, index, stats, fit.r, objectiveKind === 'bubble-point', layout, fit.p)
+  const residuals = pointResiduals(
+    options.points,
+    system,
+    data,
+    index,
+    stats,
+    fit.r,
+    objectiveKind === 'bubble-point',
+    layout,
+    fit.p,
+  )
   const summary = summarise(residuals, index)
   const warnings: string[] = []
   if (!fit.converged) warnings.push('The fit stopped before it fully converged; treat the parameters with care.')
-  if (nrtl.held !== null) warnings.push(`α reached its bound ${nrtl.held}: the data do not determine α; hold it at a fixed value.`)
-  if (!stats.inverse) warnings.push('The parameters are not separately determined by these data (singular fit); standard errors are not available.')
-  for (let i = 0; i < m; i++) for (let j = 0; j < i; j++) {
-    const r = stats.correlation[i][j]
-    if (Math.abs(r) > 0.99) warnings.push(`${layout.names[j]} and ${layout.names[i]} are strongly correlated (r = ${r.toFixed(3)}): the data do not tell them apart well.`)
-  }
+  if (nrtl.held !== null)
+    warnings.push(`α reached its bound ${nrtl.held}: the data do not determine α; hold it at a fixed value.`)
+  if (!stats.inverse)
+    warnings.push(
+      'The parameters are not separately determined by these data (singular fit); standard errors are not available.',
+    )
+  for (let i = 0; i < m; i++)
+    for (let j = 0; j < i; j++) {
+      const r = stats.correlation[i][j]
+      if (Math.abs(r) > 0.99)
+        warnings.push(
+          `${layout.names[j]} and ${layout.names[i]} are strongly correlated (r = ${r.toFixed(3)}): the data do not tell them apart well.`,
+        )
+    }
   const flagged = residuals.filter((r) => r.flagged && !r.excluded).length
-  if (flagged > 0) warnings.push(`${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`)
+  if (flagged > 0)
+    warnings.push(
+      `${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`,
+    )
   const Ts = Array.from(data.T)
   warnings.push(...spanWarnings(options.vaporPressure, Math.min(...Ts), Math.max(...Ts)))
   for (const T of [Math.min(...Ts), Math.max(...Ts)]) {
     const split = unstableRange(activity, T, 50)
     if (split) {
-      warnings.push(`The fitted parameters predict two liquid phases between x1 ≈ ${split[0].toFixed(2)} and ${split[1].toFixed(2)} at ${T.toFixed(1)} K; a single-liquid model is not physical there.`)
+      warnings.push(
+        `The fitted parameters predict two liquid phases between x1 ≈ ${split[0].toFixed(2)} and ${split[1].toFixed(2)} at ${T.toFixed(1)} K; a single-liquid model is not physical there.`,
+      )
       break
     }
   }
@@ -235,7 +297,16 @@ function finishFit(
     aic: stats.aic,
     residuals,
     warnings,
-    settings: { model: options.model, V1: options.V1, V2: options.V2, alpha: nrtl.alpha, fitAlpha: nrtl.fitAlpha, sigmaT, sigmaY, residualVariance: stats.s2 },
+    settings: {
+      model: options.model,
+      V1: options.V1,
+      V2: options.V2,
+      alpha: nrtl.alpha,
+      fitAlpha: nrtl.fitAlpha,
+      sigmaT,
+      sigmaY,
+      residualVariance: stats.s2,
+    },
   }
 }
 
@@ -244,7 +315,11 @@ function finishFit(
  * from the starting grid ranked by that same objective. Used by the point test.
  * @returns the fitted activity model and whether the fit converged.
  */
-export function fitTemperatureOnly(options: FitBinaryOptions): { activity: ActivityModel; converged: boolean; index: number[] } {
+export function fitTemperatureOnly(options: FitBinaryOptions): {
+  activity: ActivityModel
+  converged: boolean
+  index: number[]
+} {
   checkModelOptions(options)
   const alpha = options.alpha ?? 0.3
   const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha: false })
@@ -255,9 +330,15 @@ export function fitTemperatureOnly(options: FitBinaryOptions): { activity: Activ
     .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
     .filter((s) => Number.isFinite(s.cost))
     .sort((a, b) => a.cost - b.cost)
-  const fit = bestBubbleFit(problem, ranked.slice(0, 3).map((s) => s.p))
+  const fit = bestBubbleFit(
+    problem,
+    ranked.slice(0, 3).map((s) => s.p),
+  )
   if (!fit) {
-    throw new ThermoError('no-convergence', `The ${modelName(options.model)} fit to T–x found no parameters for which every point has a bubble point.`)
+    throw new ThermoError(
+      'no-convergence',
+      `The ${modelName(options.model)} fit to T–x found no parameters for which every point has a bubble point.`,
+    )
   }
   return { activity: layout.build(fit.p), converged: fit.converged, index }
 }

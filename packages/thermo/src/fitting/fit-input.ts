@@ -20,7 +20,12 @@ export const DEFAULT_SIGMA_T = 0.1
 /** Default uncertainty of a measured vapour mole fraction (common practice, no source). */
 export const DEFAULT_SIGMA_Y = 0.005
 
-const MODEL_NAMES: Record<FittableModel, string> = { margules: 'Margules', 'van-laar': 'Van Laar', wilson: 'Wilson', nrtl: 'NRTL' }
+const MODEL_NAMES: Record<FittableModel, string> = {
+  margules: 'Margules',
+  'van-laar': 'Van Laar',
+  wilson: 'Wilson',
+  nrtl: 'NRTL',
+}
 
 /** Human name of a fittable model. */
 export function modelName(model: FittableModel): string {
@@ -32,26 +37,46 @@ function checkPoint(pt: BinaryPoint, i: number): void {
   if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1.')
   if (!(Number.isFinite(pt.T) && pt.T > 0)) throw fail(`temperature must be a positive number of kelvins; got ${pt.T}.`)
   if (!(Number.isFinite(pt.P) && pt.P > 0)) throw fail(`pressure must be a positive number of pascals; got ${pt.P}.`)
-  if (!(Number.isFinite(pt.x1) && pt.x1 >= 0 && pt.x1 <= 1)) throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
-  if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1)) throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
-  if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0)) throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
-  if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0)) throw fail(`sigmaY must be a positive number; got ${pt.sigmaY}.`)
+  if (!(Number.isFinite(pt.x1) && pt.x1 >= 0 && pt.x1 <= 1))
+    throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
+  if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1))
+    throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
+  if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0))
+    throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
+  if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0))
+    throw fail(`sigmaY must be a positive number; got ${pt.sigmaY}.`)
 }
 
 /** Check the model choice and its extra inputs. */
-export function checkModelOptions(o: { model: FittableModel; V1?: number; V2?: number; alpha?: number; fitAlpha?: boolean; objective?: string }): void {
+export function checkModelOptions(o: {
+  model: FittableModel
+  V1?: number
+  V2?: number
+  alpha?: number
+  fitAlpha?: boolean
+  objective?: string
+}): void {
   if (!Object.hasOwn(MODEL_NAMES, o.model)) {
     throw new ThermoError('invalid-input', `Unknown model "${o.model}"; choose margules, van-laar, wilson or nrtl.`)
   }
   if (o.objective !== undefined && o.objective !== 'bubble-point' && o.objective !== 'activity') {
     throw new ThermoError('invalid-input', `Unknown objective "${o.objective}"; choose bubble-point or activity.`)
   }
-  if (o.model === 'wilson' && !(Number(o.V1) > 0 && Number(o.V2) > 0 && Number.isFinite(o.V1) && Number.isFinite(o.V2))) {
-    throw new ThermoError('invalid-input', 'Wilson needs the liquid molar volumes V1 and V2 (cm³/mol) of both components.')
+  if (
+    o.model === 'wilson' &&
+    !(Number(o.V1) > 0 && Number(o.V2) > 0 && Number.isFinite(o.V1) && Number.isFinite(o.V2))
+  ) {
+    throw new ThermoError(
+      'invalid-input',
+      'Wilson needs the liquid molar volumes V1 and V2 (cm³/mol) of both components.',
+    )
   }
   if (o.fitAlpha && o.model !== 'nrtl') throw new ThermoError('invalid-input', 'fitAlpha applies to NRTL only.')
   if (o.alpha !== undefined && !(o.alpha > 0 && o.alpha <= 1)) {
-    throw new ThermoError('invalid-input', `The NRTL non-randomness parameter alpha must be between 0 and 1; got ${o.alpha}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `The NRTL non-randomness parameter alpha must be between 0 and 1; got ${o.alpha}.`,
+    )
   }
 }
 
@@ -60,7 +85,10 @@ export function checkModelOptions(o: { model: FittableModel; V1?: number; V2?: n
  * @returns the data and, for each FitData row, the index of its point in `points`.
  */
 export function buildFitData(
-  points: BinaryPoint[], vaporPressure: [VaporPressureModel, VaporPressureModel], model: FittableModel, nParams: number,
+  points: BinaryPoint[],
+  vaporPressure: [VaporPressureModel, VaporPressureModel],
+  model: FittableModel,
+  nParams: number,
 ): { data: FitData; index: number[] } {
   if (!Array.isArray(points)) throw new ThermoError('invalid-input', 'The points must be a list of { T, P, x1, y1 }.')
   points.forEach(checkPoint)
@@ -78,7 +106,10 @@ export function buildFitData(
   }
   const index = points.flatMap((p, i) => (!p.excluded && p.x1 > 0 && p.x1 < 1 ? [i] : []))
   if (index.length < nParams) {
-    throw new ThermoError('insufficient-data', `Fitting ${modelName(model)} needs at least ${nParams} mixture points (0 < x1 < 1); got ${index.length}.`)
+    throw new ThermoError(
+      'insufficient-data',
+      `Fitting ${modelName(model)} needs at least ${nParams} mixture points (0 < x1 < 1); got ${index.length}.`,
+    )
   }
   const n = index.length
   const col = (f: (p: BinaryPoint) => number) => Float64Array.from(index, (i) => f(points[i]))

@@ -54,7 +54,14 @@ export function invertSymmetric(a: Float64Array, m: number): Float64Array | null
 }
 
 /** JᵀJ (m×m) and Jᵀr (m) of an n×m row-major Jacobian. */
-export function normalEquations(J: Float64Array, r: Float64Array, n: number, m: number, A: Float64Array, g: Float64Array): void {
+export function normalEquations(
+  J: Float64Array,
+  r: Float64Array,
+  n: number,
+  m: number,
+  A: Float64Array,
+  g: Float64Array,
+): void {
   A.fill(0)
   g.fill(0)
   for (let k = 0; k < n; k++) {

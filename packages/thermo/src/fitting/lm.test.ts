@@ -17,7 +17,10 @@ function line() {
     },
     jacobian(p: Float64Array, r: Float64Array, J: Float64Array) {
       this.residuals(p, r)
-      t.forEach((ti, i) => { J[2 * i] = 1; J[2 * i + 1] = ti })
+      t.forEach((ti, i) => {
+        J[2 * i] = 1
+        J[2 * i + 1] = ti
+      })
       return true
     },
   }

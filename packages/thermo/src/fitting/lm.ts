@@ -62,7 +62,11 @@ export function levenbergMarquardt(
   while (iterations < maxIterations) {
     // Stop when even the undamped Gauss–Newton step promises less than `tolerance`·cost: what is left
     // is below the noise of residuals that come from iterative bubble-point solves.
-    if (cost < 1e-30 || scaledGradient(A, g, m, cost) < 1e-10 || gaussNewtonGain(A, g, m, L, step) <= tolerance * cost) {
+    if (
+      cost < 1e-30 ||
+      scaledGradient(A, g, m, cost) < 1e-10 ||
+      gaussNewtonGain(A, g, m, L, step) <= tolerance * cost
+    ) {
       converged = true
       break
     }

@@ -29,7 +29,10 @@ export interface FitData {
 const g = new Float64Array(4)
 
 /** Models at p + h·e_j for forward differences in the parameters, with their steps h. */
-function perturbedModels(layout: ParameterLayout, p: Float64Array): { base: ActivityModel; models: ActivityModel[]; steps: number[] } {
+function perturbedModels(
+  layout: ParameterLayout,
+  p: Float64Array,
+): { base: ActivityModel; models: ActivityModel[]; steps: number[] } {
   const models: ActivityModel[] = []
   const steps: number[] = []
   const q = Float64Array.from(p)
@@ -46,7 +49,14 @@ function perturbedModels(layout: ParameterLayout, p: Float64Array): { base: Acti
 type Perturbed = ReturnType<typeof perturbedModels>
 
 /** ∂ln γ1/∂θj and ∂ln γ2/∂θj at (x1, T) into out[2j], out[2j+1]; base = ln γ1, ln γ2 of the unperturbed model. */
-function lnGammaSensitivities(pm: Perturbed, x1: number, T: number, base1: number, base2: number, out: Float64Array): void {
+function lnGammaSensitivities(
+  pm: Perturbed,
+  x1: number,
+  T: number,
+  base1: number,
+  base2: number,
+  out: Float64Array,
+): void {
   for (let j = 0; j < pm.steps.length; j++) {
     lnGammaT(pm.models[j], x1, T, g)
     out[2 * j] = (g[0] - base1) / pm.steps[j]
@@ -66,8 +76,13 @@ function bubbleAt(model: ActivityModel, d: FitData, i: number, Tguess: Float64Ar
 
 /** dT/dθj and dy1/dθj at the bubble point just solved (T, y1 = res[0], res[1]), into dT[j], dy[j]. */
 export function bubbleSensitivities(
-  model: ActivityModel, d: { vp1: LnPsat }, x1: number, pm: Perturbed,
-  dlng: Float64Array, dT: Float64Array, dy: Float64Array,
+  model: ActivityModel,
+  d: { vp1: LnPsat },
+  x1: number,
+  pm: Perturbed,
+  dlng: Float64Array,
+  dT: Float64Array,
+  dy: Float64Array,
 ): void {
   const T = res[0]
   const y1 = res[1]
@@ -84,7 +99,11 @@ export function bubbleSensitivities(
 }
 
 /** The bubble-point objective; `useY` false fits T–x alone (the point test). */
-export function bubbleProblem(d: FitData, layout: ParameterLayout, useY: boolean): LeastSquaresProblem & { Tguess: Float64Array } {
+export function bubbleProblem(
+  d: FitData,
+  layout: ParameterLayout,
+  useY: boolean,
+): LeastSquaresProblem & { Tguess: Float64Array } {
   const m = layout.names.length
   const Tguess = new Float64Array(d.n)
   // The measured temperature is the best first guess of each bubble point (within the noise of it).

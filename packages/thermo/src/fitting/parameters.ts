@@ -25,7 +25,10 @@ function grid(values: number[]): number[][] {
 }
 
 /** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha). */
-export function parameterLayout(model: FittableModel, opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean }): ParameterLayout {
+export function parameterLayout(
+  model: FittableModel,
+  opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean },
+): ParameterLayout {
   switch (model) {
     case 'margules':
       return {
@@ -42,7 +45,15 @@ export function parameterLayout(model: FittableModel, opts: { V1?: number; V2?: 
         build: (p) => ({ kind: 'van-laar', A12: p[0], A21: p[1] }),
         // Van Laar needs A12 and A21 of one sign; both near zero is the ideal limit.
         valid: (p) => p[0] * p[1] > 0 && Math.abs(p[0]) < 50 && Math.abs(p[1]) < 50,
-        starts: [[0.5, 0.5], [1, 2], [2, 1], [2.5, 2.5], [-0.5, -0.5], [-1, -2], [-2, -1]],
+        starts: [
+          [0.5, 0.5],
+          [1, 2],
+          [2, 1],
+          [2.5, 2.5],
+          [-0.5, -0.5],
+          [-1, -2],
+          [-2, -1],
+        ],
       }
     case 'wilson': {
       const V1 = opts.V1 as number
@@ -62,7 +73,11 @@ export function parameterLayout(model: FittableModel, opts: { V1?: number; V2?: 
           names: ['b12', 'b21', 'alpha'],
           scales: [100, 100, 0.01],
           build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha: p[2] }),
-          valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && p[2] >= NRTL_ALPHA_BOUNDS[0] && p[2] <= NRTL_ALPHA_BOUNDS[1],
+          valid: (p) =>
+            Math.abs(p[0]) < 1e5 &&
+            Math.abs(p[1]) < 1e5 &&
+            p[2] >= NRTL_ALPHA_BOUNDS[0] &&
+            p[2] <= NRTL_ALPHA_BOUNDS[1],
           starts: grid(ENERGY_GRID).map(([a, b]) => [a, b, alpha]),
         }
       }

@@ -11,7 +11,10 @@ function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
   const s = fit.settings
   const layout = parameterLayout(s.model, { V1: s.V1, V2: s.V2, alpha: s.alpha, fitAlpha: s.fitAlpha })
   // A parameter held at its bound (NRTL α) is part of the layout's fixed settings, not of p.
-  const p = Float64Array.from(fit.parameters.filter((q) => !q.atBound), (q) => q.value)
+  const p = Float64Array.from(
+    fit.parameters.filter((q) => !q.atBound),
+    (q) => q.value,
+  )
   const c = compileSystem(fit.system)
   const pm = perturbedModels(layout, p)
   const m = p.length
@@ -20,7 +23,10 @@ function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
   let T = NaN
   return xs.map((x1) => {
     if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1))) {
-      throw new ThermoError('no-convergence', `No bubble point at x1 = ${x1.toFixed(4)} and ${P} Pa with the fitted parameters.`)
+      throw new ThermoError(
+        'no-convergence',
+        `No bubble point at x1 = ${x1.toFixed(4)} and ${P} Pa with the fitted parameters.`,
+      )
     }
     T = res[0]
     const y1 = res[1]
@@ -39,7 +45,10 @@ function variance(cov: number[][], g: Float64Array): number {
 
 function checkCount(name: string, n: number, lo: number, hi: number): void {
   if (!Number.isInteger(n) || n < lo || n > hi) {
-    throw new ThermoError('invalid-input', `The number of ${name} must be a whole number from ${lo} to ${hi}; got ${n}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `The number of ${name} must be a whole number from ${lo} to ${hi}; got ${n}.`,
+    )
   }
 }
 
@@ -70,7 +79,9 @@ export function predictionBand(fit: FitBinaryResult, options: { P: number; point
   checkCount('band points', n, 3, 1001)
   const xs = Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
   const rows = sensitivities(fit, options.P, xs)
-  const warnings = fit.covariance.flat().every(Number.isFinite) ? [] : ['The fit has no usable covariance, so the band cannot be drawn.']
+  const warnings = fit.covariance.flat().every(Number.isFinite)
+    ? []
+    : ['The fit has no usable covariance, so the band cannot be drawn.']
   const sigmaT = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gT)))
   const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
   return {
@@ -100,16 +111,24 @@ export interface SuggestedComposition {
 export type SuggestionCriterion = 'sigma-y' | 'd-optimal'
 
 /** det(I₂ + UᵀCU)/… for the two rows u1 = gT/σT, u2 = gY/σY of one hypothetical point, scaled by 1/s². */
-function determinantGain(cov: number[][], gT: Float64Array, gY: Float64Array, wT: number, wY: number, s2: number): number {
+function determinantGain(
+  cov: number[][],
+  gT: Float64Array,
+  gY: Float64Array,
+  wT: number,
+  wY: number,
+  s2: number,
+): number {
   const m = gT.length
   let tt = 0
   let ty = 0
   let yy = 0
-  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
-    tt += gT[i] * cov[i][j] * gT[j]
-    ty += gT[i] * cov[i][j] * gY[j]
-    yy += gY[i] * cov[i][j] * gY[j]
-  }
+  for (let i = 0; i < m; i++)
+    for (let j = 0; j < m; j++) {
+      tt += gT[i] * cov[i][j] * gT[j]
+      ty += gT[i] * cov[i][j] * gY[j]
+      yy += gY[i] * cov[i][j] * gY[j]
+    }
   const a = 1 + (tt * wT * wT) / s2
   const d = 1 + (yy * wY * wY) / s2
   const b = (ty * wT * wY) / s2
@@ -128,19 +147,24 @@ function determinantGain(cov: number[][], gT: Float64Array, gY: Float64Array, wT
  * @param options P in Pa, count 1–20, criterion (default 'sigma-y').
  */
 export function suggestNextCompositions(
-  fit: FitBinaryResult, options: { P: number; count: number; criterion?: SuggestionCriterion },
+  fit: FitBinaryResult,
+  options: { P: number; count: number; criterion?: SuggestionCriterion },
 ): SuggestedComposition[] {
   checkPressure(options.P)
   checkCount('suggestions', options.count, 1, 20)
   const criterion = options.criterion ?? 'sigma-y'
   if (criterion !== 'sigma-y' && criterion !== 'd-optimal') {
-    throw new ThermoError('invalid-input', `The suggestion criterion must be 'sigma-y' or 'd-optimal'; got ${String(criterion)}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `The suggestion criterion must be 'sigma-y' or 'd-optimal'; got ${String(criterion)}.`,
+    )
   }
   const m = fit.covariance.length
   const info = new Float64Array(m * m)
   fit.covariance.forEach((row, i) => row.forEach((v, j) => (info[i * m + j] = v)))
   const inv = invertSymmetric(info, m)
-  if (!inv) throw new ThermoError('no-covariance', 'The fit has no usable covariance, so no next measurement can be suggested.')
+  if (!inv)
+    throw new ThermoError('no-covariance', 'The fit has no usable covariance, so no next measurement can be suggested.')
   const grid = Array.from({ length: 99 }, (_, i) => (i + 1) / 100)
   const rows = sensitivities(fit, options.P, grid)
   const { sigmaT, sigmaY, residualVariance } = fit.settings
@@ -153,17 +177,22 @@ export function suggestNextCompositions(
     let bestScore = -Infinity
     rows.forEach((r, i) => {
       if (picks.some((p) => Math.abs(p.x1 - r.x1) < spacing - 1e-12)) return
-      const score = criterion === 'sigma-y' ? variance(cov, r.gY) : determinantGain(cov, r.gT, r.gY, 1 / sigmaT, 1 / sigmaY, s2)
+      const score =
+        criterion === 'sigma-y' ? variance(cov, r.gY) : determinantGain(cov, r.gT, r.gY, 1 / sigmaT, 1 / sigmaY, s2)
       // Strictly greater: ties go to the lower x1, so the list is reproducible.
-      if (score > bestScore) { bestScore = score; best = i }
+      if (score > bestScore) {
+        bestScore = score
+        best = i
+      }
     })
     if (best < 0) break
     const r = rows[best]
     picks.push({ x1: r.x1, T: r.T, y1: r.y1, sigmaY: Math.sqrt(variance(cov, r.gY)) })
     // Information of the hypothetical point: its T and y rows, weighted as the fit weighted its data.
-    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
-      inv[i * m + j] += (r.gT[i] * r.gT[j] / (sigmaT * sigmaT) + r.gY[i] * r.gY[j] / (sigmaY * sigmaY)) / s2
-    }
+    for (let i = 0; i < m; i++)
+      for (let j = 0; j < m; j++) {
+        inv[i * m + j] += ((r.gT[i] * r.gT[j]) / (sigmaT * sigmaT) + (r.gY[i] * r.gY[j]) / (sigmaY * sigmaY)) / s2
+      }
     const next = invertSymmetric(inv, m)
     if (!next) break
     cov = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => next[i * m + j]))

@@ -14,8 +14,15 @@ const FLAG_LIMIT = 3
  * r/(s·√(1 + h)), so an excluded point can still be seen to be an outlier.
  */
 export function pointResiduals(
-  points: BinaryPoint[], system: BinarySystem, data: FitData, index: number[], stats: FitStatistics,
-  r: Float64Array, bubbleObjective: boolean, layout: ParameterLayout, p: Float64Array,
+  points: BinaryPoint[],
+  system: BinarySystem,
+  data: FitData,
+  index: number[],
+  stats: FitStatistics,
+  r: Float64Array,
+  bubbleObjective: boolean,
+  layout: ParameterLayout,
+  p: Float64Array,
 ): PointResidual[] {
   const m = p.length
   const row = new Map(index.map((pointIndex, k) => [pointIndex, k]))
@@ -31,7 +38,14 @@ export function pointResiduals(
     const ok = known || solveBubbleT(act, data.vp1, data.vp2, Math.log(pt.P), pt.x1, pt.T)
     const dT = known ? r[2 * k] / data.wT[k] : ok ? res[0] - pt.T : NaN
     const dy = known ? r[2 * k + 1] / data.wY[k] : ok ? res[1] - pt.y1 : NaN
-    const out: PointResidual = { dT, dy, studentized: NaN, leverage: NaN, flagged: false, excluded: pt.excluded === true }
+    const out: PointResidual = {
+      dT,
+      dy,
+      studentized: NaN,
+      leverage: NaN,
+      flagged: false,
+      excluded: pt.excluded === true,
+    }
     if (k !== undefined) {
       const a = stats.studentized[2 * k]
       const b = stats.studentized[2 * k + 1]

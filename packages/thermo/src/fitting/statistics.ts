@@ -28,9 +28,13 @@ export function fitStatistics(r: Float64Array, J: Float64Array, n: number, m: nu
   for (let k = 0; k < n; k++) cost += r[k] * r[k]
   const dof = n - m
   const s2 = dof > 0 ? cost / dof : NaN
-  const covariance = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => (inverse ? inverse[i * m + j] * s2 : NaN)))
+  const covariance = Array.from({ length: m }, (_, i) =>
+    Array.from({ length: m }, (_, j) => (inverse ? inverse[i * m + j] * s2 : NaN)),
+  )
   const standardErrors = covariance.map((row, i) => Math.sqrt(row[i]))
-  const correlation = covariance.map((row, i) => row.map((v, j) => (i === j ? 1 : v / (standardErrors[i] * standardErrors[j]))))
+  const correlation = covariance.map((row, i) =>
+    row.map((v, j) => (i === j ? 1 : v / (standardErrors[i] * standardErrors[j]))),
+  )
   const leverage = new Float64Array(n)
   const studentized = new Float64Array(n)
   for (let k = 0; k < n; k++) {

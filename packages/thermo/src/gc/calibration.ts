@@ -23,7 +23,13 @@ export interface FitCalibrationOptions {
 }
 
 /** Mean area ratio A1/A2, mean area fraction A1/(A1+A2) and the RSD of the ratios for a set of injections. */
-export function summarizeInjections(injections: Injection[]): { ratio: number; fraction: number; ratioSd: number; fractionSd: number; rsd: number | null } {
+export function summarizeInjections(injections: Injection[]): {
+  ratio: number
+  fraction: number
+  ratioSd: number
+  fractionSd: number
+  rsd: number | null
+} {
   const ratios = meanAndSd(injections.map((i) => i.area1 / i.area2))
   const fractions = meanAndSd(injections.map((i) => i.area1 / (i.area1 + i.area2)))
   const rsd = injections.length > 1 ? ratios.sd / ratios.mean : null
@@ -51,10 +57,16 @@ function rSquared(observed: number[], predicted: number[]): number {
 function fitModel(model: CalibrationModel, x1: number[], signal: number[], extraTerm = false): LeastSquaresFit {
   if (model === 'response-factor') {
     const molarRatio = x1.map((x) => x / (1 - x))
-    return leastSquares(molarRatio.map((m) => (extraTerm ? [1, m] : [1])), signal.map((r, i) => r / molarRatio[i]))
+    return leastSquares(
+      molarRatio.map((m) => (extraTerm ? [1, m] : [1])),
+      signal.map((r, i) => r / molarRatio[i]),
+    )
   }
   const degree = (model === 'quadratic' ? 2 : 1) + (extraTerm ? 1 : 0)
-  return leastSquares(signal.map((f) => Array.from({ length: degree + 1 }, (_, j) => f ** j)), x1)
+  return leastSquares(
+    signal.map((f) => Array.from({ length: degree + 1 }, (_, j) => f ** j)),
+    x1,
+  )
 }
 
 /** Significance test of the next power term; a warning string when it matters or cannot be tested. */
@@ -90,11 +102,17 @@ function curvatureWarning(model: CalibrationModel, x1: number[], signal: number[
 export function fitCalibration(options: FitCalibrationOptions): Calibration {
   const { standards, molarMasses, model } = options
   if (!(model in MIN_STANDARDS)) {
-    throw new ThermoError('unknown-model', `Unknown calibration model '${String(model)}'; use 'response-factor', 'linear' or 'quadratic'.`)
+    throw new ThermoError(
+      'unknown-model',
+      `Unknown calibration model '${String(model)}'; use 'response-factor', 'linear' or 'quadratic'.`,
+    )
   }
   const n = Array.isArray(standards) ? standards.length : 0
   if (n < MIN_STANDARDS[model]) {
-    throw new ThermoError('too-few-standards', `A ${model} calibration needs at least ${MIN_STANDARDS[model]} standards; got ${n}.`)
+    throw new ThermoError(
+      'too-few-standards',
+      `A ${model} calibration needs at least ${MIN_STANDARDS[model]} standards; got ${n}.`,
+    )
   }
   if (molarMasses !== undefined) checkMolarMasses(molarMasses)
   const x1 = standards.map((s, i) => {
@@ -107,7 +125,10 @@ export function fitCalibration(options: FitCalibrationOptions): Calibration {
   const fit = fitModel(model, x1, signal)
   const c = fit.coefficients
   if (model === 'response-factor' && !(c[0] > 0)) {
-    throw new ThermoError('singular-fit', 'The fitted response factor is not positive; check that area1 and area2 belong to components 1 and 2.')
+    throw new ThermoError(
+      'singular-fit',
+      'The fitted response factor is not positive; check that area1 and area2 belong to components 1 and 2.',
+    )
   }
   const warnings: string[] = []
   const residuals: StandardResidual[] = standards.map((s, i) => {
@@ -115,18 +136,37 @@ export function fitCalibration(options: FitCalibrationOptions): Calibration {
     const label = s.label ?? `Standard ${i + 1}`
     const rsd = summaries[i].rsd
     if (rsd !== null && rsd > REPLICATE_RSD_LIMIT) {
-      warnings.push(`${label} (x1 = ${x1[i].toFixed(3)}): replicate area ratios scatter by ${(rsd * 100).toFixed(1)} % RSD, above the usual 2 %; re-inject or check the integration.`)
+      warnings.push(
+        `${label} (x1 = ${x1[i].toFixed(3)}): replicate area ratios scatter by ${(rsd * 100).toFixed(1)} % RSD, above the usual 2 %; re-inject or check the integration.`,
+      )
     }
-    return { label, x1: x1[i], signal: signal[i], x1Predicted, residual: x1Predicted - x1[i], replicateRsd: rsd, injections: s.injections.length }
+    return {
+      label,
+      x1: x1[i],
+      signal: signal[i],
+      x1Predicted,
+      residual: x1Predicted - x1[i],
+      replicateRsd: rsd,
+      injections: s.injections.length,
+    }
   })
   const curvature = curvatureWarning(model, x1, signal)
   if (curvature) warnings.push(curvature)
   const r2 =
     model === 'response-factor'
-      ? rSquared(signal, x1.map((x) => (c[0] * x) / (1 - x)))
-      : rSquared(x1, signal.map((f) => calibrationValue(model, c, f)))
+      ? rSquared(
+          signal,
+          x1.map((x) => (c[0] * x) / (1 - x)),
+        )
+      : rSquared(
+          x1,
+          signal.map((f) => calibrationValue(model, c, f)),
+        )
   const dof = summaries.reduce((s, m, i) => s + (m.rsd === null ? 0 : standards[i].injections.length - 1), 0)
-  const pooledVariance = summaries.reduce((s, m, i) => s + (m.rsd === null ? 0 : (standards[i].injections.length - 1) * m.rsd ** 2), 0)
+  const pooledVariance = summaries.reduce(
+    (s, m, i) => s + (m.rsd === null ? 0 : (standards[i].injections.length - 1) * m.rsd ** 2),
+    0,
+  )
   const repeatability = dof > 0 ? { ratioRsd: Math.sqrt(pooledVariance / dof), degreesOfFreedom: dof } : null
   const names = model === 'response-factor' ? ['k'] : model === 'linear' ? ['b0', 'b1'] : ['b0', 'b1', 'b2']
   return {

@@ -71,7 +71,10 @@ function pooledReplicateRsd(own: number | null, ownDof: number, method: Calibrat
  * @returns x1 (mole fraction), its standard uncertainty (k = 1) and budget, replicate RSD, range flag, warnings
  * @throws ThermoError for a zero, negative or missing area, or no injections
  */
-export function compositionFromAreas(calibration: Calibration, options: CompositionFromAreasOptions): CompositionResult {
+export function compositionFromAreas(
+  calibration: Calibration,
+  options: CompositionFromAreasOptions,
+): CompositionResult {
   if (!calibration || !Array.isArray(calibration.coefficients)) {
     throw new ThermoError('invalid-calibration', 'The calibration is missing; fit one with fitCalibration first.')
   }
@@ -93,16 +96,23 @@ export function compositionFromAreas(calibration: Calibration, options: Composit
   const calVariance = dxdc.reduce((s, gi, i) => s + dxdc.reduce((t, gj, j) => t + gi * cov[i][j] * gj, 0), 0)
   const calibrationPart = Math.sqrt(Math.max(calVariance, 0))
   if (summary.rsd !== null && summary.rsd > 0.02) {
-    warnings.push(`Replicate area ratios scatter by ${(summary.rsd * 100).toFixed(1)} % RSD, above the usual 2 %; re-inject or check the integration.`)
+    warnings.push(
+      `Replicate area ratios scatter by ${(summary.rsd * 100).toFixed(1)} % RSD, above the usual 2 %; re-inject or check the integration.`,
+    )
   }
   const [lo, hi] = calibration.calibratedRange.signal
   const span = hi - lo
   const outside = signal < lo - 1e-9 * span || signal > hi + 1e-9 * span
   if (outside) {
     const [xlo, xhi] = calibration.calibratedRange.x1
-    warnings.push(`The sample lies outside the calibrated range (standards x1 = ${xlo.toFixed(3)}–${xhi.toFixed(3)}): the result is an extrapolation.`)
+    warnings.push(
+      `The sample lies outside the calibrated range (standards x1 = ${xlo.toFixed(3)}–${xhi.toFixed(3)}): the result is an extrapolation.`,
+    )
   }
-  if (x1 < 0 || x1 > 1) warnings.push(`The calibration gives x1 = ${x1.toFixed(4)}, outside 0–1: check the peaks and the calibration range.`)
+  if (x1 < 0 || x1 > 1)
+    warnings.push(
+      `The calibration gives x1 = ${x1.toFixed(4)}, outside 0–1: check the peaks and the calibration range.`,
+    )
   const betweenStandards = betweenStandardsScatter(calibration)
   return {
     x1,

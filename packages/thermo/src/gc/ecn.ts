@@ -48,10 +48,12 @@ function isWater(name: string): boolean {
 export function effectiveCarbonNumber(c: EcnComponent): number {
   if (typeof c.ecn === 'number') return c.ecn
   if (isWater(c.name)) return 0
-  if (!c.groups) throw new ThermoError('invalid-ecn-component', `${c.name}: give its effective carbon number (ecn) or its groups.`)
+  if (!c.groups)
+    throw new ThermoError('invalid-ecn-component', `${c.name}: give its effective carbon number (ecn) or its groups.`)
   let sum = 0
   for (const [group, count] of Object.entries(c.groups)) {
-    if (!(group in ECN_CONTRIBUTIONS)) throw new ThermoError('invalid-ecn-component', `${c.name}: unknown group '${group}'.`)
+    if (!(group in ECN_CONTRIBUTIONS))
+      throw new ThermoError('invalid-ecn-component', `${c.name}: unknown group '${group}'.`)
     sum += ECN_CONTRIBUTIONS[group as EcnGroup] * (count ?? 0)
   }
   return sum
@@ -65,10 +67,16 @@ export function detectorWarnings(detector: GcDetector, components: EcnComponent[
   if (detector !== 'FID') return []
   return components.flatMap((c) => {
     if (isWater(c.name)) {
-      return [`An FID barely responds to water: measure ${c.name} with a TCD, or take it by difference from the other component.`]
+      return [
+        `An FID barely responds to water: measure ${c.name} with a TCD, or take it by difference from the other component.`,
+      ]
     }
     const ecn = effectiveCarbonNumber(c)
-    return ecn < FID_VISIBLE_ECN ? [`An FID barely responds to ${c.name} (effective carbon number ${ecn.toFixed(2)}): use a TCD or another detector for it.`] : []
+    return ecn < FID_VISIBLE_ECN
+      ? [
+          `An FID barely responds to ${c.name} (effective carbon number ${ecn.toFixed(2)}): use a TCD or another detector for it.`,
+        ]
+      : []
   })
 }
 
@@ -88,10 +96,16 @@ export interface EcnEstimate {
  * @param options.components [component 1, component 2], each with `ecn` or `groups`; water is recognised by name
  * @throws ThermoError when the detector is not an FID
  */
-export function ecnResponseFactor(options: { detector: GcDetector; components: [EcnComponent, EcnComponent] }): EcnEstimate {
+export function ecnResponseFactor(options: {
+  detector: GcDetector
+  components: [EcnComponent, EcnComponent]
+}): EcnEstimate {
   const { detector, components } = options
   if (detector !== 'FID') {
-    throw new ThermoError('ecn-needs-fid', `Effective carbon numbers estimate FID responses only; a ${detector} needs response factors measured on standards.`)
+    throw new ThermoError(
+      'ecn-needs-fid',
+      `Effective carbon numbers estimate FID responses only; a ${detector} needs response factors measured on standards.`,
+    )
   }
   if (!Array.isArray(components) || components.length !== 2) {
     throw new ThermoError('invalid-ecn-component', 'Give exactly two components.')

@@ -27,7 +27,10 @@ export function invertMatrix(a: number[][]): number[][] {
     for (let r = col + 1; r < n; r++) if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) pivot = r
     const scale = Math.max(...m.map((row) => Math.abs(row[col])), 1e-300)
     if (Math.abs(m[pivot][col]) < 1e-13 * scale) {
-      throw new ThermoError('singular-fit', 'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.')
+      throw new ThermoError(
+        'singular-fit',
+        'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.',
+      )
     }
     ;[m[col], m[pivot]] = [m[pivot], m[col]]
     const p = m[col][col]
@@ -49,7 +52,9 @@ export function invertMatrix(a: number[][]): number[][] {
 export function leastSquares(X: number[][], y: number[]): LeastSquaresFit {
   const n = X.length
   const p = X[0].length
-  const xtx = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => X.reduce((s, row) => s + row[i] * row[j], 0)))
+  const xtx = Array.from({ length: p }, (_, i) =>
+    Array.from({ length: p }, (_, j) => X.reduce((s, row) => s + row[i] * row[j], 0)),
+  )
   const xty = Array.from({ length: p }, (_, i) => X.reduce((s, row, k) => s + row[i] * y[k], 0))
   const inv = invertMatrix(xtx)
   const coefficients = inv.map((row) => row.reduce((s, v, j) => s + v * xty[j], 0))
@@ -66,7 +71,10 @@ export function leastSquares(X: number[][], y: number[]): LeastSquaresFit {
  * (common practice, values from memory to 3 decimals); ν > 30 uses the normal value 1.960.
  */
 export function studentT975(dof: number): number {
-  const table = [12.706, 4.303, 3.182, 2.776, 2.571, 2.447, 2.365, 2.306, 2.262, 2.228, 2.201, 2.179, 2.16, 2.145, 2.131, 2.12, 2.11, 2.101, 2.093, 2.086, 2.08, 2.074, 2.069, 2.064, 2.06, 2.056, 2.052, 2.048, 2.045, 2.042]
+  const table = [
+    12.706, 4.303, 3.182, 2.776, 2.571, 2.447, 2.365, 2.306, 2.262, 2.228, 2.201, 2.179, 2.16, 2.145, 2.131, 2.12, 2.11,
+    2.101, 2.093, 2.086, 2.08, 2.074, 2.069, 2.064, 2.06, 2.056, 2.052, 2.048, 2.045, 2.042,
+  ]
   if (dof < 1) return Infinity
   return dof <= 30 ? table[Math.floor(dof) - 1] : 1.96
 }

@@ -3,7 +3,7 @@ import { ThermoError } from '../errors.js'
 import type { CalibrationStandard, Injection } from './gc-types.js'
 
 function describe(v: unknown): string {
-  return typeof v === 'number' ? String(v) : JSON.stringify(v) ?? String(v)
+  return typeof v === 'number' ? String(v) : (JSON.stringify(v) ?? String(v))
 }
 
 /** Check one injection; `where` prefixes the message, e.g. "Standard 2, injection 1". Zero, negative or missing areas are errors. */
@@ -13,9 +13,13 @@ export function checkInjection(where: string, injection: Injection | undefined):
   }
   for (const key of ['area1', 'area2'] as const) {
     const v = (injection as unknown as Record<string, unknown>)[key]
-    if (v === undefined || v === null) throw new ThermoError('invalid-area', `${where}: ${key} is missing.`, { field: key })
+    if (v === undefined || v === null)
+      throw new ThermoError('invalid-area', `${where}: ${key} is missing.`, { field: key })
     if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) {
-      throw new ThermoError('invalid-area', `${where}: ${key} must be a positive peak area; got ${describe(v)}.`, { field: key, value: v })
+      throw new ThermoError('invalid-area', `${where}: ${key} must be a positive peak area; got ${describe(v)}.`, {
+        field: key,
+        value: v,
+      })
     }
   }
 }
@@ -31,7 +35,11 @@ export function checkInjections(where: string, injections: Injection[] | undefin
 /** Molar masses for the mass-to-mole conversion: two positive numbers in g/mol. */
 export function checkMolarMasses(m: unknown): asserts m is [number, number] {
   const ok = Array.isArray(m) && m.length === 2 && m.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0)
-  if (!ok) throw new ThermoError('invalid-molar-masses', `molarMasses must be two positive numbers in g/mol; got ${describe(m)}.`)
+  if (!ok)
+    throw new ThermoError(
+      'invalid-molar-masses',
+      `molarMasses must be two positive numbers in g/mol; got ${describe(m)}.`,
+    )
 }
 
 /** Mole fraction x1 of a standard, converting a mass fraction w1 with the molar masses (g/mol). */
@@ -40,7 +48,11 @@ export function standardMoleFraction(s: CalibrationStandard, index: number, mola
   const c = (s?.composition ?? {}) as Record<string, unknown>
   const hasX = c.x1 !== undefined
   const hasW = c.w1 !== undefined
-  if (hasX && hasW) throw new ThermoError('invalid-standard', `${where}: give the composition as x1 (mole fraction) or w1 (mass fraction), not both.`)
+  if (hasX && hasW)
+    throw new ThermoError(
+      'invalid-standard',
+      `${where}: give the composition as x1 (mole fraction) or w1 (mass fraction), not both.`,
+    )
   if (!hasX && !hasW) throw new ThermoError('invalid-standard', `${where}: the composition is missing; give x1 or w1.`)
   const key = hasX ? 'x1' : 'w1'
   const v = c[key]
@@ -49,7 +61,10 @@ export function standardMoleFraction(s: CalibrationStandard, index: number, mola
   }
   if (hasX) return v
   if (molarMasses === undefined) {
-    throw new ThermoError('molar-masses-required', `${where} is given as a mass fraction: pass molarMasses [M1, M2] in g/mol to convert it.`)
+    throw new ThermoError(
+      'molar-masses-required',
+      `${where} is given as a mass fraction: pass molarMasses [M1, M2] in g/mol to convert it.`,
+    )
   }
   const n1 = v / molarMasses[0]
   const n2 = (1 - v) / molarMasses[1]

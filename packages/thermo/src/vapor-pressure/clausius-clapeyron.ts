@@ -15,14 +15,23 @@ export interface FitClausiusClapeyronResult {
  * One point needs a known `dHvap` (J/mol); two points give ΔHvap exactly; three or more give it by
  * least squares on ln P against 1/T. T in K, P in Pa. Tref/Pref are the point nearest the middle.
  */
-export function fitClausiusClapeyron(points: VaporPressurePoint[], options: { dHvap?: number } = {}): FitClausiusClapeyronResult {
+export function fitClausiusClapeyron(
+  points: VaporPressurePoint[],
+  options: { dHvap?: number } = {},
+): FitClausiusClapeyronResult {
   const pts = checkVaporPressurePoints(points, 1, 'A Clausius–Clapeyron model')
   const known = options.dHvap
   if (known !== undefined && !(Number.isFinite(known) && known > 0)) {
-    throw new ThermoError('invalid-input', `The enthalpy of vaporization must be a positive number of J/mol; got ${known}.`)
+    throw new ThermoError(
+      'invalid-input',
+      `The enthalpy of vaporization must be a positive number of J/mol; got ${known}.`,
+    )
   }
   if (pts.length === 1 && known === undefined) {
-    throw new ThermoError('insufficient-data', 'With one point, a Clausius–Clapeyron model needs a known enthalpy of vaporization (dHvap, J/mol).')
+    throw new ThermoError(
+      'insufficient-data',
+      'With one point, a Clausius–Clapeyron model needs a known enthalpy of vaporization (dHvap, J/mol).',
+    )
   }
   const ref = pts[Math.floor((pts.length - 1) / 2)]
   const range: [number, number] = [pts[0].T, pts[pts.length - 1].T]
@@ -49,5 +58,10 @@ export function fitClausiusClapeyron(points: VaporPressurePoint[], options: { dH
   if (pts.length > 1 && known !== undefined) {
     warnings.push('A known enthalpy of vaporization was given, so only the reference point is used.')
   }
-  return { model: { kind: 'clausius-clapeyron', Tref: ref.T, Pref: ref.P, dHvap, range: pts.length > 1 ? range : undefined }, dHvap, standardError, warnings }
+  return {
+    model: { kind: 'clausius-clapeyron', Tref: ref.T, Pref: ref.P, dHvap, range: pts.length > 1 ? range : undefined },
+    dHvap,
+    standardError,
+    warnings,
+  }
 }

@@ -25,7 +25,10 @@ function checkRange(range: [number, number] | undefined | null): void {
   // Stored models may carry `range: null` (no range), which means the same as leaving it out.
   if (range === undefined || range === null) return
   if (!Array.isArray(range) || range.length !== 2 || !range.every(Number.isFinite) || range[0] >= range[1]) {
-    throw new ThermoError('invalid-model', 'A vapour-pressure range must be two finite numbers [min, max] with min < max.')
+    throw new ThermoError(
+      'invalid-model',
+      'A vapour-pressure range must be two finite numbers [min, max] with min < max.',
+    )
   }
 }
 
@@ -44,7 +47,10 @@ export function compileVaporPressure(model: VaporPressureModel): LnPsat {
     }
     const lnPerUnit = Object.hasOwn(LN_PASCALS, pressureUnit) ? LN_PASCALS[pressureUnit] : undefined
     if (lnPerUnit === undefined) {
-      throw new ThermoError('invalid-model', `Unknown Antoine pressure unit "${pressureUnit}"; use Pa, kPa, bar, mmHg or atm.`)
+      throw new ThermoError(
+        'invalid-model',
+        `Unknown Antoine pressure unit "${pressureUnit}"; use Pa, kPa, bar, mmHg or atm.`,
+      )
     }
     if (temperatureUnit !== 'C' && temperatureUnit !== 'K') {
       throw new ThermoError('invalid-model', `Unknown Antoine temperature unit "${temperatureUnit}"; use "C" or "K".`)
@@ -62,12 +68,25 @@ export function compileVaporPressure(model: VaporPressureModel): LnPsat {
   }
   if (model.kind === 'clausius-clapeyron') {
     const { Tref, Pref, dHvap, range } = model
-    if (!(Tref > 0 && Number.isFinite(Tref)) || !(Pref > 0 && Number.isFinite(Pref)) || !(dHvap > 0 && Number.isFinite(dHvap))) {
-      throw new ThermoError('invalid-model', 'Clausius–Clapeyron needs a positive Tref (K), Pref (Pa) and enthalpy of vaporization (J/mol).')
+    if (
+      !(Tref > 0 && Number.isFinite(Tref)) ||
+      !(Pref > 0 && Number.isFinite(Pref)) ||
+      !(dHvap > 0 && Number.isFinite(dHvap))
+    ) {
+      throw new ThermoError(
+        'invalid-model',
+        'Clausius–Clapeyron needs a positive Tref (K), Pref (Pa) and enthalpy of vaporization (J/mol).',
+      )
     }
     checkRange(range)
     const b = dHvap / R
-    return { a: Math.log(Pref) + b / Tref, b, c: 0, tMin: range ? range[0] : -Infinity, tMax: range ? range[1] : Infinity }
+    return {
+      a: Math.log(Pref) + b / Tref,
+      b,
+      c: 0,
+      tMin: range ? range[0] : -Infinity,
+      tMax: range ? range[1] : Infinity,
+    }
   }
   throw new ThermoError('invalid-model', `Unknown vapour-pressure model kind "${(model as { kind: unknown }).kind}".`)
 }
@@ -98,7 +117,12 @@ export function rangeWarnings(model: VaporPressureModel, vp: LnPsat, T: number, 
  * One warning per component whose vapour-pressure range does not cover the temperatures [Tmin, Tmax] (K)
  * that a data set or curve spans; empty when both are covered.
  */
-export function spanWarnings(models: [VaporPressureModel, VaporPressureModel], Tmin: number, Tmax: number, names?: [string, string]): string[] {
+export function spanWarnings(
+  models: [VaporPressureModel, VaporPressureModel],
+  Tmin: number,
+  Tmax: number,
+  names?: [string, string],
+): string[] {
   const out: string[] = []
   models.forEach((model, i) => {
     const vp = compileVaporPressure(model)

@@ -31,16 +31,29 @@ export interface FitAntoineResult {
 }
 
 /** Check and sort the points; throw for too few, bad or non-monotonic data. */
-export function checkVaporPressurePoints(points: VaporPressurePoint[], minimum: number, what: string): VaporPressurePoint[] {
+export function checkVaporPressurePoints(
+  points: VaporPressurePoint[],
+  minimum: number,
+  what: string,
+): VaporPressurePoint[] {
   if (!Array.isArray(points) || points.length < minimum) {
-    throw new ThermoError('insufficient-data', `${what} needs at least ${minimum} points (T, P); got ${Array.isArray(points) ? points.length : 0}.`)
+    throw new ThermoError(
+      'insufficient-data',
+      `${what} needs at least ${minimum} points (T, P); got ${Array.isArray(points) ? points.length : 0}.`,
+    )
   }
   points.forEach((pt, i) => {
     if (!(Number.isFinite(pt?.T) && pt.T > 0)) {
-      throw new ThermoError('invalid-input', `Point ${i + 1}: temperature must be a positive number of kelvins; got ${pt?.T}.`)
+      throw new ThermoError(
+        'invalid-input',
+        `Point ${i + 1}: temperature must be a positive number of kelvins; got ${pt?.T}.`,
+      )
     }
     if (!(Number.isFinite(pt.P) && pt.P > 0)) {
-      throw new ThermoError('invalid-input', `Point ${i + 1}: pressure must be a positive number of pascals; got ${pt.P}.`)
+      throw new ThermoError(
+        'invalid-input',
+        `Point ${i + 1}: pressure must be a positive number of pascals; got ${pt.P}.`,
+      )
     }
   })
   const sorted = [...points].sort((a, b) => a.T - b.T)
@@ -59,12 +72,18 @@ export function checkVaporPressurePoints(points: VaporPressurePoint[], minimum: 
 
 /** Best (a, b) of ln P = a − b/(T + c) for a fixed c, by linear least squares; returns [a, b, Σr²]. */
 function linearForC(pts: VaporPressurePoint[], c: number): [number, number, number] {
-  let su = 0, sy = 0, suu = 0, suy = 0
+  let su = 0,
+    sy = 0,
+    suu = 0,
+    suy = 0
   const n = pts.length
   for (const { T, P } of pts) {
     const u = -1 / (T + c)
     const y = Math.log(P)
-    su += u; sy += y; suu += u * u; suy += u * y
+    su += u
+    sy += y
+    suu += u * u
+    suy += u * y
   }
   const b = (n * suy - su * sy) / (n * suu - su * su)
   const a = (sy - b * su) / n
@@ -92,7 +111,10 @@ export function fitAntoine(points: VaporPressurePoint[], options: FitAntoineOpti
   let best = Infinity
   for (let c = -0.9 * Tmin; c <= 100; c += Tmin / 100) {
     const [a, b, ss] = linearForC(pts, c)
-    if (ss < best && b > 0) { best = ss; start = [a, b, c] }
+    if (ss < best && b > 0) {
+      best = ss
+      start = [a, b, c]
+    }
   }
   const problem = {
     nResiduals: n,
@@ -137,7 +159,8 @@ function antoineResult(
   const inv = invertSymmetric(JtJ, 3)
   const dof = n - 3
   const s2 = dof > 0 ? fit.cost / dof : NaN
-  if (dof === 0) warnings.push('With exactly 3 points the Antoine fit is exact; standard errors need at least 4 points.')
+  if (dof === 0)
+    warnings.push('With exactly 3 points the Antoine fit is exact; standard errors need at least 4 points.')
   if (!inv) warnings.push('The Antoine constants are not separately determined by these points (singular fit).')
   const scale = [1 / k, 1 / k, 1]
   const covariance = [0, 1, 2].map((i) => [0, 1, 2].map((j) => (inv ? inv[i * 3 + j] * s2 * scale[i] * scale[j] : NaN)))
@@ -148,7 +171,16 @@ function antoineResult(
   const rmsRelative = Math.sqrt(residuals.reduce((s, r) => s + r.relative ** 2, 0) / n)
   const range: [number, number] = [pts[0].T - shift, pts[n - 1].T - shift]
   return {
-    model: { kind: 'antoine', A, B: b / k, C: c + shift, log: units.log, pressureUnit: units.pressureUnit, temperatureUnit: units.temperatureUnit, range },
+    model: {
+      kind: 'antoine',
+      A,
+      B: b / k,
+      C: c + shift,
+      log: units.log,
+      pressureUnit: units.pressureUnit,
+      temperatureUnit: units.temperatureUnit,
+      range,
+    },
     standardErrors: { A: Math.sqrt(covariance[0][0]), B: Math.sqrt(covariance[1][1]), C: Math.sqrt(covariance[2][2]) },
     covariance,
     rmsRelative,

@@ -13,7 +13,10 @@ export function vaporPressure(model: VaporPressureModel, T: number): number {
   checkTemperature(T)
   const vp = compileVaporPressure(model)
   if (T + vp.c <= 0) {
-    throw new ThermoError('out-of-domain', `The Antoine equation has no value at ${T} K: T + C is zero or negative there.`)
+    throw new ThermoError(
+      'out-of-domain',
+      `The Antoine equation has no value at ${T} K: T + C is zero or negative there.`,
+    )
   }
   return Math.exp(vp.a - vp.b / (T + vp.c))
 }

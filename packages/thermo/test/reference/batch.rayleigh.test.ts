@@ -10,7 +10,8 @@
 import { describe, expect, it } from 'vitest'
 import { simpleBatchDistillation } from '../../src/batch/index.js'
 
-const closedFormPot = (alpha: number, x0: number, x: number, L0: number) => L0 * Math.exp((Math.log(x / x0) + alpha * Math.log((1 - x0) / (1 - x))) / (alpha - 1))
+const closedFormPot = (alpha: number, x0: number, x: number, L0: number) =>
+  L0 * Math.exp((Math.log(x / x0) + alpha * Math.log((1 - x0) / (1 - x))) / (alpha - 1))
 
 describe('Rayleigh, constant α: numerical integration vs closed form', () => {
   it.each([
@@ -24,8 +25,12 @@ describe('Rayleigh, constant α: numerical integration vs closed form', () => {
     expect(Math.abs(r.end.potMoles - L) / L).toBeLessThan(1e-7)
   })
   it('every frame lies on the closed form', () => {
-    const r = simpleBatchDistillation({ alpha: 3 }, { charge: { moles: 1, x1: 0.6 }, until: { potMoles: 0.05 }, frames: 200 })
-    for (const f of r.frames.slice(1)) expect(Math.abs(f.potMoles - closedFormPot(3, 0.6, f.potX1, 1)) / f.potMoles).toBeLessThan(1e-7)
+    const r = simpleBatchDistillation(
+      { alpha: 3 },
+      { charge: { moles: 1, x1: 0.6 }, until: { potMoles: 0.05 }, frames: 200 },
+    )
+    for (const f of r.frames.slice(1))
+      expect(Math.abs(f.potMoles - closedFormPot(3, 0.6, f.potX1, 1)) / f.potMoles).toBeLessThan(1e-7)
   })
 })
 

@@ -6,7 +6,11 @@
  * is a two-figure approximation (common practice, no source).
  */
 import { describe, expect, it } from 'vitest'
-import { SYDNEY_YOUNG_C_ASSOCIATED, SYDNEY_YOUNG_C_NON_ASSOCIATED, sydneyYoungCorrection } from '../../src/boiling/index.js'
+import {
+  SYDNEY_YOUNG_C_ASSOCIATED,
+  SYDNEY_YOUNG_C_NON_ASSOCIATED,
+  sydneyYoungCorrection,
+} from '../../src/boiling/index.js'
 
 const antoine = {
   water: { A: 16.3872, B: 3885.7, C: 230.17, c: SYDNEY_YOUNG_C_ASSOCIATED },
@@ -15,9 +19,12 @@ const antoine = {
   cyclohexane: { A: 13.6568, B: 2723.44, C: 220.618, c: SYDNEY_YOUNG_C_NON_ASSOCIATED },
 }
 /** Boiling temperature in K at P in kPa from ln(P/kPa) = A − B/(t/°C + C). */
-const tBoil = (k: keyof typeof antoine, PkPa: number) => antoine[k].B / (antoine[k].A - Math.log(PkPa)) - antoine[k].C + 273.15
+const tBoil = (k: keyof typeof antoine, PkPa: number) =>
+  antoine[k].B / (antoine[k].A - Math.log(PkPa)) - antoine[k].C + 273.15
 
-const cases = (Object.keys(antoine) as (keyof typeof antoine)[]).flatMap((name) => [720, 740, 780].map((mmHg) => [name, mmHg] as const))
+const cases = (Object.keys(antoine) as (keyof typeof antoine)[]).flatMap((name) =>
+  [720, 740, 780].map((mmHg) => [name, mmHg] as const),
+)
 
 describe('Sydney Young correction reproduces Antoine normal boiling points (SVNA Table B.2)', () => {
   it.each(cases)('%s measured at %i mmHg', (name, mmHg) => {

@@ -13,9 +13,21 @@ import { bubbleTemperature, relativeVolatility } from '../../src/equilibrium/ind
 import type { BinarySystem, VaporPressureModel } from '../../src/types.js'
 
 const P = 101325
-const antoine = (A: number, B: number, C: number): VaporPressureModel => ({ kind: 'antoine', A, B, C, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' })
+const antoine = (A: number, B: number, C: number): VaporPressureModel => ({
+  kind: 'antoine',
+  A,
+  B,
+  C,
+  log: 'ln',
+  pressureUnit: 'kPa',
+  temperatureUnit: 'C',
+})
 const CAL = 4.184 // J per thermochemical calorie
-const benzeneToluene: BinarySystem = { vaporPressure: [antoine(13.7819, 2726.81, 217.572), antoine(13.932, 3056.96, 217.625)], activity: { kind: 'ideal' }, names: ['benzene', 'toluene'] }
+const benzeneToluene: BinarySystem = {
+  vaporPressure: [antoine(13.7819, 2726.81, 217.572), antoine(13.932, 3056.96, 217.625)],
+  activity: { kind: 'ideal' },
+  names: ['benzene', 'toluene'],
+}
 const propanolWater: BinarySystem = {
   vaporPressure: [antoine(16.1154, 3483.67, 205.807), antoine(16.3872, 3885.7, 230.17)],
   activity: { kind: 'nrtl', b12: 500.4 * CAL, b21: 1636.57 * CAL, alpha: 0.5081 },
@@ -32,7 +44,8 @@ describe('benzene–toluene (ideal) vs Geankoplis 4th ed. Example 11.4-1', () =>
   })
   it('the tabulated curve follows the bubble-point solver within 1e-5 in y', () => {
     const c = equilibriumCurve({ system: benzeneToluene, P })
-    for (let x = 0.0005; x < 1; x += 0.0173) expect(Math.abs(c.y(x) - bubbleTemperature(benzeneToluene, { P, x1: x }).y1)).toBeLessThan(1e-5)
+    for (let x = 0.0005; x < 1; x += 0.0173)
+      expect(Math.abs(c.y(x) - bubbleTemperature(benzeneToluene, { P, x1: x }).y1)).toBeLessThan(1e-5)
   })
   it('Fenske uses the geometric mean of the top and bottom α from the solver', () => {
     const f = fenske({ system: benzeneToluene, P }, { xD: 0.95, xB: 0.1 })
@@ -58,7 +71,10 @@ describe('1-propanol–water (NRTL, SVNA Table 12.5) has a minimum-boiling azeot
     expect(() => minimumReflux({ system: propanolWater, P }, { xF: 0.1, q: 1, xD: 0.6 })).toThrow(/cannot cross it/)
   })
   it('below the azeotrope the column can be designed', () => {
-    const r = mccabeThiele({ system: propanolWater, P }, { xF: 0.05, q: 1, xD: 0.4, xB: 0.001, R: { timesMinimum: 1.3 } })
+    const r = mccabeThiele(
+      { system: propanolWater, P },
+      { xF: 0.05, q: 1, xD: 0.4, xB: 0.001, R: { timesMinimum: 1.3 } },
+    )
     expect(r.stages).toBeGreaterThan(3)
     expect(r.steps.every((s) => s.T !== null && s.T > 360 && s.T < 373.5)).toBe(true)
   })

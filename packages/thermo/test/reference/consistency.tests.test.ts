@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest'
-import { bubbleTemperature, heringtonAreaTest, pointTest, pureComponentCheck, type BinaryPoint, type BinarySystem } from '../../src/index.js'
+import {
+  bubbleTemperature,
+  heringtonAreaTest,
+  pointTest,
+  pureComponentCheck,
+  type BinaryPoint,
+  type BinarySystem,
+} from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
 import { prng } from './helpers/prng.js'
 
@@ -9,7 +16,10 @@ import { prng } from './helpers/prng.js'
 // (J. Inst. Petrol. 37 (1951) 457, M); Van Ness–Byer–Gibbs mean |Δy| < 0.01 (AIChE J. 19 (1973) 238, limit M).
 const pw = TABLE_12_5.propanolWater
 const vaporPressure: BinarySystem['vaporPressure'] = [b2('1-propanol'), b2('water')]
-const system: BinarySystem = { vaporPressure, activity: { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha } }
+const system: BinarySystem = {
+  vaporPressure,
+  activity: { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha },
+}
 
 /** 19 isobaric points; `bias` adds bias·4·x1·x2 to y1 (largest mid-range, zero at the ends). */
 function generate(noise: number, bias: number): BinaryPoint[] {
@@ -17,7 +27,12 @@ function generate(noise: number, bias: number): BinaryPoint[] {
   return Array.from({ length: 19 }, (_, i) => {
     const x1 = 0.05 * (i + 1)
     const b = bubbleTemperature(system, { P: 101325, x1 })
-    return { T: b.T + 0.1 * noise * rng.gaussian(), P: 101325, x1, y1: b.y1 + 0.005 * noise * rng.gaussian() + 4 * bias * x1 * (1 - x1) }
+    return {
+      T: b.T + 0.1 * noise * rng.gaussian(),
+      P: 101325,
+      x1,
+      y1: b.y1 + 0.005 * noise * rng.gaussian() + 4 * bias * x1 * (1 - x1),
+    }
   })
 }
 
@@ -43,7 +58,9 @@ describe('Herington area test', () => {
       const a = Math.exp(lnAlpha)
       return { T, P: 101325, x1, y1: (a * x1) / (1 + (a - 1) * x1) }
     }
-    const r = heringtonAreaTest([point(0.25, 1, 350), point(0.5, 0, 355), point(0.75, -0.5, 360)], { vaporPressure: [same, same] })
+    const r = heringtonAreaTest([point(0.25, 1, 350), point(0.5, 0, 355), point(0.75, -0.5, 360)], {
+      vaporPressure: [same, same],
+    })
     expect(r.D).toBeCloseTo(100 / 3, 9)
     expect(r.J).toBeCloseTo(1500 / 350, 9)
     expect(r.passed).toBe(false)
@@ -80,12 +97,17 @@ describe('pure-component boiling points against the vapour-pressure models', () 
       { T: 365, P: 101325, x1: 0.3, y1: 0.4 },
     ]
     const r = pureComponentCheck(points, { vaporPressure })
-    expect(r.checks.map((c) => [c.index, c.component, c.passed])).toEqual([[0, 2, true], [1, 1, false]])
+    expect(r.checks.map((c) => [c.index, c.component, c.passed])).toEqual([
+      [0, 2, true],
+      [1, 1, false],
+    ])
     expect(Math.abs(r.checks[1].dT - 0.6)).toBeLessThan(0.01)
     expect(r.passed).toBe(false)
   })
   it('refuses a bad tolerance with an exact message', () => {
-    expect(() => pureComponentCheck([], { vaporPressure, tolerance: 0 })).toThrow('The tolerance must be a positive number of kelvins; got 0.')
+    expect(() => pureComponentCheck([], { vaporPressure, tolerance: 0 })).toThrow(
+      'The tolerance must be a positive number of kelvins; got 0.',
+    )
   })
   it('says so when there is nothing to compare', () => {
     expect(pureComponentCheck([{ T: 365, P: 101325, x1: 0.3 }], { vaporPressure }).warnings).toEqual([

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest'
-import { activityCoefficients, excessGibbsOverRT, phaseDiagram, R, type ActivityModel, type BinarySystem } from '../../src/index.js'
+import {
+  activityCoefficients,
+  excessGibbsOverRT,
+  phaseDiagram,
+  R,
+  type ActivityModel,
+  type BinarySystem,
+} from '../../src/index.js'
 import { CAL, EX_10_1, TABLE_12_5 } from './helpers/constants.js'
 
 // Closed forms at infinite dilution, SVNA 7th ed. §12.1–12.2 (from memory):
@@ -35,8 +42,14 @@ describe('activity models against their infinite-dilution closed forms', () => {
   it('gE/RT: Margules x1·x2·(A21·x1 + A12·x2), Van Laar A12·A21·x1·x2/(A12·x1 + A21·x2), zero for pure liquids', () => {
     const x1 = 0.3
     const x2 = 0.7
-    expect(excessGibbsOverRT({ kind: 'margules', A12: 1.3, A21: 0.7 }, { x1, T })).toBeCloseTo(x1 * x2 * (0.7 * x1 + 1.3 * x2), 12)
-    expect(excessGibbsOverRT({ kind: 'van-laar', A12: 1.3, A21: 0.7 }, { x1, T })).toBeCloseTo((1.3 * 0.7 * x1 * x2) / (1.3 * x1 + 0.7 * x2), 12)
+    expect(excessGibbsOverRT({ kind: 'margules', A12: 1.3, A21: 0.7 }, { x1, T })).toBeCloseTo(
+      x1 * x2 * (0.7 * x1 + 1.3 * x2),
+      12,
+    )
+    expect(excessGibbsOverRT({ kind: 'van-laar', A12: 1.3, A21: 0.7 }, { x1, T })).toBeCloseTo(
+      (1.3 * 0.7 * x1 * x2) / (1.3 * x1 + 0.7 * x2),
+      12,
+    )
     const uniquac: ActivityModel = { kind: 'uniquac', a12: 400, a21: 900, r1: 2.78, r2: 0.92, q1: 2.51, q2: 1.4 }
     expect(excessGibbsOverRT(uniquac, { x1: 0, T })).toBeCloseTo(0, 12)
     expect(excessGibbsOverRT(uniquac, { x1: 1, T })).toBeCloseTo(0, 12)
@@ -53,7 +66,10 @@ describe('isothermal P–x–y diagram', () => {
   // SVNA 7th ed. Example 10.1 at 75 °C (Raoult's law): the P–x line runs from P2sat = 41.98 kPa to
   // P1sat = 83.21 kPa and is straight (reference-values.md §3, M+C).
   it('is straight from P2sat to P1sat for Raoult’s law', () => {
-    const system: BinarySystem = { vaporPressure: [EX_10_1.acetonitrile, EX_10_1.nitromethane], activity: { kind: 'ideal' } }
+    const system: BinarySystem = {
+      vaporPressure: [EX_10_1.acetonitrile, EX_10_1.nitromethane],
+      activity: { kind: 'ideal' },
+    }
     const d = phaseDiagram(system, { T: 348.15 }, { points: 21 })
     if (d.kind !== 'isothermal') throw new Error('expected isothermal')
     expect(Math.abs(d.P[0] / 1000 - 41.98)).toBeLessThan(0.005)

@@ -84,7 +84,10 @@ describe('azeotropes near the ends, and a curve that only touches the diagonal',
     expect(Math.abs(b.y1 - az.x1)).toBeLessThan(1e-10)
   })
   it('negative deviation gives a maximum-boiling azeotrope', () => {
-    const s: BinarySystem = { vaporPressure: [b2('benzene'), b2('cyclohexane')], activity: { kind: 'margules', A12: -0.6, A21: -0.6 } }
+    const s: BinarySystem = {
+      vaporPressure: [b2('benzene'), b2('cyclohexane')],
+      activity: { kind: 'margules', A12: -0.6, A21: -0.6 },
+    }
     const az = findAzeotrope(s, { P: 101325 })!
     expect(az.kind).toBe('maximum-boiling')
     expect(az.T).toBeGreaterThan(saturationTemperature(b2('cyclohexane'), 101325))

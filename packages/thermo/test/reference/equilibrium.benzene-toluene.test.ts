@@ -1,11 +1,21 @@
 import { describe, expect, it } from 'vitest'
-import { bubbleTemperature, phaseDiagram, relativeVolatility, findAzeotrope, type BinarySystem } from '../../src/index.js'
+import {
+  bubbleTemperature,
+  phaseDiagram,
+  relativeVolatility,
+  findAzeotrope,
+  type BinarySystem,
+} from '../../src/index.js'
 import { b2 } from './helpers/constants.js'
 
 // Trade fact (common practice, no source): an equimolar benzene–toluene liquid at 1 atm boils near 92 °C
 // and its first vapour holds roughly 70–75 % benzene (ideal solution). Constants: SVNA Table B.2
 // (benzene S, toluene M). Relative volatility of about 2.3–2.7 over the range (about 2.5 on average): common practice, no source.
-const system: BinarySystem = { vaporPressure: [b2('benzene'), b2('toluene')], activity: { kind: 'ideal' }, names: ['benzene', 'toluene'] }
+const system: BinarySystem = {
+  vaporPressure: [b2('benzene'), b2('toluene')],
+  activity: { kind: 'ideal' },
+  names: ['benzene', 'toluene'],
+}
 
 describe('benzene–toluene at 1 atm (ideal solution)', () => {
   it('equimolar liquid boils near 92 °C with a first vapour of 70–75 % benzene', () => {

@@ -88,7 +88,10 @@ describe('dew point where plain substitution stalls', () => {
 
 describe('no solution is reported, not looped on', () => {
   // Symmetric Margules with A > 2 splits into two liquids (SVNA 7th ed., §14.4, stability criterion; from memory).
-  const split: BinarySystem = { vaporPressure: [b2('benzene'), b2('toluene')], activity: { kind: 'margules', A12: 3, A21: 3 } }
+  const split: BinarySystem = {
+    vaporPressure: [b2('benzene'), b2('toluene')],
+    activity: { kind: 'margules', A12: 3, A21: 3 },
+  }
   it('a liquid that the model splits in two is refused with a chemist-readable message', () => {
     expect(() => bubbleTemperature(split, { P: 101325, x1: 0.5 })).toThrow(ThermoError)
     try {

@@ -1,12 +1,22 @@
 import { describe, expect, it } from 'vitest'
-import { bubblePressure, bubbleTemperature, dewPressure, dewTemperature, vaporPressure, type BinarySystem } from '../../src/index.js'
+import {
+  bubblePressure,
+  bubbleTemperature,
+  dewPressure,
+  dewTemperature,
+  vaporPressure,
+  type BinarySystem,
+} from '../../src/index.js'
 import { EX_10_1 } from './helpers/constants.js'
 
 // Source: Smith, Van Ness & Abbott, Introduction to Chemical Engineering Thermodynamics, 7th ed. (2005),
 // Example 10.1, acetonitrile (1) / nitromethane (2), Raoult's law, with the example's own Antoine constants.
 // Answers: reference-values.md §3 (M+C) for (a), (b), (d), (e flash); the dew answers (c), (d) are
 // from memory and agree with the equations recomputed here (C).
-const system: BinarySystem = { vaporPressure: [EX_10_1.acetonitrile, EX_10_1.nitromethane], activity: { kind: 'ideal' } }
+const system: BinarySystem = {
+  vaporPressure: [EX_10_1.acetonitrile, EX_10_1.nitromethane],
+  activity: { kind: 'ideal' },
+}
 const K = 273.15
 
 describe('SVNA 7th ed. Example 10.1 (Raoult’s law)', () => {

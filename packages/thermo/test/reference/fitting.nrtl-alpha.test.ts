@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest'
-import { bubbleTemperature, fitBinary, predictionBand, suggestNextCompositions, type BinaryPoint, type BinarySystem } from '../../src/index.js'
+import {
+  bubbleTemperature,
+  fitBinary,
+  predictionBand,
+  suggestNextCompositions,
+  type BinaryPoint,
+  type BinarySystem,
+} from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
 import { prng } from './helpers/prng.js'
 
@@ -20,7 +27,8 @@ function generate(system: BinarySystem, seed: number, n = 15): BinaryPoint[] {
     return { T: b.T + 0.1 * rng.gaussian(), P: 101325, x1, y1: b.y1 + 0.005 * rng.gaussian() }
   })
 }
-const fitNrtl = (points: BinaryPoint[], system: BinarySystem) => fitBinary({ points, vaporPressure: system.vaporPressure, model: 'nrtl', fitAlpha: true })
+const fitNrtl = (points: BinaryPoint[], system: BinarySystem) =>
+  fitBinary({ points, vaporPressure: system.vaporPressure, model: 'nrtl', fitAlpha: true })
 
 describe('fitBinary with a fitted NRTL α', () => {
   it('acetone/methanol (Wilson-generated, seed 1): α is held at its bound 0.7 and says so', () => {
@@ -46,7 +54,8 @@ describe('fitBinary with a fitted NRTL α', () => {
       expect(a.value).toBeGreaterThanOrEqual(0.1)
       expect(a.value).toBeLessThanOrEqual(0.7)
       expect(fit.warnings.some((w) => w.startsWith('α reached its bound'))).toBe(a.atBound === true)
-      if (!fit.converged) expect(fit.warnings).toContain('The fit stopped before it fully converged; treat the parameters with care.')
+      if (!fit.converged)
+        expect(fit.warnings).toContain('The fit stopped before it fully converged; treat the parameters with care.')
     }
   })
 
@@ -62,7 +71,11 @@ describe('fitBinary with a fitted NRTL α', () => {
     expect(a.atBound).toBeUndefined()
     expect(fit.covariance.length).toBe(3)
     expect(Math.abs(a.value - pw.alpha)).toBeLessThan(3 * (a.standardError as number))
-    expect(Math.abs(fit.parameters[0].value - pw.b12 * CAL)).toBeLessThan(3 * (fit.parameters[0].standardError as number))
-    expect(Math.abs(fit.parameters[1].value - pw.b21 * CAL)).toBeLessThan(3 * (fit.parameters[1].standardError as number))
+    expect(Math.abs(fit.parameters[0].value - pw.b12 * CAL)).toBeLessThan(
+      3 * (fit.parameters[0].standardError as number),
+    )
+    expect(Math.abs(fit.parameters[1].value - pw.b21 * CAL)).toBeLessThan(
+      3 * (fit.parameters[1].standardError as number),
+    )
   })
 })

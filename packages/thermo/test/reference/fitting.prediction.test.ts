@@ -25,7 +25,8 @@ function generate(xs: number[], seed: number): BinaryPoint[] {
   })
 }
 const spread = (n: number, lo = 0.03, hi = 0.97) => Array.from({ length: n }, (_, i) => lo + ((hi - lo) * i) / (n - 1))
-const fitOf = (points: BinaryPoint[]) => fitBinary({ points, vaporPressure: truth.vaporPressure, model: 'nrtl', alpha: pw.alpha })
+const fitOf = (points: BinaryPoint[]) =>
+  fitBinary({ points, vaporPressure: truth.vaporPressure, model: 'nrtl', alpha: pw.alpha })
 
 describe('predictionBand', () => {
   const fit = fitOf(generate(spread(20), 11))
@@ -65,7 +66,8 @@ describe('suggestNextCompositions', () => {
     const band = predictionBand(fit, { P: 101325, points: 201 })
     const inner = band.sigmaY.filter((_, i) => band.x1[i] >= 0.01 && band.x1[i] <= 0.99)
     expect(s[0].sigmaY).toBeGreaterThan(0.95 * Math.max(...inner))
-    for (let i = 0; i < s.length; i++) for (let j = 0; j < i; j++) expect(Math.abs(s[i].x1 - s[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-12)
+    for (let i = 0; i < s.length; i++)
+      for (let j = 0; j < i; j++) expect(Math.abs(s[i].x1 - s[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-12)
     expect(s[0].sigmaY).toBeGreaterThanOrEqual(s[1].sigmaY * 0.999)
   })
   it('a measurement where it says cuts the worst σy more than one inside the measured range', () => {
@@ -89,13 +91,18 @@ describe('suggestNextCompositions', () => {
     const s = suggestNextCompositions(even, { P: 101325, count: 5, criterion: 'd-optimal' })
     expect(s.length).toBe(5)
     expect(s.some((p) => p.x1 < 0.15 || p.x1 > 0.85)).toBe(true)
-    for (let i = 0; i < s.length; i++) for (let j = 0; j < i; j++) expect(Math.abs(s[i].x1 - s[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-12)
+    for (let i = 0; i < s.length; i++)
+      for (let j = 0; j < i; j++) expect(Math.abs(s[i].x1 - s[j].x1)).toBeGreaterThanOrEqual(0.05 - 1e-12)
   })
   it('refuses an unknown criterion with an exact message', () => {
-    expect(() => suggestNextCompositions(fit, { P: 101325, count: 2, criterion: 'widest' as 'sigma-y' })).toThrow("The suggestion criterion must be 'sigma-y' or 'd-optimal'; got widest.")
+    expect(() => suggestNextCompositions(fit, { P: 101325, count: 2, criterion: 'widest' as 'sigma-y' })).toThrow(
+      "The suggestion criterion must be 'sigma-y' or 'd-optimal'; got widest.",
+    )
   })
   it('refuses a bad count with an exact message', () => {
-    expect(() => suggestNextCompositions(fit, { P: 101325, count: 0 })).toThrow('The number of suggestions must be a whole number from 1 to 20; got 0.')
+    expect(() => suggestNextCompositions(fit, { P: 101325, count: 0 })).toThrow(
+      'The number of suggestions must be a whole number from 1 to 20; got 0.',
+    )
     expect(() => predictionBand(fit, { P: -1 })).toThrow('Pressure must be a positive number of pascals; got -1.')
   })
 })

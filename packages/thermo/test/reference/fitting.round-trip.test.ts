@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest'
-import { bubbleTemperature, fitBinary, type ActivityModel, type BinaryPoint, type BinarySystem, type FittableModel } from '../../src/index.js'
+import {
+  bubbleTemperature,
+  fitBinary,
+  type ActivityModel,
+  type BinaryPoint,
+  type BinarySystem,
+  type FittableModel,
+} from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
 import { prng } from './helpers/prng.js'
 
@@ -21,17 +28,29 @@ function generate(system: BinarySystem, seed: number, n = 24): BinaryPoint[] {
   })
 }
 
-const cases: { name: string; system: BinarySystem; model: FittableModel; truth: Record<string, number>; extra: object }[] = [
+const cases: {
+  name: string
+  system: BinarySystem
+  model: FittableModel
+  truth: Record<string, number>
+  extra: object
+}[] = [
   {
     name: 'NRTL, 1-propanol/water',
-    system: { vaporPressure: [b2('1-propanol'), b2('water')], activity: { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha } },
+    system: {
+      vaporPressure: [b2('1-propanol'), b2('water')],
+      activity: { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha },
+    },
     model: 'nrtl',
     truth: { b12: pw.b12 * CAL, b21: pw.b21 * CAL },
     extra: { alpha: pw.alpha },
   },
   {
     name: 'Wilson, methanol/water',
-    system: { vaporPressure: [b2('methanol'), b2('water')], activity: { kind: 'wilson', a12: mw.a12 * CAL, a21: mw.a21 * CAL, V1: mw.V1, V2: mw.V2 } },
+    system: {
+      vaporPressure: [b2('methanol'), b2('water')],
+      activity: { kind: 'wilson', a12: mw.a12 * CAL, a21: mw.a21 * CAL, V1: mw.V1, V2: mw.V2 },
+    },
     model: 'wilson',
     truth: { a12: mw.a12 * CAL, a21: mw.a21 * CAL },
     extra: { V1: mw.V1, V2: mw.V2 },
@@ -75,23 +94,46 @@ describe('fitBinary recovers known parameters from noisy generated data', () => 
   it('the activity objective lands near the same NRTL parameters', () => {
     const c = cases[0]
     const points = generate(c.system, 7)
-    const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha, objective: 'activity' })
+    const fit = fitBinary({
+      points,
+      vaporPressure: c.system.vaporPressure,
+      model: 'nrtl',
+      alpha: pw.alpha,
+      objective: 'activity',
+    })
     expect(fit.objectiveKind).toBe('activity')
-    for (const p of fit.parameters) expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(5 * (p.standardError as number))
+    for (const p of fit.parameters)
+      expect(Math.abs(p.value - c.truth[p.name])).toBeLessThan(5 * (p.standardError as number))
   })
 
   it('fitting α as well still brackets the true NRTL values', () => {
     const c = cases[0]
-    const fit = fitBinary({ points: generate(c.system, 7, 40), vaporPressure: c.system.vaporPressure, model: 'nrtl', fitAlpha: true })
+    const fit = fitBinary({
+      points: generate(c.system, 7, 40),
+      vaporPressure: c.system.vaporPressure,
+      model: 'nrtl',
+      fitAlpha: true,
+    })
     const truth = { ...c.truth, alpha: pw.alpha } as Record<string, number>
     expect(fit.parameters.map((p) => p.name)).toEqual(['b12', 'b21', 'alpha'])
-    for (const p of fit.parameters) expect(Math.abs(p.value - truth[p.name])).toBeLessThan(3 * (p.standardError as number))
+    for (const p of fit.parameters)
+      expect(Math.abs(p.value - truth[p.name])).toBeLessThan(3 * (p.standardError as number))
   })
 
   it('is deterministic: the same data give the same numbers', () => {
     const c = cases[0]
-    const a = fitBinary({ points: generate(c.system, 7), vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
-    const b = fitBinary({ points: generate(c.system, 7), vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
+    const a = fitBinary({
+      points: generate(c.system, 7),
+      vaporPressure: c.system.vaporPressure,
+      model: 'nrtl',
+      alpha: pw.alpha,
+    })
+    const b = fitBinary({
+      points: generate(c.system, 7),
+      vaporPressure: c.system.vaporPressure,
+      model: 'nrtl',
+      alpha: pw.alpha,
+    })
     expect(a.parameters).toEqual(b.parameters)
   })
 })
@@ -104,8 +146,12 @@ describe('range warnings', () => {
     const points = generate(system, 5).map((p) => ({ ...p, P: 300000 }))
     const hot = points.map((p) => ({ ...p, T: bubbleTemperature(system, { P: 300000, x1: p.x1 }).T }))
     const fit = fitBinary({ points: hot, vaporPressure: system.vaporPressure, model: 'margules' })
-    expect(fit.warnings.filter((w) => w.includes('outside the range of its vapour-pressure correlation')).length).toBe(2)
-    expect(fit.warnings[0]).toMatch(/^Component 1: temperatures from \d+\.\d\d to \d+\.\d\d °C reach outside the range of its vapour-pressure correlation \(6 to 104 °C\); values there are extrapolated\.$/)
+    expect(fit.warnings.filter((w) => w.includes('outside the range of its vapour-pressure correlation')).length).toBe(
+      2,
+    )
+    expect(fit.warnings[0]).toMatch(
+      /^Component 1: temperatures from \d+\.\d\d to \d+\.\d\d °C reach outside the range of its vapour-pressure correlation \(6 to 104 °C\); values there are extrapolated\.$/,
+    )
   })
 })
 
@@ -116,7 +162,9 @@ describe('outliers and excluded points', () => {
     points[11] = { ...points[11], T: points[11].T + 1.0 }
     const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     expect(fit.residuals.flatMap((r, i) => (r.flagged ? [i] : []))).toEqual([11])
-    expect(fit.warnings).toContain('1 point looks like an outlier (|studentized residual| > 3); check it before approving.')
+    expect(fit.warnings).toContain(
+      '1 point looks like an outlier (|studentized residual| > 3); check it before approving.',
+    )
   })
   it('an excluded outlier does not move the fit but is still reported and flagged', () => {
     const points = generate(c.system, 7)
@@ -131,7 +179,12 @@ describe('outliers and excluded points', () => {
     expect(Math.abs(fit.residuals[5].dy + 0.05)).toBeLessThan(0.02)
   })
   it('leverages of the fitted rows add up to the number of parameters', () => {
-    const fit = fitBinary({ points: generate(c.system, 7), vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
+    const fit = fitBinary({
+      points: generate(c.system, 7),
+      vaporPressure: c.system.vaporPressure,
+      model: 'nrtl',
+      alpha: pw.alpha,
+    })
     expect(fit.residuals.reduce((s, r) => s + r.leverage, 0)).toBeCloseTo(2, 6)
   })
   it('pure-component points are reported and not fitted; AIC prefers the true model', () => {

@@ -36,7 +36,10 @@ function injections(x1: number, count: number, normal: () => number): Injection[
 
 function trial(seed: number, model: CalibrationModel, sampleX1: number) {
   const normal = gaussian(mulberry32(seed))
-  const standards = [0.1, 0.25, 0.4, 0.55, 0.7, 0.85].map((x1) => ({ composition: { x1 }, injections: injections(x1, 3, normal) }))
+  const standards = [0.1, 0.25, 0.4, 0.55, 0.7, 0.85].map((x1) => ({
+    composition: { x1 },
+    injections: injections(x1, 3, normal),
+  }))
   const calibration = fitCalibration({ model, standards })
   const sample = compositionFromAreas(calibration, { injections: injections(sampleX1, 3, normal) })
   return { calibration, sample, z: Math.abs(sample.x1 - sampleX1) / sample.standardUncertainty }
@@ -51,9 +54,12 @@ describe('GC calibration round trip with seeded noise', () => {
     expect(sample.standardUncertainty).toBeLessThan(0.01)
   })
 
-  it.each(['response-factor', 'quadratic'] as const)('%s: at least 95 %% of 200 seeded trials lie within 3 u', (model) => {
-    let inside = 0
-    for (let seed = 1; seed <= 200; seed++) if (trial(seed, model, 0.1 + (seed % 8) * 0.1).z < 3) inside++
-    expect(inside).toBeGreaterThanOrEqual(190)
-  })
+  it.each(['response-factor', 'quadratic'] as const)(
+    '%s: at least 95 %% of 200 seeded trials lie within 3 u',
+    (model) => {
+      let inside = 0
+      for (let seed = 1; seed <= 200; seed++) if (trial(seed, model, 0.1 + (seed % 8) * 0.1).z < 3) inside++
+      expect(inside).toBeGreaterThanOrEqual(190)
+    },
+  )
 })

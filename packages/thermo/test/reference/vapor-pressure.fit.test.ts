@@ -33,23 +33,46 @@ describe('fitAntoine', () => {
     const pts = temps.map((T) => ({ T, P: vaporPressure(benzene, T) }))
     const fit = fitAntoine(pts, { log: 'log10', pressureUnit: 'mmHg', temperatureUnit: 'K' })
     expect(fit.model.log).toBe('log10')
-    expect(Math.abs(saturationTemperature(fit.model, 101325) - saturationTemperature(benzene, 101325))).toBeLessThan(1e-6)
+    expect(Math.abs(saturationTemperature(fit.model, 101325) - saturationTemperature(benzene, 101325))).toBeLessThan(
+      1e-6,
+    )
   })
   it('with exactly 3 points the fit is exact and says that standard errors need more', () => {
     const fit = fitAntoine([300, 330, 350].map((T) => ({ T, P: vaporPressure(benzene, T) })))
     expect(fit.model.B).toBeCloseTo(2726.81, 2)
     expect(Number.isNaN(fit.standardErrors.A)).toBe(true)
-    expect(fit.warnings).toEqual(['With exactly 3 points the Antoine fit is exact; standard errors need at least 4 points.'])
+    expect(fit.warnings).toEqual([
+      'With exactly 3 points the Antoine fit is exact; standard errors need at least 4 points.',
+    ])
   })
   it('refuses too few, bad and non-monotonic points with exact messages', () => {
-    expect(() => fitAntoine([{ T: 300, P: 1e4 }, { T: 310, P: 2e4 }])).toThrow('Fitting Antoine constants needs at least 3 points (T, P); got 2.')
-    expect(() => fitAntoine([{ T: 300, P: 1e4 }, { T: 310, P: -1 }, { T: 320, P: 3e4 }])).toThrow(
-      'Point 2: pressure must be a positive number of pascals; got -1.',
-    )
-    expect(() => fitAntoine([{ T: 300, P: 1e4 }, { T: NaN, P: 2e4 }, { T: 320, P: 3e4 }])).toThrow(
-      'Point 2: temperature must be a positive number of kelvins; got NaN.',
-    )
-    expect(() => fitAntoine([{ T: 300, P: 1e4 }, { T: 310, P: 2e4 }, { T: 320, P: 1.5e4 }])).toThrow(
+    expect(() =>
+      fitAntoine([
+        { T: 300, P: 1e4 },
+        { T: 310, P: 2e4 },
+      ]),
+    ).toThrow('Fitting Antoine constants needs at least 3 points (T, P); got 2.')
+    expect(() =>
+      fitAntoine([
+        { T: 300, P: 1e4 },
+        { T: 310, P: -1 },
+        { T: 320, P: 3e4 },
+      ]),
+    ).toThrow('Point 2: pressure must be a positive number of pascals; got -1.')
+    expect(() =>
+      fitAntoine([
+        { T: 300, P: 1e4 },
+        { T: NaN, P: 2e4 },
+        { T: 320, P: 3e4 },
+      ]),
+    ).toThrow('Point 2: temperature must be a positive number of kelvins; got NaN.')
+    expect(() =>
+      fitAntoine([
+        { T: 300, P: 1e4 },
+        { T: 310, P: 2e4 },
+        { T: 320, P: 1.5e4 },
+      ]),
+    ).toThrow(
       'Vapour pressure must rise with temperature, but the point at 320 K (15000 Pa) is not above the point at 310 K (20000 Pa).',
     )
   })

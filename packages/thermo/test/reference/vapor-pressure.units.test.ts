@@ -22,7 +22,9 @@ describe('unit conversion at the edges', () => {
     it(`${what} = ${expected}`, () => expect(Math.abs(got - expected)).toBeLessThanOrEqual(tol))
   }
   it('an unknown unit is refused with an exact message', () => {
-    expect(() => toPascal(1, 'inHg' as never)).toThrow('Unknown pressure unit "inHg"; use Pa, kPa, MPa, bar, mbar, atm, mmHg, torr, psi.')
+    expect(() => toPascal(1, 'inHg' as never)).toThrow(
+      'Unknown pressure unit "inHg"; use Pa, kPa, MPa, bar, mbar, atm, mmHg, torr, psi.',
+    )
     expect(() => toKelvin(1, 'R' as never)).toThrow('Unknown temperature unit "R"; use K, C or F.')
   })
 })

@@ -27,7 +27,11 @@ describe('water vapour pressure against independent references', () => {
   // IAPWS-IF97 (IAPWS R7-97) check values (reference-values.md §2, M reproduced by an independent implementation).
   const if97 = [
     { what: 'Psat(300 K) = 3.53658941e-3 MPa', got: () => vaporPressure(water, 300) / 3.53658941e3 - 1, tol: 0.006 },
-    { what: 'Psat(500 K) = 2.63889776 MPa (extrapolated beyond 200 °C)', got: () => vaporPressure(water, 500) / 2.63889776e6 - 1, tol: 0.01 },
+    {
+      what: 'Psat(500 K) = 2.63889776 MPa (extrapolated beyond 200 °C)',
+      got: () => vaporPressure(water, 500) / 2.63889776e6 - 1,
+      tol: 0.01,
+    },
   ]
   for (const c of if97) {
     it(`IF97 ${c.what}: relative difference < ${c.tol}`, () => {

@@ -6,9 +6,10 @@
  * @param activeCalibrations how many of its calibrations are active now (they are retired with it)
  */
 export function retireMethodText(name: string, activeCalibrations: number): string {
-  const cals = activeCalibrations === 0
-    ? 'It has no active calibration.'
-    : `Its ${activeCalibrations === 1 ? 'active calibration is' : `${activeCalibrations} active calibrations are`} retired with it.`
+  const cals =
+    activeCalibrations === 0
+      ? 'It has no active calibration.'
+      : `Its ${activeCalibrations === 1 ? 'active calibration is' : `${activeCalibrations} active calibrations are`} retired with it.`
   return `Retire ${name}? ${cals} Nobody can fit a new calibration on it or upload runs with its calibrations; points already computed keep their link. This cannot be undone here.`
 }
 

@@ -13,7 +13,10 @@ export const STATUS_OPTIONS: { value: 'active' | 'invited' | 'deactivated'; labe
  * @param field the DataTable's sort field (the column's `field`)
  * @param order the DataTable's sort order (1 ascending, -1 descending, 0 or null none)
  */
-export function sortFromTable(field: unknown, order: number | null | undefined): { sort: 'name' | 'email'; order: 'asc' | 'desc' } {
+export function sortFromTable(
+  field: unknown,
+  order: number | null | undefined,
+): { sort: 'name' | 'email'; order: 'asc' | 'desc' } {
   const sort = field === 'email' ? 'email' : 'name'
   if (!order || (field !== 'email' && field !== 'displayName')) return { sort: 'name', order: 'asc' }
   return { sort, order: order < 0 ? 'desc' : 'asc' }

@@ -9,7 +9,15 @@ export const MODEL_LABELS: Record<string, string> = {
 }
 
 /** Units of activity-model parameters as Ebullio stores them (energies in J/mol; Margules and Van Laar dimensionless). */
-export const PARAMETER_UNITS: Record<string, string> = { a12: 'J/mol', a21: 'J/mol', b12: 'J/mol', b21: 'J/mol', A12: '', A21: '', alpha: '' }
+export const PARAMETER_UNITS: Record<string, string> = {
+  a12: 'J/mol',
+  a21: 'J/mol',
+  b12: 'J/mol',
+  b21: 'J/mol',
+  A12: '',
+  A21: '',
+  alpha: '',
+}
 
 /** Significant figures given to the largest parameter of a unit within one model (common practice, no source). */
 const PARAMETER_SIG_FIGS = 4
@@ -34,6 +42,12 @@ function signed(v: number, decimals: number): string {
 export function parameterText(ps: { name: string; value: number }[]): string {
   const unitOf = (name: string) => PARAMETER_UNITS[name] ?? ''
   const decimals = new Map<string, number>()
-  for (const u of new Set(ps.map((p) => unitOf(p.name)))) decimals.set(u, sharedDecimals(ps.filter((p) => unitOf(p.name) === u).map((p) => p.value)))
-  return ps.map((p) => `${p.name === 'alpha' ? 'α' : p.name} = ${signed(p.value, decimals.get(unitOf(p.name))!)}${unitOf(p.name) ? ' ' + unitOf(p.name) : ''}`).join(', ')
+  for (const u of new Set(ps.map((p) => unitOf(p.name))))
+    decimals.set(u, sharedDecimals(ps.filter((p) => unitOf(p.name) === u).map((p) => p.value)))
+  return ps
+    .map(
+      (p) =>
+        `${p.name === 'alpha' ? 'α' : p.name} = ${signed(p.value, decimals.get(unitOf(p.name))!)}${unitOf(p.name) ? ' ' + unitOf(p.name) : ''}`,
+    )
+    .join(', ')
 }

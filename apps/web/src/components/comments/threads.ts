@@ -10,7 +10,9 @@ export interface Thread {
 export function toThreads(comments: CommentItem[]): Thread[] {
   const roots = comments.filter((c) => !c.parentId)
   const threads = roots.map((root) => ({ root, replies: comments.filter((c) => c.parentId === root.id) }))
-  return threads.sort((a, b) => Number(a.root.resolved) - Number(b.root.resolved) || b.root.createdAt.localeCompare(a.root.createdAt))
+  return threads.sort(
+    (a, b) => Number(a.root.resolved) - Number(b.root.resolved) || b.root.createdAt.localeCompare(a.root.createdAt),
+  )
 }
 
 /** Open threads per point id (for the points table and the plot). */
@@ -21,4 +23,5 @@ export function openCountByPoint(comments: CommentItem[]): Map<string, number> {
 }
 
 /** "12 Mar, 14:05". */
-export const when = (iso: string) => new Date(iso).toLocaleString(undefined, { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })
+export const when = (iso: string) =>
+  new Date(iso).toLocaleString(undefined, { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })

@@ -14,7 +14,8 @@ export function auditDetails(entity: string, action: string, after: unknown): st
   const a = after as After
   if (entity === 'fit') {
     const parts = [modelName(a.model)]
-    if (a.model === 'nrtl' && typeof a.alpha === 'number') parts.push(a.fitAlpha === true ? `α fitted from ${a.alpha}` : `α = ${a.alpha} held`)
+    if (a.model === 'nrtl' && typeof a.alpha === 'number')
+      parts.push(a.fitAlpha === true ? `α fitted from ${a.alpha}` : `α = ${a.alpha} held`)
     if (typeof a.points === 'number') parts.push(`${a.points} point${a.points === 1 ? '' : 's'}`)
     if (a.converged === false) parts.push('not converged')
     return parts.filter(Boolean).join(', ')

@@ -13,7 +13,15 @@ const benzeneToluene: BinarySystem = {
 }
 const names: [string, string] = ['benzene', 'toluene']
 const P = 101325
-const still = (o: Partial<BatchInputs>): BatchInputs => ({ moles: 100, x1: 0.4, stagesAbovePot: 0, R: 2, stopBy: 'distilledFraction', stopValue: 0.5, ...o })
+const still = (o: Partial<BatchInputs>): BatchInputs => ({
+  moles: 100,
+  x1: 0.4,
+  stagesAbovePot: 0,
+  R: 2,
+  stopBy: 'distilledFraction',
+  stopValue: 0.5,
+  ...o,
+})
 
 describe('untilOf', () => {
   it("turns the screen's stop into the engine's stopping condition", () => {
@@ -27,7 +35,11 @@ describe('untilOf', () => {
 
 describe('defaultStopValue', () => {
   it('starts each stop somewhere the still can reach', () => {
-    expect([defaultStopValue('distilledFraction', 80, 0.3), defaultStopValue('distillateMoles', 80, 0.3), defaultStopValue('potMoles', 80, 0.3)]).toEqual([0.6, 48, 32])
+    expect([
+      defaultStopValue('distilledFraction', 80, 0.3),
+      defaultStopValue('distillateMoles', 80, 0.3),
+      defaultStopValue('potMoles', 80, 0.3),
+    ]).toEqual([0.6, 48, 32])
     expect([defaultStopValue('potX1', 80, 0.3), defaultStopValue('recovery1', 80, 0.3)]).toEqual([0.1, 0.9])
   })
 })
@@ -52,13 +64,18 @@ describe('batchRun stops (benzene–toluene, ideal, 1 atm)', () => {
 
   it('stops at mol left in the pot and at mol distilled', () => {
     expect(batchRun(benzeneToluene, P, still({ stopBy: 'potMoles', stopValue: 35 })).end.potMoles).toBeCloseTo(35, 9)
-    expect(batchRun(benzeneToluene, P, still({ stagesAbovePot: 2, stopBy: 'distillateMoles', stopValue: 20 })).end.distillateMoles).toBeCloseTo(20, 9)
+    expect(
+      batchRun(benzeneToluene, P, still({ stagesAbovePot: 2, stopBy: 'distillateMoles', stopValue: 20 })).end
+        .distillateMoles,
+    ).toBeCloseTo(20, 9)
   })
 
   it('notes a stop met only as the pot runs practically dry', () => {
     const b = still({ stopBy: 'recovery1', stopValue: 0.99999 })
     const run = batchRun(benzeneToluene, P, b)
-    expect(stopNote(run, b)).toMatch(/^This stop is reached only when the pot is practically dry \(.+ of the charge left\); a real still is not run that far\.$/)
+    expect(stopNote(run, b)).toMatch(
+      /^This stop is reached only when the pot is practically dry \(.+ of the charge left\); a real still is not run that far\.$/,
+    )
   })
 })
 
@@ -85,6 +102,8 @@ describe('batchFailureText', () => {
   })
 
   it("keeps the engine's words for other errors", () => {
-    expect(batchFailureText(new Error('R must be a positive, finite reflux ratio L/D.'), still({}), names)).toBe('R must be a positive, finite reflux ratio L/D.')
+    expect(batchFailureText(new Error('R must be a positive, finite reflux ratio L/D.'), still({}), names)).toBe(
+      'R must be a positive, finite reflux ratio L/D.',
+    )
   })
 })

@@ -27,14 +27,31 @@ export function batchRun(system: BinarySystem, P: number, b: BatchInputs, frames
 }
 export type BatchRun = ReturnType<typeof batchRun>
 
-
 /** The stop picker's choices with the value field's label, step and decimals. */
 export const STOP_CHOICES: { value: BatchStop; label: string; field: string; step: number; digits: number }[] = [
-  { value: 'distilledFraction', label: 'Fraction of the charge distilled', field: 'Distil until (fraction of charge)', step: 0.05, digits: 2 },
-  { value: 'distillateMoles', label: 'Distillate collected', field: 'Distil until (mol collected)', step: 5, digits: 1 },
+  {
+    value: 'distilledFraction',
+    label: 'Fraction of the charge distilled',
+    field: 'Distil until (fraction of charge)',
+    step: 0.05,
+    digits: 2,
+  },
+  {
+    value: 'distillateMoles',
+    label: 'Distillate collected',
+    field: 'Distil until (mol collected)',
+    step: 5,
+    digits: 1,
+  },
   { value: 'potMoles', label: 'Amount left in the pot', field: 'Stop with (mol left in the pot)', step: 5, digits: 1 },
   { value: 'potX1', label: 'Pot composition', field: 'Stop at pot x₁', step: 0.01, digits: 3 },
-  { value: 'recovery1', label: 'Recovery of component 1', field: 'Recover (fraction of component 1)', step: 0.05, digits: 2 },
+  {
+    value: 'recovery1',
+    label: 'Recovery of component 1',
+    field: 'Recover (fraction of component 1)',
+    step: 0.05,
+    digits: 2,
+  },
 ]
 
 /**
@@ -43,22 +60,32 @@ export const STOP_CHOICES: { value: BatchStop; label: string; field: string; ste
  */
 export function defaultStopValue(stopBy: BatchStop, moles: number, x1: number): number {
   switch (stopBy) {
-    case 'distilledFraction': return 0.6
-    case 'distillateMoles': return Math.round(0.6 * moles * 10) / 10
-    case 'potMoles': return Math.round(0.4 * moles * 10) / 10
-    case 'potX1': return Math.round((x1 / 3) * 1000) / 1000
-    case 'recovery1': return 0.9
+    case 'distilledFraction':
+      return 0.6
+    case 'distillateMoles':
+      return Math.round(0.6 * moles * 10) / 10
+    case 'potMoles':
+      return Math.round(0.4 * moles * 10) / 10
+    case 'potX1':
+      return Math.round((x1 / 3) * 1000) / 1000
+    case 'recovery1':
+      return 0.9
   }
 }
 
 /** thermo's stopping condition for the screen's stop (a fraction distilled becomes mol of distillate). */
 export function untilOf(b: Pick<BatchInputs, 'moles' | 'stopBy' | 'stopValue'>): BatchUntil {
   switch (b.stopBy) {
-    case 'distilledFraction': return { distillateMoles: b.stopValue * b.moles }
-    case 'potMoles': return { potMoles: b.stopValue }
-    case 'distillateMoles': return { distillateMoles: b.stopValue }
-    case 'potX1': return { potX1: b.stopValue }
-    case 'recovery1': return { recovery1: b.stopValue }
+    case 'distilledFraction':
+      return { distillateMoles: b.stopValue * b.moles }
+    case 'potMoles':
+      return { potMoles: b.stopValue }
+    case 'distillateMoles':
+      return { distillateMoles: b.stopValue }
+    case 'potX1':
+      return { potX1: b.stopValue }
+    case 'recovery1':
+      return { recovery1: b.stopValue }
   }
 }
 
@@ -78,9 +105,10 @@ export function batchFailureText(e: unknown, b: BatchInputs, names: [string, str
   const limit = err?.details?.limit
   if (err?.code !== 'unreachable-pot-composition' || typeof limit !== 'number') return errorText(e)
   const leaner = limit < b.x1
-  const why = b.stagesAbovePot > 0
-    ? `With ${b.stagesAbovePot} stage${b.stagesAbovePot === 1 ? '' : 's'} above the pot at R = ${b.R} the distillate is richer in ${names[0]} than the pot, so the pot only gets leaner in it`
-    : `The first vapour of this charge is ${leaner ? 'richer' : 'leaner'} in ${names[0]} than the liquid, so the pot only gets ${leaner ? 'leaner' : 'richer'} in it`
+  const why =
+    b.stagesAbovePot > 0
+      ? `With ${b.stagesAbovePot} stage${b.stagesAbovePot === 1 ? '' : 's'} above the pot at R = ${b.R} the distillate is richer in ${names[0]} than the pot, so the pot only gets leaner in it`
+      : `The first vapour of this charge is ${leaner ? 'richer' : 'leaner'} in ${names[0]} than the liquid, so the pot only gets ${leaner ? 'leaner' : 'richer'} in it`
   const [lo, hi] = leaner ? [limit, b.x1] : [b.x1, limit]
   return `The still cannot reach a pot x₁ of ${b.stopValue}. ${why}: from x₁ = ${b.x1} it heads towards ${limitText(limit, names)} and never passes it. Choose a pot x₁ between ${lo.toFixed(3)} and ${hi.toFixed(3)}, or stop by another condition.`
 }
@@ -96,11 +124,17 @@ export function stopNote(run: BatchRun, b: BatchInputs): string | null {
   const left = run.end.potMoles / b.moles
   const v = b.stopValue
   const reached =
-    b.stopBy === 'potX1' ? (v < b.x1 ? run.end.potX1 <= v + 1e-9 : run.end.potX1 >= v - 1e-9)
-      : b.stopBy === 'recovery1' ? run.end.recovery1 >= v - 1e-9
+    b.stopBy === 'potX1'
+      ? v < b.x1
+        ? run.end.potX1 <= v + 1e-9
+        : run.end.potX1 >= v - 1e-9
+      : b.stopBy === 'recovery1'
+        ? run.end.recovery1 >= v - 1e-9
         : true
   const share = left < 1e-4 ? 'less than 0.01 %' : `${(left * 100).toFixed(2)} %`
-  if (!reached) return `The still ran practically dry (${share} of the charge left) before reaching the chosen stop; the run ends there.`
-  if (left < NEARLY_DRY) return `This stop is reached only when the pot is practically dry (${share} of the charge left); a real still is not run that far.`
+  if (!reached)
+    return `The still ran practically dry (${share} of the charge left) before reaching the chosen stop; the run ends there.`
+  if (left < NEARLY_DRY)
+    return `This stop is reached only when the pot is practically dry (${share} of the charge left); a real still is not run that far.`
   return null
 }

@@ -53,13 +53,23 @@ function pureAt(model: VaporPressureModel, name: string, P: number): PureAtPress
   const T = saturationTemperature(model, P)
   const range = rangeKelvin(model)
   if (!range || (T >= range[0] && T <= range[1])) return { name, T, range, beyondK: 0, side: null }
-  return T > range[1] ? { name, T, range, beyondK: T - range[1], side: 'above' } : { name, T, range, beyondK: range[0] - T, side: 'below' }
+  return T > range[1]
+    ? { name, T, range, beyondK: T - range[1], side: 'above' }
+    : { name, T, range, beyondK: range[0] - T, side: 'below' }
 }
 
 /** Pure boiling temperatures at P (Pa), which component is the lighter there, and whether designs are blocked. */
 export function pressureVerdict(system: BinarySystem, P: number, names: [string, string]): PressureVerdict {
-  const pure: [PureAtPressure, PureAtPressure] = [pureAt(system.vaporPressure[0], names[0], P), pureAt(system.vaporPressure[1], names[1], P)]
-  return { P, pure, lighter: pure[0].T <= pure[1].T ? 0 : 1, designBlocked: pure.some((p) => p.beyondK > RANGE_MARGIN_K) }
+  const pure: [PureAtPressure, PureAtPressure] = [
+    pureAt(system.vaporPressure[0], names[0], P),
+    pureAt(system.vaporPressure[1], names[1], P),
+  ]
+  return {
+    P,
+    pure,
+    lighter: pure[0].T <= pure[1].T ? 0 : 1,
+    designBlocked: pure.some((p) => p.beyondK > RANGE_MARGIN_K),
+  }
 }
 
 /** Display helpers from the preferences store (K in, the chosen unit out; differences in K or °F). */
@@ -83,7 +93,10 @@ function rangeText(range: [number, number], u: TemperatureDisplay): string {
 export function outOfRangeLines(v: PressureVerdict, u: TemperatureDisplay): string[] {
   return v.pure
     .filter((p) => p.side && p.range)
-    .map((p) => `${p.name} boils at ${u.fmtT(p.T)}, ${u.dT(p.beyondK).toFixed(1)} ${u.dTLabel()} ${p.side} its vapour-pressure equation's range (${rangeText(p.range!, u)})`)
+    .map(
+      (p) =>
+        `${p.name} boils at ${u.fmtT(p.T)}, ${u.dT(p.beyondK).toFixed(1)} ${u.dTLabel()} ${p.side} its vapour-pressure equation's range (${rangeText(p.range!, u)})`,
+    )
 }
 
 /** True for the engine's vapour-pressure range warnings, which the screen summarises in one banner instead. */
@@ -97,17 +110,32 @@ export function isRangeWarning(w: string): boolean {
  * between the two boiling points (Tmin–Tmax of the diagram, K), and the activity model far from the
  * measured pressure (`farFromMeasured` names that pressure, or null).
  */
-export function extrapolationItems(system: BinarySystem, v: PressureVerdict, span: { Tmin: number; Tmax: number } | null, farFromMeasured: string | null, u: TemperatureDisplay): string[] {
+export function extrapolationItems(
+  system: BinarySystem,
+  v: PressureVerdict,
+  span: { Tmin: number; Tmax: number } | null,
+  farFromMeasured: string | null,
+  u: TemperatureDisplay,
+): string[] {
   const items = outOfRangeLines(v, u)
   if (span) {
     v.pure.forEach((p, i) => {
       const r = rangeKelvin(system.vaporPressure[i])
       if (p.side || !r) return
-      const beyond = [span.Tmax > r[1] ? `above ${u.fmtT(r[1], 0)}` : '', span.Tmin < r[0] ? `below ${u.fmtT(r[0], 0)}` : ''].filter(Boolean)
-      if (beyond.length) items.push(`${p.name}'s vapour pressure ${beyond.join(' and ')} in part of the diagram (its equation covers ${rangeText(r, u)})`)
+      const beyond = [
+        span.Tmax > r[1] ? `above ${u.fmtT(r[1], 0)}` : '',
+        span.Tmin < r[0] ? `below ${u.fmtT(r[0], 0)}` : '',
+      ].filter(Boolean)
+      if (beyond.length)
+        items.push(
+          `${p.name}'s vapour pressure ${beyond.join(' and ')} in part of the diagram (its equation covers ${rangeText(r, u)})`,
+        )
     })
   }
-  if (farFromMeasured) items.push(`the activity model, which was fitted to data measured at ${farFromMeasured} and is used here far from that pressure`)
+  if (farFromMeasured)
+    items.push(
+      `the activity model, which was fitted to data measured at ${farFromMeasured} and is used here far from that pressure`,
+    )
   return items
 }
 

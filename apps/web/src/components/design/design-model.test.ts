@@ -1,6 +1,16 @@
 import { dewTemperature, type BinarySystem } from '@ebullio/thermo'
 import { describe, expect, it } from 'vitest'
-import { ALPHA_VARIES_RATIO, curveTableCsv, cutsOf, diagramsAt, measuredForPlot, minimumStages, panelWarnings, tidyWarnings, type StillFrame } from './design-model'
+import {
+  ALPHA_VARIES_RATIO,
+  curveTableCsv,
+  cutsOf,
+  diagramsAt,
+  measuredForPlot,
+  minimumStages,
+  panelWarnings,
+  tidyWarnings,
+  type StillFrame,
+} from './design-model'
 
 // Antoine constants, ln(P/kPa) = A − B/(t/°C + C): Smith, Van Ness & Abbott, 7th ed., Table B.2
 // (benzene A,B,C read in print; toluene from memory, it reproduces the table's normal boiling point).
@@ -78,7 +88,19 @@ describe('tidyWarnings', () => {
 
 describe('measuredForPlot', () => {
   it('flags the points the chosen fit marked, by point id or by position', () => {
-    const p = (id: string) => ({ id, seq: 1, sampleLabel: id, temperatureK: 330, pressurePa: 101325, x1: 0.3, x1Uncertainty: 0.002, y1: 0.5, y1Uncertainty: 0.003, excluded: false, exclusionReason: null })
+    const p = (id: string) => ({
+      id,
+      seq: 1,
+      sampleLabel: id,
+      temperatureK: 330,
+      pressurePa: 101325,
+      x1: 0.3,
+      x1Uncertainty: 0.002,
+      y1: 0.5,
+      y1Uncertainty: 0.003,
+      excluded: false,
+      exclusionReason: null,
+    })
     const m = {
       points: [p('a'), p('b'), p('c')],
       fits: [
@@ -96,8 +118,26 @@ describe('minimumStages (acetone / methanol, the demo system: SVNA 7th ed. Table
   const CAL = 4.184 // J per thermochemical calorie
   const acetoneMethanol: BinarySystem = {
     vaporPressure: [
-      { kind: 'antoine', A: 14.3145, B: 2756.22, C: 228.06, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C', range: [-26, 77] },
-      { kind: 'antoine', A: 16.5785, B: 3638.27, C: 239.5, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C', range: [-11, 83] },
+      {
+        kind: 'antoine',
+        A: 14.3145,
+        B: 2756.22,
+        C: 228.06,
+        log: 'ln',
+        pressureUnit: 'kPa',
+        temperatureUnit: 'C',
+        range: [-26, 77],
+      },
+      {
+        kind: 'antoine',
+        A: 16.5785,
+        B: 3638.27,
+        C: 239.5,
+        log: 'ln',
+        pressureUnit: 'kPa',
+        temperatureUnit: 'C',
+        range: [-11, 83],
+      },
     ],
     activity: { kind: 'wilson', a12: -161.88 * CAL, a21: 583.11 * CAL, V1: 74.05, V2: 40.73 },
     names: ['acetone', 'methanol'],
@@ -130,7 +170,10 @@ describe('minimumStages (acetone / methanol, the demo system: SVNA 7th ed. Table
   it('puts the Fenske constant-α figure beside it, lower, and flags how strongly α varies between the targets', () => {
     // Fenske with the geometric-mean α: ln[(xD/(1 − xD))·((1 − xB)/xB)] / ln √(α_top·α_bottom).
     const f = m.fenske
-    expect(f.Nmin).toBeCloseTo(Math.log((0.76 / 0.24) * (0.95 / 0.05)) / Math.log(Math.sqrt(f.alphaTop * f.alphaBottom)), 10)
+    expect(f.Nmin).toBeCloseTo(
+      Math.log((0.76 / 0.24) * (0.95 / 0.05)) / Math.log(Math.sqrt(f.alphaTop * f.alphaBottom)),
+      10,
+    )
     expect(f.Nmin).toBeLessThan(m.Nmin - 2)
     expect(m.alphaRange.min).toBeCloseTo(Math.min(f.alphaTop, f.alphaBottom), 12)
     expect(m.alphaRange.max / m.alphaRange.min).toBeGreaterThan(ALPHA_VARIES_RATIO)

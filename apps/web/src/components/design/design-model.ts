@@ -21,20 +21,38 @@ import { isRangeWarning } from './design-limits'
 import type { TxyPoint } from '../plots'
 
 /** thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default). */
-export function systemFromParameters(p: ParametersExport, fitId?: string | null): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
-  const fit = p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ?? p.fits.find((f) => f.recommended) ?? p.fits[0]
+export function systemFromParameters(
+  p: ParametersExport,
+  fitId?: string | null,
+): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
+  const fit =
+    p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ?? p.fits.find((f) => f.recommended) ?? p.fits[0]
   if (!fit) throw new Error('This approved data set has no fitted model to compute with.')
   // the export labels each set with its component; pick by that label (older exports: by position) and hand thermo the model alone
   const byIndex = (i: 1 | 2) => p.vaporPressure.find((v) => v.component?.index === i) ?? p.vaporPressure[i - 1]
-  const vp = [byIndex(1), byIndex(2)].map(({ source: _s, component: _c, ...m }) => m as unknown as VaporPressureModel) as [VaporPressureModel, VaporPressureModel]
-  return { system: { vaporPressure: vp, activity: fit.activity as unknown as ActivityModel, names: [p.system.component1.name, p.system.component2.name] }, fit }
+  const vp = [byIndex(1), byIndex(2)].map(
+    ({ source: _s, component: _c, ...m }) => m as unknown as VaporPressureModel,
+  ) as [VaporPressureModel, VaporPressureModel]
+  return {
+    system: {
+      vaporPressure: vp,
+      activity: fit.activity as unknown as ActivityModel,
+      names: [p.system.component1.name, p.system.component2.name],
+    },
+    fit,
+  }
 }
 
 /**
  * Bubble and dew lines of every other fit of the version at pressure P (Pa), for comparison on the plots.
  * A fit whose curve cannot be computed at this pressure is left out rather than failing the page.
  */
-export function otherFitCurves(p: ParametersExport, chosenFitId: string | null, P: number, label: (model: string) => string) {
+export function otherFitCurves(
+  p: ParametersExport,
+  chosenFitId: string | null,
+  P: number,
+  label: (model: string) => string,
+) {
   return p.fits
     .filter((f) => f.id !== chosenFitId)
     .flatMap((f) => {
@@ -111,7 +129,18 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
     return (y * (1 - x)) / (x * (1 - y))
   })
   const n = d.T.length
-  return { P, x1: d.x1, y1: d.y1, T: d.T, alpha, azeotrope, azeotropeNote, pure: { T1: d.T[n - 1], T2: d.T[0] }, table: roundTable(system, P), warnings: d.warnings }
+  return {
+    P,
+    x1: d.x1,
+    y1: d.y1,
+    T: d.T,
+    alpha,
+    azeotrope,
+    azeotropeNote,
+    pure: { T1: d.T[n - 1], T2: d.T[0] },
+    table: roundTable(system, P),
+    warnings: d.warnings,
+  }
 }
 
 /** The curve table as CSV in Ebullio's layout: one row per liquid composition. */
@@ -121,7 +150,11 @@ export function curveTableCsv(d: DiagramsAt, names: [string, string], model: str
     '# Preliminary estimate from equilibrium data; not an engineered design.',
     'x1,y1,t_k,t_c,alpha12',
   ]
-  const rows = d.x1.map((x, i) => [x.toFixed(6), d.y1[i].toFixed(6), d.T[i].toFixed(3), (d.T[i] - 273.15).toFixed(3), d.alpha[i].toFixed(5)].join(','))
+  const rows = d.x1.map((x, i) =>
+    [x.toFixed(6), d.y1[i].toFixed(6), d.T[i].toFixed(3), (d.T[i] - 273.15).toFixed(3), d.alpha[i].toFixed(5)].join(
+      ',',
+    ),
+  )
   return [...head, ...rows].join('\n') + '\n'
 }
 
@@ -196,7 +229,15 @@ export function cutsOf(frames: StillFrame[], charge: number, count: number): Cut
     const df = b.distilledFraction - a.distilledFraction
     if (df <= 0) continue
     const x1 = (b.cumulativeDistillateX1 * b.distilledFraction - a.cumulativeDistillateX1 * a.distilledFraction) / df
-    cuts.push({ n: n + 1, fromFraction: a.distilledFraction, toFraction: b.distilledFraction, moles: df * charge, x1, potTStart: a.potT, potTEnd: b.potT })
+    cuts.push({
+      n: n + 1,
+      fromFraction: a.distilledFraction,
+      toFraction: b.distilledFraction,
+      moles: df * charge,
+      x1,
+      potTStart: a.potT,
+      potTEnd: b.potT,
+    })
   }
   return cuts
 }
@@ -213,7 +254,14 @@ export function measuredForPlot(m: MeasuredData, fitId: string | null): TxyPoint
     if (id && (r.flagged === true || r.outlier === true)) flagged.add(id)
   })
   return m.points.map((p) => ({
-    id: p.id, T: p.temperatureK, x1: p.x1, y1: p.y1, ux1: p.x1Uncertainty, uy1: p.y1Uncertainty,
-    excluded: p.excluded, outlier: flagged.has(p.id), note: p.exclusionReason ? `${p.sampleLabel} (excluded: ${p.exclusionReason})` : p.sampleLabel,
+    id: p.id,
+    T: p.temperatureK,
+    x1: p.x1,
+    y1: p.y1,
+    ux1: p.x1Uncertainty,
+    uy1: p.y1Uncertainty,
+    excluded: p.excluded,
+    outlier: flagged.has(p.id),
+    note: p.exclusionReason ? `${p.sampleLabel} (excluded: ${p.exclusionReason})` : p.sampleLabel,
   }))
 }

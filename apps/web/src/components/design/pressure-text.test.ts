@@ -6,7 +6,7 @@ const bar = { pFromPa: (P: number) => P / 1e5, pDecimals: () => 4, pLabel: () =>
 const kPa = { pFromPa: (P: number) => P / 1e3, pDecimals: () => 2, pLabel: () => 'kPa' }
 
 describe('proseP', () => {
-  it('drops trailing zeros but keeps the unit\'s rounding', () => {
+  it("drops trailing zeros but keeps the unit's rounding", () => {
     expect(proseP(bar, 4e6)).toBe('40 bar')
     expect(proseP(bar, 500)).toBe('0.005 bar')
     expect(proseP(bar, 5e6)).toBe('50 bar')

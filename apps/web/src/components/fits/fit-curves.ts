@@ -8,14 +8,22 @@ import type { DataSetDetail } from '../../api/datasets'
 import { fitLabel, vaporPressureOf, type FitCurve } from './fit-helpers'
 
 /** One isobaric diagram per fit that thermo can compute; fits it cannot draw are reported, not thrown. */
-export function fitCurves(d: DataSetDetail): { curves: FitCurve[]; failed: { name: string; message: string }[]; ideal: FitCurve | null } {
+export function fitCurves(d: DataSetDetail): {
+  curves: FitCurve[]
+  failed: { name: string; message: string }[]
+  ideal: FitCurve | null
+} {
   const vp = vaporPressureOf(d)
   const failed: { name: string; message: string }[] = []
   if (!vp) return { curves: [], failed, ideal: null }
   const P = d.dataSet.nominalPressurePa
   const curveFor = (id: string, name: string, activity: ActivityModel): FitCurve | null => {
     try {
-      const system: BinarySystem = { vaporPressure: vp, activity, names: [d.system.component1.name, d.system.component2.name] }
+      const system: BinarySystem = {
+        vaporPressure: vp,
+        activity,
+        names: [d.system.component1.name, d.system.component2.name],
+      }
       const diagram = phaseDiagram(system, { P }, { points: 81 }) as FitCurve['diagram']
       let azeotrope: Azeotrope | null = null
       try {
@@ -29,7 +37,8 @@ export function fitCurves(d: DataSetDetail): { curves: FitCurve[]; failed: { nam
       return null
     }
   }
-  const curves = d.fits.map((f) => curveFor(f.id, fitLabel(f, d.fits), f.activity as unknown as ActivityModel)).filter((c): c is FitCurve => !!c)
+  const curves = d.fits
+    .map((f) => curveFor(f.id, fitLabel(f, d.fits), f.activity as unknown as ActivityModel))
+    .filter((c): c is FitCurve => !!c)
   return { curves, failed, ideal: curveFor('ideal', 'Ideal', { kind: 'ideal' }) }
 }
-

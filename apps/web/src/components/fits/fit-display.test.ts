@@ -3,15 +3,27 @@ import type { Fit } from '../../api/datasets'
 import { atBound, bestComparableAic, boundNote, notComparableReason, paramSymbol, paramValueText } from './fit-display'
 
 const fit = (parameters: Fit['parameters'], statistics: Record<string, unknown> = { converged: true }): Fit => ({
-  id: 'f', dataSetId: 'd', model: 'nrtl', options: { alpha: 0.3, fitAlpha: true }, activity: { kind: 'nrtl' }, parameters, statistics, residuals: [],
-  pointIds: ['p1', 'p2'], runBy: 'u', runAt: '2026-12-01T10:00:00Z',
+  id: 'f',
+  dataSetId: 'd',
+  model: 'nrtl',
+  options: { alpha: 0.3, fitAlpha: true },
+  activity: { kind: 'nrtl' },
+  parameters,
+  statistics,
+  residuals: [],
+  pointIds: ['p1', 'p2'],
+  runBy: 'u',
+  runAt: '2026-12-01T10:00:00Z',
 })
 
 describe('fit display', () => {
   it('shows α as a symbol and a parameter at its bound without ± (the 0.1–0.7 range of packages/thermo)', () => {
     expect(paramSymbol('alpha')).toBe('α')
     expect(paramSymbol('b12')).toBe('b12')
-    const bounded = fit([{ name: 'b12', value: 949.31, standardError: 71.5 }, { name: 'alpha', value: 0.7, standardError: 0.2257 }])
+    const bounded = fit([
+      { name: 'b12', value: 949.31, standardError: 71.5 },
+      { name: 'alpha', value: 0.7, standardError: 0.2257 },
+    ])
     expect(paramValueText(bounded, bounded.parameters[1])).toBe('0.7000 (at bound)')
     expect(paramValueText(bounded, bounded.parameters[0])).toBe('949.3 ± 71.5')
     expect(boundNote(bounded)).toBe('α reached its bound (0.7): not determinable from these data.')
@@ -23,9 +35,14 @@ describe('fit display', () => {
   })
 
   it('uses the fit’s own bound mark when it carries one', () => {
-    const marked = fit([{ name: 'alpha', value: 0.45, standardError: 0.05, atBound: true } as Fit['parameters'][number]])
+    const marked = fit([
+      { name: 'alpha', value: 0.45, standardError: 0.05, atBound: true } as Fit['parameters'][number],
+    ])
     expect(atBound(marked, marked.parameters[0])).toBe(true)
-    const engine = fit([{ name: 'b12', value: 949.31, standardError: 71.5 }, { name: 'alpha', value: 0.7, standardError: null, atBound: true } as unknown as Fit['parameters'][number]])
+    const engine = fit([
+      { name: 'b12', value: 949.31, standardError: 71.5 },
+      { name: 'alpha', value: 0.7, standardError: null, atBound: true } as unknown as Fit['parameters'][number],
+    ])
     expect(paramValueText(engine, engine.parameters[1])).toBe('0.7000 (at bound)')
     const noSe = fit([{ name: 'b12', value: 12.5, standardError: null } as unknown as Fit['parameters'][number]])
     expect(paramValueText(noSe, noSe.parameters[0])).toBe('12.5000')
@@ -36,8 +53,15 @@ describe('fit display', () => {
   it('keeps an unconverged fit out of the AIC comparison and out of the recommendation', () => {
     const bad = fit([], { converged: false })
     const good = fit([], { converged: true })
-    expect(notComparableReason(bad)).toBe('The solver did not converge: these parameters are not a best fit, so it is not compared on AIC and cannot be recommended.')
+    expect(notComparableReason(bad)).toBe(
+      'The solver did not converge: these parameters are not a best fit, so it is not compared on AIC and cannot be recommended.',
+    )
     expect(notComparableReason(good)).toBeNull()
-    expect(bestComparableAic([{ f: bad, aic: -28.3 }, { f: good, aic: -27.4 }])).toBe(-27.4)
+    expect(
+      bestComparableAic([
+        { f: bad, aic: -28.3 },
+        { f: good, aic: -27.4 },
+      ]),
+    ).toBe(-27.4)
   })
 })

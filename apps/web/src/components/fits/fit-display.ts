@@ -36,7 +36,9 @@ export function paramValueText(f: Fit, p: Fit['parameters'][number]): string {
   const digits = Math.abs(p.value) >= 100 ? 1 : 4
   if (atBound(f, p)) return `${p.value.toFixed(digits)} (at bound)`
   const se = p.standardError as number | null | undefined
-  return typeof se === 'number' && Number.isFinite(se) ? `${p.value.toFixed(digits)} ± ${se.toFixed(digits)}` : p.value.toFixed(digits)
+  return typeof se === 'number' && Number.isFinite(se)
+    ? `${p.value.toFixed(digits)} ± ${se.toFixed(digits)}`
+    : p.value.toFixed(digits)
 }
 
 /** The solver's verdict: true, false, or null when the fit does not say. */
@@ -50,7 +52,9 @@ export function convergedOf(f: Fit): boolean | null {
  * converge has parameters that are not a minimum, so its AIC says nothing about the model.
  */
 export function notComparableReason(f: Fit): string | null {
-  return convergedOf(f) === false ? 'The solver did not converge: these parameters are not a best fit, so it is not compared on AIC and cannot be recommended.' : null
+  return convergedOf(f) === false
+    ? 'The solver did not converge: these parameters are not a best fit, so it is not compared on AIC and cannot be recommended.'
+    : null
 }
 
 /** "α reached its bound (0.7): not determinable from these data", or null when no parameter sits on a bound. */
@@ -62,5 +66,7 @@ export function boundNote(f: Fit): string | null {
 
 /** Lowest AIC among the fits that may be compared (Infinity when none); the "★ lowest" mark goes to this value. */
 export function bestComparableAic(rows: { f: Fit; aic: number | null }[]): number {
-  return Math.min(...rows.filter((r) => r.aic !== null && notComparableReason(r.f) === null).map((r) => r.aic as number))
+  return Math.min(
+    ...rows.filter((r) => r.aic !== null && notComparableReason(r.f) === null).map((r) => r.aic as number),
+  )
 }

@@ -2,9 +2,24 @@ import { describe, expect, it } from 'vitest'
 import type { Fit } from '../../api/datasets'
 import { fitLabel, labelWithNote } from './fit-helpers'
 
-const fit = (id: string, model: Fit['model'], runAt: string, options: Record<string, unknown> = {}, points = 12): Fit => ({
-  id, dataSetId: 'd', model, options, activity: { kind: model }, parameters: [], statistics: {}, residuals: [],
-  pointIds: Array.from({ length: points }, (_, i) => `p${i}`), runBy: 'u', runAt,
+const fit = (
+  id: string,
+  model: Fit['model'],
+  runAt: string,
+  options: Record<string, unknown> = {},
+  points = 12,
+): Fit => ({
+  id,
+  dataSetId: 'd',
+  model,
+  options,
+  activity: { kind: model },
+  parameters: [],
+  statistics: {},
+  residuals: [],
+  pointIds: Array.from({ length: points }, (_, i) => `p${i}`),
+  runBy: 'u',
+  runAt,
 })
 
 describe('fit labels', () => {

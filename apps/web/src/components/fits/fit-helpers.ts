@@ -6,7 +6,13 @@ import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/therm
 import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
 
 /** Display names of the models, in the order the fit panel offers them. */
-export const MODEL_LABELS: Record<ModelName, string> = { ideal: 'Ideal (Raoult)', margules: 'Margules', 'van-laar': 'Van Laar', wilson: 'Wilson', nrtl: 'NRTL' }
+export const MODEL_LABELS: Record<ModelName, string> = {
+  ideal: 'Ideal (Raoult)',
+  margules: 'Margules',
+  'van-laar': 'Van Laar',
+  wilson: 'Wilson',
+  nrtl: 'NRTL',
+}
 /** Models the server fits; the ideal solution is drawn as a reference curve, it has nothing to fit. */
 export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl']
 
@@ -14,7 +20,8 @@ export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl
 function settingWords(f: Fit): Record<string, string> {
   const o = f.options ?? {}
   const out: Record<string, string> = { points: `${f.pointIds.length} points` }
-  if (typeof o.objective === 'string') out.objective = o.objective === 'activity' ? 'activity objective' : 'bubble-point objective'
+  if (typeof o.objective === 'string')
+    out.objective = o.objective === 'activity' ? 'activity objective' : 'bubble-point objective'
   if (typeof o.alpha === 'number') out.alpha = `${o.fitAlpha === true ? 'α fitted from' : 'α ='} ${o.alpha}`
   return out
 }
@@ -25,11 +32,15 @@ function settingWords(f: Fit): Record<string, string> {
  */
 export function fitLabel(f: Fit, all: Fit[]): string {
   const base = MODEL_LABELS[f.model] ?? f.model
-  const same = all.filter((g) => g.model === f.model).sort((a, b) => a.runAt.localeCompare(b.runAt) || a.id.localeCompare(b.id))
+  const same = all
+    .filter((g) => g.model === f.model)
+    .sort((a, b) => a.runAt.localeCompare(b.runAt) || a.id.localeCompare(b.id))
   if (same.length < 2) return base
   const mine = settingWords(f)
   const differ = Object.keys(mine).filter((k) => same.some((g) => settingWords(g)[k] !== mine[k]))
-  const note = differ.length ? differ.map((k) => mine[k]).join(', ') : `run ${new Date(f.runAt).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}`
+  const note = differ.length
+    ? differ.map((k) => mine[k]).join(', ')
+    : `run ${new Date(f.runAt).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}`
   return `${base} #${same.indexOf(f) + 1} (${note})`
 }
 

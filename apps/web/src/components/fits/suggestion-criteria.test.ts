@@ -10,12 +10,18 @@ describe('suggestion criteria', () => {
 
   it('says in one plain sentence what each picks', () => {
     expect(CRITERION_CHOICES[0].sentence).toBe('Largest uncertainty of the predicted vapour composition.')
-    expect(CRITERION_CHOICES[1].sentence).toBe('Most information about the model parameters — reaches the dilute ends, where γ∞ is fixed.')
+    expect(CRITERION_CHOICES[1].sentence).toBe(
+      'Most information about the model parameters — reaches the dilute ends, where γ∞ is fixed.',
+    )
   })
 
   it('names the fit and the criterion of the list in the heading', () => {
-    expect(suggestionsHeading('Wilson', 'd-optimal')).toBe('Where to measure next for Wilson, by “Best-pinned parameters”')
-    expect(suggestionsHeading('NRTL (α fitted)', 'sigma-y')).toBe('Where to measure next for NRTL (α fitted), by “Sharpest curve”')
+    expect(suggestionsHeading('Wilson', 'd-optimal')).toBe(
+      'Where to measure next for Wilson, by “Best-pinned parameters”',
+    )
+    expect(suggestionsHeading('NRTL (α fitted)', 'sigma-y')).toBe(
+      'Where to measure next for NRTL (α fitted), by “Sharpest curve”',
+    )
     expect(suggestionsHeading('', null)).toBe('Fit uncertainty and where to measure next')
     expect(criterionLabel('other')).toBe('other')
   })

@@ -14,7 +14,11 @@ export interface CriterionChoice {
 /** The criteria offered, the server's default ('sigma-y') first. */
 export const CRITERION_CHOICES: readonly CriterionChoice[] = [
   { value: 'sigma-y', label: 'Sharpest curve', sentence: 'Largest uncertainty of the predicted vapour composition.' },
-  { value: 'd-optimal', label: 'Best-pinned parameters', sentence: 'Most information about the model parameters — reaches the dilute ends, where γ∞ is fixed.' },
+  {
+    value: 'd-optimal',
+    label: 'Best-pinned parameters',
+    sentence: 'Most information about the model parameters — reaches the dilute ends, where γ∞ is fixed.',
+  },
 ]
 
 /** The short label of a criterion (the raw value if unknown, so a new server criterion still shows). */

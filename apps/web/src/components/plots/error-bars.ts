@@ -19,14 +19,18 @@ export function errorBarSeries(name: string, data: ErrorBarDatum[], colour = MUT
     z: 1,
     encode: { x: 0, y: 1 },
     data,
-    renderItem: (_params: unknown, api: { value: (i: number) => number; coord: (v: number[]) => number[]; style: (o?: object) => object }) => {
+    renderItem: (
+      _params: unknown,
+      api: { value: (i: number) => number; coord: (v: number[]) => number[]; style: (o?: object) => object },
+    ) => {
       const x = api.value(0)
       const y = api.value(1)
       const hx = api.value(2)
       const hy = api.value(3)
       const style = { stroke: colour, lineWidth: 1 }
       const children: object[] = []
-      const seg = (a: number[], b: number[]) => children.push({ type: 'line', shape: { x1: a[0], y1: a[1], x2: b[0], y2: b[1] }, style })
+      const seg = (a: number[], b: number[]) =>
+        children.push({ type: 'line', shape: { x1: a[0], y1: a[1], x2: b[0], y2: b[1] }, style })
       if (hx > 0) {
         const l = api.coord([x - hx, y])
         const r = api.coord([x + hx, y])

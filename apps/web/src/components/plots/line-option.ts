@@ -25,24 +25,55 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
   const series: Record<string, unknown>[] = o.series.map((s, i) => {
     const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
     return {
-      type: 'line', name: s.name, color: colour, yAxisIndex: s.rightAxis && hasRight ? 1 : 0,
-      showSymbol: !!s.markers, symbolSize: 5,
+      type: 'line',
+      name: s.name,
+      color: colour,
+      yAxisIndex: s.rightAxis && hasRight ? 1 : 0,
+      showSymbol: !!s.markers,
+      symbolSize: 5,
       lineStyle: { color: colour, width: 2, type: s.dashed ? 'dashed' : 'solid' },
       data: s.x.map((x, j) => [x, s.y[j]]),
     }
   })
   if (o.cursorX !== undefined && o.cursorX !== null && series.length) {
-    series[0].markLine = { silent: true, symbol: 'none', label: { show: false }, lineStyle: { color: '#c98a12', width: 1.5 }, data: [{ xAxis: o.cursorX }] }
+    series[0].markLine = {
+      silent: true,
+      symbol: 'none',
+      label: { show: false },
+      lineStyle: { color: '#c98a12', width: 1.5 },
+      data: [{ xAxis: o.cursorX }],
+    }
   }
   if (o.refY !== undefined && o.refY !== null) {
     series.push({
-      type: 'line', name: 'reference', silent: true, showSymbol: false, data: [], yAxisIndex: 0,
-      markLine: { silent: true, symbol: 'none', label: { show: true, position: 'insideEndTop', formatter: `${o.yName} = ${o.refY}`, color: '#635e53', fontSize: 11 }, lineStyle: { color: '#635e53', type: 'dotted', width: 1 }, data: [{ yAxis: o.refY }] },
+      type: 'line',
+      name: 'reference',
+      silent: true,
+      showSymbol: false,
+      data: [],
+      yAxisIndex: 0,
+      markLine: {
+        silent: true,
+        symbol: 'none',
+        label: {
+          show: true,
+          position: 'insideEndTop',
+          formatter: `${o.yName} = ${o.refY}`,
+          color: '#635e53',
+          fontSize: 11,
+        },
+        lineStyle: { color: '#635e53', type: 'dotted', width: 1 },
+        data: [{ yAxis: o.refY }],
+      },
     })
   }
   const yAxis = [valueAxis(o.yName, { scale: true, nameGap: 48 })]
-  if (hasRight) yAxis.push(valueAxis(o.y2Name ?? '', { scale: true, nameGap: 48, position: 'right', splitLine: { show: false } }))
-  const { legend, top } = legendFor(o.series.map((s) => s.name), Object.fromEntries(o.series.map((s) => [s.name, !s.hidden])))
+  if (hasRight)
+    yAxis.push(valueAxis(o.y2Name ?? '', { scale: true, nameGap: 48, position: 'right', splitLine: { show: false } }))
+  const { legend, top } = legendFor(
+    o.series.map((s) => s.name),
+    Object.fromEntries(o.series.map((s) => [s.name, !s.hidden])),
+  )
   return {
     ...base,
     legend,

@@ -4,14 +4,24 @@ import { residualOption } from './residual-option'
 import { txyOption } from './txy-option'
 import { xyOption } from './xy-option'
 
-type Series = { type: string; name: string; data: unknown[]; lineStyle?: { type?: string }; markArea?: { data: { yAxis: number }[][] } }
+type Series = {
+  type: string
+  name: string
+  data: unknown[]
+  lineStyle?: { type?: string }
+  markArea?: { data: { yAxis: number }[][] }
+}
 const names: [string, string] = ['acetone', 'methanol']
 // Invented shapes for the option builders; no chemistry is checked here.
 const curve = { name: 'Wilson', x1: [0, 0.5, 1], y1: [0, 0.6, 1], T: [337.85, 330, 329.35] }
 
 describe('txyOption', () => {
   const o = txyOption({
-    title: 'T–x–y', names, unit: 'C', k: 2, curves: [curve],
+    title: 'T–x–y',
+    names,
+    unit: 'C',
+    k: 2,
+    curves: [curve],
     points: [
       { id: 'p1', T: 330.15, x1: 0.4, y1: 0.55, uT: 0.05, ux1: 0.002, uy1: 0.003 },
       { id: 'p2', T: 331.15, x1: 0.3, y1: null, excluded: true, outlier: true },
@@ -44,11 +54,23 @@ describe('txyOption', () => {
 
 describe('txyOption tooltip', () => {
   it('shows a hovered point’s values with its uncertainties and flags', () => {
-    const point = { id: 'p2', T: 331.15, x1: 0.3, y1: 0.45, uT: 0.05, ux1: 0.002, excluded: true, outlier: true, note: 'S-07' }
+    const point = {
+      id: 'p2',
+      T: 331.15,
+      x1: 0.3,
+      y1: 0.45,
+      uT: 0.05,
+      ux1: 0.002,
+      excluded: true,
+      outlier: true,
+      note: 'S-07',
+    }
     const o = txyOption({ title: 'T–x–y', names, unit: 'C', k: 1, curves: [], points: [point] })
     const fmt = (o.tooltip as { formatter: (p: unknown) => string }).formatter
     const html = fmt({ data: { point, phase: 'liquid' }, seriesName: 'Liquid x₁' })
-    expect(html).toBe('<b>S-07</b> · liquid<br>T = 58.00 °C ± 0.05<br>x₁ = 0.3000 ± 0.0020<br>y₁ = 0.4500<br><i>excluded from fits</i><br><span style="color:#a3321f">flagged as an outlier</span>')
+    expect(html).toBe(
+      '<b>S-07</b> · liquid<br>T = 58.00 °C ± 0.05<br>x₁ = 0.3000 ± 0.0020<br>y₁ = 0.4500<br><i>excluded from fits</i><br><span style="color:#a3321f">flagged as an outlier</span>',
+    )
   })
 })
 
@@ -56,11 +78,27 @@ describe('xyOption', () => {
   it('always draws the diagonal and numbers the stages (every k-th when there are many)', () => {
     const staircase = Array.from({ length: 61 }, (_, i) => ({ x: 1 - i / 70, y: 1 - i / 70 }))
     const o = xyOption({
-      title: 'x–y', names, curves: [curve], points: [],
-      stages: { staircase, rectifying: { slope: 0.7, intercept: 0.27 }, stripping: { slope: 1.3, intercept: -0.015 }, intersection: { x: 0.5, y: 0.62 }, xF: 0.5, xD: 0.9, xB: 0.05, q: 1, feedStage: 12 },
+      title: 'x–y',
+      names,
+      curves: [curve],
+      points: [],
+      stages: {
+        staircase,
+        rectifying: { slope: 0.7, intercept: 0.27 },
+        stripping: { slope: 1.3, intercept: -0.015 },
+        intersection: { x: 0.5, y: 0.62 },
+        xF: 0.5,
+        xD: 0.9,
+        xB: 0.05,
+        q: 1,
+        feedStage: 12,
+      },
     })
     const series = o.series as Series[]
-    expect(series[0].data).toEqual([[0, 0], [1, 1]])
+    expect(series[0].data).toEqual([
+      [0, 0],
+      [1, 1],
+    ])
     const labels = series.find((s) => s.type === 'scatter' && s.name === 'Theoretical stages')!
     expect(labels.data.length).toBeLessThanOrEqual(14)
   })
@@ -68,14 +106,26 @@ describe('xyOption', () => {
 
 describe('residualOption', () => {
   it('shades ±2σ around zero for each model', () => {
-    const o = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series: [{ name: 'NRTL', sigma: 0.1, points: [{ id: 'a', x1: 0.2, residual: 0.05 }] }] })
+    const o = residualOption({
+      title: 'ΔT',
+      names,
+      quantity: 'ΔT / K',
+      digits: 3,
+      series: [{ name: 'NRTL', sigma: 0.1, points: [{ id: 'a', x1: 0.2, residual: 0.05 }] }],
+    })
     const s = (o.series as Series[])[0]
     expect(s.markArea?.data[0].map((d) => d.yAxis)).toEqual([-0.2, 0.2])
   })
 
   it('keeps six fits on one scrolling legend row above the grid, so the legend never covers the points', () => {
-    const series = ['Van Laar', 'Margules', 'Wilson #1 (run 08:14 PM)', 'NRTL #1 (α = 0.3)', 'Wilson #2 (run 08:15 PM)', 'NRTL #2 (α fitted from 0.3)']
-      .map((name) => ({ name, sigma: 0.1, points: [{ id: name, x1: 0.5, residual: 0.01 }] }))
+    const series = [
+      'Van Laar',
+      'Margules',
+      'Wilson #1 (run 08:14 PM)',
+      'NRTL #1 (α = 0.3)',
+      'Wilson #2 (run 08:15 PM)',
+      'NRTL #2 (α fitted from 0.3)',
+    ].map((name) => ({ name, sigma: 0.1, points: [{ id: name, x1: 0.5, residual: 0.01 }] }))
     const o = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series })
     expect((o.legend as { type: string }).type).toBe('scroll')
     expect((o.grid as { top: number }).top).toBe(34)
@@ -84,7 +134,18 @@ describe('residualOption', () => {
 
 describe('lineOption', () => {
   it('puts right-axis series on the second y axis and draws the cursor', () => {
-    const o = lineOption({ title: 't', xName: 'x', yName: 'y', y2Name: 'T / °C', digits: 2, cursorX: 0.3, series: [{ name: 'a', x: [0, 1], y: [0, 1] }, { name: 'b', x: [0, 1], y: [5, 6], rightAxis: true }] })
+    const o = lineOption({
+      title: 't',
+      xName: 'x',
+      yName: 'y',
+      y2Name: 'T / °C',
+      digits: 2,
+      cursorX: 0.3,
+      series: [
+        { name: 'a', x: [0, 1], y: [0, 1] },
+        { name: 'b', x: [0, 1], y: [5, 6], rightAxis: true },
+      ],
+    })
     const series = o.series as (Series & { yAxisIndex: number; markLine?: { data: { xAxis: number }[] } })[]
     expect(series.map((s) => s.yAxisIndex)).toEqual([0, 1])
     expect(series[0].markLine?.data[0].xAxis).toBe(0.3)

@@ -54,7 +54,12 @@ export function valueAxis(name: string, extra: Record<string, unknown> = {}): Re
 
 /** Composition axis fixed to 0–1. */
 export function fractionAxis(name: string): Record<string, unknown> {
-  return valueAxis(name, { min: 0, max: 1, interval: 0.1, axisLabel: { color: MUTED, fontSize: 11, formatter: (v: number) => v.toFixed(1) } })
+  return valueAxis(name, {
+    min: 0,
+    max: 1,
+    interval: 0.1,
+    axisLabel: { color: MUTED, fontSize: 11, formatter: (v: number) => v.toFixed(1) },
+  })
 }
 
 /** Shared top-level option pieces: font, legend, tooltip box, grid margins. */
@@ -78,7 +83,11 @@ export function baseOption(title: string): Record<string, unknown> {
  * A wrapping legend of the given entries and the grid top that leaves room for it.
  * The row count is estimated from the text length (about 7 px a character plus the swatch) for a half-width plot.
  */
-export function legendFor(names: string[], selected: Record<string, boolean> = {}, widthPx = 430): { legend: Record<string, unknown>; top: number } {
+export function legendFor(
+  names: string[],
+  selected: Record<string, boolean> = {},
+  widthPx = 430,
+): { legend: Record<string, unknown>; top: number } {
   const widths = names.map((n) => n.length * 6.3 + 44)
   let rows = names.length ? 1 : 0
   let used = 0
@@ -89,7 +98,18 @@ export function legendFor(names: string[], selected: Record<string, boolean> = {
     }
     used += w
   }
-  const legend = { type: 'plain', top: 4, left: 56, right: 16, data: names, selected, itemWidth: 22, itemHeight: 10, itemGap: 14, textStyle: { color: INK, fontSize: 12 } }
+  const legend = {
+    type: 'plain',
+    top: 4,
+    left: 56,
+    right: 16,
+    data: names,
+    selected,
+    itemWidth: 22,
+    itemHeight: 10,
+    itemGap: 14,
+    textStyle: { color: INK, fontSize: 12 },
+  }
   return { legend, top: 30 + rows * 22 }
 }
 
@@ -108,5 +128,10 @@ export function saveFile(name: string, content: Blob | string, type = 'text/plai
 
 /** A file name from a plot title: lower-case words joined by hyphens. */
 export function fileStem(title: string): string {
-  return title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'plot'
+  return (
+    title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'plot'
+  )
 }

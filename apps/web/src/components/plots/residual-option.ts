@@ -18,24 +18,67 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
   const base = baseOption(o.title)
   const series = o.series.flatMap((s, i) => {
     const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
-    const band = s.sigma && s.sigma > 0
-      ? { silent: true, itemStyle: { color: colour, opacity: 0.08 }, data: [[{ yAxis: -2 * s.sigma }, { yAxis: 2 * s.sigma }]] }
-      : undefined
-    return [{
-      type: 'scatter', name: s.name, color: colour, symbolSize: 7,
-      data: s.points.map((p) => ({ value: [p.x1, p.residual], pointId: p.id, itemStyle: p.excluded ? { color: '#fff', borderColor: colour, borderWidth: 1.5 } : { color: colour } })),
-      markArea: band,
-      markLine: s.sigma ? { silent: true, symbol: 'none', label: { show: false }, lineStyle: { color: colour, type: 'dotted', width: 1 }, data: [{ yAxis: -2 * s.sigma }, { yAxis: 2 * s.sigma }] } : undefined,
-      tooltip: { formatter: (p: { value: number[]; seriesName: string }) => `${p.seriesName}<br>x₁ = ${fmt(p.value[0])}<br>${o.quantity.split(' /')[0]} = ${fmt(p.value[1], o.digits)}${s.sigma ? `<br>2σ = ${fmt(2 * s.sigma, o.digits)}` : ''}` },
-    }]
+    const band =
+      s.sigma && s.sigma > 0
+        ? {
+            silent: true,
+            itemStyle: { color: colour, opacity: 0.08 },
+            data: [[{ yAxis: -2 * s.sigma }, { yAxis: 2 * s.sigma }]],
+          }
+        : undefined
+    return [
+      {
+        type: 'scatter',
+        name: s.name,
+        color: colour,
+        symbolSize: 7,
+        data: s.points.map((p) => ({
+          value: [p.x1, p.residual],
+          pointId: p.id,
+          itemStyle: p.excluded ? { color: '#fff', borderColor: colour, borderWidth: 1.5 } : { color: colour },
+        })),
+        markArea: band,
+        markLine: s.sigma
+          ? {
+              silent: true,
+              symbol: 'none',
+              label: { show: false },
+              lineStyle: { color: colour, type: 'dotted', width: 1 },
+              data: [{ yAxis: -2 * s.sigma }, { yAxis: 2 * s.sigma }],
+            }
+          : undefined,
+        tooltip: {
+          formatter: (p: { value: number[]; seriesName: string }) =>
+            `${p.seriesName}<br>x₁ = ${fmt(p.value[0])}<br>${o.quantity.split(' /')[0]} = ${fmt(p.value[1], o.digits)}${s.sigma ? `<br>2σ = ${fmt(2 * s.sigma, o.digits)}` : ''}`,
+        },
+      },
+    ]
   })
   series.push({
-    type: 'line', name: 'zero', silent: true, showSymbol: false, data: [[0, 0], [1, 0]], lineStyle: { color: MUTED, width: 1 }, color: MUTED,
+    type: 'line',
+    name: 'zero',
+    silent: true,
+    showSymbol: false,
+    data: [
+      [0, 0],
+      [1, 0],
+    ],
+    lineStyle: { color: MUTED, width: 1 },
+    color: MUTED,
   } as never)
   const selected = Object.fromEntries(o.series.map((s) => [s.name, !s.hidden]))
   // One scrolling row: residual plots are short, and a wrapping legend of 5–6 fits would cover the points.
-  const { legend: wrapping } = legendFor(o.series.map((s) => s.name), selected)
-  const legend = { ...wrapping, type: 'scroll', orient: 'horizontal', pageIconSize: 10, pageTextStyle: { color: MUTED, fontSize: 11 } }
+  const { legend: wrapping } = legendFor(
+    o.series.map((s) => s.name),
+    selected,
+  )
+  const legend = {
+    ...wrapping,
+    type: 'scroll',
+    orient: 'horizontal',
+    pageIconSize: 10,
+    pageTextStyle: { color: MUTED, fontSize: 11 },
+  }
   const top = o.series.length ? 34 : 14
   return {
     ...base,

@@ -1,8 +1,31 @@
 /** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
 import { bandSeries, suggestionSeries } from './band-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
-import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, showDT, showT, tLabel, tUnit, valueAxis, VAPOUR, WARN } from './plot-style'
-import type { AzeotropeMark, PureBoiling, TemperatureUnit, TxyBand, TxyCurve, TxyPoint, TxySuggestion } from './plot-types'
+import {
+  baseOption,
+  CURVE_COLOURS,
+  fmt,
+  fractionAxis,
+  INK,
+  legendFor,
+  LIQUID,
+  showDT,
+  showT,
+  tLabel,
+  tUnit,
+  valueAxis,
+  VAPOUR,
+  WARN,
+} from './plot-style'
+import type {
+  AzeotropeMark,
+  PureBoiling,
+  TemperatureUnit,
+  TxyBand,
+  TxyCurve,
+  TxyPoint,
+  TxySuggestion,
+} from './plot-types'
 
 /** Inputs of `txyOption`; see TxyPlot.vue for what each means. */
 export interface TxyOptionInput {
@@ -34,7 +57,9 @@ function pointItem(p: TxyPoint, phase: 'liquid' | 'vapour', unit: TemperatureUni
     point: p,
     symbol: look.symbol,
     symbolSize: phase === 'liquid' ? 8 : 10,
-    itemStyle: p.excluded ? { color: '#ffffff', borderColor: look.colour, borderWidth: 1.6 } : { color: look.colour, borderColor: '#ffffff', borderWidth: 0.6 },
+    itemStyle: p.excluded
+      ? { color: '#ffffff', borderColor: look.colour, borderWidth: 1.6 }
+      : { color: look.colour, borderColor: '#ffffff', borderWidth: 0.6 },
   }
 }
 
@@ -55,19 +80,53 @@ function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput):
 function measuredSeries(o: TxyOptionInput): Record<string, unknown>[] {
   const liquid = o.points.map((p) => pointItem(p, 'liquid', o.unit))
   const vapour = o.points.filter((p) => p.y1 !== null).map((p) => pointItem(p, 'vapour', o.unit))
-  const barsL: ErrorBarDatum[] = o.points.map((p) => [p.x1, showT(p.T, o.unit), o.k * (p.ux1 ?? 0), o.k * showDT(p.uT ?? 0, o.unit)])
-  const barsV: ErrorBarDatum[] = o.points.filter((p) => p.y1 !== null).map((p) => [p.y1 as number, showT(p.T, o.unit), o.k * (p.uy1 ?? 0), o.k * showDT(p.uT ?? 0, o.unit)])
+  const barsL: ErrorBarDatum[] = o.points.map((p) => [
+    p.x1,
+    showT(p.T, o.unit),
+    o.k * (p.ux1 ?? 0),
+    o.k * showDT(p.uT ?? 0, o.unit),
+  ])
+  const barsV: ErrorBarDatum[] = o.points
+    .filter((p) => p.y1 !== null)
+    .map((p) => [p.y1 as number, showT(p.T, o.unit), o.k * (p.uy1 ?? 0), o.k * showDT(p.uT ?? 0, o.unit)])
   const flagged = o.points
     .filter((p) => p.outlier)
     .flatMap((p) => [[p.x1, showT(p.T, o.unit)], ...(p.y1 !== null ? [[p.y1, showT(p.T, o.unit)]] : [])])
   const out: Record<string, unknown>[] = [
     errorBarSeries(LIQUID_NAME, barsL, LIQUID.colour),
     errorBarSeries(VAPOUR_NAME, barsV, VAPOUR.colour),
-    { type: 'scatter', name: LIQUID_NAME, data: liquid, z: 4, color: LIQUID.colour, itemStyle: { color: LIQUID.colour }, symbol: LIQUID.symbol, cursor: 'pointer' },
-    { type: 'scatter', name: VAPOUR_NAME, data: vapour, z: 4, color: VAPOUR.colour, itemStyle: { color: VAPOUR.colour }, symbol: VAPOUR.symbol, cursor: 'pointer' },
+    {
+      type: 'scatter',
+      name: LIQUID_NAME,
+      data: liquid,
+      z: 4,
+      color: LIQUID.colour,
+      itemStyle: { color: LIQUID.colour },
+      symbol: LIQUID.symbol,
+      cursor: 'pointer',
+    },
+    {
+      type: 'scatter',
+      name: VAPOUR_NAME,
+      data: vapour,
+      z: 4,
+      color: VAPOUR.colour,
+      itemStyle: { color: VAPOUR.colour },
+      symbol: VAPOUR.symbol,
+      cursor: 'pointer',
+    },
   ]
   if (flagged.length) {
-    out.push({ type: 'scatter', name: 'Flagged outlier', data: flagged, silent: true, z: 3, symbol: 'circle', symbolSize: 18, itemStyle: { color: 'rgba(163,50,31,0.08)', borderColor: WARN, borderWidth: 1.6 } })
+    out.push({
+      type: 'scatter',
+      name: 'Flagged outlier',
+      data: flagged,
+      silent: true,
+      z: 3,
+      symbol: 'circle',
+      symbolSize: 18,
+      itemStyle: { color: 'rgba(163,50,31,0.08)', borderColor: WARN, borderWidth: 1.6 },
+    })
   }
   return out
 }
@@ -94,18 +153,41 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
       { value: [0, showT(o.pure.T2, o.unit)], label: { position: 'right', offset: [2, -12] }, name: o.names[1] },
     ]
     out.push({
-      type: 'scatter', name: 'Pure-component boiling point', data, symbol: 'rect', symbolSize: 9, z: 5, itemStyle: { color: INK },
-      label: { show: true, fontSize: 11, color: INK, backgroundColor: 'rgba(255,255,255,0.85)', padding: [1, 3], borderRadius: 2, formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}` },
-      tooltip: { formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}` },
+      type: 'scatter',
+      name: 'Pure-component boiling point',
+      data,
+      symbol: 'rect',
+      symbolSize: 9,
+      z: 5,
+      itemStyle: { color: INK },
+      label: {
+        show: true,
+        fontSize: 11,
+        color: INK,
+        backgroundColor: 'rgba(255,255,255,0.85)',
+        padding: [1, 3],
+        borderRadius: 2,
+        formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}`,
+      },
+      tooltip: {
+        formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}`,
+      },
     })
   }
   if (o.azeotrope && o.azeotrope.T !== undefined) {
     const tU = tUnit(o.unit)
     out.push({
-      type: 'scatter', name: 'Azeotrope', z: 6, symbol: 'triangle', symbolSize: 13,
+      type: 'scatter',
+      name: 'Azeotrope',
+      z: 6,
+      symbol: 'triangle',
+      symbolSize: 13,
       itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
       data: [[o.azeotrope.x1, showT(o.azeotrope.T, o.unit)]],
-      tooltip: { formatter: () => `Azeotrope${o.azeotrope?.kind ? ` (${o.azeotrope.kind.replace('-', ' ')})` : ''}<br>x₁ = y₁ = ${fmt(o.azeotrope?.x1)}<br>T = ${fmt(showT(o.azeotrope!.T!, o.unit), 2)} ${tU}` },
+      tooltip: {
+        formatter: () =>
+          `Azeotrope${o.azeotrope?.kind ? ` (${o.azeotrope.kind.replace('-', ' ')})` : ''}<br>x₁ = y₁ = ${fmt(o.azeotrope?.x1)}<br>T = ${fmt(showT(o.azeotrope!.T!, o.unit), 2)} ${tU}`,
+      },
     })
   }
   return out

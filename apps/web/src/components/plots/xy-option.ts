@@ -27,19 +27,75 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
     .map((p, i) => ({ value: [p.x, p.y], name: String(i + 1) }))
     .filter((_, i) => (i + 1) % every === 0 || i === 0 || i === corners.length - 1)
   return [
-    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[s.xD, s.xD], [corner.x, corner.y]], lineStyle, color: OPERATING },
-    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[corner.x, corner.y], [s.xB, s.xB]], lineStyle, color: OPERATING },
-    { type: 'line', name: 'Operating lines', silent: true, showSymbol: false, data: [[s.xF, s.xF], [corner.x, corner.y]], lineStyle: { ...lineStyle, type: 'dotted' }, color: OPERATING },
     {
-      type: 'line', name: 'Theoretical stages', silent: true, showSymbol: false, z: 4, color: STEP,
-      data: s.staircase.map((p) => [p.x, p.y]), lineStyle: { color: STEP, width: 1.4 },
+      type: 'line',
+      name: 'Operating lines',
+      silent: true,
+      showSymbol: false,
+      data: [
+        [s.xD, s.xD],
+        [corner.x, corner.y],
+      ],
+      lineStyle,
+      color: OPERATING,
     },
     {
-      type: 'scatter', name: 'Theoretical stages', silent: true, symbolSize: 0, z: 5, data: labels,
-      label: { show: true, position: 'left', distance: 3, fontSize: 10, color: STEP, formatter: (p: { name: string }) => p.name },
+      type: 'line',
+      name: 'Operating lines',
+      silent: true,
+      showSymbol: false,
+      data: [
+        [corner.x, corner.y],
+        [s.xB, s.xB],
+      ],
+      lineStyle,
+      color: OPERATING,
     },
     {
-      type: 'scatter', name: 'Targets', z: 6, symbol: 'circle', symbolSize: 7, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
+      type: 'line',
+      name: 'Operating lines',
+      silent: true,
+      showSymbol: false,
+      data: [
+        [s.xF, s.xF],
+        [corner.x, corner.y],
+      ],
+      lineStyle: { ...lineStyle, type: 'dotted' },
+      color: OPERATING,
+    },
+    {
+      type: 'line',
+      name: 'Theoretical stages',
+      silent: true,
+      showSymbol: false,
+      z: 4,
+      color: STEP,
+      data: s.staircase.map((p) => [p.x, p.y]),
+      lineStyle: { color: STEP, width: 1.4 },
+    },
+    {
+      type: 'scatter',
+      name: 'Theoretical stages',
+      silent: true,
+      symbolSize: 0,
+      z: 5,
+      data: labels,
+      label: {
+        show: true,
+        position: 'left',
+        distance: 3,
+        fontSize: 10,
+        color: STEP,
+        formatter: (p: { name: string }) => p.name,
+      },
+    },
+    {
+      type: 'scatter',
+      name: 'Targets',
+      z: 6,
+      symbol: 'circle',
+      symbolSize: 7,
+      itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
       data: [
         { value: [s.xD, s.xD], name: `x_D = ${fmt(s.xD, 3)}` },
         { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
@@ -54,18 +110,46 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
 export function xyOption(o: XyOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
   const series: Record<string, unknown>[] = [
-    { type: 'line', name: 'y = x', silent: true, showSymbol: false, data: [[0, 0], [1, 1]], lineStyle: { color: MUTED, width: 1, type: 'dashed' }, color: MUTED },
+    {
+      type: 'line',
+      name: 'y = x',
+      silent: true,
+      showSymbol: false,
+      data: [
+        [0, 0],
+        [1, 1],
+      ],
+      lineStyle: { color: MUTED, width: 1, type: 'dashed' },
+      color: MUTED,
+    },
     ...o.curves.map((c, i) => {
       const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
-      return { type: 'line', name: c.name, silent: true, showSymbol: false, z: 3, color: colour, lineStyle: { color: colour, width: 2 }, data: c.x1.map((x, j) => [x, c.y1[j]]) }
+      return {
+        type: 'line',
+        name: c.name,
+        silent: true,
+        showSymbol: false,
+        z: 3,
+        color: colour,
+        lineStyle: { color: colour, width: 2 },
+        data: c.x1.map((x, j) => [x, c.y1[j]]),
+      }
     }),
   ]
   if (o.points.length) {
     series.push({
-      type: 'scatter', name: 'Measured', z: 5, color: LIQUID.colour, symbol: LIQUID.symbol, symbolSize: 8,
+      type: 'scatter',
+      name: 'Measured',
+      z: 5,
+      color: LIQUID.colour,
+      symbol: LIQUID.symbol,
+      symbolSize: 8,
       data: o.points.map((p) => ({
-        value: [p.x1, p.y1], pointId: p.id,
-        itemStyle: p.excluded ? { color: '#fff', borderColor: LIQUID.colour, borderWidth: 1.6 } : { color: LIQUID.colour },
+        value: [p.x1, p.y1],
+        pointId: p.id,
+        itemStyle: p.excluded
+          ? { color: '#fff', borderColor: LIQUID.colour, borderWidth: 1.6 }
+          : { color: LIQUID.colour },
       })),
       itemStyle: { color: LIQUID.colour },
       tooltip: { formatter: (p: { value: number[] }) => `x₁ = ${fmt(p.value[0])}<br>y₁ = ${fmt(p.value[1])}` },
@@ -73,7 +157,12 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
   }
   if (o.azeotrope) {
     series.push({
-      type: 'scatter', name: 'Azeotrope', z: 7, symbol: 'triangle', symbolSize: 13, itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
+      type: 'scatter',
+      name: 'Azeotrope',
+      z: 7,
+      symbol: 'triangle',
+      symbolSize: 13,
+      itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
       data: [[o.azeotrope.x1, o.azeotrope.x1]],
       tooltip: { formatter: () => `Azeotrope: x₁ = y₁ = ${fmt(o.azeotrope?.x1)}` },
     })
@@ -82,17 +171,35 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
   else if (o.targets) {
     const t = o.targets
     // Labels as the screens write the symbols (x_D, x_F, x_B), not the engine's plain keys.
-    const marks = ([['x_D', t.xD], ['x_F', t.xF], ['x_B', t.xB]] as const).filter(([, v]) => v !== undefined)
+    const marks = (
+      [
+        ['x_D', t.xD],
+        ['x_F', t.xF],
+        ['x_B', t.xB],
+      ] as const
+    ).filter(([, v]) => v !== undefined)
     series.push({
-      type: 'scatter', name: 'Targets', z: 6, symbolSize: 8, itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
+      type: 'scatter',
+      name: 'Targets',
+      z: 6,
+      symbolSize: 8,
+      itemStyle: { color: '#fff', borderColor: INK, borderWidth: 1.5 },
       // xD sits near the top-right corner: its label goes to the left so it stays inside the plot.
-      data: marks.map(([n, v]) => ({ value: [v, v], name: `${n} = ${fmt(v as number, 3)}`, label: { position: n === 'x_D' ? 'left' : 'right' } })),
+      data: marks.map(([n, v]) => ({
+        value: [v, v],
+        name: `${n} = ${fmt(v as number, 3)}`,
+        label: { position: n === 'x_D' ? 'left' : 'right' },
+      })),
       label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string }) => p.name },
       tooltip: { formatter: (p: { name: string }) => p.name },
     })
   }
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
-  const names = [...o.curves.map((c) => c.name), ...(o.points.length ? ['Measured'] : []), ...(o.stages ? ['Operating lines', 'Theoretical stages'] : [])]
+  const names = [
+    ...o.curves.map((c) => c.name),
+    ...(o.points.length ? ['Measured'] : []),
+    ...(o.stages ? ['Operating lines', 'Theoretical stages'] : []),
+  ]
   const { legend, top } = legendFor(names, selected)
   return {
     ...base,
