@@ -58,15 +58,13 @@ export async function buildLab(t: TestContext): Promise<Lab> {
   const componentIds: string[] = []
   for (const name of [ACETONE_METHANOL.light, ACETONE_METHANOL.heavy]) {
     const c = DEMO_COMPONENTS[name]
-    const r = await agents.admin
-      .post('/api/components')
-      .send({
-        name: c.name,
-        casNumber: c.cas,
-        formula: c.formula,
-        molarMass: c.molarMass,
-        liquidMolarVolume: c.molarVolume,
-      })
+    const r = await agents.admin.post('/api/components').send({
+      name: c.name,
+      casNumber: c.cas,
+      formula: c.formula,
+      molarMass: c.molarMass,
+      liquidMolarVolume: c.molarVolume,
+    })
     if (r.status !== 201) throw new Error(`component: ${JSON.stringify(r.body)}`)
     await agents.lead
       .post(`/api/components/${r.body.id}/vapor-pressure-sets`)

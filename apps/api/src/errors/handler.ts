@@ -43,13 +43,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return
   }
   req.log?.error({ err }, 'unhandled error')
-  res
-    .status(500)
-    .json({
-      error: {
-        code: 'internal',
-        message: 'Something went wrong on the server. The error has been logged.',
-        details: null,
-      },
-    })
+  res.status(500).json({
+    error: {
+      code: 'internal',
+      message: 'Something went wrong on the server. The error has been logged.',
+      details: null,
+    },
+  })
 }

@@ -121,14 +121,12 @@ export const systemRoutes = defineRoutes([
           calibrationForm,
           req,
         )
-        res
-          .status(201)
-          .json(
-            await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, {
-              replaceActive,
-              dataSetId,
-            }),
-          )
+        res.status(201).json(
+          await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, {
+            replaceActive,
+            dataSetId,
+          }),
+        )
       },
     ],
   },
