@@ -65,6 +65,19 @@ export interface PointDto {
   calibrationId: string | null
   /** Lines of the uploaded file the point came from (the header is line 1). */
   rowRefs: number[]
+  /**
+   * The liquid in the still had split into two layers: x1 is the overall liquid composition, T the three-phase
+   * temperature and y1 the three-phase vapour. Absent on points stored before this field existed.
+   */
+  heterogeneous?: boolean
+  /** Both analysed layers of a heterogeneous point, x1 ascending (I poorer in component 1); null when not analysed. */
+  liquidPhases?: [LiquidLayerDto, LiquidLayerDto] | null
+}
+
+/** One liquid layer of a heterogeneous point: x1 with its standard uncertainty (k = 1). */
+export interface LiquidLayerDto {
+  x1: number
+  uncertainty: number
 }
 
 /** Activity models a fit can use. */

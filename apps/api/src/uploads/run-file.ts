@@ -2,12 +2,14 @@
  * The Ebullio run sheet (docs/csv-formats.md): one row per GC injection of an equilibrium
  * sample's liquid or vapour phase, with the sample's boiling temperature and barometric
  * pressure on at least one of its rows. Columns: sample, phase, injection, area_1, area_2,
- * t_boil, t_unit, p_baro, p_unit.
+ * t_boil, t_unit, p_baro, p_unit; optional `layers` (2 when the liquid in the still had split into two
+ * layers), with the layers' own injections as phases `upper` and `lower`.
  */
 import { toKelvin, toPascal, type PressureUnitName, type TemperatureUnitName } from '@ebullio/thermo'
 import { areaCell, injectionCell, type ParsedInjection } from './calibration-file.js'
 import { mapColumns, parseNumber, readCsvTable, type CsvFormat } from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
+import { checkLayers, PHASE_WORDS, readLayers } from './run-layers.js'
 
 export const RUN_REQUIRED = [
   'sample',
@@ -20,6 +22,7 @@ export const RUN_REQUIRED = [
   'p_baro',
   'p_unit',
 ] as const
+export const RUN_OPTIONAL = ['layers'] as const
 
 /** Plausible bounds for a boiling measurement (SI). Defaults: 150–650 K, 0.5 kPa–5 MPa. */
 export interface PlausibleBounds {
@@ -43,7 +46,8 @@ const PRESSURE_UNITS: Record<string, PressureUnitName> = Object.fromEntries(
     u,
   ]),
 )
-const PHASES: Record<string, 'liquid' | 'vapour'> = {
+export type RunPhase = 'liquid' | 'vapour' | 'upper' | 'lower'
+const PHASES: Record<string, RunPhase> = {
   liquid: 'liquid',
   l: 'liquid',
   liq: 'liquid',
@@ -51,6 +55,10 @@ const PHASES: Record<string, 'liquid' | 'vapour'> = {
   vapor: 'vapour',
   v: 'vapour',
   vap: 'vapour',
+  upper: 'upper',
+  top: 'upper',
+  lower: 'lower',
+  bottom: 'lower',
 }
 
 /** One equilibrium state gathered from its rows. */
@@ -61,8 +69,14 @@ export interface RunSample {
   temperatureK: number
   pressurePa: number
   raw: { temperature: string; temperatureUnit: string; pressure: string; pressureUnit: string }
+  /** injections of the whole liquid (for a two-layer sample: its overall composition) */
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  /** the analyst saw two liquid layers in the still (`layers` = 2) */
+  heterogeneous: boolean
+  /** injections of each separated layer of a two-layer sample; both empty when the layers were not analysed */
+  upper: ParsedInjection[]
+  lower: ParsedInjection[]
   /** every line of the sample by the phase it names (`unknown`: phase missing or unreadable), used or not */
   phaseRows: PhaseRows
 }
@@ -71,6 +85,8 @@ export interface RunSample {
 export interface PhaseRows {
   liquid: number[]
   vapour: number[]
+  upper: number[]
+  lower: number[]
   unknown: number[]
 }
 
@@ -84,17 +100,20 @@ export interface RunFileParse {
   problems: UploadProblem[]
 }
 
-interface Draft {
+export interface Draft {
   label: string
   rows: number[]
   t?: { value: number; unit: TemperatureUnitName; raw: string; rawUnit: string; line: number }
   p?: { value: number; unit: PressureUnitName; raw: string; rawUnit: string; line: number }
+  layers?: { value: 1 | 2; raw: string; line: number }
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  upper: ParsedInjection[]
+  lower: ParsedInjection[]
   phaseRows: PhaseRows
 }
 
-type Cells = (name: string) => string
+export type Cells = (name: string) => string
 
 /** Read the optional T and P cells of a row into the sample; conflicting repeats are problems. */
 function readConditions(cell: Cells, line: number, dc: boolean, s: Draft, problems: UploadProblem[]): void {
@@ -149,16 +168,25 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
   }
   let s = samples.get(label)
   if (!s) {
-    s = { label, rows: [], liquid: [], vapour: [], phaseRows: { liquid: [], vapour: [], unknown: [] } }
+    s = {
+      label,
+      rows: [],
+      liquid: [],
+      vapour: [],
+      upper: [],
+      lower: [],
+      phaseRows: { liquid: [], vapour: [], upper: [], lower: [], unknown: [] },
+    }
     samples.set(label, s)
   }
   s.rows.push(line)
   readConditions(cell, line, dc, s, problems)
+  readLayers(cell, line, s, problems)
   const phaseRaw = cell('phase')
   const phase = PHASES[phaseRaw.toLowerCase()]
   s.phaseRows[phase ?? 'unknown'].push(line)
   if (phaseRaw === '') problems.push(uploadError(line, 'phase', '', 'Phase is missing; use liquid or vapour.'))
-  else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid or vapour.'))
+  else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid, vapour, upper or lower.'))
   const injection = injectionCell(cell, line, dc, problems)
   const area1 = areaCell(cell, 'area_1', line, dc, problems)
   const area2 = areaCell(cell, 'area_2', line, dc, problems)
@@ -170,7 +198,7 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
         line,
         'injection',
         cell('injection'),
-        `Injection ${injection} of the ${phase} of sample ${label} appears twice.`,
+        `Injection ${injection} of the ${PHASE_WORDS[phase]} of sample ${label} appears twice.`,
       ),
     )
   } else {
@@ -191,7 +219,8 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
     )
   if (!s.t) problems.push(uploadError(first, 't_boil', null, `Sample ${s.label} has no boiling temperature.`))
   if (!s.p) problems.push(uploadError(first, 'p_baro', null, `Sample ${s.label} has no pressure.`))
-  if (!s.t || !s.p || s.liquid.length === 0 || s.vapour.length === 0) return null
+  const layersOk = checkLayers(s, problems)
+  if (!s.t || !s.p || s.liquid.length === 0 || s.vapour.length === 0 || !layersOk) return null
   const temperatureK = toKelvin(s.t.value, s.t.unit)
   const pressurePa = toPascal(s.p.value, s.p.unit)
   const [tMin, tMax] = bounds.temperatureK
@@ -229,6 +258,9 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
     raw: { temperature: s.t.raw, temperatureUnit: s.t.rawUnit, pressure: s.p.raw, pressureUnit: s.p.rawUnit },
     liquid: s.liquid,
     vapour: s.vapour,
+    heterogeneous: s.layers?.value === 2,
+    upper: s.upper,
+    lower: s.lower,
     phaseRows: s.phaseRows,
   }
 }
@@ -236,7 +268,7 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
 /** Parse a run sheet. Pure: no database; compositions are computed later with a calibration. */
 export function parseRunFile(content: Buffer | string, bounds: PlausibleBounds = DEFAULT_BOUNDS): RunFileParse {
   const table = readCsvTable(content)
-  const map = mapColumns(table.header, RUN_REQUIRED)
+  const map = mapColumns(table.header, RUN_REQUIRED, RUN_OPTIONAL)
   const problems = [...table.problems, ...map.problems]
   const base = {
     format: table.format,
@@ -248,7 +280,10 @@ export function parseRunFile(content: Buffer | string, bounds: PlausibleBounds =
   if (problems.length > 0) return { ...base, samples: [], problems }
   const drafts = new Map<string, Draft>()
   for (const row of table.rows) {
-    const cell: Cells = (name) => (row.cells[map.columns[name].index] ?? '').trim()
+    const cell: Cells = (name) => {
+      const col = map.columns[name]
+      return col ? (row.cells[col.index] ?? '').trim() : ''
+    }
     readRow(cell, row.line, table.format.decimalComma, drafts, problems)
   }
   if (table.rows.length === 0) problems.push(uploadError(null, null, null, 'The file has a header but no data rows.'))
