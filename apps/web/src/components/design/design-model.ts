@@ -5,7 +5,6 @@
 import {
   bubbleTemperature,
   fenske,
-  findAzeotrope,
   mccabeThiele,
   minimumReflux,
   phaseDiagram,
@@ -17,6 +16,7 @@ import {
   type VaporPressureModel,
 } from '@ebullio/thermo'
 import type { MeasuredData, ParametersExport } from '../../api/catalogue'
+import { allAzeotropes, isobaricDiagram, type AnyAzeotrope, type ThreePhaseLine } from '../../utils/thermo-lle'
 import { isRangeWarning } from './design-limits'
 import type { TxyPoint } from '../plots'
 
@@ -96,8 +96,15 @@ export interface DiagramsAt {
   T: number[]
   /** Relative volatility α12 at each x1 of the diagram (infinite-dilution values at the ends). */
   alpha: number[]
+  /** the first azeotrope (by x1), for the column screen's first targets */
   azeotrope: Azeotrope | null
+  /** every azeotrope at P with its kind; a heterogeneous one carries its two liquid layers */
+  azeotropes: AnyAzeotrope[]
   azeotropeNote: string | null
+  /** where the model's liquid boils as two layers (null: one liquid at every composition) */
+  threePhase: ThreePhaseLine | null
+  /** the two-liquid region below the three-phase line */
+  twoLiquids: { T: number[]; x1I: number[]; x1II: number[] } | null
   pure: { T1: number; T2: number }
   /** Bubble points at round liquid compositions 0, 0.1 … 1 for the on-screen table. */
   table: { x1: number; y1: number; T: number; alpha: number }[]
@@ -114,12 +121,11 @@ function roundTable(system: BinarySystem, P: number): DiagramsAt['table'] {
 
 /** T–x–y, x–y, α across composition and the azeotrope at pressure P (Pa). */
 export function diagramsAt(system: BinarySystem, P: number, points = 101): DiagramsAt {
-  const d = phaseDiagram(system, { P }, { points })
-  if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
-  let azeotrope: Azeotrope | null = null
+  const d = isobaricDiagram(system, P, { points, lle: true })
+  let azeotropes: AnyAzeotrope[] = []
   let azeotropeNote: string | null = null
   try {
-    azeotrope = findAzeotrope(system, { P })
+    azeotropes = allAzeotropes(system, { P })
   } catch (e) {
     azeotropeNote = errorText(e)
   }
@@ -135,8 +141,11 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
     y1: d.y1,
     T: d.T,
     alpha,
-    azeotrope,
+    azeotrope: (azeotropes[0] as Azeotrope | undefined) ?? null,
+    azeotropes,
     azeotropeNote,
+    threePhase: d.threePhase ?? null,
+    twoLiquids: d.lle ?? null,
     pure: { T1: d.T[n - 1], T2: d.T[0] },
     table: roundTable(system, P),
     warnings: d.warnings,

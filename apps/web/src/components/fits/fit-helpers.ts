@@ -2,7 +2,8 @@
  * Pure helpers of the fit panel and plots, with no engine code, so the workspace can show tables at once
  * while @ebullio/thermo (which brings mathjs) loads in the background for the curves.
  */
-import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/thermo'
+import type { Azeotrope, VaporPressureModel } from '@ebullio/thermo'
+import type { AnyAzeotrope, IsobaricDiagram } from '../../utils/thermo-lle'
 import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
 
 /** Display names of the models, in the order the fit panel offers them. */
@@ -69,8 +70,11 @@ export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPre
 export interface FitCurve {
   fitId: string
   name: string
-  diagram: PhaseDiagram & { kind: 'isobaric' }
+  /** with the three-phase line and the two-liquid region when the model predicts a liquid split */
+  diagram: IsobaricDiagram
   azeotrope: Azeotrope | null
+  /** every azeotrope at the data set's pressure, with its kind */
+  azeotropes: AnyAzeotrope[]
 }
 
 /** Residuals of one fit, tolerant of the field names thermo and the server may use: ΔT in K, Δy mole fraction. */
