@@ -117,6 +117,19 @@ export interface ApprovedVersionDto<D = string> {
   nominalPressurePa: number
   approvedAt: D | null
   recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+  /** What the recommended fit says about the liquid splitting; null without a fit or when it cannot be computed. */
+  miscibility?: CatalogueMiscibilityDto | null
+}
+
+/**
+ * A partially miscible system in the catalogue: `partial` when the recommended fit predicts two liquid layers at
+ * room temperature (`atRoomTemperature`, T in K) or a three-phase line at the version's pressure (`threePhase`,
+ * T in K, liquids x1I < x1II, vapour y1).
+ */
+export interface CatalogueMiscibilityDto {
+  partial: boolean
+  atRoomTemperature: { T: number; x1I: number; x1II: number } | null
+  threePhase: { T: number; x1I: number; x1II: number; y1: number } | null
 }
 
 /** One system of the engineers' catalogue: its approved versions (newest first) and the superseded ones. */

@@ -37,3 +37,10 @@ export function isobaricDiagram(
   if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
   return d as IsobaricDiagram
 }
+
+/** The two coexisting liquids at T (K), or null (also null while the engine lacks the function). */
+export function liquidLiquid(system: BinarySystem, T: number): { x1I: number; x1II: number } | null {
+  const lle = (thermo as unknown as Record<string, unknown>).liquidLiquidEquilibrium as
+    ((s: BinarySystem, at: { T: number }) => { x1I: number; x1II: number } | null) | undefined
+  return lle ? lle(system, { T }) : null
+}
