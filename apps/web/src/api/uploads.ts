@@ -112,7 +112,7 @@ function send<T>(url: string, form: FormData, onProgress?: (fraction: number) =>
     xhr.onerror = () =>
       reject(new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.'))
     xhr.onload = () => {
-      let data: unknown = null
+      let data: unknown
       try {
         data = JSON.parse(xhr.responseText)
       } catch {
