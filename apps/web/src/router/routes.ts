@@ -1,8 +1,6 @@
 import { WEB_PATHS } from '@ebullio/schemas/web-paths'
 import type { RouteRecordRaw } from 'vue-router'
 
-const Placeholder = () => import('../views/PlaceholderView.vue')
-
 /** Every page of the app; paths come from WEB_PATHS (@ebullio/schemas), which the API's mail links use too. */
 export const appRoutes: RouteRecordRaw[] = [
   { path: WEB_PATHS.home, name: 'home', component: () => import('../views/HomeView.vue'), meta: { title: 'Overview' } },
