@@ -59,7 +59,7 @@ export interface PreviewSample {
 }
 
 export interface UploadPreview {
-  kind: 'calibration' | 'run'
+  kind: 'calibration' | 'run' | 'points'
   /** the token the commit call refers to (the server keeps the bytes until then), when the server uses one */
   previewId?: string
   fileName?: string
