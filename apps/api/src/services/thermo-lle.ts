@@ -44,3 +44,7 @@ export function liquidLiquid(system: BinarySystem, T: number): { x1I: number; x1
     ((s: BinarySystem, at: { T: number }) => { x1I: number; x1II: number } | null) | undefined
   return lle ? lle(system, { T }) : null
 }
+
+/** True once the engine computes liquid–liquid splitting (the demo's partially miscible data set needs it). */
+export const ENGINE_HAS_LLE =
+  typeof (thermo as unknown as Record<string, unknown>).liquidLiquidEquilibrium === 'function'
