@@ -99,9 +99,7 @@ export function runCsv(
     const x1 = 0.04 + (0.92 * (i + 0.5 * rand())) / Math.max(o.samples - 0.5, 1)
     const P = o.pressurePa + noise.barometer * gaussian(rand)
     // Inside the two-liquid gap the engine returns the three-phase bubble point with both layers.
-    const bubble = bubbleTemperature(model, { P, x1 }) as ReturnType<typeof bubbleTemperature> & {
-      liquidPhases?: [number, number]
-    }
+    const bubble = bubbleTemperature(model, { P, x1 })
     const label = `${o.prefix}-${String(i + 1).padStart(2, '0')}`
     states.push({ label, x1, y1: bubble.y1, T: bubble.T, P, liquidPhases: bubble.liquidPhases })
     const tC = bubble.T - 273.15 + noise.thermometer * gaussian(rand)

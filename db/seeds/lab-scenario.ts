@@ -11,7 +11,6 @@ import * as datasets from '../../apps/api/src/services/datasets.service.js'
 import * as fits from '../../apps/api/src/services/fits.service.js'
 import type { FitModelName } from '../../apps/api/src/services/fits.service.js'
 import { commitRun } from '../../apps/api/src/services/uploads.service.js'
-import { ENGINE_HAS_LLE } from '../../apps/api/src/services/thermo-lle.js'
 import * as workflow from '../../apps/api/src/services/workflow.service.js'
 import { DEMO_SYSTEMS } from './demo-systems.js'
 import { runCsv } from './gc-generator.js'
@@ -122,7 +121,7 @@ async function moreSubmitted(ctx: SeedContext): Promise<void> {
  */
 export const WATER_BUTANOL_TITLE = 'SR-31 decanter feed: water/1-butanol at 1 atm'
 async function partiallyMiscible(ctx: SeedContext): Promise<void> {
-  if (!ENGINE_HAS_LLE || (await exists(ctx, WATER_BUTANOL_TITLE))) return
+  if (await exists(ctx, WATER_BUTANOL_TITLE)) return
   const d = await draftWithRun(ctx, 'water-1-butanol', {
     title: WATER_BUTANOL_TITLE,
     project: 'SR-31',

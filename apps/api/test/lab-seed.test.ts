@@ -4,7 +4,6 @@ import { seedLab } from '../../../db/seeds/lab.js'
 import { seedUsers } from '../../../db/seeds/users.js'
 import { createTestContext, resetDatabase, type TestContext } from './helpers.js'
 import { labCounts } from './lab-fixture.js'
-import { ENGINE_HAS_LLE } from '../src/services/thermo-lle.js'
 
 let t: TestContext
 beforeAll(async () => {
@@ -22,19 +21,17 @@ describe('demo scenario (invented data)', () => {
       n: number
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
-      approved: ENGINE_HAS_LLE ? 3 : 2,
+      approved: 3,
       draft: 1,
       returned: 1,
       submitted: 3,
       superseded: 1,
     })
     expect((await sql<{ n: number }>`select count(*)::int as n from binary_system`.execute(t.db)).rows[0].n).toBe(6)
-    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(
-      ENGINE_HAS_LLE ? 5 : 4,
-    )
+    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(5)
     expect(
       (await sql<{ n: number }>`select count(*)::int as n from upload where kind = 'run'`.execute(t.db)).rows[0].n,
-    ).toBe(ENGINE_HAS_LLE ? 8 : 7)
+    ).toBe(8)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)

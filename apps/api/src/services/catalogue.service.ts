@@ -1,6 +1,13 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
 import type { CatalogueEntryDto, CatalogueMiscibilityDto } from '@ebullio/schemas'
-import { relativeVolatility, type ActivityModel } from '@ebullio/thermo'
+import {
+  findAzeotropes,
+  liquidLiquidEquilibrium,
+  phaseDiagram,
+  relativeVolatility,
+  type ActivityModel,
+  type PhaseDiagram,
+} from '@ebullio/thermo'
 import { sql } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
@@ -10,7 +17,6 @@ import { findFit } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
-import { allAzeotropes, isobaricDiagram, liquidLiquid } from './thermo-lle.js'
 
 /** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
 const ROOM_T = 298.15
@@ -88,8 +94,9 @@ function miscibilityOf(
   if (!inputs) return null
   try {
     const system = binarySystem(inputs, activity)
-    const room = liquidLiquid(system, ROOM_T)
-    const threePhase = isobaricDiagram(system, P, { points: 21 }).threePhase ?? null
+    const room = liquidLiquidEquilibrium(system, { T: ROOM_T })
+    const d = phaseDiagram(system, { P }, { points: 21 })
+    const threePhase = d.kind === 'isobaric' ? (d.threePhase ?? null) : null
     return {
       partial: room !== null || threePhase !== null,
       atRoomTemperature: room && { T: ROOM_T, x1I: room.x1I, x1II: room.x1II },
@@ -123,8 +130,12 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
   const chosen = await chosenActivity(db, d, o.fitId)
   const inputs = await engineInputs(db, d.systemId)
   const system = binarySystem(inputs, chosen.activity)
-  const diagram = thermo('T–x–y curve', () => isobaricDiagram(system, o.P, { points: o.points, lle: true }))
-  const azeotropes = thermo('Azeotrope search', () => allAzeotropes(system, { P: o.P }))
+  const diagram = thermo(
+    'T–x–y curve',
+    () =>
+      phaseDiagram(system, { P: o.P }, { points: o.points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
+  )
+  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P: o.P }))
   // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
   const gap = diagram.threePhase
   const volatility = Array.from({ length: 21 }, (_, i) => i / 20)

@@ -5,6 +5,7 @@
 import {
   bubbleTemperature,
   fenske,
+  findAzeotropes,
   mccabeThiele,
   minimumReflux,
   phaseDiagram,
@@ -13,10 +14,10 @@ import {
   type Azeotrope,
   type BatchFrame,
   type BinarySystem,
+  type ThreePhaseLineIsobaric,
   type VaporPressureModel,
 } from '@ebullio/thermo'
 import type { MeasuredData, ParametersExport } from '../../api/catalogue'
-import { allAzeotropes, isobaricDiagram, type AnyAzeotrope, type ThreePhaseLine } from '../../utils/thermo-lle'
 import { isRangeWarning } from './design-limits'
 import type { TxyPoint } from '../plots'
 
@@ -99,10 +100,10 @@ export interface DiagramsAt {
   /** the first azeotrope (by x1), for the column screen's first targets */
   azeotrope: Azeotrope | null
   /** every azeotrope at P with its kind; a heterogeneous one carries its two liquid layers */
-  azeotropes: AnyAzeotrope[]
+  azeotropes: Azeotrope[]
   azeotropeNote: string | null
   /** where the model's liquid boils as two layers (null: one liquid at every composition) */
-  threePhase: ThreePhaseLine | null
+  threePhase: ThreePhaseLineIsobaric | null
   /** the two-liquid region below the three-phase line */
   twoLiquids: { T: number[]; x1I: number[]; x1II: number[] } | null
   pure: { T1: number; T2: number }
@@ -121,11 +122,12 @@ function roundTable(system: BinarySystem, P: number): DiagramsAt['table'] {
 
 /** T–x–y, x–y, α across composition and the azeotrope at pressure P (Pa). */
 export function diagramsAt(system: BinarySystem, P: number, points = 101): DiagramsAt {
-  const d = isobaricDiagram(system, P, { points, lle: true })
-  let azeotropes: AnyAzeotrope[] = []
+  const d = phaseDiagram(system, { P }, { points, lle: true })
+  if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
+  let azeotropes: Azeotrope[] = []
   let azeotropeNote: string | null = null
   try {
-    azeotropes = allAzeotropes(system, { P })
+    azeotropes = findAzeotropes(system, { P })
   } catch (e) {
     azeotropeNote = errorText(e)
   }
@@ -141,7 +143,7 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
     y1: d.y1,
     T: d.T,
     alpha,
-    azeotrope: (azeotropes[0] as Azeotrope | undefined) ?? null,
+    azeotrope: azeotropes[0] ?? null,
     azeotropes,
     azeotropeNote,
     threePhase: d.threePhase ?? null,

@@ -3,8 +3,7 @@
  * activity model and the system's vapour-pressure sets (so toggling a model never waits for the server).
  * Loaded on demand by the workspace: this module is the one that pulls the engine into the page.
  */
-import type { ActivityModel, Azeotrope, BinarySystem } from '@ebullio/thermo'
-import { allAzeotropes, isobaricDiagram, type AnyAzeotrope } from '../../utils/thermo-lle'
+import { findAzeotropes, phaseDiagram, type ActivityModel, type Azeotrope, type BinarySystem } from '@ebullio/thermo'
 import type { DataSetDetail } from '../../api/datasets'
 import { fitLabel, vaporPressureOf, type FitCurve } from './fit-helpers'
 
@@ -26,14 +25,14 @@ export function fitCurves(d: DataSetDetail): {
         names: [d.system.component1.name, d.system.component2.name],
       }
       // lle: the two-liquid region below the three-phase line, drawn when the model predicts a split
-      const diagram = isobaricDiagram(system, P, { points: 81, lle: true })
-      let azeotropes: AnyAzeotrope[] = []
+      const diagram = phaseDiagram(system, { P }, { points: 81, lle: true }) as FitCurve['diagram']
+      let azeotropes: Azeotrope[] = []
       try {
-        azeotropes = allAzeotropes(system, { P })
+        azeotropes = findAzeotropes(system, { P })
       } catch {
         azeotropes = []
       }
-      return { fitId: id, name, diagram, azeotrope: (azeotropes[0] as Azeotrope | undefined) ?? null, azeotropes }
+      return { fitId: id, name, diagram, azeotrope: azeotropes[0] ?? null, azeotropes }
     } catch (e) {
       failed.push({ name, message: (e as Error).message })
       return null

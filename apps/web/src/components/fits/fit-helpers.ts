@@ -2,8 +2,7 @@
  * Pure helpers of the fit panel and plots, with no engine code, so the workspace can show tables at once
  * while @ebullio/thermo loads in the background for the curves.
  */
-import type { Azeotrope, VaporPressureModel } from '@ebullio/thermo'
-import type { AnyAzeotrope, IsobaricDiagram } from '../../utils/thermo-lle'
+import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/thermo'
 import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
 
 /** Display names of the models, in the order the fit panel offers them. */
@@ -71,10 +70,10 @@ export interface FitCurve {
   fitId: string
   name: string
   /** with the three-phase line and the two-liquid region when the model predicts a liquid split */
-  diagram: IsobaricDiagram
+  diagram: Extract<PhaseDiagram, { kind: 'isobaric' }>
   azeotrope: Azeotrope | null
   /** every azeotrope at the data set's pressure, with its kind */
-  azeotropes: AnyAzeotrope[]
+  azeotropes: Azeotrope[]
 }
 
 /** Residuals of one fit, tolerant of the field names thermo and the server may use: ΔT in K, Δy mole fraction. */
