@@ -36,12 +36,24 @@ function cellText(c: CsvCell): string {
   return neutraliseFormula(c)
 }
 
-/** A whole CSV file: the header, then the rows; `\n` line ends, RFC 4180 quoting where a cell needs it. */
-export function csvDocument(header: readonly string[], rows: readonly (readonly CsvCell[])[]): string {
-  return stringify([header.map(neutraliseFormula), ...rows.map((r) => r.map(cellText))], {
-    record_delimiter: '\n',
-    escape_formulas: false,
-  })
+/**
+ * A whole CSV file: optional `# ` comment lines (each one cell, quoted when it holds a delimiter, so no part of it
+ * lands in a cell of its own), the header, then the rows; `\n` line ends, RFC 4180 quoting where a cell needs it.
+ */
+export function csvDocument(
+  header: readonly string[],
+  rows: readonly (readonly CsvCell[])[],
+  comments: readonly string[] = [],
+): string {
+  const options = { record_delimiter: '\n', escape_formulas: false } as const
+  const head =
+    comments.length > 0
+      ? stringify(
+          comments.map((c) => [`# ${c}`]),
+          options,
+        )
+      : ''
+  return head + stringify([header.map(neutraliseFormula), ...rows.map((r) => r.map(cellText))], options)
 }
 
 /**
