@@ -110,6 +110,12 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: { title: 'Your account', nav: { group: 'You', label: 'Your account', icon: 'pi pi-user', order: 90 } },
   },
   {
+    path: '/verify/:id',
+    name: 'verify-report',
+    component: () => import('../views/reports/VerifyReportView.vue'),
+    meta: { title: 'Verify a printed report' },
+  },
+  {
     path: '/forbidden',
     name: 'forbidden',
     component: () => import('../views/ForbiddenView.vue'),
