@@ -22,6 +22,7 @@ const schema = z.object({
     .int()
     .positive()
     .default(5 * 1024 * 1024),
+  UPLOAD_MAX_ROWS: z.coerce.number().int().positive().default(20_000),
   JSON_LIMIT: z.string().default('1mb'),
   SERVE_WEB: bool.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -60,6 +61,8 @@ export interface Config {
   cookieSecure: 'auto' | 'true' | 'false'
   demoData: boolean
   uploadMaxBytes: number
+  /** data rows one uploaded CSV file may hold (its header not counted) */
+  uploadMaxRows: number
   jsonLimit: string
   serveWeb: boolean
   logLevel: string
@@ -97,6 +100,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     cookieSecure: e.COOKIE_SECURE,
     demoData: e.DEMO_DATA,
     uploadMaxBytes: e.UPLOAD_MAX_BYTES,
+    uploadMaxRows: e.UPLOAD_MAX_ROWS,
     jsonLimit: e.JSON_LIMIT,
     serveWeb: e.SERVE_WEB,
     logLevel: e.LOG_LEVEL,

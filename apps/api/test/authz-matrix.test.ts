@@ -81,6 +81,12 @@ const expected: Record<string, Access> = {
   // printed reports (issue 11): engineers get 404 for versions not approved or superseded
   'GET /api/data-sets/:id/report.pdf': 'authenticated',
   'GET /api/reports/:id/verify': 'authenticated',
+  'POST /api/data-sets/:id/points': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/point-sheets/preview': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/point-sheets': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/own-measurement': ['lead_chemist'],
+  'GET /api/check-measurements': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'POST /api/check-measurements': ['analyst', 'lead_chemist'],
 }
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`

@@ -6,6 +6,7 @@ import { catalogueRoutes } from './catalogue.routes.js'
 import { componentRoutes } from './components.routes.js'
 import { dataSetRoutes } from './datasets.routes.js'
 import { reportRoutes } from './reports.routes.js'
+import { directDataRoutes } from './direct-data.routes.js'
 import { reviewRoutes } from './review.routes.js'
 import { systemRoutes } from './systems.routes.js'
 
@@ -21,6 +22,7 @@ export const allRoutes: RouteDef[] = [
   ...componentRoutes,
   ...systemRoutes,
   ...dataSetRoutes,
+  ...directDataRoutes,
   ...reviewRoutes,
   ...catalogueRoutes,
   ...auditRoutes,

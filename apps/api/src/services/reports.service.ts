@@ -2,6 +2,7 @@
  * The signed report: a printable PDF of one data set version, registered with a report id that leads to the
  * verify page, and the verification itself (the digest printed then against the stored record now).
  */
+import { webLink } from '@ebullio/schemas'
 import { phaseDiagram, type ActivityModel } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
@@ -23,7 +24,8 @@ import type { ReportCurve, ReportModel } from './report/report-model.js'
 import { binarySystem, engineInputs } from './systems.service.js'
 
 /** The page of the web app that verifies a report. */
-export const verifyUrl = (config: Config, reportId: string) => `${config.publicUrl}/verify/${reportId}`
+export const verifyUrl = (config: Config, reportId: string) =>
+  webLink(config.publicUrl, 'verifyReport', { id: reportId })
 
 /** Generate, register and render the report of a data set version. */
 export async function generateReport(
