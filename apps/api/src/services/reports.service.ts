@@ -110,6 +110,11 @@ function recommendedCurve(
   inputs: Awaited<ReturnType<typeof engineInputs>>,
 ): { curve: ReportCurve | null; curveNote: string | null } {
   const fit = fits.find((f) => f.id === d.recommendedFitId)
+  if (d.layout === 'pxy')
+    return {
+      curve: null,
+      curveNote: 'Isothermal P–x–y data: the web app draws their curves; the report shows the measured points.',
+    }
   if (!fit)
     return { curve: null, curveNote: 'No fit is marked as recommended: the plots show the measured points only.' }
   try {

@@ -10,7 +10,7 @@ import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { ReportModel } from './report-model.js'
 import { residualsSvg, txySvg, xySvg } from './report-plots.js'
 import { methodSection, pointsSection, fitsSection, consistencySection, commentsSection } from './report-sections.js'
-import { dateTime, groupedDigest, reportNumber, stateText, watermarkFor } from './report-text.js'
+import { dateTime, groupedDigest, originText, reportNumber, stateText, watermarkFor } from './report-text.js'
 import { C, heading, keyValues, signatureSection } from './report-blocks.js'
 
 const require = createRequire(import.meta.url)
@@ -109,6 +109,7 @@ function titleBlock(m: ReportModel, number: string): Content {
                   keyValues([
                     ['Version', `${d.version} (${d.state})`],
                     ['Project', d.projectRef ?? '–'],
+                    ['Origin', d.origin === 'literature' ? 'Literature data (citation in section 1)' : originText(d)],
                     ['Still and apparatus', d.apparatusNotes ?? '–'],
                   ]),
                   keyValues([
@@ -168,7 +169,7 @@ function plotsSection(m: ReportModel): Content {
       },
       {
         columns: [
-          { svg: txySvg(m), width: 310 },
+          m.dataSet.layout === 'pxy' ? { text: '' } : { svg: txySvg(m), width: 310 },
           { svg: xySvg(m), width: 190 },
         ],
         columnGap: 8,

@@ -2,7 +2,7 @@
 import type { Content, TableCell } from 'pdfmake/interfaces'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
-import { calibrationModelName, dateTime, modelName, num, PARAMETER_UNITS, sig } from './report-text.js'
+import { calibrationModelName, dateTime, modelName, num, originText, PARAMETER_UNITS, sig } from './report-text.js'
 
 export function methodSection(m: ReportModel): Content {
   const c = (x: ReportModel['system']['component1'], i: number): [string, string] => [
@@ -15,6 +15,7 @@ export function methodSection(m: ReportModel): Content {
       keyValues([
         c(m.system.component1, 1),
         c(m.system.component2, 2),
+        ['Origin of the numbers', originText(m.dataSet)],
         ['Still and apparatus', m.dataSet.apparatusNotes ?? 'not recorded'],
         ...m.vaporPressure.map((v): [string, string] => [`Vapour pressure`, `${v.component}: ${v.kind}, ${v.source}`]),
       ]),

@@ -78,3 +78,35 @@ export function stateText(state: string): string {
     }[state] ?? state
   )
 }
+
+/** Where the numbers come from, in words, with the full citation of literature data. */
+export function originText(d: {
+  origin?: 'gc' | 'other-method' | 'literature'
+  originMethod?: string | null
+  citation?: {
+    authors: string
+    title: string
+    source: string
+    year: number
+    volume: string | null
+    pages: string | null
+    doi: string | null
+    table: string | null
+  } | null
+  countsAsOwn?: boolean
+  countsAsOwnReason?: string | null
+}): string {
+  if (d.origin === 'other-method')
+    return `Measured here by another method${d.originMethod ? `: ${d.originMethod}` : ''}`
+  if (d.origin === 'literature') {
+    const c = d.citation
+    const cite = c
+      ? `${c.authors} (${c.year}). ${c.title}. ${c.source}${c.volume ? ` ${c.volume}` : ''}${c.pages ? `, ${c.pages}` : ''}.${c.table ? ` ${c.table}.` : ''}${c.doi ? ` doi:${c.doi}` : ''}`
+      : 'citation not recorded'
+    const own = d.countsAsOwn
+      ? ` Marked by a lead chemist as the lab's own measurement${d.countsAsOwnReason ? `: ${d.countsAsOwnReason}` : ''}.`
+      : ''
+    return `Literature data: ${cite}${own}`
+  }
+  return 'Measured here by GC'
+}
