@@ -6,7 +6,15 @@ import type { ActivityModel } from '../types.js'
 import { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
 
 /** The models fitBinary can fit. */
-export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
+
+/** UNIQUAC's pure-component structure parameters (volume r and area q), dimensionless. */
+export interface UniquacStructure {
+  r1: number
+  r2: number
+  q1: number
+  q2: number
+}
 
 /** A parameter layout: build a model from p, say whether p is allowed, and where to start. */
 export interface ParameterLayout {
@@ -24,12 +32,22 @@ function grid(values: number[]): number[][] {
   return values.flatMap((a) => values.map((b) => [a, b]))
 }
 
-/** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha). */
+/** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha); r, q for UNIQUAC. */
 export function parameterLayout(
   model: FittableModel,
-  opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean },
+  opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean; uniquac?: UniquacStructure },
 ): ParameterLayout {
   switch (model) {
+    case 'uniquac': {
+      const rq = opts.uniquac as UniquacStructure
+      return {
+        names: ['a12', 'a21'],
+        scales: [100, 100],
+        build: (p) => ({ kind: 'uniquac', a12: p[0], a21: p[1], ...rq }),
+        valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5,
+        starts: grid(ENERGY_GRID),
+      }
+    }
     case 'margules':
       return {
         names: ['A12', 'A21'],
