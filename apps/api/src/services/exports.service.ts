@@ -7,7 +7,18 @@ import { listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
-import { csvDocument, dataSetFileName, pointsCsv as writePointsCsv, type CsvCell } from '@ebullio/schemas/csv-exports'
+import {
+  csvDocument,
+  dataSetFileName,
+  pointsCsv as writePointsCsv,
+  slugify,
+  type CsvCell,
+} from '@ebullio/schemas/csv-exports'
+
+/** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
+export function fileStem(d: { title: string; version: number }): string {
+  return `${slugify(d.title, 'data-set')}-v${d.version}`
+}
 
 export async function pointsCsv(db: Db, user: SessionUser, id: string): Promise<{ name: string; csv: string }> {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
