@@ -32,6 +32,18 @@ const schema = z.object({
   RESET_MINUTES: z.coerce.number().positive().default(30),
   ALLOW_SELF_APPROVAL: bool.default(false),
   REPLICATE_RSD_LIMIT: z.coerce.number().positive().max(1).default(0.02),
+  LAB_NAME: z.string().min(1).default('Ebullio laboratory'),
+  REPORT_TIME_ZONE: z
+    .string()
+    .default('UTC')
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en', { timeZone: tz })
+        return true
+      } catch {
+        return false
+      }
+    }, 'must be an IANA time zone such as UTC or Europe/Berlin'),
 })
 
 export interface Config {
@@ -60,6 +72,10 @@ export interface Config {
   resetMinutes: number
   allowSelfApproval: boolean
   replicateRsdLimit: number
+  /** printed at the head of every report */
+  labName: string
+  /** time zone (IANA) of the dates and times printed on reports */
+  reportTimeZone: string
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -94,5 +110,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     resetMinutes: e.RESET_MINUTES,
     allowSelfApproval: e.ALLOW_SELF_APPROVAL,
     replicateRsdLimit: e.REPLICATE_RSD_LIMIT,
+    labName: e.LAB_NAME,
+    reportTimeZone: e.REPORT_TIME_ZONE,
   }
 }

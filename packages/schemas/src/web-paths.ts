@@ -17,6 +17,7 @@ export const WEB_PATHS = {
   adminMail: '/admin/mail',
   account: '/account',
   forbidden: '/forbidden',
+  verifyReport: '/verify/:id',
   signIn: '/sign-in',
   forgotPassword: '/forgot-password',
   resetPassword: '/reset-password/:token',

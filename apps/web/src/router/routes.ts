@@ -109,6 +109,12 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: { title: 'Your account', nav: { group: 'You', label: 'Your account', icon: 'pi pi-user', order: 90 } },
   },
   {
+    path: WEB_PATHS.verifyReport,
+    name: 'verify-report',
+    component: () => import('../views/reports/VerifyReportView.vue'),
+    meta: { title: 'Verify a printed report' },
+  },
+  {
     path: WEB_PATHS.forbidden,
     name: 'forbidden',
     component: () => import('../views/ForbiddenView.vue'),

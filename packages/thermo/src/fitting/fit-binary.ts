@@ -20,6 +20,8 @@ export interface FitBinaryOptions {
   V2?: number
   /** UNIQUAC structure parameters r and q of both components (UNIQUAC only). */
   uniquac?: UniquacStructure
+  /** NRTL or Wilson energies linear in T: b(T) = b + bT·(T − 298.15 K), bT fitted (J/(mol·K)); α held. */
+  temperatureDependent?: boolean
   /** NRTL α, default 0.3 (fixed unless fitAlpha). */
   alpha?: number
   fitAlpha?: boolean
@@ -82,6 +84,7 @@ export interface FitBinaryResult {
     V1?: number
     V2?: number
     uniquac?: UniquacStructure
+    temperatureDependent?: boolean
     alpha: number
     fitAlpha: boolean
     sigmaT: number
@@ -147,6 +150,7 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
     V1: options.V1,
     V2: options.V2,
     uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
     alpha,
     fitAlpha,
   })
@@ -316,6 +320,7 @@ function finishFit(
       V1: options.V1,
       V2: options.V2,
       uniquac: options.uniquac,
+      temperatureDependent: options.temperatureDependent,
       alpha: nrtl.alpha,
       fitAlpha: nrtl.fitAlpha,
       sigmaT,
@@ -341,6 +346,7 @@ export function fitTemperatureOnly(options: FitBinaryOptions): {
     V1: options.V1,
     V2: options.V2,
     uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
     alpha,
     fitAlpha: false,
   })

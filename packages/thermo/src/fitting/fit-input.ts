@@ -64,6 +64,7 @@ export function checkModelOptions(o: {
   fitAlpha?: boolean
   objective?: string
   uniquac?: UniquacStructure
+  temperatureDependent?: boolean
 }): void {
   if (!Object.hasOwn(MODEL_NAMES, o.model)) {
     throw new ThermoError(
@@ -92,6 +93,15 @@ export function checkModelOptions(o: {
         'UNIQUAC needs the structure parameters r1, r2, q1 and q2 (positive numbers) of both components.',
       )
     }
+  }
+  if (o.temperatureDependent && o.model !== 'nrtl' && o.model !== 'wilson') {
+    throw new ThermoError('invalid-input', 'Temperature-dependent parameters are available for NRTL and Wilson only.')
+  }
+  if (o.temperatureDependent && o.fitAlpha) {
+    throw new ThermoError(
+      'invalid-input',
+      'With temperature-dependent parameters NRTL α is held; choose α instead of fitting it.',
+    )
   }
   if (o.fitAlpha && o.model !== 'nrtl') throw new ThermoError('invalid-input', 'fitAlpha applies to NRTL only.')
   if (o.alpha !== undefined && !(o.alpha > 0 && o.alpha <= 1)) {
