@@ -76,8 +76,9 @@ export interface FitBinaryResult {
    * Warnings a program can act on (their messages are also in `warnings`): 'spurious-liquid-split' — the
    * parameters predict two liquid layers in the data's temperature range that no point shows (x1I, x1II, T say
    * where); 'heterogeneous-points-not-split' — points marked as two layers but the model never splits.
+   * Always set by fitBinary (optional only for results built elsewhere).
    */
-  namedWarnings: NamedFitWarning[]
+  namedWarnings?: NamedFitWarning[]
   /** What is needed to rebuild the parameter layout (prediction bands, suggestions). */
   settings: {
     model: FittableModel

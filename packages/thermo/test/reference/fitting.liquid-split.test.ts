@@ -42,7 +42,7 @@ describe('fitBinary warns when the fitted parameters split a liquid the measurem
   for (const model of ['margules', 'van-laar', 'nrtl'] as const) {
     it(`${model}: named warning 'spurious-liquid-split' saying where, consistent with liquidLiquidEquilibrium`, () => {
       const fit = fitBinary({ points, vaporPressure: wilson.vaporPressure, model, alpha: 0.2 })
-      const w = fit.namedWarnings.find((n) => n.code === 'spurious-liquid-split')!
+      const w = fit.namedWarnings!.find((n) => n.code === 'spurious-liquid-split')!
       expect(w).toBeDefined()
       expect(fit.warnings).toContain(w.message)
       const lle = liquidLiquidEquilibrium(fit.system, { T: w.T! })!
@@ -110,7 +110,7 @@ describe('points marked heterogeneous are fitted as three-phase points', () => {
   it('fitted as one liquid (not marked), the same data give different parameters and the spurious-split warning', () => {
     const unmarked = points.map(({ heterogeneous: _h, ...p }) => p)
     const fit = fitBinary({ points: unmarked, vaporPressure: truth.vaporPressure, model: 'nrtl', alpha: 0.4447 })
-    expect(fit.namedWarnings.map((w) => w.code)).toEqual(['spurious-liquid-split'])
+    expect(fit.namedWarnings!.map((w) => w.code)).toEqual(['spurious-liquid-split'])
     expect(Math.abs(fit.parameters[0].value / R - 1325.33)).toBeGreaterThan(100)
   })
   it('a bad heterogeneous flag is refused with a message naming the point', () => {
