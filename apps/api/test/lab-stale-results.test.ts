@@ -338,6 +338,12 @@ describe('the signed digest', () => {
         nominalPressurePa: det.nominalPressurePa,
         apparatusNotes: det.apparatusNotes,
         projectRef: det.projectRef,
+        origin: det.origin,
+        originMethod: det.originMethod,
+        citation: det.citation,
+        countsAsOwn: det.countsAsOwn,
+        countsAsOwnReason: det.countsAsOwnReason,
+        layout: det.layout,
       },
       pointSet: { digest: psd, included: points.filter((p) => !p.excluded).length },
       points: points.map((p) => ({

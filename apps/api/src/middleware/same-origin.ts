@@ -12,7 +12,7 @@ export function sameOrigin(publicUrl: string): RequestHandler {
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next()
     const source = req.get('origin') ?? req.get('referer')
-    let host: string | null = null
+    let host: string | null
     try {
       host = source ? new URL(source).host : null
     } catch {

@@ -5,6 +5,7 @@ import { defineRoutes, type RouteDef } from './define.js'
 import { catalogueRoutes } from './catalogue.routes.js'
 import { componentRoutes } from './components.routes.js'
 import { dataSetRoutes } from './datasets.routes.js'
+import { directDataRoutes } from './direct-data.routes.js'
 import { reviewRoutes } from './review.routes.js'
 import { systemRoutes } from './systems.routes.js'
 
@@ -20,6 +21,7 @@ export const allRoutes: RouteDef[] = [
   ...componentRoutes,
   ...systemRoutes,
   ...dataSetRoutes,
+  ...directDataRoutes,
   ...reviewRoutes,
   ...catalogueRoutes,
   ...auditRoutes,

@@ -13,6 +13,8 @@ import { displayNamesOf } from '../repositories/approvals.repository.js'
 /** What a person did to the content, in words of the approval record. */
 const ACTIONS: Record<string, string> = {
   'upload run file': 'uploaded points',
+  'import point sheet': 'uploaded points',
+  'enter points': 'entered points',
   'exclude point': 'excluded or included points',
   'include point': 'excluded or included points',
   'edit point': 'edited points',

@@ -47,6 +47,12 @@ export async function signedContentV1(db: Db, dataSetId: string) {
       nominalPressurePa: d.nominalPressurePa,
       apparatusNotes: d.apparatusNotes,
       projectRef: d.projectRef,
+      origin: d.origin,
+      originMethod: d.originMethod,
+      citation: d.citation,
+      countsAsOwn: d.countsAsOwn,
+      countsAsOwnReason: d.countsAsOwnReason,
+      layout: d.layout,
     },
     points: points.map((p) => ({
       id: p.id,
@@ -83,6 +89,12 @@ const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => 
   nominalPressurePa: d.nominalPressurePa,
   apparatusNotes: d.apparatusNotes,
   projectRef: d.projectRef,
+  origin: d.origin,
+  originMethod: d.originMethod,
+  citation: d.citation,
+  countsAsOwn: d.countsAsOwn,
+  countsAsOwnReason: d.countsAsOwnReason,
+  layout: d.layout,
 })
 
 /**
