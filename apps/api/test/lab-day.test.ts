@@ -282,6 +282,7 @@ describe('literature data in the signed record and in approval', () => {
     let r = await lab.analyst
       .post(`/api/data-sets/${d.id}/points`)
       .send({ rowVersion: d.rowVersion, points: literaturePoints() })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
     const fits = await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['wilson'] })
     expect(fits.status, JSON.stringify(fits.body)).toBe(201)
     let v = (await lab.analyst.get(`/api/data-sets/${d.id}`)).body
