@@ -6,10 +6,7 @@ export type { FittableModel, UniquacStructure } from './parameters.js'
 export { predictionBand, suggestNextCompositions } from './prediction.js'
 export type { PredictionBand, SuggestedComposition, SuggestionCriterion } from './prediction.js'
 export { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
-<<<<<<< HEAD
 export { OUTLIER_RULE, outlierPointIds, rootMeanSquare } from './outliers.js'
 export type { OutlierResidual } from './outliers.js'
-=======
 export { fitJoint } from './joint-fit.js'
 export type { JointFitOptions, JointFitResult, JointDataSetStatistics } from './joint-fit.js'
->>>>>>> main
