@@ -83,7 +83,8 @@ export const adminRoutes = defineRoutes([
     access: ['admin'],
     handler: async (req, res) => {
       const { db, config } = ctx(req)
-      if (config.nodeEnv === 'production') throw notFound('The mail capture exists only in development and test mode.')
+      if (!config.mailViewer)
+        throw notFound('The captured-mail viewer is off (MAIL_VIEWER; off by default in production).')
       const items = await db.selectFrom('captured_mail').selectAll().orderBy('id', 'desc').limit(200).execute()
       res.json({ items })
     },
