@@ -56,10 +56,17 @@ export function createApp(
   const app = express()
   app.disable('x-powered-by')
   app.set('trust proxy', 'loopback')
-  app.use((_req, res, next) => {
-    if (options.lifecycle?.stopping) res.set('Connection', 'close')
-    next()
-  })
+  const lifecycle = options.lifecycle
+  if (lifecycle)
+    // While stopping, every answer (also of a request that arrived before the signal) closes its connection.
+    app.use((_req, res, next) => {
+      const writeHead = res.writeHead
+      res.writeHead = function (this: express.Response, ...args: unknown[]) {
+        if (lifecycle.stopping && !this.headersSent) this.setHeader('Connection', 'close')
+        return (writeHead as (...a: unknown[]) => express.Response).apply(this, args)
+      } as typeof res.writeHead
+      next()
+    })
   const metrics = createMetrics(services.db, options.pool, options.processMetrics)
   app.use(metrics.middleware)
   app.use(

@@ -100,7 +100,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     nodeEnv: e.NODE_ENV,
     host: e.HOST,
     port: e.PORT,
-    publicUrl: (e.PUBLIC_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, ''),
+    publicUrl: (e.PUBLIC_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
     databaseUrl: e.DATABASE_URL,
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
