@@ -8,7 +8,7 @@ import pg from 'pg'
 const here = path.dirname(fileURLToPath(import.meta.url))
 
 export async function migrateToLatest(databaseUrl: string, direction: 'up' | 'down' = 'up'): Promise<void> {
-  const db = new Kysely<any>({
+  const db = new Kysely<Record<string, never>>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: databaseUrl, max: 1 }) }),
   })
   const migrator = new Migrator({

@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm test`: the whole suite on this machine. Starts its own PostgreSQL (port 54329, throw-away databases,
-// never the demo data), installs Debian's chromium when missing, runs vitest then Playwright, prints one count line.
+// never the demo data), installs Debian's chromium when missing, runs the linter and the format check, vitest, the type
+// checks, then Playwright, and prints one count line. A lint or format finding fails the run like a failing test.
 import { spawnSync } from 'node:child_process'
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
 import path from 'node:path'
@@ -28,10 +29,21 @@ const counts = {
   unit: { passed: 0, failed: 0, skipped: 0 },
   e2e: { passed: 0, failed: 0, skipped: 0 },
   types: 'not run',
+  lint: 'not run',
+  format: 'not run',
 }
 let failure = false
 
 try {
+  if (!only) {
+    log('lint (ESLint) and format check (Prettier)')
+    const lintOk = sh(bin('eslint'), ['--max-warnings', '0', '.']) === 0
+    counts.lint = lintOk ? 'passed' : 'FAILED'
+    const formatOk = sh(bin('prettier'), ['--check', '--log-level', 'warn', '.']) === 0
+    counts.format = formatOk ? 'passed' : 'FAILED (run `pnpm format`)'
+    if (!lintOk || !formatOk) failure = true
+  }
+
   if (only !== 'e2e') {
     log('unit and integration tests (vitest)')
     const vitestJson = path.join(reportDir, 'vitest-report.json')
@@ -101,6 +113,7 @@ const total = {
 const secs = Math.round((Date.now() - started) / 1000)
 console.log(
   `\nEbullio test suite: ${failure ? 'FAILED' : 'PASSED'} — ${total.passed} passed, ${total.failed} failed, ${total.skipped} skipped ` +
-    `(vitest ${counts.unit.passed}/${counts.unit.passed + counts.unit.failed}, browser ${counts.e2e.passed}/${counts.e2e.passed + counts.e2e.failed}; type checks ${counts.types}) in ${secs} s`,
+    `(vitest ${counts.unit.passed}/${counts.unit.passed + counts.unit.failed}, browser ${counts.e2e.passed}/${counts.e2e.passed + counts.e2e.failed}; ` +
+    `lint ${counts.lint}, format ${counts.format}, type checks ${counts.types}) in ${secs} s`,
 )
 process.exit(failure ? 1 : 0)

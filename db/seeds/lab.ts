@@ -126,7 +126,7 @@ async function seedSystemsAndCalibrations(
 }
 
 /** Load the demo lab: components, systems, calibrations and data sets in every workflow state. */
-export async function seedLab(db: Kysely<any> | Kysely<Database>, ids: Record<string, string>): Promise<void> {
+export async function seedLab(db: Kysely<Database>, ids: Record<string, string>): Promise<void> {
   const kdb = db as Kysely<Database>
   const config = loadConfig({ ...process.env, ALLOW_SELF_APPROVAL: 'false' })
   const users = sessionUsers(ids)

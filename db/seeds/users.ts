@@ -5,6 +5,7 @@
 import { randomUUID } from 'node:crypto'
 import { hash } from '@node-rs/argon2'
 import type { Kysely } from 'kysely'
+import type { Database } from '../../apps/api/src/db/index.js'
 
 export const DEMO_PASSWORD = 'ebullio-demo-2026'
 
@@ -17,7 +18,7 @@ export const DEMO_USERS = [
 ] as const
 
 /** Create the demo users that do not exist yet; existing accounts are left exactly as they are. */
-export async function seedUsers(db: Kysely<any>): Promise<Record<string, string>> {
+export async function seedUsers(db: Kysely<Database>): Promise<Record<string, string>> {
   const ids: Record<string, string> = {}
   for (const u of DEMO_USERS) {
     const existing = await db.selectFrom('app_user').select('id').where('email', '=', u.email).executeTakeFirst()

@@ -62,7 +62,9 @@ export function postgresBinDir() {
     try {
       const dir = execFileSync('pg_config', ['--bindir'], { encoding: 'utf8' }).trim()
       if (existsSync(path.join(dir, 'initdb'))) return dir
-    } catch {}
+    } catch {
+      // pg_config is not on PATH: look in Debian's versioned folders below
+    }
     for (const v of ['17', '16', '15']) {
       const dir = `/usr/lib/postgresql/${v}/bin`
       if (existsSync(path.join(dir, 'initdb'))) return dir

@@ -30,7 +30,9 @@ async function prepareDatabase(): Promise<string> {
   }
   if (!/bench|test/.test(new URL(url).pathname))
     throw new Error(`Refusing to wipe ${url}: use a database whose name contains "bench" or "test"`)
-  const db = new Kysely<any>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 1 }) }) })
+  const db = new Kysely<Record<string, never>>({
+    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 1 }) }),
+  })
   await sql`drop schema public cascade; create schema public`.execute(db)
   await db.destroy()
   await migrateToLatest(url)

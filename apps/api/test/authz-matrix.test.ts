@@ -79,6 +79,12 @@ const expected: Record<string, Access> = {
   'GET /api/data-sets/:id/export/parameters.csv': 'authenticated',
   'GET /api/uploads/:id/content': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/audit': ['admin'],
+  'POST /api/data-sets/:id/points': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/point-sheets/preview': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/point-sheets': ['analyst', 'lead_chemist'],
+  'POST /api/data-sets/:id/own-measurement': ['lead_chemist'],
+  'GET /api/check-measurements': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'POST /api/check-measurements': ['analyst', 'lead_chemist'],
 }
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`

@@ -31,10 +31,14 @@ function parseCsv(text: string): string[][] {
       let quoted = false
       for (let i = 0; i < l.length; i++) {
         const ch = l[i]
-        if (quoted && ch === '"' && l[i + 1] === '"') ((cell += '"'), i++)
-        else if (ch === '"') quoted = !quoted
-        else if (ch === ',' && !quoted) (cells.push(cell), (cell = ''))
-        else cell += ch
+        if (quoted && ch === '"' && l[i + 1] === '"') {
+          cell += '"'
+          i++
+        } else if (ch === '"') quoted = !quoted
+        else if (ch === ',' && !quoted) {
+          cells.push(cell)
+          cell = ''
+        } else cell += ch
       }
       return [...cells, cell]
     })

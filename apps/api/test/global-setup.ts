@@ -16,7 +16,9 @@ export default async function setup(): Promise<void> {
     )
   if (!/test/.test(new URL(url).pathname))
     throw new Error(`Refusing to wipe ${url}: the test database name must contain "test"`)
-  const db = new Kysely<any>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 1 }) }) })
+  const db = new Kysely<Record<string, never>>({
+    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 1 }) }),
+  })
   await sql`drop schema public cascade; create schema public`.execute(db)
   await db.destroy()
   const tsx = createRequire(import.meta.url).resolve('tsx/cli')

@@ -164,4 +164,23 @@ export interface DataSetDto<D = string> {
   approvedAt: D | null
   supersededAt: D | null
   rowVersion: number
+  /** where the numbers come from: 'gc' (measured here by GC), 'other-method', 'literature' */
+  origin: 'gc' | 'other-method' | 'literature'
+  originMethod: string | null
+  citation: {
+    authors: string
+    title: string
+    source: string
+    year: number
+    volume: string | null
+    pages: string | null
+    doi: string | null
+    table: string | null
+  } | null
+  /** a literature set marked by a lead chemist as the lab's own measurement (may then be approved) */
+  countsAsOwn: boolean
+  countsAsOwnBy: string | null
+  countsAsOwnReason: string | null
+  /** 'txy' isobaric T–x–y, 'tx' isobaric T–x, 'pxy' isothermal P–x–y */
+  layout: 'txy' | 'tx' | 'pxy'
 }

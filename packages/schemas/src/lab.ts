@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { checkOrigin, citationSchema, DATA_ORIGINS, originFields } from './direct-data.js'
 
 /**
  * Request bodies of the lab API (issue 5), shared by the API (which parses with them) and the web app
@@ -110,6 +111,10 @@ export const pureMeasurementSchema = z.object({
   temperatureK: z.number().positive('Temperature must be positive (K)'),
   pressurePa: z.number().positive('Pressure must be positive (Pa)'),
   note: optionalText(400),
+  thermometer: optionalText(120),
+  still: optionalText(120),
+  /** the day it was measured (YYYY-MM-DD) */
+  measuredOn: z.iso.date('Enter the date as YYYY-MM-DD').nullable().optional(),
 })
 
 /** POST /api/systems (component 1 is the lighter one by convention). */
@@ -134,7 +139,10 @@ export const dataSetSchema = z.object({
   nominalPressurePa: z.number().positive('Pressure must be positive (Pa)').max(1e8),
   apparatusNotes: optionalText(4000),
   projectRef: optionalText(200),
+  ...originFields,
 })
+/** POST /api/data-sets: the fields above plus the origin rules (literature needs a citation …). */
+export const dataSetCreateSchema = dataSetSchema.superRefine(checkOrigin)
 /** PATCH /api/data-sets/:id (draft or returned; send the rowVersion you loaded). */
 export const dataSetPatchSchema = z.object({
   rowVersion,
@@ -142,6 +150,11 @@ export const dataSetPatchSchema = z.object({
   nominalPressurePa: z.number().positive().max(1e8).optional(),
   apparatusNotes: text(4000).nullable().optional(),
   projectRef: text(200).nullable().optional(),
+  /** only while the data set has no points */
+  systemId: labId('system').optional(),
+  origin: z.enum(DATA_ORIGINS).optional(),
+  originMethod: text(1000).nullable().optional(),
+  citation: citationSchema.nullable().optional(),
 })
 
 /** PATCH /api/data-sets/:id/points/:pointId: exclude (a reason is required) or include a point. */

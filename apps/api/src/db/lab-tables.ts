@@ -50,6 +50,27 @@ export interface PureMeasurementTable {
   note: string | null
   measured_by: string | null
   created_at: DefaultTimestamp
+  /** 20261203_11d */
+  thermometer: string | null
+  still: string | null
+  measured_on: ColumnType<string | null, string | null | undefined, string | null>
+  upload_id: string | null
+  data_set_id: string | null
+  row_ref: number | null
+}
+
+/** A thermometer or barometer check: a reference liquid boiled at the day's pressure (20261203_11d). */
+export interface CheckMeasurementTable {
+  id: Generated<string>
+  kind: 'thermometer' | 'barometer'
+  instrument: string
+  component_id: string
+  temperature_k: number
+  pressure_pa: number
+  measured_at: Timestamp
+  note: string | null
+  measured_by: string | null
+  created_at: DefaultTimestamp
 }
 
 export interface BinarySystemTable {
@@ -77,7 +98,7 @@ export interface GcMethodTable {
 
 export interface UploadTable {
   id: Generated<string>
-  kind: 'calibration' | 'run'
+  kind: 'calibration' | 'run' | 'points'
   original_name: string
   content_type: string
   size_bytes: number
@@ -141,6 +162,25 @@ export interface DataSetTable {
   approved_at: Timestamp | null
   superseded_at: Timestamp | null
   row_version: Generated<number>
+  /** 20261203_11d: where the numbers come from, and the layout of the points */
+  origin: Generated<'gc' | 'other-method' | 'literature'>
+  origin_method: string | null
+  citation: Json<DataSetCitation> | null
+  counts_as_own: Generated<boolean>
+  counts_as_own_by: string | null
+  counts_as_own_reason: string | null
+  layout: Generated<'txy' | 'tx' | 'pxy'>
+}
+
+export interface DataSetCitation {
+  authors: string
+  title: string
+  source: string
+  year: number
+  volume: string | null
+  pages: string | null
+  doi: string | null
+  table: string | null
 }
 
 export interface PointTable {
@@ -242,6 +282,7 @@ export interface LabTables {
   component: ComponentTable
   vapor_pressure_set: VaporPressureSetTable
   pure_measurement: PureMeasurementTable
+  check_measurement: CheckMeasurementTable
   binary_system: BinarySystemTable
   gc_method: GcMethodTable
   upload: UploadTable
@@ -297,3 +338,4 @@ export type Approval = Selectable<ApprovalTable>
 export type NewApproval = Insertable<ApprovalTable>
 export type AuditEntry = Selectable<AuditLogTable>
 export type NewAuditEntry = Insertable<AuditLogTable>
+export type CheckMeasurement = Selectable<CheckMeasurementTable>

@@ -2,6 +2,7 @@ import type { ComponentDto, VaporPressureSetDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { Component, PureMeasurement, VaporPressureSet } from '../db/lab-tables.js'
+import { componentRank } from './search-rank.js'
 
 /** A pure component as the API shows it (the shared wire type, with Date timestamps). Molar mass in g/mol, liquid molar volume in cm³/mol. */
 export type ComponentRecord = ComponentDto<Date>
@@ -42,7 +43,21 @@ const toMeasurement = (m: PureMeasurement) => ({
   note: m.note,
   measuredBy: m.measured_by,
   createdAt: m.created_at,
+  thermometer: m.thermometer,
+  still: m.still,
+  measuredOn: dateText(m.measured_on),
+  uploadId: m.upload_id,
+  dataSetId: m.data_set_id,
+  rowRef: m.row_ref,
 })
+
+/** node-postgres reads a `date` as local midnight; give it back as the YYYY-MM-DD it was stored as. */
+function dateText(v: unknown): string | null {
+  if (v === null || v === undefined) return null
+  if (!(v instanceof Date)) return String(v)
+  const pad = (n: number) => String(n).padStart(2, '0')
+  return `${v.getFullYear()}-${pad(v.getMonth() + 1)}-${pad(v.getDate())}`
+}
 
 export interface ComponentQuery {
   q?: string
@@ -52,12 +67,16 @@ export interface ComponentQuery {
   offset: number
 }
 
-/** Components matching a name or CAS search, one page, with the total count. */
+/** Components matching a name, CAS or formula search (best matches first), one page, with the total count. */
 export async function listComponents(db: Db, o: ComponentQuery): Promise<{ items: ComponentRecord[]; total: number }> {
   let query = db.selectFrom('component')
-  if (o.q) query = query.where((eb) => eb.or([eb('name', 'ilike', `%${o.q}%`), eb('cas_number', 'like', `%${o.q}%`)]))
+  const q = o.q?.trim()
+  if (q) query = query.where(sql<boolean>`${componentRank('', q)} < 3`)
   const total = await query.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const rows = await query.selectAll().orderBy(o.sort, o.order).orderBy('id').limit(o.limit).offset(o.offset).execute()
+  let ordered = query.selectAll()
+  // A search shows the best matches first (exact, then prefix, then contained); the chosen sort orders within.
+  if (q) ordered = ordered.orderBy(componentRank('', q))
+  const rows = await ordered.orderBy(o.sort, o.order).orderBy('id').limit(o.limit).offset(o.offset).execute()
   return { items: rows.map(toComponent), total: Number(total.n) }
 }
 
@@ -181,7 +200,19 @@ export async function listPureMeasurements(db: Db, componentId: string) {
 
 export async function insertPureMeasurement(
   db: Db,
-  m: { componentId: string; temperatureK: number; pressurePa: number; note: string | null; measuredBy: string },
+  m: {
+    componentId: string
+    temperatureK: number
+    pressurePa: number
+    note: string | null
+    measuredBy: string
+    thermometer?: string | null
+    still?: string | null
+    measuredOn?: string | null
+    uploadId?: string | null
+    dataSetId?: string | null
+    rowRef?: number | null
+  },
 ) {
   const row = await db
     .insertInto('pure_measurement')
@@ -191,6 +222,12 @@ export async function insertPureMeasurement(
       pressure_pa: m.pressurePa,
       note: m.note,
       measured_by: m.measuredBy,
+      thermometer: m.thermometer ?? null,
+      still: m.still ?? null,
+      measured_on: m.measuredOn ?? null,
+      upload_id: m.uploadId ?? null,
+      data_set_id: m.dataSetId ?? null,
+      row_ref: m.rowRef ?? null,
     })
     .returningAll()
     .executeTakeFirstOrThrow()

@@ -25,6 +25,13 @@ export const toDataSet = (d: DataSet): DataSetRecord => ({
   approvedAt: d.approved_at,
   supersededAt: d.superseded_at,
   rowVersion: d.row_version,
+  origin: d.origin,
+  originMethod: d.origin_method,
+  citation: d.citation,
+  countsAsOwn: d.counts_as_own,
+  countsAsOwnBy: d.counts_as_own_by,
+  countsAsOwnReason: d.counts_as_own_reason,
+  layout: d.layout,
 })
 
 export interface DataSetQuery {
@@ -149,6 +156,13 @@ export async function insertDataSet(
     apparatusNotes: string | null
     projectRef: string | null
     createdBy: string
+    origin?: DataSetRecord['origin']
+    originMethod?: string | null
+    citation?: DataSetRecord['citation']
+    layout?: DataSetRecord['layout']
+    countsAsOwn?: boolean
+    countsAsOwnBy?: string | null
+    countsAsOwnReason?: string | null
   },
 ): Promise<DataSetRecord> {
   const id = d.id ?? crypto.randomUUID()
@@ -165,6 +179,13 @@ export async function insertDataSet(
       apparatus_notes: d.apparatusNotes,
       project_ref: d.projectRef,
       created_by: d.createdBy,
+      origin: d.origin ?? 'gc',
+      origin_method: d.originMethod ?? null,
+      citation: d.citation ? JSON.stringify(d.citation) : null,
+      layout: d.layout ?? 'txy',
+      counts_as_own: d.countsAsOwn ?? false,
+      counts_as_own_by: d.countsAsOwnBy ?? null,
+      counts_as_own_reason: d.countsAsOwnReason ?? null,
     })
     .returningAll()
     .executeTakeFirstOrThrow()
@@ -183,6 +204,13 @@ export type DataSetPatch = Partial<
     | 'submittedAt'
     | 'approvedAt'
     | 'supersededAt'
+    | 'systemId'
+    | 'origin'
+    | 'originMethod'
+    | 'citation'
+    | 'countsAsOwn'
+    | 'countsAsOwnBy'
+    | 'countsAsOwnReason'
   >
 >
 
@@ -208,6 +236,13 @@ export async function updateDataSet(
       ...(patch.submittedAt !== undefined && { submitted_at: patch.submittedAt }),
       ...(patch.approvedAt !== undefined && { approved_at: patch.approvedAt }),
       ...(patch.supersededAt !== undefined && { superseded_at: patch.supersededAt }),
+      ...(patch.systemId !== undefined && { system_id: patch.systemId }),
+      ...(patch.origin !== undefined && { origin: patch.origin }),
+      ...(patch.originMethod !== undefined && { origin_method: patch.originMethod }),
+      ...(patch.citation !== undefined && { citation: patch.citation ? JSON.stringify(patch.citation) : null }),
+      ...(patch.countsAsOwn !== undefined && { counts_as_own: patch.countsAsOwn }),
+      ...(patch.countsAsOwnBy !== undefined && { counts_as_own_by: patch.countsAsOwnBy }),
+      ...(patch.countsAsOwnReason !== undefined && { counts_as_own_reason: patch.countsAsOwnReason }),
       updated_at: sql`now()`,
       row_version: sql`row_version + 1`,
     })

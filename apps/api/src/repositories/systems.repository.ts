@@ -1,7 +1,8 @@
 import type { SystemDto } from '@ebullio/schemas'
-import { sql } from 'kysely'
+import { sql, type RawBuilder } from 'kysely'
 import type { Db } from '../db/index.js'
 import { toComponent } from './components.repository.js'
+import { componentRank } from './search-rank.js'
 
 /** A binary system: component 1 is the lighter (lower-boiling) one by convention (the shared wire type, with Date timestamps). */
 export type SystemRecord = SystemDto<Date>
@@ -48,7 +49,7 @@ export async function findSystemByPair(db: Db, a: string, b: string): Promise<Sy
 }
 
 /**
- * Systems whose component names or CAS numbers match `q`, one page; with `published`, only systems that
+ * Systems whose component names, CAS numbers or formulas match `q` (best matches first; "a / b" asks for both), one page; with `published`, only systems that
  * have an approved or superseded data set (the engineers' catalogue).
  */
 export async function listSystems(
@@ -70,25 +71,26 @@ export async function listSystems(
       ),
     )
   }
-  if (o.q) {
-    const like = `%${o.q}%`
-    query = query.where((eb) =>
-      eb.or([
-        eb('c1.name', 'ilike', like),
-        eb('c2.name', 'ilike', like),
-        eb('c1.cas_number', 'like', like),
-        eb('c2.cas_number', 'like', like),
-      ]),
-    )
+  // "ethanol / water" asks for both components (either order); one word matches either component.
+  const terms = (o.q ?? '')
+    .split('/')
+    .map((t) => t.trim())
+    .filter(Boolean)
+    .slice(0, 2)
+  const r1 = (t: string) => componentRank('c1.', t)
+  const r2 = (t: string) => componentRank('c2.', t)
+  let rank: RawBuilder<number> | null = null
+  if (terms.length === 1) {
+    rank = sql<number>`least(${r1(terms[0])}, ${r2(terms[0])})`
+  } else if (terms.length === 2) {
+    const [a, b] = terms
+    rank = sql<number>`least(greatest(${r1(a)}, ${r2(b)}), greatest(${r1(b)}, ${r2(a)}))`
   }
+  if (rank) query = query.where(sql<boolean>`${rank} < 3`)
   const total = await query.select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()
-  const rows = await query
-    .selectAll('s')
-    .orderBy('c1.name')
-    .orderBy('c2.name')
-    .limit(o.limit)
-    .offset(o.offset)
-    .execute()
+  let ordered = query.selectAll('s')
+  if (rank) ordered = ordered.orderBy(rank)
+  const rows = await ordered.orderBy('c1.name').orderBy('c2.name').limit(o.limit).offset(o.offset).execute()
   return { items: await hydrate(db, rows), total: Number(total.n) }
 }
 

@@ -2,7 +2,7 @@ import type { Db } from '../db/index.js'
 
 export interface UploadRecord {
   id: string
-  kind: 'calibration' | 'run'
+  kind: 'calibration' | 'run' | 'points'
   originalName: string
   contentType: string
   sizeBytes: number
@@ -16,7 +16,7 @@ export interface UploadRecord {
 export async function insertUpload(
   db: Db,
   u: {
-    kind: 'calibration' | 'run'
+    kind: 'calibration' | 'run' | 'points'
     originalName: string
     contentType: string
     content: Buffer

@@ -2,7 +2,7 @@ import { ctx } from '../context.js'
 import * as service from '../services/datasets.service.js'
 import * as uploads from '../services/uploads.service.js'
 import { defineRoutes } from './define.js'
-import { dataSetPatchSchema, dataSetSchema, exclusionSchema } from '@ebullio/schemas'
+import { dataSetCreateSchema, dataSetPatchSchema, exclusionSchema } from '@ebullio/schemas'
 import { dataSetQuery, idParams, pointParams, runForm } from './lab-schemas.js'
 import { csvUpload, receivedFile } from './upload-middleware.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
@@ -27,7 +27,7 @@ export const dataSetRoutes = defineRoutes([
     access: AUTHORS,
     handler: async (req, res) => {
       const { db, user } = ctx(req)
-      res.status(201).json(await service.createDataSet(db, user.id, parseBody(dataSetSchema, req)))
+      res.status(201).json(await service.createDataSet(db, user.id, parseBody(dataSetCreateSchema, req)))
     },
   },
   {

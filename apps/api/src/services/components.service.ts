@@ -1,5 +1,5 @@
 /** Pure components, their vapour-pressure sets and pure-component boiling measurements. */
-import { fitAntoine, type VaporPressureModel } from '@ebullio/thermo'
+import { fitAntoine, saturationTemperature, type VaporPressureModel } from '@ebullio/thermo'
 import { thermo, translateDbError } from './lab-access.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
@@ -34,11 +34,19 @@ export async function createComponent(db: Db, actorId: string, input: ComponentI
 export async function getComponent(db: Db, id: string) {
   const c = await repo.findComponent(db, id)
   if (!c) throw notFound('There is no such component.')
-  return {
-    ...c,
-    vaporPressureSets: await repo.listVaporPressureSets(db, [id]),
-    pureMeasurements: await repo.listPureMeasurements(db, id),
-  }
+  const sets = await repo.listVaporPressureSets(db, [id])
+  const model = sets[0]?.parameters as unknown as VaporPressureModel | undefined
+  // Each boiling point beside the temperature the preferred correlation gives at its pressure.
+  const pureMeasurements = (await repo.listPureMeasurements(db, id)).map((m) => {
+    let correlatedK: number | null = null
+    try {
+      correlatedK = model ? saturationTemperature(model, m.pressurePa) : null
+    } catch {
+      correlatedK = null
+    }
+    return { ...m, correlatedK, dT: correlatedK === null ? null : m.temperatureK - correlatedK }
+  })
+  return { ...c, vaporPressureSets: sets, pureMeasurements, correlationSource: sets[0]?.source ?? null }
 }
 
 export async function updateComponent(
@@ -108,7 +116,14 @@ export async function addPureMeasurement(
   db: Db,
   actorId: string,
   componentId: string,
-  m: { temperatureK: number; pressurePa: number; note: string | null },
+  m: {
+    temperatureK: number
+    pressurePa: number
+    note: string | null
+    thermometer?: string | null
+    still?: string | null
+    measuredOn?: string | null
+  },
 ) {
   if (!(await repo.findComponent(db, componentId))) throw notFound('There is no such component.')
   const row = await repo.insertPureMeasurement(db, { componentId, ...m, measuredBy: actorId })

@@ -3,7 +3,7 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database, Db } from '../db/index.js'
 import type { DataSetState } from '../db/lab-tables.js'
-import { conflict, notFound } from '../errors/index.js'
+import { conflict, forbidden, notFound } from '../errors/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
 import { listComments } from '../repositories/comments.repository.js'
@@ -14,6 +14,7 @@ import { listUploadsOf } from '../repositories/uploads.repository.js'
 import { calibrationsOfDataSet } from '../repositories/calibrations.repository.js'
 import {
   EDITABLE_STATES,
+  FITTABLE_STATES,
   PUBLISHED_STATES,
   pageWindow,
   readsEverything,
@@ -29,10 +30,21 @@ export interface DataSetInput {
   nominalPressurePa: number
   apparatusNotes: string | null
   projectRef: string | null
+  origin?: repo.DataSetRecord['origin']
+  originMethod?: string | null
+  citation?: repo.DataSetRecord['citation']
+  layout?: repo.DataSetRecord['layout']
 }
 
 export async function createDataSet(db: Db, actorId: string, input: DataSetInput): Promise<repo.DataSetRecord> {
   await getSystem(db, input.systemId)
+  checkOriginAfter({
+    origin: input.origin ?? 'gc',
+    citation: input.citation ?? null,
+    originMethod: input.originMethod ?? null,
+  })
+  if (input.layout === 'tx')
+    throw conflict('T–x data sets (no vapour composition) cannot be fitted yet; enter T–x–y or P–x–y points.')
   const d = await repo.insertDataSet(db, { ...input, createdBy: actorId })
   await appendAudit(db, {
     actorId,
@@ -99,7 +111,7 @@ export async function getPointDetail(db: Db, user: SessionUser, dataSetId: strin
   return { ...p, injections: await points.listInjections(db, pointId) }
 }
 
-export type MetadataPatch = Partial<Omit<DataSetInput, 'systemId'>>
+export type MetadataPatch = Partial<Omit<DataSetInput, 'layout'>>
 
 /** Edit metadata of a draft; refused when the caller's row version is stale. */
 export async function updateMetadata(
@@ -113,6 +125,8 @@ export async function updateMetadata(
     const before = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
     requireState(before, EDITABLE_STATES, 'editing')
     if (before.rowVersion !== rowVersion) throw staleWrite(rowVersion, before.rowVersion)
+    await checkSystemChange(tx, before, patch.systemId)
+    checkOriginAfter({ ...before, ...patch })
     const after = await repo.updateDataSet(tx, id, patch, rowVersion)
     if (!after) throw staleWrite(rowVersion, before.rowVersion + 1)
     const changed = Object.keys(patch) as (keyof MetadataPatch)[]
@@ -127,6 +141,21 @@ export async function updateMetadata(
     })
     return after
   })
+}
+
+/** A draft may move to another system only while it has no points (nothing was computed for the old one). */
+async function checkSystemChange(db: Db, d: repo.DataSetRecord, systemId: string | undefined) {
+  if (systemId === undefined || systemId === d.systemId) return
+  if ((await points.listPoints(db, d.id)).length > 0)
+    throw conflict('This data set already has points; its system can no longer change. Start a new data set instead.')
+  await getSystem(db, systemId)
+}
+
+/** The origin rules that span fields, checked on the row as it would be after a change. */
+function checkOriginAfter(d: Pick<repo.DataSetRecord, 'origin' | 'citation' | 'originMethod'>) {
+  if (d.origin === 'literature' && !d.citation) throw conflict('Literature data needs its full citation.')
+  if (d.origin === 'other-method' && !d.originMethod?.trim())
+    throw conflict('Say how the compositions were measured (the method other than GC).')
 }
 
 /** Exclude a point (a reason is mandatory) or include it again. */
@@ -163,6 +192,8 @@ export async function setPointExclusion(
 export async function deleteDraft(db: Kysely<Database>, user: SessionUser, id: string) {
   await db.transaction().execute(async (tx) => {
     const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    if (d.createdBy !== user.id && !user.roles.includes('lead_chemist'))
+      throw forbidden('Only the author of this draft or a lead chemist may delete it.')
     requireState(d, ['draft'], 'deleting')
     if (d.submittedAt) throw conflict('This data set has been submitted before; it is kept for the record.')
     await appendAudit(tx, {
@@ -170,7 +201,7 @@ export async function deleteDraft(db: Kysely<Database>, user: SessionUser, id: s
       entity: 'data_set',
       entityId: id,
       action: 'delete draft',
-      before: { title: d.title, version: d.version },
+      before: { title: d.title, version: d.version, createdBy: d.createdBy, systemId: d.systemId },
     })
     await repo.deleteDataSet(tx, id)
   })
@@ -197,6 +228,13 @@ export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id:
       apparatusNotes: d.apparatusNotes,
       projectRef: d.projectRef,
       createdBy: user.id,
+      origin: d.origin,
+      originMethod: d.originMethod,
+      citation: d.citation,
+      layout: d.layout,
+      countsAsOwn: d.countsAsOwn,
+      countsAsOwnBy: d.countsAsOwnBy,
+      countsAsOwnReason: d.countsAsOwnReason,
     })
     const pointMap = await points.copyPoints(tx, d.id, next.id)
     const fitMap = await copyFits(tx, d.id, next.id, pointMap)
@@ -218,4 +256,35 @@ export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id:
 export async function auditTrail(db: Db, user: SessionUser, id: string) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   return listAuditForLineage(db, d.lineageId)
+}
+
+/** A lead chemist marks a literature data set as the lab's own measurement (so it may be approved), or unmarks it. */
+export async function setOwnMeasurement(
+  db: Kysely<Database>,
+  user: SessionUser,
+  id: string,
+  o: { rowVersion: number; countsAsOwn: boolean; reason: string },
+) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    requireState(d, FITTABLE_STATES, 'marking the origin')
+    if (d.origin !== 'literature')
+      throw conflict('Only a literature data set can be marked as the lab’s own measurement.')
+    if (d.rowVersion !== o.rowVersion) throw staleWrite(o.rowVersion, d.rowVersion)
+    const after = await repo.updateDataSet(tx, id, {
+      countsAsOwn: o.countsAsOwn,
+      countsAsOwnBy: o.countsAsOwn ? user.id : null,
+      countsAsOwnReason: o.countsAsOwn ? o.reason : null,
+    })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: id,
+      action: o.countsAsOwn ? 'mark as own measurement' : 'unmark own measurement',
+      dataSetId: id,
+      before: { countsAsOwn: d.countsAsOwn, reason: d.countsAsOwnReason },
+      after: { countsAsOwn: o.countsAsOwn, reason: o.reason },
+    })
+    return after!
+  })
 }

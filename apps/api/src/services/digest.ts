@@ -38,6 +38,12 @@ export async function signedContent(db: Db, dataSetId: string) {
       nominalPressurePa: d.nominalPressurePa,
       apparatusNotes: d.apparatusNotes,
       projectRef: d.projectRef,
+      origin: d.origin,
+      originMethod: d.originMethod,
+      citation: d.citation,
+      countsAsOwn: d.countsAsOwn,
+      countsAsOwnReason: d.countsAsOwnReason,
+      layout: d.layout,
     },
     points: points.map((p) => ({
       id: p.id,

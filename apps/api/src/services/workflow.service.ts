@@ -79,11 +79,20 @@ async function checkSignaturePassword(db: Db, user: SessionUser, password: strin
   }
 }
 
+/** Literature data is approved as the lab's own measurement only once a lead chemist has marked it so. */
+const literatureNotOwn = () =>
+  new AppError(
+    409,
+    'literature_not_own',
+    "This data set is literature data; a lead chemist must first mark it as the lab's own measurement (with a reason) before it can be approved.",
+  )
+
 /** Approve a submitted version with an e-signature over its content digest; an older approved version becomes superseded. */
 export async function approve(db: Kysely<Database>, config: Config, user: SessionUser, id: string, s: SignatureInput) {
   return db.transaction().execute(async (tx) => {
     const d = await lockFresh(tx, user, id, s.rowVersion)
     requireState(d, ['submitted'], 'approval')
+    if (d.origin === 'literature' && !d.countsAsOwn) throw literatureNotOwn()
     await checkSignaturePassword(tx, user, s.password)
     if (!d.recommendedFitId) throw conflict('Mark one fit as the recommended fit before approving.')
     const authors = new Set([d.createdBy, ...(await uploadersOf(tx, id))])

@@ -45,7 +45,7 @@ async function request<T>(method: string, url: string, body?: unknown, opts: Req
       body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
       signal: opts.signal,
     })
-  } catch (e) {
+  } catch {
     const err = new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.')
     if (!opts.quiet) listeners.forEach((l) => l(err))
     throw err

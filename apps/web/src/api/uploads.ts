@@ -59,7 +59,7 @@ export interface PreviewSample {
 }
 
 export interface UploadPreview {
-  kind: 'calibration' | 'run'
+  kind: 'calibration' | 'run' | 'points'
   /** the token the commit call refers to (the server keeps the bytes until then), when the server uses one */
   previewId?: string
   fileName?: string
@@ -112,7 +112,7 @@ function send<T>(url: string, form: FormData, onProgress?: (fraction: number) =>
     xhr.onerror = () =>
       reject(new ApiError(0, 'network', 'The server cannot be reached. Check your connection and try again.'))
     xhr.onload = () => {
-      let data: unknown = null
+      let data: unknown
       try {
         data = JSON.parse(xhr.responseText)
       } catch {

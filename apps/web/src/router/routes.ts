@@ -1,8 +1,6 @@
 import type { RouteRecordRaw } from 'vue-router'
 
-const Placeholder = () => import('../views/PlaceholderView.vue')
-
-/** Every page of the app. Screens of later work are placeholders, labelled as such. */
+/** Every page of the app. */
 export const appRoutes: RouteRecordRaw[] = [
   { path: '/', name: 'home', component: () => import('../views/HomeView.vue'), meta: { title: 'Overview' } },
   {

@@ -1,11 +1,13 @@
-import { ThermoError } from '../errors.js'
-import { buildFitData, type BinaryPoint } from '../fitting/fit-input.js'
+import type { BinaryPoint } from '../fitting/fit-input.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { saturationTemperature } from '../vapor-pressure/index.js'
 import type { VaporPressureModel } from '../types.js'
+import { areaIntegrals } from './area-integrand.js'
 
 /** Result of {@link heringtonAreaTest}. */
 export interface HeringtonResult {
+  /** Which test ran: Herington's isobaric area test. */
+  test: 'herington'
   /** D = 100·|∫ln(γ1/γ2)dx1| / ∫|ln(γ1/γ2)|dx1 (per cent). */
   D: number
   /** J = 150·(Tmax − Tmin)/Tmin, temperatures in K. */
@@ -34,40 +36,13 @@ export function heringtonAreaTest(
   points: BinaryPoint[],
   options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
 ): HeringtonResult {
-  const usable = Array.isArray(points)
-    ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1).length
-    : 0
-  if (usable < 3) throw insufficient(usable)
-  const { data } = buildFitData(points, options.vaporPressure, 'margules', 0)
-  const rows = Array.from({ length: data.n }, (_, i) => i).filter((i) => data.y1[i] > 0 && data.y1[i] < 1)
-  if (rows.length < 3) throw insufficient(rows.length)
-  const { vp1, vp2 } = data
-  const integrand = rows
-    .map((i) => {
-      const T = data.T[i]
-      const x = data.x1[i]
-      const y = data.y1[i]
-      const lnRatio =
-        Math.log((y * (1 - x)) / ((1 - y) * x)) + (vp2.a - vp2.b / (T + vp2.c)) - (vp1.a - vp1.b / (T + vp1.c))
-      return { x1: x, lnGammaRatio: lnRatio }
-    })
-    .sort((a, b) => a.x1 - b.x1)
-  let area = 0
-  let absArea = 0
-  for (let k = 1; k < integrand.length; k++) {
-    const a = integrand[k - 1]
-    const b = integrand[k]
-    const h = b.x1 - a.x1
-    area += 0.5 * h * (a.lnGammaRatio + b.lnGammaRatio)
-    absArea += trapezoidAbs(h, a.lnGammaRatio, b.lnGammaRatio)
-  }
+  const { integrand, D } = areaIntegrals(points, options.vaporPressure)
   const kept = points.filter((p) => !p.excluded)
   const meanP = kept.reduce((sum, p) => sum + p.P, 0) / kept.length
   const pureBoiling = options.vaporPressure.map((m) => saturationTemperature(m, meanP))
   const temps = [...kept.map((p) => p.T), ...pureBoiling]
   const Tmin = Math.min(...temps)
   const Tmax = Math.max(...temps)
-  const D = absArea > 0 ? (100 * Math.abs(area)) / absArea : 0
   const J = (150 * (Tmax - Tmin)) / Tmin
   const warnings: string[] = spanWarnings(options.vaporPressure, Tmin, Tmax)
   const pressures = kept.map((p) => p.P)
@@ -75,6 +50,7 @@ export function heringtonAreaTest(
     warnings.push('The pressures differ by more than 1 %; the area test is meant for isobaric data.')
   }
   return {
+    test: 'herington',
     D,
     J,
     passed: D - J < 10,
@@ -85,18 +61,4 @@ export function heringtonAreaTest(
     rule: 'trapezoidal rule over the measured compositions (no extrapolation to the pure ends)',
     warnings,
   }
-}
-
-/** ∫|f| over one trapezoid whose ends are fa and fb, splitting it where f crosses zero. */
-function trapezoidAbs(h: number, fa: number, fb: number): number {
-  if (fa * fb >= 0) return 0.5 * h * Math.abs(fa + fb)
-  const t = fa / (fa - fb)
-  return 0.5 * h * (t * Math.abs(fa) + (1 - t) * Math.abs(fb))
-}
-
-function insufficient(n: number): ThermoError {
-  return new ThermoError(
-    'insufficient-data',
-    `The area test needs at least 3 mixture points with 0 < x1 < 1 and 0 < y1 < 1; got ${n}.`,
-  )
 }

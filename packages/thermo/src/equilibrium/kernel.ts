@@ -56,7 +56,7 @@ export function solveBubbleT(
     if (!(fp > 0)) fp = (k1 * s1 + k2 * s2) / S
     if (f < 0) lo = T
     else hi = T
-    let dT = -f / fp
+    const dT = -f / fp
     if (!Number.isFinite(dT)) return false
     const a = Math.abs(dT)
     // Newton's error after this step is about C·dT², with C estimated from the last two steps;

@@ -1,0 +1,233 @@
+/**
+ * γ–φ bubble and dew points: yi·Φi·P = xi·γi·Pi_sat with Φi = φ̂i/(φi_sat·PFi) from the truncated virial
+ * equation (pressure-explicit form). ln φ̂1 = (P/RT)·(B11 + y2²·δ12), ln φ̂2 = (P/RT)·(B22 + y1²·δ12),
+ * δ12 = 2·B12 − B11 − B22; φi_sat = exp(Bii·Pi_sat/RT); PFi = exp(Vi_L·(P − Pi_sat)/RT)
+ * (Smith, Van Ness & Abbott, Introduction to Chemical Engineering Thermodynamics, 7th ed., §11.7 and §14.1;
+ * from memory). The ideal-vapour path of the engine does not pass through this file.
+ */
+import { lnGammaT } from '../activity/kernel.js'
+import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
+import { bubbleTemperatureCompiled, dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
+import { compileSystem, noConvergence, systemWarnings, type CompiledSystem } from '../equilibrium/system.js'
+import { R, type BinarySystem } from '../types.js'
+import { res } from '../equilibrium/kernel.js'
+import { compileVirial, solveBubbleTGammaPhi, type CompiledVirial } from './kernel.js'
+import { checkVaporModel, secondVirialCoefficients } from './tsonopoulos.js'
+import type { VaporCorrection, VaporModel } from './virial-types.js'
+
+type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
+
+/** Vapour-phase correction factors at T (K), P (Pa), vapour y1, with the pure vapour pressures psat (Pa). */
+export function vaporCorrection(
+  vapor: VaporModel,
+  T: number,
+  P: number,
+  y1: number,
+  psat: [number, number],
+): VaporCorrection {
+  if (vapor.kind !== 'virial') return { phi: [1, 1], phiSat: [1, 1], poynting: [1, 1], Phi: [1, 1] }
+  const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
+  const rt = R * T
+  const d12 = 2 * B12 - B11 - B22
+  const y2 = 1 - y1
+  // B in cm³/mol → m³/mol (1e-6) so that B·P/RT is dimensionless.
+  const phi1 = Math.exp((1e-6 * P * (B11 + y2 * y2 * d12)) / rt)
+  const phi2 = Math.exp((1e-6 * P * (B22 + y1 * y1 * d12)) / rt)
+  const s1 = Math.exp((1e-6 * B11 * psat[0]) / rt)
+  const s2 = Math.exp((1e-6 * B22 * psat[1]) / rt)
+  let pf1 = 1
+  let pf2 = 1
+  if (vapor.poynting) {
+    pf1 = Math.exp((1e-6 * vapor.components[0].liquidMolarVolume! * (P - psat[0])) / rt)
+    pf2 = Math.exp((1e-6 * vapor.components[1].liquidMolarVolume! * (P - psat[1])) / rt)
+  }
+  return { phi: [phi1, phi2], phiSat: [s1, s2], poynting: [pf1, pf2], Phi: [phi1 / (s1 * pf1), phi2 / (s2 * pf2)] }
+}
+
+/**
+ * Warning when the virial equation truncated after B is doubtful: the vapour's reduced density exceeds half the
+ * critical density (Prausnitz, Lichtenthaler & de Azevedo, Molecular Thermodynamics of Fluid-Phase Equilibria,
+ * 3rd ed., ch. 5; from memory).
+ */
+export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, y1: number): string[] {
+  if (vapor.kind !== 'virial') return []
+  const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
+  const y2 = 1 - y1
+  const B = y1 * y1 * B11 + 2 * y1 * y2 * B12 + y2 * y2 * B22
+  const V = (R * T * 1e6) / P + B // cm³/mol
+  const Vc = y1 * vapor.components[0].Vc + y2 * vapor.components[1].Vc
+  if (V > 0 && Vc / V <= 0.5) return []
+  return [
+    `The vapour at ${T.toFixed(2)} K and ${(P / 1000).toPrecision(4)} kPa is denser than half its critical density; the virial equation truncated after B is doubtful there.`,
+  ]
+}
+
+const g = new Float64Array(4)
+const phiBuf = new Float64Array(5)
+const compiledCache = new WeakMap<object, CompiledVirial>()
+
+/** The compiled form of a vapour model, kept while the model object lives (models are treated as immutable). */
+function compiledVirial(v: VirialVapor): CompiledVirial {
+  let cv = compiledCache.get(v)
+  if (!cv) {
+    cv = compileVirial(v)
+    compiledCache.set(v, cv)
+  }
+  return cv
+}
+
+function psatOf(c: CompiledSystem, T: number): [number, number] {
+  return [Math.exp(c.vp1.a - c.vp1.b / (T + c.vp1.c)), Math.exp(c.vp2.a - c.vp2.b / (T + c.vp2.c))]
+}
+
+function virialOf(system: BinarySystem, vapor?: VaporModel): VirialVapor {
+  const v = vapor ?? (system as BinarySystem & { vapor?: VaporModel }).vapor
+  if (!v || v.kind !== 'virial')
+    throw new ThermoError('invalid-model', 'A γ–φ calculation needs a virial vapour model.')
+  checkVaporModel(v)
+  return v
+}
+
+/** Result of a γ–φ bubble or dew point: the usual fields plus the vapour fugacity coefficients φ̂ = [φ̂1, φ̂2]. */
+export interface GammaPhiResult {
+  converged: true
+  T: number
+  P: number
+  x1: number
+  y1: number
+  gamma: [number, number]
+  phi: [number, number]
+  Phi: [number, number]
+  iterations: number
+  warnings: string[]
+}
+
+/**
+ * γ–φ bubble temperature at P (Pa) and liquid x1: Newton on ln Σ xi·γi·Pi_sat/Φi − ln P with Φ carried from the
+ * last iterate (Φ changes slowly with T), stopped when T moves less than 1e-9 K and y1 less than 1e-12.
+ */
+export function bubbleTemperatureGammaPhi(
+  system: BinarySystem,
+  at: { P: number; x1: number },
+  vapor?: VaporModel,
+): GammaPhiResult {
+  const v = virialOf(system, vapor)
+  const c = compileSystem(system)
+  checkPressure(at.P)
+  checkMoleFraction(at.x1, 'x1')
+  const { P, x1 } = at
+  if (solveBubbleTGammaPhi(c, compiledVirial(v), Math.log(P), x1, phiBuf)) {
+    const T = res[0]
+    const y1 = res[1]
+    const Vc = 1e-6 * (y1 * v.components[0].Vc + (1 - y1) * v.components[1].Vc)
+    const sw = systemWarnings(c, T, x1)
+    return {
+      converged: true,
+      T,
+      P,
+      x1,
+      y1,
+      gamma: [res[2], res[3]],
+      phi: [phiBuf[0], phiBuf[1]],
+      Phi: [phiBuf[2], phiBuf[3]],
+      iterations: res[4],
+      warnings: phiBuf[4] > 0 && Vc / phiBuf[4] <= 0.5 ? sw : [...sw, ...virialValidityWarnings(v, T, P, y1)],
+    }
+  }
+  throw noConvergence('γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)
+}
+
+/** γ–φ bubble pressure at T (K) and liquid x1, by substitution on P and y (converges in a few steps below ~1 MPa). */
+export function bubblePressureGammaPhi(
+  system: BinarySystem,
+  at: { T: number; x1: number },
+  vapor?: VaporModel,
+): GammaPhiResult {
+  const v = virialOf(system, vapor)
+  const c = compileSystem(system)
+  checkTemperature(at.T)
+  checkMoleFraction(at.x1, 'x1')
+  const { T, x1 } = at
+  lnGammaT(c.act, x1, T, g)
+  const ps = psatOf(c, T)
+  const a1 = x1 * Math.exp(g[0]) * ps[0]
+  const a2 = (1 - x1) * Math.exp(g[1]) * ps[1]
+  let P = a1 + a2
+  let y1 = a1 / P
+  for (let it = 1; it <= 200; it++) {
+    const corr = vaporCorrection(v, T, P, y1, ps)
+    const Pn = a1 / corr.Phi[0] + a2 / corr.Phi[1]
+    const yn = a1 / corr.Phi[0] / Pn
+    const done = Math.abs(Pn - P) < 1e-11 * Pn && Math.abs(yn - y1) < 1e-13
+    P = Pn
+    y1 = yn
+    if (done) {
+      const fin = vaporCorrection(v, T, P, y1, ps)
+      return {
+        converged: true,
+        T,
+        P,
+        x1,
+        y1,
+        gamma: [Math.exp(g[0]), Math.exp(g[1])],
+        phi: fin.phi,
+        Phi: fin.Phi,
+        iterations: it,
+        warnings: [...systemWarnings(c, T, x1), ...virialValidityWarnings(v, T, P, y1)],
+      }
+    }
+    if (!Number.isFinite(P)) break
+  }
+  throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
+}
+
+/** γ–φ dew temperature at P (Pa) and vapour y1: Newton on T with the liquid composition updated by substitution. */
+export function dewTemperatureGammaPhi(
+  system: BinarySystem,
+  at: { P: number; y1: number },
+  vapor?: VaporModel,
+): GammaPhiResult {
+  const v = virialOf(system, vapor)
+  const c = compileSystem(system)
+  checkPressure(at.P)
+  checkMoleFraction(at.y1, 'y1')
+  const { P, y1 } = at
+  const y2 = 1 - y1
+  const start = dewTemperatureCompiled(c, P, y1)
+  let T = start.T
+  let x1 = start.x1
+  for (let it = 1; it <= 300; it++) {
+    lnGammaT(c.act, x1, T, g)
+    const ps = psatOf(c, T)
+    const corr = vaporCorrection(v, T, P, y1, ps)
+    const q1 = y1 > 0 ? (y1 * corr.Phi[0] * P) / (Math.exp(g[0]) * ps[0]) : 0
+    const q2 = y2 > 0 ? (y2 * corr.Phi[1] * P) / (Math.exp(g[1]) * ps[1]) : 0
+    const Q = q1 + q2
+    const d1 = T + c.vp1.c
+    const d2 = T + c.vp2.c
+    const fp = -(q1 * (g[2] + c.vp1.b / (d1 * d1)) + q2 * (g[3] + c.vp2.b / (d2 * d2))) / Q
+    const dT = -Math.log(Q) / fp
+    const xn = q1 / Q
+    const dx = Math.abs(xn - x1)
+    x1 = xn
+    if (!Number.isFinite(dT)) break
+    T += Math.max(-20, Math.min(20, dT))
+    if (Math.abs(dT) < 1e-9 && dx < 1e-12) {
+      lnGammaT(c.act, x1, T, g)
+      const fin = vaporCorrection(v, T, P, y1, psatOf(c, T))
+      return {
+        converged: true,
+        T,
+        P,
+        x1,
+        y1,
+        gamma: [Math.exp(g[0]), Math.exp(g[1])],
+        phi: fin.phi,
+        Phi: fin.Phi,
+        iterations: it,
+        warnings: [...systemWarnings(c, T, y1), ...virialValidityWarnings(v, T, P, y1)],
+      }
+    }
+  }
+  throw noConvergence('γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
+}

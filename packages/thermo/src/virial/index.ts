@@ -1,0 +1,3 @@
+export * from './virial-types.js'
+export * from './tsonopoulos.js'
+export * from './gamma-phi.js'
