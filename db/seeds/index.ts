@@ -12,15 +12,11 @@ const here = path.dirname(fileURLToPath(import.meta.url))
 async function main() {
   const url = process.env.DATABASE_URL
   if (!url) throw new Error('DATABASE_URL is not set')
-<<<<<<< HEAD
   if (process.env.NODE_ENV === 'production')
     throw new Error('The demo scenario (invented data) is refused with NODE_ENV=production.')
-  const db = new Kysely<any>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 2 }) }) })
-=======
   const db = new Kysely<Database>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 2 }) }),
   })
->>>>>>> main
   try {
     const ids = await seedUsers(db)
     if (existsSync(path.join(here, 'lab.ts'))) {

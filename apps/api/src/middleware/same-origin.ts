@@ -13,11 +13,7 @@ export function sameOrigin(publicUrl: string): RequestHandler {
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next()
     const source = req.get('origin') ?? req.get('referer')
-<<<<<<< HEAD
     let origin: string | null = null
-=======
-    let host: string | null
->>>>>>> main
     try {
       origin = source ? new URL(source).origin : null
     } catch {

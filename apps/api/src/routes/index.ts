@@ -5,11 +5,8 @@ import { type RouteDef } from './define.js'
 import { catalogueRoutes } from './catalogue.routes.js'
 import { componentRoutes } from './components.routes.js'
 import { dataSetRoutes } from './datasets.routes.js'
-<<<<<<< HEAD
-import { opsRoutes } from './ops.routes.js'
-=======
 import { directDataRoutes } from './direct-data.routes.js'
->>>>>>> main
+import { opsRoutes } from './ops.routes.js'
 import { reviewRoutes } from './review.routes.js'
 import { systemRoutes } from './systems.routes.js'
 
