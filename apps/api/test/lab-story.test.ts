@@ -124,6 +124,7 @@ describe('the lab story, end to end', () => {
       code: 'signature_refused',
       message: 'The password is not correct; nothing was signed.',
       details: null,
+      requestId: wrongPw.headers['x-request-id'],
     })
     const approved = await a.tobias
       .post(`/api/data-sets/${ds.body.id}/approve`)

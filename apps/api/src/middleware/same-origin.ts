@@ -13,7 +13,7 @@ export function sameOrigin(publicUrl: string): RequestHandler {
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next()
     const source = req.get('origin') ?? req.get('referer')
-    let origin: string | null = null
+    let origin: string | null
     try {
       origin = source ? new URL(source).origin : null
     } catch {
