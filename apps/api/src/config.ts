@@ -18,6 +18,7 @@ const schema = z.object({
   FAKE_SMTP: bool.optional(),
   MAIL_VIEWER: bool.optional(),
   SMTP_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
+  MAIL_POLL_MS: z.coerce.number().int().positive().default(2000),
   MAIL_MAX_ATTEMPTS: z.coerce.number().int().positive().default(12),
   MAIL_MAX_REFUSED_ATTEMPTS: z.coerce.number().int().positive().default(3),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
@@ -58,6 +59,7 @@ export interface Config {
   /** The admins' captured-mail screen (development and tests; off in production unless MAIL_VIEWER=true). */
   mailViewer: boolean
   smtpTimeoutMs: number
+  mailPollMs: number
   mailMaxAttempts: number
   mailMaxRefusedAttempts: number
   fakeSmtpPort: number
@@ -107,6 +109,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     fakeSmtp: e.FAKE_SMTP ?? !production,
     mailViewer: e.MAIL_VIEWER ?? !production,
     smtpTimeoutMs: e.SMTP_TIMEOUT_MS,
+    mailPollMs: e.MAIL_POLL_MS,
     mailMaxAttempts: e.MAIL_MAX_ATTEMPTS,
     mailMaxRefusedAttempts: e.MAIL_MAX_REFUSED_ATTEMPTS,
     fakeSmtpPort: e.FAKE_SMTP_PORT,

@@ -21,7 +21,7 @@ const mailer = new Mailer(db, smtpUrl, config.mailFrom, logger, {
   maxAttempts: config.mailMaxAttempts,
   maxRefusedAttempts: config.mailMaxRefusedAttempts,
 })
-mailer.start()
+mailer.start(config.mailPollMs)
 const sessions = new Sessions(db, config)
 const lifecycle = { stopping: false }
 const app = createApp({ db, config, sessions, mailer }, logger, undefined, { pool, lifecycle, processMetrics: true })

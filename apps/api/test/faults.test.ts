@@ -67,8 +67,8 @@ describe('the database goes away and comes back', () => {
         code: 'database_unavailable',
         message: 'The database cannot be reached right now. Nothing was changed; try again in a few seconds.',
         details: null,
-        requestId: me.headers.get('x-request-id'),
       },
+      requestId: me.headers.get('x-request-id'),
     })
     const write = await call('POST', '/api/auth/sign-in', { body: { email: 'ana@lab.test', password: PASSWORD } })
     expect(write.status).toBe(503)

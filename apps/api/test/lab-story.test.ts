@@ -124,7 +124,6 @@ describe('the lab story, end to end', () => {
       code: 'signature_refused',
       message: 'The password is not correct; nothing was signed.',
       details: null,
-      requestId: wrongPw.headers['x-request-id'],
     })
     const approved = await a.tobias
       .post(`/api/data-sets/${ds.body.id}/approve`)

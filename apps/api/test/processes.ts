@@ -2,11 +2,12 @@
 import { spawn, type ChildProcess } from 'node:child_process'
 import { createServer } from 'node:net'
 import path from 'node:path'
-import { fileURLToPath } from 'node:url'
+import { fileURLToPath, pathToFileURL } from 'node:url'
 import { createRequire } from 'node:module'
 
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..')
 const tsxCli = createRequire(import.meta.url).resolve('tsx/cli')
+const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm')).href
 
 /** A TCP port nobody listens on right now (the OS picks it). */
 export function freePort(): Promise<number> {
@@ -31,7 +32,7 @@ export interface ApiProcess {
   stop: (signal?: NodeJS.Signals) => Promise<number | null>
 }
 
-export async function waitFor(url: string, ok: (status: number) => boolean, timeoutMs = 45_000): Promise<void> {
+export async function waitFor(url: string, ok: (status: number) => boolean, timeoutMs = 120_000): Promise<void> {
   const until = Date.now() + timeoutMs
   for (;;) {
     try {
@@ -49,7 +50,8 @@ export async function waitFor(url: string, ok: (status: number) => boolean, time
 export async function startApi(env: Record<string, string>): Promise<ApiProcess> {
   const port = Number(env.PORT ?? (await freePort()))
   const url = `http://127.0.0.1:${port}`
-  const proc = spawn(process.execPath, [tsxCli, path.join(repoRoot, 'apps/api/src/server.ts')], {
+  // node --import tsx/esm: one process (no tsx wrapper), so a signal reaches the app itself.
+  const proc = spawn(process.execPath, ['--import', tsxLoader, path.join(repoRoot, 'apps/api/src/server.ts')], {
     cwd: repoRoot,
     env: {
       ...process.env,
@@ -69,8 +71,13 @@ export async function startApi(env: Record<string, string>): Promise<ApiProcess>
   const early = exited.then((code) => {
     throw new Error(`the API exited (${code}) before it answered:\n${out}`)
   })
-  await Promise.race([waitFor(`${url}/api/health`, (s) => s === 200), early])
   early.catch(() => {})
+  try {
+    await Promise.race([waitFor(`${url}/api/health`, (s) => s === 200), early])
+  } catch (e) {
+    proc.kill('SIGKILL') // never leave a half-started app behind
+    throw e
+  }
   return {
     url,
     port,

@@ -5,13 +5,13 @@ import { databaseUnavailable, isDatabaseUnavailable } from './unavailable.js'
 
 type Res = Parameters<ErrorRequestHandler>[2]
 
-/** Every error answer: `{ error: { code, message, details, requestId } }` (requestId also in the X-Request-Id header). */
+/** Every error answer: `{ error: { code, message, details }, requestId }` (requestId also in the X-Request-Id header). */
 function send(res: Res, status: number, code: string, message: string, details: unknown = null): void {
   const requestId = (res.req as { id?: unknown }).id
-  res.status(status).json({ error: { code, message, details: details ?? null, requestId: requestId ?? null } })
+  res.status(status).json({ error: { code, message, details: details ?? null }, requestId: requestId ?? null })
 }
 
-/** Turns every error into `{ error: { code, message, details, requestId } }`; unknown errors are logged and answered generically. */
+/** Turns every error into `{ error: { code, message, details }, requestId }`; unknown errors are logged and answered generically. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof AppError) {
     if (err.status === 503) res.set('Retry-After', '5')

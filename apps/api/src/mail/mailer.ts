@@ -13,6 +13,17 @@ export interface MailerOptions {
   maxAttempts?: number
 }
 
+/**
+ * The SMTP URL with connection, greeting and socket timeouts as query options (nodemailer reads options from the
+ * URL's query; an explicit option in SMTP_URL wins).
+ */
+export function withTimeouts(smtpUrl: string, ms: number): string {
+  const u = new URL(smtpUrl)
+  for (const k of ['connectionTimeout', 'greetingTimeout', 'socketTimeout'])
+    if (!u.searchParams.has(k)) u.searchParams.set(k, String(ms))
+  return u.toString()
+}
+
 /** SMTP reply codes 5xx are permanent (RFC 5321 §4.2.1): trying again later will not help. */
 function isPermanent(err: unknown): boolean {
   const code = Number((err as { responseCode?: unknown }).responseCode)
@@ -44,11 +55,7 @@ export class Mailer {
     this.timeoutMs = options.timeoutMs ?? 15_000
     this.maxRefused = options.maxRefusedAttempts ?? 3
     this.maxAttempts = options.maxAttempts ?? 12
-    this.transport = nodemailer.createTransport(smtpUrl, {
-      connectionTimeout: this.timeoutMs,
-      greetingTimeout: this.timeoutMs,
-      socketTimeout: this.timeoutMs,
-    } as never)
+    this.transport = nodemailer.createTransport(withTimeouts(smtpUrl, this.timeoutMs))
   }
 
   /** Send what is due now; returns how many were delivered. Safe to call concurrently, and from several replicas. */

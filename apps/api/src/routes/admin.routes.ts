@@ -89,4 +89,34 @@ export const adminRoutes = defineRoutes([
       res.json({ items })
     },
   },
+  {
+    method: 'get',
+    path: '/api/admin/mail-outbox',
+    access: ['admin'],
+    handler: async (req, res) => {
+      // Mail that could not be delivered: given up (refused for good, or too many tries) or still failing.
+      const { status } = parseQuery(z.object({ status: z.enum(['failed', 'retrying']).default('failed') }), req)
+      let q = ctx(req)
+        .db.selectFrom('mail_outbox')
+        .select(['id', 'to_address', 'subject', 'created_at', 'attempts', 'last_error', 'next_attempt_at', 'failed_at'])
+        .where('sent_at', 'is', null)
+      q =
+        status === 'failed'
+          ? q.where('failed_at', 'is not', null)
+          : q.where('failed_at', 'is', null).where('attempts', '>', 0)
+      const rows = await q.orderBy('id', 'desc').limit(200).execute()
+      res.json({
+        items: rows.map((r) => ({
+          id: r.id,
+          to: r.to_address,
+          subject: r.subject,
+          createdAt: r.created_at,
+          attempts: r.attempts,
+          lastError: r.last_error,
+          nextAttemptAt: r.failed_at ? null : r.next_attempt_at,
+          failedAt: r.failed_at,
+        })),
+      })
+    },
+  },
 ])
