@@ -7,7 +7,7 @@
  */
 import { lnGammaT } from '../activity/kernel.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
-import { bubbleTemperatureCompiled, dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
+import { dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
 import { compileSystem, noConvergence, systemWarnings, type CompiledSystem } from '../equilibrium/system.js'
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'

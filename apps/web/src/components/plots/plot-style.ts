@@ -1,4 +1,5 @@
 /** Ebullio's plot look and the helpers every plot shares: palette, axes, unit labels, file export. */
+import { fromKelvin, temperatureDifferenceFromKelvin } from '@ebullio/thermo/units'
 import type { TemperatureUnit } from './plot-types'
 
 /** Curve colours in order of use (slate blue, plum, moss, brick, deep teal, ochre): none is the colour of a measured point. */
@@ -11,14 +12,14 @@ export const WARN = '#a3321f'
 export const LIQUID = { colour: '#1a545c', symbol: 'circle' }
 export const VAPOUR = { colour: '#c98a12', symbol: 'diamond' }
 
-/** Temperature in kelvin → the shown unit. */
+/** Temperature in kelvin → the shown unit (the engine's conversion). */
 export function showT(T: number, unit: TemperatureUnit): number {
-  return unit === 'C' ? T - 273.15 : unit === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T
+  return fromKelvin(T, unit)
 }
 
 /** A temperature difference in K → the shown unit (× 9/5 in °F). */
 export function showDT(d: number, unit: TemperatureUnit): number {
-  return unit === 'F' ? (d * 9) / 5 : d
+  return temperatureDifferenceFromKelvin(d, unit)
 }
 
 /** The unit's symbol: "°C", "K" or "°F". */
