@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test'
+import { expect as baseExpect, test, type Page } from '@playwright/test'
 import path from 'node:path'
 import { DEMO, shot, signIn } from './support/helpers'
 
@@ -8,13 +8,15 @@ import { DEMO, shot, signIn } from './support/helpers'
 // The typed ethanol/water points are INVENTED, shaped like the published diagram (from memory).
 const examples = path.resolve('docs/examples')
 const run = Date.now().toString(36)
+// This machine is shared and slow at times: screens get longer than the default 10 s to settle.
+const expect = baseExpect.configure({ timeout: 30_000 })
 
 async function pick(page: Page, label: string, text: string, option: string | RegExp) {
   await page.getByLabel(label, { exact: true }).fill(text)
   await page.getByRole('option', { name: option }).first().click()
 }
 
-test.describe.configure({ timeout: 120_000 })
+test.describe.configure({ timeout: 180_000 })
 
 test('an analyst creates ethanol/water from its components, types points measured by another method, and imports literature data', async ({
   page,
@@ -45,7 +47,9 @@ test('an analyst creates ethanol/water from its components, types points measure
   await expect(page.getByLabel('Binary system', { exact: true })).toHaveValue('ethanol / water')
 
   await page.getByTestId('origin-other-method').click()
-  await page.getByTestId('origin-method').fill('Refractive index at 25 °C of both phases against a gravimetric calibration')
+  await page
+    .getByTestId('origin-method')
+    .fill('Refractive index at 25 °C of both phases against a gravimetric calibration')
   await snap(page, 'day-03-new-dataset-origin')
   await page.getByTestId('create-dataset').click()
 
@@ -121,9 +125,15 @@ test('a lead chemist records a pure boiling point and thermometer checks, and ma
   page,
 }) => {
   await signIn(page, DEMO.lead)
-  await page.getByRole('complementary', { name: 'Main navigation' }).getByRole('link', { name: 'Components and systems' }).click()
+  await page
+    .getByRole('complementary', { name: 'Main navigation' })
+    .getByRole('link', { name: 'Components and systems' })
+    .click()
   await page.getByTestId('component-search').fill('ethanol')
-  await page.getByTestId('components-table').getByRole('row', { name: /^ethanol/ }).click()
+  await page
+    .getByTestId('components-table')
+    .getByRole('row', { name: /^ethanol/ })
+    .click()
   await page.getByTestId('add-pure').click()
   await page.getByRole('spinbutton', { name: /^T \// }).fill('78.45')
   await page.getByRole('spinbutton', { name: /^P \// }).fill('101.325')
@@ -134,7 +144,10 @@ test('a lead chemist records a pure boiling point and thermometer checks, and ma
   await expect(page.getByTestId('pure-dT').first()).toHaveText('+0.25')
   await snap(page, 'day-10-pure-boiling-point')
 
-  await page.getByRole('complementary', { name: 'Main navigation' }).getByRole('link', { name: 'Instrument checks' }).click()
+  await page
+    .getByRole('complementary', { name: 'Main navigation' })
+    .getByRole('link', { name: 'Instrument checks' })
+    .click()
   for (const [i, t] of ['99.98', '100.01', '99.97', '100.02', '100.45'].entries()) {
     await page.getByTestId('check-instrument').fill('T-3')
     if (i === 0) {
