@@ -25,7 +25,7 @@ const VENDOR_GROUPS = [
   },
   {
     name: 'thermo',
-    test: /[\\/](packages[\\/]thermo[\\/]src|node_modules[\\/](\.pnpm[\\/][^\\/]+[\\/]node_modules[\\/])?(mathjs|decimal\.js|complex\.js|fraction\.js|typed-function|javascript-natural-sort|escape-latex|seedrandom|tiny-emitter|ml-[^\\/]+))[\\/]/,
+    test: /[\\/]packages[\\/]thermo[\\/]src[\\/](?!units\.ts|errors\.ts)/,
     priority: 20,
   },
   {

@@ -157,15 +157,13 @@ function literaturePoints(xs = [0.1, 0.3, 0.5, 0.7, 0.9]) {
 }
 
 async function literatureSet(agent = lab.analyst) {
-  const r = await agent
-    .post('/api/data-sets')
-    .send({
-      systemId: lab.systemId,
-      title: 'Literature comparison',
-      nominalPressurePa: 101325,
-      origin: 'literature',
-      citation,
-    })
+  const r = await agent.post('/api/data-sets').send({
+    systemId: lab.systemId,
+    title: 'Literature comparison',
+    nominalPressurePa: 101325,
+    origin: 'literature',
+    citation,
+  })
   expect(r.status, JSON.stringify(r.body)).toBe(201)
   return r.body as { id: string; rowVersion: number; origin: string }
 }
@@ -284,6 +282,7 @@ describe('literature data in the signed record and in approval', () => {
     let r = await lab.analyst
       .post(`/api/data-sets/${d.id}/points`)
       .send({ rowVersion: d.rowVersion, points: literaturePoints() })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
     const fits = await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['wilson'] })
     expect(fits.status, JSON.stringify(fits.body)).toBe(201)
     let v = (await lab.analyst.get(`/api/data-sets/${d.id}`)).body
@@ -373,16 +372,14 @@ describe('pure-component boiling points and instrument checks', () => {
     expect(baro.body.deviation / 1000).toBeLessThan(2.24 + 0.15)
     const list = await lab.reviewer.get('/api/check-measurements?kind=thermometer&instrument=T-3').expect(200)
     expect(list.body.items.map((i: { id: string }) => i.id)).toEqual([th.body.id])
-    const none = await lab.analyst
-      .post('/api/check-measurements')
-      .send({
-        kind: 'thermometer',
-        instrument: 'T-3',
-        componentId: comp.ethanol,
-        temperatureK: 351,
-        pressurePa: 101325,
-        measuredAt: '2026-12-01',
-      })
+    const none = await lab.analyst.post('/api/check-measurements').send({
+      kind: 'thermometer',
+      instrument: 'T-3',
+      componentId: comp.ethanol,
+      temperatureK: 351,
+      pressurePa: 101325,
+      measuredAt: '2026-12-01',
+    })
     expect(none.status).toBe(409)
     expect(none.body.error.message).toBe(
       'The reference liquid has no vapour-pressure correlation; add one before recording checks with it.',

@@ -38,7 +38,7 @@ export async function getComponent(db: Db, id: string) {
   const model = sets[0]?.parameters as unknown as VaporPressureModel | undefined
   // Each boiling point beside the temperature the preferred correlation gives at its pressure.
   const pureMeasurements = (await repo.listPureMeasurements(db, id)).map((m) => {
-    let correlatedK: number | null = null
+    let correlatedK: number | null
     try {
       correlatedK = model ? saturationTemperature(model, m.pressurePa) : null
     } catch {

@@ -1,6 +1,9 @@
+import { fromPascal, PASCALS_PER } from '@ebullio/thermo'
 import { createPinia, setActivePinia } from 'pinia'
 import { beforeEach, describe, expect, it } from 'vitest'
 import { PA_PER, PRESSURE_CHOICES, roundShown, TEMPERATURE_CHOICES, usePreferencesStore } from './preferences'
+
+type PressureChoiceName = (typeof PRESSURE_CHOICES)[number]['value']
 
 beforeEach(() => {
   localStorage.clear()
@@ -40,8 +43,33 @@ describe('preferences: display units', () => {
   it('shows 1 atm as 14.696 psi (1 psi = 6894.757293168 Pa, NIST SP 811, 2008 ed., Appendix B.8, from memory)', () => {
     const p = usePreferencesStore()
     p.pressureUnit = 'psi'
-    expect(PA_PER.psi).toBe(6894.757293168)
     expect(p.fmtP(101325)).toBe('14.696 psi')
+  })
+
+  // Pascals per unit as printed in NIST SP 811 (2008 ed.), App. B.8 (7 significant figures, from memory).
+  const PRINTED: [PressureChoiceName, number][] = [
+    ['kPa', 1e3],
+    ['mmHg', 1.333224e2],
+    ['bar', 1e5],
+    ['atm', 1.01325e5],
+    ['psi', 6.894757e3],
+  ]
+  for (const [unit, pa] of PRINTED) {
+    it(`converts ${unit} as the engine does, and as NIST SP 811 prints it (1 ${unit} = ${pa} Pa)`, () => {
+      const p = usePreferencesStore()
+      p.pressureUnit = unit
+      expect(Math.abs(p.pToPa(1) / pa - 1)).toBeLessThan(5e-7)
+      expect(p.pToPa(2.5)).toBe(2.5 * PASCALS_PER[unit])
+      expect(p.pFromPa(87654.3)).toBeCloseTo(fromPascal(87654.3, unit), 12)
+      expect(PA_PER[unit]).toBe(PASCALS_PER[unit])
+    })
+  }
+
+  it('shows the standard atmosphere as 760.0 mmHg and 1.0133 bar', () => {
+    const p = usePreferencesStore()
+    p.pressureUnit = 'mmHg'
+    expect(p.fmtP(101325)).toBe('760.0 mmHg')
+    expect(p.pToPa(760)).toBeCloseTo(101325.0144354, 6) // 760 × 133.322387415: the mmHg is not quite the torr
   })
 
   it('rounds a pressure the same way in a field and in a label (101325 Pa → 1.0133 bar)', () => {

@@ -1,3 +1,4 @@
+import { fromKelvin, PASCALS_PER, temperatureDifferenceFromKelvin, toKelvin } from '@ebullio/thermo/units'
 import { defineStore } from 'pinia'
 import { ref, watch } from 'vue'
 
@@ -20,18 +21,12 @@ export const PRESSURE_CHOICES: { value: PressureChoice; label: string }[] = [
 ]
 
 /**
- * Pascals per display unit. Kept here rather than imported from @ebullio/thermo's units module,
- * which pulls mathjs into the first page; the values are the same conventional ones
- * (BIPM SI Brochure, 9th ed., 2019, Table 8: 1 mmHg = 133.322387415 Pa, 1 atm = 101325 Pa, 1 bar = 1e5 Pa;
- * NIST SP 811, 2008 ed., Appendix B.8 (from memory): 1 psi = 6894.757293168 Pa).
+ * Pascals per display unit: the engine's one table of factors (`@ebullio/thermo/units`, exact definitions with
+ * their sources), which imports nothing else of the engine, so the first page stays small.
  */
-export const PA_PER: Readonly<Record<PressureChoice, number>> = {
-  kPa: 1000,
-  mmHg: 133.322387415,
-  bar: 1e5,
-  atm: 101325,
-  psi: 6894.757293168,
-}
+export const PA_PER: Readonly<Record<PressureChoice, number>> = Object.fromEntries(
+  PRESSURE_CHOICES.map((c) => [c.value, PASCALS_PER[c.value]]),
+) as Record<PressureChoice, number>
 /** Decimals that keep a typical laboratory reading meaningful in each unit. */
 const P_DECIMALS: Record<PressureChoice, number> = { kPa: 2, mmHg: 1, bar: 4, atm: 4, psi: 3 }
 
@@ -84,14 +79,12 @@ export const usePreferencesStore = defineStore('preferences', () => {
   /** Label of the pressure unit. */
   const pLabel = () => pressureUnit.value
 
-  /** Kelvin → display value (°F = (T − 273.15)·9/5 + 32, exact by definition). */
-  const tFromK = (T: number) =>
-    temperatureUnit.value === 'C' ? T - 273.15 : temperatureUnit.value === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T
+  /** Kelvin → display value (the engine's conversion). */
+  const tFromK = (T: number) => fromKelvin(T, temperatureUnit.value)
   /** Display value → kelvin. */
-  const tToK = (v: number) =>
-    temperatureUnit.value === 'C' ? v + 273.15 : temperatureUnit.value === 'F' ? ((v - 32) * 5) / 9 + 273.15 : v
+  const tToK = (v: number) => toKelvin(v, temperatureUnit.value)
   /** A temperature difference in K → the display unit's difference (the same number in °C, × 9/5 in °F). */
-  const dT = (d: number) => (temperatureUnit.value === 'F' ? (d * 9) / 5 : d)
+  const dT = (d: number) => temperatureDifferenceFromKelvin(d, temperatureUnit.value)
   /** Pascal → display value. */
   const pFromPa = (P: number) => P / PA_PER[pressureUnit.value]
   /** Display value → pascal. */

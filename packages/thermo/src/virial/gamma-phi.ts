@@ -7,9 +7,11 @@
  */
 import { lnGammaT } from '../activity/kernel.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
-import { bubbleTemperatureCompiled, dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
+import { dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
 import { compileSystem, noConvergence, systemWarnings, type CompiledSystem } from '../equilibrium/system.js'
 import { R, type BinarySystem } from '../types.js'
+import { res } from '../equilibrium/kernel.js'
+import { compileVirial, solveBubbleTGammaPhi, type CompiledVirial } from './kernel.js'
 import { checkVaporModel, secondVirialCoefficients } from './tsonopoulos.js'
 import type { VaporCorrection, VaporModel } from './virial-types.js'
 
@@ -61,6 +63,18 @@ export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, 
 }
 
 const g = new Float64Array(4)
+const phiBuf = new Float64Array(5)
+const compiledCache = new WeakMap<object, CompiledVirial>()
+
+/** The compiled form of a vapour model, kept while the model object lives (models are treated as immutable). */
+function compiledVirial(v: VirialVapor): CompiledVirial {
+  let cv = compiledCache.get(v)
+  if (!cv) {
+    cv = compileVirial(v)
+    compiledCache.set(v, cv)
+  }
+  return cv
+}
 
 function psatOf(c: CompiledSystem, T: number): [number, number] {
   return [Math.exp(c.vp1.a - c.vp1.b / (T + c.vp1.c)), Math.exp(c.vp2.a - c.vp2.b / (T + c.vp2.c))]
@@ -102,41 +116,22 @@ export function bubbleTemperatureGammaPhi(
   checkPressure(at.P)
   checkMoleFraction(at.x1, 'x1')
   const { P, x1 } = at
-  const x2 = 1 - x1
-  const start = bubbleTemperatureCompiled(c, P, x1)
-  let T = start.T
-  let y1 = start.y1
-  for (let it = 1; it <= 100; it++) {
-    lnGammaT(c.act, x1, T, g)
-    const ps = psatOf(c, T)
-    const corr = vaporCorrection(v, T, P, y1, ps)
-    const k1 = x1 > 0 ? (x1 * Math.exp(g[0]) * ps[0]) / corr.Phi[0] : 0
-    const k2 = x2 > 0 ? (x2 * Math.exp(g[1]) * ps[1]) / corr.Phi[1] : 0
-    const S = k1 + k2
-    const d1 = T + c.vp1.c
-    const d2 = T + c.vp2.c
-    const fp = (k1 * (g[2] + c.vp1.b / (d1 * d1)) + k2 * (g[3] + c.vp2.b / (d2 * d2))) / S
-    const dT = -Math.log(S / P) / fp
-    const yn = k1 / S
-    const dy = Math.abs(yn - y1)
-    y1 = yn
-    if (!Number.isFinite(dT)) break
-    T += Math.max(-20, Math.min(20, dT))
-    if (Math.abs(dT) < 1e-9 && dy < 1e-12) {
-      lnGammaT(c.act, x1, T, g)
-      const fin = vaporCorrection(v, T, P, y1, psatOf(c, T))
-      return {
-        converged: true,
-        T,
-        P,
-        x1,
-        y1,
-        gamma: [Math.exp(g[0]), Math.exp(g[1])],
-        phi: fin.phi,
-        Phi: fin.Phi,
-        iterations: it,
-        warnings: [...systemWarnings(c, T, x1), ...virialValidityWarnings(v, T, P, y1)],
-      }
+  if (solveBubbleTGammaPhi(c, compiledVirial(v), Math.log(P), x1, phiBuf)) {
+    const T = res[0]
+    const y1 = res[1]
+    const Vc = 1e-6 * (y1 * v.components[0].Vc + (1 - y1) * v.components[1].Vc)
+    const sw = systemWarnings(c, T, x1)
+    return {
+      converged: true,
+      T,
+      P,
+      x1,
+      y1,
+      gamma: [res[2], res[3]],
+      phi: [phiBuf[0], phiBuf[1]],
+      Phi: [phiBuf[2], phiBuf[3]],
+      iterations: res[4],
+      warnings: phiBuf[4] > 0 && Vc / phiBuf[4] <= 0.5 ? sw : [...sw, ...virialValidityWarnings(v, T, P, y1)],
     }
   }
   throw noConvergence('γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)

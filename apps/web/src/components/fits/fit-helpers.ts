@@ -1,6 +1,6 @@
 /**
  * Pure helpers of the fit panel and plots, with no engine code, so the workspace can show tables at once
- * while @ebullio/thermo (which brings mathjs) loads in the background for the curves.
+ * while @ebullio/thermo loads in the background for the curves.
  */
 import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/thermo'
 import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'

@@ -1,4 +1,6 @@
 /** Ebullio's plot look and the helpers every plot shares: palette, axes, unit labels, file export. */
+import { slugify } from '@ebullio/schemas/csv-exports'
+import { fromKelvin, temperatureDifferenceFromKelvin } from '@ebullio/thermo/units'
 import type { TemperatureUnit } from './plot-types'
 
 /** Curve colours in order of use (slate blue, plum, moss, brick, deep teal, ochre): none is the colour of a measured point. */
@@ -11,14 +13,14 @@ export const WARN = '#a3321f'
 export const LIQUID = { colour: '#1a545c', symbol: 'circle' }
 export const VAPOUR = { colour: '#c98a12', symbol: 'diamond' }
 
-/** Temperature in kelvin → the shown unit. */
+/** Temperature in kelvin → the shown unit (the engine's conversion). */
 export function showT(T: number, unit: TemperatureUnit): number {
-  return unit === 'C' ? T - 273.15 : unit === 'F' ? ((T - 273.15) * 9) / 5 + 32 : T
+  return fromKelvin(T, unit)
 }
 
 /** A temperature difference in K → the shown unit (× 9/5 in °F). */
 export function showDT(d: number, unit: TemperatureUnit): number {
-  return unit === 'F' ? (d * 9) / 5 : d
+  return temperatureDifferenceFromKelvin(d, unit)
 }
 
 /** The unit's symbol: "°C", "K" or "°F". */
@@ -29,6 +31,18 @@ export function tUnit(unit: TemperatureUnit): string {
 /** Axis label of a temperature: "T / °C", "T / K" or "T / °F". */
 export function tLabel(unit: TemperatureUnit): string {
   return `T / ${tUnit(unit)}`
+}
+
+/**
+ * Text for an ECharts tooltip, which renders its formatter's string as HTML: every name that comes from the
+ * lab (sample labels, exclusion reasons, component, system and fit names) goes through this, so markup stays
+ * text. Labels drawn on the chart itself (canvas or SVG text) need no escaping.
+ */
+export function escapeHtml(s: unknown): string {
+  return String(s ?? '').replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  )
 }
 
 /** A number for a tooltip, with a fixed count of decimals and no trailing noise. */
@@ -129,12 +143,7 @@ export function saveFile(name: string, content: Blob | string, type = 'text/plai
   setTimeout(() => URL.revokeObjectURL(url), 1000)
 }
 
-/** A file name from a plot title: lower-case words joined by hyphens. */
+/** A file name from a plot title: the shared slug (letters of any script kept, lower-case, hyphens). */
 export function fileStem(title: string): string {
-  return (
-    title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '') || 'plot'
-  )
+  return slugify(title, 'plot')
 }

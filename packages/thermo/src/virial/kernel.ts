@@ -1,0 +1,116 @@
+/**
+ * Allocation-free γ–φ bubble-temperature kernel for the hot paths (fitting, diagrams, benchmarks). Same equations
+ * as gamma-phi.ts; the virial constants are reduced once per vapour model by {@link compileVirial}.
+ */
+import { lnGammaT } from '../activity/kernel.js'
+import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
+import type { CompiledSystem } from '../equilibrium/system.js'
+import { R } from '../types.js'
+import { crossCriticalConstants } from './tsonopoulos.js'
+import type { VaporModel } from './virial-types.js'
+
+/** A virial vapour reduced to numbers: per component (1, 2, cross) Tc, R·Tc/Pc in m³/mol, ω, a, b. */
+export interface CompiledVirial {
+  k: Float64Array // [Tc, RTc/Pc, ω, a, b] × (1, 2, 12)
+  VL1: number // m³/mol, 0 without Poynting
+  VL2: number
+}
+
+/** Reduce a virial vapour model once (call {@link checkVaporModel} first). */
+export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): CompiledVirial {
+  const [c1, c2] = v.components
+  const x = crossCriticalConstants(c1, c2, v.k12 ?? 0)
+  const k = new Float64Array(15)
+  const put = (i: number, Tc: number, Pc: number, w: number, a: number, b: number) => {
+    k[5 * i] = Tc
+    k[5 * i + 1] = (R * Tc) / Pc
+    k[5 * i + 2] = w
+    k[5 * i + 3] = a
+    k[5 * i + 4] = b
+  }
+  put(0, c1.Tc, c1.Pc, c1.omega, c1.tsonopoulos?.a ?? 0, c1.tsonopoulos?.b ?? 0)
+  put(1, c2.Tc, c2.Pc, c2.omega, c2.tsonopoulos?.a ?? 0, c2.tsonopoulos?.b ?? 0)
+  put(2, x.Tc, x.Pc, x.omega, v.cross?.a12 ?? 0, v.cross?.b12 ?? 0)
+  return {
+    k,
+    VL1: v.poynting ? 1e-6 * (c1.liquidMolarVolume ?? 0) : 0,
+    VL2: v.poynting ? 1e-6 * (c2.liquidMolarVolume ?? 0) : 0,
+  }
+}
+
+/** B of entry i (0: B11, 1: B22, 2: B12) at T, m³/mol (Tsonopoulos). */
+function B(k: Float64Array, i: number, T: number): number {
+  const o = 5 * i
+  const i1 = k[o] / T
+  const i2 = i1 * i1
+  const i3 = i2 * i1
+  const i6 = i3 * i3
+  const i8 = i6 * i2
+  const f0 = 0.1445 - 0.33 * i1 - 0.1385 * i2 - 0.0121 * i3 - 0.000607 * i8
+  const f1 = 0.0637 + 0.331 * i2 - 0.423 * i3 - 0.008 * i8
+  return (f0 + k[o + 2] * f1 + k[o + 3] * i6 - k[o + 4] * i8) * k[o + 1]
+}
+
+const g = new Float64Array(4)
+
+/**
+ * γ–φ bubble temperature at ln(P/Pa) = lnP and x1. Writes res[0] T, res[1] y1, res[2] γ1, res[3] γ2, res[4]
+ * iterations (ideal start + γ–φ), res[5] P; into phiOut: φ̂1, φ̂2, Φ1, Φ2 (of the last iterate) and the vapour's
+ * molar volume RT/P + B_mix (m³/mol). @returns false when it does not converge.
+ */
+export function solveBubbleTGammaPhi(
+  c: CompiledSystem,
+  v: CompiledVirial,
+  lnP: number,
+  x1: number,
+  phiOut: Float64Array,
+): boolean {
+  if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))) return false
+  const P = Math.exp(lnP)
+  const x2 = 1 - x1
+  let T = res[0]
+  let y1 = res[1]
+  const start = res[4]
+  const { vp1, vp2 } = c
+  for (let it = 1; it <= 100; it++) {
+    lnGammaT(c.act, x1, T, g)
+    const d1 = T + vp1.c
+    const d2 = T + vp2.c
+    const ps1 = Math.exp(vp1.a - vp1.b / d1)
+    const ps2 = Math.exp(vp2.a - vp2.b / d2)
+    const b11 = B(v.k, 0, T)
+    const b22 = B(v.k, 1, T)
+    const d12 = 2 * B(v.k, 2, T) - b11 - b22
+    const rt = R * T
+    const y2 = 1 - y1
+    // ln Φi = [P(Bii + yj²δ12) − Bii·Pi_sat − V_L(P − Pi_sat)]/RT
+    const lnPhi1 = (P * (b11 + y2 * y2 * d12) - b11 * ps1 - v.VL1 * (P - ps1)) / rt
+    const lnPhi2 = (P * (b22 + y1 * y1 * d12) - b22 * ps2 - v.VL2 * (P - ps2)) / rt
+    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lnPhi1) * ps1 : 0
+    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lnPhi2) * ps2 : 0
+    const S = k1 + k2
+    const fp = (k1 * (g[2] + vp1.b / (d1 * d1)) + k2 * (g[3] + vp2.b / (d2 * d2))) / S
+    const dT = -Math.log(S / P) / fp
+    const yn = k1 / S
+    const dy = yn - y1
+    y1 = yn
+    if (!Number.isFinite(dT)) return false
+    T += dT > 20 ? 20 : dT < -20 ? -20 : dT
+    if (dT < 1e-9 && dT > -1e-9 && dy < 1e-12 && dy > -1e-12) {
+      res[0] = T
+      res[1] = y1
+      res[2] = Math.exp(g[0])
+      res[3] = Math.exp(g[1])
+      res[4] = start + it
+      res[5] = P
+      phiOut[0] = Math.exp((P * (b11 + y2 * y2 * d12)) / rt)
+      phiOut[1] = Math.exp((P * (b22 + y1 * y1 * d12)) / rt)
+      phiOut[2] = Math.exp(lnPhi1)
+      phiOut[3] = Math.exp(lnPhi2)
+      // molar volume of the vapour, m³/mol, for the validity check: RT/P + B_mix
+      phiOut[4] = rt / P + y1 * y1 * b11 + 2 * y1 * y2 * (0.5 * (d12 + b11 + b22)) + y2 * y2 * b22
+      return true
+    }
+  }
+  return false
+}
