@@ -49,7 +49,7 @@ async function draftWithRun(
   return { id: d.id, rowVersion: r.rowVersion, pointIds: r.pointIds }
 }
 
-/** Fit, submit and (as the lead chemist) mark the recommended fit; returns the row version to sign. */
+/** Fit, test, (as the lead chemist) mark the recommended fit, then submit; returns the row version to sign. */
 async function fitAndSubmit(
   ctx: SeedContext,
   id: string,
@@ -58,10 +58,11 @@ async function fitAndSubmit(
   by: SessionUser = ctx.users.analyst,
 ): Promise<number> {
   const run = await fits.runFits(ctx.db, by, id, { models })
-  const rowVersion = (await safeConsistency(ctx, id, recommended)) ?? run.rowVersion
-  await workflow.submit(ctx.db, ctx.config, by, id, rowVersion)
+  await safeConsistency(ctx, id, recommended)
+  // Chosen before submitting: a revision's carried-over recommended fit may rest on other points (stale).
   const fit = run.fits.find((f) => f.model === recommended)!
-  return (await fits.markRecommended(ctx.db, ctx.users.lead, id, fit.id)).rowVersion
+  const marked = await fits.markRecommended(ctx.db, ctx.users.lead, id, fit.id)
+  return (await workflow.submit(ctx.db, ctx.config, by, id, marked.rowVersion)).rowVersion
 }
 
 /** The area and point tests; a data set the engine cannot test (too few points) is still seeded. */

@@ -93,6 +93,10 @@ export interface FitDto<D = string> {
   pointIds: string[]
   runBy: string
   runAt: D
+  /** SHA-256 of the point set the fit was computed on (null: computed before it was kept) */
+  pointSetDigest: string | null
+  /** included points of that point set */
+  pointCount: number | null
 }
 
 /** An approved version of a data set in the catalogue, with the fit it was approved with. */
