@@ -10,6 +10,7 @@ import type { AppServices } from './context.js'
 import { AppError, notFound } from './errors/index.js'
 import { errorHandler } from './errors/handler.js'
 import { authorize } from './middleware/authorize.js'
+import { rejectInvalidText } from './middleware/invalid-text.js'
 import { sameOrigin } from './middleware/same-origin.js'
 import { sessionContext } from './middleware/session.js'
 import type { RouteDef } from './routes/define.js'
@@ -49,7 +50,7 @@ function signInLimiters(services: AppServices) {
 function mount(router: express.Router, routes: RouteDef[]) {
   for (const r of routes) {
     const handlers = Array.isArray(r.handler) ? r.handler : [r.handler]
-    router[r.method](r.path, authorize(r.access), ...handlers)
+    router[r.method](r.path, authorize(r.access), rejectInvalidText, ...handlers)
   }
 }
 

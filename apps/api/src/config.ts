@@ -22,6 +22,7 @@ const schema = z.object({
     .int()
     .positive()
     .default(5 * 1024 * 1024),
+  UPLOAD_MAX_ROWS: z.coerce.number().int().positive().default(20_000),
   JSON_LIMIT: z.string().default('1mb'),
   SERVE_WEB: bool.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -31,6 +32,18 @@ const schema = z.object({
   RESET_MINUTES: z.coerce.number().positive().default(30),
   ALLOW_SELF_APPROVAL: bool.default(false),
   REPLICATE_RSD_LIMIT: z.coerce.number().positive().max(1).default(0.02),
+  LAB_NAME: z.string().min(1).default('Ebullio laboratory'),
+  REPORT_TIME_ZONE: z
+    .string()
+    .default('UTC')
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en', { timeZone: tz })
+        return true
+      } catch {
+        return false
+      }
+    }, 'must be an IANA time zone such as UTC or Europe/Berlin'),
 })
 
 export interface Config {
@@ -48,6 +61,8 @@ export interface Config {
   cookieSecure: 'auto' | 'true' | 'false'
   demoData: boolean
   uploadMaxBytes: number
+  /** data rows one uploaded CSV file may hold (its header not counted) */
+  uploadMaxRows: number
   jsonLimit: string
   serveWeb: boolean
   logLevel: string
@@ -57,6 +72,10 @@ export interface Config {
   resetMinutes: number
   allowSelfApproval: boolean
   replicateRsdLimit: number
+  /** printed at the head of every report */
+  labName: string
+  /** time zone (IANA) of the dates and times printed on reports */
+  reportTimeZone: string
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -81,6 +100,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     cookieSecure: e.COOKIE_SECURE,
     demoData: e.DEMO_DATA,
     uploadMaxBytes: e.UPLOAD_MAX_BYTES,
+    uploadMaxRows: e.UPLOAD_MAX_ROWS,
     jsonLimit: e.JSON_LIMIT,
     serveWeb: e.SERVE_WEB,
     logLevel: e.LOG_LEVEL,
@@ -90,5 +110,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     resetMinutes: e.RESET_MINUTES,
     allowSelfApproval: e.ALLOW_SELF_APPROVAL,
     replicateRsdLimit: e.REPLICATE_RSD_LIMIT,
+    labName: e.LAB_NAME,
+    reportTimeZone: e.REPORT_TIME_ZONE,
   }
 }

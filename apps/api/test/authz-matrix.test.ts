@@ -78,6 +78,9 @@ const expected: Record<string, Access> = {
   'GET /api/data-sets/:id/export/parameters.csv': 'authenticated',
   'GET /api/uploads/:id/content': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/audit': ['admin'],
+  // printed reports (issue 11): engineers get 404 for versions not approved or superseded
+  'GET /api/data-sets/:id/report.pdf': 'authenticated',
+  'GET /api/reports/:id/verify': 'authenticated',
   'POST /api/data-sets/:id/points': ['analyst', 'lead_chemist'],
   'POST /api/data-sets/:id/point-sheets/preview': ['analyst', 'lead_chemist'],
   'POST /api/data-sets/:id/point-sheets': ['analyst', 'lead_chemist'],

@@ -1,5 +1,6 @@
 import type { AuthTables } from './auth-tables.js'
 import type { LabTables } from './lab-tables.js'
+import type { ReportTables } from './report-tables.js'
 
 /** Every table Ebullio reads or writes, typed for Kysely. */
-export interface Database extends AuthTables, LabTables {}
+export interface Database extends AuthTables, LabTables, ReportTables {}

@@ -111,3 +111,34 @@ export async function uploadersOf(db: Db, dataSetId: string): Promise<string[]> 
     .execute()
   return rows.map((r) => r.uploaded_by)
 }
+
+/** A run file with this SHA-256 already behind the data set's points (its own uploads or carried-over ones). */
+export async function findCommittedRun(
+  db: Db,
+  dataSetId: string,
+  sha256: string,
+): Promise<{ id: string; originalName: string; uploadedAt: Date } | undefined> {
+  const r = await db
+    .selectFrom('upload')
+    .select(['id', 'original_name', 'uploaded_at'])
+    .where('kind', '=', 'run')
+    .where('sha256', '=', sha256)
+    .where((eb) =>
+      eb.or([
+        eb('data_set_id', '=', dataSetId),
+        eb(
+          'id',
+          'in',
+          eb
+            .selectFrom('point')
+            .select('upload_id')
+            .where('data_set_id', '=', dataSetId)
+            .where('upload_id', 'is not', null)
+            .$narrowType<{ upload_id: string }>(),
+        ),
+      ]),
+    )
+    .orderBy('uploaded_at')
+    .executeTakeFirst()
+  return r && { id: r.id, originalName: r.original_name, uploadedAt: r.uploaded_at }
+}

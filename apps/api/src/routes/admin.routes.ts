@@ -3,6 +3,7 @@ import { z } from 'zod'
 import { ctx } from '../context.js'
 import { notFound } from '../errors/index.js'
 import { listUsersPage } from '../repositories/users.repository.js'
+import { listCapturedMail } from '../services/captured-mail.service.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
@@ -82,10 +83,9 @@ export const adminRoutes = defineRoutes([
     path: '/api/dev/mail',
     access: ['admin'],
     handler: async (req, res) => {
-      const { db, config } = ctx(req)
+      const { db, config, user } = ctx(req)
       if (config.nodeEnv === 'production') throw notFound('The mail capture exists only in development and test mode.')
-      const items = await db.selectFrom('captured_mail').selectAll().orderBy('id', 'desc').limit(200).execute()
-      res.json({ items })
+      res.json({ items: await listCapturedMail(db, user) })
     },
   },
 ])

@@ -110,7 +110,8 @@ export const dataSetRoutes = defineRoutes([
         const file = receivedFile(req)
         const { id } = parseParams(idParams, req)
         const form = parseBody(runForm, req)
-        res.json(await uploads.previewRun(db, config, user, id, file, form.calibrationId))
+        const page = { page: form.page, pageSize: form.pageSize }
+        res.json(await uploads.previewRun(db, config, user, id, file, form.calibrationId, page))
       },
     ],
   },

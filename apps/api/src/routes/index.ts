@@ -5,6 +5,7 @@ import { defineRoutes, type RouteDef } from './define.js'
 import { catalogueRoutes } from './catalogue.routes.js'
 import { componentRoutes } from './components.routes.js'
 import { dataSetRoutes } from './datasets.routes.js'
+import { reportRoutes } from './reports.routes.js'
 import { directDataRoutes } from './direct-data.routes.js'
 import { reviewRoutes } from './review.routes.js'
 import { systemRoutes } from './systems.routes.js'
@@ -25,4 +26,5 @@ export const allRoutes: RouteDef[] = [
   ...reviewRoutes,
   ...catalogueRoutes,
   ...auditRoutes,
+  ...reportRoutes,
 ]

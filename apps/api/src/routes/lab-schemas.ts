@@ -4,6 +4,7 @@
  */
 import { DATA_SET_STATES, labId } from '@ebullio/schemas'
 import { z } from 'zod'
+import { PREVIEW_PAGE_SIZE, PREVIEW_PAGE_SIZE_MAX } from '../services/preview-page.js'
 
 export const uuid = labId
 export const idParams = z.object({ id: uuid('data set') })
@@ -50,7 +51,14 @@ const formBool = z
   .enum(['true', 'false'])
   .default('false')
   .transform((v) => v === 'true')
+/** Which page of an upload preview to answer (rows and samples or standards; PREVIEW_PAGE_SIZE_MAX at most). */
+const previewPage = {
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(PREVIEW_PAGE_SIZE_MAX).default(PREVIEW_PAGE_SIZE),
+}
+
 export const calibrationForm = z.object({
+  ...previewPage,
   gcMethodId: uuid('GC method'),
   systemId: uuid('system'),
   model: z.enum(['response-factor', 'linear', 'quadratic']).default('response-factor'),
@@ -61,6 +69,7 @@ export const calibrationForm = z.object({
   dataSetId: uuid('data set').optional(),
 })
 export const runForm = z.object({
+  ...previewPage,
   calibrationId: uuid('calibration').optional(),
   acceptWarnings: formBool,
   rowVersion: z.coerce.number().int().min(1).optional(),

@@ -9,6 +9,7 @@ import { defineRoutes } from './define.js'
 import { gcMethodSchema, systemSchema } from '@ebullio/schemas'
 import { calibrationForm, calibrationQuery, gcMethodQuery, systemQuery, uuid } from './lab-schemas.js'
 import { csvUpload, receivedFile } from './upload-middleware.js'
+import { readLimits } from '../uploads/csv-table.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
 
 /** Roles that work in the lab (engineers see approved results only). */
@@ -103,8 +104,11 @@ export const systemRoutes = defineRoutes([
       csvUpload,
       async (req, res) => {
         const file = receivedFile(req)
-        const { gcMethodId, systemId, model } = parseBody(calibrationForm, req)
-        res.json(await calibrations.previewCalibration(ctx(req).db, { gcMethodId, systemId, model }, file))
+        const { gcMethodId, systemId, model, page, pageSize } = parseBody(calibrationForm, req)
+        const { db, config } = ctx(req)
+        res.json(
+          await calibrations.previewCalibration(db, config, { gcMethodId, systemId, model }, file, { page, pageSize }),
+        )
       },
     ],
   },
@@ -115,7 +119,7 @@ export const systemRoutes = defineRoutes([
     handler: [
       csvUpload,
       async (req, res) => {
-        const { db, user } = ctx(req)
+        const { db, user, config } = ctx(req)
         const file = receivedFile(req)
         const { acceptWarnings, replaceActive, dataSetId, gcMethodId, systemId, model } = parseBody(
           calibrationForm,
@@ -125,6 +129,7 @@ export const systemRoutes = defineRoutes([
           await calibrations.commitCalibration(db, user.id, { gcMethodId, systemId, model }, file, acceptWarnings, {
             replaceActive,
             dataSetId,
+            limits: readLimits(config),
           }),
         )
       },

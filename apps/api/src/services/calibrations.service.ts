@@ -7,7 +7,10 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/calibrations.repository.js'
 import { findDataSet } from '../repositories/datasets.repository.js'
 import { insertUpload } from '../repositories/uploads.repository.js'
-import { parseCalibrationFile, type CalibrationFileParse } from '../uploads/calibration-file.js'
+import { parseCalibrationFileAsync, type CalibrationFileParse } from '../uploads/calibration-file.js'
+import { DEFAULT_READ_LIMITS, readLimits, type ReadLimits } from '../uploads/csv-table.js'
+import type { Config } from '../config.js'
+import { FIRST_PAGE, pageItems, paging, shownProblems, type PageRequest, type Paging } from './preview-page.js'
 import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
 import { EDITABLE_STATES, requireState, translateDbError } from './lab-access.js'
 import { getSystem } from './systems.service.js'
@@ -43,6 +46,11 @@ export interface CalibrationPreview extends Omit<CalibrationFileParse, 'problems
   calibration: Calibration | null
   /** the active calibration of this method and system that committing would retire, null when there is none */
   replaces: repo.CalibrationSummary | null
+  /** the requested page of standards; `standardCount` counts them all */
+  standardCount: number
+  /** the page shown of `rows` and `standards`, with the whole file's row and problem counts */
+  paging: Paging
+  /** at most PREVIEW_PROBLEMS_MAX problems (errors first); errorCount and warningCount count them all */
   problems: UploadProblem[]
   errorCount: number
   warningCount: number
@@ -54,6 +62,8 @@ export interface CalibrationCommitOptions {
   replaceActive?: boolean
   /** the data set whose upload dialog made it: the commit goes into that data set's audit trail too */
   dataSetId?: string | null
+  /** the server's read limits (UPLOAD_MAX_ROWS); the defaults otherwise */
+  limits?: ReadLimits
 }
 
 /** The active calibration a new one would replace, described for the person who decides. */
@@ -68,17 +78,35 @@ export interface CalibrationRequest {
   model: CalibrationModel
 }
 
-/** Parse and fit a calibration sheet without storing anything. */
+/**
+ * Parse and fit a calibration sheet without storing anything. The answer is bounded: one page of rows and
+ * standards, the first problems; the counts cover the whole file.
+ */
 export async function previewCalibration(
   db: Db,
+  config: Pick<Config, 'uploadMaxRows'>,
   req: CalibrationRequest,
   file: UploadedFile,
+  page: PageRequest = FIRST_PAGE,
 ): Promise<CalibrationPreview> {
+  const full = await analyseCalibration(db, req, file, readLimits(config))
+  return {
+    ...full,
+    rows: pageItems(full.rows, page),
+    standards: pageItems(full.standards, page),
+    standardCount: full.standards.length,
+    paging: paging(page, full.rows.length, full.standards.length, full.problems.length),
+    problems: shownProblems(full.problems),
+  }
+}
+
+/** The whole sheet parsed and fitted, every problem listed (what a commit stores or refuses). */
+async function analyseCalibration(db: Db, req: CalibrationRequest, file: UploadedFile, limits: ReadLimits) {
   const method = await repo.findGcMethod(db, req.gcMethodId)
   if (!method) throw notFound('There is no such GC method.')
   if (method.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
   const system = await getSystem(db, req.systemId)
-  const parsed = parseCalibrationFile(file.content)
+  const parsed = await parseCalibrationFileAsync(file.content, limits)
   const problems = [...parsed.problems]
   let calibration: Calibration | null = null
   if (problems.length === 0) {
@@ -123,7 +151,7 @@ export async function commitCalibration(
       throw conflict('This calibration belongs to another binary system than the data set.')
     requireState(d, EDITABLE_STATES, 'uploading')
   }
-  const preview = await previewCalibration(db, req, file)
+  const preview = await analyseCalibration(db, req, file, o.limits ?? DEFAULT_READ_LIMITS)
   assertCommittable(preview.problems, acceptWarnings)
   const cal = preview.calibration!
   return db.transaction().execute(async (tx) => {

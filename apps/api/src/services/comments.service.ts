@@ -1,4 +1,5 @@
 /** Comment threads on a data set or pinned to a point; replies notify the thread's author. */
+import { webLink } from '@ebullio/schemas'
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
@@ -61,7 +62,7 @@ export async function addComment(
       for (const authorId of notify) {
         await notifyUser(tx, authorId, {
           subject: `Ebullio: ${user.displayName} replied to your comment on "${d.title}"`,
-          text: `${user.displayName} replied:\n\n${input.body.trim()}\n\n${config.publicUrl}/data-sets/${dataSetId}\n`,
+          text: `${user.displayName} replied:\n\n${input.body.trim()}\n\n${webLink(config.publicUrl, 'dataset', { id: dataSetId })}\n`,
         })
       }
     }

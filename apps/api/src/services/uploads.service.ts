@@ -4,7 +4,7 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
-import { conflict, notFound } from '../errors/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import {
   findCalibration,
@@ -16,11 +16,13 @@ import {
 } from '../repositories/calibrations.repository.js'
 import { RETIRED_METHOD_MESSAGE } from './calibrations.service.js'
 import * as datasets from '../repositories/datasets.repository.js'
-import { insertPoints, nextSeq } from '../repositories/points.repository.js'
-import { findUploadContent, insertUpload } from '../repositories/uploads.repository.js'
+import { insertPoints, listPoints, nextSeq } from '../repositories/points.repository.js'
+import { findCommittedRun, findUploadContent, insertUpload } from '../repositories/uploads.repository.js'
+import { readLimits } from '../uploads/csv-table.js'
 import type { ParsedInjection } from '../uploads/calibration-file.js'
 import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
-import { DEFAULT_BOUNDS, parseRunFile, type RunFileParse, type RunSample } from '../uploads/run-file.js'
+import { DEFAULT_BOUNDS, parseRunFileAsync, type RunFileParse, type RunSample } from '../uploads/run-file.js'
+import { FIRST_PAGE, pageItems, paging, shownProblems, type PageRequest, type Paging } from './preview-page.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
 
@@ -52,7 +54,12 @@ export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
   calibrationId: string
   /** the calibration the compositions are computed with (file, date, model, coefficients ± u, range) */
   calibrationUsed: CalibrationSummary
+  /** the requested page of samples; `sampleCount` counts them all */
   samples: PreviewSample[]
+  sampleCount: number
+  /** the page shown of `rows` and `samples`, with the whole file's row and problem counts */
+  paging: Paging
+  /** at most PREVIEW_PROBLEMS_MAX problems (errors first); errorCount and warningCount count them all */
   problems: UploadProblem[]
   errorCount: number
   warningCount: number
@@ -157,24 +164,52 @@ function coverageOf(
   return { coverage, errorRows, partial }
 }
 
-/** Parse a run sheet and compute every sample's x and y, storing nothing. */
-export async function previewRun(
+const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve))
+
+/** The file was already committed to this data set: adding it again would double its points. */
+function duplicateMessage(prev: { originalName: string; uploadedAt: Date }): string {
+  return `This file was already added to this data set (as "${prev.originalName}", ${prev.uploadedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC); adding it again would count its samples twice.`
+}
+
+/** Samples whose label the data set already holds are errors at their first line. */
+async function existingLabelProblems(db: Db, dataSetId: string, samples: RunSample[]): Promise<UploadProblem[]> {
+  const existing = new Map((await listPoints(db, dataSetId)).map((p) => [p.sampleLabel, p.seq]))
+  return samples
+    .filter((s) => existing.has(s.label))
+    .map((s) =>
+      uploadError(
+        s.firstRow,
+        'sample',
+        s.label,
+        `Sample ${s.label} is already in this data set (point ${existing.get(s.label)}); give the new sample its own label.`,
+      ),
+    )
+}
+
+/** The whole file analysed: every sample's x and y and every problem (what a commit stores or refuses). */
+async function analyseRun(
   db: Db,
   config: Config,
   user: SessionUser,
   dataSetId: string,
   file: UploadedFile,
   calibrationId?: string,
-): Promise<RunPreview> {
+) {
   const d = visibleOrNotFound(user, await datasets.findDataSet(db, dataSetId))
   requireState(d, EDITABLE_STATES, 'uploading')
   const cal = await chooseCalibration(db, d.systemId, calibrationId)
-  const parsed = parseRunFile(file.content, DEFAULT_BOUNDS)
+  const summary = summarizeFile(file)
+  const parsed = await parseRunFileAsync(file.content, DEFAULT_BOUNDS, readLimits(config))
   const problems = [...parsed.problems]
-  const samples: PreviewSample[] = parsed.samples.map((s) => {
+  const previous = await findCommittedRun(db, dataSetId, summary.sha256)
+  if (previous) problems.unshift(uploadError(null, null, null, duplicateMessage(previous)))
+  problems.push(...(await existingLabelProblems(db, dataSetId, parsed.samples)))
+  const samples: PreviewSample[] = []
+  for (const [i, s] of parsed.samples.entries()) {
+    if (i % 500 === 499) await nextTurn()
     const x = phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
     const y = phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
-    return {
+    samples.push({
       label: s.label,
       rows: s.rows,
       temperatureK: s.temperatureK,
@@ -188,19 +223,39 @@ export async function previewRun(
       liquid: s.liquid,
       vapour: s.vapour,
       ...coverageOf(s, problems),
-    }
-  })
+    })
+  }
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
   const { samples: _s, problems: _p, ...rest } = parsed
+  return { rest, cal, summary, samples, problems }
+}
+
+/**
+ * Parse a run sheet and compute every sample's x and y, storing nothing. The answer is bounded: one page of rows
+ * and samples, the first problems; the counts cover the whole file.
+ */
+export async function previewRun(
+  db: Db,
+  config: Config,
+  user: SessionUser,
+  dataSetId: string,
+  file: UploadedFile,
+  calibrationId?: string,
+  page: PageRequest = FIRST_PAGE,
+): Promise<RunPreview> {
+  const { rest, cal, summary, samples, problems } = await analyseRun(db, config, user, dataSetId, file, calibrationId)
   const [calibrationUsed] = await summarizeCalibrations(db, [cal.id])
   return {
     ...rest,
-    file: summarizeFile(file),
+    rows: pageItems(rest.rows, page),
+    file: summary,
     dataSetId,
     calibrationId: cal.id,
     calibrationUsed,
-    samples,
-    problems,
+    samples: pageItems(samples, page),
+    sampleCount: samples.length,
+    paging: paging(page, rest.rows.length, samples.length, problems.length),
+    problems: shownProblems(problems),
     ...countProblems(problems),
   }
 }
@@ -214,13 +269,23 @@ export async function commitRun(
   file: UploadedFile,
   o: { calibrationId?: string; acceptWarnings: boolean; rowVersion: number },
 ) {
-  const preview = await previewRun(db, config, user, dataSetId, file, o.calibrationId)
+  const sha256 = summarizeFile(file).sha256
+  const refuseDuplicate = async (q: Db) => {
+    const previous = await findCommittedRun(q, dataSetId, sha256)
+    if (previous) throw new AppError(409, 'duplicate_upload', duplicateMessage(previous), { sha256 })
+  }
+  visibleOrNotFound(user, await datasets.findDataSet(db, dataSetId))
+  await refuseDuplicate(db)
+  const analysed = await analyseRun(db, config, user, dataSetId, file, o.calibrationId)
+  const preview = { ...analysed, file: analysed.summary, calibrationId: analysed.cal.id }
   assertCommittable(preview.problems, o.acceptWarnings)
   return db.transaction().execute(async (tx) => {
     const d = await datasets.lockDataSet(tx, dataSetId)
     if (!d) throw notFound('There is no such data set.')
     requireState(d, EDITABLE_STATES, 'uploading')
     if (d.rowVersion !== o.rowVersion) throw staleWrite(o.rowVersion, d.rowVersion)
+    // under the data set's lock: two commits of the same file at once cannot both pass
+    await refuseDuplicate(tx)
     const upload = await insertUpload(tx, {
       kind: 'run',
       originalName: file.originalName,
@@ -263,7 +328,7 @@ export async function commitRun(
         ...preview.file,
         points: ids.length,
         calibrationId: preview.calibrationId,
-        acceptedWarnings: preview.warningCount,
+        acceptedWarnings: countProblems(preview.problems).warningCount,
       },
     })
     return {

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto'
-import type { Role } from '@ebullio/schemas'
+import { webLink, type Role } from '@ebullio/schemas'
 import type { Kysely } from 'kysely'
 import { dummyHash, hashPassword, verifyPassword, type Sessions } from '../auth/index.js'
 import { hashToken, newToken } from '../auth/tokens.js'
@@ -82,7 +82,7 @@ export async function inviteUser(
       text:
         `Hello ${o.displayName},\n\n${invitedBy} has given you an Ebullio account.\n` +
         `Choose your password here (the link works once, for ${config.inviteHours} hours):\n\n` +
-        `${config.publicUrl}/welcome/${token}\n\nIf you did not expect this message, ignore it.\n`,
+        `${webLink(config.publicUrl, 'welcome', { token })}\n\nIf you did not expect this message, ignore it.\n`,
     })
     return id
   })
@@ -141,7 +141,7 @@ export async function requestPasswordReset(db: Kysely<Database>, config: Config,
       text:
         `Hello ${u.display_name},\n\nSomeone (we hope you) asked to reset your Ebullio password.\n` +
         `Choose a new one here (the link works once, for ${config.resetMinutes} minutes):\n\n` +
-        `${config.publicUrl}/reset-password/${token}\n\nIf it was not you, ignore this message: your password stays as it is.\n`,
+        `${webLink(config.publicUrl, 'resetPassword', { token })}\n\nIf it was not you, ignore this message: your password stays as it is.\n`,
     })
   })
 }

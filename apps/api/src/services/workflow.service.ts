@@ -1,4 +1,5 @@
 /** Submit, approve and return: the state machine with e-signatures, the four-eyes rule and notifications. */
+import { webLink } from '@ebullio/schemas'
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import { verifyPassword } from '../auth/password.js'
@@ -16,7 +17,7 @@ import { uploadersOf } from '../repositories/uploads.repository.js'
 import { contentDigest } from './digest.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 
-const link = (config: Config, id: string) => `${config.publicUrl}/data-sets/${id}`
+const link = (config: Config, id: string) => webLink(config.publicUrl, 'dataset', { id })
 
 async function leadChemists(db: Db): Promise<string[]> {
   const rows = await db

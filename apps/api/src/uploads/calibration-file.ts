@@ -3,7 +3,17 @@
  * gravimetric standard. Columns: standard, basis (mole | mass, optional, default mole),
  * fraction_1, injection, area_1, area_2.
  */
-import { mapColumns, parseNumber, readCsvTable, type CsvFormat } from './csv-table.js'
+import {
+  DEFAULT_READ_LIMITS,
+  mapColumns,
+  parseNumber,
+  readCsvTable,
+  readCsvTableAsync,
+  type ColumnMapping,
+  type CsvFormat,
+  type CsvTable,
+  type ReadLimits,
+} from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
 
 export const CALIBRATION_REQUIRED = ['standard', 'fraction_1', 'injection', 'area_1', 'area_2'] as const
@@ -91,9 +101,27 @@ export function injectionCell(
 }
 
 /** Parse a calibration sheet. Pure: no database, no thermo; every problem is listed. */
-export function parseCalibrationFile(content: Buffer | string): CalibrationFileParse {
-  const table = readCsvTable(content)
-  const map = mapColumns(table.header, CALIBRATION_REQUIRED, CALIBRATION_OPTIONAL)
+export function parseCalibrationFile(
+  content: Buffer | string,
+  limits: ReadLimits = DEFAULT_READ_LIMITS,
+): CalibrationFileParse {
+  return parseCalibrationTable(readCsvTable(content, limits))
+}
+
+/** `parseCalibrationFile` for the server: the CSV is read in slices so a large file does not hold the event loop. */
+export async function parseCalibrationFileAsync(
+  content: Buffer | string,
+  limits: ReadLimits = DEFAULT_READ_LIMITS,
+): Promise<CalibrationFileParse> {
+  return parseCalibrationTable(await readCsvTableAsync(content, limits))
+}
+
+/** The standards of a table already read; an unreadable file keeps its one problem and nothing else. */
+export function parseCalibrationTable(table: CsvTable): CalibrationFileParse {
+  const map: ColumnMapping =
+    table.problems.length > 0
+      ? { columns: {}, extraColumns: [], problems: [] }
+      : mapColumns(table.header, CALIBRATION_REQUIRED, CALIBRATION_OPTIONAL)
   const problems = [...table.problems, ...map.problems]
   const base = {
     format: table.format,

@@ -85,4 +85,25 @@ describe('parseRunFile', () => {
       'Required column "p_unit" is missing.',
     ])
   })
+
+  it.each([
+    ['an empty file', Buffer.alloc(0), 'The file is empty.'],
+    ['a file of blank lines', Buffer.from('\n\r\n  \n'), 'The file is empty.'],
+    ['a workbook', Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00]), /^The file is not a text CSV file/],
+    ['UTF-16 without a byte-order mark', Buffer.from(HEADER + '\n', 'utf16le'), /^The file looks like UTF-16/],
+    ['Latin-1 bytes', Buffer.from(HEADER + '\nÉ1,liquid,1,1,1,70,C,101,kPa\n', 'latin1'), /^Line 2 holds bytes/],
+    ['an unclosed quote', Buffer.from(HEADER + '\n"S1,liquid,1,1,1,70,C,101,kPa\n'), /^Line 2 opens a quoted cell/],
+  ])('says once that %s cannot be read, with no missing-column noise', (_what, bytes, message) => {
+    const p = parseRunFile(bytes)
+    expect(p.problems).toHaveLength(1)
+    expect(p.problems[0].message).toMatch(message)
+    expect(p.samples).toEqual([])
+  })
+
+  it('reads a UTF-16 run sheet that has a byte-order mark', () => {
+    const text = [HEADER, 'S1,liquid,1,3000,7000,70.5,C,101.3,kPa', 'S1,vapour,1,4500,5500,,,,'].join('\r\n')
+    const p = parseRunFile(Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]))
+    expect(p.problems).toEqual([])
+    expect(p.samples[0].temperatureK).toBeCloseTo(343.65, 10)
+  })
 })

@@ -6,7 +6,17 @@
  */
 import { toKelvin, toPascal, type PressureUnitName, type TemperatureUnitName } from '@ebullio/thermo'
 import { areaCell, injectionCell, type ParsedInjection } from './calibration-file.js'
-import { mapColumns, parseNumber, readCsvTable, type CsvFormat } from './csv-table.js'
+import {
+  DEFAULT_READ_LIMITS,
+  mapColumns,
+  parseNumber,
+  readCsvTable,
+  readCsvTableAsync,
+  type ColumnMapping,
+  type CsvFormat,
+  type CsvTable,
+  type ReadLimits,
+} from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
 
 export const RUN_REQUIRED = [
@@ -234,9 +244,29 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
 }
 
 /** Parse a run sheet. Pure: no database; compositions are computed later with a calibration. */
-export function parseRunFile(content: Buffer | string, bounds: PlausibleBounds = DEFAULT_BOUNDS): RunFileParse {
-  const table = readCsvTable(content)
-  const map = mapColumns(table.header, RUN_REQUIRED)
+export function parseRunFile(
+  content: Buffer | string,
+  bounds: PlausibleBounds = DEFAULT_BOUNDS,
+  limits: ReadLimits = DEFAULT_READ_LIMITS,
+): RunFileParse {
+  return parseRunTable(readCsvTable(content, limits), bounds)
+}
+
+/** `parseRunFile` for the server: the CSV is read in slices so a large file does not hold the event loop. */
+export async function parseRunFileAsync(
+  content: Buffer | string,
+  bounds: PlausibleBounds = DEFAULT_BOUNDS,
+  limits: ReadLimits = DEFAULT_READ_LIMITS,
+): Promise<RunFileParse> {
+  return parseRunTable(await readCsvTableAsync(content, limits), bounds)
+}
+
+/** The run sheet's samples from a table already read; an unreadable file keeps its one problem and nothing else. */
+export function parseRunTable(table: CsvTable, bounds: PlausibleBounds = DEFAULT_BOUNDS): RunFileParse {
+  const unreadable = table.problems.length > 0
+  const map: ColumnMapping = unreadable
+    ? { columns: {}, extraColumns: [], problems: [] }
+    : mapColumns(table.header, RUN_REQUIRED)
   const problems = [...table.problems, ...map.problems]
   const base = {
     format: table.format,

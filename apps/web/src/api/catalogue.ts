@@ -68,6 +68,8 @@ const base = (id: string) => `/api/data-sets/${encodeURIComponent(id)}`
 export const exportUrls = {
   parametersJson: (dataSetId: string) => `${base(dataSetId)}/export/parameters.json`,
   parametersCsv: (dataSetId: string) => `${base(dataSetId)}/export/parameters.csv`,
+  /** the signed report (PDF) of the version */
+  reportPdf: (dataSetId: string) => `${base(dataSetId)}/report.pdf`,
 }
 
 export const catalogueApi = {

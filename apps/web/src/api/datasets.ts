@@ -222,6 +222,8 @@ export const datasetsApi = {
     ),
   pureComponentCheck: (id: string) => api.get<PureCheckResult>(`${base}/${id}/pure-component-check`, { quiet: true }),
   pointsCsvUrl: (id: string) => `${base}/${id}/export/points.csv`,
+  /** the printed report (PDF) of a version; each download is registered with its own report id */
+  reportPdfUrl: (id: string) => `${base}/${id}/report.pdf`,
   audit: (id: string) => api.get<{ items: AuditEntry[] }>(`${base}/${id}/audit`),
   uploadUrl: (uploadId: string) => `/api/uploads/${uploadId}/content`,
 }

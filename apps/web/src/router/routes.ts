@@ -1,10 +1,11 @@
+import { WEB_PATHS } from '@ebullio/schemas/web-paths'
 import type { RouteRecordRaw } from 'vue-router'
 
-/** Every page of the app. */
+/** Every page of the app; paths come from WEB_PATHS (@ebullio/schemas), which the API's mail links use too. */
 export const appRoutes: RouteRecordRaw[] = [
-  { path: '/', name: 'home', component: () => import('../views/HomeView.vue'), meta: { title: 'Overview' } },
+  { path: WEB_PATHS.home, name: 'home', component: () => import('../views/HomeView.vue'), meta: { title: 'Overview' } },
   {
-    path: '/datasets',
+    path: WEB_PATHS.datasets,
     name: 'datasets',
     component: () => import('../views/datasets/DatasetsListView.vue'),
     meta: {
@@ -14,19 +15,19 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/datasets/new',
+    path: WEB_PATHS.datasetNew,
     name: 'dataset-new',
     component: () => import('../views/datasets/NewDatasetView.vue'),
     meta: { title: 'New data set', roles: ['analyst', 'lead_chemist'] },
   },
   {
-    path: '/datasets/:id',
+    path: WEB_PATHS.dataset,
     name: 'dataset',
     component: () => import('../views/datasets/DatasetWorkspaceView.vue'),
     meta: { title: 'Data set', roles: ['analyst', 'lead_chemist', 'reviewer'] },
   },
   {
-    path: '/approvals',
+    path: WEB_PATHS.approvals,
     name: 'approvals',
     component: () => import('../views/approvals/ApprovalsQueueView.vue'),
     meta: {
@@ -36,7 +37,7 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/threads',
+    path: WEB_PATHS.threads,
     name: 'threads',
     component: () => import('../views/threads/MyThreadsView.vue'),
     meta: {
@@ -46,7 +47,7 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/systems',
+    path: WEB_PATHS.catalogue,
     name: 'catalogue',
     component: () => import('../views/catalogue/CatalogueView.vue'),
     meta: {
@@ -56,13 +57,13 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/systems/:id',
+    path: WEB_PATHS.system,
     name: 'system',
     component: () => import('../views/catalogue/SystemView.vue'),
     meta: { title: 'Approved system', roles: ['engineer'] },
   },
   {
-    path: '/admin/people',
+    path: WEB_PATHS.adminPeople,
     name: 'admin-users',
     component: () => import('../views/admin/AdminUsersView.vue'),
     meta: {
@@ -72,7 +73,7 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/admin/components',
+    path: WEB_PATHS.adminComponents,
     name: 'admin-components',
     component: () => import('../views/admin/AdminComponentsView.vue'),
     meta: {
@@ -82,7 +83,7 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/admin/gc-methods',
+    path: WEB_PATHS.adminGcMethods,
     name: 'admin-gc',
     component: () => import('../views/admin/AdminGcMethodsView.vue'),
     meta: {
@@ -92,7 +93,7 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/admin/mail',
+    path: WEB_PATHS.adminMail,
     name: 'admin-mail',
     component: () => import('../views/admin/MailCaptureView.vue'),
     meta: {
@@ -102,13 +103,19 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
-    path: '/account',
+    path: WEB_PATHS.account,
     name: 'account',
     component: () => import('../views/AccountView.vue'),
     meta: { title: 'Your account', nav: { group: 'You', label: 'Your account', icon: 'pi pi-user', order: 90 } },
   },
   {
-    path: '/forbidden',
+    path: WEB_PATHS.verifyReport,
+    name: 'verify-report',
+    component: () => import('../views/reports/VerifyReportView.vue'),
+    meta: { title: 'Verify a printed report' },
+  },
+  {
+    path: WEB_PATHS.forbidden,
     name: 'forbidden',
     component: () => import('../views/ForbiddenView.vue'),
     meta: { title: 'Not allowed' },
@@ -117,25 +124,25 @@ export const appRoutes: RouteRecordRaw[] = [
 
 export const routes: RouteRecordRaw[] = [
   {
-    path: '/sign-in',
+    path: WEB_PATHS.signIn,
     name: 'sign-in',
     component: () => import('../views/auth/SignInView.vue'),
     meta: { public: true, title: 'Sign in' },
   },
   {
-    path: '/forgot-password',
+    path: WEB_PATHS.forgotPassword,
     name: 'forgot',
     component: () => import('../views/auth/ForgotPasswordView.vue'),
     meta: { public: true, title: 'Forgotten password' },
   },
   {
-    path: '/reset-password/:token',
+    path: WEB_PATHS.resetPassword,
     name: 'reset',
     component: () => import('../views/auth/ResetPasswordView.vue'),
     meta: { public: true, title: 'New password' },
   },
   {
-    path: '/welcome/:token',
+    path: WEB_PATHS.welcome,
     name: 'welcome',
     component: () => import('../views/auth/AcceptInviteView.vue'),
     meta: { public: true, title: 'Welcome' },

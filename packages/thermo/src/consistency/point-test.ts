@@ -2,7 +2,7 @@ import { compileSystem } from '../equilibrium/system.js'
 import { res, solveBubbleT } from '../equilibrium/kernel.js'
 import { fitTemperatureOnly } from '../fitting/fit-binary.js'
 import type { BinaryPoint } from '../fitting/fit-input.js'
-import type { FittableModel } from '../fitting/parameters.js'
+import type { FittableModel, UniquacStructure } from '../fitting/parameters.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import type { ActivityModel, VaporPressureModel } from '../types.js'
 
@@ -13,6 +13,7 @@ export interface PointTestOptions {
   V1?: number
   V2?: number
   alpha?: number
+  uniquac?: UniquacStructure
 }
 
 /** Result of {@link pointTest}: Δy = ycalc − y per point (NaN for points not tested), passed when mean |Δy| < 0.01. */

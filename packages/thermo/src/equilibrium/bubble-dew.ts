@@ -7,14 +7,39 @@ import type {
   DewTemperatureResult,
 } from '../types.js'
 import { res, solveBubbleP, solveBubbleT, solveDewP, solveDewT, startTemperature } from './kernel.js'
+import { gapContaining } from './lle.js'
 import { brent } from './roots.js'
-import { assertOneLiquid, compileSystem, noConvergence, systemWarnings, type CompiledSystem } from './system.js'
+import {
+  checkDomain,
+  compileSystem,
+  liquidSplitError,
+  noConvergence,
+  systemWarnings,
+  type CompiledSystem,
+} from './system.js'
+import { threePhaseIsobaric, threePhaseIsothermal, type ThreePhasePoint } from './three-phase.js'
+
+/** The fields a three-phase result carries. */
+function threePhaseFields(tp: ThreePhasePoint) {
+  return {
+    liquidPhases: [tp.xI, tp.xII] as [number, number],
+    gammaPhases: [tp.gammaI, tp.gammaII] as [[number, number], [number, number]],
+  }
+}
+
+/** True when x1 lies on the three-phase tie line (inclusive within 1e-12). */
+function onTieLine(tp: ThreePhasePoint | null, x1: number): tp is ThreePhasePoint {
+  return tp !== null && x1 >= tp.xI - 1e-12 && x1 <= tp.xII + 1e-12
+}
 
 /**
  * Bubble temperature of a binary liquid under modified Raoult's law (ideal vapour).
  * @param at P in Pa, x1 liquid mole fraction (0–1, ends included).
- * @returns T in K (converged to better than 1e-6 K), vapour y1, γ = [γ1, γ2], Newton iterations, range warnings.
- * @throws ThermoError 'liquid-split' when the model predicts two liquids at x1, 'no-convergence' when no bubble point is found.
+ * When the liquid splits into two layers at its boiling point (x1 on the three-phase tie line at P), the answer is
+ * the heterogeneous bubble point: the three-phase temperature and vapour, with `liquidPhases` and `gammaPhases`.
+ * @returns T in K (converged to better than 1e-6 K), vapour y1, γ = [γ1, γ2] (one liquid), Newton iterations, range warnings.
+ * @throws ThermoError 'liquid-split' when a split liquid's three-phase point cannot be resolved,
+ *   'no-convergence' when no bubble point is found.
  */
 export function bubbleTemperature(system: BinarySystem, at: { P: number; x1: number }): BubbleTemperatureResult {
   const c = compileSystem(system)
@@ -31,22 +56,41 @@ export function bubbleTemperatureCompiled(c: CompiledSystem, P: number, x1: numb
     throw noConvergence('bubble-temperature', `x1 = ${x1} and ${P} Pa`)
   }
   const T = res[0]
-  const out: BubbleTemperatureResult = {
-    converged: true,
-    T,
-    y1: res[1],
-    gamma: [res[2], res[3]],
-    iterations: res[4],
-    warnings: systemWarnings(c, T, x1),
+  const y1 = res[1]
+  const g1 = res[2]
+  const g2 = res[3]
+  const iterations = res[4]
+  if (x1 > 0 && x1 < 1 && c.stab.canSplit) {
+    // The tie line at P (remembered per pressure) catches liquids that boil as two layers even when the
+    // single liquid would look stable at its own (wrong) bubble temperature.
+    let tp = threePhaseIsobaric(c, P)
+    if (!onTieLine(tp, x1) && c.stab.maySplit(T)) {
+      const gap = gapContaining(c.stab.gaps(T), x1)
+      if (gap) {
+        tp = threePhaseIsobaric(c, P, { T, gap })
+        if (!onTieLine(tp, x1)) throw liquidSplitError(c, x1, T)
+      }
+    }
+    if (onTieLine(tp, x1)) {
+      return {
+        converged: true,
+        T: tp.T,
+        y1: tp.y1,
+        ...threePhaseFields(tp),
+        iterations,
+        warnings: systemWarnings(c, tp.T, 0.5),
+      }
+    }
   }
-  assertOneLiquid(c, x1, T)
-  return out
+  return { converged: true, T, y1, gamma: [g1, g2], iterations, warnings: systemWarnings(c, T, x1) }
 }
 
 /**
  * Bubble pressure of a binary liquid under modified Raoult's law: P = Σ xi·γi·Pi_sat(T), no iteration.
  * @param at T in K, x1 liquid mole fraction (0–1).
- * @returns P in Pa, vapour y1, γ = [γ1, γ2], range warnings.
+ * @returns P in Pa, vapour y1, γ = [γ1, γ2], range warnings; for a liquid inside the two-liquid gap at T, the
+ *   three-phase pressure and vapour with `liquidPhases` and `gammaPhases` instead of `gamma`.
+ * @throws ThermoError 'out-of-domain' when a vapour-pressure equation has no value at T.
  */
 export function bubblePressure(system: BinarySystem, at: { T: number; x1: number }): BubblePressureResult {
   const c = compileSystem(system)
@@ -58,15 +102,13 @@ export function bubblePressure(system: BinarySystem, at: { T: number; x1: number
 
 /** {@link bubblePressure} on an already checked system. */
 export function bubblePressureCompiled(c: CompiledSystem, T: number, x1: number): BubblePressureResult {
-  solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
-  const out: BubblePressureResult = {
-    P: res[5],
-    y1: res[1],
-    gamma: [res[2], res[3]],
-    warnings: systemWarnings(c, T, x1),
+  checkDomain(c, T)
+  if (x1 > 0 && x1 < 1 && c.stab.maySplit(T) && gapContaining(c.stab.gaps(T), x1)) {
+    const tp = threePhaseIsothermal(c, T) as ThreePhasePoint
+    return { P: tp.P, y1: tp.y1, ...threePhaseFields(tp), warnings: systemWarnings(c, T, 0.5) }
   }
-  assertOneLiquid(c, x1, T)
-  return out
+  solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
+  return { P: res[5], y1: res[1], gamma: [res[2], res[3]], warnings: systemWarnings(c, T, x1) }
 }
 
 /**
@@ -82,21 +124,45 @@ export function dewTemperature(system: BinarySystem, at: { P: number; y1: number
   return dewTemperatureCompiled(c, P, y1)
 }
 
+/** True when a single liquid x1 is stable at T (K): not strictly inside a two-liquid gap. */
+function stableLiquid(c: CompiledSystem, x1: number, T: number): boolean {
+  return !(x1 > 0 && x1 < 1 && c.stab.maySplit(T) && gapContaining(c.stab.gaps(T), x1) !== null)
+}
+
+/** The x1 interval of stable liquids whose vapour can be y1: the branch of the bubble curve on y1's side of the tie line. */
+function dewBranch(tp: ThreePhasePoint | null, y1: number): [number, number] {
+  if (!tp) return [0, 1]
+  return y1 < tp.y1 ? [0, tp.xI] : [tp.xII, 1]
+}
+
 /** {@link dewTemperature} on an already checked system. */
 export function dewTemperatureCompiled(c: CompiledSystem, P: number, y1: number): DewTemperatureResult {
   const lnP = Math.log(P)
+  const tp = y1 > 0 && y1 < 1 ? threePhaseIsobaric(c, P) : null
+  if (tp && Math.abs(y1 - tp.y1) <= 1e-9) {
+    return {
+      converged: true,
+      T: tp.T,
+      x1: tp.xI,
+      ...threePhaseFields(tp),
+      iterations: 0,
+      warnings: systemWarnings(c, tp.T, 0.5),
+    }
+  }
+  const [lo, hi] = dewBranch(tp, y1)
   let ok = solveDewT(c.act, c.vp1, c.vp2, lnP, y1, startTemperature(c.vp1, c.vp2, lnP, y1))
   let iterations = res[4]
-  if (!ok) {
-    // Substitution can stall near an azeotrope; y1(x1) rises monotonically for a stable liquid, so bracket x1 instead.
+  if (!ok || res[1] < lo || res[1] > hi || !stableLiquid(c, res[1], res[0])) {
+    // Substitution can stall near an azeotrope or land on a liquid that is not stable; y1(x1) rises
+    // monotonically along the stable branch, so bracket x1 on that branch instead.
     let count = 0
     const x1 = brent(
       (x) => {
         count++
         return bubbleY(c, lnP, x) - y1
       },
-      0,
-      1,
+      lo,
+      hi,
       1e-13,
     )
     ok = Number.isFinite(x1) && solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))
@@ -112,7 +178,7 @@ export function dewTemperatureCompiled(c: CompiledSystem, P: number, y1: number)
     iterations,
     warnings: systemWarnings(c, res[0], y1),
   }
-  assertOneLiquid(c, out.x1, out.T)
+  if (!stableLiquid(c, out.x1, out.T)) throw liquidSplitError(c, out.x1, out.T)
   return out
 }
 
@@ -122,18 +188,33 @@ function bubbleY(c: CompiledSystem, lnP: number, x1: number): number {
 }
 
 /**
- * Dew pressure of a binary vapour under modified Raoult's law.
+ * Dew pressure of a binary vapour under modified Raoult's law: the lowest pressure at which a stable liquid
+ * appears. A vapour at exactly the three-phase composition gives the three-phase pressure with `liquidPhases`.
  * @param at T in K, y1 vapour mole fraction (0–1).
  * @returns P in Pa, the liquid x1 in equilibrium, γ at that liquid, iterations, range warnings.
+ * @throws ThermoError 'out-of-domain' when a vapour-pressure equation has no value at T.
  */
 export function dewPressure(system: BinarySystem, at: { T: number; y1: number }): DewPressureResult {
   const c = compileSystem(system)
   const { T, y1 } = at
   checkTemperature(T)
   checkMoleFraction(y1, 'y1')
+  checkDomain(c, T)
+  const tp = y1 > 0 && y1 < 1 ? threePhaseIsothermal(c, T) : null
+  if (tp && Math.abs(y1 - tp.y1) <= 1e-9) {
+    return {
+      converged: true,
+      P: tp.P,
+      x1: tp.xI,
+      ...threePhaseFields(tp),
+      iterations: 0,
+      warnings: systemWarnings(c, T, 0.5),
+    }
+  }
+  const [lo, hi] = dewBranch(tp, y1)
   let ok = solveDewP(c.act, c.vp1, c.vp2, T, y1)
   let iterations = res[4]
-  if (!ok) {
+  if (!ok || res[1] < lo || res[1] > hi || !stableLiquid(c, res[1], T)) {
     let count = 0
     const x1 = brent(
       (x) => {
@@ -141,8 +222,8 @@ export function dewPressure(system: BinarySystem, at: { T: number; y1: number })
         solveBubbleP(c.act, c.vp1, c.vp2, T, x)
         return res[1] - y1
       },
-      0,
-      1,
+      lo,
+      hi,
       1e-13,
     )
     ok = Number.isFinite(x1)
@@ -159,6 +240,6 @@ export function dewPressure(system: BinarySystem, at: { T: number; y1: number })
     iterations,
     warnings: systemWarnings(c, T, y1),
   }
-  assertOneLiquid(c, out.x1, T)
+  if (!stableLiquid(c, out.x1, T)) throw liquidSplitError(c, out.x1, T)
   return out
 }

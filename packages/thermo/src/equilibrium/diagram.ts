@@ -1,15 +1,15 @@
-import { thermodynamicFactor } from '../activity/activity.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
-import type { Azeotrope, BinarySystem, PhaseDiagram, RelativeVolatilityResult } from '../types.js'
+import type { BinarySystem, PhaseDiagram, RelativeVolatilityResult } from '../types.js'
 import { bubbleTemperatureCompiled } from './bubble-dew.js'
 import { res, solveBubbleP, solveBubbleT, startTemperature } from './kernel.js'
-import { brent } from './roots.js'
-import { assertOneLiquid, compileSystem, systemWarnings, type CompiledSystem } from './system.js'
+import { gapContaining } from './lle.js'
+import { checkDomain, compileSystem, systemWarnings, type CompiledSystem } from './system.js'
+import { binodalBelow, threePhaseIsobaric, threePhaseIsothermal, type ThreePhasePoint } from './three-phase.js'
 
 /** Fixed pressure (Pa) for a T–x–y curve, or fixed temperature (K) for a P–x–y curve. */
 export type DiagramCondition = { P: number; T?: undefined } | { T: number; P?: undefined }
 
-function checkCondition(condition: DiagramCondition): void {
+export function checkCondition(condition: DiagramCondition): void {
   if (condition?.P !== undefined) checkPressure(condition.P)
   else if (condition?.T !== undefined) checkTemperature(condition.T)
   else
@@ -30,83 +30,42 @@ export function relativeVolatility(system: BinarySystem, at: { P: number; x1: nu
   checkMoleFraction(at.x1, 'x1')
   const b = bubbleTemperatureCompiled(c, at.P, at.x1)
   const T = b.T
+  // Two liquid layers: α of the overall liquid against the three-phase vapour.
+  if (!b.gamma) return { alpha: (b.y1 * (1 - at.x1)) / (at.x1 * (1 - b.y1)), T, y1: b.y1, warnings: b.warnings }
   const lnAlpha =
     Math.log(b.gamma[0] / b.gamma[1]) + (c.vp1.a - c.vp1.b / (T + c.vp1.c)) - (c.vp2.a - c.vp2.b / (T + c.vp2.c))
   return { alpha: Math.exp(lnAlpha), T, y1: b.y1, warnings: b.warnings }
 }
 
-/** ln α12 at the bubble point of x1 (fixed P or T), without stability checks; NaN when no bubble point. */
-function lnAlphaAt(c: CompiledSystem, condition: DiagramCondition, x1: number): number {
-  let T: number
-  if (condition.P !== undefined) {
-    const lnP = Math.log(condition.P)
-    if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))) return NaN
-    T = res[0]
-  } else {
-    T = condition.T
-    solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
-  }
-  return Math.log(res[2] / res[3]) + (c.vp1.a - c.vp1.b / (T + c.vp1.c)) - (c.vp2.a - c.vp2.b / (T + c.vp2.c))
-}
-
-/** Scan grid: dense near both ends so an azeotrope at x1 = 1e-5 is still bracketed. */
-const SCAN: number[] = (() => {
-  const ends = [0, 1e-6, 1e-5, 1e-4, 1e-3, 0.003, 0.006]
-  const mid = Array.from({ length: 99 }, (_, i) => (i + 1) / 100)
-  return [...ends, ...mid, ...ends.map((x) => 1 - x).reverse()].filter((x, i, a) => i === 0 || x > a[i - 1])
-})()
-
-/**
- * Find an azeotrope (x1 = y1 strictly inside 0 < x1 < 1) at fixed P (Pa) or fixed T (K).
- * It is where α12 = 1; α at a pure end equal to 1 (x–y curve touching the diagonal) is not reported.
- * @returns null, or x1, T (K), P (Pa) and the kind; when there are two, the one with the smaller x1.
- * @throws ThermoError 'liquid-split' when the composition found lies where the model predicts two liquids.
- */
-export function findAzeotrope(system: BinarySystem, condition: DiagramCondition): Azeotrope | null {
-  const c = compileSystem(system)
-  checkCondition(condition)
-  let prevX = NaN
-  let prevH = NaN
-  for (const x of SCAN) {
-    const h = lnAlphaAt(c, condition, x)
-    const atEnd = x === 0 || x === 1
-    if (!Number.isFinite(h) || (atEnd && Math.abs(h) < 1e-9)) continue
-    if (Number.isFinite(prevH) && prevH * h < 0) return azeotropeBetween(c, condition, prevX, x, prevH > 0)
-    prevX = x
-    prevH = h
-  }
-  return null
-}
-
-function azeotropeBetween(
-  c: CompiledSystem,
-  condition: DiagramCondition,
-  a: number,
-  b: number,
-  fallsThrough: boolean,
-): Azeotrope {
-  const x1 = brent((x) => lnAlphaAt(c, condition, x), a, b, 1e-14)
-  lnAlphaAt(c, condition, x1)
-  const T = res[0]
-  const P = condition.P ?? res[5]
-  assertOneLiquid(c, x1, T)
-  // α > 1 below the azeotrope and < 1 above: the vapour is richer in 1 on the left, so the boiling point has a minimum.
-  return { x1, T, P, kind: fallsThrough ? 'minimum-boiling' : 'maximum-boiling', warnings: systemWarnings(c, T, x1) }
+/** Options of {@link phaseDiagram}. */
+export interface PhaseDiagramOptions {
+  /** Number of liquid compositions, default 101 (3–10001). */
+  points?: number
+  /** Also return the liquid–liquid envelope (`lle`) below the three-phase line. */
+  lle?: boolean
+  /** Isobaric: lowest temperature of the envelope, K (default 50 K below the three-phase temperature). */
+  lleFromT?: number
+  /** Isothermal: highest pressure of the envelope, Pa (default twice the three-phase pressure). */
+  lleToP?: number
 }
 
 /**
  * The T–x–y curve at fixed P (Pa) or the P–x–y curve at fixed T (K), from x1 = 0 to 1 inclusive,
  * on a cosine-spaced grid (denser near the pure ends, where the curves bend most).
- * @param options points: number of liquid compositions, default 101 (3–10001).
- * Compositions where the model predicts two liquids are left out, with a warning.
+ * Only stable single-liquid bubble points are returned: compositions on the three-phase tie line (the liquid
+ * boils as two layers) are replaced by the line itself (`threePhase`) and its two ends; `{ lle: true }` adds the
+ * liquid–liquid envelope. A composition whose liquid splits but whose three-phase point cannot be resolved is
+ * left out with a warning.
+ * @throws ThermoError 'out-of-domain' (isothermal) when a vapour-pressure equation has no value at T.
  */
 export function phaseDiagram(
   system: BinarySystem,
   condition: DiagramCondition,
-  options: { points?: number } = {},
+  options: PhaseDiagramOptions = {},
 ): PhaseDiagram {
   const c = compileSystem(system)
   checkCondition(condition)
+  if (condition.T !== undefined) checkDomain(c, condition.T)
   const n = options.points ?? 101
   if (!Number.isInteger(n) || n < 3 || n > 10001) {
     throw new ThermoError(
@@ -140,27 +99,85 @@ export function phaseDiagram(
     for (const w of systemWarnings(c, res[0], x1))
       warnings.add(w.replace(/: [\d.]+ K \([-\d.]+ °C\) is/, ': part of this diagram is'))
   }
-  return finishDiagram(c, condition, xs, ys, vs, [...warnings])
+  return finishDiagram(c, condition, options, xs, ys, vs, [...warnings])
+}
+
+/** The three-phase point of the diagram's condition, using an unstable diagram point as a start when needed. */
+function diagramThreePhase(
+  c: CompiledSystem,
+  condition: DiagramCondition,
+  xs: number[],
+  vs: number[],
+): ThreePhasePoint | null {
+  if (condition.T !== undefined) return threePhaseIsothermal(c, condition.T)
+  const found = threePhaseIsobaric(c, condition.P)
+  if (found) return found
+  for (let i = 0; i < xs.length; i++) {
+    if (xs[i] <= 0 || xs[i] >= 1 || !c.stab.maySplit(vs[i])) continue
+    const gap = gapContaining(c.stab.gaps(vs[i]), xs[i])
+    if (gap) return threePhaseIsobaric(c, condition.P, { T: vs[i], gap })
+  }
+  return null
 }
 
 function finishDiagram(
   c: CompiledSystem,
   condition: DiagramCondition,
+  options: PhaseDiagramOptions,
   xs: number[],
   ys: number[],
   vs: number[],
   warnings: string[],
 ): PhaseDiagram {
-  // Each point is checked at its own temperature: inside the spinodal the one-liquid curve is not physical.
-  const keep = xs.map((x, i) => thermodynamicFactor(c.act, x, condition.T ?? vs[i]) > 0)
-  const dropped = xs.filter((_, i) => !keep[i])
+  const tp = c.stab.canSplit ? diagramThreePhase(c, condition, xs, vs) : null
+  const rows: [number, number, number][] = []
+  const dropped: number[] = []
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i]
+    if (tp && x > tp.xI && x < tp.xII) continue
+    const Ti = condition.T ?? vs[i]
+    if (x > 0 && x < 1 && c.stab.maySplit(Ti) && gapContaining(c.stab.gaps(Ti), x)) {
+      dropped.push(x)
+      continue
+    }
+    rows.push([x, ys[i], vs[i]])
+  }
+  if (tp) {
+    const v = condition.P !== undefined ? tp.T : tp.P
+    rows.push([tp.xI, tp.y1, v], [tp.xII, tp.y1, v])
+    rows.sort((a, b) => a[0] - b[0])
+  }
   if (dropped.length > 0) {
     warnings.push(
-      `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)}; the single-liquid curve there is not physical and is left out.`,
+      `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)} but their three-phase point could not be resolved; those compositions are left out.`,
     )
   }
-  const pick = (a: number[]) => (dropped.length > 0 ? a.filter((_, i) => keep[i]) : a)
-  return condition.P !== undefined
-    ? { kind: 'isobaric', P: condition.P, x1: pick(xs), y1: pick(ys), T: pick(vs), warnings }
-    : { kind: 'isothermal', T: condition.T, x1: pick(xs), y1: pick(ys), P: pick(vs), warnings }
+  const col = (k: number) => rows.map((r) => r[k])
+  if (condition.P !== undefined) {
+    const threePhase = tp ? { T: tp.T, x1I: tp.xI, x1II: tp.xII, y1: tp.y1 } : null
+    const lle = options.lle && tp ? binodalBelow(c, tp, options.lleFromT ?? tp.T - 50) : options.lle ? null : undefined
+    return {
+      kind: 'isobaric',
+      P: condition.P,
+      x1: col(0),
+      y1: col(1),
+      T: col(2),
+      warnings,
+      threePhase,
+      ...(lle !== undefined ? { lle } : {}),
+    }
+  }
+  const threePhase = tp ? { P: tp.P, x1I: tp.xI, x1II: tp.xII, y1: tp.y1 } : null
+  const top = options.lleToP ?? (tp ? 2 * tp.P : 0)
+  const lle = options.lle ? (tp ? { P: [tp.P, top], x1I: [tp.xI, tp.xI], x1II: [tp.xII, tp.xII] } : null) : undefined
+  return {
+    kind: 'isothermal',
+    T: condition.T,
+    x1: col(0),
+    y1: col(1),
+    P: col(2),
+    warnings,
+    threePhase,
+    ...(lle !== undefined ? { lle } : {}),
+  }
 }

@@ -1,3 +1,5 @@
 export { bubbleTemperature, bubblePressure, dewTemperature, dewPressure } from './bubble-dew.js'
-export { relativeVolatility, findAzeotrope, phaseDiagram } from './diagram.js'
-export type { DiagramCondition } from './diagram.js'
+export { relativeVolatility, phaseDiagram } from './diagram.js'
+export { findAzeotrope, findAzeotropes } from './azeotropes.js'
+export { liquidLiquidEquilibrium, type LiquidLiquidResult } from './liquid-liquid.js'
+export type { DiagramCondition, PhaseDiagramOptions } from './diagram.js'

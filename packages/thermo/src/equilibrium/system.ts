@@ -1,7 +1,8 @@
-import { checkActivityModel, thermodynamicFactor } from '../activity/activity.js'
+import { checkActivityModel } from '../activity/activity.js'
 import { ThermoError } from '../errors.js'
 import { compileVaporPressure, rangeWarnings, type LnPsat } from '../vapor-pressure/compiled.js'
 import type { ActivityModel, BinarySystem } from '../types.js'
+import { stabilityOf, type LiquidStability } from './stability.js'
 
 /** A validated binary system in the solvers' internal form. */
 export interface CompiledSystem {
@@ -9,6 +10,8 @@ export interface CompiledSystem {
   vp1: LnPsat
   vp2: LnPsat
   source: BinarySystem
+  /** Remembered liquid-stability facts of the activity model. */
+  stab: LiquidStability
 }
 
 /** Check a BinarySystem once and reduce its vapour-pressure models to the internal form. */
@@ -27,6 +30,7 @@ export function compileSystem(system: BinarySystem): CompiledSystem {
     vp1: compileVaporPressure(system.vaporPressure[0]),
     vp2: compileVaporPressure(system.vaporPressure[1]),
     source: system,
+    stab: stabilityOf(system.activity),
   }
 }
 
@@ -42,14 +46,35 @@ export function systemWarnings(c: CompiledSystem, T: number, z1: number): string
   ]
 }
 
-/** Throw when the model says a single liquid of this composition would split in two at T (K). */
-export function assertOneLiquid(c: CompiledSystem, x1: number, T: number): void {
-  if (thermodynamicFactor(c.act, x1, T) <= 0) {
+/**
+ * Throw 'out-of-domain' when a vapour-pressure equation has no value at T (K): T + C ≤ 0 in the model's own
+ * units (where the Antoine form turns over and returns absurd pressures), or a value that overflows.
+ */
+export function checkDomain(c: CompiledSystem, T: number): void {
+  for (const [i, vp] of [c.vp1, c.vp2].entries()) {
+    const d = T + vp.c
+    const ln = vp.a - vp.b / d
+    if (d > 0 && Number.isFinite(ln) && ln < 700) continue
+    const label = c.source.names?.[i] ?? `Component ${i + 1}`
+    const why = d > 0 ? 'its value overflows there' : 'T + C is zero or negative there'
     throw new ThermoError(
-      'liquid-split',
-      `The activity model predicts two liquid phases at x1 = ${x1} and ${T.toFixed(2)} K, so this liquid has no single-phase bubble or dew point; Ebullio does not compute liquid–liquid–vapour equilibrium.`,
+      'out-of-domain',
+      `${label}: the vapour-pressure equation has no value at ${T} K (${(T - 273.15).toFixed(2)} °C): ${why}.`,
+      { component: i + 1, T },
     )
   }
+}
+
+/**
+ * The refusal for a liquid that splits in two where its three-phase point could not be resolved: better no
+ * number than a single-liquid number that is not physical.
+ */
+export function liquidSplitError(c: CompiledSystem, x1: number, T: number): ThermoError {
+  return new ThermoError(
+    'liquid-split',
+    `The activity model predicts two liquid phases at x1 = ${x1} and ${T.toFixed(2)} K, and the three-phase (vapour–liquid–liquid) point could not be resolved there; no single-liquid value is given because it would not be physical.`,
+    { x1, T },
+  )
 }
 
 /** The error for a solver that did not converge, with the conditions a chemist would check. */

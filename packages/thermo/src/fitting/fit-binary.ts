@@ -6,7 +6,7 @@ import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './
 import { levenbergMarquardt, type LeastSquaresProblem, type LeastSquaresResult } from './lm.js'
 import { activityProblem, bubbleProblem, type FitData } from './objectives.js'
 import { alphaOf, boundedAlphaLayout, boundReached } from './alpha-bounds.js'
-import { parameterLayout, type FittableModel, type ParameterLayout } from './parameters.js'
+import { parameterLayout, type FittableModel, type ParameterLayout, type UniquacStructure } from './parameters.js'
 import { pointResiduals, summarise } from './report.js'
 import { fitStatistics } from './statistics.js'
 
@@ -18,6 +18,10 @@ export interface FitBinaryOptions {
   /** Liquid molar volumes, cm³/mol (Wilson only). */
   V1?: number
   V2?: number
+  /** UNIQUAC structure parameters r and q of both components (UNIQUAC only). */
+  uniquac?: UniquacStructure
+  /** NRTL or Wilson energies linear in T: b(T) = b + bT·(T − 298.15 K), bT fitted (J/(mol·K)); α held. */
+  temperatureDependent?: boolean
   /** NRTL α, default 0.3 (fixed unless fitAlpha). */
   alpha?: number
   fitAlpha?: boolean
@@ -73,6 +77,8 @@ export interface FitBinaryResult {
     model: FittableModel
     V1?: number
     V2?: number
+    uniquac?: UniquacStructure
+    temperatureDependent?: boolean
     alpha: number
     fitAlpha: boolean
     sigmaT: number
@@ -126,7 +132,7 @@ function bestBubbleFit(problem: LeastSquaresProblem, starts: ArrayLike<number>[]
  * they are reported but not fitted (see pureComponentCheck). Excluded points are reported, not fitted.
  * A point is flagged as a probable outlier when its externally studentized residual (the larger of its
  * T and y residuals) exceeds 3 in absolute value.
- * Parameters: A12, A21 (dimensionless), a12, a21, b12, b21 (J/mol), alpha.
+ * Parameters: A12, A21 (dimensionless), a12, a21 (Wilson and UNIQUAC), b12, b21 (J/mol), alpha.
  * @throws ThermoError for too few points, mole fractions outside [0, 1], non-finite values, P ≤ 0.
  */
 export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
@@ -134,7 +140,14 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
   const objectiveKind = options.objective ?? 'bubble-point'
   const alpha = options.alpha ?? 0.3
   const fitAlpha = options.model === 'nrtl' && (options.fitAlpha ?? false)
-  const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha })
+  const layout = parameterLayout(options.model, {
+    V1: options.V1,
+    V2: options.V2,
+    uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
+    alpha,
+    fitAlpha,
+  })
   const m = layout.names.length
   const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m)
   // A fitted α is searched through a bounded transform, then settled in α itself (settleAlpha).
@@ -301,6 +314,8 @@ function finishFit(
       model: options.model,
       V1: options.V1,
       V2: options.V2,
+      uniquac: options.uniquac,
+      temperatureDependent: options.temperatureDependent,
       alpha: nrtl.alpha,
       fitAlpha: nrtl.fitAlpha,
       sigmaT,
@@ -322,7 +337,14 @@ export function fitTemperatureOnly(options: FitBinaryOptions): {
 } {
   checkModelOptions(options)
   const alpha = options.alpha ?? 0.3
-  const layout = parameterLayout(options.model, { V1: options.V1, V2: options.V2, alpha, fitAlpha: false })
+  const layout = parameterLayout(options.model, {
+    V1: options.V1,
+    V2: options.V2,
+    uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
+    alpha,
+    fitAlpha: false,
+  })
   const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, layout.names.length)
   const problem = bubbleProblem(data, layout, false)
   const r = new Float64Array(problem.nResiduals)

@@ -2,7 +2,7 @@ import { ThermoError } from '../errors.js'
 import { compileVaporPressure } from '../vapor-pressure/compiled.js'
 import type { VaporPressureModel } from '../types.js'
 import type { FitData } from './objectives.js'
-import type { FittableModel } from './parameters.js'
+import type { FittableModel, UniquacStructure } from './parameters.js'
 
 /** One measured isobaric (or not) VLE point: T in K, P in Pa, mole fractions; σT in K and σy default 0.1 K and 0.005. */
 export interface BinaryPoint {
@@ -25,6 +25,7 @@ const MODEL_NAMES: Record<FittableModel, string> = {
   'van-laar': 'Van Laar',
   wilson: 'Wilson',
   nrtl: 'NRTL',
+  uniquac: 'UNIQUAC',
 }
 
 /** Human name of a fittable model. */
@@ -55,9 +56,14 @@ export function checkModelOptions(o: {
   alpha?: number
   fitAlpha?: boolean
   objective?: string
+  uniquac?: UniquacStructure
+  temperatureDependent?: boolean
 }): void {
   if (!Object.hasOwn(MODEL_NAMES, o.model)) {
-    throw new ThermoError('invalid-input', `Unknown model "${o.model}"; choose margules, van-laar, wilson or nrtl.`)
+    throw new ThermoError(
+      'invalid-input',
+      `Unknown model "${o.model}"; choose margules, van-laar, wilson, nrtl or uniquac.`,
+    )
   }
   if (o.objective !== undefined && o.objective !== 'bubble-point' && o.objective !== 'activity') {
     throw new ThermoError('invalid-input', `Unknown objective "${o.objective}"; choose bubble-point or activity.`)
@@ -69,6 +75,25 @@ export function checkModelOptions(o: {
     throw new ThermoError(
       'invalid-input',
       'Wilson needs the liquid molar volumes V1 and V2 (cm³/mol) of both components.',
+    )
+  }
+  if (o.model === 'uniquac') {
+    const u = o.uniquac
+    const ok = u && [u.r1, u.r2, u.q1, u.q2].every((v) => Number.isFinite(v) && v > 0)
+    if (!ok) {
+      throw new ThermoError(
+        'invalid-input',
+        'UNIQUAC needs the structure parameters r1, r2, q1 and q2 (positive numbers) of both components.',
+      )
+    }
+  }
+  if (o.temperatureDependent && o.model !== 'nrtl' && o.model !== 'wilson') {
+    throw new ThermoError('invalid-input', 'Temperature-dependent parameters are available for NRTL and Wilson only.')
+  }
+  if (o.temperatureDependent && o.fitAlpha) {
+    throw new ThermoError(
+      'invalid-input',
+      'With temperature-dependent parameters NRTL α is held; choose α instead of fitting it.',
     )
   }
   if (o.fitAlpha && o.model !== 'nrtl') throw new ThermoError('invalid-input', 'fitAlpha applies to NRTL only.')

@@ -6,7 +6,15 @@ import type { ActivityModel } from '../types.js'
 import { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
 
 /** The models fitBinary can fit. */
-export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+export type FittableModel = 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
+
+/** UNIQUAC's pure-component structure parameters (volume r and area q), dimensionless. */
+export interface UniquacStructure {
+  r1: number
+  r2: number
+  q1: number
+  q2: number
+}
 
 /** A parameter layout: build a model from p, say whether p is allowed, and where to start. */
 export interface ParameterLayout {
@@ -24,12 +32,31 @@ function grid(values: number[]): number[][] {
   return values.flatMap((a) => values.map((b) => [a, b]))
 }
 
-/** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha). */
+/** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha); r, q for UNIQUAC. */
 export function parameterLayout(
   model: FittableModel,
-  opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean },
+  opts: {
+    V1?: number
+    V2?: number
+    alpha: number
+    fitAlpha: boolean
+    uniquac?: UniquacStructure
+    temperatureDependent?: boolean
+  },
 ): ParameterLayout {
+  if (opts.temperatureDependent && (model === 'nrtl' || model === 'wilson'))
+    return temperatureDependentLayout(model, opts)
   switch (model) {
+    case 'uniquac': {
+      const rq = opts.uniquac as UniquacStructure
+      return {
+        names: ['a12', 'a21'],
+        scales: [100, 100],
+        build: (p) => ({ kind: 'uniquac', a12: p[0], a21: p[1], ...rq }),
+        valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5,
+        starts: grid(ENERGY_GRID),
+      }
+    }
     case 'margules':
       return {
         names: ['A12', 'A21'],
@@ -89,5 +116,37 @@ export function parameterLayout(
         starts: grid(ENERGY_GRID),
       }
     }
+  }
+}
+
+/**
+ * Temperature-dependent NRTL (b12, b21, b12T, b21T) or Wilson (a12, a21, a12T, a21T) energies,
+ * b(T) = b + bT·(T − 298.15 K); bT in J/(mol·K). NRTL α is held (not fitted) in this layout.
+ */
+function temperatureDependentLayout(
+  model: 'nrtl' | 'wilson',
+  opts: { V1?: number; V2?: number; alpha: number },
+): ParameterLayout {
+  const starts = grid(ENERGY_GRID).map(([a, b]) => [a, b, 0, 0])
+  const valid = (p: ArrayLike<number>) =>
+    Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && Math.abs(p[2]) < 1e3 && Math.abs(p[3]) < 1e3
+  if (model === 'nrtl') {
+    const alpha = opts.alpha
+    return {
+      names: ['b12', 'b21', 'b12T', 'b21T'],
+      scales: [100, 100, 1, 1],
+      build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha, b12T: p[2], b21T: p[3] }),
+      valid,
+      starts,
+    }
+  }
+  const V1 = opts.V1 as number
+  const V2 = opts.V2 as number
+  return {
+    names: ['a12', 'a21', 'a12T', 'a21T'],
+    scales: [100, 100, 1, 1],
+    build: (p) => ({ kind: 'wilson', a12: p[0], a21: p[1], V1, V2, a12T: p[2], a21T: p[3] }),
+    valid,
+    starts,
   }
 }

@@ -9,7 +9,14 @@ import { parameterLayout } from './parameters.js'
 /** Bubble points and their parameter sensitivities along a list of liquid compositions at P (Pa). */
 function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
   const s = fit.settings
-  const layout = parameterLayout(s.model, { V1: s.V1, V2: s.V2, alpha: s.alpha, fitAlpha: s.fitAlpha })
+  const layout = parameterLayout(s.model, {
+    V1: s.V1,
+    V2: s.V2,
+    uniquac: s.uniquac,
+    temperatureDependent: s.temperatureDependent,
+    alpha: s.alpha,
+    fitAlpha: s.fitAlpha,
+  })
   // A parameter held at its bound (NRTL α) is part of the layout's fixed settings, not of p.
   const p = Float64Array.from(
     fit.parameters.filter((q) => !q.atBound),

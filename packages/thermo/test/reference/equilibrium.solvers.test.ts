@@ -5,7 +5,6 @@ import {
   dewPressure,
   dewTemperature,
   phaseDiagram,
-  ThermoError,
   type ActivityModel,
   type BinarySystem,
 } from '../../src/index.js'
@@ -92,22 +91,37 @@ describe('no solution is reported, not looped on', () => {
     vaporPressure: [b2('benzene'), b2('toluene')],
     activity: { kind: 'margules', A12: 3, A21: 3 },
   }
-  it('a liquid that the model splits in two is refused with a chemist-readable message', () => {
-    expect(() => bubbleTemperature(split, { P: 101325, x1: 0.5 })).toThrow(ThermoError)
-    try {
-      bubbleTemperature(split, { P: 101325, x1: 0.5 })
-    } catch (e) {
-      expect((e as ThermoError).code).toBe('liquid-split')
-      expect((e as Error).message).toMatch(
-        /^The activity model predicts two liquid phases at x1 = 0\.5 and \d+\.\d\d K, so this liquid has no single-phase bubble or dew point; Ebullio does not compute liquid–liquid–vapour equilibrium\.$/,
-      )
+  // Binodal of symmetric Margules: ln(x/(1 − x)) = A·(2x − 1), solved here by bisection (closed form).
+  const binodal = (A: number) => {
+    let lo = 1e-12
+    let hi = 0.5 - 1e-9
+    for (let i = 0; i < 200; i++) {
+      const m = 0.5 * (lo + hi)
+      if (Math.log(m / (1 - m)) - A * (2 * m - 1) > 0) hi = m
+      else lo = m
+    }
+    return 0.5 * (lo + hi)
+  }
+  it('a liquid that the model splits in two boils as two layers: the three-phase bubble point', () => {
+    const b = bubbleTemperature(split, { P: 101325, x1: 0.5 })
+    expect(b.gamma).toBeUndefined()
+    expect(b.liquidPhases![0]).toBeCloseTo(binodal(3), 9)
+    expect(b.liquidPhases![1]).toBeCloseTo(1 - binodal(3), 9)
+    // Both layers have the bubble pressure of the vapour found, at the three-phase temperature.
+    for (const x of b.liquidPhases!) {
+      const p = bubblePressure(split, { T: b.T, x1: x })
+      expect(Math.abs(p.P / 101325 - 1)).toBeLessThan(1e-8)
+      expect(Math.abs(p.y1 - b.y1)).toBeLessThan(1e-8)
     }
   })
-  it('the diagram leaves the two-liquid region out and says so', () => {
+  it('the diagram has no single-liquid point inside the binodal and carries the three-phase line', () => {
     const d = phaseDiagram(split, { P: 101325 }, { points: 41 })
-    expect(d.warnings.some((w) => w.startsWith('The activity model predicts two liquid phases near x1 = '))).toBe(true)
-    // Spinodal of symmetric Margules: 1 − 2A·x1·x2 = 0, i.e. x1 = 0.2113 and 0.7887 for A = 3.
-    expect(d.x1.every((x) => x < 0.2114 || x > 0.7886)).toBe(true)
+    if (d.kind !== 'isobaric') throw new Error('isobaric expected')
+    const xI = binodal(3)
+    expect(d.threePhase!.x1I).toBeCloseTo(xI, 9)
+    expect(d.threePhase!.x1II).toBeCloseTo(1 - xI, 9)
+    expect(d.x1.every((x) => x <= xI + 1e-9 || x >= 1 - xI - 1e-9)).toBe(true)
+    expect(d.x1).toContain(d.threePhase!.x1I)
     expect(d.x1.length).toBeGreaterThan(10)
   })
   it('the still-dilute ends of a splitting system are solved', () => {

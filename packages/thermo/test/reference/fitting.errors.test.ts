@@ -60,7 +60,7 @@ const cases: [string, () => unknown, string][] = [
   [
     'unknown model',
     () => fitBinary({ points: good, vaporPressure, model: 'unifac' as never }),
-    'Unknown model "unifac"; choose margules, van-laar, wilson or nrtl.',
+    'Unknown model "unifac"; choose margules, van-laar, wilson, nrtl or uniquac.',
   ],
   [
     'unknown objective',

@@ -61,7 +61,7 @@ export interface PureBoiling {
 export interface AzeotropeMark {
   x1: number
   T?: number
-  kind?: 'minimum-boiling' | 'maximum-boiling'
+  kind?: 'minimum-boiling' | 'maximum-boiling' | 'heterogeneous'
 }
 
 /** One x–y curve, e.g. a fitted model at the data set's pressure. */

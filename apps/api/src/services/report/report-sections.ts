@@ -1,0 +1,251 @@
+/** Sections 1–4 and 6 of the report: method, points, fits, consistency, comments. */
+import type { Content, TableCell } from 'pdfmake/interfaces'
+import type { ReportModel } from './report-model.js'
+import { C, grid, heading, keyValues, none } from './report-blocks.js'
+import { calibrationModelName, dateTime, modelName, num, originText, PARAMETER_UNITS, sig } from './report-text.js'
+
+export function methodSection(m: ReportModel): Content {
+  const c = (x: ReportModel['system']['component1'], i: number): [string, string] => [
+    `Component ${i}`,
+    `${x.name}${x.cas ? `, CAS ${x.cas}` : ''}${x.formula ? `, ${x.formula}` : ''}${i === 1 ? ' (the lighter)' : ''}`,
+  ]
+  return {
+    stack: [
+      heading('1', 'System, still and method'),
+      keyValues([
+        c(m.system.component1, 1),
+        c(m.system.component2, 2),
+        ['Origin of the numbers', originText(m.dataSet)],
+        ['Still and apparatus', m.dataSet.apparatusNotes ?? 'not recorded'],
+        ...m.vaporPressure.map((v): [string, string] => [`Vapour pressure`, `${v.component}: ${v.kind}, ${v.source}`]),
+      ]),
+      { text: 'GC methods and calibrations behind the points', bold: true, margin: [0, 6, 0, 2] },
+      m.gcMethods.length
+        ? grid(
+            ['GC method', 'Detector', 'Column', 'Conditions', 'Status'],
+            m.gcMethods.map((g) => [g.name, g.detector, g.columnDescription ?? '–', g.conditions ?? '–', g.status]),
+            [90, 40, '*', '*', 40],
+          )
+        : none('No GC method: these points did not come through a calibrated GC run.'),
+      ...(m.calibrations.length
+        ? [
+            {
+              margin: [0, 4, 0, 0],
+              stack: [
+                grid(
+                  ['Calibration record', 'Model and coefficients (± standard error)', 'Range x₁', 'Status'],
+                  m.calibrations.map((k) => [
+                    {
+                      stack: [
+                        k.originalName,
+                        { text: `${k.gcMethodName}, ${dateTime(k.createdAt, m.report.timeZone)}`, style: 'small' },
+                        { text: `file SHA-256 ${k.sha256.slice(0, 16)}…`, style: 'small' },
+                      ],
+                    },
+                    {
+                      stack: [
+                        calibrationModelName(k.model),
+                        k.coefficientNames
+                          .map((n, i) => `${n} = ${sig(k.coefficients[i], 6)} ± ${sig(k.standardErrors[i], 2)}`)
+                          .join(', '),
+                      ],
+                    },
+                    `${num(k.rangeMin, 3)}–${num(k.rangeMax, 3)}`,
+                    k.status,
+                  ]),
+                  [150, '*', 60, 40],
+                ),
+              ],
+            } as Content,
+          ]
+        : []),
+    ],
+  }
+}
+
+export function pointsSection(m: ReportModel): Content {
+  const flagged = new Set(m.outlierIds)
+  const rows = m.points.map((p): TableCell[] => {
+    const note = p.excluded
+      ? `excluded: ${p.exclusionReason ?? ''}`
+      : flagged.has(p.id)
+        ? 'outlier flag (as signed)'
+        : ''
+    const cell = (t: string) => ({ text: t, alignment: 'right' as const, color: p.excluded ? C.muted : C.ink })
+    return [
+      cell(String(p.seq)),
+      { text: p.sampleLabel, color: p.excluded ? C.muted : C.ink },
+      cell(num(p.temperatureK, 2)),
+      cell(num(p.temperatureK - 273.15, 2)),
+      cell(num(p.pressurePa / 1000, 3)),
+      cell(num(p.x1, 4)),
+      cell(num(p.x1Uncertainty, 4)),
+      cell(num(p.y1, 4)),
+      cell(num(p.y1Uncertainty, 4)),
+      { text: note, fontSize: 7, color: p.excluded ? C.danger : C.amber },
+    ]
+  })
+  const n = m.points.filter((p) => !p.excluded).length
+  return {
+    stack: [
+      heading('2', 'Measured points'),
+      {
+        text: `${m.points.length} points, ${n} included. u = standard uncertainty of the mole fraction (from the calibration and replicate injections); component 1 is ${m.system.component1.name}.`,
+        style: 'small',
+        margin: [0, 0, 0, 4],
+      },
+      m.points.length
+        ? grid(['#', 'Sample', 'T / K', 'T / °C', 'P / kPa', 'x₁', 'u(x₁)', 'y₁', 'u(y₁)', 'Note'], rows, [
+            16,
+            54,
+            38,
+            34,
+            40,
+            36,
+            34,
+            36,
+            34,
+            '*',
+          ])
+        : none('No points yet.'),
+    ],
+  }
+}
+
+export function fitsSection(m: ReportModel): Content {
+  const rec = m.dataSet.recommendedFitId
+  const ordered = [...m.fits].sort((a, b) => Number(b.id === rec) - Number(a.id === rec))
+  const rows = ordered.map((f): TableCell[] => {
+    const isRec = f.id === rec
+    const fill = isRec ? C.amberSoft : undefined
+    const s = f.statistics as { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean }
+    const held =
+      f.model === 'nrtl' && typeof f.options.alpha === 'number' && !f.parameters.some((p) => p.name === 'alpha')
+    const params = [
+      ...f.parameters.map((p) => {
+        const se = p.atBound ? ' (at bound, held)' : p.standardError === null ? '' : ` ± ${sig(p.standardError, 3)}`
+        const unit = PARAMETER_UNITS[p.name] ? ` ${PARAMETER_UNITS[p.name]}` : ''
+        return `${p.name === 'alpha' ? 'α' : p.name} = ${sig(p.value, 6)}${se}${unit}`
+      }),
+      ...(held ? [`α = ${f.options.alpha} held`] : []),
+    ]
+    return [
+      {
+        fillColor: fill,
+        stack: [
+          { text: modelName(f.model), bold: true },
+          ...(isRec ? [{ text: 'RECOMMENDED', color: C.amber, bold: true, fontSize: 7 }] : []),
+        ],
+      },
+      { text: params.join('\n'), fillColor: fill },
+      { text: num(s.rmsT, 3), alignment: 'right', fillColor: fill },
+      { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill },
+      { text: num(s.aic, 1), alignment: 'right', fillColor: fill },
+      { text: String(f.pointIds.length), alignment: 'right', fillColor: fill },
+      { text: s.converged === false ? 'no' : 'yes', fillColor: fill, color: s.converged === false ? C.danger : C.ink },
+    ]
+  })
+  return {
+    stack: [
+      heading('3', 'Fits compared'),
+      {
+        text: 'Activity-model fits to the included points (bubble-point objective unless stated). The recommended fit, shaded, is the one this version carries; lower AIC is better at equal points.',
+        style: 'small',
+        margin: [0, 0, 0, 4],
+      },
+      m.fits.length
+        ? grid(
+            ['Model', 'Parameters (± standard error)', 'RMS ΔT / K', 'RMS Δy₁', 'AIC', 'Points', 'Converged'],
+            rows,
+            [62, '*', 46, 44, 34, 30, 40],
+          )
+        : none('No fits have been run.'),
+      { text: m.caution, style: 'small', italics: true, margin: [0, 4, 0, 0] },
+    ],
+  }
+}
+
+export function consistencySection(m: ReportModel): Content {
+  const rows = m.consistency.map((c): TableCell[] => {
+    const r = c.result as { D?: number; J?: number; meanAbsDeltaY?: number; model?: string }
+    const numbers =
+      c.test === 'herington-area'
+        ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
+        : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
+    const criterion = c.test === 'herington-area' ? 'passes when D − J < 10 %' : 'passes when mean |Δy₁| < 0.01'
+    return [
+      c.test === 'herington-area' ? 'Area test (Herington)' : 'Point test',
+      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.passed ? C.ok : C.danger },
+      numbers,
+      criterion,
+      dateTime(c.runAt, m.report.timeZone),
+    ]
+  })
+  return {
+    stack: [
+      heading('4', 'Thermodynamic consistency'),
+      rows.length
+        ? grid(['Test', 'Verdict', 'Result', 'Criterion', 'Run'], rows, [86, 40, '*', 100, 92])
+        : none('No consistency tests have been run on this version.'),
+    ],
+  }
+}
+
+export function commentsSection(m: ReportModel): Content {
+  const sample = new Map(m.points.map((p) => [p.id, p.sampleLabel]))
+  const roots = m.comments.filter((c) => !c.parentId)
+  const blocks = roots.map((r): Content => {
+    const replies = m.comments.filter((c) => c.parentId === r.id)
+    const where = r.pointId ? ` on point ${sample.get(r.pointId) ?? ''}` : ''
+    return {
+      margin: [0, 0, 0, 5],
+      table: {
+        widths: [4, '*'],
+        body: [
+          [
+            { text: '', fillColor: r.resolved ? C.ok : C.amber },
+            {
+              margin: [6, 2, 2, 2],
+              stack: [
+                {
+                  text: [
+                    {
+                      text: r.resolved ? 'RESOLVED  ' : 'OPEN  ',
+                      bold: true,
+                      color: r.resolved ? C.ok : C.amber,
+                      fontSize: 7,
+                    },
+                    { text: `${r.authorName}${where}, ${dateTime(r.createdAt, m.report.timeZone)}`, style: 'small' },
+                  ],
+                },
+                { text: r.body },
+                ...replies.map((x) => ({
+                  margin: [10, 2, 0, 0] as [number, number, number, number],
+                  stack: [
+                    { text: `${x.authorName}, ${dateTime(x.createdAt, m.report.timeZone)}`, style: 'small' },
+                    { text: x.body },
+                  ],
+                })),
+              ],
+            },
+          ],
+        ],
+      },
+      layout: 'noBorders',
+    }
+  })
+  const open = roots.filter((r) => !r.resolved).length
+  return {
+    stack: [
+      heading('6', 'Comments'),
+      roots.length
+        ? {
+            text: `${roots.length} thread${roots.length === 1 ? '' : 's'}: ${open} open, ${roots.length - open} resolved.`,
+            style: 'small',
+            margin: [0, 0, 0, 4],
+          }
+        : none('No comments on this version.'),
+      ...blocks,
+    ],
+  }
+}

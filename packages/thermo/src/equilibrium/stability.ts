@@ -1,0 +1,128 @@
+/**
+ * Cheap answers to "can this liquid split at T?" for the solvers' hot path. A binary liquid can split at T
+ * only where the thermodynamic factor Γ = 1 + x1·∂ln γ1/∂x1 is negative somewhere (a non-convex ΔG_mix has
+ * a spinodal). Per activity model we remember, per 1 K band of temperature, whether the smallest Γ over x1
+ * (grid plus a golden-section polish) stays above a margin at both edges of the band: then no liquid can
+ * split there and the solvers skip every further check. Models that cannot split (ideal, Wilson) never pay;
+ * Margules and Van Laar are temperature-independent here, so one answer serves every T.
+ * The memory is keyed by the model object and re-checked against its numbers, so a model edited in place
+ * is recomputed, not trusted.
+ */
+import { lnGammaT } from '../activity/kernel.js'
+import type { ActivityModel } from '../types.js'
+import { LLE_GRID, liquidGaps, type LiquidGap } from './lle.js'
+
+/** Smallest Γ a band must keep to be declared single-liquid (dimensionless; a safety margin for the grid). */
+const MARGIN = 0.02
+const buf = new Float64Array(4)
+
+function gammaFactor(act: ActivityModel, x: number, T: number): number {
+  const h = 1e-6 * Math.min(x, 1 - x, 1e-2) + 1e-12
+  lnGammaT(act, x + h, T, buf)
+  const up = buf[0]
+  lnGammaT(act, x - h, T, buf)
+  return 1 + (x * (up - buf[0])) / (2 * h)
+}
+
+/** Smallest thermodynamic factor over 0 < x1 < 1 at T (grid, then golden section around the lowest node). */
+export function minimumThermodynamicFactor(act: ActivityModel, T: number): number {
+  let best = Infinity
+  let at = 0
+  for (let i = 1; i < LLE_GRID.length - 1; i++) {
+    const v = gammaFactor(act, LLE_GRID[i], T)
+    if (v < best) [best, at] = [v, i]
+  }
+  let a = LLE_GRID[Math.max(0, at - 1)]
+  let b = LLE_GRID[Math.min(LLE_GRID.length - 1, at + 1)]
+  const r = (Math.sqrt(5) - 1) / 2
+  for (let k = 0; k < 40 && b - a > 1e-9; k++) {
+    const c = b - r * (b - a)
+    const d = a + r * (b - a)
+    if (gammaFactor(act, c, T) < gammaFactor(act, d, T)) b = d
+    else a = c
+  }
+  return Math.min(best, gammaFactor(act, 0.5 * (a + b), T))
+}
+
+function snapshot(act: ActivityModel): number[] {
+  switch (act.kind) {
+    case 'ideal':
+      return []
+    case 'margules':
+    case 'van-laar':
+      return [act.A12, act.A21]
+    case 'wilson':
+      return [act.a12, act.a21, act.V1, act.V2]
+    case 'nrtl':
+      return [act.b12, act.b21, act.alpha]
+    case 'uniquac':
+      return [act.a12, act.a21, act.r1, act.r2, act.q1, act.q2]
+  }
+}
+
+function same(act: ActivityModel, kind: string, values: number[]): boolean {
+  if (act.kind !== kind) return false
+  const now = snapshot(act)
+  for (let i = 0; i < now.length; i++) if (now[i] !== values[i]) return false
+  return true
+}
+
+/** What is remembered about one activity model. */
+export class LiquidStability {
+  readonly kind: string
+  readonly values: number[]
+  /** false: the model can never split (ideal, Wilson). */
+  readonly canSplit: boolean
+  /** The model's Γ does not depend on T (Margules, Van Laar). */
+  readonly isothermalModel: boolean
+  private readonly bands = new Map<number, boolean>()
+  private lastT = NaN
+  private lastGaps: LiquidGap[] = []
+  /** Three-phase points already found, by pressure (Pa); see three-phase.ts. */
+  readonly threePhaseByP = new Map<number, unknown>()
+
+  constructor(readonly act: ActivityModel) {
+    this.kind = act.kind
+    this.values = snapshot(act)
+    this.canSplit = act.kind !== 'ideal' && act.kind !== 'wilson'
+    this.isothermalModel = act.kind === 'margules' || act.kind === 'van-laar'
+  }
+
+  /** False when no liquid can split at T (K): the caller may skip the stability check. */
+  maySplit(T: number): boolean {
+    if (!this.canSplit) return false
+    const band = this.isothermalModel ? 0 : Math.floor(T)
+    let unsafe = this.bands.get(band)
+    if (unsafe === undefined) {
+      const t0 = this.isothermalModel ? 300 : band
+      unsafe =
+        minimumThermodynamicFactor(this.act, t0) < MARGIN ||
+        (!this.isothermalModel && minimumThermodynamicFactor(this.act, t0 + 1) < MARGIN)
+      if (this.bands.size > 4096) this.bands.clear()
+      this.bands.set(band, unsafe)
+    }
+    return unsafe
+  }
+
+  /** Every two-liquid gap at T (K), remembered for the last temperature asked (and forever for Margules/Van Laar). */
+  gaps(T: number): LiquidGap[] {
+    if (!this.canSplit) return []
+    const key = this.isothermalModel ? 0 : T
+    if (key === this.lastT) return this.lastGaps
+    const gaps = this.maySplit(T) ? liquidGaps(this.act, this.isothermalModel ? 300 : T) : []
+    this.lastT = key
+    this.lastGaps = gaps
+    return gaps
+  }
+}
+
+const memory = new WeakMap<object, LiquidStability>()
+
+/** The remembered stability facts of an activity model (created on first use). */
+export function stabilityOf(act: ActivityModel): LiquidStability {
+  const known = memory.get(act)
+  if (known && same(act, known.kind, known.values)) return known
+  const fresh = new LiquidStability(act)
+  memory.set(act, fresh)
+  return fresh
+}
