@@ -34,8 +34,21 @@ export interface PreviewSample {
   [k: string]: unknown
 }
 
+/** Which page of a bounded preview is shown; counts cover the whole file. */
+export interface PreviewPaging {
+  page: number
+  pageSize: number
+  pages: number
+  rowCount: number
+  problemCount: number
+}
+
 export interface UploadPreview {
   kind: 'calibration' | 'run' | 'points'
+  /** run and calibration previews answer one page of rows and samples (or standards) at a time */
+  paging?: PreviewPaging
+  sampleCount?: number
+  standardCount?: number
   /** the token the commit call refers to (the server keeps the bytes until then), when the server uses one */
   previewId?: string
   fileName?: string
@@ -62,6 +75,7 @@ export interface UploadPreview {
   } | null
   file?: { name: string; sizeBytes: number; sha256: string }
   format?: { delimiter: string; decimalComma: boolean; byteOrderMark: boolean }
+  /** counts over the whole file (the `problems` listed may be the first ones only) */
   errorCount?: number
   warningCount?: number
   calibrationId?: string

@@ -2,6 +2,7 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
+import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubbleTemperature,
   fenske,
@@ -145,17 +146,20 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
 
 /** The curve table as CSV in Ebullio's layout: one row per liquid composition. */
 export function curveTableCsv(d: DiagramsAt, names: [string, string], model: string): string {
-  const head = [
-    `# Ebullio curve table; ${names[0]} (1) + ${names[1]} (2); model ${model}; P = ${(d.P / 1000).toFixed(4)} kPa`,
-    '# Preliminary estimate from equilibrium data; not an engineered design.',
-    'x1,y1,t_k,t_c,alpha12',
-  ]
-  const rows = d.x1.map((x, i) =>
-    [x.toFixed(6), d.y1[i].toFixed(6), d.T[i].toFixed(3), (d.T[i] - 273.15).toFixed(3), d.alpha[i].toFixed(5)].join(
-      ',',
-    ),
+  return csvDocument(
+    ['x1', 'y1', 't_k', 't_c', 'alpha12'],
+    d.x1.map((x, i) => [
+      fixed(x, 6),
+      fixed(d.y1[i], 6),
+      fixed(d.T[i], 3),
+      fixed(d.T[i] - 273.15, 3),
+      fixed(d.alpha[i], 5),
+    ]),
+    [
+      `Ebullio curve table; ${names[0]} (1) + ${names[1]} (2); model ${model}; P = ${(d.P / 1000).toFixed(4)} kPa`,
+      'Preliminary estimate from equilibrium data; not an engineered design.',
+    ],
   )
-  return [...head, ...rows].join('\n') + '\n'
 }
 
 /** Inputs of a column estimate: mole fractions of component 1, q liquid fraction of the feed, R as a multiple of Rmin. */

@@ -4,6 +4,7 @@ import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import {
   baseOption,
   CURVE_COLOURS,
+  escapeHtml,
   fmt,
   fractionAxis,
   INK,
@@ -67,7 +68,7 @@ function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput):
   const p = d.point
   const tU = tUnit(o.unit)
   const lines = [
-    `<b>${p.note ? p.note : 'Point'}</b> · ${d.phase}`,
+    `<b>${p.note ? escapeHtml(p.note) : 'Point'}</b> · ${escapeHtml(d.phase)}`,
     `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(showDT(p.uT, o.unit), 2)}` : ''}`,
     `x₁ = ${fmt(p.x1)}${p.ux1 ? ` ± ${fmt(p.ux1)}` : ''}`,
     `y₁ = ${fmt(p.y1)}${p.uy1 ? ` ± ${fmt(p.uy1)}` : ''}`,
@@ -170,7 +171,8 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
         formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}`,
       },
       tooltip: {
-        formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}`,
+        formatter: (p: { name: string; value: number[] }) =>
+          `Pure ${escapeHtml(p.name)}: boils at ${fmt(p.value[1], 2)} ${tU}`,
       },
     })
   }
@@ -217,7 +219,7 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     tooltip: {
       ...(base.tooltip as object),
       formatter: (p: { data: { point?: TxyPoint; phase?: string }; seriesName: string }) =>
-        p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : p.seriesName,
+        p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : escapeHtml(p.seriesName),
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
     yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),

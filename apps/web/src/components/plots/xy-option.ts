@@ -1,5 +1,5 @@
 /** ECharts option of the x–y plot: diagonal, equilibrium curves, measured pairs, azeotrope, McCabe–Thiele construction. */
-import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
+import { baseOption, CURVE_COLOURS, escapeHtml, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
 import type { AzeotropeMark, StageConstruction, XyCurve, XyPoint } from './plot-types'
 
 /** Inputs of `xyOption`; see XyPlot.vue. */
@@ -101,7 +101,7 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
         { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
         { value: [s.xB, s.xB], name: `x_B = ${fmt(s.xB, 3)}` },
       ],
-      tooltip: { formatter: (p: { name: string }) => p.name },
+      tooltip: { formatter: (p: { name: string }) => escapeHtml(p.name) },
     },
   ]
 }
@@ -191,7 +191,7 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
         label: { position: n === 'x_D' ? 'left' : 'right' },
       })),
       label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string }) => p.name },
-      tooltip: { formatter: (p: { name: string }) => p.name },
+      tooltip: { formatter: (p: { name: string }) => escapeHtml(p.name) },
     })
   }
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
