@@ -24,7 +24,9 @@ const expected: Record<string, Access> = {
   'POST /api/admin/users/:id/deactivate': ['admin'],
   'POST /api/admin/users/:id/activate': ['admin'],
   'GET /api/dev/mail': ['admin'],
+  'GET /api/admin/mail-outbox': ['admin'],
   'GET /api/health': 'public',
+  'GET /api/ready': 'public',
   // lab workflow (issue 5)
   'GET /api/components': 'authenticated',
   'POST /api/components': ['admin', 'lead_chemist'],
