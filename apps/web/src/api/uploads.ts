@@ -55,6 +55,10 @@ export interface PreviewSample {
   errorRows?: number[]
   /** some line of the sample was not used or has an error */
   partial?: boolean
+  /** the analyst saw two liquid layers: x1 is the overall liquid */
+  heterogeneous?: boolean
+  /** both layers when analysed, x1 ascending */
+  liquidPhases?: { x1: number; uncertainty: number; layer: 'upper' | 'lower' }[] | null
   [k: string]: unknown
 }
 
