@@ -29,7 +29,7 @@ export interface FitBinaryOptions {
   objective?: 'bubble-point' | 'activity'
 }
 
-/** A point's residuals after the fit: dT = Tcalc − T (K), dy = ycalc − y; see {@link fitBinary} for the flag rule. */
+/** A point's residuals after the fit, measured − calculated: dT = T_meas − T_calc (K), dy = y_meas − y_calc; see {@link fitBinary} for the flag rule. */
 export interface PointResidual {
   dT: number
   dy: number
