@@ -39,7 +39,7 @@ scratch.pathname = `/${scratchName}`
 
 const client = new pg.Client({ connectionString: admin.toString() })
 await client.connect()
-let code = 1
+let code
 try {
   await client.query(`create database "${scratchName}"`)
   console.log(`restoring ${path.basename(dump)} into ${scratchName}`)
