@@ -80,7 +80,9 @@ describe('backups', () => {
     try {
       // Change one measured temperature behind the immutability trigger's back (triggers off for this session).
       await c.query('set session_replication_role = replica')
-      await c.query('update point set temperature_k = temperature_k + 1 where id = (select id from point order by data_set_id, seq limit 1)')
+      await c.query(
+        'update point set temperature_k = temperature_k + 1 where id = (select id from point order by data_set_id, seq limit 1)',
+      )
     } finally {
       await c.end()
     }
