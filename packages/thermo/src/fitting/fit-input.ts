@@ -13,6 +13,11 @@ export interface BinaryPoint {
   sigmaT?: number
   sigmaY?: number
   excluded?: boolean
+  /**
+   * The analyst saw two liquid layers: x1 is the overall composition, T the three-phase temperature and y1 the
+   * three-phase vapour; the fit compares the point with the model's three-phase point at P.
+   */
+  heterogeneous?: boolean
 }
 
 /** Default uncertainty of a measured boiling temperature, K (common practice, no source). */
@@ -42,6 +47,8 @@ function checkPoint(pt: BinaryPoint, i: number): void {
     throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
   if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1))
     throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
+  if (pt.heterogeneous !== undefined && typeof pt.heterogeneous !== 'boolean')
+    throw fail(`heterogeneous must be true or false; got ${String(pt.heterogeneous)}.`)
   if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0))
     throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
   if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0))
@@ -148,6 +155,9 @@ export function buildFitData(
     wY: col((p) => 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)),
     vp1,
     vp2,
+    ...(index.some((i) => points[i].heterogeneous)
+      ? { het: Uint8Array.from(index, (i) => (points[i].heterogeneous ? 1 : 0)) }
+      : {}),
   }
   return { data, index }
 }
