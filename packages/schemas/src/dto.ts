@@ -65,6 +65,19 @@ export interface PointDto {
   calibrationId: string | null
   /** Lines of the uploaded file the point came from (the header is line 1). */
   rowRefs: number[]
+  /**
+   * The liquid in the still had split into two layers: x1 is the overall liquid composition, T the three-phase
+   * temperature and y1 the three-phase vapour. Absent on points stored before this field existed.
+   */
+  heterogeneous?: boolean
+  /** Both analysed layers of a heterogeneous point, x1 ascending (I poorer in component 1); null when not analysed. */
+  liquidPhases?: [LiquidLayerDto, LiquidLayerDto] | null
+}
+
+/** One liquid layer of a heterogeneous point: x1 with its standard uncertainty (k = 1). */
+export interface LiquidLayerDto {
+  x1: number
+  uncertainty: number
 }
 
 /** Activity models a fit can use. */
@@ -78,6 +91,8 @@ export interface FitParameterDto {
   standardError: number | null
   /** true when a fitted parameter reached its bound and was held there. */
   atBound?: boolean
+  /** the parameter's unit when it has one (J/mol), as thermo names it */
+  unit?: string
 }
 
 /** A stored model fit as thermo returned it. */
@@ -99,6 +114,33 @@ export interface FitDto<D = string> {
   pointCount: number | null
 }
 
+/** One residual of a stored fit at a point: ΔT in K, Δy1 mole fraction (measured − model). */
+export interface FitResidualDto {
+  pointId: string
+  dT: number
+  dy: number
+  /** true when the point is flagged as an outlier of this fit */
+  outlier?: boolean
+  [k: string]: unknown
+}
+
+/** The statistics thermo stores with a fit (rms ΔT in K, rms Δy1, AIC), and whatever else it reports. */
+export interface FitStatisticsDto {
+  rmsT?: number
+  rmsY?: number
+  aic?: number
+  converged?: boolean
+  [k: string]: unknown
+}
+
+/** A stored fit as the web reads it: {@link FitDto} with the known shapes of its JSON parts. */
+export type FitDetailDto<D = string> = Omit<FitDto<D>, 'activity' | 'statistics' | 'residuals'> & {
+  /** thermo's ActivityModel */
+  activity: Record<string, unknown> & { kind: string }
+  statistics: FitStatisticsDto
+  residuals: FitResidualDto[]
+}
+
 /** An approved version of a data set in the catalogue, with the fit it was approved with. */
 export interface ApprovedVersionDto<D = string> {
   dataSetId: string
@@ -108,6 +150,19 @@ export interface ApprovedVersionDto<D = string> {
   nominalPressurePa: number
   approvedAt: D | null
   recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+  /** What the recommended fit says about the liquid splitting; null without a fit or when it cannot be computed. */
+  miscibility?: CatalogueMiscibilityDto | null
+}
+
+/**
+ * A partially miscible system in the catalogue: `partial` when the recommended fit predicts two liquid layers at
+ * room temperature (`atRoomTemperature`, T in K) or a three-phase line at the version's pressure (`threePhase`,
+ * T in K, liquids x1I < x1II, vapour y1).
+ */
+export interface CatalogueMiscibilityDto {
+  partial: boolean
+  atRoomTemperature: { T: number; x1I: number; x1II: number } | null
+  threePhase: { T: number; x1I: number; x1II: number; y1: number } | null
 }
 
 /** One system of the engineers' catalogue: its approved versions (newest first) and the superseded ones. */
@@ -187,4 +242,40 @@ export interface DataSetDto<D = string> {
   countsAsOwnReason: string | null
   /** 'txy' isobaric T–x–y, 'tx' isobaric T–x, 'pxy' isothermal P–x–y */
   layout: 'txy' | 'tx' | 'pxy'
+}
+
+/** What a person needs to recognise a stored GC calibration: its file, date, model, coefficients ± u, range and use. */
+export interface CalibrationSummaryDto<D = string> {
+  id: string
+  gcMethodId: string
+  gcMethodName: string
+  model: 'response-factor' | 'linear' | 'quadratic'
+  status: 'active' | 'retired'
+  coefficientNames: string[]
+  coefficients: number[]
+  /** standard errors of the coefficients, same order */
+  standardErrors: number[]
+  /** calibrated range, mole fraction of component 1 */
+  rangeMin: number
+  rangeMax: number
+  createdAt: D
+  retiredAt: D | null
+  uploadId: string
+  originalName: string
+  sha256: string
+  /** data sets (lineages, all versions counted once) with points computed with it */
+  dataSetCount: number
+}
+
+/**
+ * One thing wrong with an uploaded file, located so the analyst can find it in the spreadsheet:
+ * `row` is the line number in the file (the header is line 1), `column` the header as written.
+ * Errors block a commit; warnings must be acknowledged before committing.
+ */
+export interface UploadProblemDto {
+  row: number | null
+  column: string | null
+  value: string | null
+  message: string
+  severity: 'error' | 'warning'
 }

@@ -201,12 +201,20 @@ export interface PointTable {
   /** line numbers of the raw rows in the uploaded file */
   row_refs: number[]
   created_at: DefaultTimestamp
+  /** two liquid layers in the still (migration 20261203_10p) */
+  heterogeneous: Generated<boolean>
+  /** the layers' x1, I < II, with standard uncertainties; all null unless analysed */
+  x1_phase_i: number | null
+  x1_phase_i_uncertainty: number | null
+  x1_phase_ii: number | null
+  x1_phase_ii_uncertainty: number | null
 }
 
 export interface PointInjectionTable {
   id: Generated<string>
   point_id: string
-  phase: 'liquid' | 'vapour'
+  /** upper and lower: the separated layers of a two-layer liquid */
+  phase: 'liquid' | 'vapour' | 'upper' | 'lower'
   injection_no: number
   area1: number
   area2: number

@@ -101,7 +101,15 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
       fitBinary({
         ...options,
         vaporPressure: inputs.vaporPressure,
-        points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+        // A two-layer point is a three-phase point: its T is the three-phase temperature, y1 the three-phase vapour.
+        points: points.map((p) => ({
+          T: p.temperatureK,
+          P: p.pressurePa,
+          x1: p.x1,
+          y1: p.y1,
+          excluded: p.excluded,
+          ...(p.heterogeneous ? { heterogeneous: true } : {}),
+        })),
       }),
     )
     return { model, options, r }

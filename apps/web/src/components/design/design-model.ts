@@ -6,7 +6,7 @@ import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubbleTemperature,
   fenske,
-  findAzeotrope,
+  findAzeotropes,
   mccabeThiele,
   minimumReflux,
   phaseDiagram,
@@ -15,6 +15,7 @@ import {
   type Azeotrope,
   type BatchFrame,
   type BinarySystem,
+  type ThreePhaseLineIsobaric,
   type VaporPressureModel,
 } from '@ebullio/thermo'
 import type { MeasuredData, ParametersExport } from '../../api/catalogue'
@@ -97,8 +98,15 @@ export interface DiagramsAt {
   T: number[]
   /** Relative volatility α12 at each x1 of the diagram (infinite-dilution values at the ends). */
   alpha: number[]
+  /** the first azeotrope (by x1), for the column screen's first targets */
   azeotrope: Azeotrope | null
+  /** every azeotrope at P with its kind; a heterogeneous one carries its two liquid layers */
+  azeotropes: Azeotrope[]
   azeotropeNote: string | null
+  /** where the model's liquid boils as two layers (null: one liquid at every composition) */
+  threePhase: ThreePhaseLineIsobaric | null
+  /** the two-liquid region below the three-phase line */
+  twoLiquids: { T: number[]; x1I: number[]; x1II: number[] } | null
   pure: { T1: number; T2: number }
   /** Bubble points at round liquid compositions 0, 0.1 … 1 for the on-screen table. */
   table: { x1: number; y1: number; T: number; alpha: number }[]
@@ -115,12 +123,12 @@ function roundTable(system: BinarySystem, P: number): DiagramsAt['table'] {
 
 /** T–x–y, x–y, α across composition and the azeotrope at pressure P (Pa). */
 export function diagramsAt(system: BinarySystem, P: number, points = 101): DiagramsAt {
-  const d = phaseDiagram(system, { P }, { points })
+  const d = phaseDiagram(system, { P }, { points, lle: true })
   if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
-  let azeotrope: Azeotrope | null = null
+  let azeotropes: Azeotrope[] = []
   let azeotropeNote: string | null = null
   try {
-    azeotrope = findAzeotrope(system, { P })
+    azeotropes = findAzeotropes(system, { P })
   } catch (e) {
     azeotropeNote = errorText(e)
   }
@@ -136,8 +144,11 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
     y1: d.y1,
     T: d.T,
     alpha,
-    azeotrope,
+    azeotrope: azeotropes[0] ?? null,
+    azeotropes,
     azeotropeNote,
+    threePhase: d.threePhase ?? null,
+    twoLiquids: d.lle ?? null,
     pure: { T1: d.T[n - 1], T2: d.T[0] },
     table: roundTable(system, P),
     warnings: d.warnings,

@@ -2,6 +2,13 @@
 import { bandSeries, suggestionSeries } from './band-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import {
+  azeotropeTxySeries,
+  THREE_PHASE_NAME,
+  threePhaseTxySeries,
+  TWO_LIQUID_NAME,
+  twoLiquidSeries,
+} from './heterogeneous-series'
+import {
   baseOption,
   CURVE_COLOURS,
   escapeHtml,
@@ -22,6 +29,8 @@ import type {
   AzeotropeMark,
   PureBoiling,
   TemperatureUnit,
+  ThreePhaseMark,
+  TwoLiquidRegion,
   TxyBand,
   TxyCurve,
   TxyPoint,
@@ -43,6 +52,11 @@ export interface TxyOptionInput {
   band?: TxyBand | null
   /** liquid compositions to measure next, marked on the composition axis (best first) */
   suggested?: TxySuggestion[] | null
+  /** every azeotrope to mark (takes the place of `azeotrope` when given) */
+  azeotropes?: AzeotropeMark[] | null
+  /** the model's three-phase line and two-liquid region, for a partially miscible system */
+  threePhase?: ThreePhaseMark | null
+  twoLiquids?: TwoLiquidRegion | null
 }
 
 export const LIQUID_NAME = 'Liquid x₁'
@@ -176,22 +190,7 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
       },
     })
   }
-  if (o.azeotrope && o.azeotrope.T !== undefined) {
-    const tU = tUnit(o.unit)
-    out.push({
-      type: 'scatter',
-      name: 'Azeotrope',
-      z: 6,
-      symbol: 'triangle',
-      symbolSize: 13,
-      itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
-      data: [[o.azeotrope.x1, showT(o.azeotrope.T, o.unit)]],
-      tooltip: {
-        formatter: () =>
-          `Azeotrope${o.azeotrope?.kind ? ` (${o.azeotrope.kind.replace('-', ' ')})` : ''}<br>x₁ = y₁ = ${fmt(o.azeotrope?.x1)}<br>T = ${fmt(showT(o.azeotrope!.T!, o.unit), 2)} ${tU}`,
-      },
-    })
-  }
+  out.push(...azeotropeTxySeries(o.azeotropes ?? (o.azeotrope ? [o.azeotrope] : []), o.unit))
   return out
 }
 
@@ -203,6 +202,8 @@ function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
     out.push(...bandSeries(o.band, o.unit, CURVE_COLOURS[(i < 0 ? 0 : i) % CURVE_COLOURS.length]))
   }
   if (o.suggested?.length) out.push(suggestionSeries(o.suggested, o.unit, '#c98a12'))
+  if (o.twoLiquids) out.push(...twoLiquidSeries(o.twoLiquids, o.threePhase ?? null, o.unit))
+  if (o.threePhase) out.push(...threePhaseTxySeries(o.threePhase, o.unit))
   return out
 }
 
@@ -210,7 +211,12 @@ function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
 export function txyOption(o: TxyOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
-  const names = [...(o.points.length ? [LIQUID_NAME, VAPOUR_NAME] : []), ...o.curves.map((c) => c.name)]
+  const names = [
+    ...(o.points.length ? [LIQUID_NAME, VAPOUR_NAME] : []),
+    ...o.curves.map((c) => c.name),
+    ...(o.threePhase ? [THREE_PHASE_NAME] : []),
+    ...(o.twoLiquids ? [TWO_LIQUID_NAME] : []),
+  ]
   const { legend, top } = legendFor(names, selected)
   return {
     ...base,
