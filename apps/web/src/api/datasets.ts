@@ -137,6 +137,11 @@ export interface NewDataSet {
   nominalPressurePa: number
   apparatusNotes: string | null
   projectRef: string | null
+  /** where the numbers come from (default: measured here by GC), with a citation for literature data */
+  origin?: DataSet['origin']
+  originMethod?: string | null
+  citation?: DataSet['citation']
+  layout?: DataSet['layout']
 }
 
 /** POST …/fits body: models, NRTL α (dimensionless) held or fitted. */
