@@ -52,18 +52,15 @@ export function labelWithNote(label: string, note: string): string {
   return label.endsWith(')') ? `${label.slice(0, -1)}; ${note})` : `${label} (${note})`
 }
 
-/** The two vapour-pressure models, wherever the server put them; null when the system has none yet. */
+/**
+ * The two vapour-pressure models the workspace store read for the system (the components' preferred sets);
+ * null while they are unknown or when the system has none yet.
+ */
 export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPressureModel] | null {
   const direct = d.vaporPressure
-  if (Array.isArray(direct) && direct.length === 2) return direct as unknown as [VaporPressureModel, VaporPressureModel]
-  const pick = (c: DataSetDetail['system']['component1']) => {
-    const sets = c.vaporPressureSets ?? []
-    const s = sets.find((v) => v.preferred) ?? sets[0]
-    return s ? (s.parameters as unknown as VaporPressureModel) : null
-  }
-  const a = pick(d.system.component1)
-  const b = pick(d.system.component2)
-  return a && b ? [a, b] : null
+  return Array.isArray(direct) && direct.length === 2
+    ? (direct as unknown as [VaporPressureModel, VaporPressureModel])
+    : null
 }
 
 export interface FitCurve {
@@ -97,4 +94,45 @@ export function residualsOf(f: Fit): { pointId: string; dT: number | null; dy: n
 export function rms(values: (number | null)[]): number | null {
   const v = values.filter((x): x is number => x !== null && Number.isFinite(x))
   return v.length ? Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length) : null
+}
+
+/** A result bound to the point set it was computed on. */
+export interface BoundResult {
+  stale?: boolean
+  pointCount?: number | null
+  runAt: string
+}
+
+/** "computed on 12 points on 3 Dec 2026, 14:05" — what a result rests on, shown beside it (greyed when stale). */
+export function computedOnText(r: BoundResult): string {
+  const when = new Date(r.runAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })
+  const n = r.pointCount
+  return n === null || n === undefined
+    ? `computed on an unrecorded point set on ${when}`
+    : `computed on ${n} point${n === 1 ? '' : 's'} on ${when}`
+}
+
+/** "Stale: computed on 12 points on …; the points have changed since." or null for a current result. */
+export function staleText(r: BoundResult): string | null {
+  return r.stale ? `Stale: ${computedOnText(r)}; the points have changed since.` : null
+}
+
+/** The latest result of each consistency test: what the panel, the record and the signature show. */
+export function latestConsistency<T extends { test: string; runAt: string }>(all: T[]): T[] {
+  const latest = new Map<string, T>()
+  for (const c of all) {
+    const seen = latest.get(c.test)
+    if (!seen || new Date(c.runAt).getTime() >= new Date(seen.runAt).getTime()) latest.set(c.test, c)
+  }
+  return [...latest.values()]
+}
+
+/** What is stale among the results a signature would rest on (recommended fit, latest consistency results), in words. */
+export function staleForSigning(d: DataSetDetail): string[] {
+  const out: string[] = []
+  const rec = d.fits.find((f) => f.id === d.dataSet.recommendedFitId)
+  if (rec?.stale) out.push(`the recommended fit (${fitLabel(rec, d.fits)}, ${computedOnText(rec)})`)
+  for (const c of latestConsistency(d.consistency))
+    if (c.stale) out.push(`the ${c.test === 'point' ? 'point' : 'area'} test (${computedOnText(c)})`)
+  return out
 }
