@@ -23,7 +23,7 @@ const tsx = path.join(root, 'node_modules', '.bin', 'tsx')
 try {
   log('applying database migrations')
   run(tsx, ['db/migrate.ts'], { env: appEnv })
-  if ((appEnv.DEMO_DATA ?? 'true') !== 'false') {
+  if ((appEnv.DEMO_DATA ?? (appEnv.NODE_ENV === 'production' ? 'false' : 'true')) !== 'false') {
     log('loading the demo scenario (invented data; idempotent)')
     run(tsx, ['db/seeds/index.ts'], { env: appEnv })
   }
@@ -35,16 +35,30 @@ try {
   process.exit(1)
 }
 
-const server = spawn(tsx, ['apps/api/src/server.ts'], {
+// node --import tsx: the app is our direct child (no wrapper process in between to orphan).
+const server = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/server.ts'], {
   cwd: root,
   env: appEnv,
   stdio: ['ignore', 'inherit', 'inherit'],
 })
 const url = appEnv.PUBLIC_URL ?? `http://127.0.0.1:${appEnv.PORT ?? 3000}`
-setTimeout(() => {
+const healthUrl = `http://127.0.0.1:${appEnv.PORT ?? 3000}/api/health`
+
+/** "ready" only once the app answers its liveness check (not after a fixed delay). */
+async function announceWhenReady() {
+  while (!stopping && server.exitCode === null) {
+    try {
+      const r = await fetch(healthUrl, { signal: AbortSignal.timeout(2000) })
+      if (r.ok) break
+    } catch {
+      /* not listening yet */
+    }
+    await new Promise((r) => setTimeout(r, 200))
+  }
+  if (stopping || server.exitCode !== null) return
   const secs = Math.round((Date.now() - started) / 1000)
   console.log(`
-  Ebullio is running at ${url}   (ready in ${secs} s; Ctrl-C stops it, the data stays in .data/)
+  Ebullio is ready at ${url}   (started in ${secs} s; Ctrl-C stops it and its PostgreSQL, the data stays in .data/)
 
   Demo sign-ins (DEMO ONLY, invented lab; password for all: ebullio-demo-2026)
     analyst       analyst@demo.ebullio.test
@@ -54,19 +68,23 @@ setTimeout(() => {
     admin         admin@demo.ebullio.test
   Mail sent by the app is captured locally: sign in as admin → Captured mail.
 `)
-}, 1500).unref()
+}
 
+// SIGINT (Ctrl-C) and SIGTERM alike: the app stops gracefully, then its PostgreSQL; a second signal hurries the app.
 let stopping = false
 function stop(signal) {
-  if (stopping) return
+  if (stopping) {
+    server.kill('SIGKILL')
+    return
+  }
   stopping = true
   log(`${signal}: stopping the app and PostgreSQL`)
   server.kill('SIGTERM')
 }
-process.on('SIGINT', () => stop('SIGINT'))
-process.on('SIGTERM', () => stop('SIGTERM'))
-server.on('exit', (code) => {
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => stop(signal))
+server.on('exit', (code, signal) => {
   pg.stop()
   log('stopped')
-  process.exit(stopping ? 0 : (code ?? 1))
+  process.exit(stopping ? 0 : (code ?? (signal ? 1 : 0)))
 })
+void announceWhenReady()

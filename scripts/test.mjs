@@ -6,13 +6,14 @@ import { spawnSync } from 'node:child_process'
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
 import path from 'node:path'
 import { dataDirFor, startCluster } from './lib/postgres.mjs'
-import { ensureChromium, ensureDependencies, ensurePnpm, log, root } from './lib/system.mjs'
+import { ensureChromium, ensureDependencies, ensureHaproxy, ensurePnpm, log, root } from './lib/system.mjs'
 
 const started = Date.now()
 const only = process.argv[2] // optional: "unit" or "e2e"
 ensurePnpm()
 ensureDependencies()
 const chromium = only === 'unit' ? null : ensureChromium()
+if (only !== 'e2e') ensureHaproxy() // the reverse proxy of the replica test (apps/api/test/replicas.test.ts)
 
 // TEST_PG_PORT lets two checkouts on one machine test side by side.
 const pgPort = Number(process.env.TEST_PG_PORT ?? 54329)

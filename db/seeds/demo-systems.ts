@@ -95,6 +95,20 @@ export const DEMO_COMPONENTS: Record<string, DemoComponent> = {
     antoine: { A: 13.8193, B: 2696.04, C: 224.317, range: [-19, 92] },
     source: SVNA_B2,
   },
+  // Published as log10(P/bar) = 4.6493 − 1395.14/(t/°C + 182.739), 37–138 °C (Poling, Prausnitz & O'Connell, 5th ed.,
+  // Appendix A; read from the Python `chemicals` 1.5.2 table Psat_data_AntoinePoling, which stores it as
+  // log10(P/Pa) = 9.6493 − 1395.14/(T/K − 90.411), 310.18–411.26 K). Converted exactly to this file's form:
+  // A = (4.6493 + 2)·ln 10, B = 1395.14·ln 10, C unchanged. It gives 117.7 °C at 101.325 kPa.
+  '1-butanol': {
+    name: '1-butanol',
+    cas: '71-36-3',
+    formula: 'C4H10O',
+    molarMass: 74.123,
+    molarVolume: 91.97,
+    antoine: { A: 6.6493 * Math.LN10, B: 1395.14 * Math.LN10, C: 182.739, range: [37.03, 138.11] },
+    source:
+      "Poling, Prausnitz & O'Connell, The Properties of Gases and Liquids, 5th ed. (2001), Appendix A (log10 bar form converted to ln kPa)",
+  },
   'n-heptane': {
     name: 'n-heptane',
     cas: '142-82-5',
@@ -105,6 +119,8 @@ export const DEMO_COMPONENTS: Record<string, DemoComponent> = {
     source: SVNA_B2,
   },
 }
+
+const R = 8.314462618 // J/(mol·K), CODATA 2018 (exact since the 2019 SI)
 
 /** A binary system of the demo and the model its invented points are generated from. */
 export interface DemoSystem {
@@ -117,6 +133,25 @@ export interface DemoSystem {
   /** relative response factor k in A1/A2 = k·n1/n2 used to simulate the GC (invented) */
   responseFactor: number
   note: string
+}
+
+/**
+ * The partially miscible pair of the demo: water (1) / 1-butanol (2). NRTL from the interaction-parameter table
+ * "ChemSep NRTL" as distributed with the Python `thermo` 0.6.1 library (IPDB): τij = bij/T with b12 = 1325.3268 K,
+ * b21 = 253.6418 K, α = 0.4447; here b in J/mol = b[K]·R. With the Antoine sets above it predicts the
+ * heterogeneous azeotrope at 92.97 °C and 101.325 kPa, vapour y_water = 0.764, liquid layers x_water = 0.588 and
+ * 0.982 (computed here, tag C; handbook: about 92.7 °C and 57.5 wt % 1-butanol, i.e. y_water ≈ 0.75, CRC Handbook
+ * azeotrope table, from memory).
+ */
+export const WATER_BUTANOL: DemoSystem = {
+  key: 'water-1-butanol',
+  light: 'water',
+  heavy: '1-butanol',
+  activity: { kind: 'nrtl', b12: 1325.3268196 * R, b21: 253.64181755 * R, alpha: 0.4447 },
+  modelSource: 'NRTL, "ChemSep NRTL" table of the Python thermo 0.6.1 library (water/1-butanol)',
+  detector: 'TCD',
+  responseFactor: 0.62,
+  note: 'Partially miscible: the liquid splits into two layers; heterogeneous azeotrope near 92.7 °C at 1 atm (CRC Handbook, from memory).',
 }
 
 export const DEMO_SYSTEMS: DemoSystem[] = [
@@ -178,6 +213,7 @@ export const DEMO_SYSTEMS: DemoSystem[] = [
     responseFactor: 1.42,
     note: 'Non-ideal, no azeotrope at 1 atm (CRC Handbook).',
   },
+  WATER_BUTANOL,
 ]
 
 /** thermo's vapour-pressure model of a demo component. */

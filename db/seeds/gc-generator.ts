@@ -70,11 +70,15 @@ export interface GeneratedState {
   y1: number
   T: number
   P: number
+  /** the two liquid layers [x1I, x1II] when the model's liquid boils as two layers (three-phase bubble point) */
+  liquidPhases?: [number, number]
 }
 
 /**
  * A run sheet at a nominal pressure (Pa): liquid compositions spread over 0.04–0.96, each boiled at the
- * day's barometric pressure, T and y from the model's bubble point, two injections per phase.
+ * day's barometric pressure, T and y from the model's bubble point, two injections per phase. Where the model's
+ * liquid boils as two layers the sample is marked `layers` = 2 and both layers are injected too (`upper` the
+ * poorer in component 1, `lower` the richer).
  */
 export function runCsv(
   system: DemoSystem,
@@ -89,25 +93,35 @@ export function runCsv(
     ],
     activity: system.activity,
   }
-  const lines = ['sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit']
   const states: GeneratedState[] = []
+  const body: string[][] = []
   for (let i = 0; i < o.samples; i++) {
     const x1 = 0.04 + (0.92 * (i + 0.5 * rand())) / Math.max(o.samples - 0.5, 1)
     const P = o.pressurePa + noise.barometer * gaussian(rand)
+    // Inside the two-liquid gap the engine returns the three-phase bubble point with both layers.
     const bubble = bubbleTemperature(model, { P, x1 })
     const label = `${o.prefix}-${String(i + 1).padStart(2, '0')}`
-    states.push({ label, x1, y1: bubble.y1, T: bubble.T, P })
+    states.push({ label, x1, y1: bubble.y1, T: bubble.T, P, liquidPhases: bubble.liquidPhases })
     const tC = bubble.T - 273.15 + noise.thermometer * gaussian(rand)
-    for (const [phase, z] of [
-      ['liquid', x1],
-      ['vapour', bubble.y1],
-    ] as const) {
+    // Water-rich layers are the denser (lower) ones here, as with the demo's water/1-butanol (common practice).
+    const layers = bubble.liquidPhases
+      ? ([
+          ['upper', bubble.liquidPhases[0]],
+          ['lower', bubble.liquidPhases[1]],
+        ] as const)
+      : []
+    for (const [phase, z] of [['liquid', x1], ['vapour', bubble.y1], ...layers] as const) {
       for (let inj = 1; inj <= 2; inj++) {
         const [a1, a2] = injectionAreas(z, system.responseFactor, rand, noise.injectionRsd)
-        const cond = phase === 'liquid' && inj === 1 ? `${fmt(tC, 2)},C,${fmt(P / 1000, 2)},kPa` : ',,,'
-        lines.push(`${label},${phase},${inj},${fmt(a1, 1)},${fmt(a2, 1)},${cond}`)
+        const first = phase === 'liquid' && inj === 1
+        const cond = first ? `${fmt(tC, 2)},C,${fmt(P / 1000, 2)},kPa` : ',,,'
+        body.push([`${label},${phase},${inj},${fmt(a1, 1)},${fmt(a2, 1)},${cond}`, first && layers.length ? '2' : ''])
       }
     }
   }
+  // The layers column only when some sample boiled as two layers, so single-liquid files keep the plain layout.
+  const twoLayers = states.some((s) => s.liquidPhases)
+  const header = 'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit' + (twoLayers ? ',layers' : '')
+  const lines = [header, ...body.map(([row, layers]) => (twoLayers ? `${row},${layers}` : row))]
   return { csv: lines.join('\n') + '\n', states }
 }

@@ -12,6 +12,8 @@ const here = path.dirname(fileURLToPath(import.meta.url))
 async function main() {
   const url = process.env.DATABASE_URL
   if (!url) throw new Error('DATABASE_URL is not set')
+  if (process.env.NODE_ENV === 'production')
+    throw new Error('The demo scenario (invented data) is refused with NODE_ENV=production.')
   const db = new Kysely<Database>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 2 }) }),
   })

@@ -49,7 +49,7 @@ async function draftWithRun(
   return { id: d.id, rowVersion: r.rowVersion, pointIds: r.pointIds }
 }
 
-/** Fit, submit and (as the lead chemist) mark the recommended fit; returns the row version to sign. */
+/** Fit, test, (as the lead chemist) mark the recommended fit, then submit; returns the row version to sign. */
 async function fitAndSubmit(
   ctx: SeedContext,
   id: string,
@@ -58,10 +58,11 @@ async function fitAndSubmit(
   by: SessionUser = ctx.users.analyst,
 ): Promise<number> {
   const run = await fits.runFits(ctx.db, by, id, { models })
-  const rowVersion = (await safeConsistency(ctx, id, recommended)) ?? run.rowVersion
-  await workflow.submit(ctx.db, ctx.config, by, id, rowVersion)
+  await safeConsistency(ctx, id, recommended)
+  // Chosen before submitting: a revision's carried-over recommended fit may rest on other points (stale).
   const fit = run.fits.find((f) => f.model === recommended)!
-  return (await fits.markRecommended(ctx.db, ctx.users.lead, id, fit.id)).rowVersion
+  const marked = await fits.markRecommended(ctx.db, ctx.users.lead, id, fit.id)
+  return (await workflow.submit(ctx.db, ctx.config, by, id, marked.rowVersion)).rowVersion
 }
 
 /** The area and point tests; a data set the engine cannot test (too few points) is still seeded. */
@@ -113,6 +114,33 @@ async function moreSubmitted(ctx: SeedContext): Promise<void> {
   }
 }
 
+/**
+ * Approved: water/1-butanol, the partially miscible pair (INVENTED points from the published NRTL parameters in
+ * demo-systems.ts plus GC noise). Samples whose liquid boils as two layers are marked so in the run file, with
+ * both layers analysed; NRTL is recommended, so a newcomer sees the three-phase line and the heterogeneous
+ * azeotrope at once.
+ */
+export const WATER_BUTANOL_TITLE = 'SR-31 decanter feed: water/1-butanol at 1 atm'
+async function partiallyMiscible(ctx: SeedContext): Promise<void> {
+  if (await exists(ctx, WATER_BUTANOL_TITLE)) return
+  const d = await draftWithRun(ctx, 'water-1-butanol', {
+    title: WATER_BUTANOL_TITLE,
+    project: 'SR-31',
+    samples: 14,
+    seed: 81,
+    prefix: 'WB',
+    notes: 'Still no. 2, stirred; two layers seen in the still are sampled apart after settling. Water by TCD.',
+  })
+  const rv = await fitAndSubmit(ctx, d.id, ['nrtl'], 'nrtl')
+  await workflow.approve(
+    ctx.db,
+    ctx.config,
+    ctx.users.lead,
+    d.id,
+    sign(ctx, 'Two-layer samples consistent with the three-phase line; NRTL recommended for the decanter study.', rv),
+  )
+}
+
 export async function scenarioDataSets(ctx: SeedContext): Promise<void> {
   const { users } = ctx
   // approved: acetone/methanol, minimum-boiling azeotrope
@@ -161,6 +189,7 @@ export async function scenarioDataSets(ctx: SeedContext): Promise<void> {
     })
   }
   await moreSubmitted(ctx)
+  await partiallyMiscible(ctx)
   // returned for rework: acetone/chloroform, maximum-boiling azeotrope
   const chl = 'SR-24 acetone/chloroform cut at 1 atm'
   if (!(await exists(ctx, chl))) {

@@ -42,6 +42,11 @@ function main(): void {
   writeFileSync(path.join(out, 'run-acetone-methanol.csv'), run)
   writeFileSync(path.join(out, 'run-acetone-methanol-with-errors.csv'), spoilRunCsv(run))
   writeFileSync(path.join(out, 'run-acetone-methanol-semicolon.csv'), europeanCsv(run))
+  // A partially miscible pair: samples that boil as two liquid layers carry layers = 2 and both layers.
+  const wb = DEMO_SYSTEMS.find((s) => s.key === 'water-1-butanol')!
+  writeFileSync(path.join(out, 'calibration-water-1-butanol.csv'), calibrationCsv(wb, 511))
+  const wbRun = runCsv(wb, { seed: 512, pressurePa: 101325, samples: 12, prefix: 'WB' }).csv
+  writeFileSync(path.join(out, 'run-water-1-butanol-two-layers.csv'), wbRun)
   console.log(`Example files written to ${out}`)
 }
 

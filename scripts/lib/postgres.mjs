@@ -59,8 +59,9 @@ export function startCluster({ dataDir, port, database, fresh = false }) {
     must(asOwner('sh', ['-c', `echo "include 'ebullio.conf'" >> ${dataDir}/postgresql.conf`]), 'configure')
     if (isRoot) execFileSync('chown', ['postgres:postgres', path.join(dataDir, 'ebullio.conf')])
   }
-  const status = asOwner(pgCtl, ['-D', dataDir, 'status'])
-  if (status.status !== 0) {
+  const start = () => {
+    const status = asOwner(pgCtl, ['-D', dataDir, 'status'])
+    if (status.status === 0) return
     log(`starting PostgreSQL on 127.0.0.1:${port}`)
     must(
       asOwner(pgCtl, [
@@ -78,6 +79,7 @@ export function startCluster({ dataDir, port, database, fresh = false }) {
       'pg_ctl start',
     )
   }
+  start()
   const psql = path.join(bin, 'psql')
   const exists = asOwner(psql, [
     '-h',
@@ -99,6 +101,13 @@ export function startCluster({ dataDir, port, database, fresh = false }) {
     url: `postgres://postgres@127.0.0.1:${port}/${database}`,
     stop: () => {
       asOwner(pgCtl, ['-D', dataDir, 'stop', '-m', 'fast', '-w'])
+    },
+    /** Start it again after stop() (for fault tests). */
+    start,
+    /** Stop and delete the cluster's folder (throw-away clusters only). */
+    destroy: () => {
+      asOwner(pgCtl, ['-D', dataDir, 'stop', '-m', 'immediate', '-w'])
+      rmSync(dataDir, { recursive: true, force: true })
     },
   }
 }

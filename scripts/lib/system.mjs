@@ -89,3 +89,15 @@ export function ensureChromium() {
   if (existsSync('/usr/bin/chromium')) return '/usr/bin/chromium'
   throw new Error('chromium not found after installing Debian package chromium')
 }
+
+/** Debian's haproxy (the reverse proxy of the replica test), installing it when missing. Returns the binary path. */
+export function ensureHaproxy() {
+  const find = () => ['/usr/sbin/haproxy', '/usr/bin/haproxy'].find((p) => existsSync(p)) ?? null
+  let bin = find()
+  if (!bin) {
+    aptInstall('haproxy')
+    bin = find()
+  }
+  if (!bin) throw new Error('haproxy not found after installing Debian package haproxy')
+  return bin
+}

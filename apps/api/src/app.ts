@@ -1,51 +1,25 @@
+import { randomUUID } from 'node:crypto'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import express from 'express'
-import { rateLimit } from 'express-rate-limit'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
+import type pg from 'pg'
 import type { AppServices } from './context.js'
-import { AppError, notFound } from './errors/index.js'
+import { notFound } from './errors/index.js'
 import { errorHandler } from './errors/handler.js'
 import { authorize } from './middleware/authorize.js'
 import { rejectInvalidText } from './middleware/invalid-text.js'
 import { sameOrigin } from './middleware/same-origin.js'
 import { sessionContext } from './middleware/session.js'
+import { createLimits } from './ops/limits.js'
+import { createMetrics } from './ops/metrics.js'
 import type { RouteDef } from './routes/define.js'
 import { allRoutes } from './routes/index.js'
 
 const webDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../web/dist')
-
-function signInLimiters(services: AppServices) {
-  const { config } = services
-  const tooMany = (message: string) => (_req: express.Request, _res: express.Response, next: express.NextFunction) =>
-    next(new AppError(429, 'too_many_attempts', message))
-  const window = 15 * 60_000
-  return [
-    rateLimit({
-      windowMs: window,
-      limit: config.rateLimitSigninPerIp,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      handler: tooMany('Too many sign-in attempts from this address. Wait 15 minutes and try again.'),
-    }),
-    rateLimit({
-      windowMs: window,
-      limit: config.rateLimitSigninPerAccount,
-      skipSuccessfulRequests: true,
-      standardHeaders: false,
-      legacyHeaders: false,
-      keyGenerator: (req) =>
-        `account:${String(req.body?.email ?? '')
-          .trim()
-          .toLowerCase()}`,
-      validate: { keyGeneratorIpFallback: false },
-      handler: tooMany('Too many failed sign-in attempts for this account. Wait 15 minutes and try again.'),
-    }),
-  ]
-}
 
 function mount(router: express.Router, routes: RouteDef[]) {
   for (const r of routes) {
@@ -54,12 +28,48 @@ function mount(router: express.Router, routes: RouteDef[]) {
   }
 }
 
+export interface AppOptions {
+  /** The pool behind services.db, for the pool gauges of /metrics. */
+  pool?: pg.Pool
+  /** Set by server.ts when it is shutting down: answers then ask the client to close the connection. */
+  lifecycle?: { stopping: boolean }
+  /** Include Node's process metrics (one app per process only). */
+  processMetrics?: boolean
+}
+
+const REQUEST_ID = /^[A-Za-z0-9._:-]{1,100}$/
+/** Paths that never need the session: liveness, readiness. */
+const NO_SESSION = new Set(['/api/health', '/api/ready'])
+
+function isLoopback(req: express.Request): boolean {
+  const a = req.socket.remoteAddress ?? ''
+  return !req.get('x-forwarded-for') && (a === '127.0.0.1' || a === '::1' || a === '::ffff:127.0.0.1')
+}
+
 /** Build the Express application (no listening here: see server.ts). */
-export function createApp(services: AppServices, logger: Logger, routes: RouteDef[] = allRoutes): express.Express {
+export function createApp(
+  services: AppServices,
+  logger: Logger,
+  routes: RouteDef[] = allRoutes,
+  options: AppOptions = {},
+): express.Express {
   const { config } = services
   const app = express()
   app.disable('x-powered-by')
   app.set('trust proxy', 'loopback')
+  const lifecycle = options.lifecycle
+  if (lifecycle)
+    // While stopping, every answer (also of a request that arrived before the signal) closes its connection.
+    app.use((_req, res, next) => {
+      const writeHead = res.writeHead
+      res.writeHead = function (this: express.Response, ...args: unknown[]) {
+        if (lifecycle.stopping && !this.headersSent) this.setHeader('Connection', 'close')
+        return (writeHead as (...a: unknown[]) => express.Response).apply(this, args)
+      } as typeof res.writeHead
+      next()
+    })
+  const metrics = createMetrics(services.db, options.pool, options.processMetrics)
+  app.use(metrics.middleware)
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -77,6 +87,14 @@ export function createApp(services: AppServices, logger: Logger, routes: RouteDe
   app.use(
     pinoHttp({
       logger,
+      // Every request has an id: the caller's X-Request-Id when it is sane (a proxy's), else a new one. It is in
+      // every log line of the request (reqId), in the X-Request-Id answer header and in every error answer.
+      genReqId: (req, res) => {
+        const given = req.headers['x-request-id']
+        const id = typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID()
+        res.setHeader('X-Request-Id', id)
+        return id
+      },
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
       // Method, path and status only: no headers (cookies), no bodies (passwords), no query strings (tokens).
       serializers: {
@@ -89,10 +107,26 @@ export function createApp(services: AppServices, logger: Logger, routes: RouteDe
       },
     }),
   )
+  // Prometheus scrape: with METRICS_TOKEN as a bearer token, or from this machine without a proxy in between.
+  app.get('/metrics', async (req, res, next) => {
+    const token = config.metricsToken
+    const allowed = token ? req.get('authorization') === `Bearer ${token}` : isLoopback(req)
+    if (!allowed) return next()
+    res.set('Content-Type', metrics.registry.contentType).send(await metrics.registry.metrics())
+  })
   app.use('/api', express.json({ limit: config.jsonLimit }))
   app.use('/api', sameOrigin(config.publicUrl))
-  app.use('/api', sessionContext(services))
-  app.use('/api/auth/sign-in', ...signInLimiters(services))
+  const session = sessionContext(services)
+  app.use('/api', (req, res, next) => {
+    if (!NO_SESSION.has(req.originalUrl.split('?')[0])) return session(req, res, next)
+    req.ctx = { ...services, user: null }
+    next()
+  })
+  const limits = createLimits(services)
+  app.use('/api/auth', limits.sweep)
+  app.use('/api/auth/sign-in', ...limits.signIn)
+  app.use('/api/auth/forgot-password', ...limits.forgotPassword)
+  app.use('/api/auth/change-password', ...limits.changePassword)
 
   const api = express.Router()
   mount(api, routes)

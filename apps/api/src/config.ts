@@ -2,21 +2,30 @@ import { z } from 'zod'
 
 const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes')
 
-/** Every setting of the server, read once from the environment and checked. Defaults suit a local lab machine. */
+/**
+ * Every setting of the server, read once from the environment and checked. Defaults suit a local lab machine;
+ * with NODE_ENV=production the defaults are the safe ones (no mail capture, no captured-mail viewer, no demo data,
+ * Secure cookies) and PUBLIC_URL must be given.
+ */
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
-  PUBLIC_URL: z.string().url().default('http://127.0.0.1:3000'),
+  PUBLIC_URL: z.string().url().optional(),
   DATABASE_URL: z.string().url().default('postgres://postgres@127.0.0.1:54320/ebullio'),
   SMTP_URL: z.string().default('smtp://127.0.0.1:2526'),
   MAIL_FROM: z.string().default('Ebullio <ebullio@localhost>'),
-  FAKE_SMTP: bool.default(true),
+  FAKE_SMTP: bool.optional(),
+  MAIL_VIEWER: bool.optional(),
+  SMTP_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
+  MAIL_POLL_MS: z.coerce.number().int().positive().default(2000),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().positive().default(12),
+  MAIL_MAX_REFUSED_ATTEMPTS: z.coerce.number().int().positive().default(3),
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
   SESSION_IDLE_HOURS: z.coerce.number().positive().default(12),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().default(72),
   COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
-  DEMO_DATA: bool.default(true),
+  DEMO_DATA: bool.optional(),
   UPLOAD_MAX_BYTES: z.coerce
     .number()
     .int()
@@ -28,6 +37,11 @@ const schema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   RATE_LIMIT_SIGNIN_PER_IP: z.coerce.number().int().positive().default(30),
   RATE_LIMIT_SIGNIN_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  RATE_LIMIT_FORGOT_PER_ADDRESS: z.coerce.number().int().positive().default(3),
+  RATE_LIMIT_FORGOT_PER_IP: z.coerce.number().int().positive().default(20),
+  RATE_LIMIT_PASSWORD_CHANGE: z.coerce.number().int().positive().default(8),
+  SHUTDOWN_TIMEOUT_MS: z.coerce.number().int().positive().default(10_000),
+  METRICS_TOKEN: z.string().min(16).optional(),
   INVITE_HOURS: z.coerce.number().positive().default(72),
   RESET_MINUTES: z.coerce.number().positive().default(30),
   ALLOW_SELF_APPROVAL: bool.default(false),
@@ -55,6 +69,12 @@ export interface Config {
   smtpUrl: string
   mailFrom: string
   fakeSmtp: boolean
+  /** The admins' captured-mail screen (development and tests; off in production unless MAIL_VIEWER=true). */
+  mailViewer: boolean
+  smtpTimeoutMs: number
+  mailPollMs: number
+  mailMaxAttempts: number
+  mailMaxRefusedAttempts: number
   fakeSmtpPort: number
   sessionIdleHours: number
   sessionAbsoluteHours: number
@@ -68,6 +88,11 @@ export interface Config {
   logLevel: string
   rateLimitSigninPerIp: number
   rateLimitSigninPerAccount: number
+  rateLimitForgotPerAddress: number
+  rateLimitForgotPerIp: number
+  rateLimitPasswordChange: number
+  shutdownTimeoutMs: number
+  metricsToken: string | null
   inviteHours: number
   resetMinutes: number
   allowSelfApproval: boolean
@@ -85,20 +110,32 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     throw new Error(`Invalid configuration:\n${lines.join('\n')}`)
   }
   const e = parsed.data
+  const production = e.NODE_ENV === 'production'
+  const problems: string[] = []
+  if (production && !e.PUBLIC_URL)
+    problems.push('  PUBLIC_URL: required in production (the address users type, e.g. https://ebullio.lab.example)')
+  if (production && e.DEMO_DATA === true)
+    problems.push('  DEMO_DATA: the invented demo scenario is refused in production; unset it or set DEMO_DATA=false')
+  if (problems.length) throw new Error(`Invalid configuration:\n${problems.join('\n')}`)
   return {
     nodeEnv: e.NODE_ENV,
     host: e.HOST,
     port: e.PORT,
-    publicUrl: e.PUBLIC_URL.replace(/\/$/, ''),
+    publicUrl: (e.PUBLIC_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
     databaseUrl: e.DATABASE_URL,
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
-    fakeSmtp: e.FAKE_SMTP,
+    fakeSmtp: e.FAKE_SMTP ?? !production,
+    mailViewer: e.MAIL_VIEWER ?? !production,
+    smtpTimeoutMs: e.SMTP_TIMEOUT_MS,
+    mailPollMs: e.MAIL_POLL_MS,
+    mailMaxAttempts: e.MAIL_MAX_ATTEMPTS,
+    mailMaxRefusedAttempts: e.MAIL_MAX_REFUSED_ATTEMPTS,
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     sessionIdleHours: e.SESSION_IDLE_HOURS,
     sessionAbsoluteHours: e.SESSION_ABSOLUTE_HOURS,
     cookieSecure: e.COOKIE_SECURE,
-    demoData: e.DEMO_DATA,
+    demoData: e.DEMO_DATA ?? !production,
     uploadMaxBytes: e.UPLOAD_MAX_BYTES,
     uploadMaxRows: e.UPLOAD_MAX_ROWS,
     jsonLimit: e.JSON_LIMIT,
@@ -106,6 +143,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     rateLimitSigninPerIp: e.RATE_LIMIT_SIGNIN_PER_IP,
     rateLimitSigninPerAccount: e.RATE_LIMIT_SIGNIN_PER_ACCOUNT,
+    rateLimitForgotPerAddress: e.RATE_LIMIT_FORGOT_PER_ADDRESS,
+    rateLimitForgotPerIp: e.RATE_LIMIT_FORGOT_PER_IP,
+    rateLimitPasswordChange: e.RATE_LIMIT_PASSWORD_CHANGE,
+    shutdownTimeoutMs: e.SHUTDOWN_TIMEOUT_MS,
+    metricsToken: e.METRICS_TOKEN ?? null,
     inviteHours: e.INVITE_HOURS,
     resetMinutes: e.RESET_MINUTES,
     allowSelfApproval: e.ALLOW_SELF_APPROVAL,

@@ -77,8 +77,11 @@ describe('sign-in', () => {
     const unknown = await agent(t.app).post('/api/auth/sign-in').send({ email: 'nobody@lab.test', password: 'nope' })
     expect(wrong.status).toBe(401)
     expect(unknown.status).toBe(401)
-    expect(wrong.body).toEqual({ error: { code: 'invalid_credentials', message: BAD_SIGN_IN, details: null } })
-    expect(unknown.body).toEqual(wrong.body)
+    expect(wrong.body.error).toEqual({ code: 'invalid_credentials', message: BAD_SIGN_IN, details: null })
+    expect(unknown.body.error).toEqual(wrong.body.error)
+    // Every error answer names its request (as in the X-Request-Id header and the log line).
+    expect(wrong.body.requestId).toBe(wrong.headers['x-request-id'])
+    expect(unknown.body.requestId).not.toBe(wrong.body.requestId)
   })
 
   it("ends a deactivated user's sessions at once", async () => {
@@ -215,6 +218,7 @@ describe('errors and request hygiene', () => {
     expect(bad.status).toBe(400)
     expect(bad.body).toEqual({
       error: { code: 'malformed_json', message: 'The request body is not valid JSON.', details: null },
+      requestId: bad.headers['x-request-id'],
     })
     const big = await agent(t.app)
       .post('/api/auth/sign-in')

@@ -24,7 +24,9 @@ const expected: Record<string, Access> = {
   'POST /api/admin/users/:id/deactivate': ['admin'],
   'POST /api/admin/users/:id/activate': ['admin'],
   'GET /api/dev/mail': ['admin'],
+  'GET /api/admin/mail-outbox': ['admin'],
   'GET /api/health': 'public',
+  'GET /api/ready': 'public',
   // lab workflow (issue 5)
   'GET /api/components': 'authenticated',
   'POST /api/components': ['admin', 'lead_chemist'],
@@ -58,6 +60,7 @@ const expected: Record<string, Access> = {
   'POST /api/data-sets/:id/uploads': ['analyst', 'lead_chemist'],
   'POST /api/data-sets/:id/fits': ['analyst', 'lead_chemist'],
   'GET /api/data-sets/:id/fits': 'authenticated',
+  'DELETE /api/data-sets/:id/fits/:fitId': ['analyst', 'lead_chemist'],
   'GET /api/data-sets/:id/fits/:fitId/band': 'authenticated',
   'GET /api/data-sets/:id/fits/:fitId/next-compositions': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/data-sets/:id/pure-component-check': 'authenticated',

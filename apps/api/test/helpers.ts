@@ -4,7 +4,7 @@ import { pino, type Logger } from 'pino'
 import request from 'supertest'
 import type { Express } from 'express'
 import { createApp } from '../src/app.js'
-import { createLucia, Sessions } from '../src/auth/index.js'
+import { Sessions } from '../src/auth/index.js'
 import { loadConfig, type Config } from '../src/config.js'
 import { createDb, createPool, type Database } from '../src/db/index.js'
 import { startFakeSmtp } from '../src/mail/fake-smtp.js'
@@ -34,14 +34,17 @@ export async function createTestContext(
     LOG_LEVEL: 'silent',
     RATE_LIMIT_SIGNIN_PER_IP: '10000',
     RATE_LIMIT_SIGNIN_PER_ACCOUNT: '10000',
+    RATE_LIMIT_FORGOT_PER_ADDRESS: '10000',
+    RATE_LIMIT_FORGOT_PER_IP: '10000',
+    RATE_LIMIT_PASSWORD_CHANGE: '10000',
     ...env,
   })
   const pool = createPool(config.databaseUrl)
   const db = createDb(config.databaseUrl, pool)
   const smtp = await startFakeSmtp(db, 0)
   const mailer = new Mailer(db, `smtp://127.0.0.1:${smtp.port}`, config.mailFrom)
-  const sessions = new Sessions(createLucia(pool, config), config)
-  const app = createApp({ db, config, sessions, mailer }, logger)
+  const sessions = new Sessions(db, config)
+  const app = createApp({ db, config, sessions, mailer }, logger, undefined, { pool })
   return {
     app,
     db,

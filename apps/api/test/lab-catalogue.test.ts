@@ -16,16 +16,18 @@ afterAll(() => t.close())
 
 describe('catalogue', () => {
   it('lists only systems with approved or superseded versions, one page at a time', async () => {
-    // demo: acetone/methanol approved; n-hexane/n-heptane v2 approved superseding v1; the other three systems unapproved
+    // demo: acetone/methanol and water/1-butanol approved; n-hexane/n-heptane v2 approved superseding v1; the other
+    // three systems unapproved
     const all = await engineer.get('/api/catalogue').expect(200)
-    expect(all.body.total).toBe(2)
+    expect(all.body.total).toBe(3)
     expect(all.body.items.map((i: { system: { name: string } }) => i.system.name)).toEqual([
       'acetone / methanol',
       'n-hexane / n-heptane',
+      'water / 1-butanol',
     ])
     const p1 = await engineer.get('/api/catalogue').query({ pageSize: 1 }).expect(200)
     const p2 = await engineer.get('/api/catalogue').query({ pageSize: 1, page: 2 }).expect(200)
-    expect([p1.body.total, p2.body.total]).toEqual([2, 2])
+    expect([p1.body.total, p2.body.total]).toEqual([3, 3])
     expect([...p1.body.items, ...p2.body.items].map((i: { system: { name: string } }) => i.system.name)).toEqual([
       'acetone / methanol',
       'n-hexane / n-heptane',
@@ -34,7 +36,7 @@ describe('catalogue', () => {
     expect(hex.body.total).toBe(1)
     expect(hex.body.items[0].approved.map((v: { version: number }) => v.version)).toEqual([2])
     expect(hex.body.items[0].superseded.map((v: { version: number }) => v.version)).toEqual([1])
-    expect((await engineer.get('/api/catalogue').query({ q: 'water' })).body).toMatchObject({ items: [], total: 0 })
+    expect((await engineer.get('/api/catalogue').query({ q: 'propanol' })).body).toMatchObject({ items: [], total: 0 })
   })
 
   it('gives an engineer the band of an approved recommended fit', async () => {

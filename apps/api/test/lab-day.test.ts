@@ -8,7 +8,7 @@
 import { bubbleTemperature } from '@ebullio/thermo'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { demoVaporPressure } from '../../../db/seeds/demo-systems.js'
-import { contentDigest, signedContent } from '../src/services/digest.js'
+import { contentDigest, signedContentV2 as signedContent } from '../src/services/digest.js'
 import { ACETONE_METHANOL, buildLab, csv, draftWithPoints, labCounts, type Lab } from './lab-fixture.js'
 import { createTestContext, resetDatabase, type TestContext } from './helpers.js'
 

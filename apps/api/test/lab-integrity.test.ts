@@ -196,7 +196,7 @@ describe('workflow rules', () => {
       .send({ password: PASSWORD, reason: 'mine', rowVersion: rec.body.rowVersion })
     expect(self.status).toBe(403)
     expect(self.body.error.message).toBe(
-      'You created or uploaded data in this data set; another lead chemist must approve it.',
+      'You changed this version (created the data set, uploaded points, ran the recommended fit); another lead chemist must approve it.',
     )
     const other = await lab.lead2
       .post(`/api/data-sets/${d.id}/approve`)

@@ -21,17 +21,17 @@ describe('demo scenario (invented data)', () => {
       n: number
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
-      approved: 2,
+      approved: 3,
       draft: 1,
       returned: 1,
       submitted: 3,
       superseded: 1,
     })
-    expect((await sql<{ n: number }>`select count(*)::int as n from binary_system`.execute(t.db)).rows[0].n).toBe(5)
-    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(4)
+    expect((await sql<{ n: number }>`select count(*)::int as n from binary_system`.execute(t.db)).rows[0].n).toBe(6)
+    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(5)
     expect(
       (await sql<{ n: number }>`select count(*)::int as n from upload where kind = 'run'`.execute(t.db)).rows[0].n,
-    ).toBe(7)
+    ).toBe(8)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)

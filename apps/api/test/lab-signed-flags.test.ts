@@ -1,6 +1,6 @@
 /** A signature keeps the outlier flags the signer saw (against the recommended fit), so later views show what was signed. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { outlierPointIds } from '../src/services/outliers.js'
+import { outlierPointIds } from '@ebullio/thermo'
 import { createTestContext, PASSWORD, resetDatabase, type TestContext } from './helpers.js'
 import { buildLab, draftWithPoints, type Lab } from './lab-fixture.js'
 
@@ -27,7 +27,7 @@ describe('outlier rule', () => {
       { pointId: 'h', dT: 0, dy: 0, flagged: true },
     ]
     // excluding g: RMS(dT) = sqrt((5·0.01 + 1 + 0)/7) = 0.387 K, so only f (1.0 > 0.775) and g (5) are beyond 2σ; h was flagged
-    expect(outlierPointIds(r, new Set(['g']))).toEqual(['f', 'g', 'h'])
+    expect(outlierPointIds(r.map((x) => ({ ...x, excluded: x.pointId === 'g' })))).toEqual(['f', 'g', 'h'])
   })
 })
 
@@ -46,7 +46,7 @@ describe('signed outlier flags', () => {
       .send({ password: PASSWORD, reason: 'Wilson recommended.', rowVersion: rec.body.rowVersion })
       .expect(200)
     const detail = (await lab.reviewer.get(`/api/data-sets/${d.id}`).expect(200)).body
-    const expected = outlierPointIds(wilson.residuals, new Set())
+    const expected = outlierPointIds(wilson.residuals)
     const labels = expected.map((id: string) => detail.points.find((p: { id: string }) => p.id === id).sampleLabel)
     expect(detail.approvals[0].outliers).toEqual({
       fitId: wilson.id,

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { weakPasswordReason } from './password-rule.js'
 
 /** The five roles of Ebullio; a user may hold several. */
 export const ROLES = ['analyst', 'lead_chemist', 'reviewer', 'engineer', 'admin'] as const
@@ -15,8 +16,19 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const roleSchema = z.enum(ROLES)
 export const emailSchema = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254)
 
-/** At least 10 characters: long enough to resist guessing, short enough to type at a lab bench. */
-export const newPasswordSchema = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters')
+/**
+ * At least 10 characters: long enough to resist guessing, short enough to type at a lab bench; and not one of the
+ * trivially weak ones (only spaces, repeated characters, key runs, well-known passwords: see password-rule.ts).
+ */
+export const newPasswordSchema = z
+  .string()
+  .min(10, 'Use at least 10 characters')
+  .max(200, 'Use at most 200 characters')
+  .superRefine((p, ctx) => {
+    if (p.length < 10) return
+    const reason = weakPasswordReason(p)
+    if (reason) ctx.addIssue({ code: 'custom', message: reason })
+  })
 
 export const signInSchema = z.object({
   email: emailSchema,

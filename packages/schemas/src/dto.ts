@@ -65,6 +65,19 @@ export interface PointDto {
   calibrationId: string | null
   /** Lines of the uploaded file the point came from (the header is line 1). */
   rowRefs: number[]
+  /**
+   * The liquid in the still had split into two layers: x1 is the overall liquid composition, T the three-phase
+   * temperature and y1 the three-phase vapour. Absent on points stored before this field existed.
+   */
+  heterogeneous?: boolean
+  /** Both analysed layers of a heterogeneous point, x1 ascending (I poorer in component 1); null when not analysed. */
+  liquidPhases?: [LiquidLayerDto, LiquidLayerDto] | null
+}
+
+/** One liquid layer of a heterogeneous point: x1 with its standard uncertainty (k = 1). */
+export interface LiquidLayerDto {
+  x1: number
+  uncertainty: number
 }
 
 /** Activity models a fit can use. */
@@ -93,6 +106,10 @@ export interface FitDto<D = string> {
   pointIds: string[]
   runBy: string
   runAt: D
+  /** SHA-256 of the point set the fit was computed on (null: computed before it was kept) */
+  pointSetDigest: string | null
+  /** included points of that point set */
+  pointCount: number | null
 }
 
 /** An approved version of a data set in the catalogue, with the fit it was approved with. */
@@ -104,6 +121,19 @@ export interface ApprovedVersionDto<D = string> {
   nominalPressurePa: number
   approvedAt: D | null
   recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+  /** What the recommended fit says about the liquid splitting; null without a fit or when it cannot be computed. */
+  miscibility?: CatalogueMiscibilityDto | null
+}
+
+/**
+ * A partially miscible system in the catalogue: `partial` when the recommended fit predicts two liquid layers at
+ * room temperature (`atRoomTemperature`, T in K) or a three-phase line at the version's pressure (`threePhase`,
+ * T in K, liquids x1I < x1II, vapour y1).
+ */
+export interface CatalogueMiscibilityDto {
+  partial: boolean
+  atRoomTemperature: { T: number; x1I: number; x1II: number } | null
+  threePhase: { T: number; x1I: number; x1II: number; y1: number } | null
 }
 
 /** One system of the engineers' catalogue: its approved versions (newest first) and the superseded ones. */

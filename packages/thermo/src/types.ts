@@ -28,8 +28,10 @@ export type ActivityModel =
   | { kind: 'ideal' }
   | { kind: 'margules'; A12: number; A21: number }
   | { kind: 'van-laar'; A12: number; A21: number }
-  | { kind: 'wilson'; a12: number; a21: number; V1: number; V2: number }
-  | { kind: 'nrtl'; b12: number; b21: number; alpha: number }
+  /** Wilson; a12T, a21T (J/(mol·K)) make the energies temperature-dependent: a(T) = a + aT·(T − 298.15 K). */
+  | { kind: 'wilson'; a12: number; a21: number; V1: number; V2: number; a12T?: number; a21T?: number }
+  /** NRTL; b12T, b21T (J/(mol·K)) make the energies temperature-dependent: b(T) = b + bT·(T − 298.15 K). */
+  | { kind: 'nrtl'; b12: number; b21: number; alpha: number; b12T?: number; b21T?: number }
   | { kind: 'uniquac'; a12: number; a21: number; r1: number; r2: number; q1: number; q2: number }
 
 /** A binary mixture under modified Raoult's law (ideal vapour, γ from the activity model). */

@@ -1,10 +1,11 @@
 import type { Role } from '@ebullio/schemas'
+import { sql, type Kysely } from 'kysely'
 import type { Config } from '../config.js'
-import type { Db } from '../db/index.js'
-import type { AuthEngine } from './lucia.js'
+import type { Database, Db } from '../db/index.js'
+import { generateSessionToken, sessionIdOf } from './session-token.js'
 
-export { createLucia, type AuthEngine } from './lucia.js'
 export { hashPassword, verifyPassword, dummyHash } from './password.js'
+export { generateSessionToken, sessionIdOf } from './session-token.js'
 
 export interface SessionUser {
   id: string
@@ -13,50 +14,118 @@ export interface SessionUser {
   roles: Role[]
 }
 
-/** Sessions: create, validate (idle and absolute lifetime, active account), end. */
-export class Sessions {
-  constructor(
-    private readonly engine: AuthEngine,
-    private readonly config: Config,
-  ) {}
+const COOKIE = 'ebullio_session'
 
-  get cookieName(): string {
-    return this.engine.sessionCookieName
+/** The value of one cookie in a Cookie header. */
+function readCookie(header: string | undefined, name: string): string | null {
+  if (!header) return null
+  for (const part of header.split(';')) {
+    const eq = part.indexOf('=')
+    if (eq > 0 && part.slice(0, eq).trim() === name) {
+      const v = part.slice(eq + 1).trim()
+      return /^[a-z2-7]{1,64}$/.test(v) ? v : null
+    }
+  }
+  return null
+}
+
+/**
+ * Sessions: a random token in an HttpOnly cookie, its SHA-256 as the row id in `user_session` (the approach the
+ * lucia authors now recommend, on @oslojs/crypto). Idle timeout (sliding, extended past half its life) and absolute
+ * lifetime; one query per request reads session, user and roles.
+ */
+export class Sessions {
+  readonly cookieName = COOKIE
+  private readonly secure: boolean
+  private readonly idleMs: number
+
+  constructor(
+    private readonly db: Kysely<Database>,
+    private readonly config: Config,
+  ) {
+    this.secure =
+      config.cookieSecure === 'auto'
+        ? config.nodeEnv === 'production' || config.publicUrl.startsWith('https:')
+        : config.cookieSecure === 'true'
+    this.idleMs = config.sessionIdleHours * 3.6e6
   }
 
-  async create(userId: string): Promise<string> {
-    const session = await this.engine.createSession(userId, {} as never)
-    return this.engine.createSessionCookie(session.id).serialize()
+  private cookie(token: string, maxAgeSeconds: number): string {
+    return `${COOKIE}=${token}; Path=/; Max-Age=${maxAgeSeconds}; HttpOnly; SameSite=Lax${this.secure ? '; Secure' : ''}`
+  }
+
+  /** Start a session; returns the Set-Cookie value. */
+  async create(userId: string, db: Db = this.db): Promise<string> {
+    const token = generateSessionToken()
+    await db
+      .insertInto('user_session')
+      .values({ id: sessionIdOf(token), user_id: userId, expires_at: new Date(Date.now() + this.idleMs) })
+      .execute()
+    return this.cookie(token, Math.floor(this.idleMs / 1000))
   }
 
   blankCookie(): string {
-    return this.engine.createBlankSessionCookie().serialize()
+    return this.cookie('', 0)
   }
 
   /** The user behind a cookie header, and a cookie to send back when the session was extended or ended. */
   async validate(db: Db, cookieHeader: string | undefined): Promise<{ user: SessionUser | null; setCookie?: string }> {
-    const id = this.engine.readSessionCookie(cookieHeader ?? '')
-    if (!id) return { user: null }
-    const { session, user } = await this.engine.validateSession(id)
-    if (!session || !user) return { user: null, setCookie: this.blankCookie() }
-    const ageHours = (Date.now() - session.createdAt.getTime()) / 3.6e6
-    if (!user.active || ageHours > this.config.sessionAbsoluteHours) {
-      await this.engine.invalidateSession(session.id)
+    const token = readCookie(cookieHeader, COOKIE)
+    if (!token) return { user: null }
+    const id = sessionIdOf(token)
+    const row = await db
+      .selectFrom('user_session as s')
+      .innerJoin('app_user as u', 'u.id', 's.user_id')
+      .select([
+        's.expires_at',
+        's.created_at',
+        'u.id',
+        'u.email',
+        'u.display_name',
+        'u.active',
+        sql<
+          Role[]
+        >`coalesce((select array_agg(r.role order by r.role) from user_role r where r.user_id = u.id), '{}')`.as(
+          'roles',
+        ),
+      ])
+      .where('s.id', '=', id)
+      .executeTakeFirst()
+    if (!row) return { user: null, setCookie: this.blankCookie() }
+    const now = Date.now()
+    const ageHours = (now - row.created_at.getTime()) / 3.6e6
+    if (!row.active || row.expires_at.getTime() <= now || ageHours > this.config.sessionAbsoluteHours) {
+      await db.deleteFrom('user_session').where('id', '=', id).execute()
       return { user: null, setCookie: this.blankCookie() }
     }
-    const roles = await db.selectFrom('user_role').select('role').where('user_id', '=', user.id).execute()
-    return {
-      user: { id: user.id, email: user.email, displayName: user.displayName, roles: roles.map((r) => r.role as Role) },
-      setCookie: session.fresh ? this.engine.createSessionCookie(session.id).serialize() : undefined,
+    let setCookie: string | undefined
+    if (row.expires_at.getTime() - now < this.idleMs / 2) {
+      await db
+        .updateTable('user_session')
+        .set({ expires_at: new Date(now + this.idleMs) })
+        .where('id', '=', id)
+        .execute()
+      setCookie = this.cookie(token, Math.floor(this.idleMs / 1000))
     }
+    return { user: { id: row.id, email: row.email, displayName: row.display_name, roles: row.roles }, setCookie }
+  }
+
+  /** The stored id of the session a cookie header carries (null without one). */
+  idFromCookie(cookieHeader: string | undefined): string | null {
+    const token = readCookie(cookieHeader, COOKIE)
+    return token ? sessionIdOf(token) : null
   }
 
   async end(cookieHeader: string | undefined): Promise<void> {
-    const id = this.engine.readSessionCookie(cookieHeader ?? '')
-    if (id) await this.engine.invalidateSession(id)
+    const id = this.idFromCookie(cookieHeader)
+    if (id) await this.db.deleteFrom('user_session').where('id', '=', id).execute()
   }
 
-  async endAllFor(userId: string): Promise<void> {
-    await this.engine.invalidateUserSessions(userId)
+  /** End every session of a user, except (optionally) the one this cookie header carries. */
+  async endAllFor(userId: string, exceptCookieHeader?: string, db: Db = this.db): Promise<void> {
+    const keep = exceptCookieHeader ? this.idFromCookie(exceptCookieHeader) : null
+    let q = db.deleteFrom('user_session').where('user_id', '=', userId)
+    if (keep) q = q.where('id', '<>', keep)
+    await q.execute()
   }
 }

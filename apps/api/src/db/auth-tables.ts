@@ -44,6 +44,16 @@ export interface MailOutboxTable {
   next_attempt_at: GeneratedTimestamp
   last_error: string | null
   sent_at: Timestamp | null
+  /** A worker holds the message until then (several replicas never send one message twice). */
+  claimed_until: Timestamp | null
+  /** Given up: refused for good (5xx) or too many tries; listed for admins. */
+  failed_at: Timestamp | null
+}
+
+export interface RateLimitHitTable {
+  key: string
+  hits: number
+  reset_at: Timestamp
 }
 
 export interface CapturedMailTable {
@@ -63,6 +73,7 @@ export interface AuthTables {
   password_reset: TokenTable
   mail_outbox: MailOutboxTable
   captured_mail: CapturedMailTable
+  rate_limit_hit: RateLimitHitTable
 }
 
 export type AppUser = Selectable<AppUserTable>

@@ -201,12 +201,20 @@ export interface PointTable {
   /** line numbers of the raw rows in the uploaded file */
   row_refs: number[]
   created_at: DefaultTimestamp
+  /** two liquid layers in the still (migration 20261203_10p) */
+  heterogeneous: Generated<boolean>
+  /** the layers' x1, I < II, with standard uncertainties; all null unless analysed */
+  x1_phase_i: number | null
+  x1_phase_i_uncertainty: number | null
+  x1_phase_ii: number | null
+  x1_phase_ii_uncertainty: number | null
 }
 
 export interface PointInjectionTable {
   id: Generated<string>
   point_id: string
-  phase: 'liquid' | 'vapour'
+  /** upper and lower: the separated layers of a two-layer liquid */
+  phase: 'liquid' | 'vapour' | 'upper' | 'lower'
   injection_no: number
   area1: number
   area2: number
@@ -225,6 +233,10 @@ export interface FitTable {
   point_ids: string[]
   run_by: string
   run_at: DefaultTimestamp
+  /** SHA-256 of the point set the fit was computed on (services/point-set.ts); null before it was kept */
+  point_set_digest: string | null
+  /** included points of that point set */
+  point_count: number | null
 }
 
 export interface ConsistencyResultTable {
@@ -235,6 +247,10 @@ export interface ConsistencyResultTable {
   result: Json<Record<string, unknown>>
   run_by: string
   run_at: DefaultTimestamp
+  /** SHA-256 of the point set the tests ran on; null before it was kept */
+  point_set_digest: string | null
+  /** included points of that point set */
+  point_count: number | null
 }
 
 export interface CommentTable {
@@ -263,6 +279,12 @@ export interface ApprovalTable {
   signed_at: DefaultTimestamp
   /** the outlier flags as signed ({ fitId, model, pointIds, sampleLabels, rule }); null before they were kept */
   outliers: Json<unknown> | null
+  /** how `digest` was computed: 'ebullio-signed-content/1' (sorted-key JSON) or '/2' (RFC 8785) */
+  digest_algorithm: Generated<string>
+  /** the point set the signature covers (null for format 1) */
+  point_set_digest: string | null
+  /** who changed what in the signed version ([{ userId, name, changes }]); null for format 1 */
+  changes: Json<unknown> | null
 }
 
 export interface AuditLogTable {

@@ -2,67 +2,124 @@ import nodemailer, { type Transporter } from 'nodemailer'
 import { sql, type Kysely } from 'kysely'
 import type { Logger } from 'pino'
 import type { Database } from '../db/index.js'
+import type { OutboxMail } from '../db/auth-tables.js'
 
-/** Delivers the outbox through SMTP; a failed message waits (1, 2, 4 … up to 60 minutes) and is tried again. */
+export interface MailerOptions {
+  /** Connection, greeting and socket timeout of one SMTP conversation (a hanging server costs at most this). */
+  timeoutMs?: number
+  /** A message the server refuses for good (5xx) is given up after this many tries. */
+  maxRefusedAttempts?: number
+  /** Any message is given up after this many tries (temporary failures wait 1, 2, 4 … 60 minutes between tries). */
+  maxAttempts?: number
+}
+
+/**
+ * The SMTP URL with connection, greeting and socket timeouts as query options (nodemailer reads options from the
+ * URL's query; an explicit option in SMTP_URL wins).
+ */
+export function withTimeouts(smtpUrl: string, ms: number): string {
+  const u = new URL(smtpUrl)
+  for (const k of ['connectionTimeout', 'greetingTimeout', 'socketTimeout'])
+    if (!u.searchParams.has(k)) u.searchParams.set(k, String(ms))
+  return u.toString()
+}
+
+/** SMTP reply codes 5xx are permanent (RFC 5321 §4.2.1): trying again later will not help. */
+function isPermanent(err: unknown): boolean {
+  const code = Number((err as { responseCode?: unknown }).responseCode)
+  return code >= 500 && code < 600
+}
+
+/**
+ * Delivers the outbox through SMTP. Every replica may run one: a message is claimed (row lock with SKIP LOCKED,
+ * then a lease in `claimed_until`) before it is sent, so each message goes out once however many workers run.
+ * A failed message waits (1, 2, 4 … up to 60 minutes) and is tried again, up to a bound; then `failed_at` is set
+ * and admins see it in the outbox list.
+ */
 export class Mailer {
   private transport: Transporter
   private timer: NodeJS.Timeout | null = null
   private running: Promise<number> | null = null
+  private stopping = false
+  private readonly timeoutMs: number
+  private readonly maxRefused: number
+  private readonly maxAttempts: number
 
   constructor(
     private readonly db: Kysely<Database>,
     smtpUrl: string,
     private readonly from: string,
     private readonly log?: Logger,
+    options: MailerOptions = {},
   ) {
-    this.transport = nodemailer.createTransport(smtpUrl)
+    this.timeoutMs = options.timeoutMs ?? 15_000
+    this.maxRefused = options.maxRefusedAttempts ?? 3
+    this.maxAttempts = options.maxAttempts ?? 12
+    this.transport = nodemailer.createTransport(withTimeouts(smtpUrl, this.timeoutMs))
   }
 
-  /** Send what is due now; returns how many were delivered. Safe to call concurrently. */
+  /** Send what is due now; returns how many were delivered. Safe to call concurrently, and from several replicas. */
   deliverPending(): Promise<number> {
     this.running ??= this.deliver().finally(() => (this.running = null))
     return this.running
   }
 
+  /** Claim one due message for this worker; null when none is due or all due ones are held by other workers. */
+  private async claim(): Promise<OutboxMail | null> {
+    // A lease long enough for one SMTP conversation (three timeouts) plus a margin.
+    const leaseMs = this.timeoutMs * 3 + 30_000
+    const { rows } = await sql<OutboxMail>`
+      update mail_outbox
+         set claimed_until = now() + ${leaseMs} * interval '1 millisecond', attempts = attempts + 1
+       where id = (select id from mail_outbox
+                    where sent_at is null and failed_at is null and next_attempt_at <= now()
+                      and (claimed_until is null or claimed_until < now())
+                    order by next_attempt_at, id
+                    limit 1
+                    for update skip locked)
+      returning *`.execute(this.db)
+    return rows[0] ?? null
+  }
+
   private async deliver(): Promise<number> {
     let sent = 0
-    for (;;) {
-      const batch = await this.db
-        .selectFrom('mail_outbox')
-        .selectAll()
-        .where('sent_at', 'is', null)
-        .where('next_attempt_at', '<=', new Date())
-        .orderBy('id')
-        .limit(20)
-        .execute()
-      if (batch.length === 0) return sent
-      for (const m of batch) {
-        try {
-          await this.transport.sendMail({ from: this.from, to: m.to_address, subject: m.subject, text: m.body_text })
-          await this.db
-            .updateTable('mail_outbox')
-            .set({ sent_at: new Date(), attempts: sql`attempts + 1` })
-            .where('id', '=', m.id)
-            .execute()
-          sent++
-        } catch (err) {
-          const waitMinutes = Math.min(60, 2 ** m.attempts)
-          this.log?.warn({ err, mailId: m.id }, 'mail delivery failed; will retry')
-          await this.db
-            .updateTable('mail_outbox')
-            .set({
-              attempts: sql`attempts + 1`,
-              last_error: String((err as Error).message ?? err).slice(0, 500),
-              next_attempt_at: new Date(Date.now() + waitMinutes * 60_000),
-            })
-            .where('id', '=', m.id)
-            .execute()
-        }
+    while (!this.stopping) {
+      const m = await this.claim()
+      if (!m) break
+      try {
+        await this.transport.sendMail({ from: this.from, to: m.to_address, subject: m.subject, text: m.body_text })
+        await this.db
+          .updateTable('mail_outbox')
+          .set({ sent_at: new Date(), claimed_until: null, last_error: null })
+          .where('id', '=', m.id)
+          .execute()
+        sent++
+      } catch (err) {
+        const permanent = isPermanent(err)
+        const giveUp = m.attempts >= (permanent ? this.maxRefused : this.maxAttempts)
+        const waitMinutes = Math.min(60, 2 ** (m.attempts - 1))
+        const message = String((err as Error).message ?? err).slice(0, 500)
+        this.log?.warn(
+          { mailId: m.id, attempts: m.attempts, permanent, giveUp, error: message },
+          giveUp ? 'mail delivery given up' : 'mail delivery failed; will retry',
+        )
+        await this.db
+          .updateTable('mail_outbox')
+          .set({
+            claimed_until: null,
+            last_error: message,
+            next_attempt_at: new Date(Date.now() + waitMinutes * 60_000),
+            failed_at: giveUp ? new Date() : null,
+          })
+          .where('id', '=', m.id)
+          .execute()
       }
     }
+    return sent
   }
 
   start(intervalMs = 2000): void {
+    this.stopping = false
     this.timer ??= setInterval(
       () => void this.deliverPending().catch((err) => this.log?.error({ err }, 'outbox')),
       intervalMs,
@@ -70,10 +127,12 @@ export class Mailer {
     this.timer.unref()
   }
 
+  /** Stop after the message being sent now (if any); no new message is claimed. */
   async stop(): Promise<void> {
+    this.stopping = true
     if (this.timer) clearInterval(this.timer)
     this.timer = null
-    await this.running
+    await this.running?.catch(() => {})
     this.transport.close()
   }
 }

@@ -4,21 +4,22 @@ import { AppError } from '../errors/index.js'
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
 
 /**
- * Cross-site request forgery guard: a state-changing request must come from our own origin,
- * as told by Origin (or Referer when a browser omits Origin). Requests with neither are refused.
+ * Cross-site request forgery guard: a state-changing request must come from our own origin, as told by Origin
+ * (or Referer when a browser omits Origin), compared with the configured public URL only — never with the
+ * request's own Host header, which the sender controls. Requests with neither header are refused.
  */
 export function sameOrigin(publicUrl: string): RequestHandler {
-  const allowed = new URL(publicUrl).host
+  const allowed = new URL(publicUrl).origin
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next()
     const source = req.get('origin') ?? req.get('referer')
-    let host: string | null
+    let origin: string | null
     try {
-      host = source ? new URL(source).host : null
+      origin = source ? new URL(source).origin : null
     } catch {
-      host = null
+      origin = null
     }
-    if (host && (host === allowed || host === req.get('host'))) return next()
+    if (origin && origin === allowed) return next()
     next(new AppError(403, 'cross_site_request', 'This request did not come from the Ebullio page and was refused.'))
   }
 }

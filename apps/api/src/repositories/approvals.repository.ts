@@ -15,6 +15,12 @@ export interface ApprovalRecord {
   signedAt: Date
   /** the outlier flags the signer saw (null: no recommended fit, or signed before flags were kept) */
   outliers: SignedOutliers | null
+  /** how `digest` was computed ('ebullio-signed-content/1' or '/2'; services/digest.ts) */
+  digestAlgorithm: string
+  /** the point set signed (null for format 1) */
+  pointSetDigest: string | null
+  /** who changed what in the signed version (null for format 1 signatures) */
+  changes: { userId: string; name: string; changes: string[] }[] | null
 }
 
 /** Points beyond ±2σ of one fit, as shown when signing. */
@@ -29,7 +35,10 @@ export interface SignedOutliers {
 
 export async function insertApproval(
   db: Db,
-  a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName' | 'outliers'> & { outliers?: SignedOutliers | null },
+  a: Omit<ApprovalRecord, 'id' | 'signedAt' | 'signerName' | 'outliers' | 'changes'> & {
+    outliers?: SignedOutliers | null
+    changes?: ApprovalRecord['changes']
+  },
 ): Promise<string> {
   const r = await db
     .insertInto('approval')
@@ -42,6 +51,9 @@ export async function insertApproval(
       self_approval: a.selfApproval,
       override_reason: a.overrideReason,
       outliers: a.outliers ? JSON.stringify(a.outliers) : null,
+      digest_algorithm: a.digestAlgorithm,
+      point_set_digest: a.pointSetDigest,
+      changes: a.changes ? JSON.stringify(a.changes) : null,
     })
     .returning('id')
     .executeTakeFirstOrThrow()
@@ -69,5 +81,15 @@ export async function listApprovals(db: Db, dataSetId: string): Promise<Approval
     overrideReason: r.override_reason,
     signedAt: r.signed_at,
     outliers: (r.outliers as SignedOutliers | null) ?? null,
+    digestAlgorithm: r.digest_algorithm,
+    pointSetDigest: r.point_set_digest,
+    changes: (r.changes as ApprovalRecord['changes']) ?? null,
   }))
+}
+
+/** Display names of users by id. */
+export async function displayNamesOf(db: Db, ids: string[]): Promise<Map<string, string>> {
+  if (!ids.length) return new Map()
+  const rows = await db.selectFrom('app_user').select(['id', 'display_name']).where('id', 'in', ids).execute()
+  return new Map(rows.map((r) => [r.id, r.display_name]))
 }

@@ -111,3 +111,20 @@ export async function listAudit(db: Db, f: AuditQuery): Promise<{ items: AuditRe
     total: Number(total.n),
   }
 }
+
+/** Distinct (actor, action) pairs of one data set version's audit entries among `actions`. */
+export async function actorsOf(
+  db: Db,
+  dataSetId: string,
+  actions: readonly string[],
+): Promise<{ actorId: string; action: string }[]> {
+  const rows = await db
+    .selectFrom('audit_log')
+    .select(['actor_id', 'action'])
+    .distinct()
+    .where('data_set_id', '=', dataSetId)
+    .where('action', 'in', [...actions])
+    .where('actor_id', 'is not', null)
+    .execute()
+  return rows.map((r) => ({ actorId: r.actor_id!, action: r.action }))
+}

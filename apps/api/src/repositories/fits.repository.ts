@@ -13,6 +13,9 @@ export interface ConsistencyRecord {
   result: Record<string, unknown>
   runBy: string
   runAt: Date
+  /** SHA-256 of the point set the tests ran on (null: before it was kept) */
+  pointSetDigest: string | null
+  pointCount: number | null
 }
 
 export const toFit = (f: Fit): FitRecord => ({
@@ -27,6 +30,8 @@ export const toFit = (f: Fit): FitRecord => ({
   pointIds: f.point_ids,
   runBy: f.run_by,
   runAt: f.run_at,
+  pointSetDigest: f.point_set_digest,
+  pointCount: f.point_count,
 })
 
 const toConsistency = (c: ConsistencyResult): ConsistencyRecord => ({
@@ -37,6 +42,8 @@ const toConsistency = (c: ConsistencyResult): ConsistencyRecord => ({
   result: c.result,
   runBy: c.run_by,
   runAt: c.run_at,
+  pointSetDigest: c.point_set_digest,
+  pointCount: c.point_count,
 })
 
 export async function listFits(db: Db, dataSetId: string): Promise<FitRecord[]> {
@@ -56,7 +63,7 @@ export async function findFit(db: Db, id: string): Promise<FitRecord | undefined
   return r && toFit(r)
 }
 
-export async function insertFit(db: Db, f: Omit<FitRecord, 'id' | 'runAt'>): Promise<FitRecord> {
+export async function insertFit(db: Db, f: Omit<FitRecord, 'id' | 'runAt'> & { runAt?: Date }): Promise<FitRecord> {
   const r = await db
     .insertInto('fit')
     .values({
@@ -69,6 +76,9 @@ export async function insertFit(db: Db, f: Omit<FitRecord, 'id' | 'runAt'>): Pro
       residuals: JSON.stringify(f.residuals),
       point_ids: f.pointIds,
       run_by: f.runBy,
+      point_set_digest: f.pointSetDigest,
+      point_count: f.pointCount,
+      ...(f.runAt ? { run_at: f.runAt } : {}),
     })
     .returningAll()
     .executeTakeFirstOrThrow()
@@ -84,7 +94,10 @@ export async function copyFits(
 ): Promise<Map<string, string>> {
   const map = new Map<string, string>()
   for (const f of await listFits(db, fromId)) {
-    const copy = await insertFit(db, { ...f, dataSetId: toId, pointIds: f.pointIds.map((p) => pointMap.get(p) ?? p) })
+    // The copy keeps when it was computed and on which point set (the carried-over points have the same values).
+    const remap = (p: string) => pointMap.get(p) ?? p
+    const residuals = f.residuals.map((r) => (typeof r.pointId === 'string' ? { ...r, pointId: remap(r.pointId) } : r))
+    const copy = await insertFit(db, { ...f, dataSetId: toId, pointIds: f.pointIds.map(remap), residuals })
     map.set(f.id, copy.id)
   }
   return map
@@ -113,8 +126,15 @@ export async function insertConsistency(
       passed: c.passed,
       result: JSON.stringify(c.result),
       run_by: c.runBy,
+      point_set_digest: c.pointSetDigest,
+      point_count: c.pointCount,
     })
     .returningAll()
     .executeTakeFirstOrThrow()
   return toConsistency(r)
+}
+
+/** Delete one fit (a draft's; the database refuses it for approved versions). */
+export async function deleteFit(db: Db, id: string): Promise<void> {
+  await db.deleteFrom('fit').where('id', '=', id).execute()
 }

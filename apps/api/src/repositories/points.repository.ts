@@ -7,7 +7,7 @@ import type { Point } from '../db/lab-tables.js'
 export type PointRecord = PointDto
 
 export interface InjectionRecord {
-  phase: 'liquid' | 'vapour'
+  phase: 'liquid' | 'vapour' | 'upper' | 'lower'
   injection: number
   area1: number
   area2: number
@@ -30,6 +30,14 @@ export const toPoint = (p: Point): PointRecord => ({
   uploadId: p.upload_id,
   calibrationId: p.calibration_id,
   rowRefs: p.row_refs,
+  heterogeneous: p.heterogeneous,
+  liquidPhases:
+    p.x1_phase_i !== null && p.x1_phase_ii !== null
+      ? [
+          { x1: p.x1_phase_i, uncertainty: p.x1_phase_i_uncertainty ?? 0 },
+          { x1: p.x1_phase_ii, uncertainty: p.x1_phase_ii_uncertainty ?? 0 },
+        ]
+      : null,
 })
 
 export async function listPoints(db: Db, dataSetId: string): Promise<PointRecord[]> {
@@ -106,6 +114,11 @@ export async function insertPoints(
           upload_id: p.uploadId,
           calibration_id: p.calibrationId,
           row_refs: p.rowRefs,
+          heterogeneous: p.heterogeneous ?? false,
+          x1_phase_i: p.liquidPhases?.[0].x1 ?? null,
+          x1_phase_i_uncertainty: p.liquidPhases?.[0].uncertainty ?? null,
+          x1_phase_ii: p.liquidPhases?.[1].x1 ?? null,
+          x1_phase_ii_uncertainty: p.liquidPhases?.[1].uncertainty ?? null,
         })),
       )
       .returning('id')

@@ -84,8 +84,39 @@ export const adminRoutes = defineRoutes([
     access: ['admin'],
     handler: async (req, res) => {
       const { db, config, user } = ctx(req)
-      if (config.nodeEnv === 'production') throw notFound('The mail capture exists only in development and test mode.')
+      if (!config.mailViewer)
+        throw notFound('The captured-mail viewer is off (MAIL_VIEWER; off by default in production).')
       res.json({ items: await listCapturedMail(db, user) })
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/admin/mail-outbox',
+    access: ['admin'],
+    handler: async (req, res) => {
+      // Mail that could not be delivered: given up (refused for good, or too many tries) or still failing.
+      const { status } = parseQuery(z.object({ status: z.enum(['failed', 'retrying']).default('failed') }), req)
+      let q = ctx(req)
+        .db.selectFrom('mail_outbox')
+        .select(['id', 'to_address', 'subject', 'created_at', 'attempts', 'last_error', 'next_attempt_at', 'failed_at'])
+        .where('sent_at', 'is', null)
+      q =
+        status === 'failed'
+          ? q.where('failed_at', 'is not', null)
+          : q.where('failed_at', 'is', null).where('attempts', '>', 0)
+      const rows = await q.orderBy('id', 'desc').limit(200).execute()
+      res.json({
+        items: rows.map((r) => ({
+          id: r.id,
+          to: r.to_address,
+          subject: r.subject,
+          createdAt: r.created_at,
+          attempts: r.attempts,
+          lastError: r.last_error,
+          nextAttemptAt: r.failed_at ? null : r.next_attempt_at,
+          failedAt: r.failed_at,
+        })),
+      })
     },
   },
 ])

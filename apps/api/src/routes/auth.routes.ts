@@ -46,7 +46,7 @@ export const authRoutes = defineRoutes([
       const row = await findUserById(db, user.id)
       res.json({
         user: { ...user, notifyMail: row?.notify_mail ?? true },
-        devMode: req.ctx.config.nodeEnv !== 'production',
+        devMode: req.ctx.config.mailViewer,
       })
     },
   },
@@ -66,9 +66,9 @@ export const authRoutes = defineRoutes([
     path: '/api/auth/change-password',
     access: 'authenticated',
     handler: async (req, res) => {
-      const { user, db } = ctx(req)
+      const { user, db, sessions } = ctx(req)
       const body = parseBody(changePasswordSchema, req)
-      await service.changePassword(db, user.id, body.currentPassword, body.newPassword)
+      await service.changePassword(db, sessions, user.id, body.currentPassword, body.newPassword, req.headers.cookie)
       res.json({ ok: true })
     },
   },

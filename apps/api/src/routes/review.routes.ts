@@ -4,9 +4,7 @@ import * as comments from '../services/comments.service.js'
 import * as fits from '../services/fits.service.js'
 import * as uncertainty from '../services/uncertainty.service.js'
 import * as workflow from '../services/workflow.service.js'
-import { listFits } from '../repositories/fits.repository.js'
-import { findDataSet } from '../repositories/datasets.repository.js'
-import { pageWindow, visibleOrNotFound } from '../services/lab-access.js'
+import { pageWindow } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
 import {
   bandQuerySchema,
@@ -50,9 +48,17 @@ export const reviewRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       const { db, user } = ctx(req)
-      const { id } = parseParams(idParams, req)
-      visibleOrNotFound(user, await findDataSet(db, id))
-      res.json({ items: await listFits(db, id) })
+      res.json(await fits.listFitsWithStale(db, user, parseParams(idParams, req).id))
+    },
+  },
+  {
+    method: 'delete',
+    path: '/api/data-sets/:id/fits/:fitId',
+    access: AUTHORS,
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id, fitId } = parseParams(fitParams, req)
+      res.json(await fits.deleteFit(db, user, id, fitId))
     },
   },
   {

@@ -1,6 +1,13 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
-import type { CatalogueEntryDto } from '@ebullio/schemas'
-import { findAzeotrope, phaseDiagram, relativeVolatility, type ActivityModel } from '@ebullio/thermo'
+import type { CatalogueEntryDto, CatalogueMiscibilityDto } from '@ebullio/schemas'
+import {
+  findAzeotropes,
+  liquidLiquidEquilibrium,
+  phaseDiagram,
+  relativeVolatility,
+  type ActivityModel,
+  type PhaseDiagram,
+} from '@ebullio/thermo'
 import { sql } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
@@ -10,6 +17,9 @@ import { findFit } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
+
+/** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
+const ROOM_T = 298.15
 
 /** Shown with every design-related result (see the product rules on results that can hurt someone). */
 export const DESIGN_CAUTION =
@@ -39,12 +49,15 @@ export async function catalogue(
             'f.id as fit_id',
             'f.model',
             'f.parameters',
+            sql<ActivityModel | null>`f.activity`.as('activity'),
             sql<unknown>`f.statistics`.as('statistics'),
           ])
           .where('d.state', 'in', ['approved', 'superseded'])
           .where('d.system_id', 'in', ids)
           .orderBy('d.version', 'desc')
           .execute()
+  const inputs = new Map<string, Awaited<ReturnType<typeof engineInputs>> | null>()
+  for (const id of ids) inputs.set(id, await engineInputs(db, id).catch(() => null))
   const items = systems.items.map((s) => {
     const versions = rows.filter((r) => r.system_id === s.id)
     return {
@@ -59,6 +72,7 @@ export async function catalogue(
           approvedAt: v.approved_at,
           recommendedFit:
             v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+          miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, v.nominal_pressure_pa) : null,
         })),
       superseded: versions
         .filter((v) => v.state === 'superseded')
@@ -66,6 +80,32 @@ export async function catalogue(
     }
   })
   return { items, total: systems.total, page: o.page, pageSize: o.pageSize }
+}
+
+/**
+ * Whether the recommended fit splits the liquid: two liquids at room temperature, or a three-phase line at the
+ * version's pressure. Null when it cannot be computed (no vapour-pressure sets, or the engine refuses).
+ */
+function miscibilityOf(
+  inputs: Awaited<ReturnType<typeof engineInputs>> | null,
+  activity: ActivityModel,
+  P: number,
+): CatalogueMiscibilityDto | null {
+  if (!inputs) return null
+  try {
+    const system = binarySystem(inputs, activity)
+    const room = liquidLiquidEquilibrium(system, { T: ROOM_T })
+    const d = phaseDiagram(system, { P }, { points: 21 })
+    const threePhase = d.kind === 'isobaric' ? (d.threePhase ?? null) : null
+    return {
+      partial: room !== null || threePhase !== null,
+      atRoomTemperature: room && { T: ROOM_T, x1I: room.x1I, x1II: room.x1II },
+      threePhase,
+    }
+  } catch (err) {
+    if ((err as { name?: string }).name === 'ThermoError') return null
+    throw err
+  }
 }
 
 /** The activity model to compute with: the fit asked for, else the recommended one. */
@@ -81,18 +121,29 @@ async function chosenActivity(
   return { fitId: fit.id, model: fit.model, activity: fit.activity as unknown as ActivityModel }
 }
 
-/** T–x–y and x–y at pressure P (Pa), relative volatility across composition and the azeotrope, if any. */
+/**
+ * T–x–y and x–y at pressure P (Pa) with the three-phase line and the two-liquid region where the model splits the
+ * liquid, relative volatility across composition, and every azeotrope with its kind (`azeotrope`: the first).
+ */
 export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: number; points: number; fitId?: string }) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   const chosen = await chosenActivity(db, d, o.fitId)
   const inputs = await engineInputs(db, d.systemId)
   const system = binarySystem(inputs, chosen.activity)
-  const diagram = thermo('T–x–y curve', () => phaseDiagram(system, { P: o.P }, { points: o.points }))
-  const azeotrope = thermo('Azeotrope search', () => findAzeotrope(system, { P: o.P }))
-  const volatility = Array.from({ length: 21 }, (_, i) => i / 20).map((x1) => {
-    const r = thermo('Relative volatility', () => relativeVolatility(system, { P: o.P, x1 }))
-    return { x1, alpha: r.alpha, T: r.T }
-  })
+  const diagram = thermo(
+    'T–x–y curve',
+    () =>
+      phaseDiagram(system, { P: o.P }, { points: o.points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
+  )
+  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P: o.P }))
+  // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
+  const gap = diagram.threePhase
+  const volatility = Array.from({ length: 21 }, (_, i) => i / 20)
+    .filter((x1) => !gap || x1 <= gap.x1I || x1 >= gap.x1II)
+    .map((x1) => {
+      const r = thermo('Relative volatility', () => relativeVolatility(system, { P: o.P, x1 }))
+      return { x1, alpha: r.alpha, T: r.T }
+    })
   return {
     dataSetId: id,
     fitId: chosen.fitId,
@@ -100,7 +151,9 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
     P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
     diagram,
-    azeotrope,
+    threePhase: diagram.threePhase ?? null,
+    azeotrope: azeotropes[0] ?? null,
+    azeotropes,
     relativeVolatility: volatility,
     caution: DESIGN_CAUTION,
   }

@@ -4,7 +4,7 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
 import type { Database } from '../db/index.js'
-import { conflict, notFound } from '../errors/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
 import { notifyUser } from '../mail/outbox.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/comments.repository.js'
@@ -79,10 +79,20 @@ export async function setThreadResolved(
   resolved: boolean,
 ) {
   return db.transaction().execute(async (tx) => {
-    visibleOrNotFound(user, await findDataSet(tx, dataSetId))
+    const d = visibleOrNotFound(user, await findDataSet(tx, dataSetId))
     const c = await repo.findComment(tx, commentId)
     if (!c || c.data_set_id !== dataSetId) throw notFound('There is no such comment in this data set.')
     if (c.parent_id) throw conflict('Resolve the thread from its first comment, not from a reply.')
+    // The data set's author cannot close a reviewer's objection alone: only the thread's author or a lead
+    // chemist who is not the data set's author may; otherwise the approver gives an override reason when signing.
+    const independentLead = user.roles.includes('lead_chemist') && d.createdBy !== user.id
+    if (resolved && c.author_id !== user.id && !independentLead) {
+      throw new AppError(
+        403,
+        'resolve_refused',
+        'Only the author of this thread or a lead chemist who did not create the data set may resolve it; the approver can otherwise sign with an override reason.',
+      )
+    }
     await repo.setResolved(tx, commentId, resolved, user.id)
     await appendAudit(tx, {
       actorId: user.id,

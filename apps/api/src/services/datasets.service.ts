@@ -23,6 +23,7 @@ import {
   visibleOrNotFound,
 } from './lab-access.js'
 import { getSystem } from './systems.service.js'
+import { pointSetOf, withStale } from './point-set.js'
 
 export interface DataSetInput {
   systemId: string
@@ -87,12 +88,17 @@ export async function listDataSets(db: Db, user: SessionUser, o: ListOptions) {
 export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   const full = readsEverything(user)
+  const pts = await points.listPoints(db, id)
+  // Every derived result says which point set it was computed on and whether that is still the current one.
+  const pointSet = pointSetOf(pts)
   return {
     ...d,
+    pointSetDigest: pointSet.digest,
+    includedPointCount: pointSet.included,
     system: await getSystem(db, d.systemId),
-    points: await points.listPoints(db, id),
-    fits: await listFits(db, id),
-    consistency: await listConsistency(db, id),
+    points: pts,
+    fits: (await listFits(db, id)).map((f) => withStale(f, pointSet.digest)),
+    consistency: (await listConsistency(db, id)).map((c) => withStale(c, pointSet.digest)),
     comments: full ? await listComments(db, id) : [],
     uploads: full ? await listUploadsOf(db, id) : [],
     /** the calibrations behind the points (file, date, model, coefficients ± u, range) */

@@ -7,45 +7,22 @@ import { listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
+import {
+  csvDocument,
+  dataSetFileName,
+  pointsCsv as writePointsCsv,
+  slugify,
+  type CsvCell,
+} from '@ebullio/schemas/csv-exports'
 
-/** RFC 4180 quoting for a cell that may hold a delimiter, a quote or a line break. */
-export function csvCell(v: unknown): string {
-  const s = v === null || v === undefined ? '' : String(v)
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s
-}
-
-const line = (cells: unknown[]) => cells.map(csvCell).join(',')
-
-/** A safe file name stem for a data set version. */
-export function fileStem(d: repo.DataSetRecord): string {
-  return `${
-    d.title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '') || 'data-set'
-  }-v${d.version}`
+/** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
+export function fileStem(d: { title: string; version: number }): string {
+  return `${slugify(d.title, 'data-set')}-v${d.version}`
 }
 
 export async function pointsCsv(db: Db, user: SessionUser, id: string): Promise<{ name: string; csv: string }> {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
-  const rows = (await listPoints(db, id)).map((p) =>
-    line([
-      p.seq,
-      p.sampleLabel,
-      p.temperatureK.toFixed(3),
-      (p.pressurePa / 1000).toFixed(4),
-      p.x1.toFixed(5),
-      p.x1Uncertainty.toExponential(3),
-      p.y1.toFixed(5),
-      p.y1Uncertainty.toExponential(3),
-      p.excluded,
-      p.exclusionReason,
-    ]),
-  )
-  return {
-    name: `${fileStem(d)}-points.csv`,
-    csv: ['seq,sample,t_k,p_kpa,x1,u_x1,y1,u_y1,excluded,exclusion_reason', ...rows].join('\n') + '\n',
-  }
+  return { name: dataSetFileName(d, 'points', 'csv'), csv: writePointsCsv(await listPoints(db, id)) }
 }
 
 /** A vapour-pressure set as exported: its component (1 = lighter, name, CAS), the stored parameters as published, the source. */
@@ -62,6 +39,34 @@ const UNITS: Record<string, string> = {
   b12: 'J/mol',
   b21: 'J/mol',
   alpha: '1',
+  V1: 'cm3/mol',
+  V2: 'cm3/mol',
+}
+
+/** How the curve is computed from the parameters (the engine's conventions, packages/thermo/src/activity/kernel.ts). */
+export const VLE_RELATION =
+  "modified Raoult's law, ideal vapour: y_i P = x_i gamma_i P_i_sat(T); bubble points solved for T at the measured P"
+
+/** Each model's equations in the engine's parameter names (Smith, Van Ness & Abbott, 7th ed., §12.1–12.2). */
+export const MODEL_EQUATIONS: Record<string, string> = {
+  margules:
+    'two-parameter Margules: ln gamma1 = x2^2 [A12 + 2 (A21 - A12) x1]; ln gamma2 = x1^2 [A21 + 2 (A12 - A21) x2]',
+  'van-laar':
+    'Van Laar: ln gamma1 = A12 (A21 x2 / (A12 x1 + A21 x2))^2; ln gamma2 = A21 (A12 x1 / (A12 x1 + A21 x2))^2',
+  wilson:
+    'Wilson: Lambda12 = (V2/V1) exp(-a12/(R T)); Lambda21 = (V1/V2) exp(-a21/(R T)); ' +
+    'ln gamma1 = -ln(x1 + x2 Lambda12) + x2 [Lambda12/(x1 + x2 Lambda12) - Lambda21/(x2 + x1 Lambda21)]',
+  nrtl:
+    'NRTL: tau12 = b12/(R T); tau21 = b21/(R T); G12 = exp(-alpha tau12); G21 = exp(-alpha tau21); ' +
+    'ln gamma1 = x2^2 [tau21 (G21/(x1 + x2 G21))^2 + tau12 G12/(x2 + x1 G12)^2]',
+}
+
+/** What the fit used but did not fit: NRTL's α when held, Wilson's V1 and V2 (cm³/mol), with their units. */
+function heldSettings(f: { activity: Record<string, unknown>; parameters: { name: string }[] }) {
+  const fitted = new Set(f.parameters.map((p) => p.name))
+  return Object.entries(f.activity)
+    .filter(([k, v]) => k !== 'kind' && !fitted.has(k) && typeof v === 'number')
+    .map(([name, value]) => ({ name, value: value as number, unit: UNITS[name] ?? '1' }))
 }
 
 /** Fitted parameters of every fit, with the vapour-pressure sets and the signature, as JSON. */
@@ -71,7 +76,7 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
   const approval = (await listApprovals(db, id)).filter((a) => a.meaning === 'approved').at(-1)
   const fits = await listFits(db, id)
   return {
-    name: `${fileStem(d)}-parameters.json`,
+    name: dataSetFileName(d, 'parameters', 'json'),
     body: {
       format: 'ebullio-parameters/1',
       dataSet: { id: d.id, title: d.title, version: d.version, state: d.state, nominalPressurePa: d.nominalPressurePa },
@@ -96,12 +101,17 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
         }
       }),
       recommendedFitId: d.recommendedFitId,
+      vleRelation: VLE_RELATION,
       fits: fits.map((f) => ({
         id: f.id,
         model: f.model,
         recommended: f.id === d.recommendedFitId,
+        equation: MODEL_EQUATIONS[f.model] ?? f.model,
+        objective: f.options.objective ?? null,
         activity: f.activity,
         parameters: f.parameters.map((p) => ({ ...p, unit: UNITS[p.name] ?? '1' })),
+        held: heldSettings(f),
+        pointSetDigest: (f as { pointSetDigest?: string | null }).pointSetDigest ?? null,
         statistics: {
           rmsT: f.statistics.rmsT,
           rmsY: f.statistics.rmsY,
@@ -128,35 +138,81 @@ export const PARAMETERS_CSV_HEADER =
   'fit_id,model,recommended,parameter,value,standard_error,unit,component,component_name,cas'
 
 /**
- * One row per parameter of every fit (component columns empty: a fit belongs to the pair), then one row per
- * entry of each vapour-pressure set (`model` = `vapour-pressure/<kind>`, fit columns empty), labelled with its
- * component (1 or 2), name and CAS number; the set's published source is its last row (`parameter` = `source`).
+ * The parameters file, everything needed to recompute the curve and matching the JSON export: per fit its equation,
+ * objective, fitted parameters with standard errors, held settings (NRTL α when held, Wilson V1 and V2), statistics
+ * and point-set digest; then each vapour-pressure set labelled with its component and source; then the data set,
+ * the VLE relation and the approval. Layout: docs/csv-formats.md.
  */
 export async function parametersCsv(db: Db, user: SessionUser, id: string): Promise<{ name: string; csv: string }> {
-  const { name, body } = await parametersJson(db, user, id)
-  const fitRows = body.fits.flatMap((f) =>
-    f.parameters.map((p) => line([f.id, f.model, f.recommended, p.name, p.value, p.standardError, p.unit, '', '', ''])),
-  )
+  const { body } = await parametersJson(db, user, id)
+  const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const fitRow = (f: (typeof body.fits)[number], name: string, value: CsvCell, se: CsvCell = null, unit = '') =>
+    [f.id, f.model, f.recommended, name, value, se, unit, null, null, null] as CsvCell[]
+  const fitRows = body.fits.flatMap((f) => [
+    fitRow(f, 'equation', f.equation),
+    fitRow(f, 'objective', f.objective as CsvCell),
+    ...f.parameters.map((p) => fitRow(f, p.name, p.value, p.standardError, p.unit)),
+    ...f.held.map((h) => fitRow(f, h.name, h.value, null, h.unit)),
+    ...(f.model === 'nrtl'
+      ? [
+          fitRow(
+            f,
+            'alpha_fitted',
+            f.parameters.some((p) => p.name === 'alpha'),
+          ),
+        ]
+      : []),
+    fitRow(f, 'rms_T', f.statistics.rmsT as CsvCell, null, 'K'),
+    fitRow(f, 'rms_y', f.statistics.rmsY as CsvCell, null, '1'),
+    fitRow(f, 'aic', f.statistics.aic as CsvCell),
+    fitRow(f, 'converged', f.statistics.converged as CsvCell),
+    fitRow(f, 'points', f.points),
+    fitRow(f, 'point_set_digest', f.pointSetDigest),
+    fitRow(f, 'run_at', f.runAt.toISOString()),
+  ])
   const vpRows = body.vaporPressure.flatMap(({ component: c, kind, source, ...rest }) => {
     const entries: [string, unknown][] = [...Object.entries(rest), ['source', source]]
-    return entries.map(([k, v]) =>
-      line([
-        '',
-        `vapour-pressure/${String(kind)}`,
-        '',
-        k,
-        Array.isArray(v) ? v.join(' ') : v,
-        '',
-        vpUnit(k, kind, rest.temperatureUnit),
-        c.index,
-        c.name,
-        c.cas,
-      ]),
-    )
+    return entries.map(([k, v]): CsvCell[] => [
+      null,
+      `vapour-pressure/${String(kind)}`,
+      null,
+      k,
+      (Array.isArray(v) ? v.join(' ') : v) as CsvCell,
+      null,
+      vpUnit(k, kind, rest.temperatureUnit),
+      c.index,
+      c.name,
+      c.cas,
+    ])
   })
+  const a = body.approval
+  const recordRows: [string, string, CsvCell, string][] = [
+    ['data-set', 'title', body.dataSet.title, ''],
+    ['data-set', 'version', body.dataSet.version, ''],
+    ['data-set', 'state', body.dataSet.state, ''],
+    ['data-set', 'nominal_pressure', body.dataSet.nominalPressurePa, 'Pa'],
+    ['data-set', 'recommended_fit_id', body.recommendedFitId, ''],
+    ['data-set', 'vle_relation', body.vleRelation, ''],
+    ['approval', 'signed_by', a?.signedBy ?? null, ''],
+    ['approval', 'signed_at', a ? new Date(a.signedAt).toISOString() : null, ''],
+    ['approval', 'reason', a?.reason ?? null, ''],
+    ['approval', 'signature_digest', a?.digest ?? null, 'SHA-256'],
+  ]
+  const tail = recordRows.map(([model, name, value, unit]): CsvCell[] => [
+    null,
+    model,
+    null,
+    name,
+    value,
+    null,
+    unit,
+    null,
+    null,
+    null,
+  ])
   return {
-    name: name.replace(/\.json$/, '.csv'),
-    csv: [PARAMETERS_CSV_HEADER, ...fitRows, ...vpRows].join('\n') + '\n',
+    name: dataSetFileName(d, 'parameters', 'csv'),
+    csv: csvDocument(PARAMETERS_CSV_HEADER.split(','), [...fitRows, ...vpRows, ...tail]),
   }
 }
 

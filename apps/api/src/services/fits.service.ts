@@ -1,15 +1,17 @@
 /** Model fits and consistency tests on a data set's included points; the lead chemist marks the recommended fit. */
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
-import type { Database } from '../db/index.js'
+import type { Database, Db } from '../db/index.js'
 import { AppError, conflict, notFound } from '../errors/index.js'
+import { staleResults } from './stale-results.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
 import { DEFAULT_NRTL_ALPHA } from '@ebullio/schemas'
+import { canonicalJson8785, computedOn, pointSetOf, withStale } from './point-set.js'
 import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult } from '@ebullio/thermo'
-import { FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
+import { EDITABLE_STATES, FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
 import { bandOf, pureComponentChecks, suggestionsOf } from './uncertainty.service.js'
 
@@ -68,9 +70,15 @@ function statistics(r: FitBinaryResult) {
   }
 }
 
+/** Two fits are the same run when model, options and point set are the same (the engine is deterministic). */
+const sameRun = (f: fits.FitRecord, model: string, options: Record<string, unknown>, digest: string) =>
+  f.model === model && f.pointSetDigest === digest && canonicalJson8785(f.options) === canonicalJson8785(options)
+
 /**
- * Fit each requested model to the included points (each point at its own measured P) and store the fits.
- * Excluded points are passed as excluded so their residuals are still reported.
+ * Fit each requested model to the included points (each point at its own measured P) and store the fits,
+ * each with the digest of the point set it was computed on. Excluded points are passed as excluded so their
+ * residuals are still reported. A run identical to a stored fit (same model, options and point set) is not
+ * stored twice: the stored fit is returned (`reused: true`).
  */
 export async function runFits(db: Kysely<Database>, user: SessionUser, id: string, req: FitRequest) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
@@ -78,38 +86,62 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
   onlyLeadOnceSubmitted(user, d, 'fitting')
   const points = await listPoints(db, id)
   if (included(points).length === 0) throw conflict('This data set has no included points to fit.')
+  const pointSet = pointSetOf(points)
+  const existing = await fits.listFits(db, id)
   const inputs = await engineInputs(db, d.systemId)
   const results = req.models.map((model) => {
     const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
     // The α used is stored with the fit, so a default α stays readable after the default changes.
     const nrtl = model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA, fitAlpha: req.fitAlpha ?? false } : {}
-    const options = { model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }
+    const options = JSON.parse(
+      JSON.stringify({ model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }),
+    )
+    if (existing.some((f) => sameRun(f, model, options, pointSet.digest))) return { model, options, r: null }
     const r = thermo(`Fitting ${model}`, () =>
       fitBinary({
         ...options,
         vaporPressure: inputs.vaporPressure,
-        points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+        // A two-layer point is a three-phase point: its T is the three-phase temperature, y1 the three-phase vapour.
+        points: points.map((p) => ({
+          T: p.temperatureK,
+          P: p.pressurePa,
+          x1: p.x1,
+          y1: p.y1,
+          excluded: p.excluded,
+          ...(p.heterogeneous ? { heterogeneous: true } : {}),
+        })),
       }),
     )
     return { model, options, r }
   })
   const saved = await db.transaction().execute(async (tx) => {
-    const locked = await repo.lockDataSet(tx, id)
-    requireState(locked!, FITTABLE_STATES, 'fitting')
-    const stored: fits.FitRecord[] = []
+    const locked = (await repo.lockDataSet(tx, id))!
+    // Checked again under the row lock: a submit that landed meanwhile closes fitting to analysts.
+    requireState(locked, FITTABLE_STATES, 'fitting')
+    onlyLeadOnceSubmitted(user, locked, 'fitting')
+    const stored: (fits.FitRecord & { reused: boolean })[] = []
+    let added = 0
     for (const { model, options, r } of results) {
+      const same = (await fits.listFits(tx, id)).find((f) => sameRun(f, model, options, pointSet.digest))
+      if (same || !r) {
+        if (same) stored.push({ ...same, reused: true })
+        continue
+      }
       const fit = await fits.insertFit(tx, {
         dataSetId: id,
         model,
-        options: JSON.parse(JSON.stringify(options)),
+        options,
         activity: r.activity as unknown as Record<string, unknown>,
         parameters: r.parameters,
         statistics: statistics(r),
         residuals: r.residuals.map((res, i) => ({ pointId: points[i].id, ...res })),
         pointIds: included(points).map((p) => p.id),
         runBy: user.id,
+        pointSetDigest: pointSet.digest,
+        pointCount: pointSet.included,
       })
-      stored.push(fit)
+      added++
+      stored.push({ ...fit, reused: false })
       await appendAudit(tx, {
         actorId: user.id,
         entity: 'fit',
@@ -124,13 +156,59 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
           rmsY: r.rmsY,
           converged: r.converged,
           points: fit.pointIds.length,
+          pointSetDigest: pointSet.digest,
         },
       })
     }
-    const after = await repo.updateDataSet(tx, id, {})
-    return { fits: stored, rowVersion: after!.rowVersion }
+    const after = added > 0 ? await repo.updateDataSet(tx, id, {}) : locked
+    const current = pointSetOf(await listPoints(tx, id)).digest
+    return { fits: stored.map((f) => withStale(f, current)), rowVersion: after!.rowVersion, pointSetDigest: current }
   })
-  return { ...saved, predictions: saved.fits.map((f, i) => predictionsOf(f, results[i].r, d.nominalPressurePa)) }
+  const byFit = new Map(results.filter((x) => x.r).map((x) => [x.model + canonicalJson8785(x.options), x.r!]))
+  return {
+    ...saved,
+    predictions: saved.fits.flatMap((f) => {
+      const r = byFit.get(f.model + canonicalJson8785(f.options))
+      return r && !f.reused ? [predictionsOf(f, r, d.nominalPressurePa)] : []
+    }),
+  }
+}
+
+/** Delete a fit of a draft (or returned) version; a recommended fit stops being recommended. Audited. */
+export async function deleteFit(db: Kysely<Database>, user: SessionUser, id: string, fitId: string) {
+  return db.transaction().execute(async (tx) => {
+    const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
+    const fit = await fits.findFit(tx, fitId)
+    if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
+    requireState(d, EDITABLE_STATES, 'deleting fits')
+    const wasRecommended = d.recommendedFitId === fitId
+    await fits.deleteFit(tx, fitId)
+    const after = await repo.updateDataSet(tx, id, wasRecommended ? { recommendedFitId: null } : {})
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'fit',
+      entityId: fitId,
+      action: 'delete fit',
+      dataSetId: id,
+      before: {
+        model: fit.model,
+        ...nrtlAudit(fit.options as { model: string }),
+        parameters: fit.parameters,
+        runBy: fit.runBy,
+        runAt: fit.runAt,
+        pointSetDigest: fit.pointSetDigest,
+        recommended: wasRecommended,
+      },
+    })
+    return { deleted: fitId, recommendedFitId: after!.recommendedFitId, rowVersion: after!.rowVersion }
+  })
+}
+
+/** The fits of a data set, each with `stale` against the current point set. */
+export async function listFitsWithStale(db: Db, user: SessionUser, id: string) {
+  visibleOrNotFound(user, await repo.findDataSet(db, id))
+  const current = pointSetOf(await listPoints(db, id)).digest
+  return { items: (await fits.listFits(db, id)).map((f) => withStale(f, current)), pointSetDigest: current }
 }
 
 /** NRTL's α as the audit line states it: the value held, or the start value when α was fitted too. */
@@ -162,6 +240,13 @@ export async function markRecommended(db: Kysely<Database>, user: SessionUser, i
     const fit = await fits.findFit(tx, fitId)
     if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
     requireState(d, FITTABLE_STATES, 'choosing the recommended fit')
+    onlyLeadOnceSubmitted(user, d, 'choosing the recommended fit')
+    const current = pointSetOf(await listPoints(tx, id)).digest
+    if (fit.pointSetDigest !== current) {
+      throw staleResults(`This fit was ${computedOn(fit)}, not on the points the data set has now; run it again.`, [
+        { kind: 'fit', id: fit.id, pointCount: fit.pointCount, runAt: fit.runAt },
+      ])
+    }
     // An unconverged optimum is not a result: its parameters and standard errors mean nothing.
     if ((fit.statistics as { converged?: boolean }).converged === false) {
       throw conflict(
@@ -188,6 +273,7 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   requireState(d, FITTABLE_STATES, 'running consistency tests')
   onlyLeadOnceSubmitted(user, d, 'running consistency tests')
   const all = await listPoints(db, id)
+  const pointSet = pointSetOf(all)
   const pts = included(all).map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1 }))
   if (pts.length === 0) throw conflict('This data set has no included points to test.')
   const inputs = await engineInputs(db, d.systemId)
@@ -196,25 +282,38 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, ...volumes }))
   const pureComponent = await pureComponentChecks(db, inputs, all)
   const saved = await db.transaction().execute(async (tx) => {
+    const locked = (await repo.lockDataSet(tx, id))!
+    // Checked again under the row lock, like fits.
+    requireState(locked, FITTABLE_STATES, 'running consistency tests')
+    onlyLeadOnceSubmitted(user, locked, 'running consistency tests')
     const out = []
     for (const [test, r] of [
       ['herington-area', area],
       ['point', point],
     ] as const) {
       const result = JSON.parse(JSON.stringify({ ...r, model: test === 'point' ? model : undefined }))
-      const rec = await fits.insertConsistency(tx, { dataSetId: id, test, passed: r.passed, result, runBy: user.id })
+      const rec = await fits.insertConsistency(tx, {
+        dataSetId: id,
+        test,
+        passed: r.passed,
+        result,
+        runBy: user.id,
+        pointSetDigest: pointSet.digest,
+        pointCount: pointSet.included,
+      })
       await appendAudit(tx, {
         actorId: user.id,
         entity: 'consistency_result',
         entityId: rec.id,
         action: `run ${test} test`,
         dataSetId: id,
-        after: { passed: r.passed },
+        after: { passed: r.passed, pointSetDigest: pointSet.digest },
       })
       out.push(rec)
     }
     const after = await repo.updateDataSet(tx, id, {})
-    return { items: out, rowVersion: after!.rowVersion }
+    const current = pointSetOf(await listPoints(tx, id)).digest
+    return { items: out.map((c) => withStale(c, current)), rowVersion: after!.rowVersion, pointSetDigest: current }
   })
   // Computed, not stored: it compares with today's vapour-pressure sets and pure measurements.
   return { ...saved, pureComponent }

@@ -21,6 +21,7 @@ import { listPureMeasurements } from '../repositories/components.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { findFit, type FitRecord } from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
+import { pointSetOf } from './point-set.js'
 import { thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs, type EngineInputs } from './systems.service.js'
 
@@ -101,8 +102,17 @@ async function loadFit(db: Db, user: SessionUser, id: string, fitId: string) {
   const fit = await findFit(db, fitId)
   if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
   const inputs = await engineInputs(db, d.systemId)
-  return { d, fit, inputs, result: storedFitResult(fit, await listPoints(db, id), inputs) }
+  const points = await listPoints(db, id)
+  return { d, fit, inputs, result: storedFitResult(fit, points, inputs), current: pointSetOf(points).digest }
 }
+
+/** Which point set a band or suggestion list rests on (its fit's), and whether the points have changed since. */
+const boundTo = (fit: FitRecord, current: string) => ({
+  pointSetDigest: fit.pointSetDigest,
+  pointCount: fit.pointCount,
+  computedAt: fit.runAt,
+  stale: fit.pointSetDigest !== current,
+})
 
 /** The band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */
 export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, points: number) {
@@ -128,8 +138,8 @@ export function suggestionsOf(
 }
 
 export async function fitBand(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; points: number }) {
-  const { d, fit, result } = await loadFit(db, user, id, fitId)
-  return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points) }
+  const { d, fit, result, current } = await loadFit(db, user, id, fitId)
+  return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points), ...boundTo(fit, current) }
 }
 
 export async function nextCompositions(
@@ -139,8 +149,12 @@ export async function nextCompositions(
   fitId: string,
   o: { P?: number; count: number; criterion?: SuggestionCriterion },
 ) {
-  const { d, fit, result } = await loadFit(db, user, id, fitId)
-  return { dataSetId: id, ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count, o.criterion) }
+  const { d, fit, result, current } = await loadFit(db, user, id, fitId)
+  return {
+    dataSetId: id,
+    ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count, o.criterion),
+    ...boundTo(fit, current),
+  }
 }
 
 /** A pure-component comparison, saying where the boiling point came from. */

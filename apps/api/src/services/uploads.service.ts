@@ -21,7 +21,14 @@ import { findCommittedRun, findUploadContent, insertUpload } from '../repositori
 import { readLimits } from '../uploads/csv-table.js'
 import type { ParsedInjection } from '../uploads/calibration-file.js'
 import { uploadError, uploadWarning, type UploadProblem } from '../uploads/problems.js'
-import { DEFAULT_BOUNDS, parseRunFileAsync, type RunFileParse, type RunSample } from '../uploads/run-file.js'
+import {
+  DEFAULT_BOUNDS,
+  parseRunFileAsync,
+  type RunFileParse,
+  type RunPhase,
+  type RunSample,
+} from '../uploads/run-file.js'
+import { PHASE_WORDS } from '../uploads/run-layers.js'
 import { FIRST_PAGE, pageItems, paging, shownProblems, type PageRequest, type Paging } from './preview-page.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 import { assertCommittable, countProblems, summarizeFile, type FileSummary, type UploadedFile } from './upload-files.js'
@@ -40,12 +47,34 @@ export interface PreviewSample {
   y1Rsd: number | null
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  /** the analyst saw two liquid layers in the still; x1 is then the overall liquid composition */
+  heterogeneous: boolean
+  /** injections of the separated layers (two-layer samples only) */
+  upper: ParsedInjection[]
+  lower: ParsedInjection[]
+  /** the analysed layers of a two-layer sample, x1I < x1II (null when not analysed or not computable) */
+  liquidPhases: [LayerComposition, LayerComposition] | null
   /** injections used of those in the file, per phase; lines whose phase could not be read are listed apart */
-  coverage: { liquid: { used: number; of: number }; vapour: { used: number; of: number }; unreadRows: number[] }
+  coverage: {
+    liquid: { used: number; of: number }
+    vapour: { used: number; of: number }
+    /** two-layer samples only */
+    upper?: { used: number; of: number }
+    lower?: { used: number; of: number }
+    unreadRows: number[]
+  }
   /** lines of this sample with an error: its compositions, if any, come from the other lines only */
   errorRows: number[]
   /** true when some line of the sample was not used or has an error */
   partial: boolean
+}
+
+/** One analysed liquid layer: x1 with its standard uncertainty and which layer of the still it was. */
+export interface LayerComposition {
+  x1: number
+  uncertainty: number
+  rsd: number | null
+  layer: 'upper' | 'lower'
 }
 
 export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
@@ -91,12 +120,12 @@ async function chooseCalibration(
 function phaseComposition(
   cal: CalibrationRecord,
   s: RunSample,
-  phase: 'liquid' | 'vapour',
+  phase: RunPhase,
   rsdLimit: number,
   problems: UploadProblem[],
 ): CompositionResult | null {
   const injections = s[phase]
-  const name = phase === 'liquid' ? 'x1' : 'y1'
+  const name = phase === 'vapour' ? 'y1' : phase === 'liquid' ? 'x1' : `x1 of the ${PHASE_WORDS[phase]}`
   const row = injections[0].row
   let r: CompositionResult
   try {
@@ -125,7 +154,7 @@ function phaseComposition(
         row,
         'area_1',
         `${(r.replicateRsd * 100).toFixed(2)} %`,
-        `Sample ${s.label}, ${phase}: replicate area ratios scatter by ${(r.replicateRsd * 100).toFixed(1)} % RSD, above the ${(rsdLimit * 100).toFixed(1)} % limit.`,
+        `Sample ${s.label}, ${PHASE_WORDS[phase]}: replicate area ratios scatter by ${(r.replicateRsd * 100).toFixed(1)} % RSD, above the ${(rsdLimit * 100).toFixed(1)} % limit.`,
       ),
     )
   }
@@ -135,11 +164,45 @@ function phaseComposition(
         row,
         'area_1',
         r.x1.toFixed(4),
-        `Sample ${s.label}, ${phase}: ${name} = ${r.x1.toFixed(4)} is outside the calibrated range ${cal.rangeMin.toFixed(3)}–${cal.rangeMax.toFixed(3)}.`,
+        `Sample ${s.label}, ${PHASE_WORDS[phase]}: ${name} = ${r.x1.toFixed(4)} is outside the calibrated range ${cal.rangeMin.toFixed(3)}–${cal.rangeMax.toFixed(3)}.`,
       ),
     )
   }
   return r
+}
+
+/**
+ * Both layers of a two-layer sample, ordered by x1 (I the poorer in component 1). The overall liquid must lie
+ * between them (within 2u): a mass balance over the still that the analyst should see when it fails.
+ */
+function layerCompositions(
+  cal: CalibrationRecord,
+  s: RunSample,
+  overall: CompositionResult | null,
+  rsdLimit: number,
+  problems: UploadProblem[],
+): [LayerComposition, LayerComposition] | null {
+  if (!s.heterogeneous || s.upper.length === 0 || s.lower.length === 0) return null
+  const layers = (['upper', 'lower'] as const).map((layer) => {
+    const r = phaseComposition(cal, s, layer, rsdLimit, problems)
+    return r && { x1: r.x1, uncertainty: r.standardUncertainty, rsd: r.replicateRsd, layer }
+  })
+  if (!layers[0] || !layers[1]) return null
+  const [I, II] = layers[0].x1 <= layers[1].x1 ? [layers[0], layers[1]] : [layers[1], layers[0]]
+  if (overall) {
+    const u = 2 * Math.hypot(overall.standardUncertainty, Math.max(I.uncertainty, II.uncertainty))
+    if (overall.x1 < I.x1 - u || overall.x1 > II.x1 + u) {
+      problems.push(
+        uploadWarning(
+          s.liquid[0].row,
+          'area_1',
+          overall.x1.toFixed(4),
+          `Sample ${s.label}: the overall liquid x1 = ${overall.x1.toFixed(4)} lies outside its two layers (${I.x1.toFixed(4)} and ${II.x1.toFixed(4)}); check the samples.`,
+        ),
+      )
+    }
+  }
+  return [I, II]
 }
 
 /** Which of a sample's lines its compositions rest on, so a preview with errors can mark partial samples. */
@@ -154,13 +217,21 @@ function coverageOf(
   const coverage = {
     liquid: { used: s.liquid.length, of: s.phaseRows.liquid.length },
     vapour: { used: s.vapour.length, of: s.phaseRows.vapour.length },
+    ...(s.heterogeneous
+      ? {
+          upper: { used: s.upper.length, of: s.phaseRows.upper.length },
+          lower: { used: s.lower.length, of: s.phaseRows.lower.length },
+        }
+      : {}),
     unreadRows: s.phaseRows.unknown,
   }
   const partial =
     errorRows.length > 0 ||
     coverage.unreadRows.length > 0 ||
     coverage.liquid.used < coverage.liquid.of ||
-    coverage.vapour.used < coverage.vapour.of
+    coverage.vapour.used < coverage.vapour.of ||
+    s.upper.length < s.phaseRows.upper.length ||
+    s.lower.length < s.phaseRows.lower.length
   return { coverage, errorRows, partial }
 }
 
@@ -209,6 +280,7 @@ async function analyseRun(
     if (i % 500 === 499) await nextTurn()
     const x = phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
     const y = phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
+    const liquidPhases = layerCompositions(cal, s, x, config.replicateRsdLimit, problems)
     samples.push({
       label: s.label,
       rows: s.rows,
@@ -222,6 +294,10 @@ async function analyseRun(
       y1Rsd: y?.replicateRsd ?? null,
       liquid: s.liquid,
       vapour: s.vapour,
+      heterogeneous: s.heterogeneous,
+      upper: s.upper,
+      lower: s.lower,
+      liquidPhases,
       ...coverageOf(s, problems),
     })
   }
@@ -311,9 +387,16 @@ export async function commitRun(
         uploadId: upload.id,
         calibrationId: preview.calibrationId,
         rowRefs: s.rows,
+        heterogeneous: s.heterogeneous,
+        liquidPhases: s.liquidPhases && [
+          { x1: s.liquidPhases[0].x1, uncertainty: s.liquidPhases[0].uncertainty },
+          { x1: s.liquidPhases[1].x1, uncertainty: s.liquidPhases[1].uncertainty },
+        ],
         injections: [
           ...s.liquid.map((i) => ({ ...i, phase: 'liquid' as const })),
           ...s.vapour.map((i) => ({ ...i, phase: 'vapour' as const })),
+          ...s.upper.map((i) => ({ ...i, phase: 'upper' as const })),
+          ...s.lower.map((i) => ({ ...i, phase: 'lower' as const })),
         ],
       })),
     )

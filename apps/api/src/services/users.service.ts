@@ -153,20 +153,34 @@ export async function resetPassword(
   password: string,
 ): Promise<void> {
   const passwordHash = await hashPassword(password)
-  const userId = await db.transaction().execute(async (tx) => {
+  await db.transaction().execute(async (tx) => {
     const id = await consumeToken(tx, 'password_reset', token)
+    // Any other reset link of this user still outstanding stops working too.
+    await tx
+      .updateTable('password_reset')
+      .set({ used_at: new Date() })
+      .where('user_id', '=', id)
+      .where('used_at', 'is', null)
+      .execute()
     await tx
       .updateTable('app_user')
       .set({ password_hash: passwordHash, updated_at: new Date() })
       .where('id', '=', id)
       .execute()
     await appendAudit(tx, { actorId: id, entity: 'app_user', entityId: id, action: 'reset password' })
-    return id
+    await sessions.endAllFor(id, undefined, tx)
   })
-  await sessions.endAllFor(userId)
 }
 
-export async function changePassword(db: Db, userId: string, current: string, next: string): Promise<void> {
+/** Change one's own password; every other session of the user ends (the one making the change stays). */
+export async function changePassword(
+  db: Db,
+  sessions: Sessions,
+  userId: string,
+  current: string,
+  next: string,
+  currentCookieHeader?: string,
+): Promise<void> {
   const u = await users.findUserById(db, userId)
   if (!u || !(await verifyPassword(u.password_hash, current))) throw badRequest('Your current password is not correct.')
   const passwordHash = await hashPassword(next)
@@ -177,6 +191,7 @@ export async function changePassword(db: Db, userId: string, current: string, ne
       .where('id', '=', userId)
       .execute()
     await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change password' })
+    await sessions.endAllFor(userId, currentCookieHeader, tx)
   })
 }
 

@@ -13,8 +13,10 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import { countOpenThreads } from '../repositories/comments.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { countPoints } from '../repositories/points.repository.js'
-import { uploadersOf } from '../repositories/uploads.repository.js'
-import { contentDigest } from './digest.js'
+import { contentDigest, DIGEST_V2 } from './digest.js'
+import { contributorsOf } from './contributors.js'
+import { refuseWhileStale } from './stale-results.js'
+import { currentPointSet } from './point-set.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 
 const link = (config: Config, id: string) => webLink(config.publicUrl, 'dataset', { id })
@@ -44,6 +46,7 @@ export async function submit(db: Kysely<Database>, config: Config, user: Session
     if (d.rowVersion !== rowVersion) throw staleWrite(rowVersion, d.rowVersion)
     const { included } = await countPoints(tx, id)
     if (included < 3) throw conflict(`A data set needs at least 3 included points to be submitted; it has ${included}.`)
+    await refuseWhileStale(tx, d, 'submit')
     const after = await repo.updateDataSet(tx, id, { state: 'submitted', submittedAt: new Date() })
     await appendAudit(tx, {
       actorId: user.id,
@@ -54,14 +57,15 @@ export async function submit(db: Kysely<Database>, config: Config, user: Session
       before: { state: d.state },
       after: { state: 'submitted' },
     })
-    for (const lead of await leadChemists(tx)) {
-      if (lead === user.id) continue
+    const others = (await leadChemists(tx)).filter((lead) => lead !== user.id)
+    for (const lead of others) {
       await notifyUser(tx, lead, {
         subject: `Ebullio: "${d.title}" v${d.version} submitted for approval`,
         text: `${user.displayName} submitted the data set "${d.title}" (version ${d.version}) with ${included} points for approval.\n\nOpen it: ${link(config, id)}\n`,
       })
     }
-    return after!
+    // Said as it is: with no other active lead chemist, nobody was told and nobody else can approve.
+    return { ...after!, notifiedLeadChemists: others.length }
   })
 }
 
@@ -96,13 +100,17 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
     if (d.origin === 'literature' && !d.countsAsOwn) throw literatureNotOwn()
     await checkSignaturePassword(tx, user, s.password)
     if (!d.recommendedFitId) throw conflict('Mark one fit as the recommended fit before approving.')
-    const authors = new Set([d.createdBy, ...(await uploadersOf(tx, id))])
-    const selfApproval = authors.has(user.id)
+    const pointSetDigest = await refuseWhileStale(tx, d, 'approve')
+    const changes = await contributorsOf(tx, d)
+    const mine = changes.find((c) => c.userId === user.id)
+    const selfApproval = mine !== undefined
+    // ALLOW_SELF_APPROVAL (a one-person lab) lets the signer approve their own changes; the signature says so.
     if (selfApproval && !config.allowSelfApproval) {
       throw new AppError(
         403,
         'four_eyes',
-        'You created or uploaded data in this data set; another lead chemist must approve it.',
+        `You changed this version (${mine.changes.join(', ')}); another lead chemist must approve it.`,
+        { changes: mine.changes },
       )
     }
     const open = await countOpenThreads(tx, id)
@@ -113,7 +121,7 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
         { openThreads: open },
       )
     }
-    const digest = await contentDigest(tx, id)
+    const digest = await contentDigest(tx, id, DIGEST_V2)
     const outliers = await signedOutliers(tx, id, d.recommendedFitId)
     const approvalId = await insertApproval(tx, {
       dataSetId: id,
@@ -121,6 +129,9 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
       meaning: 'approved',
       reason: s.reason,
       digest,
+      digestAlgorithm: DIGEST_V2,
+      pointSetDigest,
+      changes,
       selfApproval,
       overrideReason: open > 0 ? override : null,
       outliers,
@@ -170,7 +181,7 @@ export async function returnForRework(
     const d = await lockFresh(tx, user, id, s.rowVersion)
     requireState(d, ['submitted'], 'returning')
     await checkSignaturePassword(tx, user, s.password)
-    const digest = await contentDigest(tx, id)
+    const digest = await contentDigest(tx, id, DIGEST_V2)
     const outliers = await signedOutliers(tx, id, d.recommendedFitId)
     const approvalId = await insertApproval(tx, {
       dataSetId: id,
@@ -178,6 +189,9 @@ export async function returnForRework(
       meaning: 'returned for rework',
       reason: s.reason,
       digest,
+      digestAlgorithm: DIGEST_V2,
+      pointSetDigest: (await currentPointSet(tx, id)).digest,
+      changes: await contributorsOf(tx, d),
       selfApproval: false,
       overrideReason: null,
       outliers,
@@ -204,8 +218,14 @@ export async function returnForRework(
 /** Recompute the digest of the stored content and compare it with every signature of the version. */
 export async function verifySignatures(db: Db, user: SessionUser, id: string) {
   visibleOrNotFound(user, await repo.findDataSet(db, id))
-  const now = await contentDigest(db, id)
+  const now = await contentDigest(db, id, DIGEST_V2)
   const approvals = await listApprovals(db, id)
   if (approvals.length === 0) throw notFound('This data set has no signatures.')
-  return { currentDigest: now, signatures: approvals.map((a) => ({ ...a, matches: a.digest === now })) }
+  // Each signature is checked with the algorithm it was made with (format 1 signatures keep verifying).
+  const signatures = []
+  for (const a of approvals) {
+    const recomputed = a.digestAlgorithm === DIGEST_V2 ? now : await contentDigest(db, id, a.digestAlgorithm)
+    signatures.push({ ...a, recomputedDigest: recomputed, matches: a.digest === recomputed })
+  }
+  return { currentDigest: now, digestAlgorithm: DIGEST_V2, signatures }
 }

@@ -40,4 +40,19 @@ describe('docs/examples', () => {
       plain.samples.map((s) => [s.label, s.temperatureK, s.liquid]),
     )
   })
+
+  it('two-layer run sheet (water/1-butanol): the samples that boiled as two layers carry both layers', () => {
+    const p = parseRunFile(read('run-water-1-butanol-two-layers.csv'))
+    expect(p.problems).toEqual([])
+    expect(p.samples).toHaveLength(12)
+    // generated where the published NRTL model splits the liquid at its bubble point (x_water ≥ 0.588)
+    expect(p.samples.filter((s) => s.heterogeneous).map((s) => s.label)).toEqual([
+      'WB-08',
+      'WB-09',
+      'WB-10',
+      'WB-11',
+      'WB-12',
+    ])
+    for (const s of p.samples) expect([s.upper.length, s.lower.length]).toEqual(s.heterogeneous ? [2, 2] : [0, 0])
+  })
 })

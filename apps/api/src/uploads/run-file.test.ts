@@ -64,7 +64,7 @@ describe('parseRunFile', () => {
     expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
       [2, 'area_1', '0', 'Peak area must be greater than zero.'],
       [3, 'phase', '', 'Phase is missing; use liquid or vapour.'],
-      [4, 'phase', 'steam', 'Phase must be liquid or vapour.'],
+      [4, 'phase', 'steam', 'Phase must be liquid, vapour, upper or lower.'],
       [5, 't_boil', '900', 'Boiling temperature 1173.15 K is outside the plausible range 150–650 K.'],
       [7, 'phase', 'S3', 'Sample S3 has liquid injections but no vapour injection.'],
       [8, 'p_unit', 'furlong', 'Unknown pressure unit; use Pa, kPa, MPa, bar, mbar, atm, mmHg, torr or psi.'],
@@ -105,5 +105,94 @@ describe('parseRunFile', () => {
     const p = parseRunFile(Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]))
     expect(p.problems).toEqual([])
     expect(p.samples[0].temperatureK).toBeCloseTo(343.65, 10)
+  })
+
+  describe('two-layer (heterogeneous) samples', () => {
+    const H = `${HEADER},layers`
+
+    it('marks a sample with layers = 2 and keeps the overall liquid apart from its upper and lower layers', () => {
+      const text = [
+        H,
+        'B01,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B01,vapour,1,4500,5500,,,,,',
+        'B01,upper,1,1500,8500,,,,,2',
+        'B01,upper,2,1510,8490,,,,,',
+        'B01,lower,1,9000,1000,,,,,',
+        'B02,liquid,1,3000,7000,95.0,C,101.3,kPa,1',
+        'B02,vapour,1,4500,5500,,,,,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems).toEqual([])
+      const [b1, b2] = p.samples
+      expect(b1.heterogeneous).toBe(true)
+      expect(b1.liquid.map((i) => i.row)).toEqual([2])
+      expect(b1.upper.map((i) => [i.row, i.area1])).toEqual([
+        [4, 1500],
+        [5, 1510],
+      ])
+      expect(b1.lower.map((i) => i.row)).toEqual([6])
+      expect(b2.heterogeneous).toBe(false)
+      expect(b2.upper).toEqual([])
+    })
+
+    it('accepts a two-layer sample whose layers were not analysed, and top/bottom for the layers', () => {
+      const text = [
+        H,
+        'B01,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B01,vapour,1,4500,5500,,,,,',
+        'B02,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B02,vapour,1,4500,5500,,,,,',
+        'B02,TOP,1,1500,8500,,,,,',
+        'B02,Bottom,1,9000,1000,,,,,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems).toEqual([])
+      expect(p.samples.map((s) => [s.heterogeneous, s.upper.length, s.lower.length])).toEqual([
+        [true, 0, 0],
+        [true, 1, 1],
+      ])
+    })
+
+    it('names the line, column and value of every bad layer entry', () => {
+      const text = [
+        H,
+        'B01,liquid,1,3000,7000,93.0,C,101.3,kPa,two',
+        'B01,vapour,1,4500,5500,,,,,',
+        'B02,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B02,vapour,1,4500,5500,,,,,1',
+        'B03,liquid,1,3000,7000,93.0,C,101.3,kPa,',
+        'B03,vapour,1,4500,5500,,,,,',
+        'B03,upper,1,1500,8500,,,,,',
+        'B04,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B04,vapour,1,4500,5500,,,,,',
+        'B04,lower,1,9000,1000,,,,,',
+        'B05,liquid,1,3000,7000,93.0,C,101.3,kPa,2',
+        'B05,vapour,1,4500,5500,,,,,',
+        'B05,upper,1,1500,8500,,,,,',
+        'B05,upper,1,1500,8500,,,,,',
+        'B05,lower,1,-9000,1000,,,,,',
+        'B05,lower,2,9000,1000,,,,,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
+        [2, 'layers', 'two', 'Layers must be 1 or 2 (the number of liquid layers seen in the still).'],
+        [5, 'layers', '1', 'Sample B02 has 2 layers on line 4.'],
+        [8, 'phase', 'upper', 'Sample B03 has layer injections but is not marked as two-layered; put 2 in layers.'],
+        [
+          11,
+          'phase',
+          'lower',
+          'Sample B04: the lower layer was analysed but not the upper one; give both layers or neither.',
+        ],
+        [15, 'injection', '1', 'Injection 1 of the upper layer of sample B05 appears twice.'],
+        [16, 'area_1', '-9000', 'Peak area must be greater than zero.'],
+      ])
+      // B01 (no layers read, no layer rows) and B05 (one good lower injection left) still become samples.
+      expect(p.samples.map((s) => [s.label, s.heterogeneous, s.upper.length, s.lower.length])).toEqual([
+        ['B01', false, 0, 0],
+        ['B02', true, 0, 0],
+        ['B05', true, 1, 1],
+      ])
+    })
   })
 })

@@ -2,7 +2,8 @@
  * The Ebullio run sheet (docs/csv-formats.md): one row per GC injection of an equilibrium
  * sample's liquid or vapour phase, with the sample's boiling temperature and barometric
  * pressure on at least one of its rows. Columns: sample, phase, injection, area_1, area_2,
- * t_boil, t_unit, p_baro, p_unit.
+ * t_boil, t_unit, p_baro, p_unit; optional `layers` (2 when the liquid in the still had split into two
+ * layers), with the layers' own injections as phases `upper` and `lower`.
  */
 import { toKelvin, toPascal, type PressureUnitName, type TemperatureUnitName } from '@ebullio/thermo'
 import { areaCell, injectionCell, type ParsedInjection } from './calibration-file.js'
@@ -18,6 +19,7 @@ import {
   type ReadLimits,
 } from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
+import { checkLayers, PHASE_WORDS, readLayers } from './run-layers.js'
 
 export const RUN_REQUIRED = [
   'sample',
@@ -30,6 +32,7 @@ export const RUN_REQUIRED = [
   'p_baro',
   'p_unit',
 ] as const
+export const RUN_OPTIONAL = ['layers'] as const
 
 /** Plausible bounds for a boiling measurement (SI). Defaults: 150–650 K, 0.5 kPa–5 MPa. */
 export interface PlausibleBounds {
@@ -53,7 +56,8 @@ const PRESSURE_UNITS: Record<string, PressureUnitName> = Object.fromEntries(
     u,
   ]),
 )
-const PHASES: Record<string, 'liquid' | 'vapour'> = {
+export type RunPhase = 'liquid' | 'vapour' | 'upper' | 'lower'
+const PHASES: Record<string, RunPhase> = {
   liquid: 'liquid',
   l: 'liquid',
   liq: 'liquid',
@@ -61,6 +65,10 @@ const PHASES: Record<string, 'liquid' | 'vapour'> = {
   vapor: 'vapour',
   v: 'vapour',
   vap: 'vapour',
+  upper: 'upper',
+  top: 'upper',
+  lower: 'lower',
+  bottom: 'lower',
 }
 
 /** One equilibrium state gathered from its rows. */
@@ -71,8 +79,14 @@ export interface RunSample {
   temperatureK: number
   pressurePa: number
   raw: { temperature: string; temperatureUnit: string; pressure: string; pressureUnit: string }
+  /** injections of the whole liquid (for a two-layer sample: its overall composition) */
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  /** the analyst saw two liquid layers in the still (`layers` = 2) */
+  heterogeneous: boolean
+  /** injections of each separated layer of a two-layer sample; both empty when the layers were not analysed */
+  upper: ParsedInjection[]
+  lower: ParsedInjection[]
   /** every line of the sample by the phase it names (`unknown`: phase missing or unreadable), used or not */
   phaseRows: PhaseRows
 }
@@ -81,6 +95,8 @@ export interface RunSample {
 export interface PhaseRows {
   liquid: number[]
   vapour: number[]
+  upper: number[]
+  lower: number[]
   unknown: number[]
 }
 
@@ -94,17 +110,20 @@ export interface RunFileParse {
   problems: UploadProblem[]
 }
 
-interface Draft {
+export interface Draft {
   label: string
   rows: number[]
   t?: { value: number; unit: TemperatureUnitName; raw: string; rawUnit: string; line: number }
   p?: { value: number; unit: PressureUnitName; raw: string; rawUnit: string; line: number }
+  layers?: { value: 1 | 2; raw: string; line: number }
   liquid: ParsedInjection[]
   vapour: ParsedInjection[]
+  upper: ParsedInjection[]
+  lower: ParsedInjection[]
   phaseRows: PhaseRows
 }
 
-type Cells = (name: string) => string
+export type Cells = (name: string) => string
 
 /** Read the optional T and P cells of a row into the sample; conflicting repeats are problems. */
 function readConditions(cell: Cells, line: number, dc: boolean, s: Draft, problems: UploadProblem[]): void {
@@ -159,16 +178,25 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
   }
   let s = samples.get(label)
   if (!s) {
-    s = { label, rows: [], liquid: [], vapour: [], phaseRows: { liquid: [], vapour: [], unknown: [] } }
+    s = {
+      label,
+      rows: [],
+      liquid: [],
+      vapour: [],
+      upper: [],
+      lower: [],
+      phaseRows: { liquid: [], vapour: [], upper: [], lower: [], unknown: [] },
+    }
     samples.set(label, s)
   }
   s.rows.push(line)
   readConditions(cell, line, dc, s, problems)
+  readLayers(cell, line, s, problems)
   const phaseRaw = cell('phase')
   const phase = PHASES[phaseRaw.toLowerCase()]
   s.phaseRows[phase ?? 'unknown'].push(line)
   if (phaseRaw === '') problems.push(uploadError(line, 'phase', '', 'Phase is missing; use liquid or vapour.'))
-  else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid or vapour.'))
+  else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid, vapour, upper or lower.'))
   const injection = injectionCell(cell, line, dc, problems)
   const area1 = areaCell(cell, 'area_1', line, dc, problems)
   const area2 = areaCell(cell, 'area_2', line, dc, problems)
@@ -180,7 +208,7 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
         line,
         'injection',
         cell('injection'),
-        `Injection ${injection} of the ${phase} of sample ${label} appears twice.`,
+        `Injection ${injection} of the ${PHASE_WORDS[phase]} of sample ${label} appears twice.`,
       ),
     )
   } else {
@@ -201,7 +229,8 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
     )
   if (!s.t) problems.push(uploadError(first, 't_boil', null, `Sample ${s.label} has no boiling temperature.`))
   if (!s.p) problems.push(uploadError(first, 'p_baro', null, `Sample ${s.label} has no pressure.`))
-  if (!s.t || !s.p || s.liquid.length === 0 || s.vapour.length === 0) return null
+  const layersOk = checkLayers(s, problems)
+  if (!s.t || !s.p || s.liquid.length === 0 || s.vapour.length === 0 || !layersOk) return null
   const temperatureK = toKelvin(s.t.value, s.t.unit)
   const pressurePa = toPascal(s.p.value, s.p.unit)
   const [tMin, tMax] = bounds.temperatureK
@@ -239,6 +268,9 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
     raw: { temperature: s.t.raw, temperatureUnit: s.t.rawUnit, pressure: s.p.raw, pressureUnit: s.p.rawUnit },
     liquid: s.liquid,
     vapour: s.vapour,
+    heterogeneous: s.layers?.value === 2,
+    upper: s.upper,
+    lower: s.lower,
     phaseRows: s.phaseRows,
   }
 }
@@ -266,7 +298,7 @@ export function parseRunTable(table: CsvTable, bounds: PlausibleBounds = DEFAULT
   const unreadable = table.problems.length > 0
   const map: ColumnMapping = unreadable
     ? { columns: {}, extraColumns: [], problems: [] }
-    : mapColumns(table.header, RUN_REQUIRED)
+    : mapColumns(table.header, RUN_REQUIRED, RUN_OPTIONAL)
   const problems = [...table.problems, ...map.problems]
   const base = {
     format: table.format,
@@ -278,7 +310,10 @@ export function parseRunTable(table: CsvTable, bounds: PlausibleBounds = DEFAULT
   if (problems.length > 0) return { ...base, samples: [], problems }
   const drafts = new Map<string, Draft>()
   for (const row of table.rows) {
-    const cell: Cells = (name) => (row.cells[map.columns[name].index] ?? '').trim()
+    const cell: Cells = (name) => {
+      const col = map.columns[name]
+      return col ? (row.cells[col.index] ?? '').trim() : ''
+    }
     readRow(cell, row.line, table.format.decimalComma, drafts, problems)
   }
   if (table.rows.length === 0) problems.push(uploadError(null, null, null, 'The file has a header but no data rows.'))

@@ -55,11 +55,28 @@ export interface PreviewSample {
   errorRows?: number[]
   /** some line of the sample was not used or has an error */
   partial?: boolean
+  /** the analyst saw two liquid layers: x1 is the overall liquid */
+  heterogeneous?: boolean
+  /** both layers when analysed, x1 ascending */
+  liquidPhases?: { x1: number; uncertainty: number; layer: 'upper' | 'lower' }[] | null
   [k: string]: unknown
+}
+
+/** Which page of a bounded preview is shown; counts cover the whole file. */
+export interface PreviewPaging {
+  page: number
+  pageSize: number
+  pages: number
+  rowCount: number
+  problemCount: number
 }
 
 export interface UploadPreview {
   kind: 'calibration' | 'run' | 'points'
+  /** run and calibration previews answer one page of rows and samples (or standards) at a time */
+  paging?: PreviewPaging
+  sampleCount?: number
+  standardCount?: number
   /** the token the commit call refers to (the server keeps the bytes until then), when the server uses one */
   previewId?: string
   fileName?: string
@@ -86,6 +103,7 @@ export interface UploadPreview {
   } | null
   file?: { name: string; sizeBytes: number; sha256: string }
   format?: { delimiter: string; decimalComma: boolean; byteOrderMark: boolean }
+  /** counts over the whole file (the `problems` listed may be the first ones only) */
   errorCount?: number
   warningCount?: number
   calibrationId?: string

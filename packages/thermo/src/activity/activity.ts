@@ -28,6 +28,8 @@ export function checkActivityModel(model: ActivityModel): void {
     case 'wilson':
       if (!finite(model.a12, model.a21))
         throw new ThermoError('invalid-model', 'Wilson parameters a12 and a21 must be finite numbers (J/mol).')
+      if (!finite(model.a12T ?? 0, model.a21T ?? 0))
+        throw new ThermoError('invalid-model', 'Wilson parameters a12T and a21T must be finite numbers (J/(mol·K)).')
       if (!(model.V1 > 0 && model.V2 > 0 && finite(model.V1, model.V2))) {
         throw new ThermoError('invalid-model', 'Wilson needs positive liquid molar volumes V1 and V2 (cm³/mol).')
       }
@@ -35,6 +37,8 @@ export function checkActivityModel(model: ActivityModel): void {
     case 'nrtl':
       if (!finite(model.b12, model.b21))
         throw new ThermoError('invalid-model', 'NRTL parameters b12 and b21 must be finite numbers (J/mol).')
+      if (!finite(model.b12T ?? 0, model.b21T ?? 0))
+        throw new ThermoError('invalid-model', 'NRTL parameters b12T and b21T must be finite numbers (J/(mol·K)).')
       if (!(model.alpha > 0 && model.alpha <= 1)) {
         throw new ThermoError(
           'invalid-model',

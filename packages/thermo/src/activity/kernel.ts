@@ -8,6 +8,9 @@
 import { R, type ActivityModel } from '../types.js'
 
 /** out[0] = ln γ1, out[1] = ln γ2, out[2] = ∂ln γ1/∂T, out[3] = ∂ln γ2/∂T (1/K), at x1 and T (K). */
+/** Reference temperature of temperature-dependent interaction energies, K. */
+export const T_REF = 298.15
+
 export function lnGammaT(model: ActivityModel, x1: number, T: number, out: Float64Array): void {
   const x2 = 1 - x1
   switch (model.kind) {
@@ -58,10 +61,16 @@ function wilson(
   out: Float64Array,
 ): void {
   const RT = R * T
-  const L12 = (m.V2 / m.V1) * Math.exp(-m.a12 / RT)
-  const L21 = (m.V1 / m.V2) * Math.exp(-m.a21 / RT)
-  const dL12 = (L12 * m.a12) / (RT * T)
-  const dL21 = (L21 * m.a21) / (RT * T)
+  // Temperature-dependent energies a(T) = a + aT·(T − 298.15 K) when aT is given (0 otherwise).
+  const a12T = m.a12T ?? 0
+  const a21T = m.a21T ?? 0
+  const a12 = m.a12 + a12T * (T - T_REF)
+  const a21 = m.a21 + a21T * (T - T_REF)
+  const L12 = (m.V2 / m.V1) * Math.exp(-a12 / RT)
+  const L21 = (m.V1 / m.V2) * Math.exp(-a21 / RT)
+  // d/dT of −a(T)/RT = a/(RT·T) − aT/RT
+  const dL12 = L12 * (a12 / (RT * T) - a12T / RT)
+  const dL21 = L21 * (a21 / (RT * T) - a21T / RT)
   const D1 = x1 + L12 * x2
   const D2 = x2 + L21 * x1
   const c = L12 / D1 - L21 / D2
@@ -74,15 +83,18 @@ function wilson(
 
 function nrtl(m: Extract<ActivityModel, { kind: 'nrtl' }>, x1: number, x2: number, T: number, out: Float64Array): void {
   const RT = R * T
-  const t12 = m.b12 / RT
-  const t21 = m.b21 / RT
+  // Temperature-dependent energies b(T) = b + bT·(T − 298.15 K) when bT is given (0 otherwise).
+  const b12T = m.b12T ?? 0
+  const b21T = m.b21T ?? 0
+  const t12 = (m.b12 + b12T * (T - T_REF)) / RT
+  const t21 = (m.b21 + b21T * (T - T_REF)) / RT
   const G12 = Math.exp(-m.alpha * t12)
   const G21 = Math.exp(-m.alpha * t21)
-  // dτ/dT = −τ/T, dG/dT = α·τ·G/T
-  const dt12 = -t12 / T
-  const dt21 = -t21 / T
-  const dG12 = (m.alpha * t12 * G12) / T
-  const dG21 = (m.alpha * t21 * G21) / T
+  // dτ/dT = bT/RT − τ/T, dG/dT = −α·G·dτ/dT
+  const dt12 = b12T / RT - t12 / T
+  const dt21 = b21T / RT - t21 / T
+  const dG12 = -m.alpha * G12 * dt12
+  const dG21 = -m.alpha * G21 * dt21
   const S1 = x1 + x2 * G21
   const S2 = x2 + x1 * G12
   const dS1 = x2 * dG21

@@ -16,7 +16,7 @@ export interface PointTestOptions {
   uniquac?: UniquacStructure
 }
 
-/** Result of {@link pointTest}: Δy = ycalc − y per point (NaN for points not tested), passed when mean |Δy| < 0.01. */
+/** Result of {@link pointTest}: Δy = y_meas − y_calc per point (NaN for points not tested), passed when mean |Δy| < 0.01. */
 export interface PointTestResult {
   meanAbsDeltaY: number
   residuals: { x1: number; y1: number; yCalculated: number; dy: number }[]
@@ -38,7 +38,7 @@ export function pointTest(points: BinaryPoint[], options: PointTestOptions): Poi
   const residuals = points.map((p, i) => {
     const ok = tested.has(i) && solveBubbleT(c.act, c.vp1, c.vp2, Math.log(p.P), p.x1, p.T)
     const yCalculated = ok ? res[1] : NaN
-    return { x1: p.x1, y1: p.y1, yCalculated, dy: yCalculated - p.y1 }
+    return { x1: p.x1, y1: p.y1, yCalculated, dy: p.y1 - yCalculated }
   })
   const used = residuals.filter((r) => Number.isFinite(r.dy))
   const meanAbsDeltaY = used.reduce((s, r) => s + Math.abs(r.dy), 0) / used.length

@@ -86,8 +86,10 @@ export function solveGap(act: ActivityModel, T: number, ua: number, ub: number):
   let f1 = A[0] - B[0]
   let f2 = A[1] - B[1]
   let norm = Math.abs(f1) + Math.abs(f2)
+  // Iterate past the acceptance tolerance towards rounding level (one or two cheap extra steps of a quadratically
+  // converging Newton), so that quantities derived from the gap (three-phase T, its parameter derivatives) are smooth.
   for (let it = 0; it < 100; it++) {
-    if (Math.abs(f1) < LLE_TOLERANCE && Math.abs(f2) < LLE_TOLERANCE) break
+    if (Math.abs(f1) < 1e-14 && Math.abs(f2) < 1e-14) break
     // J = [[A2, −B2], [A3, −B3]]; solve J·d = −f.
     const det = -A[2] * B[3] + B[2] * A[3]
     if (!Number.isFinite(det) || det === 0) return null
@@ -105,7 +107,7 @@ export function solveGap(act: ActivityModel, T: number, ua: number, ub: number):
       const n1 = A[0] - B[0]
       const n2 = A[1] - B[1]
       const n = Math.abs(n1) + Math.abs(n2)
-      if (Number.isFinite(n) && (n < norm || n < 2 * LLE_TOLERANCE)) {
+      if (Number.isFinite(n) && n < norm) {
         ua += da
         ub += db
         f1 = n1
@@ -117,7 +119,7 @@ export function solveGap(act: ActivityModel, T: number, ua: number, ub: number):
       da *= 0.5
       db *= 0.5
     }
-    if (!accepted) return null
+    if (!accepted) break
   }
   if (!(Math.abs(f1) < LLE_TOLERANCE && Math.abs(f2) < LLE_TOLERANCE)) return null
   if (Math.abs(ua - ub) < 1e-6) return null

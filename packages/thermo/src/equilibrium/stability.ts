@@ -44,6 +44,15 @@ export function minimumThermodynamicFactor(act: ActivityModel, T: number): numbe
   return Math.min(best, gammaFactor(act, 0.5 * (a + b), T))
 }
 
+const COARSE = Array.from({ length: 63 }, (_, i) => 1 / (1 + Math.exp(-(-9 + (18 * (i + 1)) / 64))))
+
+/** A quick lower look at Γ on 63 logit-spaced compositions (0.0001–0.9999): for screening only. */
+export function coarseMinimumThermodynamicFactor(act: ActivityModel, T: number): number {
+  let best = Infinity
+  for (const x of COARSE) best = Math.min(best, gammaFactor(act, x, T))
+  return best
+}
+
 function snapshot(act: ActivityModel): number[] {
   switch (act.kind) {
     case 'ideal':

@@ -71,7 +71,7 @@ export function solveThreePhaseT(c: CompiledSystem, P: number, T0: number, gap0:
   for (let it = 0; it < 100; it++) {
     const here = threePhaseAtGap(c, T, gap)
     const h = Math.log(here.P) - lnP
-    if (Math.abs(h) < 1e-12) return here
+    if (Math.abs(h) < 1e-14) return here
     if (h < 0) [lo, loGap] = [T, gap]
     else hi = T
     // Slope: secant when there is a previous point, else the vapour-pressure slope weighted by the vapour.
@@ -87,7 +87,7 @@ export function solveThreePhaseT(c: CompiledSystem, P: number, T0: number, gap0:
     let Tn = slope > 0 ? T - h / slope : NaN
     if (!(Math.abs(Tn - T) <= 30)) Tn = h < 0 ? T + 10 : T - 10
     if (Tn <= lo || Tn >= hi) Tn = Number.isFinite(lo) && Number.isFinite(hi) ? 0.5 * (lo + hi) : Tn
-    if (Math.abs(Tn - T) < 1e-10 * T) return here
+    if (Math.abs(Tn - T) < 1e-13 * T) return here
     let next = gapNear(c, Tn, gap)
     // Above the critical solution temperature the gap is gone: move back towards the last good temperature.
     for (let k = 0; k < 40 && !next; k++) {

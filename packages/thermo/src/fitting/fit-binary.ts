@@ -1,4 +1,3 @@
-import { unstableRange } from '../activity/activity.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { ThermoError } from '../errors.js'
 import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.js'
@@ -9,6 +8,7 @@ import { alphaOf, boundedAlphaLayout, boundReached } from './alpha-bounds.js'
 import { parameterLayout, type FittableModel, type ParameterLayout, type UniquacStructure } from './parameters.js'
 import { pointResiduals, summarise } from './report.js'
 import { fitStatistics } from './statistics.js'
+import { liquidSplitWarnings, type NamedFitWarning } from './liquid-split.js'
 
 /** Options of {@link fitBinary}. */
 export interface FitBinaryOptions {
@@ -20,6 +20,8 @@ export interface FitBinaryOptions {
   V2?: number
   /** UNIQUAC structure parameters r and q of both components (UNIQUAC only). */
   uniquac?: UniquacStructure
+  /** NRTL or Wilson energies linear in T: b(T) = b + bT·(T − 298.15 K), bT fitted (J/(mol·K)); α held. */
+  temperatureDependent?: boolean
   /** NRTL α, default 0.3 (fixed unless fitAlpha). */
   alpha?: number
   fitAlpha?: boolean
@@ -27,7 +29,7 @@ export interface FitBinaryOptions {
   objective?: 'bubble-point' | 'activity'
 }
 
-/** A point's residuals after the fit: dT = Tcalc − T (K), dy = ycalc − y; see {@link fitBinary} for the flag rule. */
+/** A point's residuals after the fit, measured − calculated: dT = T_meas − T_calc (K), dy = y_meas − y_calc; see {@link fitBinary} for the flag rule. */
 export interface PointResidual {
   dT: number
   dy: number
@@ -70,12 +72,20 @@ export interface FitBinaryResult {
   aic: number
   residuals: PointResidual[]
   warnings: string[]
+  /**
+   * Warnings a program can act on (their messages are also in `warnings`): 'spurious-liquid-split' — the
+   * parameters predict two liquid layers in the data's temperature range that no point shows (x1I, x1II, T say
+   * where); 'heterogeneous-points-not-split' — points marked as two layers but the model never splits.
+   * Always set by fitBinary (optional only for results built elsewhere).
+   */
+  namedWarnings?: NamedFitWarning[]
   /** What is needed to rebuild the parameter layout (prediction bands, suggestions). */
   settings: {
     model: FittableModel
     V1?: number
     V2?: number
     uniquac?: UniquacStructure
+    temperatureDependent?: boolean
     alpha: number
     fitAlpha: boolean
     sigmaT: number
@@ -141,6 +151,7 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
     V1: options.V1,
     V2: options.V2,
     uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
     alpha,
     fitAlpha,
   })
@@ -278,15 +289,13 @@ function finishFit(
     )
   const Ts = Array.from(data.T)
   warnings.push(...spanWarnings(options.vaporPressure, Math.min(...Ts), Math.max(...Ts)))
-  for (const T of [Math.min(...Ts), Math.max(...Ts)]) {
-    const split = unstableRange(activity, T, 50)
-    if (split) {
-      warnings.push(
-        `The fitted parameters predict two liquid phases between x1 ≈ ${split[0].toFixed(2)} and ${split[1].toFixed(2)} at ${T.toFixed(1)} K; a single-liquid model is not physical there.`,
-      )
-      break
-    }
-  }
+  const namedWarnings = liquidSplitWarnings(
+    activity,
+    Math.min(...Ts),
+    Math.max(...Ts),
+    data.het?.reduce((s, v) => s + v, 0) ?? 0,
+  )
+  warnings.push(...namedWarnings.map((w) => w.message))
   const sigmaT = 1 / (Array.from(data.wT).reduce((s, v) => s + v, 0) / data.n)
   const sigmaY = 1 / (Array.from(data.wY).reduce((s, v) => s + v, 0) / data.n)
   return {
@@ -306,11 +315,13 @@ function finishFit(
     aic: stats.aic,
     residuals,
     warnings,
+    namedWarnings,
     settings: {
       model: options.model,
       V1: options.V1,
       V2: options.V2,
       uniquac: options.uniquac,
+      temperatureDependent: options.temperatureDependent,
       alpha: nrtl.alpha,
       fitAlpha: nrtl.fitAlpha,
       sigmaT,
@@ -336,6 +347,7 @@ export function fitTemperatureOnly(options: FitBinaryOptions): {
     V1: options.V1,
     V2: options.V2,
     uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
     alpha,
     fitAlpha: false,
   })

@@ -13,6 +13,11 @@ export interface BinaryPoint {
   sigmaT?: number
   sigmaY?: number
   excluded?: boolean
+  /**
+   * The analyst saw two liquid layers: x1 is the overall composition, T the three-phase temperature and y1 the
+   * three-phase vapour; the fit compares the point with the model's three-phase point at P.
+   */
+  heterogeneous?: boolean
 }
 
 /** Default uncertainty of a measured boiling temperature, K (common practice, no source). */
@@ -42,6 +47,8 @@ function checkPoint(pt: BinaryPoint, i: number): void {
     throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
   if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1))
     throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
+  if (pt.heterogeneous !== undefined && typeof pt.heterogeneous !== 'boolean')
+    throw fail(`heterogeneous must be true or false; got ${String(pt.heterogeneous)}.`)
   if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0))
     throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
   if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0))
@@ -57,6 +64,7 @@ export function checkModelOptions(o: {
   fitAlpha?: boolean
   objective?: string
   uniquac?: UniquacStructure
+  temperatureDependent?: boolean
 }): void {
   if (!Object.hasOwn(MODEL_NAMES, o.model)) {
     throw new ThermoError(
@@ -85,6 +93,15 @@ export function checkModelOptions(o: {
         'UNIQUAC needs the structure parameters r1, r2, q1 and q2 (positive numbers) of both components.',
       )
     }
+  }
+  if (o.temperatureDependent && o.model !== 'nrtl' && o.model !== 'wilson') {
+    throw new ThermoError('invalid-input', 'Temperature-dependent parameters are available for NRTL and Wilson only.')
+  }
+  if (o.temperatureDependent && o.fitAlpha) {
+    throw new ThermoError(
+      'invalid-input',
+      'With temperature-dependent parameters NRTL α is held; choose α instead of fitting it.',
+    )
   }
   if (o.fitAlpha && o.model !== 'nrtl') throw new ThermoError('invalid-input', 'fitAlpha applies to NRTL only.')
   if (o.alpha !== undefined && !(o.alpha > 0 && o.alpha <= 1)) {
@@ -138,6 +155,9 @@ export function buildFitData(
     wY: col((p) => 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)),
     vp1,
     vp2,
+    ...(index.some((i) => points[i].heterogeneous)
+      ? { het: Uint8Array.from(index, (i) => (points[i].heterogeneous ? 1 : 0)) }
+      : {}),
   }
   return { data, index }
 }

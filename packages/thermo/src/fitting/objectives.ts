@@ -12,6 +12,7 @@ import type { LnPsat } from '../vapor-pressure/compiled.js'
 import type { ActivityModel } from '../types.js'
 import type { LeastSquaresProblem } from './lm.js'
 import type { ParameterLayout } from './parameters.js'
+import { threePhaseRow, threePhaseSensitivities, type ThreePhaseMemo } from './heterogeneous.js'
 
 /** Included mixture points (0 < x1 < 1) in SI, with weights 1/σ. */
 export interface FitData {
@@ -24,6 +25,8 @@ export interface FitData {
   wY: Float64Array
   vp1: LnPsat
   vp2: LnPsat
+  /** 1 for rows marked heterogeneous (two liquid layers seen): compared with the model's three-phase point. */
+  het?: Uint8Array
 }
 
 const g = new Float64Array(4)
@@ -68,7 +71,16 @@ function lnGammaSensitivities(
  * Solve the bubble point of data point i with `model`, warm-started from Tguess[i]; on success
  * res[] holds T, y1, γ and the slope ∂F/∂T, and Tguess[i] is updated.
  */
-function bubbleAt(model: ActivityModel, d: FitData, i: number, Tguess: Float64Array): boolean {
+function bubbleAt(
+  model: ActivityModel,
+  d: FitData,
+  i: number,
+  Tguess: Float64Array,
+  memo: (ThreePhaseMemo | null)[],
+): boolean {
+  // A two-layer point is compared with the three-phase point; where the model has none, with its bubble point.
+  if (d.het?.[i] && threePhaseRow(model, d, i, memo)) return true
+  if (d.het?.[i]) memo[i] = null
   const ok = solveBubbleT(model, d.vp1, d.vp2, d.lnP[i], d.x1[i], Tguess[i])
   if (ok) Tguess[i] = res[0]
   return ok
@@ -112,6 +124,7 @@ export function bubbleProblem(
   const dT = new Float64Array(m)
   const dy = new Float64Array(m)
   const rows = useY ? 2 : 1
+  const memo: (ThreePhaseMemo | null)[] = new Array(d.n).fill(null)
   return {
     nResiduals: rows * d.n,
     nParams: m,
@@ -120,7 +133,7 @@ export function bubbleProblem(
       if (!layout.valid(p)) return false
       const model = layout.build(p)
       for (let i = 0; i < d.n; i++) {
-        if (!bubbleAt(model, d, i, Tguess)) return false
+        if (!bubbleAt(model, d, i, Tguess, memo)) return false
         r[rows * i] = (res[0] - d.T[i]) * d.wT[i]
         if (useY) r[rows * i + 1] = (res[1] - d.y1[i]) * d.wY[i]
       }
@@ -131,10 +144,11 @@ export function bubbleProblem(
       const model = layout.build(p)
       const pm = perturbedModels(layout, p)
       for (let i = 0; i < d.n; i++) {
-        if (!bubbleAt(model, d, i, Tguess)) return false
+        if (!bubbleAt(model, d, i, Tguess, memo)) return false
         r[rows * i] = (res[0] - d.T[i]) * d.wT[i]
         if (useY) r[rows * i + 1] = (res[1] - d.y1[i]) * d.wY[i]
-        bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)
+        if (!memo[i]) bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)
+        else if (!threePhaseSensitivities(pm, d, i, memo[i], res[0], res[1], dT, dy)) return false
         for (let j = 0; j < m; j++) {
           J[rows * i * m + j] = dT[j] * d.wT[i]
           if (useY) J[(rows * i + 1) * m + j] = dy[j] * d.wY[i]
@@ -153,6 +167,11 @@ export function experimentalLnGamma(d: FitData): [Float64Array, Float64Array] {
     const T = d.T[i]
     const y = d.y1[i]
     const x = d.x1[i]
+    if (d.het?.[i]) {
+      l1[i] = NaN
+      l2[i] = NaN
+      continue
+    }
     l1[i] = y > 0 ? Math.log(y / x) + d.lnP[i] - (d.vp1.a - d.vp1.b / (T + d.vp1.c)) : NaN
     l2[i] = y < 1 ? Math.log((1 - y) / (1 - x)) + d.lnP[i] - (d.vp2.a - d.vp2.b / (T + d.vp2.c)) : NaN
   }

@@ -35,8 +35,17 @@ function grid(values: number[]): number[][] {
 /** Layout for a model; V1, V2 (cm³/mol) for Wilson; alpha the NRTL α (fixed unless fitAlpha); r, q for UNIQUAC. */
 export function parameterLayout(
   model: FittableModel,
-  opts: { V1?: number; V2?: number; alpha: number; fitAlpha: boolean; uniquac?: UniquacStructure },
+  opts: {
+    V1?: number
+    V2?: number
+    alpha: number
+    fitAlpha: boolean
+    uniquac?: UniquacStructure
+    temperatureDependent?: boolean
+  },
 ): ParameterLayout {
+  if (opts.temperatureDependent && (model === 'nrtl' || model === 'wilson'))
+    return temperatureDependentLayout(model, opts)
   switch (model) {
     case 'uniquac': {
       const rq = opts.uniquac as UniquacStructure
@@ -107,5 +116,37 @@ export function parameterLayout(
         starts: grid(ENERGY_GRID),
       }
     }
+  }
+}
+
+/**
+ * Temperature-dependent NRTL (b12, b21, b12T, b21T) or Wilson (a12, a21, a12T, a21T) energies,
+ * b(T) = b + bT·(T − 298.15 K); bT in J/(mol·K). NRTL α is held (not fitted) in this layout.
+ */
+function temperatureDependentLayout(
+  model: 'nrtl' | 'wilson',
+  opts: { V1?: number; V2?: number; alpha: number },
+): ParameterLayout {
+  const starts = grid(ENERGY_GRID).map(([a, b]) => [a, b, 0, 0])
+  const valid = (p: ArrayLike<number>) =>
+    Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5 && Math.abs(p[2]) < 1e3 && Math.abs(p[3]) < 1e3
+  if (model === 'nrtl') {
+    const alpha = opts.alpha
+    return {
+      names: ['b12', 'b21', 'b12T', 'b21T'],
+      scales: [100, 100, 1, 1],
+      build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha, b12T: p[2], b21T: p[3] }),
+      valid,
+      starts,
+    }
+  }
+  const V1 = opts.V1 as number
+  const V2 = opts.V2 as number
+  return {
+    names: ['a12', 'a21', 'a12T', 'a21T'],
+    scales: [100, 100, 1, 1],
+    build: (p) => ({ kind: 'wilson', a12: p[0], a21: p[1], V1, V2, a12T: p[2], a21T: p[3] }),
+    valid,
+    starts,
   }
 }

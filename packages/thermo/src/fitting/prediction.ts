@@ -13,6 +13,7 @@ function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
     V1: s.V1,
     V2: s.V2,
     uniquac: s.uniquac,
+    temperatureDependent: s.temperatureDependent,
     alpha: s.alpha,
     fitAlpha: s.fitAlpha,
   })

@@ -9,7 +9,8 @@ import type { FitStatistics } from './statistics.js'
 const FLAG_LIMIT = 3
 
 /**
- * Residuals of every point (fitted, excluded and pure) under the fitted model. Fitted points get the
+ * Residuals of every point, measured − calculated (dT = T_meas − T_calc, dy = y_meas − y_calc), so a
+ * point measured too hot has a positive dT (fitted, excluded and pure) under the fitted model. Fitted points get the
  * externally studentized residual of the fit; excluded mixture points get a prediction residual
  * r/(s·√(1 + h)), so an excluded point can still be seen to be an outlier.
  */
@@ -33,11 +34,12 @@ export function pointResiduals(
   const sY = new Float64Array(m)
   return points.map((pt, i) => {
     const k = row.get(i)
-    // Fitted points of the bubble-point objective already have their deviations in r (weighted).
+    // Fitted points of the bubble-point objective already have their deviations in r (weighted), as
+    // calculated − measured; reported residuals are measured − calculated, hence the minus signs.
     const known = bubbleObjective && k !== undefined
     const ok = known || solveBubbleT(act, data.vp1, data.vp2, Math.log(pt.P), pt.x1, pt.T)
-    const dT = known ? r[2 * k] / data.wT[k] : ok ? res[0] - pt.T : NaN
-    const dy = known ? r[2 * k + 1] / data.wY[k] : ok ? res[1] - pt.y1 : NaN
+    const dT = known ? -r[2 * k] / data.wT[k] : ok ? pt.T - res[0] : NaN
+    const dy = known ? -r[2 * k + 1] / data.wY[k] : ok ? pt.y1 - res[1] : NaN
     const out: PointResidual = {
       dT,
       dy,
@@ -47,8 +49,9 @@ export function pointResiduals(
       excluded: pt.excluded === true,
     }
     if (k !== undefined) {
-      const a = stats.studentized[2 * k]
-      const b = stats.studentized[2 * k + 1]
+      // stats follow the objective's rows (calculated − measured): flip to measured − calculated.
+      const a = -stats.studentized[2 * k]
+      const b = -stats.studentized[2 * k + 1]
       out.studentized = Math.abs(a) >= Math.abs(b) ? a : b
       out.leverage = stats.leverage[2 * k] + stats.leverage[2 * k + 1]
     } else if (ok && bubbleObjective && pt.x1 > 0 && pt.x1 < 1 && stats.inverse) {

@@ -162,6 +162,11 @@ describe('outliers and excluded points', () => {
     points[11] = { ...points[11], T: points[11].T + 1.0 }
     const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     expect(fit.residuals.flatMap((r, i) => (r.flagged ? [i] : []))).toEqual([11])
+    // Residuals are measured − calculated: the point raised by 1 K reads about +1 K (the fit leans a little
+    // towards it, hence the lower bound), and its studentized residual is positive too.
+    expect(fit.residuals[11].dT).toBeGreaterThan(0.8)
+    expect(fit.residuals[11].dT).toBeLessThan(1.05)
+    expect(fit.residuals[11].studentized).toBeGreaterThan(3)
     expect(fit.warnings).toContain(
       '1 point looks like an outlier (|studentized residual| > 3); check it before approving.',
     )
@@ -176,7 +181,8 @@ describe('outliers and excluded points', () => {
     fit.parameters.forEach((p, j) => expect(Math.abs(p.value - others[j])).toBeLessThan(p.standardError as number))
     expect(fit.residuals[5].excluded).toBe(true)
     expect(fit.residuals[5].flagged).toBe(true)
-    expect(Math.abs(fit.residuals[5].dy + 0.05)).toBeLessThan(0.02)
+    // y raised by 0.05 reads about +0.05 (measured − calculated).
+    expect(Math.abs(fit.residuals[5].dy - 0.05)).toBeLessThan(0.02)
   })
   it('leverages of the fitted rows add up to the number of parameters', () => {
     const fit = fitBinary({

@@ -1,3 +1,4 @@
+import { parse } from 'csv-parse/sync'
 import { dewTemperature, type BinarySystem } from '@ebullio/thermo'
 import { describe, expect, it } from 'vitest'
 import {
@@ -48,6 +49,13 @@ describe('diagramsAt (benzene–toluene, ideal, 101.325 kPa)', () => {
     expect(lines[1]).toBe('# Preliminary estimate from equilibrium data; not an engineered design.')
     expect(lines[2]).toBe('x1,y1,t_k,t_c,alpha12')
     expect(lines).toHaveLength(3 + d.x1.length)
+  })
+
+  it('keeps a hostile component name inside its comment cell (no cell of its own starts a formula)', () => {
+    const text = curveTableCsv(d, ['x,=cmd|"/c calc"!A1', 'toluene'], 'Ideal')
+    const first = parse(text, { relax_column_count: true })[0] as string[]
+    expect(first).toHaveLength(1)
+    expect(first[0].startsWith('# Ebullio curve table; x,=cmd')).toBe(true)
   })
 })
 

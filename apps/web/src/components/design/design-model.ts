@@ -2,10 +2,11 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
+import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubbleTemperature,
   fenske,
-  findAzeotrope,
+  findAzeotropes,
   mccabeThiele,
   minimumReflux,
   phaseDiagram,
@@ -14,6 +15,7 @@ import {
   type Azeotrope,
   type BatchFrame,
   type BinarySystem,
+  type ThreePhaseLineIsobaric,
   type VaporPressureModel,
 } from '@ebullio/thermo'
 import type { MeasuredData, ParametersExport } from '../../api/catalogue'
@@ -96,8 +98,15 @@ export interface DiagramsAt {
   T: number[]
   /** Relative volatility α12 at each x1 of the diagram (infinite-dilution values at the ends). */
   alpha: number[]
+  /** the first azeotrope (by x1), for the column screen's first targets */
   azeotrope: Azeotrope | null
+  /** every azeotrope at P with its kind; a heterogeneous one carries its two liquid layers */
+  azeotropes: Azeotrope[]
   azeotropeNote: string | null
+  /** where the model's liquid boils as two layers (null: one liquid at every composition) */
+  threePhase: ThreePhaseLineIsobaric | null
+  /** the two-liquid region below the three-phase line */
+  twoLiquids: { T: number[]; x1I: number[]; x1II: number[] } | null
   pure: { T1: number; T2: number }
   /** Bubble points at round liquid compositions 0, 0.1 … 1 for the on-screen table. */
   table: { x1: number; y1: number; T: number; alpha: number }[]
@@ -114,12 +123,12 @@ function roundTable(system: BinarySystem, P: number): DiagramsAt['table'] {
 
 /** T–x–y, x–y, α across composition and the azeotrope at pressure P (Pa). */
 export function diagramsAt(system: BinarySystem, P: number, points = 101): DiagramsAt {
-  const d = phaseDiagram(system, { P }, { points })
+  const d = phaseDiagram(system, { P }, { points, lle: true })
   if (d.kind !== 'isobaric') throw new Error('Expected an isobaric diagram.')
-  let azeotrope: Azeotrope | null = null
+  let azeotropes: Azeotrope[] = []
   let azeotropeNote: string | null = null
   try {
-    azeotrope = findAzeotrope(system, { P })
+    azeotropes = findAzeotropes(system, { P })
   } catch (e) {
     azeotropeNote = errorText(e)
   }
@@ -135,8 +144,11 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
     y1: d.y1,
     T: d.T,
     alpha,
-    azeotrope,
+    azeotrope: azeotropes[0] ?? null,
+    azeotropes,
     azeotropeNote,
+    threePhase: d.threePhase ?? null,
+    twoLiquids: d.lle ?? null,
     pure: { T1: d.T[n - 1], T2: d.T[0] },
     table: roundTable(system, P),
     warnings: d.warnings,
@@ -145,17 +157,20 @@ export function diagramsAt(system: BinarySystem, P: number, points = 101): Diagr
 
 /** The curve table as CSV in Ebullio's layout: one row per liquid composition. */
 export function curveTableCsv(d: DiagramsAt, names: [string, string], model: string): string {
-  const head = [
-    `# Ebullio curve table; ${names[0]} (1) + ${names[1]} (2); model ${model}; P = ${(d.P / 1000).toFixed(4)} kPa`,
-    '# Preliminary estimate from equilibrium data; not an engineered design.',
-    'x1,y1,t_k,t_c,alpha12',
-  ]
-  const rows = d.x1.map((x, i) =>
-    [x.toFixed(6), d.y1[i].toFixed(6), d.T[i].toFixed(3), (d.T[i] - 273.15).toFixed(3), d.alpha[i].toFixed(5)].join(
-      ',',
-    ),
+  return csvDocument(
+    ['x1', 'y1', 't_k', 't_c', 'alpha12'],
+    d.x1.map((x, i) => [
+      fixed(x, 6),
+      fixed(d.y1[i], 6),
+      fixed(d.T[i], 3),
+      fixed(d.T[i] - 273.15, 3),
+      fixed(d.alpha[i], 5),
+    ]),
+    [
+      `Ebullio curve table; ${names[0]} (1) + ${names[1]} (2); model ${model}; P = ${(d.P / 1000).toFixed(4)} kPa`,
+      'Preliminary estimate from equilibrium data; not an engineered design.',
+    ],
   )
-  return [...head, ...rows].join('\n') + '\n'
 }
 
 /** Inputs of a column estimate: mole fractions of component 1, q liquid fraction of the feed, R as a multiple of Rmin. */

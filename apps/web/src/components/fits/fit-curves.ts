@@ -3,7 +3,7 @@
  * activity model and the system's vapour-pressure sets (so toggling a model never waits for the server).
  * Loaded on demand by the workspace: this module is the one that pulls the engine into the page.
  */
-import { findAzeotrope, phaseDiagram, type ActivityModel, type Azeotrope, type BinarySystem } from '@ebullio/thermo'
+import { findAzeotropes, phaseDiagram, type ActivityModel, type Azeotrope, type BinarySystem } from '@ebullio/thermo'
 import type { DataSetDetail } from '../../api/datasets'
 import { fitLabel, vaporPressureOf, type FitCurve } from './fit-helpers'
 
@@ -24,14 +24,15 @@ export function fitCurves(d: DataSetDetail): {
         activity,
         names: [d.system.component1.name, d.system.component2.name],
       }
-      const diagram = phaseDiagram(system, { P }, { points: 81 }) as FitCurve['diagram']
-      let azeotrope: Azeotrope | null = null
+      // lle: the two-liquid region below the three-phase line, drawn when the model predicts a split
+      const diagram = phaseDiagram(system, { P }, { points: 81, lle: true }) as FitCurve['diagram']
+      let azeotropes: Azeotrope[] = []
       try {
-        azeotrope = findAzeotrope(system, { P })
+        azeotropes = findAzeotropes(system, { P })
       } catch {
-        azeotrope = null
+        azeotropes = []
       }
-      return { fitId: id, name, diagram, azeotrope }
+      return { fitId: id, name, diagram, azeotrope: azeotropes[0] ?? null, azeotropes }
     } catch (e) {
       failed.push({ name, message: (e as Error).message })
       return null

@@ -69,8 +69,11 @@ export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPre
 export interface FitCurve {
   fitId: string
   name: string
-  diagram: PhaseDiagram & { kind: 'isobaric' }
+  /** with the three-phase line and the two-liquid region when the model predicts a liquid split */
+  diagram: Extract<PhaseDiagram, { kind: 'isobaric' }>
   azeotrope: Azeotrope | null
+  /** every azeotrope at the data set's pressure, with its kind */
+  azeotropes: Azeotrope[]
 }
 
 /** Residuals of one fit, tolerant of the field names thermo and the server may use: ΔT in K, Δy mole fraction. */

@@ -152,3 +152,42 @@ describe('lineOption', () => {
     expect(o.yAxis as unknown[]).toHaveLength(2)
   })
 })
+
+describe('hostile text in tooltips', () => {
+  const evil = '<img src=x onerror="window.__owned=1"><meta http-equiv="refresh" content="0;url=https://example.org">'
+  type Tip = { formatter: (p: unknown) => string }
+
+  it('escapes a sample label or exclusion reason and a curve name in the T–x–y tooltips', () => {
+    const o = txyOption({
+      title: 'T–x–y',
+      names: [evil, 'methanol'],
+      unit: 'K',
+      k: 2,
+      curves: [{ ...curve, name: evil }],
+      points: [{ id: 'p1', T: 330.15, x1: 0.4, y1: 0.55, note: evil }],
+      pure: { T1: 329.35, T2: 337.85 },
+    })
+    const tip = (o.tooltip as Tip).formatter
+    const liquid = (o.series as Series[]).find((s) => s.type === 'scatter' && s.name === 'Liquid x₁')!
+    const pointHtml = tip({ data: liquid.data[0], seriesName: 'Liquid x₁' })
+    const curveHtml = tip({ data: {}, seriesName: evil })
+    for (const html of [pointHtml, curveHtml]) {
+      expect(html).not.toMatch(/<img|<meta/)
+      expect(html).toContain('&lt;img src=x onerror=&quot;window.__owned=1&quot;&gt;')
+    }
+    const pure = (o.series as (Series & { tooltip?: Tip })[]).find((s) => s.tooltip && s.name !== 'Azeotrope')
+    if (pure?.tooltip) expect(pure.tooltip.formatter({ name: evil, value: [0, 330] })).not.toMatch(/<img|<meta/)
+  })
+
+  it('escapes a fit name in the residual tooltip', () => {
+    const o = residualOption({
+      title: 'Residuals',
+      quantity: 'ΔT / K',
+      digits: 2,
+      names: ['acetone', 'methanol'],
+      series: [{ name: evil, points: [{ id: 'p1', x1: 0.3, residual: 0.1 }], sigma: 0.1 }],
+    })
+    const s = (o.series as (Series & { tooltip?: Tip })[]).find((x) => x.name === evil)!
+    expect(s.tooltip!.formatter({ value: [0.3, 0.1], seriesName: evil })).not.toMatch(/<img|<meta/)
+  })
+})

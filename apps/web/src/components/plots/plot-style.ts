@@ -1,4 +1,5 @@
 /** Ebullio's plot look and the helpers every plot shares: palette, axes, unit labels, file export. */
+import { slugify } from '@ebullio/schemas/csv-exports'
 import { fromKelvin, temperatureDifferenceFromKelvin } from '@ebullio/thermo/units'
 import type { TemperatureUnit } from './plot-types'
 
@@ -30,6 +31,18 @@ export function tUnit(unit: TemperatureUnit): string {
 /** Axis label of a temperature: "T / °C", "T / K" or "T / °F". */
 export function tLabel(unit: TemperatureUnit): string {
   return `T / ${tUnit(unit)}`
+}
+
+/**
+ * Text for an ECharts tooltip, which renders its formatter's string as HTML: every name that comes from the
+ * lab (sample labels, exclusion reasons, component, system and fit names) goes through this, so markup stays
+ * text. Labels drawn on the chart itself (canvas or SVG text) need no escaping.
+ */
+export function escapeHtml(s: unknown): string {
+  return String(s ?? '').replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  )
 }
 
 /** A number for a tooltip, with a fixed count of decimals and no trailing noise. */
@@ -127,12 +140,7 @@ export function saveFile(name: string, content: Blob | string, type = 'text/plai
   setTimeout(() => URL.revokeObjectURL(url), 1000)
 }
 
-/** A file name from a plot title: lower-case words joined by hyphens. */
+/** A file name from a plot title: the shared slug (letters of any script kept, lower-case, hyphens). */
 export function fileStem(title: string): string {
-  return (
-    title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '') || 'plot'
-  )
+  return slugify(title, 'plot')
 }

@@ -57,11 +57,30 @@ export interface PureBoiling {
   T2: number
 }
 
-/** An azeotrope to mark: composition and, on the T–x–y plot, temperature in K. */
+/**
+ * An azeotrope to mark: composition and, on the T–x–y plot, temperature in K. For a heterogeneous one x1 is
+ * the three-phase vapour and `liquidPhases` the two liquid layers' x1.
+ */
 export interface AzeotropeMark {
   x1: number
   T?: number
   kind?: 'minimum-boiling' | 'maximum-boiling' | 'heterogeneous'
+  liquidPhases?: [number, number]
+}
+
+/** The three-phase line of an isobaric diagram (vapour over two liquids): T in K, liquids x1I < x1II, vapour y1. */
+export interface ThreePhaseMark {
+  T: number
+  x1I: number
+  x1II: number
+  y1: number
+}
+
+/** Where two liquids coexist below the three-phase line (the binodal): T ascending, in K. */
+export interface TwoLiquidRegion {
+  T: number[]
+  x1I: number[]
+  x1II: number[]
 }
 
 /** One x–y curve, e.g. a fitted model at the data set's pressure. */

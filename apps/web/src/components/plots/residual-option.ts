@@ -1,5 +1,5 @@
 /** ECharts option of a residual plot: residual against x1 with a ±2σ band per model. */
-import { baseOption, CURVE_COLOURS, fmt, fractionAxis, legendFor, MUTED, valueAxis } from './plot-style'
+import { baseOption, CURVE_COLOURS, escapeHtml, fmt, fractionAxis, legendFor, MUTED, valueAxis } from './plot-style'
 import type { ResidualSeries } from './plot-types'
 
 /** Inputs of `residualOption`; see ResidualPlot.vue. */
@@ -49,7 +49,7 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
           : undefined,
         tooltip: {
           formatter: (p: { value: number[]; seriesName: string }) =>
-            `${p.seriesName}<br>x₁ = ${fmt(p.value[0])}<br>${o.quantity.split(' /')[0]} = ${fmt(p.value[1], o.digits)}${s.sigma ? `<br>2σ = ${fmt(2 * s.sigma, o.digits)}` : ''}`,
+            `${escapeHtml(p.seriesName)}<br>x₁ = ${fmt(p.value[0])}<br>${o.quantity.split(' /')[0]} = ${fmt(p.value[1], o.digits)}${s.sigma ? `<br>2σ = ${fmt(2 * s.sigma, o.digits)}` : ''}`,
         },
       },
     ]

@@ -2,8 +2,16 @@
 import { bandSeries, suggestionSeries } from './band-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import {
+  azeotropeTxySeries,
+  THREE_PHASE_NAME,
+  threePhaseTxySeries,
+  TWO_LIQUID_NAME,
+  twoLiquidSeries,
+} from './heterogeneous-series'
+import {
   baseOption,
   CURVE_COLOURS,
+  escapeHtml,
   fmt,
   fractionAxis,
   INK,
@@ -21,6 +29,8 @@ import type {
   AzeotropeMark,
   PureBoiling,
   TemperatureUnit,
+  ThreePhaseMark,
+  TwoLiquidRegion,
   TxyBand,
   TxyCurve,
   TxyPoint,
@@ -42,6 +52,11 @@ export interface TxyOptionInput {
   band?: TxyBand | null
   /** liquid compositions to measure next, marked on the composition axis (best first) */
   suggested?: TxySuggestion[] | null
+  /** every azeotrope to mark (takes the place of `azeotrope` when given) */
+  azeotropes?: AzeotropeMark[] | null
+  /** the model's three-phase line and two-liquid region, for a partially miscible system */
+  threePhase?: ThreePhaseMark | null
+  twoLiquids?: TwoLiquidRegion | null
 }
 
 export const LIQUID_NAME = 'Liquid x₁'
@@ -67,7 +82,7 @@ function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput):
   const p = d.point
   const tU = tUnit(o.unit)
   const lines = [
-    `<b>${p.note ? p.note : 'Point'}</b> · ${d.phase}`,
+    `<b>${p.note ? escapeHtml(p.note) : 'Point'}</b> · ${escapeHtml(d.phase)}`,
     `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(showDT(p.uT, o.unit), 2)}` : ''}`,
     `x₁ = ${fmt(p.x1)}${p.ux1 ? ` ± ${fmt(p.ux1)}` : ''}`,
     `y₁ = ${fmt(p.y1)}${p.uy1 ? ` ± ${fmt(p.uy1)}` : ''}`,
@@ -170,26 +185,12 @@ function markerSeries(o: TxyOptionInput): Record<string, unknown>[] {
         formatter: (p: { name: string; value: number[] }) => `${p.name} ${fmt(p.value[1], 1)} ${tU}`,
       },
       tooltip: {
-        formatter: (p: { name: string; value: number[] }) => `Pure ${p.name}: boils at ${fmt(p.value[1], 2)} ${tU}`,
+        formatter: (p: { name: string; value: number[] }) =>
+          `Pure ${escapeHtml(p.name)}: boils at ${fmt(p.value[1], 2)} ${tU}`,
       },
     })
   }
-  if (o.azeotrope && o.azeotrope.T !== undefined) {
-    const tU = tUnit(o.unit)
-    out.push({
-      type: 'scatter',
-      name: 'Azeotrope',
-      z: 6,
-      symbol: 'triangle',
-      symbolSize: 13,
-      itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
-      data: [[o.azeotrope.x1, showT(o.azeotrope.T, o.unit)]],
-      tooltip: {
-        formatter: () =>
-          `Azeotrope${o.azeotrope?.kind ? ` (${o.azeotrope.kind.replace('-', ' ')})` : ''}<br>x₁ = y₁ = ${fmt(o.azeotrope?.x1)}<br>T = ${fmt(showT(o.azeotrope!.T!, o.unit), 2)} ${tU}`,
-      },
-    })
-  }
+  out.push(...azeotropeTxySeries(o.azeotropes ?? (o.azeotrope ? [o.azeotrope] : []), o.unit))
   return out
 }
 
@@ -201,6 +202,8 @@ function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
     out.push(...bandSeries(o.band, o.unit, CURVE_COLOURS[(i < 0 ? 0 : i) % CURVE_COLOURS.length]))
   }
   if (o.suggested?.length) out.push(suggestionSeries(o.suggested, o.unit, '#c98a12'))
+  if (o.twoLiquids) out.push(...twoLiquidSeries(o.twoLiquids, o.threePhase ?? null, o.unit))
+  if (o.threePhase) out.push(...threePhaseTxySeries(o.threePhase, o.unit))
   return out
 }
 
@@ -208,7 +211,12 @@ function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
 export function txyOption(o: TxyOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
-  const names = [...(o.points.length ? [LIQUID_NAME, VAPOUR_NAME] : []), ...o.curves.map((c) => c.name)]
+  const names = [
+    ...(o.points.length ? [LIQUID_NAME, VAPOUR_NAME] : []),
+    ...o.curves.map((c) => c.name),
+    ...(o.threePhase ? [THREE_PHASE_NAME] : []),
+    ...(o.twoLiquids ? [TWO_LIQUID_NAME] : []),
+  ]
   const { legend, top } = legendFor(names, selected)
   return {
     ...base,
@@ -217,7 +225,7 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     tooltip: {
       ...(base.tooltip as object),
       formatter: (p: { data: { point?: TxyPoint; phase?: string }; seriesName: string }) =>
-        p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : p.seriesName,
+        p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : escapeHtml(p.seriesName),
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
     yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),

@@ -1,6 +1,7 @@
 /** ECharts option of the x–y plot: diagonal, equilibrium curves, measured pairs, azeotrope, McCabe–Thiele construction. */
-import { baseOption, CURVE_COLOURS, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
-import type { AzeotropeMark, StageConstruction, XyCurve, XyPoint } from './plot-types'
+import { baseOption, CURVE_COLOURS, escapeHtml, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
+import { azeotropeXySeries, THREE_PHASE_NAME, threePhaseXySeries } from './heterogeneous-series'
+import type { AzeotropeMark, StageConstruction, ThreePhaseMark, XyCurve, XyPoint } from './plot-types'
 
 /** Inputs of `xyOption`; see XyPlot.vue. */
 export interface XyOptionInput {
@@ -12,6 +13,10 @@ export interface XyOptionInput {
   /** Design targets to mark on the diagonal when no stage construction is drawn. */
   targets?: { xF?: number; xD?: number; xB?: number } | null
   names: [string, string]
+  /** every azeotrope to mark (takes the place of `azeotrope` when given) */
+  azeotropes?: AzeotropeMark[] | null
+  /** the flat stretch where the liquid boils as two layers */
+  threePhase?: ThreePhaseMark | null
 }
 
 const STEP = '#b0452b'
@@ -101,7 +106,7 @@ function stageSeries(s: StageConstruction): Record<string, unknown>[] {
         { value: [s.xF, s.xF], name: `x_F = ${fmt(s.xF, 3)}, q = ${fmt(s.q, 2)}` },
         { value: [s.xB, s.xB], name: `x_B = ${fmt(s.xB, 3)}` },
       ],
-      tooltip: { formatter: (p: { name: string }) => p.name },
+      tooltip: { formatter: (p: { name: string }) => escapeHtml(p.name) },
     },
   ]
 }
@@ -155,18 +160,8 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
       tooltip: { formatter: (p: { value: number[] }) => `x₁ = ${fmt(p.value[0])}<br>y₁ = ${fmt(p.value[1])}` },
     })
   }
-  if (o.azeotrope) {
-    series.push({
-      type: 'scatter',
-      name: 'Azeotrope',
-      z: 7,
-      symbol: 'triangle',
-      symbolSize: 13,
-      itemStyle: { color: '#f2b544', borderColor: INK, borderWidth: 1 },
-      data: [[o.azeotrope.x1, o.azeotrope.x1]],
-      tooltip: { formatter: () => `Azeotrope: x₁ = y₁ = ${fmt(o.azeotrope?.x1)}` },
-    })
-  }
+  if (o.threePhase) series.push(...threePhaseXySeries(o.threePhase))
+  series.push(...azeotropeXySeries(o.azeotropes ?? (o.azeotrope ? [o.azeotrope] : [])))
   if (o.stages) series.push(...stageSeries(o.stages))
   else if (o.targets) {
     const t = o.targets
@@ -191,13 +186,14 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
         label: { position: n === 'x_D' ? 'left' : 'right' },
       })),
       label: { show: true, fontSize: 11, color: INK, formatter: (p: { name: string }) => p.name },
-      tooltip: { formatter: (p: { name: string }) => p.name },
+      tooltip: { formatter: (p: { name: string }) => escapeHtml(p.name) },
     })
   }
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
   const names = [
     ...o.curves.map((c) => c.name),
     ...(o.points.length ? ['Measured'] : []),
+    ...(o.threePhase ? [THREE_PHASE_NAME] : []),
     ...(o.stages ? ['Operating lines', 'Theoretical stages'] : []),
   ]
   const { legend, top } = legendFor(names, selected)

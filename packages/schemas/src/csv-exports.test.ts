@@ -1,0 +1,67 @@
+import { parse } from 'csv-parse/sync'
+import { describe, expect, it } from 'vitest'
+import { csvDocument, dataSetFileName, fixed, neutraliseFormula, pointsCsv, slugify } from './csv-exports.js'
+
+// CSV injection: cells starting with = + - @ tab or CR are run by spreadsheets (OWASP "CSV Injection" page).
+describe('formula cells', () => {
+  it.each(['=1+2', '+cmd', '-2+3', '@SUM(A1)', '\tx', '\rx'])('%j is prefixed with an apostrophe', (s) => {
+    expect(neutraliseFormula(s)).toBe(`'${s}`)
+  })
+
+  it('leaves numbers as numbers and text that is safe as it is', () => {
+    const text = csvDocument(['a', 'b', 'c', 'd'], [[-0.25, fixed(-1.5, 3), 'S-01', '=HYPERLINK("x")']])
+    expect(text).toBe('a,b,c,d\n-0.25,-1.500,S-01,"\'=HYPERLINK(""x"")"\n')
+    const [[a, b, c, d]] = parse(text, { from_line: 2 }) as string[][]
+    expect([Number(a), Number(b), c]).toEqual([-0.25, -1.5, 'S-01'])
+    expect(d.startsWith("'=")).toBe(true)
+  })
+})
+
+describe('slugify', () => {
+  it.each([
+    ['Éthanol / water at 1 atm', 'éthanol-water-at-1-atm'],
+    ['  Series 14 (rerun)  ', 'series-14-rerun'],
+    ['Wasser–Ethanol Größe', 'wasser-ethanol-größe'],
+    ['エタノール', 'エタノール'],
+    ['***', 'export'],
+  ])('%j → %j', (title, slug) => expect(slugify(title)).toBe(slug))
+
+  it('names a data set export with its version', () => {
+    expect(dataSetFileName({ title: 'Éthanol/water', version: 2 }, 'points', 'csv')).toBe('éthanol-water-v2-points.csv')
+  })
+})
+
+describe('points layout', () => {
+  it('writes K, kPa and the fixed decimals, and neutralises a hostile label and reason', () => {
+    const text = pointsCsv([
+      {
+        seq: 1,
+        sampleLabel: '=cmd|"/c calc"!A1',
+        temperatureK: 351.4449,
+        pressurePa: 101325,
+        x1: 0.123456,
+        x1Uncertainty: 0.0012,
+        y1: 0.5,
+        y1Uncertainty: 0.00051,
+        excluded: true,
+        exclusionReason: '@leak',
+      },
+    ])
+    const rows = parse(text) as string[][]
+    expect(rows).toEqual([
+      ['seq', 'sample', 't_k', 'p_kpa', 'x1', 'u_x1', 'y1', 'u_y1', 'excluded', 'exclusion_reason'],
+      [
+        '1',
+        '\'=cmd|"/c calc"!A1',
+        '351.445',
+        '101.3250',
+        '0.12346',
+        '1.200e-3',
+        '0.50000',
+        '5.100e-4',
+        'true',
+        "'@leak",
+      ],
+    ])
+  })
+})
