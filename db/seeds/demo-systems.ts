@@ -59,6 +59,16 @@ export const DEMO_COMPONENTS: Record<string, DemoComponent> = {
     antoine: { A: 16.5785, B: 3638.27, C: 239.5, range: [-11, 83] },
     source: SVNA_B2,
   },
+  // No demo system: ethanol is there so a new ethanol/water series can be started on screen (issue 11's journey).
+  ethanol: {
+    name: 'ethanol',
+    cas: '64-17-5',
+    formula: 'C2H6O',
+    molarMass: 46.069,
+    molarVolume: 58.68,
+    antoine: { A: 16.8958, B: 3795.17, C: 230.918, range: [3, 96] },
+    source: SVNA_B2,
+  },
   water: {
     name: 'water',
     cas: '7732-18-5',

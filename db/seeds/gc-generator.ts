@@ -4,25 +4,8 @@
  * Deterministic (seeded), so the demo and the example files are the same on every machine.
  */
 import { bubbleTemperature } from '@ebullio/thermo'
+import { gaussian, mulberry32 } from '@ebullio/thermo/random'
 import { DEMO_COMPONENTS, demoVaporPressure, type DemoSystem } from './demo-systems.js'
-
-/** mulberry32: a small seeded generator, good enough for demo noise. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
-
-/** A standard normal deviate (Box–Muller). */
-export function gaussian(rand: () => number): number {
-  const u = Math.max(rand(), 1e-12)
-  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * rand())
-}
 
 /** Noise levels of the simulated lab (invented, typical of a careful lab: common practice, no source). */
 export interface NoiseLevels {
@@ -47,7 +30,7 @@ const fmt = (v: number, digits: number) => v.toFixed(digits)
 
 /** A calibration sheet: standards weighed as mass fractions, three injections each. */
 export function calibrationCsv(system: DemoSystem, seed: number, noise = DEFAULT_NOISE): string {
-  const rand = seededRandom(seed)
+  const rand = mulberry32(seed)
   const m1 = DEMO_COMPONENTS[system.light].molarMass
   const m2 = DEMO_COMPONENTS[system.heavy].molarMass
   const lines = ['standard,basis,fraction_1,injection,area_1,area_2']
@@ -85,7 +68,7 @@ export function runCsv(
   o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels },
 ): { csv: string; states: GeneratedState[] } {
   const noise = o.noise ?? DEFAULT_NOISE
-  const rand = seededRandom(o.seed)
+  const rand = mulberry32(o.seed)
   const model = {
     vaporPressure: [demoVaporPressure(system.light), demoVaporPressure(system.heavy)] as [
       ReturnType<typeof demoVaporPressure>,

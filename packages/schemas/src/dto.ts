@@ -91,6 +91,8 @@ export interface FitParameterDto {
   standardError: number | null
   /** true when a fitted parameter reached its bound and was held there. */
   atBound?: boolean
+  /** the parameter's unit when it has one (J/mol), as thermo names it */
+  unit?: string
 }
 
 /** A stored model fit as thermo returned it. */
@@ -110,6 +112,33 @@ export interface FitDto<D = string> {
   pointSetDigest: string | null
   /** included points of that point set */
   pointCount: number | null
+}
+
+/** One residual of a stored fit at a point: ΔT in K, Δy1 mole fraction (measured − model). */
+export interface FitResidualDto {
+  pointId: string
+  dT: number
+  dy: number
+  /** true when the point is flagged as an outlier of this fit */
+  outlier?: boolean
+  [k: string]: unknown
+}
+
+/** The statistics thermo stores with a fit (rms ΔT in K, rms Δy1, AIC), and whatever else it reports. */
+export interface FitStatisticsDto {
+  rmsT?: number
+  rmsY?: number
+  aic?: number
+  converged?: boolean
+  [k: string]: unknown
+}
+
+/** A stored fit as the web reads it: {@link FitDto} with the known shapes of its JSON parts. */
+export type FitDetailDto<D = string> = Omit<FitDto<D>, 'activity' | 'statistics' | 'residuals'> & {
+  /** thermo's ActivityModel */
+  activity: Record<string, unknown> & { kind: string }
+  statistics: FitStatisticsDto
+  residuals: FitResidualDto[]
 }
 
 /** An approved version of a data set in the catalogue, with the fit it was approved with. */
@@ -213,4 +242,40 @@ export interface DataSetDto<D = string> {
   countsAsOwnReason: string | null
   /** 'txy' isobaric T–x–y, 'tx' isobaric T–x, 'pxy' isothermal P–x–y */
   layout: 'txy' | 'tx' | 'pxy'
+}
+
+/** What a person needs to recognise a stored GC calibration: its file, date, model, coefficients ± u, range and use. */
+export interface CalibrationSummaryDto<D = string> {
+  id: string
+  gcMethodId: string
+  gcMethodName: string
+  model: 'response-factor' | 'linear' | 'quadratic'
+  status: 'active' | 'retired'
+  coefficientNames: string[]
+  coefficients: number[]
+  /** standard errors of the coefficients, same order */
+  standardErrors: number[]
+  /** calibrated range, mole fraction of component 1 */
+  rangeMin: number
+  rangeMax: number
+  createdAt: D
+  retiredAt: D | null
+  uploadId: string
+  originalName: string
+  sha256: string
+  /** data sets (lineages, all versions counted once) with points computed with it */
+  dataSetCount: number
+}
+
+/**
+ * One thing wrong with an uploaded file, located so the analyst can find it in the spreadsheet:
+ * `row` is the line number in the file (the header is line 1), `column` the header as written.
+ * Errors block a commit; warnings must be acknowledged before committing.
+ */
+export interface UploadProblemDto {
+  row: number | null
+  column: string | null
+  value: string | null
+  message: string
+  severity: 'error' | 'warning'
 }

@@ -15,6 +15,7 @@ export const WEB_PATHS = {
   adminComponents: '/admin/components',
   adminGcMethods: '/admin/gc-methods',
   adminMail: '/admin/mail',
+  instrumentChecks: '/checks',
   account: '/account',
   forbidden: '/forbidden',
   verifyReport: '/verify/:id',

@@ -11,7 +11,7 @@ import { fileURLToPath } from 'node:url'
 import { bubbleTemperature, fitBinary, type BinaryPoint, type BinarySystem } from '../src/index.js'
 import { compileVaporPressure } from '../src/vapor-pressure/compiled.js'
 import { b2, CAL, TABLE_12_5 } from '../test/reference/helpers/constants.js'
-import { prng } from '../test/reference/helpers/prng.js'
+import { seededRandom as prng } from '../src/random.js'
 
 const P = 101325
 const pw = TABLE_12_5.propanolWater

@@ -1,3 +1,4 @@
+import type { CalibrationSummaryDto } from '@ebullio/schemas'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { Calibration, GcMethod } from '../db/lab-tables.js'
@@ -335,28 +336,8 @@ export async function insertCalibration(db: Db, c: NewCalibrationInput): Promise
   return toCalibration(row)
 }
 
-/** What a person needs to recognise a calibration: its file, date, model, coefficients ± u, range and use. */
-export interface CalibrationSummary {
-  id: string
-  gcMethodId: string
-  gcMethodName: string
-  model: CalibrationRecord['model']
-  status: CalibrationRecord['status']
-  coefficientNames: string[]
-  coefficients: number[]
-  /** standard errors of the coefficients, same order */
-  standardErrors: number[]
-  /** calibrated range, mole fraction of component 1 */
-  rangeMin: number
-  rangeMax: number
-  createdAt: Date
-  retiredAt: Date | null
-  uploadId: string
-  originalName: string
-  sha256: string
-  /** data sets (lineages, all versions counted once) with points computed with it */
-  dataSetCount: number
-}
+/** What a person needs to recognise a calibration (the shared wire type, with Date timestamps). */
+export type CalibrationSummary = CalibrationSummaryDto<Date>
 
 /** Summaries of the given calibrations (any order in, creation order out). */
 export async function summarizeCalibrations(db: Db, ids: string[]): Promise<CalibrationSummary[]> {

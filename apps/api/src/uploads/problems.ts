@@ -1,15 +1,7 @@
-/**
- * One thing wrong with an uploaded file, located so the analyst can find it in the spreadsheet:
- * `row` is the line number in the file (the header is line 1), `column` the header as written.
- * Errors block a commit; warnings must be acknowledged before committing.
- */
-export interface UploadProblem {
-  row: number | null
-  column: string | null
-  value: string | null
-  message: string
-  severity: 'error' | 'warning'
-}
+import type { UploadProblemDto } from '@ebullio/schemas'
+
+/** One thing wrong with an uploaded file, located by line and column (the shared wire type). */
+export type UploadProblem = UploadProblemDto
 
 /** Shorthand for an error-level problem. */
 export function uploadError(

@@ -15,11 +15,23 @@ export interface PureMeasurement {
   temperatureK: number
   pressurePa: number
   note: string | null
+  thermometer?: string | null
+  still?: string | null
+  /** YYYY-MM-DD */
+  measuredOn?: string | null
+  /** set when it came from a run file */
+  uploadId?: string | null
+  dataSetId?: string | null
+  /** T (K) of the preferred vapour-pressure set at this pressure, and measured − correlated (K) */
+  correlatedK?: number | null
+  dT?: number | null
 }
 
 export interface ComponentDetail extends Component {
   vaporPressureSets: VaporPressureSet[]
   pureMeasurements: PureMeasurement[]
+  /** source of the correlation the measurements are compared with */
+  correlationSource?: string | null
 }
 
 export interface ComponentInput {

@@ -2,7 +2,15 @@
  * Data sets, their points, fits and consistency results (issue 5's `/api/data-sets` routes).
  * Quantities as the server stores them: T in K, P in Pa, compositions as mole fractions of component 1.
  */
-import type { DataSetDto, DataSetStateDto, PointDto, SuggestionCriterionName } from '@ebullio/schemas'
+import type {
+  DataSetDto,
+  DataSetStateDto,
+  FitDetailDto,
+  FitResidualDto,
+  PointDto,
+  SuggestionCriterionName,
+  SystemDto,
+} from '@ebullio/schemas'
 import type { PredictionBand } from '@ebullio/thermo'
 import { api, query } from './client'
 import type { CommentItem } from './comments'
@@ -24,29 +32,10 @@ export interface DataSetListItem extends DataSet {
 export type Point = PointDto
 
 /** One residual of a fit at a point: ΔT in K, Δy1 mole fraction (measured − model). */
-export interface FitResidual {
-  pointId: string
-  dT: number
-  dy: number
-  outlier?: boolean
-  [k: string]: unknown
-}
+export type FitResidual = FitResidualDto
 
-export interface Fit {
-  id: string
-  dataSetId: string
-  model: ModelName
-  options: Record<string, unknown>
-  /** thermo's ActivityModel */
-  activity: Record<string, unknown> & { kind: string }
-  /** standardError null and atBound true when a fitted parameter (NRTL α) was held at its bound */
-  parameters: { name: string; value: number; standardError: number | null; atBound?: boolean; unit?: string }[]
-  statistics: { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean; [k: string]: unknown }
-  residuals: FitResidual[]
-  pointIds: string[]
-  runBy: string
-  runAt: string
-}
+/** A stored fit (the shared wire type). */
+export type Fit = FitDetailDto
 
 export interface ConsistencyResult {
   id: string
@@ -99,31 +88,9 @@ export interface DataSetDetail {
 /** The server answers with the data set's own fields at the top level and its parts beside them. */
 type DetailAnswer = DataSet & Omit<DataSetDetail, 'dataSet' | 'vaporPressure' | 'authorName'>
 
-export interface VaporPressureSet {
-  id?: string
-  componentId?: string
-  kind: 'antoine' | 'clausius-clapeyron'
-  parameters: Record<string, unknown>
-  source?: string
-  preferred?: boolean
-  createdAt?: string
-}
-
-export interface LabComponent {
-  id: string
-  name: string
-  casNumber: string | null
-  molarMass?: number
-  liquidMolarVolume?: number | null
-  vaporPressureSets?: VaporPressureSet[]
-}
-
-export interface LabSystem {
-  id: string
-  name: string
-  component1: LabComponent
-  component2: LabComponent
-}
+/** A vapour-pressure set, a component with its sets, and a binary system: the shared wire types. */
+export type { VaporPressureSet, ComponentDetail as LabComponent } from './components'
+export type LabSystem = SystemDto
 
 /** One line of the append-only audit log of a data set's lineage. */
 export interface AuditEntry {
@@ -163,6 +130,11 @@ export interface NewDataSet {
   nominalPressurePa: number
   apparatusNotes: string | null
   projectRef: string | null
+  /** where the numbers come from (default: measured here by GC), with a citation for literature data */
+  origin?: DataSet['origin']
+  originMethod?: string | null
+  citation?: DataSet['citation']
+  layout?: DataSet['layout']
 }
 
 /** POST …/fits body: models, NRTL α (dimensionless) held or fitted. */

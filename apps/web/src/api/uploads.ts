@@ -1,36 +1,12 @@
 /** GC file uploads: preview (nothing stored) and commit (all or nothing). */
+import type { CalibrationSummaryDto, UploadProblemDto } from '@ebullio/schemas'
 import { api, ApiError, query } from './client'
 
-export interface UploadProblem {
-  /** line in the file; the header is line 1 */
-  row: number | null
-  column: string | null
-  value: string | null
-  message: string
-  severity: 'error' | 'warning'
-}
+/** One thing wrong with an uploaded file (line, column, value, message, severity): the shared wire type. */
+export type UploadProblem = UploadProblemDto
 
 /** A stored calibration as a person recognises it: file, date, model, coefficients ± u, calibrated range, use. */
-export interface CalibrationSummary {
-  id: string
-  gcMethodId: string
-  gcMethodName: string
-  model: 'response-factor' | 'linear' | 'quadratic'
-  status: 'active' | 'retired'
-  coefficientNames: string[]
-  coefficients: number[]
-  standardErrors: number[]
-  /** calibrated range, mole fraction of component 1 */
-  rangeMin: number
-  rangeMax: number
-  createdAt: string
-  retiredAt: string | null
-  uploadId: string
-  originalName: string
-  sha256: string
-  /** data sets (all versions counted once) with points computed with it */
-  dataSetCount: number
-}
+export type CalibrationSummary = CalibrationSummaryDto
 
 /** Which injections of a sample its compositions rest on (a file with errors drops lines). */
 export interface SampleCoverage {

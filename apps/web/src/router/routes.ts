@@ -27,6 +27,16 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: { title: 'Data set', roles: ['analyst', 'lead_chemist', 'reviewer'] },
   },
   {
+    path: WEB_PATHS.instrumentChecks,
+    name: 'checks',
+    component: () => import('../views/checks/InstrumentChecksView.vue'),
+    meta: {
+      title: 'Instrument checks',
+      roles: ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+      nav: { group: 'Laboratory', label: 'Instrument checks', icon: 'pi pi-stopwatch', order: 13 },
+    },
+  },
+  {
     path: WEB_PATHS.approvals,
     name: 'approvals',
     component: () => import('../views/approvals/ApprovalsQueueView.vue'),
@@ -78,8 +88,9 @@ export const appRoutes: RouteRecordRaw[] = [
     component: () => import('../views/admin/AdminComponentsView.vue'),
     meta: {
       title: 'Components',
-      roles: ['admin'],
-      nav: { group: 'Administration', label: 'Components', icon: 'pi pi-box', order: 41 },
+      // the lab records boiling points and creates systems here; only admins and lead chemists edit components
+      roles: ['admin', 'lead_chemist', 'analyst', 'reviewer'],
+      nav: { group: 'Laboratory', label: 'Components and systems', icon: 'pi pi-box', order: 12 },
     },
   },
   {

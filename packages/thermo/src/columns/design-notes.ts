@@ -38,6 +38,14 @@ export function checkNoAzeotropeBetween(
 ): void {
   const az = curve.azeotropes.find((a) => a > low && a < high)
   if (az === undefined) return
+  const two = curve.twoLiquid
+  if (two?.heterogeneousAzeotrope && Math.abs(az - two.y1) < 1e-12) {
+    throw new ThermoError(
+      'azeotrope-in-the-way',
+      `The heterogeneous azeotrope at x1 = ${az.toFixed(4)} (vapour over two liquid layers, x1 = ${two.x1I.toFixed(4)} and ${two.x1II.toFixed(4)}, ${(two.T - 273.15).toFixed(2)} °C) lies between ${lowName} = ${low} and ${highName} = ${high}: a single column cannot cross it; a decanter is needed to cross it (condense the vapour, let it separate into its two layers and take each layer to its own column).`,
+      { azeotropeX1: az, heterogeneous: true, liquidPhases: [two.x1I, two.x1II] },
+    )
+  }
   throw new ThermoError(
     'azeotrope-in-the-way',
     `The azeotrope at x1 = ${az.toFixed(4)} lies between ${lowName} = ${low} and ${highName} = ${high}: distillation at this pressure cannot cross it.`,

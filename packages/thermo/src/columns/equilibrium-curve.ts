@@ -9,6 +9,7 @@ import { ThermoError } from '../errors.js'
 import { bubbleTemperature } from '../equilibrium/index.js'
 import type { BinarySystem } from '../types.js'
 import { monotoneSpline, type MonotoneSpline } from './monotone-spline.js'
+import { twoLiquidCurve } from './two-liquid-curve.js'
 
 /** A row of a published equilibrium table: liquid x1, vapour y1, optionally T in K. */
 export interface EquilibriumTableRow {
@@ -38,6 +39,12 @@ export interface EquilibriumCurve {
   description: string
   /** Warnings from the equilibrium model (e.g. vapour-pressure ranges exceeded), passed on to design results. */
   warnings: string[]
+  /**
+   * The three-phase segment of a partially miscible system: liquids with x1I < x1 < x1II boil as two layers and
+   * are in equilibrium with the three-phase vapour y1 (flat on the x–y curve), at temperature T (K); null otherwise.
+   * `heterogeneousAzeotrope` is true when y1 lies between the two liquids (then x1 = y1 is in `azeotropes`).
+   */
+  twoLiquid?: { x1I: number; x1II: number; y1: number; T: number; heterogeneousAzeotrope: boolean } | null
 }
 
 function positive(v: unknown): v is number {
@@ -64,7 +71,7 @@ function constantAlphaCurve(alpha: number): EquilibriumCurve {
 }
 
 /** Roots of y(x) − x strictly inside (0, 1), found from sign changes on a fine grid and refined by bisection. */
-function findAzeotropes(y: (x: number) => number, grid: number[]): number[] {
+export function findAzeotropes(y: (x: number) => number, grid: number[]): number[] {
   const g = (x: number) => y(x) - x
   const roots: number[] = []
   const inner = grid.filter((x) => x > 1e-6 && x < 1 - 1e-6)
@@ -163,12 +170,15 @@ function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
   const ys: number[] = []
   const Ts: number[] = []
   const warnings = new Set<string>()
+  let tie: [number, number] | null = null
   for (const x of xs) {
     const b = bubbleTemperature(system, { P, x1: x })
     ys.push(b.y1)
     Ts.push(b.T)
+    if (b.liquidPhases) tie = b.liquidPhases
     b.warnings.forEach((w) => warnings.add(w))
   }
+  if (tie) return twoLiquidCurve(system, P, xs, ys, Ts, tie, [...warnings])
   const bad = ys.findIndex((y, i) => i > 0 && !(y > ys[i - 1]))
   if (bad > 0) {
     throw new ThermoError(

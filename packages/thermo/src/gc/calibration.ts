@@ -6,7 +6,8 @@
  */
 import { ThermoError } from '../errors.js'
 import type { Calibration, CalibrationModel, CalibrationStandard, Injection, StandardResidual } from './gc-types.js'
-import { leastSquares, meanAndSd, studentT975, type LeastSquaresFit } from './least-squares.js'
+import { studentT975 } from '../fitting/student-t.js'
+import { leastSquares, meanAndSd, type LeastSquaresFit } from './least-squares.js'
 import { checkInjections, checkMolarMasses, standardMoleFraction } from './validate.js'
 
 /** Replicate injections should agree within about 2 % RSD (common practice, no source). */

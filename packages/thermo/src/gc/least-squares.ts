@@ -1,9 +1,10 @@
 /**
- * Ordinary least squares with the parameter covariance, small and dependency-free:
- * calibrations have 2–10 standards and 1–3 coefficients, so normal equations solved
- * by Gauss–Jordan are accurate enough and keep the maths readable.
+ * Ordinary least squares with the parameter covariance: calibrations have 2–10 standards and 1–3
+ * coefficients, so the normal equations are accurate enough; they are inverted by the fitting module's
+ * scaled Cholesky inverse, the engine's one linear solver.
  */
 import { ThermoError } from '../errors.js'
+import { invertSymmetric } from '../fitting/linear-algebra.js'
 
 /** Result of an ordinary least-squares fit y ≈ X·b. */
 export interface LeastSquaresFit {
@@ -18,30 +19,21 @@ export interface LeastSquaresFit {
   degreesOfFreedom: number
 }
 
-/** Invert a small symmetric positive-definite matrix (Gauss–Jordan with partial pivoting). */
-export function invertMatrix(a: number[][]): number[][] {
-  const n = a.length
-  const m = a.map((row, i) => [...row, ...row.map((_, j) => (i === j ? 1 : 0))])
-  for (let col = 0; col < n; col++) {
-    let pivot = col
-    for (let r = col + 1; r < n; r++) if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) pivot = r
-    const scale = Math.max(...m.map((row) => Math.abs(row[col])), 1e-300)
-    if (Math.abs(m[pivot][col]) < 1e-13 * scale) {
-      throw new ThermoError(
-        'singular-fit',
-        'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.',
-      )
-    }
-    ;[m[col], m[pivot]] = [m[pivot], m[col]]
-    const p = m[col][col]
-    for (let j = 0; j < 2 * n; j++) m[col][j] /= p
-    for (let r = 0; r < n; r++) {
-      if (r === col) continue
-      const f = m[r][col]
-      if (f !== 0) for (let j = 0; j < 2 * n; j++) m[r][j] -= f * m[col][j]
-    }
+/** Largest (XᵀX)⁻¹ diagonal, scaled to unit diagonal, that still counts as determined: 1/(1 − R²) of a coefficient. */
+const MAX_VARIANCE_INFLATION = 1e13
+
+/** (XᵀX)⁻¹ by the fitting module's Cholesky inverse; a singular or nearly singular system is refused. */
+function invertNormalMatrix(xtx: number[][]): number[][] {
+  const p = xtx.length
+  const inv = invertSymmetric(Float64Array.from(xtx.flat()), p)
+  const determined = inv && xtx.every((row, i) => inv[i * p + i] * row[i] <= MAX_VARIANCE_INFLATION)
+  if (!determined) {
+    throw new ThermoError(
+      'singular-fit',
+      'The standards do not determine the calibration: their area ratios are too alike. Add standards spread over the working range.',
+    )
   }
-  return m.map((row) => row.slice(n))
+  return Array.from({ length: p }, (_, i) => Array.from(inv.subarray(i * p, (i + 1) * p)))
 }
 
 /**
@@ -56,7 +48,7 @@ export function leastSquares(X: number[][], y: number[]): LeastSquaresFit {
     Array.from({ length: p }, (_, j) => X.reduce((s, row) => s + row[i] * row[j], 0)),
   )
   const xty = Array.from({ length: p }, (_, i) => X.reduce((s, row, k) => s + row[i] * y[k], 0))
-  const inv = invertMatrix(xtx)
+  const inv = invertNormalMatrix(xtx)
   const coefficients = inv.map((row) => row.reduce((s, v, j) => s + v * xty[j], 0))
   const residuals = X.map((row, k) => y[k] - row.reduce((s, v, j) => s + v * coefficients[j], 0))
   const degreesOfFreedom = n - p
@@ -64,19 +56,6 @@ export function leastSquares(X: number[][], y: number[]): LeastSquaresFit {
   const covariance = inv.map((row) => row.map((v) => v * residualVariance))
   const standardErrors = covariance.map((row, i) => Math.sqrt(Math.max(row[i], 0)))
   return { coefficients, covariance, standardErrors, residuals, residualVariance, degreesOfFreedom }
-}
-
-/**
- * Two-sided 95 % Student-t quantile t(0.975, ν), from the standard printed table
- * (common practice, values from memory to 3 decimals); ν > 30 uses the normal value 1.960.
- */
-export function studentT975(dof: number): number {
-  const table = [
-    12.706, 4.303, 3.182, 2.776, 2.571, 2.447, 2.365, 2.306, 2.262, 2.228, 2.201, 2.179, 2.16, 2.145, 2.131, 2.12, 2.11,
-    2.101, 2.093, 2.086, 2.08, 2.074, 2.069, 2.064, 2.06, 2.056, 2.052, 2.048, 2.045, 2.042,
-  ]
-  if (dof < 1) return Infinity
-  return dof <= 30 ? table[Math.floor(dof) - 1] : 1.96
 }
 
 /** Sample mean and sample standard deviation (n − 1); sd is NaN for one value. */

@@ -8,7 +8,7 @@ import {
   type BinarySystem,
 } from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // Consistency tests on data whose consistency is known by construction: points generated from a gE model
 // (SVNA 7th ed. Table 12.5 1-propanol/water NRTL, S; Table B.2 Antoine, S) obey Gibbs–Duhem; the same

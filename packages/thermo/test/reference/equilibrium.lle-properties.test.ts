@@ -57,9 +57,6 @@ const systemOf = (activity: ActivityModel): BinarySystem => ({
   activity,
 })
 
-/** Relative difference of two positive numbers. */
-const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(a), Math.abs(b))
-
 /** Vapour fugacities yi·P against xi·γi·Pi_sat of one liquid, both components. */
 function vapourMatches(s: BinarySystem, T: number, P: number, y1: number, x: number): void {
   const [g1, g2] = activityCoefficients(s.activity, { x1: x, T })

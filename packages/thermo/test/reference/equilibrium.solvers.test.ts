@@ -5,7 +5,6 @@ import {
   dewPressure,
   dewTemperature,
   phaseDiagram,
-  ThermoError,
   type ActivityModel,
   type BinarySystem,
 } from '../../src/index.js'

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { bubbleTemperature, findAzeotrope, fitBinary, type BinaryPoint, type BinarySystem } from '../../src/index.js'
 import { b2 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // Handbook azeotrope: ethanol–water at 101.325 kPa boils at 78.1–78.2 °C with 95.5–95.6 wt % ethanol,
 // x ≈ 0.89, minimum-boiling (CRC Handbook of Chemistry and Physics, "Azeotropic Data for Binary

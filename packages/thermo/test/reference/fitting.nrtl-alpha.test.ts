@@ -8,7 +8,7 @@ import {
   type BinarySystem,
 } from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // A fitted NRTL α stays within 0.1–0.7 (common practice, no source; Renon and Prausnitz recommended
 // about 0.2–0.47, from memory). Data: acetone/methanol generated from SVNA 7th ed. Table 12.5 Wilson

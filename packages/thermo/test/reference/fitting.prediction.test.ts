@@ -8,7 +8,7 @@ import {
   type BinarySystem,
 } from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // Uncertainty of the fitted curve, checked against data generated from known parameters
 // (SVNA 7th ed. Table 12.5 1-propanol/water NRTL, S) with σT = 0.1 K and σy = 0.005 Gaussian noise.

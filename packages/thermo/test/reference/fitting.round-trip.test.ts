@@ -8,7 +8,7 @@ import {
   type FittableModel,
 } from '../../src/index.js'
 import { b2, CAL, TABLE_12_5 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // Round trips: T–x–y points generated from known parameters under modified Raoult's law, plus Gaussian
 // noise of known σ (σT = 0.1 K, σy = 0.005, the fit's defaults), are fitted back; the true parameters must

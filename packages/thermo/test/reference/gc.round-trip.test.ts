@@ -6,23 +6,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { compositionFromAreas, fitCalibration, type CalibrationModel, type Injection } from '../../src/gc/index.js'
-
-/** mulberry32: a tiny 32-bit PRNG, uniform in [0, 1). */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
-
-/** Standard normal deviates by Box–Muller. */
-function gaussian(uniform: () => number): () => number {
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform())
-}
+import { gaussian, mulberry32 } from '../../src/random.js'
 
 const TRUE_K = 1.37
 const RELATIVE_NOISE = 0.008 // 0.8 % on each peak area
@@ -35,7 +19,8 @@ function injections(x1: number, count: number, normal: () => number): Injection[
 }
 
 function trial(seed: number, model: CalibrationModel, sampleX1: number) {
-  const normal = gaussian(mulberry32(seed))
+  const uniform = mulberry32(seed)
+  const normal = () => gaussian(uniform)
   const standards = [0.1, 0.25, 0.4, 0.55, 0.7, 0.85].map((x1) => ({
     composition: { x1 },
     injections: injections(x1, 3, normal),

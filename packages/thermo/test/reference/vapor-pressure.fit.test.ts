@@ -2,7 +2,7 @@ import psychrolib from 'psychrolib'
 import { describe, expect, it } from 'vitest'
 import { fitAntoine, fitClausiusClapeyron, saturationTemperature, vaporPressure } from '../../src/index.js'
 import { b2 } from './helpers/constants.js'
-import { prng } from './helpers/prng.js'
+import { seededRandom as prng } from '../../src/random.js'
 
 // Round trips: points generated from SVNA Table B.2 constants (benzene, S) are fitted back.
 const benzene = b2('benzene')

@@ -52,18 +52,15 @@ export function labelWithNote(label: string, note: string): string {
   return label.endsWith(')') ? `${label.slice(0, -1)}; ${note})` : `${label} (${note})`
 }
 
-/** The two vapour-pressure models, wherever the server put them; null when the system has none yet. */
+/**
+ * The two vapour-pressure models the workspace store read for the system (the components' preferred sets);
+ * null while they are unknown or when the system has none yet.
+ */
 export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPressureModel] | null {
   const direct = d.vaporPressure
-  if (Array.isArray(direct) && direct.length === 2) return direct as unknown as [VaporPressureModel, VaporPressureModel]
-  const pick = (c: DataSetDetail['system']['component1']) => {
-    const sets = c.vaporPressureSets ?? []
-    const s = sets.find((v) => v.preferred) ?? sets[0]
-    return s ? (s.parameters as unknown as VaporPressureModel) : null
-  }
-  const a = pick(d.system.component1)
-  const b = pick(d.system.component2)
-  return a && b ? [a, b] : null
+  return Array.isArray(direct) && direct.length === 2
+    ? (direct as unknown as [VaporPressureModel, VaporPressureModel])
+    : null
 }
 
 export interface FitCurve {

@@ -11,6 +11,9 @@ export interface LineOptionInput {
   y2Name?: string
   xMin?: number
   xMax?: number
+  /** Fixed y range (e.g. 0–1 for compositions, so the axis never runs below zero) */
+  yMin?: number
+  yMax?: number
   /** A vertical cursor at this x (e.g. the animation's current time). */
   cursorX?: number | null
   /** A dotted horizontal reference line at this y (e.g. α = 1). */
@@ -24,6 +27,15 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
   const hasRight = o.series.some((s) => s.rightAxis)
   const series: Record<string, unknown>[] = o.series.map((s, i) => {
     const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
+    if (s.scatter)
+      return {
+        type: 'scatter',
+        name: s.name,
+        color: colour,
+        yAxisIndex: s.rightAxis && hasRight ? 1 : 0,
+        symbolSize: 8,
+        data: s.x.map((x, j) => [x, s.y[j]]),
+      }
     return {
       type: 'line',
       name: s.name,
@@ -67,7 +79,7 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
       },
     })
   }
-  const yAxis = [valueAxis(o.yName, { scale: true, nameGap: 48 })]
+  const yAxis = [valueAxis(o.yName, { scale: o.yMin === undefined, nameGap: 48, min: o.yMin, max: o.yMax })]
   if (hasRight)
     yAxis.push(valueAxis(o.y2Name ?? '', { scale: true, nameGap: 48, position: 'right', splitLine: { show: false } }))
   const { legend, top } = legendFor(

@@ -47,7 +47,10 @@ export function escapeHtml(s: unknown): string {
 
 /** A number for a tooltip, with a fixed count of decimals and no trailing noise. */
 export function fmt(v: number | null | undefined, digits = 4): string {
-  return v === null || v === undefined || !Number.isFinite(v) ? '–' : v.toFixed(digits)
+  if (v === null || v === undefined || !Number.isFinite(v)) return '–'
+  // a value that rounds to zero shows no sign ("0.0000", never "-0.0000"); negatives take the true minus "−"
+  const s = v.toFixed(digits)
+  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s.replace(/^-/, '−')
 }
 
 /** Value axis with Ebullio's grid look. */

@@ -141,4 +141,6 @@ export interface LineSeries {
   /** Put it on the second (right) y axis. */
   rightAxis?: boolean
   hidden?: boolean
+  /** Markers only, no line (measured values beside a correlation). */
+  scatter?: boolean
 }
