@@ -4,7 +4,8 @@
  * cell that a spreadsheet would run as a formula (starting with = + - @ tab or CR) gets a leading apostrophe,
  * while numbers stay numbers.
  */
-import { stringify } from 'csv-stringify/sync'
+// the browser build (its own Buffer shim) runs in Node and in the web app alike
+import { stringify } from 'csv-stringify/browser/esm/sync'
 
 /** A number already formatted for the file (fixed decimals or exponent): written as is, never neutralised. */
 export class CsvNumber {

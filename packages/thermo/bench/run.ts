@@ -8,7 +8,7 @@
 import { spawnSync } from 'node:child_process'
 import { existsSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
-import { bubbleTemperature, fitBinary, type BinaryPoint, type BinarySystem } from '../src/index.js'
+import { bubbleTemperature, fitBinary, R, type BinaryPoint, type BinarySystem } from '../src/index.js'
 import { compileVaporPressure } from '../src/vapor-pressure/compiled.js'
 import { b2, CAL, TABLE_12_5 } from '../test/reference/helpers/constants.js'
 import { seededRandom as prng } from '../src/random.js'
@@ -19,6 +19,18 @@ const ideal: BinarySystem = { vaporPressure: [b2('benzene'), b2('toluene')], act
 const nrtl: BinarySystem = {
   vaporPressure: [b2('1-propanol'), b2('water')],
   activity: { kind: 'nrtl', b12: pw.b12 * CAL, b21: pw.b21 * CAL, alpha: pw.alpha },
+}
+
+/**
+ * Partially miscible: water (1) – 1-butanol (2), ChemSep NRTL parameters as distributed in Python `thermo` 0.6.1,
+ * Poling Antoine constants (`chemicals` 1.5.2). At 1 atm about 40 % of the compositions 0…1 lie on the three-phase
+ * tie line and get the heterogeneous bubble point.
+ */
+const antoineK = (A: number, B: number, C: number) =>
+  ({ kind: 'antoine', A, B, C, log: 'log10', pressureUnit: 'Pa', temperatureUnit: 'K' }) as const
+const heterogeneous: BinarySystem = {
+  vaporPressure: [antoineK(10.11564, 1687.537, -42.98), antoineK(9.6493, 1395.14, -90.411)],
+  activity: { kind: 'nrtl', b12: 1325.3268195999854 * R, b21: 253.64181754760426 * R, alpha: 0.4447 },
 }
 
 function median(values: number[]): number {
@@ -142,11 +154,12 @@ async function main(): Promise<void> {
   for (const [name, system, target] of [
     ['ideal (benzene–toluene)', ideal, 2e6],
     ['NRTL (1-propanol–water)', nrtl, 1e6],
+    ['heterogeneous NRTL (water–1-butanol, 40 % on the tie line)', heterogeneous, 0],
   ] as const) {
     const { rate, cpuRate, iterations } = solvesPerSecond(system)
     const n = (v: number) => Math.round(v).toLocaleString('en-US')
     console.log(
-      `  bubbleTemperature, ${name}: ${n(cpuRate)} solves per CPU-second (${n(rate)} by wall clock), ${iterations.toFixed(2)} Newton iterations; target ≥ ${n(target)} ${cpuRate >= target ? 'met' : 'MISSED'}`,
+      `  bubbleTemperature, ${name}: ${n(cpuRate)} solves per CPU-second (${n(rate)} by wall clock), ${iterations.toFixed(2)} Newton iterations; ${target > 0 ? `target ≥ ${n(target)} ${cpuRate >= target ? 'met' : 'MISSED'}` : 'no target (reported separately)'}`,
     )
   }
   const points30 = dataSet(30)

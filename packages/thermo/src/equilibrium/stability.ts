@@ -10,7 +10,7 @@
  */
 import { lnGammaT } from '../activity/kernel.js'
 import type { ActivityModel } from '../types.js'
-import { LLE_GRID, liquidGaps, type LiquidGap } from './lle.js'
+import { LLE_GRID, liquidGaps, solveGap, type LiquidGap } from './lle.js'
 
 /** Smallest Γ a band must keep to be declared single-liquid (dimensionless; a safety margin for the grid). */
 const MARGIN = 0.02
@@ -69,11 +69,22 @@ function snapshot(act: ActivityModel): number[] {
   }
 }
 
-function same(act: ActivityModel, kind: string, values: number[]): boolean {
+/** Whether the model still has the numbers remembered (no allocation: this runs on every solver call). */
+function same(act: ActivityModel, kind: string, v: number[]): boolean {
   if (act.kind !== kind) return false
-  const now = snapshot(act)
-  for (let i = 0; i < now.length; i++) if (now[i] !== values[i]) return false
-  return true
+  switch (act.kind) {
+    case 'margules':
+    case 'van-laar':
+      return act.A12 === v[0] && act.A21 === v[1]
+    case 'nrtl':
+      return act.b12 === v[0] && act.b21 === v[1] && act.alpha === v[2]
+    case 'uniquac':
+      return (
+        act.a12 === v[0] && act.a21 === v[1] && act.r1 === v[2] && act.r2 === v[3] && act.q1 === v[4] && act.q2 === v[5]
+      )
+    default:
+      return true
+  }
 }
 
 /** What is remembered about one activity model. */
@@ -113,22 +124,44 @@ export class LiquidStability {
     return unsafe
   }
 
-  /** Every two-liquid gap at T (K), remembered for the last temperature asked (and forever for Margules/Van Laar). */
+  /**
+   * Every two-liquid gap at T (K), remembered for the last temperature asked (and forever for Margules/Van Laar).
+   * Within 2 K of a temperature where the full search found exactly one gap, that gap is continued by Newton
+   * from its compositions instead of searched afresh (the grid and hull cost ~20× more); a second gap appearing
+   * within those 2 K is assumed absent.
+   */
   gaps(T: number): LiquidGap[] {
     if (!this.canSplit) return []
     const key = this.isothermalModel ? 0 : T
     if (key === this.lastT) return this.lastGaps
-    const gaps = this.maySplit(T) ? liquidGaps(this.act, this.isothermalModel ? 300 : T) : []
+    let gaps: LiquidGap[] | null = null
+    if (!this.maySplit(T)) gaps = []
+    else if (!this.isothermalModel && this.anchorGaps.length === 1 && Math.abs(T - this.anchorT) <= 2) {
+      const a = this.anchorGaps[0]
+      const g = solveGap(this.act, T, Math.log(a.xI / (1 - a.xI)), Math.log(a.xII / (1 - a.xII)))
+      if (g && Math.abs(g.xI - a.xI) < 0.05 && Math.abs(g.xII - a.xII) < 0.05) gaps = [g]
+    }
+    if (!gaps) {
+      gaps = liquidGaps(this.act, this.isothermalModel ? 300 : T)
+      this.anchorT = T
+      this.anchorGaps = gaps
+    }
     this.lastT = key
     this.lastGaps = gaps
     return gaps
   }
+  private anchorT = NaN
+  private anchorGaps: LiquidGap[] = []
 }
 
 const memory = new WeakMap<object, LiquidStability>()
 
+/** Ideal and Wilson liquids never split: one shared answer, no memory needed. */
+const NEVER = new LiquidStability({ kind: 'ideal' })
+
 /** The remembered stability facts of an activity model (created on first use). */
 export function stabilityOf(act: ActivityModel): LiquidStability {
+  if (act.kind === 'ideal' || act.kind === 'wilson') return NEVER
   const known = memory.get(act)
   if (known && same(act, known.kind, known.values)) return known
   const fresh = new LiquidStability(act)
