@@ -104,13 +104,11 @@ async function perform(id: string, a: Action): Promise<number> {
     case 'include': {
       const p = d.points[a.index % d.points.length]
       return (
-        await author
-          .patch(`/api/data-sets/${id}/points/${p.id}`)
-          .send({
-            rowVersion: d.rowVersion,
-            excluded: a.kind === 'exclude',
-            reason: a.kind === 'exclude' ? 'check' : null,
-          })
+        await author.patch(`/api/data-sets/${id}/points/${p.id}`).send({
+          rowVersion: d.rowVersion,
+          excluded: a.kind === 'exclude',
+          reason: a.kind === 'exclude' ? 'check' : null,
+        })
       ).status
     }
     case 'fit':

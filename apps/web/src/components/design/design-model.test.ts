@@ -51,6 +51,25 @@ describe('diagramsAt (benzene–toluene, ideal, 101.325 kPa)', () => {
     expect(lines).toHaveLength(3 + d.x1.length)
   })
 
+  it('writes in each row the numbers the engine computed, at the printed precision, and they are VLE', () => {
+    const rows = (
+      parse(curveTableCsv(d, ['benzene', 'toluene'], 'Ideal'), { comment: '#', from_line: 2 }) as string[][]
+    ).map((r) => r.map(Number))
+    expect(rows).toHaveLength(d.x1.length)
+    rows.forEach(([x1, y1, tK, tC, alpha], i) => {
+      expect(Math.abs(x1 - d.x1[i])).toBeLessThanOrEqual(5e-7)
+      expect(Math.abs(y1 - d.y1[i])).toBeLessThanOrEqual(5e-7)
+      expect(Math.abs(tK - d.T[i])).toBeLessThanOrEqual(5e-4)
+      expect(Math.abs(tC - (tK - 273.15))).toBeLessThanOrEqual(1e-3)
+      expect(Math.abs(alpha - d.alpha[i])).toBeLessThanOrEqual(5e-6)
+    })
+    // The equimolar row boils near 92 °C (common practice, no source) and its vapour's dew point, found by the
+    // engine's other solver, is the same temperature.
+    const mid = rows.find(([x1]) => x1 === 0.5)!
+    expect(Math.abs(mid[3] - 92)).toBeLessThan(1.5)
+    expect(Math.abs(dewTemperature(benzeneToluene, { P: 101325, y1: mid[1] }).T - mid[2])).toBeLessThan(2e-3)
+  })
+
   it('keeps a hostile component name inside its comment cell (no cell of its own starts a formula)', () => {
     const text = curveTableCsv(d, ['x,=cmd|"/c calc"!A1', 'toluene'], 'Ideal')
     const first = parse(text, { relax_column_count: true })[0] as string[]
