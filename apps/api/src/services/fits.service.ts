@@ -274,7 +274,13 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   onlyLeadOnceSubmitted(user, d, 'running consistency tests')
   const all = await listPoints(db, id)
   const pointSet = pointSetOf(all)
-  const pts = included(all).map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1 }))
+  const pts = included(all).map((p) => ({
+    T: p.temperatureK,
+    P: p.pressurePa,
+    x1: p.x1,
+    y1: p.y1,
+    heterogeneous: p.heterogeneous,
+  }))
   if (pts.length === 0) throw conflict('This data set has no included points to test.')
   const inputs = await engineInputs(db, d.systemId)
   const area = thermo('Area test', () => heringtonAreaTest(pts, { vaporPressure: inputs.vaporPressure }))

@@ -14,9 +14,10 @@ export interface AreaIntegrandPoint {
  * compositions (no extrapolation to the pure ends). Pure-end points and excluded points are left out.
  */
 export function areaIntegrals(
-  points: BinaryPoint[],
+  allPoints: BinaryPoint[],
   vaporPressure: [VaporPressureModel, VaporPressureModel],
 ): { integrand: AreaIntegrandPoint[]; area: number; absArea: number; D: number } {
+  const points = withoutTwoLayerPoints(allPoints)
   const usable = Array.isArray(points)
     ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1).length
     : 0
@@ -59,4 +60,22 @@ function insufficient(n: number): ThermoError {
     'insufficient-data',
     `The area test needs at least 3 mixture points with 0 < x1 < 1 and 0 < y1 < 1; got ${n}.`,
   )
+}
+
+/**
+ * Two-layer (heterogeneous) points left out of a consistency test: their overall liquid composition is not the
+ * composition of one liquid, so ln γ computed from it means nothing. They are treated as excluded.
+ */
+export function withoutTwoLayerPoints(points: BinaryPoint[]): BinaryPoint[] {
+  if (!Array.isArray(points) || !points.some((p) => p?.heterogeneous)) return points
+  return points.map((p) => (p?.heterogeneous ? { ...p, excluded: true } : p))
+}
+
+/** The warning a consistency test gives when it left two-layer points out. */
+export function twoLayerWarnings(points: BinaryPoint[]): string[] {
+  const n = Array.isArray(points) ? points.filter((p) => p?.heterogeneous && !p.excluded).length : 0
+  if (n === 0) return []
+  return [
+    `${n} two-layer point${n > 1 ? 's were' : ' was'} left out: the test needs the composition of one liquid, and a two-layer sample has two.`,
+  ]
 }

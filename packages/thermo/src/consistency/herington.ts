@@ -2,7 +2,7 @@ import type { BinaryPoint } from '../fitting/fit-input.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { saturationTemperature } from '../vapor-pressure/index.js'
 import type { VaporPressureModel } from '../types.js'
-import { areaIntegrals } from './area-integrand.js'
+import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints } from './area-integrand.js'
 
 /** Result of {@link heringtonAreaTest}. */
 export interface HeringtonResult {
@@ -37,14 +37,14 @@ export function heringtonAreaTest(
   options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
 ): HeringtonResult {
   const { integrand, D } = areaIntegrals(points, options.vaporPressure)
-  const kept = points.filter((p) => !p.excluded)
+  const kept = withoutTwoLayerPoints(points).filter((p) => !p.excluded)
   const meanP = kept.reduce((sum, p) => sum + p.P, 0) / kept.length
   const pureBoiling = options.vaporPressure.map((m) => saturationTemperature(m, meanP))
   const temps = [...kept.map((p) => p.T), ...pureBoiling]
   const Tmin = Math.min(...temps)
   const Tmax = Math.max(...temps)
   const J = (150 * (Tmax - Tmin)) / Tmin
-  const warnings: string[] = spanWarnings(options.vaporPressure, Tmin, Tmax)
+  const warnings: string[] = [...twoLayerWarnings(points), ...spanWarnings(options.vaporPressure, Tmin, Tmax)]
   const pressures = kept.map((p) => p.P)
   if (Math.max(...pressures) > 1.01 * Math.min(...pressures)) {
     warnings.push('The pressures differ by more than 1 %; the area test is meant for isobaric data.')

@@ -4,6 +4,7 @@ import { fitTemperatureOnly } from '../fitting/fit-binary.js'
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { FittableModel, UniquacStructure } from '../fitting/parameters.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
+import { twoLayerWarnings, withoutTwoLayerPoints } from './area-integrand.js'
 import type { ActivityModel, VaporPressureModel } from '../types.js'
 
 /** Options of {@link pointTest}: the model fitted to T–x, with its extra inputs as in fitBinary. */
@@ -31,7 +32,8 @@ export interface PointTestResult {
  * the measured y. Passes when the mean |Δy| over the mixture points is below 0.01.
  * @param points T in K, P in Pa, mole fractions; excluded points are neither fitted nor averaged.
  */
-export function pointTest(points: BinaryPoint[], options: PointTestOptions): PointTestResult {
+export function pointTest(allPoints: BinaryPoint[], options: PointTestOptions): PointTestResult {
+  const points = withoutTwoLayerPoints(allPoints)
   const fit = fitTemperatureOnly({ points, ...options })
   const c = compileSystem({ vaporPressure: options.vaporPressure, activity: fit.activity })
   const tested = new Set(fit.index)
@@ -43,7 +45,10 @@ export function pointTest(points: BinaryPoint[], options: PointTestOptions): Poi
   const used = residuals.filter((r) => Number.isFinite(r.dy))
   const meanAbsDeltaY = used.reduce((s, r) => s + Math.abs(r.dy), 0) / used.length
   const temps = fit.index.map((i) => points[i].T)
-  const warnings = spanWarnings(options.vaporPressure, Math.min(...temps), Math.max(...temps))
+  const warnings = [
+    ...twoLayerWarnings(allPoints),
+    ...spanWarnings(options.vaporPressure, Math.min(...temps), Math.max(...temps)),
+  ]
   if (!fit.converged) warnings.push('The T–x fit stopped before it fully converged.')
   return { meanAbsDeltaY, residuals, passed: meanAbsDeltaY < 0.01, activity: fit.activity, warnings }
 }

@@ -1,6 +1,6 @@
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { VaporPressureModel } from '../types.js'
-import { areaIntegrals, type AreaIntegrandPoint } from './area-integrand.js'
+import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints, type AreaIntegrandPoint } from './area-integrand.js'
 
 /** Result of {@link redlichKisterAreaTest}. */
 export interface RedlichKisterResult {
@@ -28,10 +28,10 @@ export function redlichKisterAreaTest(
   options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
 ): RedlichKisterResult {
   const { integrand, D } = areaIntegrals(points, options.vaporPressure)
-  const kept = points.filter((p) => !p.excluded)
+  const kept = withoutTwoLayerPoints(points).filter((p) => !p.excluded)
   const temps = kept.map((p) => p.T)
   const T = temps.reduce((s, t) => s + t, 0) / temps.length
-  const warnings: string[] = []
+  const warnings: string[] = twoLayerWarnings(points)
   if (Math.max(...temps) - Math.min(...temps) > 0.5) {
     warnings.push(
       'The temperatures differ by more than 0.5 K; the Redlich–Kister area test is meant for isothermal data.',
