@@ -15,7 +15,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .createIndex('mail_outbox_pending_idx')
     .on('mail_outbox')
     .columns(['next_attempt_at', 'id'])
-    .where(sql.raw('sent_at is null and failed_at is null'))
+    .where(sql<boolean>`sent_at is null and failed_at is null`)
     .execute()
 
   await db.schema

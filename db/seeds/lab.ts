@@ -8,6 +8,7 @@
  * Idempotent: every step first looks for what it would create and skips it when present, so a second
  * `npm start` neither duplicates nor wipes anything.
  */
+import { DEMO_PROPERTIES } from './demo-properties.js'
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../../apps/api/src/auth/index.js'
 import { loadConfig, type Config } from '../../apps/api/src/config.js'
@@ -71,7 +72,14 @@ async function seedComponents(db: Kysely<Database>, adminId: string): Promise<Re
     }
     const row = await insertComponent(
       db,
-      { name: c.name, casNumber: c.cas, formula: c.formula, molarMass: c.molarMass, liquidMolarVolume: c.molarVolume },
+      {
+        name: c.name,
+        casNumber: c.cas,
+        formula: c.formula,
+        molarMass: c.molarMass,
+        liquidMolarVolume: c.molarVolume,
+        properties: DEMO_PROPERTIES[c.cas] ?? null,
+      },
       adminId,
     )
     const m = demoVaporPressure(c.name)

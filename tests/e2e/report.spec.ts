@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs'
+import { readFileSync, writeFileSync } from 'node:fs'
 import { expect, test, type Page } from '@playwright/test'
 import pg from 'pg'
 import { DEMO, shot, signIn } from './support/helpers'
@@ -97,4 +97,31 @@ test('an analyst prints a returned version; after a point is excluded the verify
   await expect(first).not.toContainText('Excluded')
   await page.goto(`/verify/${r.id}`)
   await expect(page.getByTestId('verify-verdict')).toContainText('The stored record matches this report.')
+})
+
+test('an exported plot carries its title block and only the curves drawn on screen', async ({ page }) => {
+  test.setTimeout(150_000)
+  const ds = await one<{ id: string }>("select id from data_set where title like 'Kestrel acetone recycle%'", [])
+  await signIn(page, DEMO.reviewer)
+  await page.goto(`/datasets/${ds.id}`)
+  const txy = page.getByRole('group', { name: /T–x–y diagram/ })
+  await expect(txy).toBeVisible({ timeout: 30_000 })
+  await expect(page.getByTestId('curves-drawn')).toContainText('NRTL', { timeout: 30_000 })
+  // NRTL switched off in the fit table: it is not drawn, so it is not exported either
+  await page.getByRole('checkbox', { name: 'Draw NRTL' }).uncheck()
+  await expect(page.getByTestId('curves-drawn')).not.toContainText('NRTL')
+
+  const [svgDl] = await Promise.all([page.waitForEvent('download'), txy.getByTestId('export-svg').click()])
+  const svg = readFileSync((await svgDl.path())!, 'utf8')
+  expect(svg).toContain('acetone / methanol · T–x–y diagram at 101.33 kPa')
+  expect(svg).toContain('version 1 · approved, signed by Dr. Tobias Lindqvist on ')
+  expect(svg).toMatch(/Exported from Ebullio \d{4}-\d\d-\d\d \d\d:\d\d UTC/)
+  expect(svg).toContain('Wilson')
+  expect(svg).not.toContain('NRTL')
+
+  const [pngDl] = await Promise.all([page.waitForEvent('download'), txy.getByTestId('export-png').click()])
+  const png = readFileSync((await pngDl.path())!)
+  expect(png.subarray(1, 4).toString('latin1')).toBe('PNG')
+  // kept beside the screenshots so the exported picture can be looked at
+  writeFileSync('tests/artifacts/screens/report-04-exported-txy.png', png)
 })

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Access } from '../src/routes/define.js'
 import { allRoutes } from '../src/routes/index.js'
 import { agent, createTestContext, createUser, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
+import { buildLab, draftWithPoints } from './lab-fixture.js'
 
 /**
  * Who may call each route. Every route in `allRoutes` must be listed here: add new routes to this table.
@@ -93,13 +94,14 @@ const expected: Record<string, Access> = {
 }
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`
-const concrete = (path: string) =>
-  path.replace(/:(\w+)/g, (_m, name: string) =>
-    name === 'token' ? 'x'.repeat(40) : '00000000-0000-4000-8000-000000000000',
-  )
+const INVENTED = '00000000-0000-4000-8000-000000000000'
+const concrete = (path: string, ids: (name: string, path: string) => string = () => INVENTED) =>
+  path.replace(/:(\w+)/g, (_m, name: string) => (name === 'token' ? 'x'.repeat(40) : ids(name, path)))
 
 let t: TestContext
 const agents: Partial<Record<Role, Awaited<ReturnType<typeof signedInAgent>>>> = {}
+/** Real objects of other people (a lab built by other users): the matrix users own none of them. */
+const real: Record<string, string> = {}
 beforeAll(async () => {
   t = await createTestContext()
   await resetDatabase(t.db)
@@ -107,8 +109,36 @@ beforeAll(async () => {
     await createUser(t.db, { email: `${role}@matrix.test`, roles: [role] })
     agents[role] = await signedInAgent(t.app, `${role}@matrix.test`)
   }
+  const lab = await buildLab(t)
+  const d = await draftWithPoints(t, lab, 'Someone else’s series')
+  await lab.analyst
+    .post(`/api/data-sets/${d.id}/fits`)
+    .send({ models: ['wilson'] })
+    .expect(201)
+  const comment = await lab.reviewer.post(`/api/data-sets/${d.id}/comments`).send({ body: 'A question.' }).expect(201)
+  const first = async (table: 'point' | 'fit' | 'upload' | 'component') =>
+    (await t.db.selectFrom(table).select('id').orderBy('id').executeTakeFirstOrThrow()).id
+  Object.assign(real, {
+    'data-sets': d.id,
+    users: lab.ids.analyst2,
+    calibrations: lab.calibrationId,
+    'gc-methods': lab.gcMethodId,
+    systems: lab.systemId,
+    components: await first('component'),
+    uploads: await first('upload'),
+    pointId: await first('point'),
+    fitId: await first('fit'),
+    commentId: comment.body.id,
+  })
 })
 afterAll(() => t.close())
+
+/** The real id for a parameter: by its name (`pointId`), or for `:id` by the resource before it (`/api/systems/:id`). */
+function realId(name: string, path: string): string {
+  if (name !== 'id') return real[name] ?? INVENTED
+  const resource = path.match(/\/api\/(?:admin\/)?([\w-]+)\/:id/)?.[1] ?? ''
+  return real[resource] ?? INVENTED
+}
 
 describe('authorization matrix', () => {
   it('lists every route', () => {
@@ -118,20 +148,33 @@ describe('authorization matrix', () => {
     expect(stale, 'matrix entries for routes that no longer exist').toEqual([])
   })
 
-  for (const route of allRoutes) {
+  // Destructive routes run last, so the real objects exist for every other route.
+  const destructive = (r: { method: string; path: string }) =>
+    r.method === 'delete' || /\/(deactivate|retire|approve|return|submit|revise)$/.test(r.path)
+  const ordered = [...allRoutes.filter((r) => !destructive(r)), ...allRoutes.filter(destructive)]
+  for (const route of ordered) {
     const access = expected[key(route)]
     if (!access || key(route) === 'POST /api/auth/sign-out') continue
-    it(`${key(route)} is ${Array.isArray(access) ? access.join('|') : access}`, async () => {
-      const call = (a: ReturnType<typeof agent>) => a[route.method](concrete(route.path)).send({})
-      const anon = await call(agent(t.app))
-      if (access === 'public') expect([401, 403]).not.toContain(anon.status)
-      else expect(anon.status).toBe(401)
-      for (const role of ROLES) {
-        const r = await call(agents[role]!)
-        const allowed = access === 'public' || access === 'authenticated' || access.includes(role)
-        if (allowed) expect([401, 403], `${role} should be allowed`).not.toContain(r.status)
-        else expect(r.status, `${role} should be refused`).toBe(403)
-      }
-    })
+    for (const which of ['invented', 'real'] as const) {
+      if (which === 'real' && !route.path.includes('/:')) continue
+      it(`${key(route)} is ${Array.isArray(access) ? access.join('|') : access} (${which} ids)`, async () => {
+        const url = which === 'real' ? concrete(route.path, realId) : concrete(route.path)
+        const call = (a: ReturnType<typeof agent>) => a[route.method](url).send({})
+        const anon = await call(agent(t.app))
+        expect(anon.status, `anonymous: ${JSON.stringify(anon.body)}`).toBeLessThan(500)
+        if (access === 'public') expect([401, 403]).not.toContain(anon.status)
+        else expect(anon.status).toBe(401)
+        for (const role of ROLES) {
+          const r = await call(agents[role]!)
+          // a 500 is a failure whoever calls: the server must answer every request it can parse
+          expect(r.status, `${role}: ${JSON.stringify(r.body)}`).toBeLessThan(500)
+          const allowed = access === 'public' || access === 'authenticated' || access.includes(role)
+          if (!allowed) expect(r.status, `${role} should be refused`).toBe(403)
+          // with real ids an allowed role may still be refused by ownership (someone else's draft): 403 or 404 then
+          else if (which === 'invented') expect([401, 403], `${role} should be allowed`).not.toContain(r.status)
+          else expect(r.status, `${role} should be allowed past the role check`).not.toBe(401)
+        }
+      })
+    }
   }
 })

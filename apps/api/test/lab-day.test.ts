@@ -313,6 +313,12 @@ describe('literature data in the signed record and in approval', () => {
     expect(ok.status, JSON.stringify(ok.body)).toBe(200)
     const verify = await lab.lead.get(`/api/data-sets/${d.id}/signatures/verify`).expect(200)
     expect(JSON.stringify(verify.body)).toContain('"matches":true')
+    // the exports carry the origin and the citation
+    const json = await lab.engineer.get(`/api/data-sets/${d.id}/export/parameters.json`).expect(200)
+    expect(json.body.dataSet).toMatchObject({ origin: 'literature', citation, countsAsOwn: true })
+    const csvText = (await lab.engineer.get(`/api/data-sets/${d.id}/export/parameters.csv`).expect(200)).text
+    expect(csvText).toContain(',data-set,,origin,literature,')
+    expect(csvText).toContain('A. Author, B. Author (1987). Vapour-liquid equilibrium of acetone and methanol')
   })
 })
 

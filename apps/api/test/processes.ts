@@ -47,21 +47,27 @@ export async function waitFor(url: string, ok: (status: number) => boolean, time
 }
 
 /** Start `apps/api/src/server.ts` with these settings and wait until /api/health answers. */
-export async function startApi(env: Record<string, string>): Promise<ApiProcess> {
+export async function startApi(env: Record<string, string>, o: { built?: boolean } = {}): Promise<ApiProcess> {
   const port = Number(env.PORT ?? (await freePort()))
   const url = `http://127.0.0.1:${port}`
   // node --import tsx/esm: one process (no tsx wrapper), so a signal reaches the app itself.
-  const proc = spawn(process.execPath, ['--import', tsxLoader, path.join(repoRoot, 'apps/api/src/server.ts')], {
+  // built: the production bundle (apps/api/dist/server.js) with plain node.
+  const args = o.built
+    ? [path.join(repoRoot, 'apps/api/dist/server.js')]
+    : ['--import', tsxLoader, path.join(repoRoot, 'apps/api/src/server.ts')]
+  const fullEnv: Record<string, string | undefined> = {
+    ...process.env,
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'warn',
+    PUBLIC_URL: url,
+    FAKE_SMTP: 'false',
+    ...env,
+    PORT: String(port),
+  }
+  for (const k of Object.keys(fullEnv)) if (fullEnv[k] === '') delete fullEnv[k] // '' = leave unset
+  const proc = spawn(process.execPath, args, {
     cwd: repoRoot,
-    env: {
-      ...process.env,
-      NODE_ENV: 'test',
-      LOG_LEVEL: 'warn',
-      PUBLIC_URL: url,
-      FAKE_SMTP: 'false',
-      ...env,
-      PORT: String(port),
-    },
+    env: fullEnv,
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let out = ''

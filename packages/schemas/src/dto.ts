@@ -1,3 +1,4 @@
+import type { ComponentProperties } from './component-properties.js'
 /**
  * Types only: the JSON the API answers with and the web app reads, for the engineer and admin screens
  * (components, systems, points, fits, the catalogue, GC methods and calibrations). `D` is the type of a
@@ -16,6 +17,8 @@ export interface ComponentDto<D = string> {
   molarMass: number
   /** cm³/mol */
   liquidMolarVolume: number | null
+  /** Critical constants and structure parameters with their source; null when not entered. */
+  properties: ComponentProperties | null
   rowVersion: number
   createdAt: D
 }

@@ -1,3 +1,4 @@
+import { componentPropertiesSchema } from './component-properties.js'
 import { z } from 'zod'
 import { checkOrigin, citationSchema, DATA_ORIGINS, originFields } from './direct-data.js'
 
@@ -65,6 +66,10 @@ export const componentSchema = z.object({
     .nullable()
     .optional()
     .transform((v) => v ?? null),
+  properties: componentPropertiesSchema
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
 })
 /** PATCH /api/components/:id (send the rowVersion you loaded). */
 export const componentPatchSchema = z.object({
@@ -74,6 +79,7 @@ export const componentPatchSchema = z.object({
   formula: text(60).nullable().optional(),
   molarMass: z.number().positive().optional(),
   liquidMolarVolume: z.number().positive().nullable().optional(),
+  properties: componentPropertiesSchema.nullable().optional(),
 })
 
 const range = z

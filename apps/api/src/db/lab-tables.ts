@@ -1,3 +1,4 @@
+import type { ComponentProperties } from '@ebullio/schemas'
 /**
  * Tables of the lab workflow, typed for Kysely (see db/migrations/20261201_02_lab_data.ts).
  * Quantities in SI: temperatures in K, pressures in Pa, compositions as mole fractions of component 1.
@@ -22,6 +23,8 @@ export interface ComponentTable {
   molar_mass: number
   /** cm³/mol at about 25 °C */
   liquid_molar_volume: number | null
+  /** Critical constants and structure parameters (ComponentProperties), null when not entered. */
+  properties: ComponentProperties | null
   created_by: string | null
   created_at: DefaultTimestamp
   row_version: Generated<number>

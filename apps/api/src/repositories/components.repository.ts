@@ -17,6 +17,7 @@ export const toComponent = (c: Component): ComponentRecord => ({
   formula: c.formula,
   molarMass: c.molar_mass,
   liquidMolarVolume: c.liquid_molar_volume,
+  properties: c.properties ?? null,
   rowVersion: c.row_version,
   createdAt: c.created_at,
 })
@@ -103,6 +104,7 @@ export async function insertComponent(
       formula: c.formula,
       molar_mass: c.molarMass,
       liquid_molar_volume: c.liquidMolarVolume,
+      properties: c.properties ?? null,
       created_by: by,
     })
     .returningAll()
@@ -125,6 +127,7 @@ export async function updateComponent(
       ...(patch.formula !== undefined && { formula: patch.formula }),
       ...(patch.molarMass !== undefined && { molar_mass: patch.molarMass }),
       ...(patch.liquidMolarVolume !== undefined && { liquid_molar_volume: patch.liquidMolarVolume }),
+      ...(patch.properties !== undefined && { properties: patch.properties }),
       row_version: sql`row_version + 1`,
     })
     .where('id', '=', id)

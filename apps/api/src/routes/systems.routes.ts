@@ -95,8 +95,12 @@ export const systemRoutes = defineRoutes([
     method: 'get',
     path: '/api/calibrations/:id',
     access: LAB,
-    handler: async (req, res) =>
-      void res.json(await calibrations.getCalibration(ctx(req).db, parseParams(calibrationParams, req).id)),
+    handler: async (req, res) => {
+      const { db, config } = ctx(req)
+      const cal = await calibrations.getCalibration(db, parseParams(calibrationParams, req).id)
+      // the lab's replicate limit, so the calibration review judges each standard's RSD against it
+      res.json({ ...cal, replicateRsdLimit: config.replicateRsdLimit })
+    },
   },
   {
     method: 'post',
@@ -108,9 +112,11 @@ export const systemRoutes = defineRoutes([
         const file = receivedFile(req)
         const { gcMethodId, systemId, model, page, pageSize } = parseBody(calibrationForm, req)
         const { db, config } = ctx(req)
-        res.json(
-          await calibrations.previewCalibration(db, config, { gcMethodId, systemId, model }, file, { page, pageSize }),
-        )
+        const preview = await calibrations.previewCalibration(db, config, { gcMethodId, systemId, model }, file, {
+          page,
+          pageSize,
+        })
+        res.json({ ...preview, replicateRsdLimit: config.replicateRsdLimit })
       },
     ],
   },

@@ -1,3 +1,4 @@
+import type { ComponentProperties } from '@ebullio/schemas'
 /** Pure components, their vapour-pressure sets and pure-component boiling measurements. */
 import { fitAntoine, saturationTemperature, type VaporPressureModel } from '@ebullio/thermo'
 import { thermo, translateDbError } from './lab-access.js'
@@ -18,6 +19,7 @@ export interface ComponentInput {
   formula: string | null
   molarMass: number
   liquidMolarVolume: number | null
+  properties: ComponentProperties | null
 }
 
 export async function createComponent(db: Db, actorId: string, input: ComponentInput): Promise<repo.ComponentRecord> {

@@ -79,7 +79,18 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
     name: dataSetFileName(d, 'parameters', 'json'),
     body: {
       format: 'ebullio-parameters/1',
-      dataSet: { id: d.id, title: d.title, version: d.version, state: d.state, nominalPressurePa: d.nominalPressurePa },
+      dataSet: {
+        id: d.id,
+        title: d.title,
+        version: d.version,
+        state: d.state,
+        nominalPressurePa: d.nominalPressurePa,
+        // where the numbers come from: 'gc', 'other-method' (with the method) or 'literature' (with its citation)
+        origin: d.origin,
+        originMethod: d.originMethod,
+        citation: d.citation,
+        countsAsOwn: d.countsAsOwn,
+      },
       system: {
         component1: {
           name: inputs.system.component1.name,
@@ -191,6 +202,10 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
     ['data-set', 'version', body.dataSet.version, ''],
     ['data-set', 'state', body.dataSet.state, ''],
     ['data-set', 'nominal_pressure', body.dataSet.nominalPressurePa, 'Pa'],
+    ['data-set', 'origin', body.dataSet.origin, ''],
+    ['data-set', 'origin_method', body.dataSet.originMethod, ''],
+    ['data-set', 'citation', citationLine(body.dataSet.citation), ''],
+    ['data-set', 'counts_as_own_measurement', body.dataSet.countsAsOwn, ''],
     ['data-set', 'recommended_fit_id', body.recommendedFitId, ''],
     ['data-set', 'vle_relation', body.vleRelation, ''],
     ['approval', 'signed_by', a?.signedBy ?? null, ''],
@@ -220,4 +235,13 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
 function vpUnit(key: string, kind: unknown, temperatureUnit: unknown): string {
   if (key === 'range') return kind === 'antoine' ? String(temperatureUnit) : 'K'
   return ({ Tref: 'K', Pref: 'Pa', dHvap: 'J/mol' } as Record<string, string>)[key] ?? ''
+}
+
+/** A literature citation on one line: authors (year). title. source volume, pages. doi. table. */
+function citationLine(c: repo.DataSetRecord['citation']): string | null {
+  if (!c) return null
+  const vol = [c.volume, c.pages].filter(Boolean).join(', ')
+  return [`${c.authors} (${c.year}). ${c.title}. ${c.source}${vol ? ' ' + vol : ''}.`, c.doi && `doi:${c.doi}`, c.table]
+    .filter(Boolean)
+    .join(' ')
 }

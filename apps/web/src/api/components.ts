@@ -1,3 +1,4 @@
+import type { ComponentProperties } from '@ebullio/schemas'
 /** Pure components and their vapour-pressure sets (issue 5's `/api/components` routes). Molar mass g/mol, volume cm³/mol. */
 import type { ComponentDto, VaporPressureSetDto } from '@ebullio/schemas'
 import { api, query } from './client'
@@ -40,6 +41,7 @@ export interface ComponentInput {
   formula: string | null
   molarMass: number
   liquidMolarVolume: number | null
+  properties?: ComponentProperties | null
 }
 
 export interface VaporPressureInput {

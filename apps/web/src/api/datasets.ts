@@ -35,7 +35,10 @@ export type Point = PointDto
 export type FitResidual = FitResidualDto
 
 /** A stored fit (the shared wire type). */
-export type Fit = FitDetailDto
+export type Fit = FitDetailDto & {
+  /** computed on other points than the data set has now (pointSetDigest differs from the data set's) */
+  stale?: boolean
+}
 
 export interface ConsistencyResult {
   id: string
@@ -43,6 +46,10 @@ export interface ConsistencyResult {
   passed: boolean
   result: Record<string, unknown>
   runAt: string
+  pointSetDigest?: string | null
+  pointCount?: number | null
+  /** computed on other points than the data set has now */
+  stale?: boolean
 }
 
 export interface Approval {
@@ -217,7 +224,10 @@ export const datasetsApi = {
   recommend: (id: string, fitId: string) => api.post<DataSet>(`${base}/${id}/recommended-fit`, { fitId }),
   runConsistency: (id: string, model?: ModelName) =>
     api.post<{ items: ConsistencyResult[] }>(`${base}/${id}/consistency`, model ? { model } : {}, { quiet: true }),
-  submit: (id: string, rowVersion: number) => api.post<DataSet>(`${base}/${id}/submit`, { rowVersion }),
+  submit: (id: string, rowVersion: number) =>
+    api.post<DataSet & { notifiedLeadChemists?: number }>(`${base}/${id}/submit`, { rowVersion }),
+  deleteFit: (id: string, fitId: string) =>
+    api.del<{ deleted: string; rowVersion: number }>(`${base}/${id}/fits/${fitId}`),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   band: (id: string, fitId: string) => api.get<FitBand>(`${base}/${id}/fits/${fitId}/band`, { quiet: true }),
   nextCompositions: (id: string, fitId: string, count = 5, criterion: SuggestionCriterionName = 'sigma-y') =>

@@ -43,7 +43,8 @@ export const gcApi = {
   createMethod: (body: GcMethodInput) => api.post<GcMethod>('/api/gc-methods', body, { quiet: true }),
   calibrations: (f: { gcMethodId?: string; systemId?: string; status?: 'active' | 'retired' } = {}) =>
     api.get<{ items: Calibration[] }>('/api/calibrations' + query(f)),
-  calibration: (id: string) => api.get<Calibration & { standards: CalibrationStandard[] }>(`/api/calibrations/${id}`),
+  calibration: (id: string) =>
+    api.get<Calibration & { standards: CalibrationStandard[]; replicateRsdLimit: number }>(`/api/calibrations/${id}`),
   retire: (id: string) => api.post<{ ok: true }>(`/api/calibrations/${id}/retire`),
   /** Retire a GC method and, with it, its active calibrations. */
   retireMethod: (id: string) => api.post<GcMethod>(`/api/gc-methods/${encodeURIComponent(id)}/retire`),

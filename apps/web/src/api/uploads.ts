@@ -87,6 +87,8 @@ export interface UploadPreview {
   calibrationUsed?: CalibrationSummary
   /** calibration preview: the active calibration committing would replace (null: none) */
   replaces?: CalibrationSummary | null
+  /** calibration preview: the lab's replicate RSD limit (fraction) the standards are judged against */
+  replicateRsdLimit?: number
   problems: UploadProblem[]
 }
 

@@ -82,8 +82,14 @@ export const useWorkspaceStore = defineStore('workspace', () => {
     await datasetsApi.runConsistency(ds.value!.id, model)
     await reload()
   }
-  async function submit() {
-    await datasetsApi.submit(ds.value!.id, ds.value!.rowVersion)
+  /** Submit; answers how many other lead chemists were told. */
+  async function submit(): Promise<number | null> {
+    const r = await datasetsApi.submit(ds.value!.id, ds.value!.rowVersion)
+    await reload()
+    return typeof r.notifiedLeadChemists === 'number' ? r.notifiedLeadChemists : null
+  }
+  async function deleteFit(fitId: string) {
+    await datasetsApi.deleteFit(ds.value!.id, fitId)
     await reload()
   }
   async function addComment(body: string, pointId: string | null, parentId: string | null = null) {
@@ -95,6 +101,7 @@ export const useWorkspaceStore = defineStore('workspace', () => {
     await reload()
   }
   return {
+    deleteFit,
     detail,
     comments,
     loading,

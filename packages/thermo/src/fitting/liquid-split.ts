@@ -38,7 +38,7 @@ export function liquidSplitWarnings(
   let widest: { gap: LiquidGap; T: number } | null = null
   for (const T of temperatures(Tmin, Tmax)) {
     // Cheap screen first: far from a spinodal (Γ well above 0 everywhere) there is no gap to look for.
-    if (activity.kind === 'ideal' || activity.kind === 'wilson' || coarseMinimumThermodynamicFactor(activity, T) > 0.2)
+    if (activity.kind === 'ideal' || activity.kind === 'wilson' || coarseMinimumThermodynamicFactor(activity, T) > 0.05)
       continue
     for (const gap of liquidGaps(activity, T)) {
       if (!widest || gap.xII - gap.xI > widest.gap.xII - widest.gap.xI) widest = { gap, T }

@@ -29,7 +29,8 @@ export function secondVirialTsonopoulos(T: number, c: VirialComponent): number {
  * The published polar parameters a and b of Tsonopoulos for a component class, from the reduced dipole moment
  * μr = 1e5·μ²·(Pc/atm)/Tc² (μ in debye). Classes and constants: Tsonopoulos, AIChE J. 20 (1974) 263 and
  * AIChE J. 21 (1975) 827; Tsonopoulos & Heidman, Fluid Phase Equilib. 57 (1990) 261 (water). Constants as
- * implemented in `chemicals` 1.5.2 (`BVirial_Tsonopoulos_extended`), which quotes the same papers.
+ * implemented in `chemicals` 1.5.2 (`BVirial_Tsonopoulos_extended`), which quotes the same papers, except the
+ * haloalkane exponent (see below).
  */
 export function tsonopoulosPolarParameters(o: {
   kind:
@@ -56,7 +57,9 @@ export function tsonopoulosPolarParameters(o: {
     case 'ketone-ether-ester-aldehyde-nitrile':
       return { a: -2.14e-4 * mur - 4.308e-21 * mur ** 8, b: 0 }
     case 'haloalkane-mercaptan-sulfide':
-      return { a: -2.188e-4 * mur ** 4 - 7.831e-21 * mur ** 8, b: 0 }
+      // Poling, Prausnitz & O'Connell, 5th ed., §4-5 (from memory): −2.188e-11·μr⁴. `chemicals` 1.5.2 writes
+      // −2.188e-4, which gives a ≈ −26 for chloroform (physically absurd); we keep the published exponent.
+      return { a: -2.188e-11 * mur ** 4 - 7.831e-21 * mur ** 8, b: 0 }
   }
 }
 

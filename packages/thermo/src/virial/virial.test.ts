@@ -60,6 +60,12 @@ describe('Tsonopoulos second virial coefficients', () => {
     expect(polar.acetone.a).toBeCloseTo(-0.03287507420501906, 12)
   })
 
+  it('an alkyl halide gets a small polar a (chloroform, 1.01 D: about −2.7e-6), not the −26 of a misprinted exponent', () => {
+    // μr = 1e5·1.01²·(5.33 MPa/1 atm)/536.2² = 18.66; a = −2.188e-11·μr⁴ − 7.831e-21·μr⁸ (closed form).
+    const a = tsonopoulosPolarParameters({ kind: 'haloalkane-mercaptan-sulfide', dipole: 1.01, Tc: 536.2, Pc: 5330000 }).a
+    expect(a).toBeCloseTo(-2.652e-6, 8)
+  })
+
   it('the cross rule gives B12 = B11 for two identical components (closed form)', () => {
     const c = { ...crit.benzene }
     const x = crossCriticalConstants(c, c)

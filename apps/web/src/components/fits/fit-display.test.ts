@@ -5,6 +5,8 @@ import { atBound, bestComparableAic, boundNote, notComparableReason, paramSymbol
 const fit = (parameters: Fit['parameters'], statistics: Record<string, unknown> = { converged: true }): Fit => ({
   id: 'f',
   dataSetId: 'd',
+  pointSetDigest: 'ps',
+  pointCount: 12,
   model: 'nrtl',
   options: { alpha: 0.3, fitAlpha: true },
   activity: { kind: 'nrtl' },
@@ -63,5 +65,22 @@ describe('fit display', () => {
         { f: good, aic: -27.4 },
       ]),
     ).toBe(-27.4)
+  })
+})
+
+describe('fits on other points', () => {
+  it('a stale fit is neither compared on AIC nor recommended', () => {
+    const current = { ...fit([]), id: 'a', statistics: { converged: true, aic: -40 } } as Fit
+    const stale = { ...fit([]), id: 'b', stale: true, statistics: { converged: true, aic: -90 } } as Fit
+    expect(notComparableReason(stale)).toBe(
+      'Computed on other points than the data set has now: run it again to compare it on AIC or recommend it.',
+    )
+    // The stale fit's lower AIC does not win: AIC compares fits on the same points only.
+    expect(
+      bestComparableAic([
+        { f: current, aic: -40 },
+        { f: stale, aic: -90 },
+      ]),
+    ).toBe(-40)
   })
 })

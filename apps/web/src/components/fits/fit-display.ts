@@ -52,6 +52,9 @@ export function convergedOf(f: Fit): boolean | null {
  * converge has parameters that are not a minimum, so its AIC says nothing about the model.
  */
 export function notComparableReason(f: Fit): string | null {
+  // AIC compares fits on the same points only: a fit computed on other points is not compared.
+  if (f.stale)
+    return 'Computed on other points than the data set has now: run it again to compare it on AIC or recommend it.'
   return convergedOf(f) === false
     ? 'The solver did not converge: these parameters are not a best fit, so it is not compared on AIC and cannot be recommended.'
     : null

@@ -20,6 +20,8 @@ const fit = (
   pointIds: Array.from({ length: points }, (_, i) => `p${i}`),
   runBy: 'u',
   runAt,
+  pointSetDigest: 'ps',
+  pointCount: points,
 })
 
 describe('fit labels', () => {

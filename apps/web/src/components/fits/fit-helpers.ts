@@ -95,3 +95,44 @@ export function rms(values: (number | null)[]): number | null {
   const v = values.filter((x): x is number => x !== null && Number.isFinite(x))
   return v.length ? Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length) : null
 }
+
+/** A result bound to the point set it was computed on. */
+export interface BoundResult {
+  stale?: boolean
+  pointCount?: number | null
+  runAt: string
+}
+
+/** "computed on 12 points on 3 Dec 2026, 14:05" — what a result rests on, shown beside it (greyed when stale). */
+export function computedOnText(r: BoundResult): string {
+  const when = new Date(r.runAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })
+  const n = r.pointCount
+  return n === null || n === undefined
+    ? `computed on an unrecorded point set on ${when}`
+    : `computed on ${n} point${n === 1 ? '' : 's'} on ${when}`
+}
+
+/** "Stale: computed on 12 points on …; the points have changed since." or null for a current result. */
+export function staleText(r: BoundResult): string | null {
+  return r.stale ? `Stale: ${computedOnText(r)}; the points have changed since.` : null
+}
+
+/** The latest result of each consistency test: what the panel, the record and the signature show. */
+export function latestConsistency<T extends { test: string; runAt: string }>(all: T[]): T[] {
+  const latest = new Map<string, T>()
+  for (const c of all) {
+    const seen = latest.get(c.test)
+    if (!seen || new Date(c.runAt).getTime() >= new Date(seen.runAt).getTime()) latest.set(c.test, c)
+  }
+  return [...latest.values()]
+}
+
+/** What is stale among the results a signature would rest on (recommended fit, latest consistency results), in words. */
+export function staleForSigning(d: DataSetDetail): string[] {
+  const out: string[] = []
+  const rec = d.fits.find((f) => f.id === d.dataSet.recommendedFitId)
+  if (rec?.stale) out.push(`the recommended fit (${fitLabel(rec, d.fits)}, ${computedOnText(rec)})`)
+  for (const c of latestConsistency(d.consistency))
+    if (c.stale) out.push(`the ${c.test === 'point' ? 'point' : 'area'} test (${computedOnText(c)})`)
+  return out
+}

@@ -6,11 +6,13 @@
 import { LineChart, ScatterChart, CustomChart } from 'echarts/charts'
 import {
   AriaComponent,
+  GraphicComponent,
   GridComponent,
   LegendComponent,
   MarkAreaComponent,
   MarkLineComponent,
   MarkPointComponent,
+  TitleComponent,
   TooltipComponent,
 } from 'echarts/components'
 import { use } from 'echarts/core'
@@ -29,6 +31,8 @@ use([
   MarkPointComponent,
   MarkAreaComponent,
   AriaComponent,
+  TitleComponent,
+  GraphicComponent,
 ])
 
 export { init } from 'echarts/core'
