@@ -8,7 +8,14 @@
 import { lnGammaT } from '../activity/kernel.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
 import { dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
-import { compileSystem, noConvergence, systemWarnings, type CompiledSystem } from '../equilibrium/system.js'
+import { stabilityOf } from '../equilibrium/stability.js'
+import {
+  compileSystem,
+  liquidSplitError,
+  noConvergence,
+  systemWarnings,
+  type CompiledSystem,
+} from '../equilibrium/system.js'
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'
 import { compileVirial, solveBubbleTGammaPhi, type CompiledVirial } from './kernel.js'
@@ -63,6 +70,13 @@ export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, 
 }
 
 const g = new Float64Array(4)
+
+/** γ–φ results are single-liquid: refuse (liquid-split) when the liquid x1 lies in a two-liquid gap at T. */
+function assertSingleLiquid(c: CompiledSystem, x1: number, T: number): void {
+  const s = stabilityOf(c.act)
+  if (!s.maySplit(T)) return
+  if (s.gaps(T).some((gap) => x1 > gap.xI && x1 < gap.xII)) throw liquidSplitError(c, x1, T)
+}
 const phiBuf = new Float64Array(5)
 const compiledCache = new WeakMap<object, CompiledVirial>()
 
@@ -119,6 +133,10 @@ export function bubbleTemperatureGammaPhi(
   if (solveBubbleTGammaPhi(c, compiledVirial(v), Math.log(P), x1, phiBuf)) {
     const T = res[0]
     const y1 = res[1]
+    const gamma1 = res[2]
+    const gamma2 = res[3]
+    const iterations = res[4]
+    assertSingleLiquid(c, x1, T)
     const Vc = 1e-6 * (y1 * v.components[0].Vc + (1 - y1) * v.components[1].Vc)
     const sw = systemWarnings(c, T, x1)
     return {
@@ -127,10 +145,10 @@ export function bubbleTemperatureGammaPhi(
       P,
       x1,
       y1,
-      gamma: [res[2], res[3]],
+      gamma: [gamma1, gamma2],
       phi: [phiBuf[0], phiBuf[1]],
       Phi: [phiBuf[2], phiBuf[3]],
-      iterations: res[4],
+      iterations,
       warnings: phiBuf[4] > 0 && Vc / phiBuf[4] <= 0.5 ? sw : [...sw, ...virialValidityWarnings(v, T, P, y1)],
     }
   }
@@ -162,6 +180,7 @@ export function bubblePressureGammaPhi(
     P = Pn
     y1 = yn
     if (done) {
+      assertSingleLiquid(c, x1, T)
       const fin = vaporCorrection(v, T, P, y1, ps)
       return {
         converged: true,
@@ -213,6 +232,7 @@ export function dewTemperatureGammaPhi(
     if (!Number.isFinite(dT)) break
     T += Math.max(-20, Math.min(20, dT))
     if (Math.abs(dT) < 1e-9 && dx < 1e-12) {
+      assertSingleLiquid(c, x1, T)
       lnGammaT(c.act, x1, T, g)
       const fin = vaporCorrection(v, T, P, y1, psatOf(c, T))
       return {

@@ -62,7 +62,12 @@ describe('Tsonopoulos second virial coefficients', () => {
 
   it('an alkyl halide gets a small polar a (chloroform, 1.01 D: about −2.7e-6), not the −26 of a misprinted exponent', () => {
     // μr = 1e5·1.01²·(5.33 MPa/1 atm)/536.2² = 18.66; a = −2.188e-11·μr⁴ − 7.831e-21·μr⁸ (closed form).
-    const a = tsonopoulosPolarParameters({ kind: 'haloalkane-mercaptan-sulfide', dipole: 1.01, Tc: 536.2, Pc: 5330000 }).a
+    const a = tsonopoulosPolarParameters({
+      kind: 'haloalkane-mercaptan-sulfide',
+      dipole: 1.01,
+      Tc: 536.2,
+      Pc: 5330000,
+    }).a
     expect(a).toBeCloseTo(-2.652e-6, 8)
   })
 
@@ -154,6 +159,14 @@ describe('γ–φ invariants', () => {
     const d = dewTemperatureGammaPhi(propanolWater, { P: 150000, y1: b.y1 }, virialPW)
     expect(d.T).toBeCloseTo(b.T, 6)
     expect(d.x1).toBeCloseTo(0.35, 6)
+  })
+
+  it('refuses a liquid inside a two-liquid gap instead of giving a single-liquid number', () => {
+    // Symmetric Margules A = 2.5 splits between x1 = 0.1448 and 0.8552 at every T (closed form, reference-values §7).
+    const split: BinarySystem = { ...propanolWater, activity: { kind: 'margules', A12: 2.5, A21: 2.5 } }
+    expect(() => bubbleTemperatureGammaPhi(split, { P: 101325, x1: 0.5 }, virialPW)).toThrow(/two liquid phases/)
+    expect(() => bubblePressureGammaPhi(split, { T: 360, x1: 0.5 }, virialPW)).toThrow(/two liquid phases/)
+    expect(bubbleTemperatureGammaPhi(split, { P: 101325, x1: 0.05 }, virialPW).converged).toBe(true)
   })
 
   it('with an ideal vapour the corrections are 1', () => {
