@@ -51,6 +51,49 @@ export default tseslint.config(
     rules: { '@typescript-eslint/no-explicit-any': 'off' },
   },
   {
+    // Layering (DEVELOPERS.md): only repositories build queries, so only they (and db/, migrations, tests) import
+    // kysely's values; a type import (a transaction's type) builds nothing and is allowed. The modules listed under
+    // `ignores` still build their own queries (session store, mail outbox, metrics, rate limits, one catalogue
+    // query): moving them into repositories is open work, and removing a line here turns the rule on for it.
+    files: ['apps/api/src/**/*.ts'],
+    ignores: [
+      'apps/api/src/repositories/**',
+      'apps/api/src/db/**',
+      'apps/api/src/auth/index.ts',
+      'apps/api/src/mail/mailer.ts',
+      'apps/api/src/ops/**',
+      'apps/api/src/services/catalogue.service.ts',
+    ],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        { paths: [{ name: 'kysely', message: 'Only repositories build queries.', allowTypeImports: true }] },
+      ],
+    },
+  },
+  {
+    // Routes call services only: no repository, no query builder.
+    files: ['apps/api/src/routes/**/*.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          paths: [{ name: 'kysely', message: 'Routes call services; only repositories build queries.' }],
+          patterns: [
+            { group: ['**/repositories/*'], message: 'Routes call services; only services reach repositories.' },
+          ],
+        },
+      ],
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: 'CallExpression[callee.property.name=/^(selectFrom|insertInto|updateTable|deleteFrom)$/]',
+          message: 'Routes call services; only repositories build queries.',
+        },
+      ],
+    },
+  },
+  {
     files: ['apps/web/src/**/*.{ts,vue}'],
     languageOptions: { globals: { ...globals.browser } },
   },

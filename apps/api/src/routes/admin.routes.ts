@@ -2,8 +2,7 @@ import { inviteSchema, ROLES, setRolesSchema } from '@ebullio/schemas'
 import { z } from 'zod'
 import { ctx } from '../context.js'
 import { notFound } from '../errors/index.js'
-import { listUsersPage } from '../repositories/users.repository.js'
-import { listCapturedMail } from '../services/captured-mail.service.js'
+import { listCapturedMail, listUndeliveredMail } from '../services/captured-mail.service.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
@@ -29,7 +28,7 @@ export const adminRoutes = defineRoutes([
     handler: async (req, res) => {
       const { page, pageSize, ...f } = parseQuery(userQuery, req)
       res.json({
-        ...(await listUsersPage(ctx(req).db, { ...f, limit: pageSize, offset: (page - 1) * pageSize })),
+        ...(await service.listUsersPage(ctx(req).db, { ...f, limit: pageSize, offset: (page - 1) * pageSize })),
         page,
         pageSize,
       })
@@ -96,27 +95,7 @@ export const adminRoutes = defineRoutes([
     handler: async (req, res) => {
       // Mail that could not be delivered: given up (refused for good, or too many tries) or still failing.
       const { status } = parseQuery(z.object({ status: z.enum(['failed', 'retrying']).default('failed') }), req)
-      let q = ctx(req)
-        .db.selectFrom('mail_outbox')
-        .select(['id', 'to_address', 'subject', 'created_at', 'attempts', 'last_error', 'next_attempt_at', 'failed_at'])
-        .where('sent_at', 'is', null)
-      q =
-        status === 'failed'
-          ? q.where('failed_at', 'is not', null)
-          : q.where('failed_at', 'is', null).where('attempts', '>', 0)
-      const rows = await q.orderBy('id', 'desc').limit(200).execute()
-      res.json({
-        items: rows.map((r) => ({
-          id: r.id,
-          to: r.to_address,
-          subject: r.subject,
-          createdAt: r.created_at,
-          attempts: r.attempts,
-          lastError: r.last_error,
-          nextAttemptAt: r.failed_at ? null : r.next_attempt_at,
-          failedAt: r.failed_at,
-        })),
-      })
+      res.json({ items: await listUndeliveredMail(ctx(req).db, status) })
     },
   },
 ])

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { ctx } from '../context.js'
-import { listAudit } from '../repositories/audit.repository.js'
+import { listAudit } from '../services/audit.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
 import { pageQuery } from './lab-schemas.js'

@@ -7,7 +7,6 @@ import {
 } from '@ebullio/schemas'
 import { z } from 'zod'
 import { ctx } from '../context.js'
-import { findUserById } from '../repositories/users.repository.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
 import { parseBody, parseParams } from './validate.js'
@@ -43,7 +42,7 @@ export const authRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       const { user, db } = ctx(req)
-      const row = await findUserById(db, user.id)
+      const row = await service.findUserById(db, user.id)
       res.json({
         user: { ...user, notifyMail: row?.notify_mail ?? true },
         devMode: req.ctx.config.mailViewer,

@@ -1,5 +1,4 @@
 import { ctx } from '../context.js'
-import { listComponents } from '../repositories/components.repository.js'
 import * as service from '../services/components.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import { defineRoutes } from './define.js'
@@ -17,7 +16,7 @@ export const componentRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       const q = parseQuery(componentQuery, req)
-      const r = await listComponents(ctx(req).db, { ...q, ...pageWindow(q.page, q.pageSize) })
+      const r = await service.listComponents(ctx(req).db, { ...q, ...pageWindow(q.page, q.pageSize) })
       res.json({ ...r, page: q.page, pageSize: q.pageSize })
     },
   },

@@ -1,5 +1,4 @@
 import { ctx } from '../context.js'
-import { listOpenThreadsOf } from '../repositories/comments.repository.js'
 import * as comments from '../services/comments.service.js'
 import * as fits from '../services/fits.service.js'
 import * as uncertainty from '../services/uncertainty.service.js'
@@ -164,7 +163,7 @@ export const reviewRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       const { page, pageSize } = parseQuery(myThreadsQuery, req)
-      res.json({ ...(await listOpenThreadsOf(db, user.id, pageWindow(page, pageSize))), page, pageSize })
+      res.json({ ...(await comments.listOpenThreadsOf(db, user.id, pageWindow(page, pageSize))), page, pageSize })
     },
   },
   {

@@ -1,10 +1,8 @@
 import { z } from 'zod'
 import { ctx } from '../context.js'
-import { listSystems } from '../repositories/systems.repository.js'
 import * as calibrations from '../services/calibrations.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import * as service from '../services/systems.service.js'
-import { listCalibrationsPage, listGcMethodsPage } from '../repositories/calibrations.repository.js'
 import { defineRoutes } from './define.js'
 import { gcMethodSchema, systemSchema } from '@ebullio/schemas'
 import { calibrationForm, calibrationQuery, gcMethodQuery, systemQuery, uuid } from './lab-schemas.js'
@@ -26,7 +24,7 @@ export const systemRoutes = defineRoutes([
     handler: async (req, res) => {
       const q = parseQuery(systemQuery, req)
       res.json({
-        ...(await listSystems(ctx(req).db, { q: q.q, ...pageWindow(q.page, q.pageSize) })),
+        ...(await service.listSystems(ctx(req).db, { q: q.q, ...pageWindow(q.page, q.pageSize) })),
         page: q.page,
         pageSize: q.pageSize,
       })
@@ -55,7 +53,11 @@ export const systemRoutes = defineRoutes([
     access: LAB,
     handler: async (req, res) => {
       const { page, pageSize, ...q } = parseQuery(gcMethodQuery, req)
-      res.json({ ...(await listGcMethodsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })), page, pageSize })
+      res.json({
+        ...(await calibrations.listGcMethodsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })),
+        page,
+        pageSize,
+      })
     },
   },
   {
@@ -83,7 +85,7 @@ export const systemRoutes = defineRoutes([
     handler: async (req, res) => {
       const { page, pageSize, ...q } = parseQuery(calibrationQuery, req)
       res.json({
-        ...(await listCalibrationsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })),
+        ...(await calibrations.listCalibrationsPage(ctx(req).db, { ...q, ...pageWindow(page, pageSize) })),
         page,
         pageSize,
       })

@@ -284,3 +284,6 @@ export async function retireGcMethod(db: Kysely<Database>, actorId: string, id: 
     return method
   })
 }
+
+/** Pages of GC methods and calibrations, answered by the repository as they are (no rule applies). */
+export { listCalibrationsPage, listGcMethodsPage } from '../repositories/calibrations.repository.js'

@@ -106,3 +106,6 @@ export async function setThreadResolved(
     return { id: commentId, resolved }
   })
 }
+
+/** A page of the open threads a person takes part in, answered by the repository as it is. */
+export { listOpenThreadsOf } from '../repositories/comments.repository.js'

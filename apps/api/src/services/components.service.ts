@@ -150,3 +150,6 @@ export async function fitVaporPressureFromMeasurements(
   })
   return { set, fit }
 }
+
+/** A page of components, answered by the repository as it is (no rule applies). */
+export { listComponents } from '../repositories/components.repository.js'

@@ -70,3 +70,6 @@ export async function engineInputs(db: Db, systemId: string): Promise<EngineInpu
 export function binarySystem(inputs: EngineInputs, activity: BinarySystem['activity']): BinarySystem {
   return { vaporPressure: inputs.vaporPressure, activity }
 }
+
+/** A page of systems, answered by the repository as it is (no rule applies). */
+export { listSystems } from '../repositories/systems.repository.js'

@@ -261,3 +261,6 @@ export async function setNotifyMail(db: Db, userId: string, notifyMail: boolean)
     })
   })
 }
+
+/** Read-only listings the routes need, answered by the repository as they are (no rule applies). */
+export { findUserById, listUsersPage } from '../repositories/users.repository.js'

@@ -79,9 +79,13 @@ export const labDayApi = {
   changeSystem: (id: string, rowVersion: number, systemId: string) =>
     api.patch<DataSet>(`/api/data-sets/${id}`, { rowVersion, systemId }, { quiet: true }),
   addPoints: (id: string, rowVersion: number, points: DirectPoint[]) =>
-    api.post<{ pointIds: string[]; rowVersion: number }>(`/api/data-sets/${id}/points`, { rowVersion, points }, {
-      quiet: true,
-    }),
+    api.post<{ pointIds: string[]; rowVersion: number }>(
+      `/api/data-sets/${id}/points`,
+      { rowVersion, points },
+      {
+        quiet: true,
+      },
+    ),
   previewSheet: (id: string, file: File) =>
     api.post<SheetPreview>(`/api/data-sets/${id}/point-sheets/preview`, sheetForm(file), { quiet: true }),
   commitSheet: (id: string, file: File, rowVersion: number) =>

@@ -5,7 +5,16 @@ export interface OriginForm {
   origin: DataOrigin
   originMethod: string
   layout: DataLayout
-  citation: { authors: string; title: string; source: string; year: string; volume: string; pages: string; doi: string; table: string }
+  citation: {
+    authors: string
+    title: string
+    source: string
+    year: string
+    volume: string
+    pages: string
+    doi: string
+    table: string
+  }
 }
 
 export const ORIGIN_CHOICES: { value: DataOrigin; label: string; help: string }[] = [
@@ -38,7 +47,10 @@ export function emptyOrigin(): OriginForm {
 
 /** Check the origin fields with the API's own schema; answers the values to send, or the messages per field. */
 export function checkOriginForm(f: OriginForm):
-  | { ok: true; value: { origin: DataOrigin; originMethod: string | null; citation: Citation | null; layout: DataLayout } }
+  | {
+      ok: true
+      value: { origin: DataOrigin; originMethod: string | null; citation: Citation | null; layout: DataLayout }
+    }
   | { ok: false; errors: Record<string, string> } {
   const errors: Record<string, string> = {}
   let citation: Citation | null = null
@@ -48,7 +60,8 @@ export function checkOriginForm(f: OriginForm):
     if (r.success) citation = r.data
     else
       for (const i of r.error.issues)
-        errors[`citation.${String(i.path[0])}`] ??= i.path[0] === 'year' && !c.year.trim() ? 'Enter the year' : i.message
+        errors[`citation.${String(i.path[0])}`] ??=
+          i.path[0] === 'year' && !c.year.trim() ? 'Enter the year' : i.message
   }
   if (f.origin === 'other-method' && !f.originMethod.trim())
     errors.originMethod = 'Say how the compositions were measured (the method other than GC).'

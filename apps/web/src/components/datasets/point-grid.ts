@@ -44,7 +44,8 @@ export function gridToPoints(
     const row = i + 1
     const bad = (column: string, message: string) => problems.push({ row, column, message })
     const cells = { t: num(r.t), p: num(r.p), x1: num(r.x1), y1: num(r.y1), ux1: num(r.ux1), uy1: num(r.uy1) }
-    for (const [k, v] of Object.entries(cells)) if (Number.isNaN(v)) bad(k, `"${r[k as keyof GridRow]}" is not a number.`)
+    for (const [k, v] of Object.entries(cells))
+      if (Number.isNaN(v)) bad(k, `"${r[k as keyof GridRow]}" is not a number.`)
     if (cells.t === null) bad('t', 'The temperature is missing.')
     if (cells.p === null) bad('p', 'The pressure is missing.')
     if (cells.x1 === null) bad('x1', 'x1 is missing.')
@@ -86,6 +87,14 @@ export function rowsFromPaste(text: string): GridRow[] {
     .filter((l) => l.trim())
     .map((l) => {
       const c = l.split(/\t|;/).map((s) => s.trim())
-      return { sample: c[0] ?? '', t: c[1] ?? '', p: c[2] ?? '', x1: c[3] ?? '', y1: c[4] ?? '', ux1: c[5] ?? '', uy1: c[6] ?? '' }
+      return {
+        sample: c[0] ?? '',
+        t: c[1] ?? '',
+        p: c[2] ?? '',
+        x1: c[3] ?? '',
+        y1: c[4] ?? '',
+        ux1: c[5] ?? '',
+        uy1: c[6] ?? '',
+      }
     })
 }

@@ -1,0 +1,36 @@
+import type { Db } from '../db/index.js'
+
+/** A message the outbox could not deliver: given up (`failedAt` set) or still being retried. */
+export interface UndeliveredMail {
+  id: number | string
+  to: string
+  subject: string
+  createdAt: Date
+  attempts: number
+  lastError: string | null
+  nextAttemptAt: Date | null
+  failedAt: Date | null
+}
+
+/** The 200 newest undelivered messages: 'failed' (given up for good) or 'retrying' (failed at least once). */
+export async function listUndeliveredMail(db: Db, status: 'failed' | 'retrying'): Promise<UndeliveredMail[]> {
+  let q = db
+    .selectFrom('mail_outbox')
+    .select(['id', 'to_address', 'subject', 'created_at', 'attempts', 'last_error', 'next_attempt_at', 'failed_at'])
+    .where('sent_at', 'is', null)
+  q =
+    status === 'failed'
+      ? q.where('failed_at', 'is not', null)
+      : q.where('failed_at', 'is', null).where('attempts', '>', 0)
+  const rows = await q.orderBy('id', 'desc').limit(200).execute()
+  return rows.map((r) => ({
+    id: r.id,
+    to: r.to_address,
+    subject: r.subject,
+    createdAt: r.created_at,
+    attempts: r.attempts,
+    lastError: r.last_error,
+    nextAttemptAt: r.failed_at ? null : r.next_attempt_at,
+    failedAt: r.failed_at,
+  }))
+}
