@@ -117,7 +117,9 @@ describe('lists and exports', () => {
     const r = await lab.analyst.get(`/api/data-sets/${ds.id}/export/points.csv`).expect(200)
     expect(r.headers['content-type']).toBe('text/csv; charset=utf-8')
     const lines = r.text.trim().split('\n')
-    expect(lines[0]).toBe('seq,sample,t_k,p_kpa,x1,u_x1,y1,u_y1,excluded,exclusion_reason')
+    expect(lines[0]).toBe(
+      'seq,sample,t_k,p_kpa,x1,u_x1,y1,u_y1,excluded,exclusion_reason,liquid_layers,x1_layer_i,u_x1_layer_i,x1_layer_ii,u_x1_layer_ii',
+    )
     expect(lines).toHaveLength(13)
     expect(lines[1]).toMatch(/^1,AM-01,3\d\d\.\d{3},101\.\d{4},0\.\d{5},[\d.e+-]+,0\.\d{5},[\d.e+-]+,false,$/)
   })

@@ -49,7 +49,23 @@ describe('points layout', () => {
     ])
     const rows = parse(text) as string[][]
     expect(rows).toEqual([
-      ['seq', 'sample', 't_k', 'p_kpa', 'x1', 'u_x1', 'y1', 'u_y1', 'excluded', 'exclusion_reason'],
+      [
+        'seq',
+        'sample',
+        't_k',
+        'p_kpa',
+        'x1',
+        'u_x1',
+        'y1',
+        'u_y1',
+        'excluded',
+        'exclusion_reason',
+        'liquid_layers',
+        'x1_layer_i',
+        'u_x1_layer_i',
+        'x1_layer_ii',
+        'u_x1_layer_ii',
+      ],
       [
         '1',
         '\'=cmd|"/c calc"!A1',
@@ -61,7 +77,37 @@ describe('points layout', () => {
         '5.100e-4',
         'true',
         "'@leak",
+        '1',
+        '',
+        '',
+        '',
+        '',
       ],
     ])
+  })
+
+  it('a two-layer point carries both layers', () => {
+    const rows = parse(
+      pointsCsv([
+        {
+          seq: 2,
+          sampleLabel: 'WB-07',
+          temperatureK: 366.1,
+          pressurePa: 101325,
+          x1: 0.6,
+          x1Uncertainty: 0.002,
+          y1: 0.764,
+          y1Uncertainty: 0.002,
+          excluded: false,
+          exclusionReason: null,
+          heterogeneous: true,
+          liquidPhases: [
+            { x1: 0.48123456, uncertainty: 0.003 },
+            { x1: 0.9812, uncertainty: 0.001 },
+          ],
+        },
+      ]),
+    ) as string[][]
+    expect(rows[1].slice(10)).toEqual(['2', '0.48123', '3.000e-3', '0.98120', '1.000e-3'])
   })
 })

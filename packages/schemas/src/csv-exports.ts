@@ -89,6 +89,9 @@ export interface ExportPoint {
   y1Uncertainty: number
   excluded: boolean
   exclusionReason: string | null
+  /** The liquid split into two layers: x1 is the overall composition; the layers (when analysed) follow. */
+  heterogeneous?: boolean
+  liquidPhases?: readonly [{ x1: number; uncertainty: number }, { x1: number; uncertainty: number }] | null
 }
 
 export const POINTS_CSV_HEADER = [
@@ -102,9 +105,17 @@ export const POINTS_CSV_HEADER = [
   'u_y1',
   'excluded',
   'exclusion_reason',
+  'liquid_layers',
+  'x1_layer_i',
+  'u_x1_layer_i',
+  'x1_layer_ii',
+  'u_x1_layer_ii',
 ] as const
 
-/** The points export: K and kPa whatever the display units; 3 decimals for T, 4 for P, 5 for x and y. */
+/**
+ * The points export: K and kPa whatever the display units; 3 decimals for T, 4 for P, 5 for x and y. A two-layer
+ * point has liquid_layers 2, its overall x1, and both layers' x1 (layer I poorer in component 1) when analysed.
+ */
 export function pointsCsv(points: readonly ExportPoint[]): string {
   return csvDocument(
     POINTS_CSV_HEADER,
@@ -119,6 +130,11 @@ export function pointsCsv(points: readonly ExportPoint[]): string {
       exponent(p.y1Uncertainty, 3),
       p.excluded,
       p.exclusionReason,
+      p.heterogeneous ? 2 : 1,
+      p.liquidPhases ? fixed(p.liquidPhases[0].x1, 5) : null,
+      p.liquidPhases ? exponent(p.liquidPhases[0].uncertainty, 3) : null,
+      p.liquidPhases ? fixed(p.liquidPhases[1].x1, 5) : null,
+      p.liquidPhases ? exponent(p.liquidPhases[1].uncertainty, 3) : null,
     ]),
   )
 }
