@@ -102,7 +102,7 @@ test('an analyst creates a data set, uploads a calibration and a run file, fixes
   await expect(page.getByTestId('fit-nrtl')).toBeVisible()
   await expect(page.getByTestId('curves-drawn')).toContainText('Wilson')
   await expect(page.getByTestId('curves-drawn')).toContainText('NRTL')
-  await expect(page.getByTestId('curves-drawn')).toContainText('azeotrope')
+  await expect(page.getByTestId('lab-azeotropes')).toContainText('azeotrope')
   await expect(page.getByTestId('txy-plot')).toContainText('2 computed curve pairs')
   await snap(page, 'lab-06-workspace-fitted')
 
