@@ -38,37 +38,8 @@ export async function signedContentV1(db: Db, dataSetId: string) {
   const fits = (await listFits(db, dataSetId)).sort((a, b) => a.id.localeCompare(b.id))
   return {
     format: 'ebullio-signed-content/1',
-    dataSet: {
-      id: d.id,
-      lineageId: d.lineageId,
-      version: d.version,
-      systemId: d.systemId,
-      title: d.title,
-      nominalPressurePa: d.nominalPressurePa,
-      apparatusNotes: d.apparatusNotes,
-      projectRef: d.projectRef,
-      origin: d.origin,
-      originMethod: d.originMethod,
-      citation: d.citation,
-      countsAsOwn: d.countsAsOwn,
-      countsAsOwnReason: d.countsAsOwnReason,
-      layout: d.layout,
-    },
-    points: points.map((p) => ({
-      id: p.id,
-      seq: p.seq,
-      sample: p.sampleLabel,
-      T: p.temperatureK,
-      P: p.pressurePa,
-      x1: p.x1,
-      ux1: p.x1Uncertainty,
-      y1: p.y1,
-      uy1: p.y1Uncertainty,
-      excluded: p.excluded,
-      reason: p.exclusionReason,
-      uploadId: p.uploadId,
-      calibrationId: p.calibrationId,
-    })),
+    dataSet: metadataOf(d),
+    points: points.map(signedPoint),
     fits: fits.map((f) => ({
       id: f.id,
       model: f.model,
@@ -97,6 +68,23 @@ const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => 
   layout: d.layout,
 })
 
+/** One point as both digest formats sign it. */
+const signedPoint = (p: Awaited<ReturnType<typeof listPoints>>[number]) => ({
+  id: p.id,
+  seq: p.seq,
+  sample: p.sampleLabel,
+  T: p.temperatureK,
+  P: p.pressurePa,
+  x1: p.x1,
+  ux1: p.x1Uncertainty,
+  y1: p.y1,
+  uy1: p.y1Uncertainty,
+  excluded: p.excluded,
+  reason: p.exclusionReason,
+  uploadId: p.uploadId,
+  calibrationId: p.calibrationId,
+})
+
 /**
  * Format 2: metadata, every point (in sequence), the point set's digest, the recommended fit when it was
  * computed on that point set (else null) and every consistency result computed on it (by id). Results
@@ -115,21 +103,7 @@ export async function signedContentV2(db: Db, dataSetId: string) {
     format: DIGEST_V2,
     dataSet: metadataOf(d),
     pointSet: { digest: pointSet.digest, included: pointSet.included },
-    points: points.map((p) => ({
-      id: p.id,
-      seq: p.seq,
-      sample: p.sampleLabel,
-      T: p.temperatureK,
-      P: p.pressurePa,
-      x1: p.x1,
-      ux1: p.x1Uncertainty,
-      y1: p.y1,
-      uy1: p.y1Uncertainty,
-      excluded: p.excluded,
-      reason: p.exclusionReason,
-      uploadId: p.uploadId,
-      calibrationId: p.calibrationId,
-    })),
+    points: points.map(signedPoint),
     recommendedFit:
       fit && fit.pointSetDigest === pointSet.digest
         ? {
