@@ -1,7 +1,7 @@
 /**
  * Benchmark of the joint fit (`pnpm bench` runs it after bench/run.ts): NRTL with temperature-dependent energies
  * b(T) = b + bT·(T − 298.15 K) over three 30-point data sets (40, 101.325 and 250 kPa), beside the same objective
- * through scipy.optimize.least_squares (bench/scipy-joint-fit.py) when python3 with scipy is present.
+ * through scipy.optimize.least_squares (bench/scipy-fit.py) when python3 with scipy is present.
  * Targets (issue): < 20 ms median and ≥ 20× faster than scipy at the same optimum.
  * Data: 1-propanol–water generated from SVNA 7th ed. Table 12.5 NRTL (invented temperature slopes) plus a
  * deterministic scatter of about 0.1 K and 0.005 in y.
@@ -60,7 +60,7 @@ const input = JSON.stringify({
   start: [0, 0, 0, 0],
   repeats: 7,
 })
-const script = fileURLToPath(new URL('./scipy-joint-fit.py', import.meta.url))
+const script = fileURLToPath(new URL('./scipy-fit.py', import.meta.url))
 const sp = spawnSync('python3', [script], { input, encoding: 'utf8' })
 if (sp.status !== 0) {
   console.log(`  scipy comparison skipped: ${(sp.stderr || String(sp.error)).split('\n')[0]}`)

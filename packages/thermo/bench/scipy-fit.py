@@ -1,4 +1,6 @@
-"""The 30-point NRTL bubble-point fit of bench/run.ts, done with scipy.optimize.least_squares (MINPACK LM).
+"""The NRTL bubble-point fits of bench/run.ts (30 points, b12 and b21) and bench/joint-fit.ts (three 30-point data
+sets, energies linear in T: b(T) = b + bT*(T - 298.15 K)), done with scipy.optimize.least_squares (MINPACK LM).
+The start vector says which: two values fit b12, b21; four fit b12, b21, b12T, b21T.
 
 Same points, same weights, same objective: residuals (Tcalc - T)/sigmaT and (ycalc - y)/sigmaY, each point's
 bubble temperature at its own x1 and P under modified Raoult's law with NRTL; ln(P/Pa) = a - b/(T/K + c).
@@ -14,10 +16,11 @@ from scipy.optimize import least_squares
 R = 8.314462618
 
 
-def nrtl(b12, b21, alpha, x1, T):
+def nrtl(theta, alpha, x1, T):
+    b12, b21, b12T, b21T = (*theta, 0.0, 0.0) if len(theta) == 2 else theta
     x2 = 1.0 - x1
-    t12 = b12 / (R * T)
-    t21 = b21 / (R * T)
+    t12 = (b12 + b12T * (T - 298.15)) / (R * T)
+    t21 = (b21 + b21T * (T - 298.15)) / (R * T)
     G12 = np.exp(-alpha * t12)
     G21 = np.exp(-alpha * t21)
     S1 = x1 + x2 * G21
@@ -28,11 +31,10 @@ def nrtl(b12, b21, alpha, x1, T):
 
 
 def bubble(theta, prob):
-    b12, b21 = theta
     (a1, bb1, c1), (a2, bb2, c2) = prob["vp"]
     x1, lnP, T = prob["x1"], prob["lnP"], prob["T0"].copy()
     for _ in range(100):
-        lg1, lg2 = nrtl(b12, b21, prob["alpha"], x1, T)
+        lg1, lg2 = nrtl(theta, prob["alpha"], x1, T)
         k1 = x1 * np.exp(lg1 + a1 - bb1 / (T + c1))
         k2 = (1 - x1) * np.exp(lg2 + a2 - bb2 / (T + c2))
         S = k1 + k2
@@ -42,7 +44,7 @@ def bubble(theta, prob):
         T = T + dT
         if np.max(np.abs(dT)) < 1e-9:
             break
-    lg1, lg2 = nrtl(b12, b21, prob["alpha"], x1, T)
+    lg1, lg2 = nrtl(theta, prob["alpha"], x1, T)
     k1 = x1 * np.exp(lg1 + a1 - bb1 / (T + c1))
     k2 = (1 - x1) * np.exp(lg2 + a2 - bb2 / (T + c2))
     return T, k1 / (k1 + k2)
