@@ -117,6 +117,31 @@ export interface GammaPhiResult {
 }
 
 /**
+ * The result at a settled state of the substitution solvers (bubble pressure, dew temperature): refuses a liquid in a
+ * two-liquid gap, then γ, φ̂ and Φ at that state. `z1` is the composition that sets the range warnings.
+ */
+function settled(
+  c: CompiledSystem,
+  v: VirialVapor,
+  s: { T: number; P: number; x1: number; y1: number },
+  iterations: number,
+  z1: number,
+): GammaPhiResult {
+  assertSingleLiquid(c, s.x1, s.T)
+  lnGammaT(c.act, s.x1, s.T, g)
+  const fin = vaporCorrection(v, s.T, s.P, s.y1, psatOf(c, s.T))
+  return {
+    converged: true,
+    ...s,
+    gamma: [Math.exp(g[0]), Math.exp(g[1])],
+    phi: fin.phi,
+    Phi: fin.Phi,
+    iterations,
+    warnings: [...systemWarnings(c, s.T, z1), ...virialValidityWarnings(v, s.T, s.P, s.y1)],
+  }
+}
+
+/**
  * γ–φ bubble temperature at P (Pa) and liquid x1: Newton on ln Σ xi·γi·Pi_sat/Φi − ln P with Φ carried from the
  * last iterate (Φ changes slowly with T), stopped when T moves less than 1e-9 K and y1 less than 1e-12.
  */
@@ -179,22 +204,7 @@ export function bubblePressureGammaPhi(
     const done = Math.abs(Pn - P) < 1e-11 * Pn && Math.abs(yn - y1) < 1e-13
     P = Pn
     y1 = yn
-    if (done) {
-      assertSingleLiquid(c, x1, T)
-      const fin = vaporCorrection(v, T, P, y1, ps)
-      return {
-        converged: true,
-        T,
-        P,
-        x1,
-        y1,
-        gamma: [Math.exp(g[0]), Math.exp(g[1])],
-        phi: fin.phi,
-        Phi: fin.Phi,
-        iterations: it,
-        warnings: [...systemWarnings(c, T, x1), ...virialValidityWarnings(v, T, P, y1)],
-      }
-    }
+    if (done) return settled(c, v, { T, P, x1, y1 }, it, x1)
     if (!Number.isFinite(P)) break
   }
   throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
@@ -231,23 +241,7 @@ export function dewTemperatureGammaPhi(
     x1 = xn
     if (!Number.isFinite(dT)) break
     T += Math.max(-20, Math.min(20, dT))
-    if (Math.abs(dT) < 1e-9 && dx < 1e-12) {
-      assertSingleLiquid(c, x1, T)
-      lnGammaT(c.act, x1, T, g)
-      const fin = vaporCorrection(v, T, P, y1, psatOf(c, T))
-      return {
-        converged: true,
-        T,
-        P,
-        x1,
-        y1,
-        gamma: [Math.exp(g[0]), Math.exp(g[1])],
-        phi: fin.phi,
-        Phi: fin.Phi,
-        iterations: it,
-        warnings: [...systemWarnings(c, T, y1), ...virialValidityWarnings(v, T, P, y1)],
-      }
-    }
+    if (Math.abs(dT) < 1e-9 && dx < 1e-12) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
   throw noConvergence('γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
 }
