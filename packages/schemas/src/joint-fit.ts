@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import type { FitParameterDto, FitStatisticsDto } from './dto.js'
+import { FIT_MODEL_LABELS, labelWithNote } from './fit-label.js'
 import { labId, PRESSURE_UNITS } from './lab.js'
 
 /**
@@ -138,11 +139,9 @@ export interface RecommendedParameterSetDto<D = string> {
   dataSets: { dataSetId: string; title: string; version: number; nominalPressurePa: number; pointCount: number }[]
 }
 
-const JOINT_MODEL_NAMES: Record<JointFitModel, string> = { nrtl: 'NRTL', wilson: 'Wilson' }
-
 /**
  * Name of a joint parameter set for legends, tables and exports, in the style of the lab screens' fit names
- * ("NRTL #2 (α = 0.3)"): "NRTL (joint, 2 data sets)", "Wilson (joint, constant energies, 3 data sets)".
+ * (fitLabel: "NRTL #2 (α = 0.3)"): "NRTL (joint, 2 data sets)", "Wilson (joint, constant energies, 3 data sets)".
  * Notes are merged into the parentheses: "NRTL (joint, 2 data sets; recommended for the system)".
  */
 export function jointFitLabel(
@@ -151,5 +150,6 @@ export function jointFitLabel(
 ) {
   const words = ['joint', ...(f.temperatureDependent === false ? ['constant energies'] : [])]
   words.push(`${f.dataSetCount} data set${f.dataSetCount === 1 ? '' : 's'}`)
-  return `${JOINT_MODEL_NAMES[f.model] ?? f.model} (${words.join(', ')}${note ? `; ${note}` : ''})`
+  const label = `${FIT_MODEL_LABELS[f.model] ?? f.model} (${words.join(', ')})`
+  return note ? labelWithNote(label, note) : label
 }
