@@ -68,7 +68,7 @@ export interface SignatureInput {
 }
 
 /** Re-entered password check for a signature; a wrong password records nothing. */
-async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
+export async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
   if (!(await verifyPassword(await passwordHashOf(db, user.id), password))) {
     throw new AppError(403, 'signature_refused', 'The password is not correct; nothing was signed.')
   }

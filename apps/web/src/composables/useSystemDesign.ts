@@ -1,6 +1,5 @@
 import { computed, type Ref } from 'vue'
 import type { MeasuredData, ParametersExport } from '../api/catalogue'
-import { MODEL_LABELS } from '../components/catalogue/model-labels'
 import { extrapolationItems, pressureVerdict, type PressureVerdict } from '../components/design/design-limits'
 import {
   diagramsAt,
@@ -76,9 +75,8 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
     )
   })
   const designBlocked = computed(() => verdict.value?.designBlocked ?? false)
-  const modelLabel = computed(() =>
-    built.value?.fit ? (MODEL_LABELS[built.value.fit.model] ?? built.value.fit.model) : '',
-  )
+  /** The fit's name exactly as the lab screens give it (sent by the server, one shared rule). */
+  const modelLabel = computed(() => built.value?.fit?.label ?? '')
   /** Measured points are drawn only at (within 0.5 % of) the pressure they were measured at. */
   const atMeasuredPressure = computed(
     () => !!params.value && Math.abs(pressurePa.value / params.value.dataSet.nominalPressurePa - 1) < 0.005,
@@ -88,9 +86,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   )
   /** The version's other fits, switched off in the legend until wanted. */
   const others = computed(() =>
-    params.value && diagrams.value.d
-      ? otherFitCurves(params.value, fitId.value, pressurePa.value, (m) => MODEL_LABELS[m] ?? m)
-      : [],
+    params.value && diagrams.value.d ? otherFitCurves(params.value, fitId.value, pressurePa.value) : [],
   )
   return {
     built,
