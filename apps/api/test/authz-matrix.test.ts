@@ -43,6 +43,7 @@ const expected: Record<string, Access> = {
   'GET /api/gc-methods': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/gc-methods': ['analyst', 'lead_chemist', 'admin'],
   'POST /api/gc-methods/:id/retire': ['lead_chemist', 'admin'],
+  'GET /api/gc-methods/:id/check-standards': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/calibrations': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/calibrations/:id': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/calibrations/preview': ['analyst', 'lead_chemist'],
