@@ -40,6 +40,7 @@ const expected: Record<string, Access> = {
   'GET /api/systems': 'authenticated',
   'POST /api/systems': ['analyst', 'lead_chemist', 'admin'],
   'GET /api/systems/:id': 'authenticated',
+  'GET /api/systems/:id/literature': 'authenticated',
   'GET /api/gc-methods': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/gc-methods': ['analyst', 'lead_chemist', 'admin'],
   'POST /api/gc-methods/:id/retire': ['lead_chemist', 'admin'],

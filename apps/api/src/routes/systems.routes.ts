@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { ctx } from '../context.js'
 import * as calibrations from '../services/calibrations.service.js'
 import { gcMethodCheckStandards } from '../services/check-standards.service.js'
+import { systemLiterature } from '../services/literature.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import * as service from '../services/systems.service.js'
 import { defineRoutes } from './define.js'
@@ -53,6 +54,15 @@ export const systemRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       res.json(await service.getSystem(ctx(req).db, parseParams(systemParams, req).id))
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/systems/:id/literature',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.json(await systemLiterature(db, user, parseParams(systemParams, req).id))
     },
   },
   {
