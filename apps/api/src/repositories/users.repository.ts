@@ -194,3 +194,12 @@ export async function findOpenInvite(db: Db, tokenHash: string) {
     .where('expires_at', '>', new Date())
     .executeTakeFirst()
 }
+
+/** Where notification mail for a user goes, and whether it may (active account that wants mail). */
+export async function mailPreferenceOf(db: Db, userId: string) {
+  return db
+    .selectFrom('app_user')
+    .select(['email', 'notify_mail', 'active'])
+    .where('id', '=', userId)
+    .executeTakeFirst()
+}
