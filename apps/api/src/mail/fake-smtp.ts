@@ -1,18 +1,24 @@
-import { simpleParser } from 'mailparser'
-import { SMTPServer } from 'smtp-server'
 import type { Kysely } from 'kysely'
 import type { Database } from '../db/index.js'
 import { insertCapturedMail } from '../repositories/captured-mail.repository.js'
 
 /**
  * A local SMTP server for development and tests: it accepts every message on loopback and stores it in
- * `captured_mail`, where admins can read it in the app and tests can follow its links.
+ * `captured_mail`, where admins can read it in the app and tests can follow its links. Its two packages are
+ * development dependencies, loaded only when the capture starts, so a production install does without them.
  */
 export async function startFakeSmtp(
   db: Kysely<Database>,
   port: number,
   host = '127.0.0.1',
 ): Promise<{ port: number; close: () => Promise<void> }> {
+  const [{ SMTPServer }, { simpleParser }] = await Promise.all([import('smtp-server'), import('mailparser')]).catch(
+    (e: Error) => {
+      throw new Error(
+        `The mail capture (FAKE_SMTP) needs the development packages smtp-server and mailparser: ${e.message}`,
+      )
+    },
+  )
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],
