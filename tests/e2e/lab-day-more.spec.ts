@@ -1,7 +1,8 @@
+import path from 'node:path'
 import { expect, test, type APIRequestContext, type Page } from '@playwright/test'
 import { baseURL } from '../../playwright.config'
 import { DEMO, signIn } from './support/helpers'
-import { APPROVED_TO_REVISE, OPEN_DRAFT, openDataSet, snap } from './support/lab'
+import { APPROVED_TO_REVISE, OPEN_DRAFT, snap } from './support/lab'
 
 /**
  * More of a lab's day (issue 11): GC check standards charted per method, literature data drawn beside the lab's
@@ -79,6 +80,36 @@ async function snapBoth(page: Page, name: string) {
   await page.setViewportSize({ width: 1280, height: 800 })
 }
 
+test('a run file with pure-component samples and a check standard: exact ends, the check kept apart', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.analyst)
+  await page.goto('/datasets')
+  await page.getByTestId('new-dataset').click()
+  await page.getByLabel('Title').fill('Pure boiling points and a check')
+  await page.getByLabel('Binary system').fill('acetone')
+  await page.getByRole('option', { name: /acetone \/ methanol/ }).click()
+  await page.getByTestId('create-dataset').click()
+  const dialog = page.getByTestId('upload-dialog')
+  await expect(dialog).toBeVisible()
+  await dialog.getByTestId('upload-kind').getByText('Run file').click()
+  await dialog
+    .getByTestId('file-input')
+    .setInputFiles(path.join('docs/examples', 'run-acetone-methanol-pure-and-checks.csv'))
+  await expect(dialog.getByTestId('preview-samples')).toContainText('PURE-METHANOL')
+  await expect(dialog.getByTestId('preview-pure')).toHaveCount(2)
+  await expect(dialog.locator('td[data-problem="error"]')).toHaveCount(0)
+  const pureRow = dialog.getByTestId('preview-samples').locator('tbody tr').filter({ hasText: 'PURE-ACETONE' })
+  await expect(pureRow).toContainText('1.0000')
+  await expect(dialog.getByTestId('preview-checks')).toContainText('CHK-0.5')
+  await snap(page, 'lab-49-run-preview-pure-and-check')
+  if (await dialog.getByTestId('ack-warnings').count()) await dialog.getByText(/I have checked the/).click()
+  await dialog.getByTestId('commit-upload').click()
+  await expect(dialog).toBeHidden()
+  // two pure samples and one mixture become points; the check standard does not
+  await expect(page.getByTestId('points-table').locator('tbody tr')).toHaveCount(3)
+})
+
 test('check standards run with a GC file go on the method’s control chart, the far one marked', async ({ page }) => {
   await signIn(page, DEMO.analyst)
   // a draft of its own on the open draft's system, which has one active calibration
@@ -127,19 +158,22 @@ test('check standards run with a GC file go on the method’s control chart, the
   await snapBoth(page, 'lab-50-gc-check-standards')
 })
 
-test('literature data are drawn beside the lab’s own on the system’s plots, named as text', async ({ page }) => {
+test('literature data are drawn beside the lab’s own on the plots of the system, named as text', async ({ page }) => {
   await signIn(page, DEMO.analyst)
-  const { systemId } = await draftId(page, APPROVED_TO_REVISE)
-  await literatureSet(page, systemId, 'Comparison table', '<i>Invented</i>, B. Other', [
+  const approved = await draftId(page, APPROVED_TO_REVISE)
+  await literatureSet(page, approved.systemId, 'Comparison table', '<i>Invented</i>, B. Other', [
     HEXANE_HEPTANE[1],
     HEXANE_HEPTANE[4],
     HEXANE_HEPTANE[7],
   ])
-  await page.goto(`/systems/${systemId}`)
+  // the lab's own approved series of the same system shows the literature set beside its points
+  await page.goto(`/datasets/${approved.id}`)
+  await expect(page.getByRole('heading', { level: 1, name: APPROVED_TO_REVISE })).toBeVisible({ timeout: 30_000 })
   const note = page.getByTestId('literature-note')
   await expect(note).toContainText('<i>Invented</i> et al. 1987 (literature), 3 points')
   await expect(note.locator('i')).toHaveCount(0)
-  await snapBoth(page, 'lab-51-literature-on-system-plots')
+  await page.getByTestId('txy-plot').scrollIntoViewIfNeeded()
+  await snapBoth(page, 'lab-51-literature-beside-own-data')
 })
 
 test('where to measure next: a range at a dilute end, a distance from the points, marks on both plots', async ({
@@ -154,7 +188,9 @@ test('where to measure next: a range at a dilute end, a distance from the points
     models: ['margules', 'van-laar', 'wilson', 'nrtl'],
   })
   await call(page.request, 'post', `/api/data-sets/${d.id}/fits`, { models: ['wilson', 'nrtl'] })
-  await openDataSet(page, title)
+  await page.goto(`/datasets/${d.id}`)
+  // six fits' curves are computed in the browser: on a busy machine the first paint can take a while
+  await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible({ timeout: 30_000 })
   const panel = page.getByTestId('uncertainty-panel')
   await panel.getByTestId('suggestion-range').click()
   await page.getByRole('option', { name: 'Little component 2 (x₁ 0.85–1)' }).click()
