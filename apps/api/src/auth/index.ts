@@ -12,6 +12,8 @@ export interface SessionUser {
   email: string
   displayName: string
   roles: Role[]
+  /** Whether the user wants mail notifications; read with the session (absent where a user is built otherwise). */
+  notifyMail?: boolean
 }
 
 const COOKIE = 'ebullio_session'
@@ -83,6 +85,7 @@ export class Sessions {
         'u.email',
         'u.display_name',
         'u.active',
+        'u.notify_mail',
         sql<
           Role[]
         >`coalesce((select array_agg(r.role order by r.role) from user_role r where r.user_id = u.id), '{}')`.as(
@@ -107,7 +110,16 @@ export class Sessions {
         .execute()
       setCookie = this.cookie(token, Math.floor(this.idleMs / 1000))
     }
-    return { user: { id: row.id, email: row.email, displayName: row.display_name, roles: row.roles }, setCookie }
+    return {
+      user: {
+        id: row.id,
+        email: row.email,
+        displayName: row.display_name,
+        roles: row.roles,
+        notifyMail: row.notify_mail,
+      },
+      setCookie,
+    }
   }
 
   /** The stored id of the session a cookie header carries (null without one). */
