@@ -38,7 +38,7 @@ test('an admin sees a refused invitation with the server’s error and tries it 
   page,
 }) => {
   const stamp = Date.now()
-  const email = `noor.${stamp}@lab.invalid`
+  const email = `ilse.${stamp}@lab.invalid`
   const hostileTo = `lead.${stamp}@kestrel.invalid`
   await enqueue(hostileTo, HOSTILE)
 
@@ -46,7 +46,7 @@ test('an admin sees a refused invitation with the server’s error and tries it 
   await nav(page).getByRole('link', { name: 'People and roles' }).click()
   await page.getByTestId('invite-open').click()
   const dialog = page.getByRole('dialog', { name: 'Invite a colleague' })
-  await dialog.getByLabel('Name').fill('Noor Haddad')
+  await dialog.getByLabel('Name').fill('Ilse Brandt')
   await dialog.getByLabel('E-mail address').fill(email)
   await dialog.getByTestId('invite-roles').click()
   await page.getByRole('option', { name: 'Reviewer' }).click()
@@ -57,7 +57,10 @@ test('an admin sees a refused invitation with the server’s error and tries it 
   await nav(page).getByRole('link', { name: 'Undelivered mail' }).click()
   await expect(page.getByRole('heading', { level: 1, name: 'Undelivered mail' })).toBeVisible()
   // refused once: still being tried (a refused recipient is given up after 3 tries)
-  await page.getByTestId('outbox-filter').getByText(/Still trying/).click()
+  await page
+    .getByTestId('outbox-filter')
+    .getByText(/Still trying/)
+    .click()
   const row = await rowWithTries(page, email, 1)
   await expect(row).toContainText('You are invited to Ebullio')
   await expect(row.getByTestId('outbox-error')).toContainText(`550 5.1.2 ${email}: this domain does not receive mail`)
@@ -76,7 +79,10 @@ test('an admin sees a refused invitation with the server’s error and tries it 
   await expect(page.getByText(`The message to ${email} is tried again within a few seconds.`)).toBeVisible()
   await rowWithTries(page, email, 2)
   await row.getByTestId('outbox-retry').click()
-  await page.getByTestId('outbox-filter').getByText(/Given up/).click()
+  await page
+    .getByTestId('outbox-filter')
+    .getByText(/Given up/)
+    .click()
   const given = await rowWithTries(page, email, 3)
   await expect(given.getByTestId('outbox-error')).toContainText('550')
   await expect(given.getByTestId('outbox-retry')).toHaveText('Try again')
