@@ -6,6 +6,9 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
 }) => {
   const email = `new.reviewer.${Date.now()}@lab.example`
   await signIn(page, DEMO.admin)
+  // the app frame shows the configured LAB_NAME (playwright.config.ts), markup as text
+  await expect(page.getByTestId('lab-name')).toHaveText('Halvorsen <b>Solvent</b> Recovery Lab')
+  await expect(page.getByTestId('lab-name').locator('b')).toHaveCount(0)
   await shot(page, 'admin-home')
   await nav(page).getByRole('link', { name: 'People and roles' }).click()
   await expect(page.getByRole('heading', { name: 'People and roles' })).toBeVisible()
@@ -50,6 +53,41 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
   await signOut(page)
 
   await signIn(page, email, 'a-fresh-long-password')
+  await signOut(page)
+
+  // Forgotten password, twice: the newest mailed link opens the reset page in the browser and sets the password;
+  // the older link stopped working when the newer one was used.
+  const forgot = async () => {
+    await page.goto('/forgot-password')
+    await page.getByLabel('E-mail address').fill(email)
+    await page.getByRole('button', { name: 'Send the link' }).click()
+    await expect(page.getByText('If this address belongs to an account')).toBeVisible()
+  }
+  await forgot()
+  const older = linkFrom(await waitForMail(email, /Reset/), '/reset-password/')
+  await forgot()
+  await expect.poll(async () => linkFrom(await waitForMail(email, /Reset/), '/reset-password/')).not.toBe(older)
+  const newer = linkFrom(await waitForMail(email, /Reset/), '/reset-password/')
+  await page.goto(newer)
+  await expect(page.getByRole('heading', { name: 'Choose a new password' })).toBeVisible()
+  await page.locator('#new-password').fill('another-long-password-2')
+  await page.locator('#repeat-password').fill('another-long-password-2')
+  await page.getByRole('button', { name: 'Save the new password' }).click()
+  await expect(page.getByText('Your password is changed.')).toBeVisible()
+  await shot(page, 'reset-password-done')
+  await page.getByRole('link', { name: 'Sign in' }).click()
+  await expect(page).toHaveURL(/\/sign-in/)
+  await page.getByLabel('E-mail address').fill(email)
+  await page.locator('#password').fill('another-long-password-2')
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await expect(page.getByRole('heading', { name: /Good to see you, Noor Haddad/ })).toBeVisible()
+  await signOut(page)
+  await page.goto(older)
+  await page.locator('#new-password').fill('a-third-long-password-3')
+  await page.locator('#repeat-password').fill('a-third-long-password-3')
+  await page.getByRole('button', { name: 'Save the new password' }).click()
+  await expect(page.getByText('This link is not valid any more.')).toBeVisible()
+  await signIn(page, email, 'another-long-password-2')
   await signOut(page)
 })
 

@@ -74,7 +74,7 @@ describe('results bound to their point set', () => {
     expect(submit.status).toBe(409)
     expect(submit.body.error.code).toBe('stale_results')
     expect(submit.body.error.message).toMatch(
-      /^Cannot submit: results computed on other points than the data set has now — the recommended fit \(wilson\) was computed on 12 points on .+ UTC; the (area|point) test was computed on 12 points/,
+      /^Cannot submit: results computed on other points than the data set has now — the recommended fit \(Wilson\) was computed on 12 points on .+ UTC; the (area|point) test was computed on 12 points/,
     )
     expect(submit.body.error.details.stale).toHaveLength(3)
     // A stale fit cannot be chosen either.
@@ -110,7 +110,7 @@ describe('results bound to their point set', () => {
       .send({ password: PASSWORD, reason: 'ok', rowVersion: sub.body.rowVersion })
     expect(r.status).toBe(409)
     expect(r.body.error.code).toBe('stale_results')
-    expect(r.body.error.message).toMatch(/^Cannot approve: .*the recommended fit \(wilson\) was computed on 12 points/)
+    expect(r.body.error.message).toMatch(/^Cannot approve: .*the recommended fit \(Wilson\) was computed on 12 points/)
     expect(await labCounts(t)).toEqual(before)
   })
 
@@ -327,17 +327,21 @@ describe('the signed digest', () => {
     const psd = sha(canonicalize(pointSet)!)
     expect(psd).toBe(det.pointSetDigest)
     const fit = det.fits.find((f: { id: string }) => f.id === det.recommendedFitId)
+    // the eight metadata fields of format 1 (frozen); format 2 adds origin and layout
+    const metadataV1 = {
+      id: det.id,
+      lineageId: det.lineageId,
+      version: det.version,
+      systemId: det.systemId,
+      title: det.title,
+      nominalPressurePa: det.nominalPressurePa,
+      apparatusNotes: det.apparatusNotes,
+      projectRef: det.projectRef,
+    }
     const content = {
       format: 'ebullio-signed-content/2',
       dataSet: {
-        id: det.id,
-        lineageId: det.lineageId,
-        version: det.version,
-        systemId: det.systemId,
-        title: det.title,
-        nominalPressurePa: det.nominalPressurePa,
-        apparatusNotes: det.apparatusNotes,
-        projectRef: det.projectRef,
+        ...metadataV1,
         origin: det.origin,
         originMethod: det.originMethod,
         citation: det.citation,
@@ -383,8 +387,26 @@ describe('the signed digest', () => {
     }
     expect(sha(canonicalize(content)!)).toBe(ok.body.digest)
 
-    // A signature made with format 1 (before this change) verifies with format 1.
+    // A signature made with format 1 (before this change) verifies with format 1. Format 1 as it was released:
+    // sorted-key JSON of eight metadata fields, every point, every fit by id and the recommended fit's id
+    // (recomputed here from the API's answers, not with the service's code).
+    const v1Content = {
+      format: 'ebullio-signed-content/1',
+      dataSet: metadataV1,
+      points: content.points,
+      fits: [...det.fits]
+        .sort((a: { id: string }, b: { id: string }) => a.id.localeCompare(b.id))
+        .map((f: { id: string; model: string; activity: unknown; parameters: unknown; pointIds: string[] }) => ({
+          id: f.id,
+          model: f.model,
+          activity: f.activity,
+          parameters: f.parameters,
+          pointIds: f.pointIds,
+        })),
+      recommendedFitId: det.recommendedFitId,
+    }
     const v1 = await contentDigest(t.db, d.id, DIGEST_V1)
+    expect(v1).toBe(sha(canonicalize(v1Content)!))
     await sql`insert into approval (data_set_id, signer_id, meaning, reason, digest, digest_algorithm)
       values (${d.id}, ${lab.ids.lead2}, 'approved', 'an older signature', ${v1}, 'ebullio-signed-content/1')`.execute(
       t.db,

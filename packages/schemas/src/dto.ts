@@ -1,4 +1,5 @@
 import type { ComponentProperties } from './component-properties.js'
+import type { RecommendedParameterSetDto } from './joint-fit.js'
 /**
  * Types only: the JSON the API answers with and the web app reads, for the engineer and admin screens
  * (components, systems, points, fits, the catalogue, GC methods and calibrations). `D` is the type of a
@@ -152,7 +153,8 @@ export interface ApprovedVersionDto<D = string> {
   /** Pa */
   nominalPressurePa: number
   approvedAt: D | null
-  recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+  /** `label`: the fit's name as the lab screens give it (fit-label.ts) */
+  recommendedFit: { id: string; model: FitModelName; label: string; parameters: FitParameterDto[] } | null
   /** What the recommended fit says about the liquid splitting; null without a fit or when it cannot be computed. */
   miscibility?: CatalogueMiscibilityDto | null
 }
@@ -173,6 +175,8 @@ export interface CatalogueEntryDto<D = string> {
   system: SystemDto<D>
   approved: ApprovedVersionDto<D>[]
   superseded: { dataSetId: string; version: number; approvedAt: D | null }[]
+  /** The system's signed recommended parameter set (joint fit over several data sets), null when it has none. */
+  recommendedSet?: RecommendedParameterSetDto<D> | null
 }
 
 /** A GC method; a retired one keeps its history and none of its calibrations can be active. */

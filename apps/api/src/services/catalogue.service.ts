@@ -1,12 +1,13 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
 import { createHash } from 'node:crypto'
-import type { CatalogueEntryDto, CatalogueMiscibilityDto } from '@ebullio/schemas'
+import { fitLabel, type CatalogueEntryDto, type CatalogueMiscibilityDto } from '@ebullio/schemas'
 import {
   findAzeotropes,
   liquidLiquidEquilibrium,
   phaseDiagram,
   relativeVolatility,
   type ActivityModel,
+  type BinarySystem,
   type PhaseDiagram,
 } from '@ebullio/thermo'
 import { sql } from 'kysely'
@@ -16,10 +17,11 @@ import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { findCurveSource } from '../repositories/curves.repository.js'
-import { findFit } from '../repositories/fits.repository.js'
+import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, PUBLISHED_STATES, readsEverything, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
+import { recommendedSetOf } from './joint-fit-signing.js'
 
 /** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
 const ROOM_T = 298.15
@@ -59,6 +61,13 @@ export async function catalogue(
           .where('d.system_id', 'in', ids)
           .orderBy('d.version', 'desc')
           .execute()
+  // the recommended fit's name as the lab screens give it: it depends on the version's other fits
+  const labels = new Map<string, string>()
+  for (const v of rows.filter((r) => r.state === 'approved' && r.fit_id)) {
+    const fits = await listFits(db, v.id)
+    const f = fits.find((g) => g.id === v.fit_id)
+    if (f) labels.set(v.id, fitLabel(f, fits))
+  }
   const inputs = new Map<string, Awaited<ReturnType<typeof engineInputs>> | null>()
   for (const id of ids) inputs.set(id, await engineInputs(db, id).catch(() => null))
   const items = systems.items.map((s) => {
@@ -74,7 +83,14 @@ export async function catalogue(
           nominalPressurePa: v.nominal_pressure_pa,
           approvedAt: v.approved_at,
           recommendedFit:
-            v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+            v.fit_id && v.model && v.parameters
+              ? {
+                  id: v.fit_id,
+                  model: v.model,
+                  label: labels.get(v.id) ?? v.model,
+                  parameters: v.parameters,
+                }
+              : null,
           miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, v.nominal_pressure_pa) : null,
         })),
       superseded: versions
@@ -82,6 +98,8 @@ export async function catalogue(
         .map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
     }
   })
+  for (const item of items as CatalogueEntryDto<Date>[])
+    item.recommendedSet = await recommendedSetOf(db, item.system.id)
   return { items, total: systems.total, page: o.page, pageSize: o.pageSize }
 }
 
@@ -191,33 +209,38 @@ async function computeCurve(db: Db, user: SessionUser, id: string, o: CurveQuery
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   const chosen = await chosenActivity(db, d, o.fitId)
   const inputs = await engineInputs(db, d.systemId)
-  const system = binarySystem(inputs, chosen.activity)
-  const diagram = thermo(
-    'T–x–y curve',
-    () =>
-      phaseDiagram(system, { P: o.P }, { points: o.points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
-  )
-  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P: o.P }))
-  // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
-  const gap = diagram.threePhase
-  const volatility = Array.from({ length: 21 }, (_, i) => i / 20)
-    .filter((x1) => !gap || x1 <= gap.x1I || x1 >= gap.x1II)
-    .map((x1) => {
-      const r = thermo('Relative volatility', () => relativeVolatility(system, { P: o.P, x1 }))
-      return { x1, alpha: r.alpha, T: r.T }
-    })
   const curve = {
     dataSetId: id,
     fitId: chosen.fitId,
     model: chosen.model,
     P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
+    ...curveOf(binarySystem(inputs, chosen.activity), o.P, o.points),
+    caution: DESIGN_CAUTION,
+  }
+  return { curve, vaporPressureSetIds: inputs.vaporPressureSets.map((v) => v.id) }
+}
+
+/** The isobaric diagram (with the liquid split), every azeotrope and α across composition at P (Pa). */
+export function curveOf(system: BinarySystem, P: number, points: number) {
+  const diagram = thermo(
+    'T–x–y curve',
+    () => phaseDiagram(system, { P }, { points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
+  )
+  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P }))
+  // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
+  const gap = diagram.threePhase
+  const volatility = Array.from({ length: 21 }, (_, i) => i / 20)
+    .filter((x1) => !gap || x1 <= gap.x1I || x1 >= gap.x1II)
+    .map((x1) => {
+      const r = thermo('Relative volatility', () => relativeVolatility(system, { P, x1 }))
+      return { x1, alpha: r.alpha, T: r.T }
+    })
+  return {
     diagram,
     threePhase: diagram.threePhase ?? null,
     azeotrope: azeotropes[0] ?? null,
     azeotropes,
     relativeVolatility: volatility,
-    caution: DESIGN_CAUTION,
   }
-  return { curve, vaporPressureSetIds: inputs.vaporPressureSets.map((v) => v.id) }
 }

@@ -38,7 +38,7 @@ export async function signedContentV1(db: Db, dataSetId: string) {
   const fits = (await listFits(db, dataSetId)).sort((a, b) => a.id.localeCompare(b.id))
   return {
     format: 'ebullio-signed-content/1',
-    dataSet: metadataOf(d),
+    dataSet: metadataV1Of(d),
     points: points.map(signedPoint),
     fits: fits.map((f) => ({
       id: f.id,
@@ -51,7 +51,11 @@ export async function signedContentV1(db: Db, dataSetId: string) {
   }
 }
 
-const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
+/**
+ * The metadata format 1 signed, exactly as it was when format 1 was current (before data-set origin and layout
+ * existed): a signature made then must still verify, so nothing may ever be added here.
+ */
+const metadataV1Of = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
   id: d.id,
   lineageId: d.lineageId,
   version: d.version,
@@ -60,6 +64,11 @@ const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => 
   nominalPressurePa: d.nominalPressurePa,
   apparatusNotes: d.apparatusNotes,
   projectRef: d.projectRef,
+})
+
+/** The metadata format 2 signs. */
+const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
+  ...metadataV1Of(d),
   origin: d.origin,
   originMethod: d.originMethod,
   citation: d.citation,

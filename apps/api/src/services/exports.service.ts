@@ -6,6 +6,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { visibleOrNotFound } from './lab-access.js'
+import { recommendedSetOf } from './joint-fit-signing.js'
 import { engineInputs } from './systems.service.js'
 import {
   csvDocument,
@@ -14,6 +15,7 @@ import {
   slugify,
   type CsvCell,
 } from '@ebullio/schemas/csv-exports'
+import { fitLabel } from '@ebullio/schemas'
 
 /** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
 export function fileStem(d: { title: string; version: number }): string {
@@ -41,6 +43,29 @@ const UNITS: Record<string, string> = {
   alpha: '1',
   V1: 'cm3/mol',
   V2: 'cm3/mol',
+  a12T: 'J/(mol K)',
+  a21T: 'J/(mol K)',
+  b12T: 'J/(mol K)',
+  b21T: 'J/(mol K)',
+}
+
+/** The temperature dependence of a joint parameter set's energies (thermo's T_REF = 298.15 K). */
+export const TEMPERATURE_FORM: Record<string, string> = {
+  wilson: 'a12(T) = a12 + a12T (T - 298.15 K); a21(T) = a21 + a21T (T - 298.15 K)',
+  nrtl: 'b12(T) = b12 + b12T (T - 298.15 K); b21(T) = b21 + b21T (T - 298.15 K)',
+}
+
+/** The system's signed recommended parameter set as exported with every data set's parameters (null: none). */
+async function systemRecommendedSet(db: Db, systemId: string) {
+  const r = await recommendedSetOf(db, systemId)
+  if (!r) return null
+  return {
+    ...r,
+    equation: MODEL_EQUATIONS[r.model] ?? r.model,
+    temperatureForm: TEMPERATURE_FORM[r.model] ?? null,
+    parameters: r.parameters.map((p) => ({ ...p, unit: UNITS[p.name] ?? '1' })),
+    held: heldSettings(r),
+  }
 }
 
 /** How the curve is computed from the parameters (the engine's conventions, packages/thermo/src/activity/kernel.ts). */
@@ -116,6 +141,8 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
       fits: fits.map((f) => ({
         id: f.id,
         model: f.model,
+        // the name the lab screens give this fit (packages/schemas/src/fit-label.ts)
+        label: fitLabel({ ...f, pointIds: f.pointIds }, fits),
         recommended: f.id === d.recommendedFitId,
         equation: MODEL_EQUATIONS[f.model] ?? f.model,
         objective: f.options.objective ?? null,
@@ -140,6 +167,7 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
             digest: approval.digest,
           }
         : null,
+      systemRecommendedSet: await systemRecommendedSet(db, d.systemId),
     },
   }
 }
@@ -160,6 +188,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
   const fitRow = (f: (typeof body.fits)[number], name: string, value: CsvCell, se: CsvCell = null, unit = '') =>
     [f.id, f.model, f.recommended, name, value, se, unit, null, null, null] as CsvCell[]
   const fitRows = body.fits.flatMap((f) => [
+    fitRow(f, 'label', f.label),
     fitRow(f, 'equation', f.equation),
     fitRow(f, 'objective', f.objective as CsvCell),
     ...f.parameters.map((p) => fitRow(f, p.name, p.value, p.standardError, p.unit)),
@@ -213,6 +242,36 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
     ['approval', 'reason', a?.reason ?? null, ''],
     ['approval', 'signature_digest', a?.digest ?? null, 'SHA-256'],
   ]
+  const rs = body.systemRecommendedSet
+  const setRow = (name: string, value: CsvCell, se: CsvCell = null, unit = ''): CsvCell[] => [
+    rs!.id,
+    `system-recommended/${rs!.model}`,
+    'system',
+    name,
+    value,
+    se,
+    unit,
+    null,
+    null,
+    null,
+  ]
+  const setRows = rs
+    ? [
+        setRow('label', rs.label),
+        setRow('equation', rs.equation),
+        setRow('temperature_form', rs.temperatureForm),
+        ...rs.parameters.map((p) => setRow(p.name, p.value, p.standardError, p.unit)),
+        ...rs.held.map((h) => setRow(h.name, h.value, null, h.unit)),
+        setRow('temperature_min', rs.range.Tmin, null, 'K'),
+        setRow('temperature_max', rs.range.Tmax, null, 'K'),
+        setRow('pressure_min', rs.range.Pmin, null, 'Pa'),
+        setRow('pressure_max', rs.range.Pmax, null, 'Pa'),
+        setRow('data_sets', rs.dataSets.map((d) => `${d.title} v${d.version}`).join('; ')),
+        setRow('signed_by', rs.signedBy),
+        setRow('signed_at', rs.approvedAt ? new Date(rs.approvedAt).toISOString() : null),
+        setRow('signature_digest', rs.digest, null, 'SHA-256'),
+      ]
+    : []
   const tail = recordRows.map(([model, name, value, unit]): CsvCell[] => [
     null,
     model,
@@ -227,7 +286,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
   ])
   return {
     name: dataSetFileName(d, 'parameters', 'csv'),
-    csv: csvDocument(PARAMETERS_CSV_HEADER.split(','), [...fitRows, ...vpRows, ...tail]),
+    csv: csvDocument(PARAMETERS_CSV_HEADER.split(','), [...fitRows, ...setRows, ...vpRows, ...tail]),
   }
 }
 

@@ -1,5 +1,7 @@
 /** Sections 1–4 and 6 of the report: method, points, fits, consistency, comments. */
+import { fitLabel } from '@ebullio/schemas'
 import type { Content, TableCell } from 'pdfmake/interfaces'
+import { computedOn } from '../point-set.js'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
 import { calibrationModelName, dateTime, modelName, num, originText, PARAMETER_UNITS, sig } from './report-text.js'
@@ -112,12 +114,22 @@ export function pointsSection(m: ReportModel): Content {
   }
 }
 
+/** "STALE" and what the result was computed on, under its name (services/point-set.ts `computedOn`). */
+function staleMark(r: { pointCount: number | null; runAt: Date }): Content[] {
+  return [
+    { text: 'STALE', color: C.danger, bold: true, fontSize: 7 },
+    { text: `${computedOn(r)}; not the points listed here`, fontSize: 6.5, color: C.muted },
+  ]
+}
+
 export function fitsSection(m: ReportModel): Content {
   const rec = m.dataSet.recommendedFitId
   const ordered = [...m.fits].sort((a, b) => Number(b.id === rec) - Number(a.id === rec))
   const rows = ordered.map((f): TableCell[] => {
     const isRec = f.id === rec
     const fill = isRec ? C.amberSoft : undefined
+    // a stale fit is printed in grey with what it was computed on, never as a result of these points
+    const ink = f.stale ? C.muted : C.ink
     const s = f.statistics as { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean }
     const held =
       f.model === 'nrtl' && typeof f.options.alpha === 'number' && !f.parameters.some((p) => p.name === 'alpha')
@@ -133,16 +145,17 @@ export function fitsSection(m: ReportModel): Content {
       {
         fillColor: fill,
         stack: [
-          { text: modelName(f.model), bold: true },
+          { text: fitLabel(f, m.fits), bold: true, color: ink },
           ...(isRec ? [{ text: 'RECOMMENDED', color: C.amber, bold: true, fontSize: 7 }] : []),
+          ...(f.stale ? staleMark(f) : []),
         ],
       },
-      { text: params.join('\n'), fillColor: fill },
-      { text: num(s.rmsT, 3), alignment: 'right', fillColor: fill },
-      { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill },
-      { text: num(s.aic, 1), alignment: 'right', fillColor: fill },
-      { text: String(f.pointIds.length), alignment: 'right', fillColor: fill },
-      { text: s.converged === false ? 'no' : 'yes', fillColor: fill, color: s.converged === false ? C.danger : C.ink },
+      { text: params.join('\n'), fillColor: fill, color: ink },
+      { text: num(s.rmsT, 3), alignment: 'right', fillColor: fill, color: ink },
+      { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill, color: ink },
+      { text: num(s.aic, 1), alignment: 'right', fillColor: fill, color: ink },
+      { text: String(f.pointIds.length), alignment: 'right', fillColor: fill, color: ink },
+      { text: s.converged === false ? 'no' : 'yes', fillColor: fill, color: s.converged === false ? C.danger : ink },
     ]
   })
   return {
@@ -173,12 +186,18 @@ export function consistencySection(m: ReportModel): Content {
         ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
         : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
     const criterion = c.test === 'herington-area' ? 'passes when D − J < 10 %' : 'passes when mean |Δy₁| < 0.01'
+    const ink = c.stale ? C.muted : C.ink
     return [
-      c.test === 'herington-area' ? 'Area test (Herington)' : 'Point test',
-      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.passed ? C.ok : C.danger },
-      numbers,
-      criterion,
-      dateTime(c.runAt, m.report.timeZone),
+      {
+        stack: [
+          { text: c.test === 'herington-area' ? 'Area test (Herington)' : 'Point test', color: ink },
+          ...(c.stale ? staleMark(c) : []),
+        ],
+      },
+      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
+      { text: numbers, color: ink },
+      { text: criterion, color: ink },
+      { text: dateTime(c.runAt, m.report.timeZone), color: ink },
     ]
   })
   return {
