@@ -17,8 +17,8 @@ import type { SeedContext } from './lab.js'
 import { DEMO_PASSWORD } from './users.js'
 
 export const JOINT_TITLES = {
-  atm: 'Kestrel wash-water recovery: methanol/water at 1 atm',
-  vacuum: 'Kestrel vacuum column trial: methanol/water at 40 kPa',
+  atm: 'Vacuum column study: methanol/water at 1 atm',
+  vacuum: 'Vacuum column study: methanol/water at 40 kPa',
 } as const
 
 /** An approved methanol/water data set at P (Pa): the analyst uploads and fits, the lead chemist signs. */
