@@ -21,7 +21,7 @@ import { pointSetOf } from './point-set.js'
 import { staleResults } from './stale-results.js'
 import { thermo } from './lab-access.js'
 import { binarySystem, engineInputs, getSystem } from './systems.service.js'
-import { leadChemists } from './workflow.service.js'
+import { activeLeadChemistIds } from '../repositories/users.repository.js'
 
 /** Points of a data set as the engine reads them (a two-layer point is a three-phase point). */
 export const enginePoints = (points: PointRecord[]) =>
@@ -268,7 +268,7 @@ export async function submitJointFit(db: Db, config: Config, user: SessionUser, 
       after: { state: 'submitted' },
     })
     const system = await getSystem(tx, fit.systemId)
-    const others = (await leadChemists(tx)).filter((lead) => lead !== user.id)
+    const others = (await activeLeadChemistIds(tx)).filter((lead) => lead !== user.id)
     for (const lead of others) {
       await notifyUser(tx, lead, {
         subject: `Ebullio: a recommended parameter set for ${system.name} awaits your signature`,
