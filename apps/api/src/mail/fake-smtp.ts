@@ -2,6 +2,7 @@ import { simpleParser } from 'mailparser'
 import { SMTPServer } from 'smtp-server'
 import type { Kysely } from 'kysely'
 import type { Database } from '../db/index.js'
+import { insertCapturedMail } from '../repositories/captured-mail.repository.js'
 
 /**
  * A local SMTP server for development and tests: it accepts every message on loopback and stores it in
@@ -20,15 +21,12 @@ export async function startFakeSmtp(
     onData(stream, session, callback) {
       simpleParser(stream)
         .then(async (mail) => {
-          await db
-            .insertInto('captured_mail')
-            .values({
-              envelope_from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
-              envelope_to: session.envelope.rcptTo.map((r) => r.address).join(', '),
-              subject: mail.subject ?? '',
-              body_text: mail.text ?? '',
-            })
-            .execute()
+          await insertCapturedMail(db, {
+            envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+            envelopeTo: session.envelope.rcptTo.map((r) => r.address).join(', '),
+            subject: mail.subject ?? '',
+            bodyText: mail.text ?? '',
+          })
           callback()
         })
         .catch((err: Error) => callback(err))

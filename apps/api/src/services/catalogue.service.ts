@@ -9,7 +9,6 @@ import {
   type BinarySystem,
   type PhaseDiagram,
 } from '@ebullio/thermo'
-import { sql } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
@@ -34,30 +33,7 @@ export async function catalogue(
 ): Promise<{ items: CatalogueEntryDto<Date>[]; total: number; page: number; pageSize: number }> {
   const systems = await listSystems(db, { q: o.q, published: true, ...pageWindow(o.page, o.pageSize) })
   const ids = systems.items.map((s) => s.id)
-  const rows =
-    ids.length === 0
-      ? []
-      : await db
-          .selectFrom('data_set as d')
-          .leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
-          .select([
-            'd.id',
-            'd.system_id',
-            'd.version',
-            'd.state',
-            'd.title',
-            'd.nominal_pressure_pa',
-            'd.approved_at',
-            'f.id as fit_id',
-            'f.model',
-            'f.parameters',
-            sql<ActivityModel | null>`f.activity`.as('activity'),
-            sql<unknown>`f.statistics`.as('statistics'),
-          ])
-          .where('d.state', 'in', ['approved', 'superseded'])
-          .where('d.system_id', 'in', ids)
-          .orderBy('d.version', 'desc')
-          .execute()
+  const rows = await repo.listSignedVersionsOfSystems(db, ids)
   // the recommended fit's name as the lab screens give it: it depends on the version's other fits
   const labels = new Map<string, string>()
   for (const v of rows.filter((r) => r.state === 'approved' && r.fit_id)) {
