@@ -27,6 +27,12 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: { title: 'Data set', roles: ['analyst', 'lead_chemist', 'reviewer'] },
   },
   {
+    path: WEB_PATHS.labSystem,
+    name: 'lab-system',
+    component: () => import('../views/systems/LabSystemView.vue'),
+    meta: { title: 'System', roles: ['analyst', 'lead_chemist', 'reviewer', 'admin'] },
+  },
+  {
     path: WEB_PATHS.instrumentChecks,
     name: 'checks',
     component: () => import('../views/checks/InstrumentChecksView.vue'),
