@@ -127,7 +127,10 @@ test('check standards run with a GC file go on the method’s control chart, the
   const areas = [100000, 100300, 99800, 100100, 99900, 160000]
   const csv = [
     'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit,check_x1',
-    ...areas.map((a, i) => `CHK-${i + 1},check,1,${a},100000,,,,,0.5`),
+    // the far one's label carries markup: it must show as text
+    ...areas.map(
+      (a, i) => `CHK-${i + 1}${i === 5 ? ' <img src=x onerror=window.__owned=1>' : ''},check,1,${a},100000,,,,,0.5`,
+    ),
   ].join('\n')
   const up = await page.request.post(`/api/data-sets/${d.id}/uploads`, {
     headers: { Origin: baseURL },
@@ -154,6 +157,9 @@ test('check standards run with a GC file go on the method’s control chart, the
   await section.locator('summary').click()
   await expect(section.getByTestId('gc-check-table').locator('tbody tr')).toHaveCount(6)
   await expect(section.getByTestId('gc-check-table').locator('tbody tr.out')).toHaveCount(1)
+  await expect(section.getByTestId('gc-check-table')).toContainText('CHK-6 <img src=x onerror=window.__owned=1>')
+  await expect(section.locator('img')).toHaveCount(0)
+  expect(await page.evaluate(() => (window as unknown as { __owned?: number }).__owned)).toBeUndefined()
   await section.scrollIntoViewIfNeeded()
   await snapBoth(page, 'lab-50-gc-check-standards')
 })
