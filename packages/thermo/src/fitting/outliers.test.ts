@@ -27,4 +27,27 @@ describe('outlierPointIds', () => {
   it('no finite residual, no flag', () => {
     expect(outlierPointIds([{ pointId: 'a', dT: null, dy: Number.NaN }])).toEqual([])
   })
+  it('judges |Δy₁| against its own RMS, independently of ΔT', () => {
+    // Δy RMS over a..e = sqrt(4·0.001² + 0.01²)/√5 = 0.004561; 2σ = 0.009121, so e (0.01) is beyond; ΔT is quiet.
+    const r = ['a', 'b', 'c', 'd'].map((pointId, i) => ({ pointId, dT: 0.1, dy: i % 2 ? 0.001 : -0.001 }))
+    expect(outlierPointIds([...r, { pointId: 'e', dT: 0.1, dy: -0.01 }])).toEqual(['e'])
+  })
+  it('is strict at exactly 2σ, and a non-finite residual neither counts in the RMS nor hides the others', () => {
+    // ΔT = 2, 0, 0, 0: RMS = 1 exactly, so 2 is not above 2σ
+    const edge = [2, 0, 0, 0].map((dT, i) => ({ pointId: `p${i}`, dT }))
+    expect(outlierPointIds(edge)).toEqual([])
+    // one NaN among them: the RMS still comes from the seven finite values (1.138) and 3, above 2σ, is flagged
+    const withNaN = [0.1, -0.1, 0.1, -0.1, 0.1, -0.1, Number.NaN, 3].map((dT, i) => ({ pointId: `q${i}`, dT }))
+    expect(rootMeanSquare(withNaN.map((x) => x.dT))).toBeCloseTo(Math.sqrt((6 * 0.01 + 9) / 7), 12)
+    expect(outlierPointIds(withNaN)).toEqual(['q7'])
+  })
+  it('flags nothing on a residual when no included point has one, even if an excluded point does', () => {
+    expect(
+      outlierPointIds([
+        { pointId: 'a', dT: 0.1 },
+        { pointId: 'b', dT: 0.1 },
+        { pointId: 'x', dy: 0.5, excluded: true },
+      ]),
+    ).toEqual([])
+  })
 })

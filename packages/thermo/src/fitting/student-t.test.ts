@@ -56,4 +56,21 @@ describe('Student-t quantiles', () => {
       'The degrees of freedom must be a whole number of at least 1; got 2.5.',
     )
   })
+  it('refuses the edges p = 0 and ν = 0 too, as invalid input', () => {
+    for (const [p, dof, message] of [
+      [0, 3, 'The probability must lie strictly between 0 and 1; got 0.'],
+      [0.975, 0, 'The degrees of freedom must be a whole number of at least 1; got 0.'],
+    ] as const) {
+      let caught: unknown
+      try {
+        studentTQuantile(p, dof)
+      } catch (e) {
+        caught = e
+      }
+      expect(caught).toMatchObject({ name: 'ThermoError', code: 'invalid-input', message })
+    }
+  })
+  it('gives a finite critical value from the first degree of freedom on', () => {
+    expect(studentT975(1)).toBeCloseTo(12.706204736174694, 9) // scipy 1.17.1
+  })
 })
