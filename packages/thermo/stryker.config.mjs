@@ -6,7 +6,7 @@
 export default {
   testRunner: 'vitest',
   plugins: ['@stryker-mutator/vitest-runner'],
-  vitest: { configFile: 'vitest.config.ts', related: true },
+  vitest: { configFile: 'vitest.mutation.config.ts', related: true },
   mutate: ['src/fitting/outliers.ts', 'src/fitting/student-t.ts'],
   coverageAnalysis: 'perTest',
   concurrency: 1,
