@@ -45,6 +45,7 @@ export async function catalogue(
             'd.state',
             'd.title',
             'd.nominal_pressure_pa',
+            'd.nominal_temperature_k',
             'd.approved_at',
             'f.id as fit_id',
             'f.model',
@@ -69,10 +70,11 @@ export async function catalogue(
           title: v.title,
           version: v.version,
           nominalPressurePa: v.nominal_pressure_pa,
+          nominalTemperatureK: v.nominal_temperature_k,
           approvedAt: v.approved_at,
           recommendedFit:
             v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
-          miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, v.nominal_pressure_pa) : null,
+          miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, conditionOf(v)) : null,
         })),
       superseded: versions
         .filter((v) => v.state === 'superseded')
@@ -89,13 +91,13 @@ export async function catalogue(
 function miscibilityOf(
   inputs: Awaited<ReturnType<typeof engineInputs>> | null,
   activity: ActivityModel,
-  P: number,
+  condition: { P: number } | { T: number } | null,
 ): CatalogueMiscibilityDto | null {
-  if (!inputs) return null
+  if (!inputs || !condition) return null
   try {
     const system = binarySystem(inputs, activity)
     const room = liquidLiquidEquilibrium(system, { T: ROOM_T })
-    const d = phaseDiagram(system, { P }, { points: 21 })
+    const d = phaseDiagram(system, condition, { points: 21 })
     const threePhase = d.kind === 'isobaric' ? (d.threePhase ?? null) : null
     return {
       partial: room !== null || threePhase !== null,
@@ -106,6 +108,12 @@ function miscibilityOf(
     if ((err as { name?: string }).name === 'ThermoError') return null
     throw err
   }
+}
+
+/** The version's own condition: its pressure (isobaric) or its temperature (isothermal). */
+function conditionOf(v: { nominal_pressure_pa: number | null; nominal_temperature_k: number | null }) {
+  if (v.nominal_pressure_pa !== null) return { P: v.nominal_pressure_pa }
+  return v.nominal_temperature_k !== null ? { T: v.nominal_temperature_k } : null
 }
 
 /** The activity model to compute with: the fit asked for, else the recommended one. */

@@ -3,7 +3,8 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database, Db } from '../db/index.js'
 import type { DataSetState } from '../db/lab-tables.js'
-import { conflict, forbidden, notFound } from '../errors/index.js'
+import { dataKindOf, missingVirialData } from '@ebullio/schemas'
+import { AppError, conflict, forbidden, notFound } from '../errors/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
 import { listComments } from '../repositories/comments.repository.js'
@@ -28,7 +29,9 @@ import { pointSetOf, withStale } from './point-set.js'
 export interface DataSetInput {
   systemId: string
   title: string
-  nominalPressurePa: number
+  nominalPressurePa: number | null
+  nominalTemperatureK?: number | null
+  vaporModel?: repo.DataSetRecord['vaporModel']
   apparatusNotes: string | null
   projectRef: string | null
   origin?: repo.DataSetRecord['origin']
@@ -44,9 +47,9 @@ export async function createDataSet(db: Db, actorId: string, input: DataSetInput
     citation: input.citation ?? null,
     originMethod: input.originMethod ?? null,
   })
-  if (input.layout === 'tx')
-    throw conflict('T–x data sets (no vapour composition) cannot be fitted yet; enter T–x–y or P–x–y points.')
-  const d = await repo.insertDataSet(db, { ...input, createdBy: actorId })
+  const nominal = nominalCondition(input.layout ?? 'txy', input.nominalPressurePa, input.nominalTemperatureK ?? null)
+  if (input.vaporModel?.kind === 'virial') await requireVirialData(db, input.systemId)
+  const d = await repo.insertDataSet(db, { ...input, ...nominal, createdBy: actorId })
   await appendAudit(db, {
     actorId,
     entity: 'data_set',
@@ -90,7 +93,7 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
   const full = readsEverything(user)
   const pts = await points.listPoints(db, id)
   // Every derived result says which point set it was computed on and whether that is still the current one.
-  const pointSet = pointSetOf(pts)
+  const pointSet = pointSetOf(pts, d.vaporModel)
   return {
     ...d,
     pointSetDigest: pointSet.digest,
@@ -117,7 +120,24 @@ export async function getPointDetail(db: Db, user: SessionUser, dataSetId: strin
   return { ...p, injections: await points.listInjections(db, pointId) }
 }
 
-export type MetadataPatch = Partial<Omit<DataSetInput, 'layout'>>
+export type MetadataPatch = Partial<DataSetInput>
+
+/** Isobaric data keep a nominal pressure and no temperature; isothermal data a temperature (the pressure is optional). */
+function nominalCondition(layout: string, P: number | null | undefined, T: number | null | undefined) {
+  if (dataKindOf(layout) === 'isobaric') {
+    if (P === null || P === undefined) throw conflict('Isobaric data need the nominal pressure.')
+    return { nominalPressurePa: P, nominalTemperatureK: null }
+  }
+  if (T === null || T === undefined) throw conflict('Isothermal data need the temperature they were measured at.')
+  return { nominalPressurePa: P ?? null, nominalTemperatureK: T }
+}
+
+/** A virial vapour needs both components' critical data: refuse naming each missing property and its component. */
+export async function requireVirialData(db: Db, systemId: string) {
+  const s = await getSystem(db, systemId)
+  const why = missingVirialData([s.component1, s.component2])
+  if (why) throw new AppError(422, 'missing_critical_data', why)
+}
 
 /** Edit metadata of a draft; refused when the caller's row version is stale. */
 export async function updateMetadata(
@@ -132,7 +152,19 @@ export async function updateMetadata(
     requireState(before, EDITABLE_STATES, 'editing')
     if (before.rowVersion !== rowVersion) throw staleWrite(rowVersion, before.rowVersion)
     await checkSystemChange(tx, before, patch.systemId)
+    await checkLayoutChange(tx, before, patch.layout)
     checkOriginAfter({ ...before, ...patch })
+    const merged = { ...before, ...patch }
+    const nominal = nominalCondition(merged.layout, merged.nominalPressurePa, merged.nominalTemperatureK)
+    if (merged.vaporModel.kind === 'virial' && (patch.vaporModel || patch.systemId))
+      await requireVirialData(tx, merged.systemId)
+    const changedNominal = {
+      ...(nominal.nominalPressurePa !== before.nominalPressurePa && { nominalPressurePa: nominal.nominalPressurePa }),
+      ...(nominal.nominalTemperatureK !== before.nominalTemperatureK && {
+        nominalTemperatureK: nominal.nominalTemperatureK,
+      }),
+    }
+    patch = { ...patch, ...changedNominal }
     const after = await repo.updateDataSet(tx, id, patch, rowVersion)
     if (!after) throw staleWrite(rowVersion, before.rowVersion + 1)
     const changed = Object.keys(patch) as (keyof MetadataPatch)[]
@@ -155,6 +187,13 @@ async function checkSystemChange(db: Db, d: repo.DataSetRecord, systemId: string
   if ((await points.listPoints(db, d.id)).length > 0)
     throw conflict('This data set already has points; its system can no longer change. Start a new data set instead.')
   await getSystem(db, systemId)
+}
+
+/** The kind of data (layout) may change only while the data set has no points. */
+async function checkLayoutChange(db: Db, d: repo.DataSetRecord, layout: string | undefined) {
+  if (layout === undefined || layout === d.layout) return
+  if ((await points.listPoints(db, d.id)).length > 0)
+    throw conflict('This data set already has points; its kind of data can no longer change. Start a new data set instead.')
 }
 
 /** The origin rules that span fields, checked on the row as it would be after a change. */
@@ -238,6 +277,8 @@ export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id:
       originMethod: d.originMethod,
       citation: d.citation,
       layout: d.layout,
+      nominalTemperatureK: d.nominalTemperatureK,
+      vaporModel: d.vaporModel,
       countsAsOwn: d.countsAsOwn,
       countsAsOwnBy: d.countsAsOwnBy,
       countsAsOwnReason: d.countsAsOwnReason,

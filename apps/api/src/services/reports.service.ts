@@ -110,17 +110,13 @@ function recommendedCurve(
   inputs: Awaited<ReturnType<typeof engineInputs>>,
 ): { curve: ReportCurve | null; curveNote: string | null } {
   const fit = fits.find((f) => f.id === d.recommendedFitId)
-  if (d.layout === 'pxy')
-    return {
-      curve: null,
-      curveNote: 'Isothermal P–x–y data: the web app draws their curves; the report shows the measured points.',
-    }
   if (!fit)
     return { curve: null, curveNote: 'No fit is marked as recommended: the plots show the measured points only.' }
+  const condition = d.nominalTemperatureK !== null ? { T: d.nominalTemperatureK } : d.nominalPressurePa !== null ? { P: d.nominalPressurePa } : null
+  if (!condition)
+    return { curve: null, curveNote: 'This isothermal data set has no nominal temperature recorded: the plots show the measured points only.' }
   try {
-    const diagram = phaseDiagram(binarySystem(inputs, fit.activity as unknown as ActivityModel), {
-      P: d.nominalPressurePa,
-    })
+    const diagram = phaseDiagram(binarySystem(inputs, fit.activity as unknown as ActivityModel), condition)
     return {
       curve: {
         fitId: fit.id,
@@ -128,6 +124,7 @@ function recommendedCurve(
         x1: diagram.x1,
         y1: diagram.y1,
         T: diagram.kind === 'isobaric' ? diagram.T : [],
+        P: diagram.kind === 'isothermal' ? diagram.P : undefined,
       },
       curveNote: null,
     }

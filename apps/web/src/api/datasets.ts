@@ -42,7 +42,7 @@ export type Fit = FitDetailDto & {
 
 export interface ConsistencyResult {
   id: string
-  test: 'herington-area' | 'point'
+  test: 'herington-area' | 'redlich-kister-area' | 'point' | 'quality-score'
   passed: boolean
   result: Record<string, unknown>
   runAt: string
