@@ -22,7 +22,7 @@ describe('demo scenario (invented data)', () => {
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
       approved: 3,
-      draft: 1,
+      draft: 3,
       returned: 1,
       submitted: 3,
       superseded: 1,
@@ -31,7 +31,7 @@ describe('demo scenario (invented data)', () => {
     expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(5)
     expect(
       (await sql<{ n: number }>`select count(*)::int as n from upload where kind = 'run'`.execute(t.db)).rows[0].n,
-    ).toBe(8)
+    ).toBe(9)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)
