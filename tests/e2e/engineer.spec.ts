@@ -41,6 +41,8 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await snapTop(page, 'eng-01-catalogue')
   await table.getByRole('link', { name: SYSTEM }).click()
   await expect(page.getByTestId('system-title')).toHaveText(SYSTEM)
+  // the fit is named as on the lab screens (one shared rule, packages/schemas/src/fit-label.ts)
+  await expect(page.getByTestId('fit-select')).toContainText('Wilson (recommended)')
 
   // At 1 atm. Handbook azeotrope of acetone–methanol: 55.5 °C at 88 wt % acetone, x ≈ 0.80
   // (Horsley, Azeotropic Data; from memory). The approved Wilson fit to the invented demo points must land near it.

@@ -145,3 +145,38 @@ describe('GET /api/reports/:id/verify', () => {
     )
   })
 })
+
+describe('stale results in the report', () => {
+  it('prints results computed on other points as STALE, with what they were computed on, and nothing stale after a re-run', async () => {
+    const before = (await analyst.get(`/api/data-sets/${ids.draft}`).expect(200)).body
+    const fit = await analyst.post(`/api/data-sets/${ids.draft}/fits`).send({ models: ['van-laar'] })
+    expect(fit.status, JSON.stringify(fit.body)).toBe(201)
+    const fresh = await pdfText(analyst, ids.draft)
+    expect(fresh.text).not.toContain('STALE')
+    const included = before.points.filter((p: { excluded: boolean }) => !p.excluded)
+    const ex = await analyst
+      .patch(`/api/data-sets/${ids.draft}/points/${included[0].id}`)
+      .send({ rowVersion: fit.body.rowVersion, excluded: true, reason: 'air in the sample line' })
+      .expect(200)
+    const stale = await pdfText(analyst, ids.draft)
+    const after = (await analyst.get(`/api/data-sets/${ids.draft}`).expect(200)).body
+    const staleCount =
+      after.fits.filter((f: { stale: boolean }) => f.stale).length +
+      after.consistency.filter((c: { stale: boolean }) => c.stale).length
+    expect(staleCount).toBeGreaterThan(0)
+    expect(stale.text).toContain(`${staleCount} result${staleCount === 1 ? ' is' : 's are'} marked STALE`)
+    expect(stale.text).toContain(`computed on ${included.length} points on`)
+    expect(stale.text.match(/STALE computed on/g)?.length).toBe(staleCount)
+    // fits run again on the current points print without the mark (older fits of the same model stay stale)
+    await analyst
+      .post(`/api/data-sets/${ids.draft}/fits`)
+      .send({ models: ['van-laar'] })
+      .expect(201)
+    const rerun = (await analyst.get(`/api/data-sets/${ids.draft}`).expect(200)).body
+    const stillStale =
+      rerun.fits.filter((f: { stale: boolean }) => f.stale).length +
+      rerun.consistency.filter((c: { stale: boolean }) => c.stale).length
+    expect((await pdfText(analyst, ids.draft)).text.match(/STALE computed on/g)?.length ?? 0).toBe(stillStale)
+    expect(ex.body.rowVersion).toBeGreaterThan(fit.body.rowVersion)
+  })
+})

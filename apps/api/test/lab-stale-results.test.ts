@@ -74,7 +74,7 @@ describe('results bound to their point set', () => {
     expect(submit.status).toBe(409)
     expect(submit.body.error.code).toBe('stale_results')
     expect(submit.body.error.message).toMatch(
-      /^Cannot submit: results computed on other points than the data set has now — the recommended fit \(wilson\) was computed on 12 points on .+ UTC; the (area|point) test was computed on 12 points/,
+      /^Cannot submit: results computed on other points than the data set has now — the recommended fit \(Wilson\) was computed on 12 points on .+ UTC; the (area|point) test was computed on 12 points/,
     )
     expect(submit.body.error.details.stale).toHaveLength(3)
     // A stale fit cannot be chosen either.
@@ -110,7 +110,7 @@ describe('results bound to their point set', () => {
       .send({ password: PASSWORD, reason: 'ok', rowVersion: sub.body.rowVersion })
     expect(r.status).toBe(409)
     expect(r.body.error.code).toBe('stale_results')
-    expect(r.body.error.message).toMatch(/^Cannot approve: .*the recommended fit \(wilson\) was computed on 12 points/)
+    expect(r.body.error.message).toMatch(/^Cannot approve: .*the recommended fit \(Wilson\) was computed on 12 points/)
     expect(await labCounts(t)).toEqual(before)
   })
 

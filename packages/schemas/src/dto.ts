@@ -157,7 +157,8 @@ export interface ApprovedVersionDto<D = string> {
   /** K, isothermal data only */
   nominalTemperatureK?: number | null
   approvedAt: D | null
-  recommendedFit: { id: string; model: FitModelName; parameters: FitParameterDto[] } | null
+  /** `label`: the fit's name as the lab screens give it (fit-label.ts) */
+  recommendedFit: { id: string; model: FitModelName; label: string; parameters: FitParameterDto[] } | null
   /** What the recommended fit says about the liquid splitting; null without a fit or when it cannot be computed. */
   miscibility?: CatalogueMiscibilityDto | null
 }

@@ -1,5 +1,5 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
-import type { CatalogueEntryDto, CatalogueMiscibilityDto } from '@ebullio/schemas'
+import { fitLabel, type CatalogueEntryDto, type CatalogueMiscibilityDto } from '@ebullio/schemas'
 import {
   findAzeotropes,
   liquidLiquidEquilibrium,
@@ -13,7 +13,7 @@ import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
-import { findFit } from '../repositories/fits.repository.js'
+import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
@@ -57,6 +57,13 @@ export async function catalogue(
           .where('d.system_id', 'in', ids)
           .orderBy('d.version', 'desc')
           .execute()
+  // the recommended fit's name as the lab screens give it: it depends on the version's other fits
+  const labels = new Map<string, string>()
+  for (const v of rows.filter((r) => r.state === 'approved' && r.fit_id)) {
+    const fits = await listFits(db, v.id)
+    const f = fits.find((g) => g.id === v.fit_id)
+    if (f) labels.set(v.id, fitLabel(f, fits))
+  }
   const inputs = new Map<string, Awaited<ReturnType<typeof engineInputs>> | null>()
   for (const id of ids) inputs.set(id, await engineInputs(db, id).catch(() => null))
   const items = systems.items.map((s) => {
@@ -73,7 +80,14 @@ export async function catalogue(
           nominalTemperatureK: v.nominal_temperature_k,
           approvedAt: v.approved_at,
           recommendedFit:
-            v.fit_id && v.model && v.parameters ? { id: v.fit_id, model: v.model, parameters: v.parameters } : null,
+            v.fit_id && v.model && v.parameters
+              ? {
+                  id: v.fit_id,
+                  model: v.model,
+                  label: labels.get(v.id) ?? v.model,
+                  parameters: v.parameters,
+                }
+              : null,
           miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, conditionOf(v)) : null,
         })),
       superseded: versions

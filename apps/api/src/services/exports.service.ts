@@ -14,6 +14,7 @@ import {
   slugify,
   type CsvCell,
 } from '@ebullio/schemas/csv-exports'
+import { fitLabel } from '@ebullio/schemas'
 
 /** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
 export function fileStem(d: { title: string; version: number }): string {
@@ -116,6 +117,8 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
       fits: fits.map((f) => ({
         id: f.id,
         model: f.model,
+        // the name the lab screens give this fit (packages/schemas/src/fit-label.ts)
+        label: fitLabel({ ...f, pointIds: f.pointIds }, fits),
         recommended: f.id === d.recommendedFitId,
         equation: MODEL_EQUATIONS[f.model] ?? f.model,
         objective: f.options.objective ?? null,
@@ -160,6 +163,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
   const fitRow = (f: (typeof body.fits)[number], name: string, value: CsvCell, se: CsvCell = null, unit = '') =>
     [f.id, f.model, f.recommended, name, value, se, unit, null, null, null] as CsvCell[]
   const fitRows = body.fits.flatMap((f) => [
+    fitRow(f, 'label', f.label),
     fitRow(f, 'equation', f.equation),
     fitRow(f, 'objective', f.objective as CsvCell),
     ...f.parameters.map((p) => fitRow(f, p.name, p.value, p.standardError, p.unit)),

@@ -17,6 +17,7 @@ import { listPoints } from '../repositories/points.repository.js'
 import { findReport, insertReport } from '../repositories/reports.repository.js'
 import { DESIGN_CAUTION } from './catalogue.service.js'
 import { contentDigest } from './digest.js'
+import { computedOn, pointSetOf, withStale } from './point-set.js'
 import { fileStem } from './exports.service.js'
 import { visibleOrNotFound } from './lab-access.js'
 import { reportPdf } from './report/report-pdf.js'
@@ -73,7 +74,9 @@ async function gatherReport(
   const calibrations = await calibrationsOfDataSet(db, d.id)
   const methodIds = [...new Set(calibrations.map((c) => c.gcMethodId))]
   const gcMethods = (await Promise.all(methodIds.map((m) => findGcMethod(db, m)))).filter((m) => m !== undefined)
-  const fits = await listFits(db, d.id)
+  const points = await listPoints(db, d.id)
+  const current = pointSetOf(points).digest
+  const fits = (await listFits(db, d.id)).map((f) => withStale(f, current))
   const { curve, curveNote } = recommendedCurve(d, fits, inputs)
   const c = (x: typeof inputs.system.component1) => ({ name: x.name, cas: x.casNumber, formula: x.formula })
   return {
@@ -91,9 +94,10 @@ async function gatherReport(
     })),
     gcMethods,
     calibrations,
-    points: await listPoints(db, d.id),
+    points,
     fits,
-    consistency: await listConsistency(db, d.id),
+    consistency: (await listConsistency(db, d.id)).map((c) => withStale(c, current)),
+    pointSetDigest: current,
     curve,
     curveNote,
     comments: await listComments(db, d.id),
@@ -106,7 +110,7 @@ async function gatherReport(
 
 function recommendedCurve(
   d: repo.DataSetRecord,
-  fits: Awaited<ReturnType<typeof listFits>>,
+  fits: (Awaited<ReturnType<typeof listFits>>[number] & { stale: boolean })[],
   inputs: Awaited<ReturnType<typeof engineInputs>>,
 ): { curve: ReportCurve | null; curveNote: string | null } {
   const fit = fits.find((f) => f.id === d.recommendedFitId)
@@ -126,7 +130,9 @@ function recommendedCurve(
         T: diagram.kind === 'isobaric' ? diagram.T : [],
         P: diagram.kind === 'isothermal' ? diagram.P : undefined,
       },
-      curveNote: null,
+      curveNote: fit.stale
+        ? `STALE: the recommended fit was ${computedOn(fit)}, not on the points this report lists; run it again before relying on the curve.`
+        : null,
     }
   } catch (e) {
     return { curve: null, curveNote: `The recommended fit's curve could not be computed: ${(e as Error).message}` }

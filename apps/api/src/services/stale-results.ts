@@ -2,6 +2,7 @@
  * Which of a data set's shown results were computed on other points than it has now. Submit and approve
  * refuse while the recommended fit or the latest result of a consistency test is stale (409 `stale_results`).
  */
+import { fitLabel } from '@ebullio/schemas'
 import type { Db } from '../db/index.js'
 import { AppError } from '../errors/index.js'
 import type { DataSetRecord } from '../repositories/datasets.repository.js'
@@ -44,14 +45,15 @@ export async function staleShownResults(db: Db, d: DataSetRecord): Promise<{ dig
   const { digest } = await currentPointSet(db, d.id)
   const stale: StaleItem[] = []
   if (d.recommendedFitId) {
-    const fit = (await listFits(db, d.id)).find((f) => f.id === d.recommendedFitId)
+    const fits = await listFits(db, d.id)
+    const fit = fits.find((f) => f.id === d.recommendedFitId)
     if (fit && fit.pointSetDigest !== digest)
       stale.push({
         kind: 'fit',
         id: fit.id,
         pointCount: fit.pointCount,
         runAt: fit.runAt,
-        what: `the recommended fit (${fit.model})`,
+        what: `the recommended fit (${fitLabel(fit, fits)})`,
       })
   }
   for (const c of latestConsistency(await listConsistency(db, d.id))) {

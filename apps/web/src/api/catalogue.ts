@@ -30,6 +30,8 @@ export interface ParametersExport {
   fits: {
     id: string
     model: string
+    /** the fit's name as the lab screens give it (packages/schemas/src/fit-label.ts) */
+    label: string
     recommended: boolean
     activity: Record<string, unknown> & { kind: string }
     parameters: { name: string; value: number; standardError: number; unit: string }[]

@@ -35,8 +35,12 @@ export interface ReportModel {
   gcMethods: GcMethodRecord[]
   calibrations: CalibrationSummary[]
   points: PointDto[]
-  fits: FitRecord[]
-  consistency: ConsistencyRecord[]
+  /** every fit, `stale` when it was computed on other points than the data set has now */
+  fits: (FitRecord & { stale: boolean })[]
+  /** every consistency result, `stale` likewise */
+  consistency: (ConsistencyRecord & { stale: boolean })[]
+  /** digest of the data set's current point set (services/point-set.ts) */
+  pointSetDigest: string
   /** the recommended fit's curve at the nominal pressure; null with a reason when it cannot be drawn */
   curve: ReportCurve | null
   curveNote: string | null

@@ -69,6 +69,7 @@ export function reportDocument(m: ReportModel): TDocumentDefinitions {
     content: [
       titleBlock(m, number),
       ...(mark ? [stateNotice(m)] : []),
+      ...staleNotice(m),
       methodSection(m),
       pointsSection(m),
       fitsSection(m),
@@ -83,6 +84,32 @@ export function reportDocument(m: ReportModel): TDocumentDefinitions {
       th: { bold: true, fontSize: 8, color: C.ink, fillColor: C.band },
     },
   }
+}
+
+/** Said once at the top when a fit or consistency result was computed on other points than the ones listed. */
+function staleNotice(m: ReportModel): Content[] {
+  const n = m.fits.filter((f) => f.stale).length + m.consistency.filter((c) => c.stale).length
+  if (n === 0) return []
+  return [
+    {
+      margin: [0, 0, 0, 8],
+      table: {
+        widths: ['*'],
+        body: [
+          [
+            {
+              text: `${n} result${n === 1 ? ' is' : 's are'} marked STALE: computed on other points than this version has now. They are printed for the record only; a signature never covers them.`,
+              color: C.danger,
+              bold: true,
+              fontSize: 8.5,
+              margin: [6, 4, 6, 4],
+            },
+          ],
+        ],
+      },
+      layout: { hLineColor: () => C.danger, vLineColor: () => C.danger },
+    },
+  ]
 }
 
 function titleBlock(m: ReportModel, number: string): Content {

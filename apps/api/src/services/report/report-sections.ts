@@ -1,5 +1,7 @@
 /** Sections 1–4 and 6 of the report: method, points, fits, consistency, comments. */
+import { fitLabel } from '@ebullio/schemas'
 import type { Content, TableCell } from 'pdfmake/interfaces'
+import { computedOn } from '../point-set.js'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
 import { layoutLabel, objectiveLabel, vaporModelLabel } from '@ebullio/schemas'
@@ -126,12 +128,22 @@ export function pointsSection(m: ReportModel): Content {
   }
 }
 
+/** "STALE" and what the result was computed on, under its name (services/point-set.ts `computedOn`). */
+function staleMark(r: { pointCount: number | null; runAt: Date }): Content[] {
+  return [
+    { text: 'STALE', color: C.danger, bold: true, fontSize: 7 },
+    { text: `${computedOn(r)}; not the points listed here`, fontSize: 6.5, color: C.muted },
+  ]
+}
+
 export function fitsSection(m: ReportModel): Content {
   const rec = m.dataSet.recommendedFitId
   const ordered = [...m.fits].sort((a, b) => Number(b.id === rec) - Number(a.id === rec))
   const rows = ordered.map((f): TableCell[] => {
     const isRec = f.id === rec
     const fill = isRec ? C.amberSoft : undefined
+    // a stale fit is printed in grey with what it was computed on, never as a result of these points
+    const ink = f.stale ? C.muted : C.ink
     const s = f.statistics as { rmsT?: number; rmsP?: number; rmsY?: number; aic?: number; converged?: boolean }
     const o = f.options as { objective?: string; vapor?: { kind: 'ideal' } | { kind: 'virial'; poynting?: boolean } }
     const onPressure = o.objective === 'bubble-pressure'
@@ -149,17 +161,20 @@ export function fitsSection(m: ReportModel): Content {
       {
         fillColor: fill,
         stack: [
-          { text: modelName(f.model), bold: true },
+          { text: fitLabel(f, m.fits), bold: true, color: ink },
           ...(isRec ? [{ text: 'RECOMMENDED', color: C.amber, bold: true, fontSize: 7 }] : []),
+          ...(f.stale ? staleMark(f) : []),
         ],
       },
       {
         fillColor: fill,
         stack: [
-          params.join('\n'),
+          { text: params.join('\n'), color: ink },
           {
             text: `Objective: ${objectiveLabel(o.objective)}. Vapour: ${vaporModelLabel(
-              o.vapor?.kind === 'virial' ? { kind: 'virial', correlation: 'tsonopoulos', poynting: !!o.vapor.poynting } : o.vapor,
+              o.vapor?.kind === 'virial'
+                ? { kind: 'virial', correlation: 'tsonopoulos', poynting: !!o.vapor.poynting }
+                : o.vapor,
             )}.`,
             fontSize: 7,
             color: C.muted,
@@ -170,11 +185,12 @@ export function fitsSection(m: ReportModel): Content {
         text: onPressure ? `${num((s.rmsP ?? NaN) / 1000, 3)} kPa` : `${num(s.rmsT, 3)} K`,
         alignment: 'right',
         fillColor: fill,
+        color: ink,
       },
-      { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill },
-      { text: num(s.aic, 1), alignment: 'right', fillColor: fill },
-      { text: String(f.pointIds.length), alignment: 'right', fillColor: fill },
-      { text: s.converged === false ? 'no' : 'yes', fillColor: fill, color: s.converged === false ? C.danger : C.ink },
+      { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill, color: ink },
+      { text: num(s.aic, 1), alignment: 'right', fillColor: fill, color: ink },
+      { text: String(f.pointIds.length), alignment: 'right', fillColor: fill, color: ink },
+      { text: s.converged === false ? 'no' : 'yes', fillColor: fill, color: s.converged === false ? C.danger : ink },
     ]
   })
   return {
@@ -212,16 +228,21 @@ export function consistencySection(m: ReportModel): Content {
         : c.test === 'redlich-kister-area'
           ? 'passes when D < 10 %'
           : 'passes when mean |Δy₁| < 0.01'
-    return [
+    const name =
       c.test === 'herington-area'
         ? 'Area test (Herington)'
         : c.test === 'redlich-kister-area'
           ? 'Area test (Redlich–Kister, isothermal)'
-          : 'Point test',
-      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.passed ? C.ok : C.danger },
-      numbers,
-      criterion,
-      dateTime(c.runAt, m.report.timeZone),
+          : 'Point test'
+    const ink = c.stale ? C.muted : C.ink
+    return [
+      {
+        stack: [{ text: name, color: ink }, ...(c.stale ? staleMark(c) : [])],
+      },
+      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
+      { text: numbers, color: ink },
+      { text: criterion, color: ink },
+      { text: dateTime(c.runAt, m.report.timeZone), color: ink },
     ]
   })
   return {
@@ -258,8 +279,10 @@ function qualityBlock(m: ReportModel): Content[] {
     {
       text: `Data-quality score: ${num(r.quality, 2)} of 1`,
       bold: true,
+      color: latest.stale ? C.muted : C.ink,
       margin: [0, 8, 0, 2],
     },
+    ...(latest.stale ? staleMark(latest) : []),
     grid(
       ['Test', 'Score (of 0.25)', 'Value', 'Limit', 'Source of the limit'],
       (r.tests ?? []).map((t) => [

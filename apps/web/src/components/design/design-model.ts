@@ -53,7 +53,7 @@ export function otherFitCurves(
   p: ParametersExport,
   chosenFitId: string | null,
   P: number,
-  label: (model: string) => string,
+  label: (fit: ParametersExport['fits'][number]) => string = (f) => f.label,
 ) {
   return p.fits
     .filter((f) => f.id !== chosenFitId)
@@ -61,7 +61,7 @@ export function otherFitCurves(
       try {
         const { system } = systemFromParameters(p, f.id)
         const d = phaseDiagram(system, { P }, { points: 61 })
-        return [{ name: label(f.model), x1: d.x1, y1: d.y1, T: d.kind === 'isobaric' ? d.T : [], hidden: true }]
+        return [{ name: label(f), x1: d.x1, y1: d.y1, T: d.kind === 'isobaric' ? d.T : [], hidden: true }]
       } catch {
         return []
       }

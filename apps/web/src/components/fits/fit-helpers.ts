@@ -16,41 +16,9 @@ export const MODEL_LABELS: Record<ModelName, string> = {
 /** Models the server fits; the ideal solution is drawn as a reference curve, it has nothing to fit. */
 export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl']
 
-/** One setting of a fit in words: objective, NRTL α (held or fitted), number of points used. */
-function settingWords(f: Fit): Record<string, string> {
-  const o = f.options ?? {}
-  const out: Record<string, string> = { points: `${f.pointIds.length} points` }
-  if (typeof o.objective === 'string')
-    out.objective = o.objective === 'activity' ? 'activity objective' : 'bubble-point objective'
-  if (typeof o.alpha === 'number') out.alpha = `${o.fitAlpha === true ? 'α fitted from' : 'α ='} ${o.alpha}`
-  return out
-}
-
-/**
- * Name of a fit for legends and tables: the model, numbered in run order when the same model was fitted
- * more than once, with the settings that differ between those fits (or the run time when none does).
- */
-export function fitLabel(f: Fit, all: Fit[]): string {
-  const base = MODEL_LABELS[f.model] ?? f.model
-  const same = all
-    .filter((g) => g.model === f.model)
-    .sort((a, b) => a.runAt.localeCompare(b.runAt) || a.id.localeCompare(b.id))
-  if (same.length < 2) return base
-  const mine = settingWords(f)
-  const differ = Object.keys(mine).filter((k) => same.some((g) => settingWords(g)[k] !== mine[k]))
-  const note = differ.length
-    ? differ.map((k) => mine[k]).join(', ')
-    : `run ${new Date(f.runAt).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}`
-  return `${base} #${same.indexOf(f) + 1} (${note})`
-}
-
-/**
- * A fit's label with a note in parentheses, merged into the label's own parentheses when it has them:
- * "Wilson (recommended)", "Wilson #1 (run 08:14 PM; recommended)", never "(…) (…)".
- */
-export function labelWithNote(label: string, note: string): string {
-  return label.endsWith(')') ? `${label.slice(0, -1)}; ${note})` : `${label} (${note})`
-}
+/** How a fit is named on every screen and in every export: one shared rule (packages/schemas/src/fit-label.ts). */
+import { fitLabel, labelWithNote } from '@ebullio/schemas'
+export { fitLabel, labelWithNote }
 
 /**
  * The two vapour-pressure models the workspace store read for the system (the components' preferred sets);
