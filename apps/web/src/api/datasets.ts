@@ -134,7 +134,11 @@ export interface DataSetListQuery {
 export interface NewDataSet {
   systemId: string
   title: string
-  nominalPressurePa: number
+  /** Pa; null for isothermal data */
+  nominalPressurePa: number | null
+  /** K; isothermal data only */
+  nominalTemperatureK?: number | null
+  vaporModel?: DataSet['vaporModel']
   apparatusNotes: string | null
   projectRef: string | null
   /** where the numbers come from (default: measured here by GC), with a citation for literature data */
@@ -147,7 +151,7 @@ export interface NewDataSet {
 /** POST …/fits body: models, NRTL α (dimensionless) held or fitted. */
 export interface FitRequest {
   models: Exclude<ModelName, 'ideal'>[]
-  objective?: 'bubble-point' | 'activity'
+  objective?: 'bubble-point' | 'bubble-pressure' | 'activity'
   alpha?: number
   fitAlpha?: boolean
 }
