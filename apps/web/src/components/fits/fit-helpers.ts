@@ -109,6 +109,9 @@ export function staleForSigning(d: DataSetDetail): string[] {
   const rec = d.fits.find((f) => f.id === d.dataSet.recommendedFitId)
   if (rec?.stale) out.push(`the recommended fit (${fitLabel(rec, d.fits)}, ${computedOnText(rec)})`)
   for (const c of latestConsistency(d.consistency))
-    if (c.stale) out.push(`the ${c.test === 'point' ? 'point' : 'area'} test (${computedOnText(c)})`)
+    if (c.stale)
+      out.push(
+        `${c.test === 'quality-score' ? 'the data-quality score' : `the ${c.test === 'point' ? 'point' : 'area'} test`} (${computedOnText(c)})`,
+      )
   return out
 }
