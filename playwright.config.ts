@@ -51,6 +51,8 @@ export default defineConfig({
       SERVE_WEB: 'true',
       LOG_LEVEL: 'warn',
       RATE_LIMIT_SIGNIN_PER_IP: '1000',
+      // markup in the configured lab name must stay text (tests/e2e/accounts.spec.ts)
+      LAB_NAME: 'Halvorsen <b>Solvent</b> Recovery Lab',
     },
   },
 })

@@ -17,7 +17,14 @@ const pg = startCluster({
   port: portOf(dbUrl, 54320),
   database: new URL(dbUrl).pathname.slice(1) || 'ebullio',
 })
-const appEnv = { ...env, DATABASE_URL: pg.url, NODE_ENV: env.NODE_ENV ?? 'development', SERVE_WEB: 'true' }
+const appEnv = {
+  ...env,
+  DATABASE_URL: pg.url,
+  NODE_ENV: env.NODE_ENV ?? 'development',
+  SERVE_WEB: 'true',
+  // the demo scenario's invented lab (db/seeds/lab.ts), unless LAB_NAME says otherwise
+  LAB_NAME: env.LAB_NAME ?? 'Halvorsen Fine Chemicals, Solvent Recovery Laboratory',
+}
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx')
 
 try {

@@ -6,6 +6,9 @@ test('an admin invites a colleague, who sets a password, signs in, sees their na
 }) => {
   const email = `new.reviewer.${Date.now()}@lab.example`
   await signIn(page, DEMO.admin)
+  // the app frame shows the configured LAB_NAME (playwright.config.ts), markup as text
+  await expect(page.getByTestId('lab-name')).toHaveText('Halvorsen <b>Solvent</b> Recovery Lab')
+  await expect(page.getByTestId('lab-name').locator('b')).toHaveCount(0)
   await shot(page, 'admin-home')
   await nav(page).getByRole('link', { name: 'People and roles' }).click()
   await expect(page.getByRole('heading', { name: 'People and roles' })).toBeVisible()

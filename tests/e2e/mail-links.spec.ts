@@ -170,4 +170,29 @@ test('each mailed link opens the data set; planted markup stays text on screens 
   await expectDataSetPage(page)
   await expect(page.getByTestId('threads-panel')).toContainText(`Done ${IMG(7)}`)
   await expectNothingInjected(page)
+
+  // 4. the lead resolves their thread; the analyst submits again; the lead approves; the analyst follows the
+  //    "approved" link
+  await post(api, `/api/data-sets/${d.id}/comments/${comment.id}/resolve`, {})
+  await signOut(page)
+  await signIn(page, DEMO.analyst)
+  await post(api, `/api/data-sets/${d.id}/submit`, {
+    rowVersion: (await (await api.get(`/api/data-sets/${d.id}`)).json()).rowVersion,
+  })
+  await signOut(page)
+  await signIn(page, DEMO.lead)
+  const rec = await post(api, `/api/data-sets/${d.id}/recommended-fit`, { fitId: fit.fits[0].id })
+  await post(api, `/api/data-sets/${d.id}/approve`, {
+    password: DEMO_PASSWORD,
+    reason: `Approved ${IMG(8)}`,
+    rowVersion: rec.rowVersion,
+  })
+  await signOut(page)
+  await signIn(page, DEMO.analyst)
+  const approved = await waitForMail(DEMO.analyst, /Markup check .* approved$/)
+  await page.goto(linkFrom(approved, '/datasets/'))
+  await expectDataSetPage(page)
+  await expect(page.locator('[data-state]').first()).toHaveAttribute('data-state', 'approved')
+  await expectNothingInjected(page)
+  expect(new URL(page.url()).pathname).toBe(`/datasets/${d.id}`)
 })

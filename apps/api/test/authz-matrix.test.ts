@@ -91,6 +91,17 @@ const expected: Record<string, Access> = {
   'POST /api/data-sets/:id/own-measurement': ['lead_chemist'],
   'GET /api/check-measurements': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'POST /api/check-measurements': ['analyst', 'lead_chemist'],
+  // joint fits and the system's recommended parameter set (issue 13)
+  'POST /api/systems/:id/joint-fits': ['lead_chemist'],
+  'GET /api/systems/:id/joint-fits': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'GET /api/joint-fits/:id': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'GET /api/joint-fits/:id/plots': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'DELETE /api/joint-fits/:id': ['lead_chemist'],
+  'POST /api/joint-fits/:id/submit': ['lead_chemist'],
+  'POST /api/joint-fits/:id/approve': ['lead_chemist'],
+  'GET /api/joint-fits/:id/signatures/verify': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
+  'GET /api/systems/:id/recommended-parameters': 'authenticated',
+  'GET /api/systems/:id/recommended-parameters/curve': 'authenticated',
 }
 
 const key = (r: { method: string; path: string }) => `${r.method.toUpperCase()} ${r.path}`
@@ -115,6 +126,11 @@ beforeAll(async () => {
     .post(`/api/data-sets/${d.id}/fits`)
     .send({ models: ['wilson'] })
     .expect(201)
+  const d2 = await draftWithPoints(t, lab, 'Someone else’s second series')
+  const joint = await lab.lead
+    .post(`/api/systems/${lab.systemId}/joint-fits`)
+    .send({ dataSetIds: [d.id, d2.id], model: 'wilson' })
+    .expect(201)
   const comment = await lab.reviewer.post(`/api/data-sets/${d.id}/comments`).send({ body: 'A question.' }).expect(201)
   const first = async (table: 'point' | 'fit' | 'upload' | 'component') =>
     (await t.db.selectFrom(table).select('id').orderBy('id').executeTakeFirstOrThrow()).id
@@ -129,6 +145,7 @@ beforeAll(async () => {
     pointId: await first('point'),
     fitId: await first('fit'),
     commentId: comment.body.id,
+    'joint-fits': joint.body.id,
   })
 })
 afterAll(() => t.close())

@@ -383,8 +383,35 @@ describe('the signed digest', () => {
     }
     expect(sha(canonicalize(content)!)).toBe(ok.body.digest)
 
-    // A signature made with format 1 (before this change) verifies with format 1.
+    // A signature made with format 1 (before this change) verifies with format 1. Format 1 as it was released:
+    // sorted-key JSON of eight metadata fields, every point, every fit by id and the recommended fit's id
+    // (recomputed here from the API's answers, not with the service's code).
+    const v1Content = {
+      format: 'ebullio-signed-content/1',
+      dataSet: {
+        id: det.id,
+        lineageId: det.lineageId,
+        version: det.version,
+        systemId: det.systemId,
+        title: det.title,
+        nominalPressurePa: det.nominalPressurePa,
+        apparatusNotes: det.apparatusNotes,
+        projectRef: det.projectRef,
+      },
+      points: content.points,
+      fits: [...det.fits]
+        .sort((a: { id: string }, b: { id: string }) => a.id.localeCompare(b.id))
+        .map((f: { id: string; model: string; activity: unknown; parameters: unknown; pointIds: string[] }) => ({
+          id: f.id,
+          model: f.model,
+          activity: f.activity,
+          parameters: f.parameters,
+          pointIds: f.pointIds,
+        })),
+      recommendedFitId: det.recommendedFitId,
+    }
     const v1 = await contentDigest(t.db, d.id, DIGEST_V1)
+    expect(v1).toBe(sha(canonicalize(v1Content)!))
     await sql`insert into approval (data_set_id, signer_id, meaning, reason, digest, digest_algorithm)
       values (${d.id}, ${lab.ids.lead2}, 'approved', 'an older signature', ${v1}, 'ebullio-signed-content/1')`.execute(
       t.db,

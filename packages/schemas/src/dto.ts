@@ -1,4 +1,5 @@
 import type { ComponentProperties } from './component-properties.js'
+import type { RecommendedParameterSetDto } from './joint-fit.js'
 /**
  * Types only: the JSON the API answers with and the web app reads, for the engineer and admin screens
  * (components, systems, points, fits, the catalogue, GC methods and calibrations). `D` is the type of a
@@ -179,6 +180,8 @@ export interface CatalogueEntryDto<D = string> {
   system: SystemDto<D>
   approved: ApprovedVersionDto<D>[]
   superseded: { dataSetId: string; version: number; approvedAt: D | null }[]
+  /** The system's signed recommended parameter set (joint fit over several data sets), null when it has none. */
+  recommendedSet?: RecommendedParameterSetDto<D> | null
 }
 
 /** A GC method; a retired one keeps its history and none of its calibrations can be active. */

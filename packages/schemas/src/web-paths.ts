@@ -11,6 +11,7 @@ export const WEB_PATHS = {
   threads: '/threads',
   catalogue: '/systems',
   system: '/systems/:id',
+  labSystem: '/lab/systems/:id',
   adminPeople: '/admin/people',
   adminComponents: '/admin/components',
   adminGcMethods: '/admin/gc-methods',

@@ -46,6 +46,8 @@ export const authRoutes = defineRoutes([
       res.json({
         user: { ...user, notifyMail: row?.notify_mail ?? true },
         devMode: req.ctx.config.mailViewer,
+        // the lab's own name (LAB_NAME), shown in the app frame and printed on reports
+        labName: req.ctx.config.labName,
       })
     },
   },

@@ -7,6 +7,7 @@ import { componentRoutes } from './components.routes.js'
 import { dataSetRoutes } from './datasets.routes.js'
 import { reportRoutes } from './reports.routes.js'
 import { directDataRoutes } from './direct-data.routes.js'
+import { jointFitRoutes } from './joint-fits.routes.js'
 import { opsRoutes } from './ops.routes.js'
 import { reviewRoutes } from './review.routes.js'
 import { systemRoutes } from './systems.routes.js'
@@ -24,4 +25,5 @@ export const allRoutes: RouteDef[] = [
   ...catalogueRoutes,
   ...auditRoutes,
   ...reportRoutes,
+  ...jointFitRoutes,
 ]

@@ -6,6 +6,7 @@ import {
   phaseDiagram,
   relativeVolatility,
   type ActivityModel,
+  type BinarySystem,
   type PhaseDiagram,
 } from '@ebullio/thermo'
 import { sql } from 'kysely'
@@ -17,6 +18,7 @@ import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
+import { recommendedSetOf } from './joint-fit-signing.js'
 
 /** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
 const ROOM_T = 298.15
@@ -95,6 +97,8 @@ export async function catalogue(
         .map((v) => ({ dataSetId: v.id, version: v.version, approvedAt: v.approved_at })),
     }
   })
+  for (const item of items as CatalogueEntryDto<Date>[])
+    item.recommendedSet = await recommendedSetOf(db, item.system.id)
   return { items, total: systems.total, page: o.page, pageSize: o.pageSize }
 }
 
@@ -151,32 +155,37 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   const chosen = await chosenActivity(db, d, o.fitId)
   const inputs = await engineInputs(db, d.systemId)
-  const system = binarySystem(inputs, chosen.activity)
-  const diagram = thermo(
-    'T–x–y curve',
-    () =>
-      phaseDiagram(system, { P: o.P }, { points: o.points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
-  )
-  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P: o.P }))
-  // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
-  const gap = diagram.threePhase
-  const volatility = Array.from({ length: 21 }, (_, i) => i / 20)
-    .filter((x1) => !gap || x1 <= gap.x1I || x1 >= gap.x1II)
-    .map((x1) => {
-      const r = thermo('Relative volatility', () => relativeVolatility(system, { P: o.P, x1 }))
-      return { x1, alpha: r.alpha, T: r.T }
-    })
   return {
     dataSetId: id,
     fitId: chosen.fitId,
     model: chosen.model,
     P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
+    ...curveOf(binarySystem(inputs, chosen.activity), o.P, o.points),
+    caution: DESIGN_CAUTION,
+  }
+}
+
+/** The isobaric diagram (with the liquid split), every azeotrope and α across composition at P (Pa). */
+export function curveOf(system: BinarySystem, P: number, points: number) {
+  const diagram = thermo(
+    'T–x–y curve',
+    () => phaseDiagram(system, { P }, { points, lle: true }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
+  )
+  const azeotropes = thermo('Azeotrope search', () => findAzeotropes(system, { P }))
+  // Inside the two-liquid gap there is no single liquid to take α of: those compositions are left out.
+  const gap = diagram.threePhase
+  const volatility = Array.from({ length: 21 }, (_, i) => i / 20)
+    .filter((x1) => !gap || x1 <= gap.x1I || x1 >= gap.x1II)
+    .map((x1) => {
+      const r = thermo('Relative volatility', () => relativeVolatility(system, { P, x1 }))
+      return { x1, alpha: r.alpha, T: r.T }
+    })
+  return {
     diagram,
     threePhase: diagram.threePhase ?? null,
     azeotrope: azeotropes[0] ?? null,
     azeotropes,
     relativeVolatility: volatility,
-    caution: DESIGN_CAUTION,
   }
 }

@@ -8,6 +8,7 @@ import { AppError, conflict, forbidden, notFound } from '../errors/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
 import { listComments } from '../repositories/comments.repository.js'
+import { openJointFitsOf as jointFitsWith } from '../repositories/joint-fits.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { copyFits, listConsistency, listFits } from '../repositories/fits.repository.js'
 import * as points from '../repositories/points.repository.js'
@@ -241,6 +242,8 @@ export async function deleteDraft(db: Kysely<Database>, user: SessionUser, id: s
       throw forbidden('Only the author of this draft or a lead chemist may delete it.')
     requireState(d, ['draft'], 'deleting')
     if (d.submittedAt) throw conflict('This data set has been submitted before; it is kept for the record.')
+    if ((await jointFitsWith(tx, id)).length)
+      throw conflict("This draft is part of a joint fit on its system's page; delete that joint fit first.")
     await appendAudit(tx, {
       actorId: user.id,
       entity: 'data_set',

@@ -42,7 +42,7 @@ export async function signedContentV1(db: Db, dataSetId: string) {
   const fits = (await listFits(db, dataSetId)).sort((a, b) => a.id.localeCompare(b.id))
   return {
     format: 'ebullio-signed-content/1',
-    dataSet: metadataOf(d),
+    dataSet: metadataV1Of(d),
     points: points.map(signedPoint),
     fits: fits.map((f) => ({
       id: f.id,
@@ -55,6 +55,22 @@ export async function signedContentV1(db: Db, dataSetId: string) {
   }
 }
 
+/**
+ * The metadata format 1 signed, exactly as it was when format 1 was current (before data-set origin and layout
+ * existed): a signature made then must still verify, so nothing may ever be added here.
+ */
+const metadataV1Of = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
+  id: d.id,
+  lineageId: d.lineageId,
+  version: d.version,
+  systemId: d.systemId,
+  title: d.title,
+  nominalPressurePa: d.nominalPressurePa,
+  apparatusNotes: d.apparatusNotes,
+  projectRef: d.projectRef,
+})
+
+/** The metadata format 2 signs. */
 const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
   id: d.id,
   lineageId: d.lineageId,

@@ -6,6 +6,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { visibleOrNotFound } from './lab-access.js'
+import { recommendedSetOf } from './joint-fit-signing.js'
 import { engineInputs } from './systems.service.js'
 import {
   csvDocument,
@@ -42,6 +43,29 @@ const UNITS: Record<string, string> = {
   alpha: '1',
   V1: 'cm3/mol',
   V2: 'cm3/mol',
+  a12T: 'J/(mol K)',
+  a21T: 'J/(mol K)',
+  b12T: 'J/(mol K)',
+  b21T: 'J/(mol K)',
+}
+
+/** The temperature dependence of a joint parameter set's energies (thermo's T_REF = 298.15 K). */
+export const TEMPERATURE_FORM: Record<string, string> = {
+  wilson: 'a12(T) = a12 + a12T (T - 298.15 K); a21(T) = a21 + a21T (T - 298.15 K)',
+  nrtl: 'b12(T) = b12 + b12T (T - 298.15 K); b21(T) = b21 + b21T (T - 298.15 K)',
+}
+
+/** The system's signed recommended parameter set as exported with every data set's parameters (null: none). */
+async function systemRecommendedSet(db: Db, systemId: string) {
+  const r = await recommendedSetOf(db, systemId)
+  if (!r) return null
+  return {
+    ...r,
+    equation: MODEL_EQUATIONS[r.model] ?? r.model,
+    temperatureForm: TEMPERATURE_FORM[r.model] ?? null,
+    parameters: r.parameters.map((p) => ({ ...p, unit: UNITS[p.name] ?? '1' })),
+    held: heldSettings(r),
+  }
 }
 
 /** How the curve is computed from the parameters (the engine's conventions, packages/thermo/src/activity/kernel.ts). */
@@ -143,6 +167,7 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
             digest: approval.digest,
           }
         : null,
+      systemRecommendedSet: await systemRecommendedSet(db, d.systemId),
     },
   }
 }
@@ -217,6 +242,36 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
     ['approval', 'reason', a?.reason ?? null, ''],
     ['approval', 'signature_digest', a?.digest ?? null, 'SHA-256'],
   ]
+  const rs = body.systemRecommendedSet
+  const setRow = (name: string, value: CsvCell, se: CsvCell = null, unit = ''): CsvCell[] => [
+    rs!.id,
+    `system-recommended/${rs!.model}`,
+    'system',
+    name,
+    value,
+    se,
+    unit,
+    null,
+    null,
+    null,
+  ]
+  const setRows = rs
+    ? [
+        setRow('label', rs.label),
+        setRow('equation', rs.equation),
+        setRow('temperature_form', rs.temperatureForm),
+        ...rs.parameters.map((p) => setRow(p.name, p.value, p.standardError, p.unit)),
+        ...rs.held.map((h) => setRow(h.name, h.value, null, h.unit)),
+        setRow('temperature_min', rs.range.Tmin, null, 'K'),
+        setRow('temperature_max', rs.range.Tmax, null, 'K'),
+        setRow('pressure_min', rs.range.Pmin, null, 'Pa'),
+        setRow('pressure_max', rs.range.Pmax, null, 'Pa'),
+        setRow('data_sets', rs.dataSets.map((d) => `${d.title} v${d.version}`).join('; ')),
+        setRow('signed_by', rs.signedBy),
+        setRow('signed_at', rs.approvedAt ? new Date(rs.approvedAt).toISOString() : null),
+        setRow('signature_digest', rs.digest, null, 'SHA-256'),
+      ]
+    : []
   const tail = recordRows.map(([model, name, value, unit]): CsvCell[] => [
     null,
     model,
@@ -231,7 +286,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
   ])
   return {
     name: dataSetFileName(d, 'parameters', 'csv'),
-    csv: csvDocument(PARAMETERS_CSV_HEADER.split(','), [...fitRows, ...vpRows, ...tail]),
+    csv: csvDocument(PARAMETERS_CSV_HEADER.split(','), [...fitRows, ...setRows, ...vpRows, ...tail]),
   }
 }
 

@@ -21,7 +21,7 @@ import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './
 
 const link = (config: Config, id: string) => webLink(config.publicUrl, 'dataset', { id })
 
-async function leadChemists(db: Db): Promise<string[]> {
+export async function leadChemists(db: Db): Promise<string[]> {
   const rows = await db
     .selectFrom('user_role')
     .innerJoin('app_user', 'app_user.id', 'user_role.user_id')
@@ -77,7 +77,7 @@ export interface SignatureInput {
 }
 
 /** Re-entered password check for a signature; a wrong password records nothing. */
-async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
+export async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
   const u = await db.selectFrom('app_user').select('password_hash').where('id', '=', user.id).executeTakeFirst()
   if (!(await verifyPassword(u?.password_hash ?? null, password))) {
     throw new AppError(403, 'signature_refused', 'The password is not correct; nothing was signed.')

@@ -10,7 +10,7 @@ export interface Me {
 }
 
 export const authApi = {
-  me: () => api.get<{ user: Me; devMode: boolean }>('/api/auth/me', { quiet: true }),
+  me: () => api.get<{ user: Me; devMode: boolean; labName: string }>('/api/auth/me', { quiet: true }),
   signIn: (email: string, password: string) =>
     api.post<{ ok: true }>('/api/auth/sign-in', { email, password }, { quiet: true }),
   signOut: () => api.post<{ ok: true }>('/api/auth/sign-out'),

@@ -7,6 +7,8 @@ import { ApiError } from '../api/client'
 export const useSessionStore = defineStore('session', () => {
   const user = ref<Me | null>(null)
   const devMode = ref(false)
+  /** the lab's name as the server is configured (LAB_NAME) */
+  const labName = ref('')
   const loaded = ref(false)
 
   async function load(): Promise<Me | null> {
@@ -14,6 +16,7 @@ export const useSessionStore = defineStore('session', () => {
       const r = await authApi.me()
       user.value = r.user
       devMode.value = r.devMode
+      labName.value = r.labName ?? ''
     } catch (e) {
       if (!(e instanceof ApiError) || e.status !== 401) throw e
       user.value = null
@@ -38,5 +41,5 @@ export const useSessionStore = defineStore('session', () => {
 
   const roles = computed<Role[]>(() => user.value?.roles ?? [])
   const can = (...wanted: Role[]) => wanted.some((r) => roles.value.includes(r))
-  return { user, devMode, loaded, roles, load, signIn, signOut, can }
+  return { user, devMode, labName, loaded, roles, load, signIn, signOut, can }
 })

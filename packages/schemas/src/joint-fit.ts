@@ -1,0 +1,155 @@
+import { z } from 'zod'
+import type { FitParameterDto, FitStatisticsDto } from './dto.js'
+import { FIT_MODEL_LABELS, labelWithNote } from './fit-label.js'
+import { labId, PRESSURE_UNITS } from './lab.js'
+
+/**
+ * A system's joint parameter sets: one NRTL or Wilson parameter set fitted over several data sets of one system
+ * (thermo's fitJoint), signed by a lead chemist as the system's recommended parameter set. Units: T in K, P in Pa,
+ * energies J/mol, their temperature terms J/(mol·K) about 298.15 K.
+ */
+
+/** The models a joint fit offers: those with temperature-dependent energies in thermo. */
+export const JOINT_FIT_MODELS = ['nrtl', 'wilson'] as const
+export type JointFitModel = (typeof JOINT_FIT_MODELS)[number]
+export const JOINT_FIT_STATES = ['draft', 'submitted', 'approved', 'superseded'] as const
+export type JointFitStateName = (typeof JOINT_FIT_STATES)[number]
+
+/** POST /api/systems/:id/joint-fits: the data sets (2–12, no repeats), the model, NRTL α (held). */
+export const jointFitRequestSchema = z.object({
+  dataSetIds: z
+    .array(labId('data set'))
+    .min(2, 'Choose at least two data sets for a joint fit')
+    .max(12, 'Choose at most 12 data sets for a joint fit')
+    .refine((ids) => new Set(ids).size === ids.length, 'A data set is chosen twice'),
+  model: z.enum(JOINT_FIT_MODELS, { message: 'The model must be NRTL or Wilson' }),
+  alpha: z
+    .number()
+    .gt(0, 'NRTL α must be above 0 and at most 1')
+    .max(1, 'NRTL α must be above 0 and at most 1')
+    .optional(),
+  temperatureDependent: z.boolean().default(true),
+})
+export type JointFitRequest = z.input<typeof jointFitRequestSchema>
+
+/** POST /api/joint-fits/:id/submit */
+export const jointFitSubmitSchema = z.object({ rowVersion: z.number().int().min(1) })
+
+/** POST /api/joint-fits/:id/approve: the e-signature (password re-entered) with its reason. */
+export const jointFitSignatureSchema = z.object({
+  password: z.string().min(1, 'Re-enter your password to sign').max(200),
+  reason: z.string().trim().max(2000).min(1, 'Give the reason for your signature'),
+  rowVersion: z.number().int().min(1),
+})
+
+/** GET /api/systems/:id/recommended-parameters/curve query: pressure in `unit` (default kPa), grid points. */
+export const recommendedCurveQuerySchema = z.object({
+  pressure: z.coerce.number().positive('Pressure must be positive'),
+  unit: z.enum(PRESSURE_UNITS).default('kPa'),
+  points: z.coerce.number().int().min(3).max(1001).default(101),
+})
+
+/** One data set's statistics under the joint parameters (dT, dy = measured − calculated; fitted points only). */
+export interface JointFitDataSetStatsDto {
+  n: number
+  rmsT: number
+  rmsY: number
+  biasT: number
+  biasY: number
+  Tmin: number
+  Tmax: number
+  Pmin: number
+  Pmax: number
+}
+
+/** A contributing data set of a joint fit, with the point set it was fitted on and whether it has changed since. */
+export interface JointFitMemberDto {
+  dataSetId: string
+  title: string
+  version: number
+  state: string
+  nominalPressurePa: number
+  pointSetDigest: string
+  pointCount: number
+  /** true when the data set's points have changed since the joint fit ran */
+  stale: boolean
+  statistics: JointFitDataSetStatsDto
+}
+
+/** The range the parameters were fitted over (K, Pa): use them inside it only. */
+export interface JointFitRangeDto {
+  Tmin: number
+  Tmax: number
+  Pmin: number
+  Pmax: number
+}
+
+export interface JointFitSignatureDto<D = string> {
+  id: string
+  signerId: string
+  signerName: string
+  meaning: 'approved'
+  reason: string
+  digest: string
+  digestAlgorithm: string
+  changes: { userId: string; name: string; changes: string[] }[]
+  selfApproval: boolean
+  signedAt: D
+}
+
+/** A joint fit as the API answers it. */
+export interface JointFitDto<D = string> {
+  id: string
+  systemId: string
+  model: JointFitModel
+  options: Record<string, unknown>
+  /** thermo's ActivityModel with b12T, b21T (NRTL) or a12T, a21T (Wilson) */
+  activity: Record<string, unknown> & { kind: string }
+  parameters: FitParameterDto[]
+  statistics: FitStatisticsDto & { covariance?: number[][]; correlation?: number[][] }
+  range: JointFitRangeDto
+  state: JointFitStateName
+  runBy: string
+  runByName: string
+  runAt: D
+  submittedAt: D | null
+  approvedAt: D | null
+  supersededAt: D | null
+  supersededBy: string | null
+  rowVersion: number
+  members: JointFitMemberDto[]
+  /** true when any contributing data set's points changed since the run */
+  stale: boolean
+  signatures: JointFitSignatureDto<D>[]
+}
+
+/** The system's signed recommended parameter set as the engineers read it (no draft data set named). */
+export interface RecommendedParameterSetDto<D = string> {
+  id: string
+  systemId: string
+  model: JointFitModel
+  /** {@link jointFitLabel} of the set, e.g. "NRTL (joint, 2 data sets)" */
+  label: string
+  activity: Record<string, unknown> & { kind: string }
+  parameters: FitParameterDto[]
+  range: JointFitRangeDto
+  approvedAt: D | null
+  signedBy: string | null
+  digest: string | null
+  dataSets: { dataSetId: string; title: string; version: number; nominalPressurePa: number; pointCount: number }[]
+}
+
+/**
+ * Name of a joint parameter set for legends, tables and exports, in the style of the lab screens' fit names
+ * (fitLabel: "NRTL #2 (α = 0.3)"): "NRTL (joint, 2 data sets)", "Wilson (joint, constant energies, 3 data sets)".
+ * Notes are merged into the parentheses: "NRTL (joint, 2 data sets; recommended for the system)".
+ */
+export function jointFitLabel(
+  f: { model: JointFitModel; dataSetCount: number; temperatureDependent?: boolean },
+  note?: string,
+) {
+  const words = ['joint', ...(f.temperatureDependent === false ? ['constant energies'] : [])]
+  words.push(`${f.dataSetCount} data set${f.dataSetCount === 1 ? '' : 's'}`)
+  const label = `${FIT_MODEL_LABELS[f.model] ?? f.model} (${words.join(', ')})`
+  return note ? labelWithNote(label, note) : label
+}
