@@ -327,17 +327,21 @@ describe('the signed digest', () => {
     const psd = sha(canonicalize(pointSet)!)
     expect(psd).toBe(det.pointSetDigest)
     const fit = det.fits.find((f: { id: string }) => f.id === det.recommendedFitId)
+    // the eight metadata fields of format 1 (frozen); format 2 adds origin and layout
+    const metadataV1 = {
+      id: det.id,
+      lineageId: det.lineageId,
+      version: det.version,
+      systemId: det.systemId,
+      title: det.title,
+      nominalPressurePa: det.nominalPressurePa,
+      apparatusNotes: det.apparatusNotes,
+      projectRef: det.projectRef,
+    }
     const content = {
       format: 'ebullio-signed-content/2',
       dataSet: {
-        id: det.id,
-        lineageId: det.lineageId,
-        version: det.version,
-        systemId: det.systemId,
-        title: det.title,
-        nominalPressurePa: det.nominalPressurePa,
-        apparatusNotes: det.apparatusNotes,
-        projectRef: det.projectRef,
+        ...metadataV1,
         origin: det.origin,
         originMethod: det.originMethod,
         citation: det.citation,
@@ -388,16 +392,7 @@ describe('the signed digest', () => {
     // (recomputed here from the API's answers, not with the service's code).
     const v1Content = {
       format: 'ebullio-signed-content/1',
-      dataSet: {
-        id: det.id,
-        lineageId: det.lineageId,
-        version: det.version,
-        systemId: det.systemId,
-        title: det.title,
-        nominalPressurePa: det.nominalPressurePa,
-        apparatusNotes: det.apparatusNotes,
-        projectRef: det.projectRef,
-      },
+      dataSet: metadataV1,
       points: content.points,
       fits: [...det.fits]
         .sort((a: { id: string }, b: { id: string }) => a.id.localeCompare(b.id))

@@ -72,14 +72,7 @@ const metadataV1Of = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) =
 
 /** The metadata format 2 signs. */
 const metadataOf = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
-  id: d.id,
-  lineageId: d.lineageId,
-  version: d.version,
-  systemId: d.systemId,
-  title: d.title,
-  nominalPressurePa: d.nominalPressurePa,
-  apparatusNotes: d.apparatusNotes,
-  projectRef: d.projectRef,
+  ...metadataV1Of(d),
   origin: d.origin,
   originMethod: d.originMethod,
   citation: d.citation,

@@ -1,12 +1,7 @@
-/** Display names of activity models as chemists write them. */
-export const MODEL_LABELS: Record<string, string> = {
-  ideal: 'Ideal (Raoult)',
-  margules: 'Margules',
-  'van-laar': 'Van Laar',
-  wilson: 'Wilson',
-  nrtl: 'NRTL',
-  uniquac: 'UNIQUAC',
-}
+import { FIT_MODEL_LABELS } from '@ebullio/schemas'
+
+/** Display names of activity models as chemists write them (one table, packages/schemas/src/fit-label.ts). */
+export const MODEL_LABELS: Readonly<Record<string, string>> = FIT_MODEL_LABELS
 
 /** Units of activity-model parameters as Ebullio stores them (energies in J/mol; Margules and Van Laar dimensionless). */
 export const PARAMETER_UNITS: Record<string, string> = {
