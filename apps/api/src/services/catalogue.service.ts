@@ -17,7 +17,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
-import { binarySystem, engineInputs } from './systems.service.js'
+import { binarySystem, engineInputs, type EngineInputs } from './systems.service.js'
 import { recommendedSetOf } from './joint-fit-signing.js'
 
 /** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
@@ -139,12 +139,18 @@ async function chosenActivity(
   db: Db,
   d: repo.DataSetRecord,
   fitId?: string,
-): Promise<{ fitId: string; model: string; activity: ActivityModel }> {
+): Promise<{ fitId: string; model: string; activity: ActivityModel; vapor: EngineInputs['vapor'] | null }> {
   const id = fitId ?? d.recommendedFitId
   if (!id) throw conflict('This data set has no recommended fit yet; choose a fit.')
   const fit = await findFit(db, id)
   if (!fit || fit.dataSetId !== d.id) throw notFound('There is no such fit in this data set.')
-  return { fitId: fit.id, model: fit.model, activity: fit.activity as unknown as ActivityModel }
+  return {
+    fitId: fit.id,
+    model: fit.model,
+    activity: fit.activity as unknown as ActivityModel,
+    // the vapour the fit was made with: curves drawn from it use the same one
+    vapor: (fit.options.vapor as EngineInputs['vapor'] | undefined) ?? null,
+  }
 }
 
 /**

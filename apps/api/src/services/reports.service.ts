@@ -120,7 +120,9 @@ function recommendedCurve(
   if (!condition)
     return { curve: null, curveNote: 'This isothermal data set has no nominal temperature recorded: the plots show the measured points only.' }
   try {
-    const diagram = phaseDiagram(binarySystem(inputs, fit.activity as unknown as ActivityModel), condition)
+    // drawn under the vapour the fit was made with
+    const vapor = (fit.options.vapor as typeof inputs.vapor | undefined) ?? inputs.vapor
+    const diagram = phaseDiagram(binarySystem({ ...inputs, vapor }, fit.activity as unknown as ActivityModel), condition)
     return {
       curve: {
         fitId: fit.id,
