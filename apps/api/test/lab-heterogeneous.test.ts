@@ -155,7 +155,7 @@ describe('uploading a run file with two-layer samples', () => {
     const problems = JSON.stringify(r.body)
     expect(problems).toContain('Layers must be 1 or 2 (the number of liquid layers seen in the still).')
     expect(problems).toContain('Sample WB-08 has layer injections but is not marked as two-layered; put 2 in layers.')
-    expect(problems).toContain('Phase must be liquid, vapour, upper or lower.')
+    expect(problems).toContain('Phase must be liquid, vapour, upper, lower or check.')
     expect(await labCounts(t)).toEqual(before)
   })
 

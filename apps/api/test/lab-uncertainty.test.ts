@@ -150,6 +150,42 @@ describe('where to measure next', () => {
     expect(plain.body.items).toEqual((await lab.lead.get(url).query({ count: 2 })).body.items)
   })
 
+  it("keeps away from the data set's own points and inside the range asked for", async () => {
+    const url = `/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`
+    const measured: number[] = (await lab.lead.get(`/api/data-sets/${ds.id}`)).body.points.map(
+      (p: { x1: number }) => p.x1,
+    )
+    expect(measured.length).toBeGreaterThan(3)
+    const r = await lab.lead.get(url).query({ count: 4, criterion: 'd-optimal', exclusion: 0.04 })
+    expect(r.status, JSON.stringify(r.body)).toBe(200)
+    expect(r.body.exclusion).toBe(0.04)
+    expect(r.body.range).toEqual([0, 1])
+    for (const s of r.body.items as { x1: number }[])
+      for (const m of measured) expect(Math.abs(s.x1 - m)).toBeGreaterThanOrEqual(0.04 - 1e-9)
+    const end = await lab.lead.get(url).query({ count: 2, from: 0.9, to: 1, exclusion: 0 })
+    expect(end.status, JSON.stringify(end.body)).toBe(200)
+    expect(end.body.range).toEqual([0.9, 1])
+    expect(end.body.items).toHaveLength(2)
+    for (const s of end.body.items as { x1: number }[]) expect(s.x1 >= 0.9 && s.x1 <= 0.999).toBe(true)
+    const none = await lab.lead.get(url).query({ count: 2, from: 0.5, to: 0.51, exclusion: 0.5 })
+    expect(none.body.items).toEqual([])
+    expect(none.body.notes).toEqual([
+      'No composition in x1 = 0.50–0.51 is at least 0.50 from every measured point; widen the range or shorten the distance.',
+    ])
+  })
+
+  it('refuses a range narrower than 0.01 or a distance out of bounds, naming the field', async () => {
+    const url = `/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`
+    const narrow = await lab.lead.get(url).query({ from: 0.5, to: 0.4 })
+    expect(narrow.status).toBe(422)
+    expect(narrow.body.error.details).toEqual([
+      { path: 'to', message: 'The composition range must be at least 0.01 wide (to − from ≥ 0.01)' },
+    ])
+    const far = await lab.lead.get(url).query({ exclusion: 0.7 })
+    expect(far.status).toBe(422)
+    expect(far.body.error.details).toEqual([{ path: 'exclusion', message: 'exclusion must be 0–0.5 (x1)' }])
+  })
+
   it('refuses an unknown criterion, naming the field', async () => {
     const bad = await lab.lead
       .get(`/api/data-sets/${ds.id}/fits/${fit.id}/next-compositions`)

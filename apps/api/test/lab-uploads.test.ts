@@ -74,7 +74,7 @@ describe('run upload preview', () => {
     ).toEqual([
       [5, 'phase', '', 'Phase is missing; use liquid or vapour.'],
       [10, 'area_1', '130x365.0', 'Not a number.'],
-      [15, 'area_1', '-147492.9', 'Peak area must be greater than zero.'],
+      [15, 'area_1', '-147492.9', 'Peak area cannot be negative.'],
     ])
   })
 

@@ -273,15 +273,31 @@ export const bandQuerySchema = z.object({
 export const SUGGESTION_CRITERIA = ['sigma-y', 'd-optimal'] as const
 /** One of {@link SUGGESTION_CRITERIA}. */
 export type SuggestionCriterionName = (typeof SUGGESTION_CRITERIA)[number]
-/** GET /api/data-sets/:id/fits/:fitId/next-compositions query: how many suggestions (1–20, default 5) at which pressure, by which criterion (default 'sigma-y'). */
-export const nextCompositionsQuerySchema = z.object({
-  pressure: queryPressure.pressure.optional(),
-  unit: queryPressure.unit,
-  count: z.coerce.number().int().min(1).max(20).default(5),
-  criterion: z
-    .enum(SUGGESTION_CRITERIA, { error: "The criterion must be 'sigma-y' or 'd-optimal'" })
-    .default('sigma-y'),
-})
+/**
+ * GET /api/data-sets/:id/fits/:fitId/next-compositions query: how many suggestions (1–20, default 5) at which
+ * pressure, by which criterion (default 'sigma-y'), in which x1 range (`from`–`to`, default 0–1, at least 0.01
+ * wide) and at least `exclusion` (0–0.5, default 0.02) from every measured point.
+ */
+export const nextCompositionsQuerySchema = z
+  .object({
+    pressure: queryPressure.pressure.optional(),
+    unit: queryPressure.unit,
+    count: z.coerce.number().int().min(1).max(20).default(5),
+    criterion: z
+      .enum(SUGGESTION_CRITERIA, { error: "The criterion must be 'sigma-y' or 'd-optimal'" })
+      .default('sigma-y'),
+    from: z.coerce.number().min(0, 'from must be 0–1 (x1)').max(1, 'from must be 0–1 (x1)').default(0),
+    to: z.coerce.number().min(0, 'to must be 0–1 (x1)').max(1, 'to must be 0–1 (x1)').default(1),
+    exclusion: z.coerce
+      .number()
+      .min(0, 'exclusion must be 0–0.5 (x1)')
+      .max(0.5, 'exclusion must be 0–0.5 (x1)')
+      .default(0.02),
+  })
+  .refine((q) => q.to - q.from >= 0.01 - 1e-12, {
+    path: ['to'],
+    message: 'The composition range must be at least 0.01 wide (to − from ≥ 0.01)',
+  })
 /** GET /api/data-sets/:id/pure-component-check query: agreement asked of a pure boiling point, K (default 0.3 K). */
 export const pureComponentCheckQuerySchema = z.object({
   toleranceK: z.coerce

@@ -76,6 +76,24 @@ export interface CheckMeasurementTable {
   created_at: DefaultTimestamp
 }
 
+/** A GC check standard read with a run's calibration (20261204_11d2). */
+export interface CheckStandardResultTable {
+  id: Generated<string>
+  gc_method_id: string
+  calibration_id: string
+  upload_id: string
+  data_set_id: string | null
+  label: string
+  known_x1: number
+  measured_x1: number
+  x1_uncertainty: number
+  replicate_rsd: number | null
+  injections: Json<{ injection: number; area1: number; area2: number; row: number }[]>
+  row_refs: number[]
+  measured_at: DefaultTimestamp
+  recorded_by: string | null
+}
+
 export interface BinarySystemTable {
   id: Generated<string>
   component1_id: string
@@ -316,6 +334,7 @@ export interface LabTables {
   vapor_pressure_set: VaporPressureSetTable
   pure_measurement: PureMeasurementTable
   check_measurement: CheckMeasurementTable
+  check_standard_result: CheckStandardResultTable
   binary_system: BinarySystemTable
   gc_method: GcMethodTable
   upload: UploadTable

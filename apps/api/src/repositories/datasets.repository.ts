@@ -39,6 +39,7 @@ export const toDataSet = (d: DataSet): DataSetRecord => ({
 export interface DataSetQuery {
   states?: DataSetState[]
   systemId?: string
+  origin?: 'gc' | 'other-method' | 'literature'
   createdBy?: string
   q?: string
   pressureMinPa?: number
@@ -72,6 +73,7 @@ export async function listDataSets(db: Db, o: DataSetQuery): Promise<{ items: Da
     .innerJoin('app_user as u', 'u.id', 'd.created_by')
   if (o.states?.length) q = q.where('d.state', 'in', o.states)
   if (o.systemId) q = q.where('d.system_id', '=', o.systemId)
+  if (o.origin) q = q.where('d.origin', '=', o.origin)
   if (o.createdBy) q = q.where('d.created_by', '=', o.createdBy)
   if (o.pressureMinPa !== undefined) q = q.where('d.nominal_pressure_pa', '>=', o.pressureMinPa)
   if (o.pressureMaxPa !== undefined) q = q.where('d.nominal_pressure_pa', '<=', o.pressureMaxPa)

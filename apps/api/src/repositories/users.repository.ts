@@ -94,3 +94,21 @@ export async function rolesOf(db: Db, userId: string): Promise<Role[]> {
   const rows = await db.selectFrom('user_role').select('role').where('user_id', '=', userId).execute()
   return rows.map((r) => r.role as Role)
 }
+
+/** Ids of the active lead chemists (who are told when a data set is submitted). */
+export async function activeLeadChemistIds(db: Db): Promise<string[]> {
+  const rows = await db
+    .selectFrom('user_role')
+    .innerJoin('app_user', 'app_user.id', 'user_role.user_id')
+    .select('app_user.id')
+    .where('user_role.role', '=', 'lead_chemist')
+    .where('app_user.active', '=', true)
+    .execute()
+  return rows.map((r) => r.id)
+}
+
+/** The stored password hash of an account (null: none set, or no such account). */
+export async function passwordHashOf(db: Db, userId: string): Promise<string | null> {
+  const u = await db.selectFrom('app_user').select('password_hash').where('id', '=', userId).executeTakeFirst()
+  return u?.password_hash ?? null
+}

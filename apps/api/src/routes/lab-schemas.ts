@@ -46,6 +46,15 @@ export const gcMethodQuery = z.object({
   ...widePage,
   order: z.enum(['asc', 'desc']).default('asc'),
 })
+/** GET /api/gc-methods/:id/check-standards: how many of the first results set the centre line and σ (2–100, default 20). */
+export const checkStandardQuery = z.object({
+  baseline: z.coerce
+    .number()
+    .int('baseline must be a whole number')
+    .min(2, 'baseline must be 2–100 results')
+    .max(100, 'baseline must be 2–100 results')
+    .default(20),
+})
 export const myThreadsQuery = z.object({ ...widePage })
 const formBool = z
   .enum(['true', 'false'])

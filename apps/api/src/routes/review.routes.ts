@@ -84,6 +84,8 @@ export const reviewRoutes = defineRoutes([
           P: pascal(q),
           count: q.count,
           criterion: q.criterion,
+          range: [q.from, q.to],
+          exclusion: q.exclusion,
         }),
       )
     },

@@ -1,11 +1,20 @@
 import { z } from 'zod'
 import { ctx } from '../context.js'
 import * as calibrations from '../services/calibrations.service.js'
+import { gcMethodCheckStandards } from '../services/check-standards.service.js'
+import { systemLiterature } from '../services/literature.service.js'
 import { pageWindow } from '../services/lab-access.js'
 import * as service from '../services/systems.service.js'
 import { defineRoutes } from './define.js'
 import { gcMethodSchema, systemSchema } from '@ebullio/schemas'
-import { calibrationForm, calibrationQuery, gcMethodQuery, systemQuery, uuid } from './lab-schemas.js'
+import {
+  calibrationForm,
+  calibrationQuery,
+  checkStandardQuery,
+  gcMethodQuery,
+  systemQuery,
+  uuid,
+} from './lab-schemas.js'
 import { csvUpload, receivedFile } from './upload-middleware.js'
 import { readLimits } from '../uploads/csv-table.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
@@ -49,6 +58,15 @@ export const systemRoutes = defineRoutes([
   },
   {
     method: 'get',
+    path: '/api/systems/:id/literature',
+    access: 'authenticated',
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      res.json(await systemLiterature(db, user, parseParams(systemParams, req).id))
+    },
+  },
+  {
+    method: 'get',
     path: '/api/gc-methods',
     access: LAB,
     handler: async (req, res) => {
@@ -67,6 +85,15 @@ export const systemRoutes = defineRoutes([
     handler: async (req, res) => {
       const { db, user } = ctx(req)
       res.status(201).json(await calibrations.createGcMethod(db, user.id, parseBody(gcMethodSchema, req)))
+    },
+  },
+  {
+    method: 'get',
+    path: '/api/gc-methods/:id/check-standards',
+    access: LAB,
+    handler: async (req, res) => {
+      const { id } = parseParams(gcMethodParams, req)
+      res.json(await gcMethodCheckStandards(ctx(req).db, id, parseQuery(checkStandardQuery, req)))
     },
   },
   {

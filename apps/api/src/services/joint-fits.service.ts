@@ -21,7 +21,7 @@ import { pointSetOf } from './point-set.js'
 import { staleResults } from './stale-results.js'
 import { thermo } from './lab-access.js'
 import { binarySystem, engineInputs, getSystem } from './systems.service.js'
-import { leadChemists } from './workflow.service.js'
+import { activeLeadChemistIds } from '../repositories/users.repository.js'
 
 /** Points of a data set as the engine reads them (a two-layer point is a three-phase point). */
 export const enginePoints = (points: PointRecord[]) =>
@@ -189,10 +189,12 @@ export async function jointFitPlots(db: Db, user: SessionUser, id: string, gridP
   const plots = []
   for (const m of fit.members) {
     const points = await listPoints(db, m.dataSetId)
+    // an isothermal member has no nominal pressure: its T–x–y is drawn at the mean of its measured pressures
+    const P = m.nominalPressurePa ?? points.reduce((s, p) => s + p.pressurePa, 0) / Math.max(points.length, 1)
     const diagram = thermo(
       'T–x–y curve',
       () =>
-        phaseDiagram(system, { P: m.nominalPressurePa }, { points: gridPoints }) as Extract<
+        phaseDiagram(system, { P }, { points: gridPoints }) as Extract<
           PhaseDiagram,
           { kind: 'isobaric' }
         >,
@@ -268,7 +270,7 @@ export async function submitJointFit(db: Db, config: Config, user: SessionUser, 
       after: { state: 'submitted' },
     })
     const system = await getSystem(tx, fit.systemId)
-    const others = (await leadChemists(tx)).filter((lead) => lead !== user.id)
+    const others = (await activeLeadChemistIds(tx)).filter((lead) => lead !== user.id)
     for (const lead of others) {
       await notifyUser(tx, lead, {
         subject: `Ebullio: a recommended parameter set for ${system.name} awaits your signature`,

@@ -8,7 +8,7 @@ import {
   predictionBand,
   PURE_COMPONENT_TOLERANCE,
   pureComponentCheck,
-  suggestNextCompositions,
+  planNextMeasurements,
   type ActivityModel,
   type FitBinaryResult,
   type PureComponentCheck,
@@ -104,7 +104,14 @@ async function loadFit(db: Db, user: SessionUser, id: string, fitId: string) {
   if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
   const inputs = await engineInputs(db, d.systemId)
   const points = await listPoints(db, id)
-  return { d, fit, inputs, result: storedFitResult(fit, points, inputs), current: pointSetOf(points, d.vaporModel).digest }
+  return {
+    d,
+    fit,
+    inputs,
+    points,
+    result: storedFitResult(fit, points, inputs),
+    current: pointSetOf(points, d.vaporModel).digest,
+  }
 }
 
 /** Which point set a band or suggestion list rests on (its fit's), and whether the points have changed since. */
@@ -121,11 +128,20 @@ export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, point
   return { fitId: fit.id, model: fit.model, ...band, note: BAND_NOTE }
 }
 
+/** Where the lab asks to look: a composition range and the least distance from the points already measured. */
+export interface SuggestionLimits {
+  range?: [number, number]
+  exclusion?: number
+  /** x1 of the data set's points (excluded points too: the lab did measure there) */
+  measured?: number[]
+}
+
 /**
  * Up to `count` liquid compositions to measure next at P (Pa), best first, by `criterion` (default
  * 'sigma-y', largest predicted σy; 'd-optimal', largest gain in parameter information); named in the
- * response. Deterministic for a stored fit: the stored parameters and covariance are used, so the list
- * changes only when a different fit or criterion is asked for.
+ * response with the range, the exclusion distance and thermo's notes where the plan falls short. Deterministic
+ * for a stored fit: the stored parameters and covariance are used, so the list changes only when a different
+ * fit, criterion, range or point set is asked for.
  */
 export function suggestionsOf(
   fit: FitRecord,
@@ -133,9 +149,10 @@ export function suggestionsOf(
   P: number,
   count: number,
   criterion: SuggestionCriterion = 'sigma-y',
+  limits: SuggestionLimits = {},
 ) {
-  const items = thermo('Next compositions', () => suggestNextCompositions(result, { P, count, criterion }))
-  return { fitId: fit.id, model: fit.model, P, criterion, items }
+  const plan = thermo('Next compositions', () => planNextMeasurements(result, { P, count, criterion, ...limits }))
+  return { fitId: fit.id, model: fit.model, P, criterion, ...plan }
 }
 
 /** Why isothermal data have no band: it is a T–x–y band at one pressure. */
@@ -159,12 +176,13 @@ export async function nextCompositions(
   user: SessionUser,
   id: string,
   fitId: string,
-  o: { P?: number; count: number; criterion?: SuggestionCriterion },
+  o: { P?: number; count: number; criterion?: SuggestionCriterion; range?: [number, number]; exclusion?: number },
 ) {
-  const { d, fit, result, current } = await loadFit(db, user, id, fitId)
+  const { d, fit, result, current, points } = await loadFit(db, user, id, fitId)
+  const limits = { range: o.range, exclusion: o.exclusion, measured: points.map((p) => p.x1) }
   return {
     dataSetId: id,
-    ...suggestionsOf(fit, result, bandPressure(d, o.P), o.count, o.criterion),
+    ...suggestionsOf(fit, result, bandPressure(d, o.P), o.count, o.criterion, limits),
     ...boundTo(fit, current),
   }
 }

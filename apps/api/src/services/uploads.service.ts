@@ -17,6 +17,7 @@ import {
 } from '../repositories/calibrations.repository.js'
 import { RETIRED_METHOD_MESSAGE } from './calibrations.service.js'
 import * as datasets from '../repositories/datasets.repository.js'
+import { insertCheckStandards } from '../repositories/check-standards.repository.js'
 import { insertPoints, listPoints, nextSeq } from '../repositories/points.repository.js'
 import { findCommittedRun, findUploadContent, insertUpload } from '../repositories/uploads.repository.js'
 import { readLimits } from '../uploads/csv-table.js'
@@ -29,6 +30,7 @@ import {
   type RunPhase,
   type RunSample,
 } from '../uploads/run-file.js'
+import type { RunCheck } from '../uploads/run-checks.js'
 import { PHASE_WORDS } from '../uploads/run-layers.js'
 import { FIRST_PAGE, pageItems, paging, shownProblems, type PageRequest, type Paging } from './preview-page.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
@@ -68,6 +70,20 @@ export interface PreviewSample {
   errorRows: number[]
   /** true when some line of the sample was not used or has an error */
   partial: boolean
+  /** a sample of one pure component: x1 = y1 = 1 or 0 exactly, not read through the calibration */
+  pureComponent: 1 | 2 | null
+}
+
+/** A check standard of the run read with the run's calibration: x1 measured − x1 known is its deviation. */
+export interface PreviewCheck {
+  label: string
+  rows: number[]
+  knownX1: number
+  measuredX1: number
+  x1Uncertainty: number
+  replicateRsd: number | null
+  deviation: number
+  injections: ParsedInjection[]
 }
 
 /** One analysed liquid layer: x1 with its standard uncertainty and which layer of the still it was. */
@@ -78,7 +94,7 @@ export interface LayerComposition {
   layer: 'upper' | 'lower'
 }
 
-export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
+export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems' | 'checks'> {
   file: FileSummary
   dataSetId: string
   calibrationId: string
@@ -87,6 +103,8 @@ export interface RunPreview extends Omit<RunFileParse, 'samples' | 'problems'> {
   /** the requested page of samples; `sampleCount` counts them all */
   samples: PreviewSample[]
   sampleCount: number
+  /** every check standard of the file (phase `check`), for the GC method's control chart */
+  checks: PreviewCheck[]
   /** the page shown of `rows` and `samples`, with the whole file's row and problem counts */
   paging: Paging
   /** at most PREVIEW_PROBLEMS_MAX problems (errors first); errorCount and warningCount count them all */
@@ -116,6 +134,14 @@ async function chooseCalibration(
     throw conflict('Several GC methods have an active calibration for this system; choose one (calibrationId).')
   return active[0]
 }
+
+/** The composition of a pure-component sample: exact, with no uncertainty from the calibration. */
+const pureComposition = (component: 1 | 2) => ({
+  x1: component === 1 ? 1 : 0,
+  standardUncertainty: 0,
+  replicateRsd: null,
+})
+type PhaseResult = Pick<CompositionResult, 'x1' | 'standardUncertainty' | 'replicateRsd'>
 
 /** x1 of one phase from its injections, with the problems it raises. */
 function phaseComposition(
@@ -179,7 +205,7 @@ function phaseComposition(
 function layerCompositions(
   cal: CalibrationRecord,
   s: RunSample,
-  overall: CompositionResult | null,
+  overall: PhaseResult | null,
   rsdLimit: number,
   problems: UploadProblem[],
 ): [LayerComposition, LayerComposition] | null {
@@ -204,6 +230,32 @@ function layerCompositions(
     }
   }
   return [I, II]
+}
+
+/** Each check standard's x1 through the run's calibration; a standard the calibration cannot read is an error. */
+function checkResults(cal: CalibrationRecord, checks: RunCheck[], problems: UploadProblem[]): PreviewCheck[] {
+  const out: PreviewCheck[] = []
+  for (const c of checks) {
+    try {
+      const r = compositionFromAreas(cal.result as unknown as Calibration, {
+        injections: c.injections.map((i) => ({ area1: i.area1, area2: i.area2 })),
+      })
+      out.push({
+        label: c.label,
+        rows: c.rows,
+        knownX1: c.knownX1,
+        measuredX1: r.x1,
+        x1Uncertainty: r.standardUncertainty,
+        replicateRsd: r.replicateRsd,
+        deviation: r.x1 - c.knownX1,
+        injections: c.injections,
+      })
+    } catch (err) {
+      if ((err as Error).name !== 'ThermoError') throw err
+      problems.push(uploadError(c.firstRow, 'area_1', null, `Check standard ${c.label}: ${(err as Error).message}`))
+    }
+  }
+  return out
 }
 
 /** Which of a sample's lines its compositions rest on, so a preview with errors can mark partial samples. */
@@ -280,8 +332,9 @@ async function analyseRun(
   const samples: PreviewSample[] = []
   for (const [i, s] of parsed.samples.entries()) {
     if (i % 500 === 499) await nextTurn()
-    const x = phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
-    const y = liquidOnly ? null : phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
+    const pure = s.pureComponent && pureComposition(s.pureComponent)
+    const x = pure || phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
+    const y = pure || (liquidOnly ? null : phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems))
     const liquidPhases = layerCompositions(cal, s, x, config.replicateRsdLimit, problems)
     samples.push({
       label: s.label,
@@ -301,11 +354,13 @@ async function analyseRun(
       lower: s.lower,
       liquidPhases,
       ...coverageOf(s, problems),
+      pureComponent: s.pureComponent,
     })
   }
+  const checks = checkResults(cal, parsed.checks, problems)
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
-  const { samples: _s, problems: _p, ...rest } = parsed
-  return { rest, cal, summary, samples, problems }
+  const { samples: _s, problems: _p, checks: _c, ...rest } = parsed
+  return { rest, cal, summary, samples, checks, problems }
 }
 
 /**
@@ -321,7 +376,14 @@ export async function previewRun(
   calibrationId?: string,
   page: PageRequest = FIRST_PAGE,
 ): Promise<RunPreview> {
-  const { rest, cal, summary, samples, problems } = await analyseRun(db, config, user, dataSetId, file, calibrationId)
+  const { rest, cal, summary, samples, checks, problems } = await analyseRun(
+    db,
+    config,
+    user,
+    dataSetId,
+    file,
+    calibrationId,
+  )
   const [calibrationUsed] = await summarizeCalibrations(db, [cal.id])
   return {
     ...rest,
@@ -332,6 +394,7 @@ export async function previewRun(
     calibrationUsed,
     samples: pageItems(samples, page),
     sampleCount: samples.length,
+    checks,
     paging: paging(page, rest.rows.length, samples.length, problems.length),
     problems: shownProblems(problems),
     ...countProblems(problems),
@@ -403,6 +466,23 @@ export async function commitRun(
         ],
       })),
     )
+    const checkIds = await insertCheckStandards(
+      tx,
+      preview.checks.map((c) => ({
+        gcMethodId: preview.cal.gcMethodId,
+        calibrationId: preview.calibrationId,
+        uploadId: upload.id,
+        dataSetId,
+        label: c.label,
+        knownX1: c.knownX1,
+        measuredX1: c.measuredX1,
+        x1Uncertainty: c.x1Uncertainty,
+        replicateRsd: c.replicateRsd,
+        injections: c.injections,
+        rowRefs: c.rows,
+        recordedBy: user.id,
+      })),
+    )
     const after = await datasets.updateDataSet(tx, dataSetId, {})
     await appendAudit(tx, {
       actorId: user.id,
@@ -413,6 +493,7 @@ export async function commitRun(
       after: {
         ...preview.file,
         points: ids.length,
+        checkStandards: checkIds.length,
         calibrationId: preview.calibrationId,
         acceptedWarnings: countProblems(preview.problems).warningCount,
       },
@@ -421,6 +502,7 @@ export async function commitRun(
       uploadId: upload.id,
       pointIds: ids,
       pointCount: ids.length,
+      checkStandardIds: checkIds,
       rowVersion: after!.rowVersion,
       sha256: preview.file.sha256,
     }

@@ -12,7 +12,9 @@ import { signedOutliers } from './outliers.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import { countOpenThreads } from '../repositories/comments.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
+import type { DataSetRecord } from '../repositories/datasets.repository.js'
 import { countPoints } from '../repositories/points.repository.js'
+import { activeLeadChemistIds, passwordHashOf } from '../repositories/users.repository.js'
 import { contentDigest, DIGEST_V2 } from './digest.js'
 import { contributorsOf } from './contributors.js'
 import { refuseWhileStale } from './stale-results.js'
@@ -20,17 +22,6 @@ import { currentPointSet } from './point-set.js'
 import { EDITABLE_STATES, requireState, staleWrite, visibleOrNotFound } from './lab-access.js'
 
 const link = (config: Config, id: string) => webLink(config.publicUrl, 'dataset', { id })
-
-export async function leadChemists(db: Db): Promise<string[]> {
-  const rows = await db
-    .selectFrom('user_role')
-    .innerJoin('app_user', 'app_user.id', 'user_role.user_id')
-    .select('app_user.id')
-    .where('user_role.role', '=', 'lead_chemist')
-    .where('app_user.active', '=', true)
-    .execute()
-  return rows.map((r) => r.id)
-}
 
 async function lockFresh(tx: Db, user: SessionUser, id: string, rowVersion: number) {
   const d = visibleOrNotFound(user, await repo.lockDataSet(tx, id))
@@ -57,7 +48,7 @@ export async function submit(db: Kysely<Database>, config: Config, user: Session
       before: { state: d.state },
       after: { state: 'submitted' },
     })
-    const others = (await leadChemists(tx)).filter((lead) => lead !== user.id)
+    const others = (await activeLeadChemistIds(tx)).filter((lead) => lead !== user.id)
     for (const lead of others) {
       await notifyUser(tx, lead, {
         subject: `Ebullio: "${d.title}" v${d.version} submitted for approval`,
@@ -78,8 +69,7 @@ export interface SignatureInput {
 
 /** Re-entered password check for a signature; a wrong password records nothing. */
 export async function checkSignaturePassword(db: Db, user: SessionUser, password: string): Promise<void> {
-  const u = await db.selectFrom('app_user').select('password_hash').where('id', '=', user.id).executeTakeFirst()
-  if (!(await verifyPassword(u?.password_hash ?? null, password))) {
+  if (!(await verifyPassword(await passwordHashOf(db, user.id), password))) {
     throw new AppError(403, 'signature_refused', 'The password is not correct; nothing was signed.')
   }
 }
@@ -92,37 +82,73 @@ const literatureNotOwn = () =>
     "This data set is literature data; a lead chemist must first mark it as the lab's own measurement (with a reason) before it can be approved.",
   )
 
+/** What must hold before anyone may sign the approval: submitted, own data, the signer's password, a recommended fit. */
+async function checkApprovable(tx: Db, user: SessionUser, d: DataSetRecord, password: string): Promise<string> {
+  requireState(d, ['submitted'], 'approval')
+  if (d.origin === 'literature' && !d.countsAsOwn) throw literatureNotOwn()
+  await checkSignaturePassword(tx, user, password)
+  if (!d.recommendedFitId) throw conflict('Mark one fit as the recommended fit before approving.')
+  return d.recommendedFitId
+}
+
+/**
+ * The four-eyes rule: who changed this version, and whether the signer is among them. ALLOW_SELF_APPROVAL (a
+ * one-person lab) lets the signer approve their own changes; the signature says so.
+ */
+async function fourEyes(tx: Db, config: Config, user: SessionUser, d: DataSetRecord) {
+  const changes = await contributorsOf(tx, d)
+  const mine = changes.find((c) => c.userId === user.id)
+  if (mine && !config.allowSelfApproval) {
+    throw new AppError(
+      403,
+      'four_eyes',
+      `You changed this version (${mine.changes.join(', ')}); another lead chemist must approve it.`,
+      { changes: mine.changes },
+    )
+  }
+  return { changes, selfApproval: mine !== undefined }
+}
+
+/** Open comment threads block the approval unless the signer says why; answers the override kept (null: none needed). */
+async function threadsOverride(tx: Db, id: string, overrideReason: string | null | undefined): Promise<string | null> {
+  const open = await countOpenThreads(tx, id)
+  const override = overrideReason?.trim() || null
+  if (open > 0 && !override) {
+    throw conflict(
+      `This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`,
+      { openThreads: open },
+    )
+  }
+  return open > 0 ? override : null
+}
+
+/** Approving a version supersedes every other approved version of its lineage, each with its audit line. */
+async function supersedeOthers(tx: Db, user: SessionUser, d: DataSetRecord): Promise<void> {
+  for (const v of await repo.listVersions(tx, d.lineageId)) {
+    if (v.id === d.id || v.state !== 'approved') continue
+    await repo.updateDataSet(tx, v.id, { state: 'superseded', supersededAt: new Date() })
+    await appendAudit(tx, {
+      actorId: user.id,
+      entity: 'data_set',
+      entityId: v.id,
+      action: 'supersede',
+      dataSetId: v.id,
+      before: { state: 'approved' },
+      after: { state: 'superseded', by: d.id },
+    })
+  }
+}
+
 /** Approve a submitted version with an e-signature over its content digest; an older approved version becomes superseded. */
 export async function approve(db: Kysely<Database>, config: Config, user: SessionUser, id: string, s: SignatureInput) {
   return db.transaction().execute(async (tx) => {
     const d = await lockFresh(tx, user, id, s.rowVersion)
-    requireState(d, ['submitted'], 'approval')
-    if (d.origin === 'literature' && !d.countsAsOwn) throw literatureNotOwn()
-    await checkSignaturePassword(tx, user, s.password)
-    if (!d.recommendedFitId) throw conflict('Mark one fit as the recommended fit before approving.')
+    const recommendedFitId = await checkApprovable(tx, user, d, s.password)
     const pointSetDigest = await refuseWhileStale(tx, d, 'approve')
-    const changes = await contributorsOf(tx, d)
-    const mine = changes.find((c) => c.userId === user.id)
-    const selfApproval = mine !== undefined
-    // ALLOW_SELF_APPROVAL (a one-person lab) lets the signer approve their own changes; the signature says so.
-    if (selfApproval && !config.allowSelfApproval) {
-      throw new AppError(
-        403,
-        'four_eyes',
-        `You changed this version (${mine.changes.join(', ')}); another lead chemist must approve it.`,
-        { changes: mine.changes },
-      )
-    }
-    const open = await countOpenThreads(tx, id)
-    const override = s.overrideReason?.trim() || null
-    if (open > 0 && !override) {
-      throw conflict(
-        `This data set has ${open} unresolved comment thread${open === 1 ? '' : 's'}; resolve them or give an override reason.`,
-        { openThreads: open },
-      )
-    }
+    const { changes, selfApproval } = await fourEyes(tx, config, user, d)
+    const overrideReason = await threadsOverride(tx, id, s.overrideReason)
     const digest = await contentDigest(tx, id, DIGEST_V2)
-    const outliers = await signedOutliers(tx, id, d.recommendedFitId)
+    const outliers = await signedOutliers(tx, id, recommendedFitId)
     const approvalId = await insertApproval(tx, {
       dataSetId: id,
       signerId: user.id,
@@ -133,24 +159,11 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
       pointSetDigest,
       changes,
       selfApproval,
-      overrideReason: open > 0 ? override : null,
+      overrideReason,
       outliers,
     })
     const after = await repo.updateDataSet(tx, id, { state: 'approved', approvedAt: new Date() })
-    for (const v of await repo.listVersions(tx, d.lineageId)) {
-      if (v.id !== id && v.state === 'approved') {
-        await repo.updateDataSet(tx, v.id, { state: 'superseded', supersededAt: new Date() })
-        await appendAudit(tx, {
-          actorId: user.id,
-          entity: 'data_set',
-          entityId: v.id,
-          action: 'supersede',
-          dataSetId: v.id,
-          before: { state: 'approved' },
-          after: { state: 'superseded', by: id },
-        })
-      }
-    }
+    await supersedeOthers(tx, user, d)
     await appendAudit(tx, {
       actorId: user.id,
       entity: 'data_set',
@@ -158,7 +171,7 @@ export async function approve(db: Kysely<Database>, config: Config, user: Sessio
       action: 'approve',
       dataSetId: id,
       before: { state: 'submitted' },
-      after: { state: 'approved', approvalId, digest, selfApproval, overrideReason: open > 0 ? override : null },
+      after: { state: 'approved', approvalId, digest, selfApproval, overrideReason },
     })
     await notifyUser(tx, d.createdBy, {
       subject: `Ebullio: "${d.title}" v${d.version} approved`,

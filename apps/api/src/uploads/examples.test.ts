@@ -27,7 +27,7 @@ describe('docs/examples', () => {
     expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
       [5, 'phase', '', 'Phase is missing; use liquid or vapour.'],
       [10, 'area_1', '130x365.0', 'Not a number.'],
-      [15, 'area_1', '-147492.9', 'Peak area must be greater than zero.'],
+      [15, 'area_1', '-147492.9', 'Peak area cannot be negative.'],
     ])
   })
 
@@ -54,5 +54,16 @@ describe('docs/examples', () => {
       'WB-12',
     ])
     for (const s of p.samples) expect([s.upper.length, s.lower.length]).toEqual(s.heterogeneous ? [2, 2] : [0, 0])
+  })
+
+  it('pure components and a check standard: exact ends and a check apart from the samples', () => {
+    const p = parseRunFile(read('run-acetone-methanol-pure-and-checks.csv'))
+    expect(p.problems).toEqual([])
+    expect(p.samples.map((s) => [s.label, s.pureComponent])).toEqual([
+      ['PURE-ACETONE', 1],
+      ['PURE-METHANOL', 2],
+      ['AM-21', null],
+    ])
+    expect(p.checks.map((c) => [c.label, c.knownX1, c.injections.length])).toEqual([['CHK-0.5', 0.5, 2]])
   })
 })

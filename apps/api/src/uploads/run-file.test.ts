@@ -50,7 +50,7 @@ describe('parseRunFile', () => {
   it('lists every problem with row, column, value and message', () => {
     const text = [
       HEADER,
-      'S1,liquid,1,0,10,70,C,101.3,kPa',
+      'S1,liquid,1,-1,10,70,C,101.3,kPa',
       'S1,,1,5,5,,,,',
       'S1,steam,2,5,5,,,,',
       'S2,liquid,1,5,5,900,C,101.3,kPa',
@@ -62,9 +62,9 @@ describe('parseRunFile', () => {
     ].join('\n')
     const p = parseRunFile(text)
     expect(p.problems.map((x) => [x.row, x.column, x.value, x.message])).toEqual([
-      [2, 'area_1', '0', 'Peak area must be greater than zero.'],
+      [2, 'area_1', '-1', 'Peak area cannot be negative.'],
       [3, 'phase', '', 'Phase is missing; use liquid or vapour.'],
-      [4, 'phase', 'steam', 'Phase must be liquid, vapour, upper or lower.'],
+      [4, 'phase', 'steam', 'Phase must be liquid, vapour, upper, lower or check.'],
       [5, 't_boil', '900', 'Boiling temperature 1173.15 K is outside the plausible range 150–650 K.'],
       [7, 'phase', 'S3', 'Sample S3 has liquid injections but no vapour injection.'],
       [8, 'p_unit', 'furlong', 'Unknown pressure unit; use Pa, kPa, MPa, bar, mbar, atm, mmHg, torr or psi.'],
@@ -185,13 +185,96 @@ describe('parseRunFile', () => {
           'Sample B04: the lower layer was analysed but not the upper one; give both layers or neither.',
         ],
         [15, 'injection', '1', 'Injection 1 of the upper layer of sample B05 appears twice.'],
-        [16, 'area_1', '-9000', 'Peak area must be greater than zero.'],
+        [16, 'area_1', '-9000', 'Peak area cannot be negative.'],
       ])
       // B01 (no layers read, no layer rows) and B05 (one good lower injection left) still become samples.
       expect(p.samples.map((s) => [s.label, s.heterogeneous, s.upper.length, s.lower.length])).toEqual([
         ['B01', false, 0, 0],
         ['B02', true, 0, 0],
         ['B05', true, 1, 1],
+      ])
+    })
+  })
+
+  describe('pure-component samples', () => {
+    it('takes a zero or empty area as the absent component and needs no vapour rows', () => {
+      const text = [
+        HEADER,
+        'P1,liquid,1,5000,0,56.1,C,101.3,kPa',
+        'P1,liquid,2,5100,,,,,',
+        'P1,vapour,1,5200,0,,,,',
+        'P2,liquid,1,0,4000,64.6,C,101.3,kPa',
+        'M1,liquid,1,3000,7000,60,C,101.3,kPa',
+        'M1,vapour,1,4000,6000,,,,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems).toEqual([])
+      expect(p.samples.map((s) => [s.label, s.pureComponent, s.liquid.length, s.vapour.length])).toEqual([
+        ['P1', 1, 2, 1],
+        ['P2', 2, 1, 0],
+        ['M1', null, 1, 1],
+      ])
+      expect(p.samples[0].liquid[1].area2).toBe(0)
+    })
+
+    it('refuses rows that disagree, two layers on a pure sample, and a row with no peak', () => {
+      const text = [
+        `${HEADER},layers`,
+        'P1,liquid,1,5000,0,56.1,C,101.3,kPa,',
+        'P1,liquid,2,0,5000,,,,,',
+        'P2,liquid,1,5000,0,56.1,C,101.3,kPa,2',
+        'P3,liquid,1,0,0,56.1,C,101.3,kPa,',
+        'P4,vapour,1,5000,0,56.1,C,101.3,kPa,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems.map((x) => [x.row, x.column, x.message])).toEqual([
+        [
+          2,
+          'area_2',
+          "Sample P1: line 2 shows only component 1 but line 3 shows only component 2; a pure-component sample has the absent component's area 0 or empty on every row.",
+        ],
+        [4, 'layers', 'Sample P2 is pure component 1; it cannot have two liquid layers.'],
+        [5, 'area_1', 'Both peak areas are zero or empty; a sample holds at least one component.'],
+        [6, 'phase', 'Sample P4 has vapour injections but no liquid injection.'],
+      ])
+      expect(p.samples).toEqual([])
+    })
+  })
+
+  describe('check standards', () => {
+    it('gathers rows of phase check apart from the samples, with their known x1', () => {
+      const text = [
+        `${HEADER},check_x1`,
+        'CS-1,check,1,3000,7000,,,,,0.30',
+        'CS-1,Check,2,3010,6990,,,,,',
+        'S1,liquid,1,3000,7000,70.5,C,101.3,kPa,',
+        'S1,vapour,1,4500,5500,,,,,',
+      ].join('\n')
+      const p = parseRunFile(text)
+      expect(p.problems).toEqual([])
+      expect(p.samples.map((s) => s.label)).toEqual(['S1'])
+      expect(p.checks).toEqual([
+        {
+          label: 'CS-1',
+          firstRow: 2,
+          rows: [2, 3],
+          knownX1: 0.3,
+          injections: [
+            { injection: 1, area1: 3000, area2: 7000, row: 2 },
+            { injection: 2, area1: 3010, area2: 6990, row: 3 },
+          ],
+        },
+      ])
+    })
+
+    it('refuses a second, different known x1 and a repeated injection', () => {
+      const text = [`${HEADER},check_x1`, 'CS-1,check,1,3000,7000,,,,,0.30', 'CS-1,check,1,3000,7000,,,,,0.31'].join(
+        '\n',
+      )
+      const p = parseRunFile(text)
+      expect(p.problems.map((x) => [x.row, x.column, x.message])).toEqual([
+        [3, 'check_x1', 'Check standard CS-1 has a different x1 on line 2.'],
+        [3, 'injection', 'Injection 1 of check standard CS-1 appears twice.'],
       ])
     })
   })

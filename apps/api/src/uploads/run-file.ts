@@ -3,10 +3,12 @@
  * sample's liquid or vapour phase, with the sample's boiling temperature and barometric
  * pressure on at least one of its rows. Columns: sample, phase, injection, area_1, area_2,
  * t_boil, t_unit, p_baro, p_unit; optional `layers` (2 when the liquid in the still had split into two
- * layers), with the layers' own injections as phases `upper` and `lower`.
+ * layers), with the layers' own injections as phases `upper` and `lower`. A sample of one pure component has the
+ * absent component's area 0 or empty (run-pure.ts); check standards are rows of phase `check` with their known
+ * x1 in the optional column `check_x1` (run-checks.ts).
  */
 import { toKelvin, toPascal, type PressureUnitName, type TemperatureUnitName } from '@ebullio/thermo'
-import { areaCell, injectionCell, type ParsedInjection } from './calibration-file.js'
+import { injectionCell, type ParsedInjection } from './calibration-file.js'
 import {
   DEFAULT_READ_LIMITS,
   mapColumns,
@@ -19,7 +21,9 @@ import {
   type ReadLimits,
 } from './csv-table.js'
 import { uploadError, type UploadProblem } from './problems.js'
+import { CHECK_PHASES, finishChecks, readCheckRow, type RunCheck } from './run-checks.js'
 import { checkLayers, PHASE_WORDS, readLayers } from './run-layers.js'
+import { bothAreasMissing, pureComponentOf, runAreaCell } from './run-pure.js'
 
 export const RUN_REQUIRED = [
   'sample',
@@ -32,7 +36,7 @@ export const RUN_REQUIRED = [
   'p_baro',
   'p_unit',
 ] as const
-export const RUN_OPTIONAL = ['layers'] as const
+export const RUN_OPTIONAL = ['layers', 'check_x1'] as const
 
 /** Plausible bounds for a boiling measurement (SI). Defaults: 150–650 K, 0.5 kPa–5 MPa. */
 export interface PlausibleBounds {
@@ -89,6 +93,8 @@ export interface RunSample {
   lower: ParsedInjection[]
   /** every line of the sample by the phase it names (`unknown`: phase missing or unreadable), used or not */
   phaseRows: PhaseRows
+  /** a sample of one pure component (the other's area 0 or empty on every row): x1 = y1 = 1 or 0 exactly */
+  pureComponent: 1 | 2 | null
 }
 
 /** The lines of one sample by phase, so a preview can say "1 of 2 injections used". */
@@ -107,6 +113,8 @@ export interface RunFileParse {
   header: string[]
   rows: { line: number; cells: string[] }[]
   samples: RunSample[]
+  /** check standards run with the samples (phase `check`) */
+  checks: RunCheck[]
   problems: UploadProblem[]
 }
 
@@ -170,12 +178,16 @@ function readConditions(cell: Cells, line: number, dc: boolean, s: Draft, proble
   }
 }
 
-function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Draft>, problems: UploadProblem[]): void {
+type Drafts = { samples: Map<string, Draft>; checks: Parameters<typeof readCheckRow>[3] }
+
+function readRow(cell: Cells, line: number, dc: boolean, drafts: Drafts, problems: UploadProblem[]): void {
   const label = cell('sample')
   if (label === '') {
     problems.push(uploadError(line, 'sample', '', 'Sample id is missing.'))
     return
   }
+  if (CHECK_PHASES.has(cell('phase').toLowerCase())) return readCheckRow(cell, line, dc, drafts.checks, problems)
+  const samples = drafts.samples
   let s = samples.get(label)
   if (!s) {
     s = {
@@ -196,10 +208,12 @@ function readRow(cell: Cells, line: number, dc: boolean, samples: Map<string, Dr
   const phase = PHASES[phaseRaw.toLowerCase()]
   s.phaseRows[phase ?? 'unknown'].push(line)
   if (phaseRaw === '') problems.push(uploadError(line, 'phase', '', 'Phase is missing; use liquid or vapour.'))
-  else if (!phase) problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid, vapour, upper or lower.'))
+  else if (!phase)
+    problems.push(uploadError(line, 'phase', phaseRaw, 'Phase must be liquid, vapour, upper, lower or check.'))
   const injection = injectionCell(cell, line, dc, problems)
-  const area1 = areaCell(cell, 'area_1', line, dc, problems)
-  const area2 = areaCell(cell, 'area_2', line, dc, problems)
+  const area1 = runAreaCell(cell, 'area_1', line, dc, problems)
+  const area2 = runAreaCell(cell, 'area_2', line, dc, problems)
+  if (area1 === 0 && area2 === 0) return bothAreasMissing(line, cell('area_1'), problems)
   if (!phase || injection === null || area1 === null || area2 === null) return
   const list = s[phase]
   if (list.some((i) => i.injection === injection)) {
@@ -229,7 +243,8 @@ function finishSample(
   o: RunReadOptions = {},
 ): RunSample | null {
   const first = s.rows[0]
-  if (o.liquidOnly && s.vapour.length > 0)
+  const pure = pureComponentOf(s, problems)
+  if (o.liquidOnly && s.vapour.length > 0 && !pure)
     problems.push(
       uploadError(
         s.vapour[0].row,
@@ -238,7 +253,8 @@ function finishSample(
         `Sample ${s.label} has vapour injections, but this data set has no vapour composition (T–x or P–x); leave the vapour rows out or choose a T–x–y or P–x–y data set.`,
       ),
     )
-  if (!o.liquidOnly && s.liquid.length > 0 && s.vapour.length === 0)
+  // A pure liquid boils to the same vapour: its vapour rows may be left out.
+  if (!o.liquidOnly && s.liquid.length > 0 && s.vapour.length === 0 && pure === null)
     problems.push(
       uploadError(first, 'phase', s.label, `Sample ${s.label} has liquid injections but no vapour injection.`),
     )
@@ -249,8 +265,8 @@ function finishSample(
   if (!s.t) problems.push(uploadError(first, 't_boil', null, `Sample ${s.label} has no boiling temperature.`))
   if (!s.p) problems.push(uploadError(first, 'p_baro', null, `Sample ${s.label} has no pressure.`))
   const layersOk = checkLayers(s, problems)
-  const vapourOk = o.liquidOnly ? s.vapour.length === 0 : s.vapour.length > 0
-  if (!s.t || !s.p || s.liquid.length === 0 || !vapourOk || !layersOk) return null
+  const vapourOk = o.liquidOnly ? s.vapour.length === 0 || !!pure : s.vapour.length > 0 || !!pure
+  if (!s.t || !s.p || s.liquid.length === 0 || !vapourOk || !layersOk || pure === false) return null
   const temperatureK = toKelvin(s.t.value, s.t.unit)
   const pressurePa = toPascal(s.p.value, s.p.unit)
   const [tMin, tMax] = bounds.temperatureK
@@ -292,6 +308,7 @@ function finishSample(
     upper: s.upper,
     lower: s.lower,
     phaseRows: s.phaseRows,
+    pureComponent: pure,
   }
 }
 
@@ -333,8 +350,8 @@ export function parseRunTable(
     header: table.header,
     rows: table.rows,
   }
-  if (problems.length > 0) return { ...base, samples: [], problems }
-  const drafts = new Map<string, Draft>()
+  if (problems.length > 0) return { ...base, samples: [], checks: [], problems }
+  const drafts: Drafts = { samples: new Map(), checks: new Map() }
   for (const row of table.rows) {
     const cell: Cells = (name) => {
       const col = map.columns[name]
@@ -344,10 +361,11 @@ export function parseRunTable(
   }
   if (table.rows.length === 0) problems.push(uploadError(null, null, null, 'The file has a header but no data rows.'))
   const samples: RunSample[] = []
-  for (const d of drafts.values()) {
+  for (const d of drafts.samples.values()) {
     const s = finishSample(d, bounds, problems, o)
     if (s) samples.push(s)
   }
+  const checks = finishChecks(drafts.checks, new Set(drafts.samples.keys()), problems)
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0))
-  return { ...base, samples, problems }
+  return { ...base, samples, checks, problems }
 }

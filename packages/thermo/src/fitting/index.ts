@@ -3,8 +3,15 @@ export type { FitBinaryOptions, FitBinaryResult, FittedParameter, PointResidual 
 export type { BinaryPoint } from './fit-input.js'
 export { DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
 export type { FittableModel, UniquacStructure } from './parameters.js'
-export { predictionBand, suggestNextCompositions } from './prediction.js'
-export type { PredictionBand, SuggestedComposition, SuggestionCriterion } from './prediction.js'
+export { predictionBand } from './prediction.js'
+export { planNextMeasurements, suggestNextCompositions } from './next-measurements.js'
+export type { PredictionBand } from './prediction.js'
+export type {
+  NextMeasurementPlan,
+  NextMeasurementOptions,
+  SuggestedComposition,
+  SuggestionCriterion,
+} from './next-measurements.js'
 export { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
 export { OUTLIER_RULE, outlierPointIds, rootMeanSquare } from './outliers.js'
 export type { OutlierResidual } from './outliers.js'

@@ -1,0 +1,102 @@
+import { computed, type Ref } from 'vue'
+import type { MeasuredData, ParametersExport } from '../api/catalogue'
+import { extrapolationItems, pressureVerdict, type PressureVerdict } from '../components/design/design-limits'
+import {
+  diagramsAt,
+  errorText,
+  measuredForPlot,
+  otherFitCurves,
+  systemFromParameters,
+  type DiagramsAt,
+} from '../components/design/design-model'
+import { proseP } from '../components/design/pressure-text'
+import { usePreferencesStore } from '../stores/preferences'
+
+interface Basis {
+  params: Ref<ParametersExport | null>
+  fitId: Ref<string | null>
+  pressurePa: Ref<number>
+  measured: Ref<MeasuredData | null>
+  version: Ref<{ nominalPressurePa: number } | null>
+  names: Ref<[string, string]>
+}
+
+/**
+ * What the engine makes of an approved version at the chosen fit and pressure: the model, its diagrams, the pure
+ * boiling points against their ranges, and everything extrapolated there.
+ */
+export function useSystemDesign({ params, fitId, pressurePa, measured, version, names }: Basis) {
+  const prefs = usePreferencesStore()
+  const built = computed(() => {
+    if (!params.value) return null
+    try {
+      return { ...systemFromParameters(params.value, fitId.value), error: null }
+    } catch (e) {
+      return { system: null, fit: null, error: errorText(e) }
+    }
+  })
+  /** Pure boiling points at the chosen pressure against the vapour-pressure ranges; null when they cannot be computed. */
+  const verdict = computed<PressureVerdict | null>(() => {
+    const s = built.value?.system
+    if (!s) return null
+    try {
+      return pressureVerdict(s, pressurePa.value, names.value)
+    } catch {
+      return null
+    }
+  })
+  const lighterName = computed(() => (verdict.value ? names.value[verdict.value.lighter] : names.value[0]))
+  const diagrams = computed<{ d: DiagramsAt | null; error: string | null }>(() => {
+    const s = built.value?.system
+    if (!s) return { d: null, error: null }
+    try {
+      return { d: diagramsAt(s, pressurePa.value), error: null }
+    } catch (e) {
+      return { d: null, error: errorText(e) }
+    }
+  })
+  /** The activity model is extrapolated in temperature when the pressure is more than 25 % from the measured one. */
+  const farFrom = computed(() =>
+    version.value && Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
+      ? proseP(prefs, version.value.nominalPressurePa)
+      : null,
+  )
+  /** Everything extrapolated at this pressure, for the screen's one banner. */
+  const extrapolated = computed(() => {
+    const s = built.value?.system
+    if (!s || !verdict.value) return []
+    const d = diagrams.value.d
+    return extrapolationItems(
+      s,
+      verdict.value,
+      d ? { Tmin: Math.min(...d.T), Tmax: Math.max(...d.T) } : null,
+      farFrom.value,
+      prefs,
+    )
+  })
+  const designBlocked = computed(() => verdict.value?.designBlocked ?? false)
+  /** The fit's name exactly as the lab screens give it (sent by the server, one shared rule). */
+  const modelLabel = computed(() => built.value?.fit?.label ?? '')
+  /** Measured points are drawn only at (within 0.5 % of) the pressure they were measured at. */
+  const atMeasuredPressure = computed(
+    () => !!params.value && Math.abs(pressurePa.value / params.value.dataSet.nominalPressurePa - 1) < 0.005,
+  )
+  const plotPoints = computed(() =>
+    measured.value && atMeasuredPressure.value ? measuredForPlot(measured.value, fitId.value) : [],
+  )
+  /** The version's other fits, switched off in the legend until wanted. */
+  const others = computed(() =>
+    params.value && diagrams.value.d ? otherFitCurves(params.value, fitId.value, pressurePa.value) : [],
+  )
+  return {
+    built,
+    lighterName,
+    diagrams,
+    extrapolated,
+    designBlocked,
+    modelLabel,
+    atMeasuredPressure,
+    plotPoints,
+    others,
+  }
+}
