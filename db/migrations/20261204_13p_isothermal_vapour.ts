@@ -41,5 +41,7 @@ export async function down(db: Kysely<any>): Promise<void> {
     drop constraint data_set_vapor_model, drop column vapor_model,
     drop constraint data_set_isobaric_pressure, drop column nominal_temperature_k,
     drop constraint data_set_layout_check`.execute(db)
-  await sql`alter table data_set add constraint data_set_layout_check check (layout in ('txy', 'tx', 'pxy'))`.execute(db)
+  await sql`alter table data_set add constraint data_set_layout_check check (layout in ('txy', 'tx', 'pxy'))`.execute(
+    db,
+  )
 }

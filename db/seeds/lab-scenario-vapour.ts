@@ -29,7 +29,10 @@ const exists = async (ctx: SeedContext, title: string) =>
 async function isothermalSeries(ctx: SeedContext): Promise<void> {
   if (await exists(ctx, ISOTHERMAL_TITLE)) return
   const system = DEMO_SYSTEMS.find((s) => s.key === 'acetone-methanol')!
-  const model = { vaporPressure: [demoVaporPressure('acetone'), demoVaporPressure('methanol')] as const, activity: system.activity }
+  const model = {
+    vaporPressure: [demoVaporPressure('acetone'), demoVaporPressure('methanol')] as const,
+    activity: system.activity,
+  }
   const T = 328.15
   const rand = seededRandom(131)
   const points = [0.04, 0.1, 0.18, 0.27, 0.36, 0.45, 0.55, 0.64, 0.73, 0.82, 0.9, 0.96].map((x1, i) => {
@@ -51,7 +54,8 @@ async function isothermalSeries(ctx: SeedContext): Promise<void> {
     layout: 'pxy',
     nominalPressurePa: null,
     nominalTemperatureK: T,
-    apparatusNotes: 'Static equilibrium cell no. 1 in the thermostat bath; pressure by quartz gauge, vapour sampled to GC.',
+    apparatusNotes:
+      'Static equilibrium cell no. 1 in the thermostat bath; pressure by quartz gauge, vapour sampled to GC.',
     projectRef: 'KES-2026-03',
     origin: 'other-method',
     originMethod: 'Static cell: liquid made up by weighing, vapour composition by GC of a small withdrawn sample',

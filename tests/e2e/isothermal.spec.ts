@@ -45,7 +45,10 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
 
   const grid = page.getByTestId('points-grid')
   await expect(grid).toBeVisible()
-  await page.getByRole('button', { name: /more rows|Add rows/i }).first().click()
+  await page
+    .getByRole('button', { name: /more rows|Add rows/i })
+    .first()
+    .click()
   for (const [i, r] of e.typed.entries()) {
     for (const k of ['t', 'p', 'x1', 'y1', 'up'] as const) await page.getByTestId(`cell-${i + 1}-${k}`).fill(r[k])
   }

@@ -113,9 +113,7 @@ describe('isothermal data sets', () => {
     expect(fit.options.objective).toBe('bubble-pressure')
     const detail = (await lab.analyst.get(`/api/data-sets/${d.id}`).expect(200)).body
     const byLabel = new Map(detail.points.map((p: { id: string; sampleLabel: string }) => [p.id, p.sampleLabel]))
-    const res = new Map(
-      (fit.residuals as { pointId: string; dP: number }[]).map((x) => [byLabel.get(x.pointId), x.dP]),
-    )
+    const res = new Map((fit.residuals as { pointId: string; dP: number }[]).map((x) => [byLabel.get(x.pointId), x.dP]))
     const engine = engineFit(raised)
     // the same number as the engine's for the same inputs …
     raised.forEach((p, i) => expect(res.get(p.sampleLabel)).toBeCloseTo(engine.residuals[i].dP!, 6))
@@ -213,7 +211,10 @@ describe('the vapour model of a data set', () => {
   it('keeps hostile text out of the vapour model and the new fields', async () => {
     const base = { systemId: lab.systemId, title: 'H', nominalPressurePa: 101325 }
     for (const [vaporModel, message] of [
-      [{ kind: 'virial', correlation: '<img src=x onerror=alert(1)>' }, 'The only virial correlation offered is Tsonopoulos'],
+      [
+        { kind: 'virial', correlation: '<img src=x onerror=alert(1)>' },
+        'The only virial correlation offered is Tsonopoulos',
+      ],
       [{ kind: '<script>' }, "The vapour model must be 'ideal' or 'virial'"],
       [{ kind: 'ideal', note: '=HYPERLINK("x")' }, 'Unrecognized key: "note"'],
     ] as const) {
@@ -248,7 +249,12 @@ describe('the vapour model of a data set', () => {
     const pts = modelPoints()
     const d = await isothermalSet('Ideal then virial')
     const rv = await addPoints(d, pts)
-    const ideal = (await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['wilson'] }).expect(201)).body
+    const ideal = (
+      await lab.analyst
+        .post(`/api/data-sets/${d.id}/fits`)
+        .send({ models: ['wilson'] })
+        .expect(201)
+    ).body
     const sw = await lab.analyst
       .patch(`/api/data-sets/${d.id}`)
       .send({ rowVersion: ideal.rowVersion ?? rv, vaporModel: { kind: 'virial', poynting: true } })
@@ -256,8 +262,12 @@ describe('the vapour model of a data set', () => {
     const detail = (await lab.analyst.get(`/api/data-sets/${d.id}`).expect(200)).body
     expect(detail.vaporModel).toEqual({ kind: 'virial', correlation: 'tsonopoulos', poynting: true })
     expect(detail.fits[0].stale).toBe(true)
-    const virial = (await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['wilson'] }).expect(201))
-      .body.fits[0]
+    const virial = (
+      await lab.analyst
+        .post(`/api/data-sets/${d.id}/fits`)
+        .send({ models: ['wilson'] })
+        .expect(201)
+    ).body.fits[0]
     expect(virial.options.vapor.kind).toBe('virial')
     expect(virial.options.vapor.components[0]).toMatchObject({ Tc: 508.1, Pc: 4692400, Vc: 212.766 })
     const vapor = virial.options.vapor as VaporModel

@@ -27,9 +27,12 @@ export const hasVapour = (layout: string) => !(LIQUID_ONLY_LAYOUTS as readonly s
 /** The layout's name in words. */
 export function layoutLabel(layout: string): string {
   return (
-    { txy: 'T–x–y at constant pressure', tx: 'T–x at constant pressure', pxy: 'P–x–y at constant temperature', px: 'P–x at constant temperature' }[
-      layout
-    ] ?? layout
+    {
+      txy: 'T–x–y at constant pressure',
+      tx: 'T–x at constant pressure',
+      pxy: 'P–x–y at constant temperature',
+      px: 'P–x at constant temperature',
+    }[layout] ?? layout
   )
 }
 
@@ -41,7 +44,9 @@ export const vaporModelChoiceSchema = z.discriminatedUnion(
     z
       .object({
         kind: z.literal('virial'),
-        correlation: z.literal('tsonopoulos', { error: 'The only virial correlation offered is Tsonopoulos' }).default('tsonopoulos'),
+        correlation: z
+          .literal('tsonopoulos', { error: 'The only virial correlation offered is Tsonopoulos' })
+          .default('tsonopoulos'),
         poynting: z.boolean({ error: 'Say whether the Poynting factor is applied (true or false)' }).default(false),
       })
       .strict(),

@@ -136,7 +136,13 @@ export interface RecommendedParameterSetDto<D = string> {
   approvedAt: D | null
   signedBy: string | null
   digest: string | null
-  dataSets: { dataSetId: string; title: string; version: number; nominalPressurePa: number | null; pointCount: number }[]
+  dataSets: {
+    dataSetId: string
+    title: string
+    version: number
+    nominalPressurePa: number | null
+    pointCount: number
+  }[]
 }
 
 /**

@@ -140,10 +140,7 @@ export const gcMethodSchema = z.object({
 })
 
 const nominalPressure = z.number().positive('Pressure must be positive (Pa)').max(1e8, 'Pressure above 100 MPa')
-const nominalTemperature = z
-  .number()
-  .positive('Temperature must be positive (K)')
-  .max(2000, 'Temperature above 2000 K')
+const nominalTemperature = z.number().positive('Temperature must be positive (K)').max(2000, 'Temperature above 2000 K')
 /**
  * POST /api/data-sets. Isobaric layouts (txy, tx) need nominalPressurePa (Pa); isothermal ones (pxy, px) need
  * nominalTemperatureK (K). vaporModel: ideal (default) or virial (Tsonopoulos, optional Poynting factor).

@@ -4,12 +4,7 @@
  * 0.5 kPa, as typed into the grid; and the Wilson fit on pressures and the data-quality score of those points.
  * Run with tsx; prints JSON. (A separate process, so the browser tests need not load the engine.)
  */
-import {
-  bubblePressure,
-  dataQualityScore,
-  fitBinary,
-  type BinaryPoint,
-} from '../../../packages/thermo/src/index.js'
+import { bubblePressure, dataQualityScore, fitBinary, type BinaryPoint } from '../../../packages/thermo/src/index.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from '../../../db/seeds/demo-systems.js'
 
 const system = DEMO_SYSTEMS.find((s) => s.key === 'acetone-methanol')!

@@ -194,7 +194,9 @@ async function checkSystemChange(db: Db, d: repo.DataSetRecord, systemId: string
 async function checkLayoutChange(db: Db, d: repo.DataSetRecord, layout: string | undefined) {
   if (layout === undefined || layout === d.layout) return
   if ((await points.listPoints(db, d.id)).length > 0)
-    throw conflict('This data set already has points; its kind of data can no longer change. Start a new data set instead.')
+    throw conflict(
+      'This data set already has points; its kind of data can no longer change. Start a new data set instead.',
+    )
 }
 
 /** The origin rules that span fields, checked on the row as it would be after a change. */

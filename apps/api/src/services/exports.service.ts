@@ -78,7 +78,9 @@ export const VLE_RELATION_VIRIAL =
 /** The relation a data set's fits use, worded for its kind of data and vapour model. */
 function vleRelationOf(d: repo.DataSetRecord): string {
   const base = d.vaporModel.kind === 'virial' ? VLE_RELATION_VIRIAL : VLE_RELATION
-  return dataKindOf(d.layout) === 'isothermal' ? base.replace('solved for T at the measured P', 'solved for P at the measured T') : base
+  return dataKindOf(d.layout) === 'isothermal'
+    ? base.replace('solved for T at the measured P', 'solved for P at the measured T')
+    : base
 }
 
 /** Each model's equations in the engine's parameter names (Smith, Van Ness & Abbott, 7th ed., §12.1–12.2). */

@@ -193,11 +193,7 @@ export async function jointFitPlots(db: Db, user: SessionUser, id: string, gridP
     const P = m.nominalPressurePa ?? points.reduce((s, p) => s + p.pressurePa, 0) / Math.max(points.length, 1)
     const diagram = thermo(
       'T–x–y curve',
-      () =>
-        phaseDiagram(system, { P }, { points: gridPoints }) as Extract<
-          PhaseDiagram,
-          { kind: 'isobaric' }
-        >,
+      () => phaseDiagram(system, { P }, { points: gridPoints }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
     )
     plots.push({
       dataSetId: m.dataSetId,

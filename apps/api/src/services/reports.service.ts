@@ -116,13 +116,25 @@ function recommendedCurve(
   const fit = fits.find((f) => f.id === d.recommendedFitId)
   if (!fit)
     return { curve: null, curveNote: 'No fit is marked as recommended: the plots show the measured points only.' }
-  const condition = d.nominalTemperatureK !== null ? { T: d.nominalTemperatureK } : d.nominalPressurePa !== null ? { P: d.nominalPressurePa } : null
+  const condition =
+    d.nominalTemperatureK !== null
+      ? { T: d.nominalTemperatureK }
+      : d.nominalPressurePa !== null
+        ? { P: d.nominalPressurePa }
+        : null
   if (!condition)
-    return { curve: null, curveNote: 'This isothermal data set has no nominal temperature recorded: the plots show the measured points only.' }
+    return {
+      curve: null,
+      curveNote:
+        'This isothermal data set has no nominal temperature recorded: the plots show the measured points only.',
+    }
   try {
     // drawn under the vapour the fit was made with
     const vapor = (fit.options.vapor as typeof inputs.vapor | undefined) ?? inputs.vapor
-    const diagram = phaseDiagram(binarySystem({ ...inputs, vapor }, fit.activity as unknown as ActivityModel), condition)
+    const diagram = phaseDiagram(
+      binarySystem({ ...inputs, vapor }, fit.activity as unknown as ActivityModel),
+      condition,
+    )
     return {
       curve: {
         fitId: fit.id,

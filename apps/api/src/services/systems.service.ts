@@ -103,7 +103,11 @@ export async function engineInputs(db: Db, systemId: string, vapor?: VaporModelC
 
 /** thermo's BinarySystem from stored inputs and an activity model. */
 export function binarySystem(inputs: EngineInputs, activity: BinarySystem['activity']): BinarySystem {
-  return { vaporPressure: inputs.vaporPressure, activity, ...(inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}) }
+  return {
+    vaporPressure: inputs.vaporPressure,
+    activity,
+    ...(inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}),
+  }
 }
 
 /** A page of systems, answered by the repository as it is (no rule applies). */

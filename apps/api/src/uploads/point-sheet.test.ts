@@ -35,10 +35,7 @@ describe('parsePointSheet', () => {
   })
 
   it('reads σP in the row’s pressure unit (1 mmHg = 133.322387415 Pa, as packages/thermo/src/units.ts defines it) and a P–x sheet without y1', () => {
-    const r = parsePointSheet(
-      'sample,t,t_unit,p,p_unit,x1,u_p\nA,50,C,600,mmHg,0.3,0.75\nB,50,C,61.2,kPa,0.5,\n',
-      'px',
-    )
+    const r = parsePointSheet('sample,t,t_unit,p,p_unit,x1,u_p\nA,50,C,600,mmHg,0.3,0.75\nB,50,C,61.2,kPa,0.5,\n', 'px')
     expect(r.problems).toEqual([])
     expect(r.points[0].pressureUncertaintyPa).toBeCloseTo(0.75 * 133.322387415, 9)
     expect(r.points[1].pressureUncertaintyPa).toBeNull()

@@ -283,14 +283,24 @@ describe('parseRunFile', () => {
 describe('parseRunFile for data without vapour compositions (T–x, P–x)', () => {
   const header = 'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit'
   it('reads liquid-only samples and names a vapour row as out of place', () => {
-    const ok = parseRunFile(`${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,liquid,2,101,300,,,,\n`, undefined, undefined, {
-      liquidOnly: true,
-    })
+    const ok = parseRunFile(
+      `${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,liquid,2,101,300,,,,\n`,
+      undefined,
+      undefined,
+      {
+        liquidOnly: true,
+      },
+    )
     expect(ok.problems).toEqual([])
     expect(ok.samples.map((s) => [s.label, s.liquid.length, s.vapour.length])).toEqual([['L-1', 2, 0]])
-    const bad = parseRunFile(`${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,vapour,1,150,250,,,,\n`, undefined, undefined, {
-      liquidOnly: true,
-    })
+    const bad = parseRunFile(
+      `${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,vapour,1,150,250,,,,\n`,
+      undefined,
+      undefined,
+      {
+        liquidOnly: true,
+      },
+    )
     expect(bad.samples).toEqual([])
     expect(bad.problems.map((p) => [p.row, p.column, p.message])).toEqual([
       [

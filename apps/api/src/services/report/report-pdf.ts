@@ -10,7 +10,15 @@ import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { ReportModel } from './report-model.js'
 import { residualsSvg, txySvg, xySvg } from './report-plots.js'
 import { methodSection, pointsSection, fitsSection, consistencySection, commentsSection } from './report-sections.js'
-import { conditionText, dateTime, groupedDigest, originText, reportNumber, stateText, watermarkFor } from './report-text.js'
+import {
+  conditionText,
+  dateTime,
+  groupedDigest,
+  originText,
+  reportNumber,
+  stateText,
+  watermarkFor,
+} from './report-text.js'
 import { C, heading, keyValues, signatureSection } from './report-blocks.js'
 
 const require = createRequire(import.meta.url)

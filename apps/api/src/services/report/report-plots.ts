@@ -73,24 +73,19 @@ export function txySvg(m: ReportModel, width = 310, height = 240): string {
     ),
   ]
   if (included(m).some((p) => p.y1 !== null))
-    series.push(
-      scatter(
-        'vapour y₁',
-        VAPOUR,
-        'diamond',
-        pairs(included(m).map((p) => [p.y1, v(p)])),
-      ),
-    )
+    series.push(scatter('vapour y₁', VAPOUR, 'diamond', pairs(included(m).map((p) => [p.y1, v(p)]))))
   if (excluded(m).length)
     series.push(
       scatter(
         'excluded',
         MUTED,
         'emptyCircle',
-        pairs(excluded(m).flatMap((p): [number | null, number][] => [
-          [p.x1, v(p)],
-          [p.y1, v(p)],
-        ])),
+        pairs(
+          excluded(m).flatMap((p): [number | null, number][] => [
+            [p.x1, v(p)],
+            [p.y1, v(p)],
+          ]),
+        ),
       ),
     )
   if (m.curve) {

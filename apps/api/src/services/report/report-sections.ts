@@ -214,37 +214,39 @@ export function fitsSection(m: ReportModel): Content {
 }
 
 export function consistencySection(m: ReportModel): Content {
-  const rows = m.consistency.filter((c) => c.test !== 'quality-score').map((c): TableCell[] => {
-    const r = c.result as { D?: number; J?: number; meanAbsDeltaY?: number; model?: string }
-    const numbers =
-      c.test === 'herington-area'
-        ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
-        : c.test === 'redlich-kister-area'
-          ? `D = ${num(r.D, 2)} %`
-          : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
-    const criterion =
-      c.test === 'herington-area'
-        ? 'passes when D − J < 10 %'
-        : c.test === 'redlich-kister-area'
-          ? 'passes when D < 10 %'
-          : 'passes when mean |Δy₁| < 0.01'
-    const name =
-      c.test === 'herington-area'
-        ? 'Area test (Herington)'
-        : c.test === 'redlich-kister-area'
-          ? 'Area test (Redlich–Kister, isothermal)'
-          : 'Point test'
-    const ink = c.stale ? C.muted : C.ink
-    return [
-      {
-        stack: [{ text: name, color: ink }, ...(c.stale ? staleMark(c) : [])],
-      },
-      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
-      { text: numbers, color: ink },
-      { text: criterion, color: ink },
-      { text: dateTime(c.runAt, m.report.timeZone), color: ink },
-    ]
-  })
+  const rows = m.consistency
+    .filter((c) => c.test !== 'quality-score')
+    .map((c): TableCell[] => {
+      const r = c.result as { D?: number; J?: number; meanAbsDeltaY?: number; model?: string }
+      const numbers =
+        c.test === 'herington-area'
+          ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
+          : c.test === 'redlich-kister-area'
+            ? `D = ${num(r.D, 2)} %`
+            : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
+      const criterion =
+        c.test === 'herington-area'
+          ? 'passes when D − J < 10 %'
+          : c.test === 'redlich-kister-area'
+            ? 'passes when D < 10 %'
+            : 'passes when mean |Δy₁| < 0.01'
+      const name =
+        c.test === 'herington-area'
+          ? 'Area test (Herington)'
+          : c.test === 'redlich-kister-area'
+            ? 'Area test (Redlich–Kister, isothermal)'
+            : 'Point test'
+      const ink = c.stale ? C.muted : C.ink
+      return [
+        {
+          stack: [{ text: name, color: ink }, ...(c.stale ? staleMark(c) : [])],
+        },
+        { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
+        { text: numbers, color: ink },
+        { text: criterion, color: ink },
+        { text: dateTime(c.runAt, m.report.timeZone), color: ink },
+      ]
+    })
   return {
     stack: [
       heading('4', 'Thermodynamic consistency'),

@@ -35,7 +35,14 @@ export function fitCurves(d: DataSetDetail): {
       const diagram =
         drawn.kind === 'isobaric'
           ? drawn
-          : ({ kind: 'isobaric', P: NaN, x1: drawn.x1, y1: drawn.y1, T: [], warnings: drawn.warnings } as FitCurve['diagram'])
+          : ({
+              kind: 'isobaric',
+              P: NaN,
+              x1: drawn.x1,
+              y1: drawn.y1,
+              T: [],
+              warnings: drawn.warnings,
+            } as FitCurve['diagram'])
       let azeotropes: Azeotrope[] = []
       try {
         azeotropes = findAzeotropes(system, condition)
