@@ -11,14 +11,7 @@ import { listPoints, type PointRecord } from '../repositories/points.repository.
 import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel } from '@ebullio/schemas'
 import { ISOTHERMAL_BAND } from './uncertainty.service.js'
 import { canonicalJson8785, computedOn, currentPointSet, enginePoint, pointSetOf, withStale } from './point-set.js'
-import {
-  dataQualityScore,
-  fitBinary,
-  heringtonAreaTest,
-  pointTest,
-  redlichKisterAreaTest,
-  type FitBinaryResult,
-} from '@ebullio/thermo'
+import { areaTest, dataQualityScore, fitBinary, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { EDITABLE_STATES, FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
 import { bandOf, pureComponentChecks, suggestionsOf } from './uncertainty.service.js'
@@ -326,10 +319,9 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   const base = { vaporPressure: inputs.vaporPressure, ...vapor }
   const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
   const notRun: TestNotRun[] = []
-  const area = attempt('area', notRun, () =>
-    isothermal ? redlichKisterAreaTest(pts, base) : heringtonAreaTest(pts, base),
-  )
-  const point = attempt('point', notRun, () => pointTest(pts, { ...base, model, ...volumes }))
+  // the engine picks Herington's test for isobaric data and Redlich–Kister's for isothermal data, and says which ran
+  const area = attempt('area', notRun, () => areaTest(pts, { ...base, kind: isothermal ? 'isothermal' : 'isobaric' }))
+  const point = attempt('point', notRun, () => pointTest(pts, { ...base, model, ...volumes, isothermal }))
   // The quality score names points by their index in `all`: keep the ids with it.
   const quality = attempt('quality-score', notRun, () =>
     dataQualityScore(all.map(enginePoint), { ...base, model, ...volumes, isothermal }),
@@ -340,7 +332,7 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
     points: quality.points.map((q) => ({ ...q, pointId: all[q.index].id, sample: all[q.index].sampleLabel })),
   }
   const runs = [
-    ...(area ? [[isothermal ? 'redlich-kister-area' : 'herington-area', area, area.passed] as const] : []),
+    ...(area ? [[area.test === 'redlich-kister' ? 'redlich-kister-area' : 'herington-area', area, area.passed] as const] : []),
     ...(point ? [['point', { ...point, model }, point.passed] as const] : []),
     ...(qualityResult ? [['quality-score', qualityResult, qualityResult.quality >= QUALITY_PASS] as const] : []),
   ]

@@ -90,6 +90,21 @@ export interface DataSetDetail {
   /** the two components' preferred vapour-pressure models, when they could be read */
   vaporPressure?: [Record<string, unknown>, Record<string, unknown>] | null
   authorName?: string
+  /** how large a virial vapour's correction would be here, for a data set with an ideal vapour (null: not known) */
+  vapourCorrection?: VapourCorrection | null
+}
+
+/** The server's comparison of an ideal with a virial vapour at the data set's own points. */
+export interface VapourCorrection {
+  exceeds: boolean
+  kind: 'isobaric' | 'isothermal'
+  maxAbsDy: number
+  /** K */
+  maxAbsDT: number | null
+  /** Pa */
+  maxAbsDP: number | null
+  basis: string
+  message: string | null
 }
 
 /** The server answers with the data set's own fields at the top level and its parts beside them. */
@@ -196,8 +211,19 @@ export interface PureCheckResult {
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
-  const { system, points, fits, consistency, approvals, comments, uploads, versions, calibrations, ...dataSet } =
-    await api.get<DetailAnswer>(`${base}/${id}`)
+  const {
+    system,
+    points,
+    fits,
+    consistency,
+    approvals,
+    comments,
+    uploads,
+    versions,
+    calibrations,
+    vapourCorrection,
+    ...dataSet
+  } = await api.get<DetailAnswer>(`${base}/${id}`)
   return {
     dataSet: dataSet as DataSet,
     system,
@@ -209,6 +235,7 @@ async function getDetail(id: string): Promise<DataSetDetail> {
     uploads: uploads ?? [],
     versions: versions ?? [],
     calibrations: calibrations ?? [],
+    vapourCorrection: vapourCorrection ?? null,
   }
 }
 
