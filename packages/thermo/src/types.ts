@@ -1,4 +1,5 @@
 /** Shared shapes of the engine. SI inside: T in K, P in Pa, energies in J/mol. */
+import type { VaporModel } from './virial/virial-types.js'
 
 /** Molar gas constant, J/(mol·K) (CODATA 2018 exact value). */
 export const R = 8.314462618
@@ -34,10 +35,15 @@ export type ActivityModel =
   | { kind: 'nrtl'; b12: number; b21: number; alpha: number; b12T?: number; b21T?: number }
   | { kind: 'uniquac'; a12: number; a21: number; r1: number; r2: number; q1: number; q2: number }
 
-/** A binary mixture under modified Raoult's law (ideal vapour, γ from the activity model). */
+/**
+ * A binary mixture: γ from the activity model; the vapour ideal (modified Raoult's law) unless `vapor` is a virial
+ * vapour, when every solver uses γ–φ (yi·Φi·P = xi·γi·Pi_sat) and its results carry `phi`.
+ */
 export interface BinarySystem {
   vaporPressure: [VaporPressureModel, VaporPressureModel]
   activity: ActivityModel
+  /** The vapour model; absent or `{ kind: 'ideal' }` is an ideal gas. */
+  vapor?: VaporModel
   /** Optional names for messages, e.g. ['ethanol', 'water']. */
   names?: [string, string]
 }
@@ -68,6 +74,8 @@ export interface BubbleTemperatureResult extends ThreePhaseFields {
   gamma?: [number, number]
   iterations: number
   warnings: string[]
+  /** Vapour fugacity coefficients [φ̂1, φ̂2]; present exactly when the system's vapour is virial. */
+  phi?: [number, number]
 }
 
 /** Result of a bubble-pressure calculation: P in Pa; three-phase as in {@link BubbleTemperatureResult}. */
@@ -76,6 +84,8 @@ export interface BubblePressureResult extends ThreePhaseFields {
   y1: number
   gamma?: [number, number]
   warnings: string[]
+  /** Vapour fugacity coefficients [φ̂1, φ̂2]; present exactly when the system's vapour is virial. */
+  phi?: [number, number]
 }
 
 /**
@@ -89,6 +99,8 @@ export interface DewTemperatureResult extends ThreePhaseFields {
   gamma?: [number, number]
   iterations: number
   warnings: string[]
+  /** Vapour fugacity coefficients [φ̂1, φ̂2]; present exactly when the system's vapour is virial. */
+  phi?: [number, number]
 }
 
 /** Result of a dew-pressure solve: P in Pa, x1 liquid mole fraction; three-phase as in {@link DewTemperatureResult}. */
@@ -99,6 +111,8 @@ export interface DewPressureResult extends ThreePhaseFields {
   gamma?: [number, number]
   iterations: number
   warnings: string[]
+  /** Vapour fugacity coefficients [φ̂1, φ̂2]; present exactly when the system's vapour is virial. */
+  phi?: [number, number]
 }
 
 /** Relative volatility α12 = (y1/x1)/(y2/x2) = γ1·P1sat/(γ2·P2sat) at the bubble point; defined at the ends too. */

@@ -1,6 +1,7 @@
 import { ThermoError } from '../errors.js'
 import { buildFitData, type BinaryPoint } from '../fitting/fit-input.js'
 import type { VaporPressureModel } from '../types.js'
+import type { VaporModel } from '../virial/virial-types.js'
 
 /** One point of an area test's integrand. */
 export interface AreaIntegrandPoint {
@@ -9,20 +10,40 @@ export interface AreaIntegrandPoint {
 }
 
 /**
- * ln(γ1/γ2) = ln(y1·x2/(y2·x1)) + ln(P2sat/P1sat) at each point's own T (the pressure cancels under modified
- * Raoult's law), sorted by x1, and its trapezoidal integrals ∫ln(γ1/γ2)dx1 and ∫|ln(γ1/γ2)|dx1 over the measured
- * compositions (no extrapolation to the pure ends). Pure-end points and excluded points are left out.
+ * Refuse a test that needs vapour compositions on data where a point it would use has none (y1 null), naming it.
+ * @throws ThermoError 'needs-vapour-composition'.
+ */
+export function requireVapourCompositions(points: BinaryPoint[], test: string): void {
+  if (!Array.isArray(points)) return
+  const i = points.findIndex((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 === null)
+  if (i < 0) return
+  throw new ThermoError(
+    'needs-vapour-composition',
+    `The ${test} needs the vapour composition y1 of every mixture point; point ${i + 1} has none (T–x or P–x data). Exclude such points or fit the data by Barker's method instead.`,
+    { point: i + 1 },
+  )
+}
+
+/**
+ * ln(γ1/γ2) = ln(y1·x2/(y2·x1)) + ln(P2sat/P1sat) + ln(Φ1/Φ2) at each point's own T (the pressure cancels; Φ = 1
+ * for an ideal vapour, else from the virial vapour at the measured T, P and y), sorted by x1, and its trapezoidal
+ * integrals ∫ln(γ1/γ2)dx1 and ∫|ln(γ1/γ2)|dx1 over the measured compositions (no extrapolation to the pure ends).
+ * Pure-end points and excluded points are left out.
+ * @throws ThermoError 'needs-vapour-composition' when a mixture point has no y.
  */
 export function areaIntegrals(
   allPoints: BinaryPoint[],
   vaporPressure: [VaporPressureModel, VaporPressureModel],
+  vapor?: VaporModel,
 ): { integrand: AreaIntegrandPoint[]; area: number; absArea: number; D: number } {
   const points = withoutTwoLayerPoints(allPoints)
+  requireVapourCompositions(points, 'area test')
   const usable = Array.isArray(points)
-    ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1).length
+    ? points.filter((p) => p && !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 !== null && p.y1 > 0 && p.y1 < 1).length
     : 0
   if (usable < 3) throw insufficient(usable)
-  const { data } = buildFitData(points, vaporPressure, 'margules', 0)
+  const { data } = buildFitData(points, vaporPressure, 'margules', 0, { vapor })
+  const lnPhi = data.lnPhiExp
   const rows = Array.from({ length: data.n }, (_, i) => i).filter((i) => data.y1[i] > 0 && data.y1[i] < 1)
   if (rows.length < 3) throw insufficient(rows.length)
   const { vp1, vp2 } = data
@@ -32,7 +53,10 @@ export function areaIntegrals(
       const x = data.x1[i]
       const y = data.y1[i]
       const lnRatio =
-        Math.log((y * (1 - x)) / ((1 - y) * x)) + (vp2.a - vp2.b / (T + vp2.c)) - (vp1.a - vp1.b / (T + vp1.c))
+        Math.log((y * (1 - x)) / ((1 - y) * x)) +
+        (vp2.a - vp2.b / (T + vp2.c)) -
+        (vp1.a - vp1.b / (T + vp1.c)) +
+        (lnPhi ? lnPhi[0][i] - lnPhi[1][i] : 0)
       return { x1: x, lnGammaRatio: lnRatio }
     })
     .sort((a, b) => a.x1 - b.x1)

@@ -2,6 +2,7 @@ import type { BinaryPoint } from '../fitting/fit-input.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { saturationTemperature } from '../vapor-pressure/index.js'
 import type { VaporPressureModel } from '../types.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints } from './area-integrand.js'
 
 /** Result of {@link heringtonAreaTest}. */
@@ -30,13 +31,15 @@ export interface HeringtonResult {
  * Tmax and Tmin span the boiling range of the system: every point that is not excluded, and the pure-component
  * boiling points at the mean pressure from the vapour-pressure models (measured points rarely reach both ends,
  * and a range taken from the points alone understates J).
- * @param points T in K, P in Pa, mole fractions; at least 3 mixture points.
+ * Under a virial vapour (`vapor`) γ includes Φ from the measured T, P and y.
+ * @param points T in K, P in Pa, mole fractions; at least 3 mixture points, each with y.
+ * @throws ThermoError 'needs-vapour-composition' when a mixture point has no y.
  */
 export function heringtonAreaTest(
   points: BinaryPoint[],
-  options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
+  options: { vaporPressure: [VaporPressureModel, VaporPressureModel]; vapor?: VaporModel },
 ): HeringtonResult {
-  const { integrand, D } = areaIntegrals(points, options.vaporPressure)
+  const { integrand, D } = areaIntegrals(points, options.vaporPressure, options.vapor)
   const kept = withoutTwoLayerPoints(points).filter((p) => !p.excluded)
   const meanP = kept.reduce((sum, p) => sum + p.P, 0) / kept.length
   const pureBoiling = options.vaporPressure.map((m) => saturationTemperature(m, meanP))

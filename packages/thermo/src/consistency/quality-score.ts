@@ -9,6 +9,9 @@ import { activityCoefficients } from '../activity/activity.js'
 import { ThermoError } from '../errors.js'
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import { compileVaporPressure } from '../vapor-pressure/compiled.js'
+import { compiledVapor } from '../fitting/fit-input.js'
+import { lnPhiFactors } from '../virial/kernel.js'
+import { requireVapourCompositions } from './area-integrand.js'
 import type { ActivityModel } from '../types.js'
 import { heringtonAreaTest } from './herington.js'
 import { pointTest, type PointTestOptions } from './point-test.js'
@@ -55,10 +58,14 @@ function part(value: number, limit: number): number {
 function dataLimit(
   points: BinaryPoint[],
   psat: (i: 0 | 1, T: number) => number,
+  lnPhi: (p: { T: number; P: number; y1: number }) => [number, number],
   end: 0 | 1,
 ): { value: number; T: number } | null {
   const mix = points
-    .filter((p) => !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 > 0 && p.y1 < 1)
+    .filter(
+      (p): p is BinaryPoint & { y1: number } =>
+        !p.excluded && p.x1 > 0 && p.x1 < 1 && p.y1 !== null && p.y1 > 0 && p.y1 < 1,
+    )
     .sort((a, b) => (end === 0 ? a.x1 - b.x1 : b.x1 - a.x1))
     .slice(0, 3)
   if (mix.length < 2) return null
@@ -66,8 +73,9 @@ function dataLimit(
   const gs: number[] = []
   for (const p of mix) {
     const x2 = 1 - p.x1
-    const l1 = Math.log((p.y1 * p.P) / (p.x1 * psat(0, p.T)))
-    const l2 = Math.log(((1 - p.y1) * p.P) / (x2 * psat(1, p.T)))
+    const [f1, f2] = lnPhi(p)
+    const l1 = Math.log((p.y1 * p.P) / (p.x1 * psat(0, p.T))) + f1
+    const l2 = Math.log(((1 - p.y1) * p.P) / (x2 * psat(1, p.T))) + f2
     xs.push(p.x1)
     gs.push((p.x1 * l1 + x2 * l2) / (p.x1 * x2))
   }
@@ -129,7 +137,7 @@ function scoreOnce(
   }
 
   // 2. Point test: mean |Δy| < 0.01.
-  const pt = pointTest(points, o)
+  const pt = pointTest(points, { ...o, isothermal })
   tests.push({
     test: 'point',
     applicable: true,
@@ -144,9 +152,16 @@ function scoreOnce(
   // 3. Infinite dilution: the data's limiting gE/(x1x2RT) at each end against the T–x model's ln γ∞.
   const vps = o.vaporPressure.map(compileVaporPressure)
   const psat = (i: 0 | 1, T: number) => Math.exp(vps[i].a - vps[i].b / (T + vps[i].c))
+  const gv = compiledVapor(o.vapor)
+  const phiOut = new Float64Array(4)
+  const lnPhi = (p: { T: number; P: number; y1: number }): [number, number] => {
+    if (!gv) return [0, 0]
+    lnPhiFactors(gv, p.T, p.P, p.y1, psat(0, p.T), psat(1, p.T), phiOut)
+    return [phiOut[0], phiOut[1]]
+  }
   const devs: number[] = []
   for (const end of [0, 1] as const) {
-    const d = dataLimit(points, psat, end)
+    const d = dataLimit(points, psat, lnPhi, end)
     if (!d) continue
     const g = activityCoefficients(pt.activity as ActivityModel, { x1: end, T: d.T })
     const model = Math.log(end === 0 ? g[0] : g[1])
@@ -193,10 +208,13 @@ function scoreOnce(
 /**
  * The data-quality figure of a data set (0 … 1) and its four parts, and for each included point how much the figure
  * would rise without it (leave-one-out), so a reviewer sees which points hurt the score most.
+ * Under a virial vapour (`vapor` in the options) every test uses it.
  * @param points T in K, P in Pa, mole fractions; at least 3 mixture points with measured y.
+ * @throws ThermoError 'needs-vapour-composition' when a mixture point has no y.
  */
 export function dataQualityScore(points: BinaryPoint[], options: DataQualityOptions): DataQualityScore {
   if (!Array.isArray(points)) throw new ThermoError('invalid-input', 'Points must be an array.')
+  requireVapourCompositions(points, 'data-quality score')
   const { tests, warnings, dy } = scoreOnce(points, options)
   const quality = combined(tests)
   const out: DataQualityScore['points'] = []

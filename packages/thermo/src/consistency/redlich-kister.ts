@@ -1,5 +1,6 @@
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { VaporPressureModel } from '../types.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints, type AreaIntegrandPoint } from './area-integrand.js'
 
 /** Result of {@link redlichKisterAreaTest}. */
@@ -21,13 +22,15 @@ export interface RedlichKisterResult {
  * Gibbs–Duhem equation requires ∫₀¹ ln(γ1/γ2) dx1 = 0 (the pressure term is negligible for low-pressure VLE).
  * Passes when D < 10, Herington's criterion with J = 0 for isothermal data (E. F. G. Herington, J. Inst. Petrol. 37
  * (1951) 457; from memory). Same integrand and integration rule as the isobaric test.
- * @param points T in K, P in Pa, mole fractions; at least 3 mixture points.
+ * Under a virial vapour (`vapor`) γ includes Φ from the measured T, P and y.
+ * @param points T in K, P in Pa, mole fractions; at least 3 mixture points, each with y.
+ * @throws ThermoError 'needs-vapour-composition' when a mixture point has no y.
  */
 export function redlichKisterAreaTest(
   points: BinaryPoint[],
-  options: { vaporPressure: [VaporPressureModel, VaporPressureModel] },
+  options: { vaporPressure: [VaporPressureModel, VaporPressureModel]; vapor?: VaporModel },
 ): RedlichKisterResult {
-  const { integrand, D } = areaIntegrals(points, options.vaporPressure)
+  const { integrand, D } = areaIntegrals(points, options.vaporPressure, options.vapor)
   const kept = withoutTwoLayerPoints(points).filter((p) => !p.excluded)
   const temps = kept.map((p) => p.T)
   const T = temps.reduce((s, t) => s + t, 0) / temps.length

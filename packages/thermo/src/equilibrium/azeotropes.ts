@@ -1,6 +1,9 @@
 import type { Azeotrope, BinarySystem } from '../types.js'
 import { checkCondition, type DiagramCondition } from './diagram.js'
 import { res, solveBubbleP, solveBubbleT, startTemperature } from './kernel.js'
+import { solveBubblePGammaPhi, solveBubbleTGammaPhi } from '../virial/kernel.js'
+
+const phiBuf = new Float64Array(5)
 import { gapContaining } from './lle.js'
 import { brent } from './roots.js'
 import { checkDomain, compileSystem, systemWarnings, type CompiledSystem } from './system.js'
@@ -8,6 +11,21 @@ import { threePhaseIsobaric, threePhaseIsothermal } from './three-phase.js'
 
 /** ln α12 at the bubble point of x1 (fixed P or T), without stability checks; NaN when no bubble point. */
 function lnAlphaAt(c: CompiledSystem, condition: DiagramCondition, x1: number): number {
+  if (c.gv) {
+    // γ–φ: ln α = ln(γ1·P1sat/Φ1) − ln(γ2·P2sat/Φ2), defined at the ends too.
+    const ok =
+      condition.P !== undefined
+        ? solveBubbleTGammaPhi(c, c.gv, Math.log(condition.P), x1, phiBuf)
+        : solveBubblePGammaPhi(c, c.gv, condition.T, x1, phiBuf)
+    if (!ok) return NaN
+    const Tv = res[0]
+    return (
+      Math.log(res[2] / res[3]) +
+      (c.vp1.a - c.vp1.b / (Tv + c.vp1.c)) -
+      (c.vp2.a - c.vp2.b / (Tv + c.vp2.c)) -
+      Math.log(phiBuf[2] / phiBuf[3])
+    )
+  }
   let T: number
   if (condition.P !== undefined) {
     const lnP = Math.log(condition.P)
@@ -40,11 +58,13 @@ export function findAzeotropes(system: BinarySystem, condition: DiagramCondition
   const c = compileSystem(system)
   checkCondition(condition)
   if (condition.T !== undefined) checkDomain(c, condition.T)
-  const tp = !c.stab.canSplit
-    ? null
-    : condition.P !== undefined
-      ? threePhaseIsobaric(c, condition.P)
-      : threePhaseIsothermal(c, condition.T)
+  // Three-phase points are computed for an ideal vapour only.
+  const tp =
+    !c.stab.canSplit || c.gv
+      ? null
+      : condition.P !== undefined
+        ? threePhaseIsobaric(c, condition.P)
+        : threePhaseIsothermal(c, condition.T)
   const found: Azeotrope[] = []
   let prevX = NaN
   let prevH = NaN

@@ -1,6 +1,8 @@
-import { checkMoleFraction, checkPressure, checkTemperature } from '../errors.js'
+/**
+ * The ideal-vapour (modified Raoult's law) bubble and dew solvers on a compiled system, with the two-liquid
+ * handling. The public entry points, which also dispatch to γ–φ for a virial vapour, are in vle.ts.
+ */
 import type {
-  BinarySystem,
   BubblePressureResult,
   BubbleTemperatureResult,
   DewPressureResult,
@@ -9,14 +11,7 @@ import type {
 import { res, solveBubbleP, solveBubbleT, solveDewP, solveDewT, startTemperature } from './kernel.js'
 import { gapContaining } from './lle.js'
 import { brent } from './roots.js'
-import {
-  checkDomain,
-  compileSystem,
-  liquidSplitError,
-  noConvergence,
-  systemWarnings,
-  type CompiledSystem,
-} from './system.js'
+import { checkDomain, liquidSplitError, noConvergence, systemWarnings, type CompiledSystem } from './system.js'
 import { threePhaseIsobaric, threePhaseIsothermal, type ThreePhasePoint } from './three-phase.js'
 
 /** The fields a three-phase result carries. */
@@ -32,24 +27,7 @@ function onTieLine(tp: ThreePhasePoint | null, x1: number): tp is ThreePhasePoin
   return tp !== null && x1 >= tp.xI - 1e-12 && x1 <= tp.xII + 1e-12
 }
 
-/**
- * Bubble temperature of a binary liquid under modified Raoult's law (ideal vapour).
- * @param at P in Pa, x1 liquid mole fraction (0–1, ends included).
- * When the liquid splits into two layers at its boiling point (x1 on the three-phase tie line at P), the answer is
- * the heterogeneous bubble point: the three-phase temperature and vapour, with `liquidPhases` and `gammaPhases`.
- * @returns T in K (converged to better than 1e-6 K), vapour y1, γ = [γ1, γ2] (one liquid), Newton iterations, range warnings.
- * @throws ThermoError 'liquid-split' when a split liquid's three-phase point cannot be resolved,
- *   'no-convergence' when no bubble point is found.
- */
-export function bubbleTemperature(system: BinarySystem, at: { P: number; x1: number }): BubbleTemperatureResult {
-  const c = compileSystem(system)
-  const { P, x1 } = at
-  checkPressure(P)
-  checkMoleFraction(x1, 'x1')
-  return bubbleTemperatureCompiled(c, P, x1)
-}
-
-/** {@link bubbleTemperature} on an already checked system (used by the diagram and fitting code). */
+/** The ideal-vapour bubble temperature on an already checked system (used by `bubbleTemperature`, the diagram and fitting code). */
 export function bubbleTemperatureCompiled(c: CompiledSystem, P: number, x1: number): BubbleTemperatureResult {
   const lnP = Math.log(P)
   if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))) {
@@ -85,22 +63,7 @@ export function bubbleTemperatureCompiled(c: CompiledSystem, P: number, x1: numb
   return { converged: true, T, y1, gamma: [g1, g2], iterations, warnings: systemWarnings(c, T, x1) }
 }
 
-/**
- * Bubble pressure of a binary liquid under modified Raoult's law: P = Σ xi·γi·Pi_sat(T), no iteration.
- * @param at T in K, x1 liquid mole fraction (0–1).
- * @returns P in Pa, vapour y1, γ = [γ1, γ2], range warnings; for a liquid inside the two-liquid gap at T, the
- *   three-phase pressure and vapour with `liquidPhases` and `gammaPhases` instead of `gamma`.
- * @throws ThermoError 'out-of-domain' when a vapour-pressure equation has no value at T.
- */
-export function bubblePressure(system: BinarySystem, at: { T: number; x1: number }): BubblePressureResult {
-  const c = compileSystem(system)
-  const { T, x1 } = at
-  checkTemperature(T)
-  checkMoleFraction(x1, 'x1')
-  return bubblePressureCompiled(c, T, x1)
-}
-
-/** {@link bubblePressure} on an already checked system. */
+/** The ideal-vapour bubble pressure (modified Raoult's law, P = Σ xi·γi·Pi_sat) on an already checked system. */
 export function bubblePressureCompiled(c: CompiledSystem, T: number, x1: number): BubblePressureResult {
   checkDomain(c, T)
   if (x1 > 0 && x1 < 1 && c.stab.maySplit(T) && gapContaining(c.stab.gaps(T), x1)) {
@@ -109,19 +72,6 @@ export function bubblePressureCompiled(c: CompiledSystem, T: number, x1: number)
   }
   solveBubbleP(c.act, c.vp1, c.vp2, T, x1)
   return { P: res[5], y1: res[1], gamma: [res[2], res[3]], warnings: systemWarnings(c, T, x1) }
-}
-
-/**
- * Dew temperature of a binary vapour under modified Raoult's law.
- * @param at P in Pa, y1 vapour mole fraction (0–1, ends included).
- * @returns T in K, the liquid x1 in equilibrium, γ at that liquid, iterations, range warnings.
- */
-export function dewTemperature(system: BinarySystem, at: { P: number; y1: number }): DewTemperatureResult {
-  const c = compileSystem(system)
-  const { P, y1 } = at
-  checkPressure(P)
-  checkMoleFraction(y1, 'y1')
-  return dewTemperatureCompiled(c, P, y1)
 }
 
 /** True when a single liquid x1 is stable at T (K): not strictly inside a two-liquid gap. */
@@ -135,7 +85,7 @@ function dewBranch(tp: ThreePhasePoint | null, y1: number): [number, number] {
   return y1 < tp.y1 ? [0, tp.xI] : [tp.xII, 1]
 }
 
-/** {@link dewTemperature} on an already checked system. */
+/** The ideal-vapour dew temperature on an already checked system. */
 export function dewTemperatureCompiled(c: CompiledSystem, P: number, y1: number): DewTemperatureResult {
   const lnP = Math.log(P)
   const tp = y1 > 0 && y1 < 1 ? threePhaseIsobaric(c, P) : null
@@ -187,18 +137,8 @@ function bubbleY(c: CompiledSystem, lnP: number, x1: number): number {
   return res[1]
 }
 
-/**
- * Dew pressure of a binary vapour under modified Raoult's law: the lowest pressure at which a stable liquid
- * appears. A vapour at exactly the three-phase composition gives the three-phase pressure with `liquidPhases`.
- * @param at T in K, y1 vapour mole fraction (0–1).
- * @returns P in Pa, the liquid x1 in equilibrium, γ at that liquid, iterations, range warnings.
- * @throws ThermoError 'out-of-domain' when a vapour-pressure equation has no value at T.
- */
-export function dewPressure(system: BinarySystem, at: { T: number; y1: number }): DewPressureResult {
-  const c = compileSystem(system)
-  const { T, y1 } = at
-  checkTemperature(T)
-  checkMoleFraction(y1, 'y1')
+/** The ideal-vapour dew pressure on an already checked system: the lowest pressure at which a stable liquid appears. */
+export function dewPressureCompiled(c: CompiledSystem, T: number, y1: number): DewPressureResult {
   checkDomain(c, T)
   const tp = y1 > 0 && y1 < 1 ? threePhaseIsothermal(c, T) : null
   if (tp && Math.abs(y1 - tp.y1) <= 1e-9) {

@@ -2,8 +2,12 @@ import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from 
 import type { BinarySystem, PhaseDiagram, RelativeVolatilityResult } from '../types.js'
 import { bubbleTemperatureCompiled } from './bubble-dew.js'
 import { res, solveBubbleP, solveBubbleT, startTemperature } from './kernel.js'
+import { solveBubblePGammaPhi, solveBubbleTGammaPhi } from '../virial/kernel.js'
 import { gapContaining } from './lle.js'
-import { checkDomain, compileSystem, systemWarnings, type CompiledSystem } from './system.js'
+import { checkDomain, compileSystem, noConvergence, systemWarnings, type CompiledSystem } from './system.js'
+import { bubbleTemperature } from './vle.js'
+
+const phiBuf = new Float64Array(5)
 import { binodalBelow, threePhaseIsobaric, threePhaseIsothermal, type ThreePhasePoint } from './three-phase.js'
 
 /** Fixed pressure (Pa) for a T–x–y curve, or fixed temperature (K) for a P–x–y curve. */
@@ -28,6 +32,19 @@ export function relativeVolatility(system: BinarySystem, at: { P: number; x1: nu
   const c = compileSystem(system)
   checkPressure(at.P)
   checkMoleFraction(at.x1, 'x1')
+  if (c.gv) {
+    // γ–φ: α = (y1/x1)/(y2/x2) = γ1·P1sat·Φ2/(γ2·P2sat·Φ1), defined at the ends too.
+    const b = bubbleTemperature(system, at)
+    const T = b.T
+    if (!solveBubbleTGammaPhi(c, c.gv, Math.log(at.P), at.x1, phiBuf))
+      throw noConvergence('bubble-temperature', `x1 = ${at.x1} and ${at.P} Pa`)
+    const lnAlpha =
+      Math.log(b.gamma![0] / b.gamma![1]) +
+      (c.vp1.a - c.vp1.b / (T + c.vp1.c)) -
+      (c.vp2.a - c.vp2.b / (T + c.vp2.c)) -
+      Math.log(phiBuf[2] / phiBuf[3])
+    return { alpha: Math.exp(lnAlpha), T, y1: b.y1, warnings: b.warnings }
+  }
   const b = bubbleTemperatureCompiled(c, at.P, at.x1)
   const T = b.T
   // Two liquid layers: α of the overall liquid against the three-phase vapour.
@@ -81,7 +98,18 @@ export function phaseDiagram(
   let T = NaN
   for (let i = 0; i < n; i++) {
     const x1 = i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))
-    if (condition.P !== undefined) {
+    if (c.gv) {
+      const ok =
+        condition.P !== undefined
+          ? solveBubbleTGammaPhi(c, c.gv, lnP, x1, phiBuf)
+          : solveBubblePGammaPhi(c, c.gv, condition.T, x1, phiBuf)
+      if (!ok) {
+        throw new ThermoError(
+          'no-convergence',
+          `The γ–φ diagram could not be computed at x1 = ${x1.toFixed(4)}; check the model parameters.`,
+        )
+      }
+    } else if (condition.P !== undefined) {
       const start = Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1)
       if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, start)) {
         throw new ThermoError(
@@ -129,7 +157,8 @@ function finishDiagram(
   vs: number[],
   warnings: string[],
 ): PhaseDiagram {
-  const tp = c.stab.canSplit ? diagramThreePhase(c, condition, xs, vs) : null
+  // The three-phase line is computed for an ideal vapour only; under a virial vapour split liquids are left out.
+  const tp = c.stab.canSplit && !c.gv ? diagramThreePhase(c, condition, xs, vs) : null
   const rows: [number, number, number][] = []
   const dropped: number[] = []
   for (let i = 0; i < xs.length; i++) {
@@ -147,7 +176,11 @@ function finishDiagram(
     rows.push([tp.xI, tp.y1, v], [tp.xII, tp.y1, v])
     rows.sort((a, b) => a[0] - b[0])
   }
-  if (dropped.length > 0) {
+  if (dropped.length > 0 && c.gv) {
+    warnings.push(
+      `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)}; three-phase points are not computed with a virial vapour, so those compositions are left out.`,
+    )
+  } else if (dropped.length > 0) {
     warnings.push(
       `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)} but their three-phase point could not be resolved; those compositions are left out.`,
     )

@@ -1,4 +1,4 @@
-export { bubbleTemperature, bubblePressure, dewTemperature, dewPressure } from './bubble-dew.js'
+export { bubbleTemperature, bubblePressure, dewTemperature, dewPressure } from './vle.js'
 export { relativeVolatility, phaseDiagram } from './diagram.js'
 export { findAzeotrope, findAzeotropes } from './azeotropes.js'
 export { liquidLiquidEquilibrium, type LiquidLiquidResult } from './liquid-liquid.js'

@@ -3,6 +3,8 @@ import { ThermoError } from '../errors.js'
 import { compileVaporPressure, rangeWarnings, type LnPsat } from '../vapor-pressure/compiled.js'
 import type { ActivityModel, BinarySystem } from '../types.js'
 import { stabilityOf, type LiquidStability } from './stability.js'
+import { compiledVirial, type CompiledVirial } from '../virial/kernel.js'
+import { checkVaporModel } from '../virial/tsonopoulos.js'
 
 /** A validated binary system in the solvers' internal form. */
 export interface CompiledSystem {
@@ -12,6 +14,8 @@ export interface CompiledSystem {
   source: BinarySystem
   /** Remembered liquid-stability facts of the activity model. */
   stab: LiquidStability
+  /** The compiled virial vapour when `source.vapor` is virial (γ–φ), null for an ideal vapour. */
+  gv: CompiledVirial | null
 }
 
 /** Check a BinarySystem once and reduce its vapour-pressure models to the internal form. */
@@ -25,12 +29,19 @@ export function compileSystem(system: BinarySystem): CompiledSystem {
     throw new ThermoError('invalid-model', 'A binary system needs two vapour-pressure models and an activity model.')
   }
   checkActivityModel(system.activity)
+  const vapor = system.vapor
+  let gv: CompiledVirial | null = null
+  if (vapor !== undefined) {
+    if (vapor?.kind === 'virial') gv = compiledVirial(vapor)
+    else checkVaporModel(vapor)
+  }
   return {
     act: system.activity,
     vp1: compileVaporPressure(system.vaporPressure[0]),
     vp2: compileVaporPressure(system.vaporPressure[1]),
     source: system,
     stab: stabilityOf(system.activity),
+    gv,
   }
 }
 

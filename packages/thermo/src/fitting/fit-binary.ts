@@ -2,12 +2,13 @@ import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { ThermoError } from '../errors.js'
 import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.js'
 import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './fit-input.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import { levenbergMarquardt, type LeastSquaresProblem, type LeastSquaresResult } from './lm.js'
 import { activityProblem, bubbleProblem, type FitData } from './objectives.js'
 import { alphaOf, boundedAlphaLayout, boundReached } from './alpha-bounds.js'
 import { parameterLayout, type FittableModel, type ParameterLayout, type UniquacStructure } from './parameters.js'
 import { pointResiduals, summarise } from './report.js'
-import { fitStatistics } from './statistics.js'
+import { fitStatistics, type FitStatistics } from './statistics.js'
 import { liquidSplitWarnings, type NamedFitWarning } from './liquid-split.js'
 
 /** Options of {@link fitBinary}. */
@@ -25,14 +26,30 @@ export interface FitBinaryOptions {
   /** NRTL α, default 0.3 (fixed unless fitAlpha). */
   alpha?: number
   fitAlpha?: boolean
-  /** 'bubble-point' (default) or 'activity'. */
-  objective?: 'bubble-point' | 'activity'
+  /**
+   * 'bubble-point' (default; isobaric: residuals dT, dy), 'bubble-pressure' (isothermal: residuals dP in Pa, dy) or
+   * 'activity' (Σ(Δ ln γ)², needs y at every fitted point).
+   */
+  objective?: FitObjective
+  /** The vapour model; absent or ideal: modified Raoult's law; virial: every point solved γ–φ. */
+  vapor?: VaporModel
 }
 
-/** A point's residuals after the fit, measured − calculated: dT = T_meas − T_calc (K), dy = y_meas − y_calc; see {@link fitBinary} for the flag rule. */
+/** The objectives of {@link fitBinary}. */
+export type FitObjective = 'bubble-point' | 'bubble-pressure' | 'activity'
+
+/** How a fit's vapour was modelled: 'ideal' or the Tsonopoulos virial vapour. */
+export type FitVaporModel = 'ideal' | 'virial-tsonopoulos'
+
+/**
+ * A point's residuals after the fit, measured − calculated: dT = T_meas − T_calc (K; null in an isothermal fit),
+ * dP = P_meas − P_calc (Pa; isothermal fits only), dy = y_meas − y_calc (null when the point has no y); see
+ * {@link fitBinary} for the flag rule.
+ */
 export interface PointResidual {
-  dT: number
-  dy: number
+  dT: number | null
+  dP?: number
+  dy: number | null
   studentized: number
   leverage: number
   flagged: boolean
@@ -60,15 +77,27 @@ export interface FitBinaryResult {
   correlation: number[][]
   converged: boolean
   iterations: number
-  /** Minimised sum of squares (weighted for bubble-point, in ln γ for activity). */
+  /** Minimised sum of squares (weighted for bubble-point and bubble-pressure, in ln γ for activity). */
   objective: number
-  objectiveKind: 'bubble-point' | 'activity'
+  objectiveKind: FitObjective
+  /** The vapour model the fit used. Always set by fitBinary (optional only for results built elsewhere). */
+  vaporModel?: FitVaporModel
+  /**
+   * 'barker' when no fitted point has a vapour composition (T–x or P–x data, fitted by the bubble-point or
+   * bubble-pressure equation alone: J. A. Barker, Aust. J. Chem. 6 (1953) 207), else 'with-y'. Always set by fitBinary.
+   */
+  method?: 'barker' | 'with-y'
+  /** Over the fitted points (NaN when there are none: dT in an isothermal fit, dy without y). */
   rmsT: number
   rmsY: number
   aadT: number
   aadY: number
   maxAbsT: number
   maxAbsY: number
+  /** Pressure deviations, Pa (isothermal fits only). */
+  rmsP?: number
+  aadP?: number
+  maxAbsP?: number
   aic: number
   residuals: PointResidual[]
   warnings: string[]
@@ -90,6 +119,10 @@ export interface FitBinaryResult {
     fitAlpha: boolean
     sigmaT: number
     sigmaY: number
+    /** Mean σP of the fitted points, Pa (isothermal fits). */
+    sigmaP?: number
+    /** The vapour model of the fit (absent: ideal). */
+    vapor?: VaporModel
     residualVariance: number
   }
 }
@@ -129,20 +162,33 @@ function bestBubbleFit(problem: LeastSquaresProblem, starts: ArrayLike<number>[]
 }
 
 /**
- * Fit binary activity-model parameters to measured T–x–y points under modified Raoult's law.
+ * Fit binary activity-model parameters to measured VLE points.
  *
- * Objective 'bubble-point' (default): each point's bubble temperature and vapour composition at its own
- * x1 and P; minimise Σ[(ΔT/σT)² + (Δy/σy)²], σT = 0.1 K and σy = 0.005 unless a point gives its own
- * (common practice, no source). Objective 'activity': minimise Σ(Δ ln γi)², γi = yi·P/(xi·Pi_sat(T)).
- * Levenberg–Marquardt from several starting points (grid ranked by the cheap activity objective),
- * deterministic. Pure-component points (x1 = 0 or 1) carry no information on the mixing parameters:
- * they are reported but not fitted (see pureComponentCheck). Excluded points are reported, not fitted.
- * A point is flagged as a probable outlier when its externally studentized residual (the larger of its
- * T and y residuals) exceeds 3 in absolute value.
+ * Objective 'bubble-point' (default, isobaric data): each point's bubble temperature and vapour composition at its
+ * own x1 and P; minimise Σ[(ΔT/σT)² + (Δy/σy)²]. Objective 'bubble-pressure' (isothermal data): each point's bubble
+ * pressure and vapour at its own x1 and T; minimise Σ[(ΔP/σP)² + (Δy/σy)²]. σT = 0.1 K, σy = 0.005, σP = 100 Pa
+ * unless a point gives its own (DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y, DEFAULT_SIGMA_P; common practice, no source).
+ * A point without y (y1 null) contributes its T (or P) row only; when no point has y this is Barker's method
+ * (J. A. Barker, Aust. J. Chem. 6 (1953) 207) and the result says `method: 'barker'`. Objective 'activity':
+ * minimise Σ(Δ ln γi)², γi = yi·Φi·P/(xi·Pi_sat(T)) (Φ = 1 for an ideal vapour); it needs y at every fitted point.
+ * `vapor` (virial): every bubble point is solved γ–φ; the result says `vaporModel`.
+ * Levenberg–Marquardt from several starting points (grid ranked by the cheap activity objective, or by the fit's own
+ * objective when too few points have y), deterministic. Pure-component points (x1 = 0 or 1) carry no information on
+ * the mixing parameters: they are reported but not fitted (see pureComponentCheck). Excluded points are reported,
+ * not fitted. Residuals are measured − calculated. A point is flagged as a probable outlier when its externally
+ * studentized residual (the larger of its T or P and y residuals) exceeds 3 in absolute value.
  * Parameters: A12, A21 (dimensionless), a12, a21 (Wilson and UNIQUAC), b12, b21 (J/mol), alpha.
- * @throws ThermoError for too few points, mole fractions outside [0, 1], non-finite values, P ≤ 0.
+ * Also callable as fitBinary(points, options-without-points).
+ * @throws ThermoError for too few points, mole fractions outside [0, 1], non-finite values, P ≤ 0;
+ *   'needs-vapour-composition' for the activity objective on a point without y.
  */
-export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
+export function fitBinary(options: FitBinaryOptions): FitBinaryResult
+export function fitBinary(points: BinaryPoint[], options: Omit<FitBinaryOptions, 'points'>): FitBinaryResult
+export function fitBinary(
+  first: FitBinaryOptions | BinaryPoint[],
+  rest?: Omit<FitBinaryOptions, 'points'>,
+): FitBinaryResult {
+  const options: FitBinaryOptions = Array.isArray(first) ? { ...(rest as FitBinaryOptions), points: first } : first
   checkModelOptions(options)
   const objectiveKind = options.objective ?? 'bubble-point'
   const alpha = options.alpha ?? 0.3
@@ -156,7 +202,11 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
     fitAlpha,
   })
   const m = layout.names.length
-  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m)
+  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, m, {
+    vapor: options.vapor,
+    isothermal: objectiveKind === 'bubble-pressure',
+  })
+  checkObjectiveData(options, data, index, objectiveKind)
   // A fitted α is searched through a bounded transform, then settled in α itself (settleAlpha).
   const search = fitAlpha ? boundedAlphaLayout(layout) : layout
   const fit = searchFit(data, search, objectiveKind)
@@ -172,6 +222,26 @@ export function fitBinary(options: FitBinaryOptions): FitBinaryResult {
   return settleAlpha(options, data, index, fit, objectiveKind)
 }
 
+/** Refuse what the chosen objective cannot do with these points, naming the point. */
+function checkObjectiveData(options: FitBinaryOptions, data: FitData, index: number[], objectiveKind: FitObjective) {
+  if (objectiveKind === 'activity') {
+    const k = data.hasY.indexOf(0)
+    if (k >= 0) {
+      throw new ThermoError(
+        'needs-vapour-composition',
+        `Point ${index[k] + 1} has no vapour composition (y1); the activity objective needs y1 at every fitted point. Fit data without y with the bubble-point or bubble-pressure objective (Barker's method).`,
+        { point: index[k] + 1 },
+      )
+    }
+  }
+  if (data.het && (data.gv || data.isothermal)) {
+    throw new ThermoError(
+      'invalid-input',
+      'Points marked as two liquid layers can be fitted only as isobaric data with an ideal vapour; unmark them or fit without a virial vapour.',
+    )
+  }
+}
+
 /** Residuals and Jacobian of `problem` at p, as a result with the given convergence flag; null on failure. */
 function atPoint(problem: LeastSquaresProblem, p: number[], converged: boolean): LeastSquaresResult | null {
   const r = new Float64Array(problem.nResiduals)
@@ -180,20 +250,31 @@ function atPoint(problem: LeastSquaresProblem, p: number[], converged: boolean):
   return { p: Float64Array.from(p), cost: r.reduce((t, v) => t + v * v, 0), iterations: 0, converged, r, J }
 }
 
-function problemOf(
-  data: FitData,
-  layout: ParameterLayout,
-  objectiveKind: 'bubble-point' | 'activity',
-): LeastSquaresProblem {
+function problemOf(data: FitData, layout: ParameterLayout, objectiveKind: FitObjective): LeastSquaresProblem {
   return objectiveKind === 'activity' ? activityProblem(data, layout) : bubbleProblem(data, layout, true)
 }
 
-/** Multi-start search: activity-objective candidates, then the bubble-point refinement. */
-function searchFit(
-  data: FitData,
-  layout: ParameterLayout,
-  objectiveKind: 'bubble-point' | 'activity',
-): LeastSquaresResult | null {
+/** The starting grid ranked by the fit's own objective; the best `count` starts. */
+function rankedStarts(problem: LeastSquaresProblem, layout: ParameterLayout, count: number): number[][] {
+  const r = new Float64Array(problem.nResiduals)
+  return layout.starts
+    .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
+    .filter((s) => Number.isFinite(s.cost))
+    .sort((a, b) => a.cost - b.cost)
+    .slice(0, count)
+    .map((s) => s.p)
+}
+
+/**
+ * Multi-start search: activity-objective candidates, then the bubble-point (bubble-pressure) refinement. When fewer
+ * points have y than there are parameters (Barker's method included) the grid is ranked by the fit's own objective.
+ */
+function searchFit(data: FitData, layout: ParameterLayout, objectiveKind: FitObjective): LeastSquaresResult | null {
+  const withY = data.hasY.reduce((s, v) => s + v, 0)
+  if (objectiveKind !== 'activity' && withY < layout.names.length) {
+    const problem = problemOf(data, layout, objectiveKind)
+    return bestBubbleFit(problem, rankedStarts(problem, layout, 3))
+  }
   const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
   if (objectiveKind === 'activity') return candidates[0] ?? null
   const problem = problemOf(data, layout, objectiveKind)
@@ -212,7 +293,7 @@ function settleAlpha(
   data: FitData,
   index: number[],
   bounded: LeastSquaresResult,
-  objectiveKind: 'bubble-point' | 'activity',
+  objectiveKind: FitObjective,
 ): FitBinaryResult {
   const direct = parameterLayout('nrtl', { alpha: alphaOf(bounded.p[2]), fitAlpha: true })
   const start = [bounded.p[0], bounded.p[1], alphaOf(bounded.p[2])]
@@ -240,32 +321,34 @@ function settleAlpha(
   })
 }
 
-function finishFit(
-  options: FitBinaryOptions,
+/** How NRTL α ended: its value, whether it was fitted, and the bound it is held at (null when not held). */
+interface AlphaOutcome {
+  alpha: number
+  fitAlpha: boolean
+  held: number | null
+}
+
+/** The fitted parameters with standard errors, plus α when it was held at a bound. */
+function fittedParameters(
   layout: ParameterLayout,
-  data: FitData,
-  index: number[],
   fit: LeastSquaresResult,
-  objectiveKind: 'bubble-point' | 'activity',
-  nrtl: { alpha: number; fitAlpha: boolean; held: number | null },
-): FitBinaryResult {
-  const m = layout.names.length
-  const nRows = fit.r.length
-  const stats = fitStatistics(fit.r, fit.J, nRows, m)
-  const activity = layout.build(fit.p)
-  const system: BinarySystem = { vaporPressure: options.vaporPressure, activity }
-  const residuals = pointResiduals(
-    options.points,
-    system,
-    data,
-    index,
-    stats,
-    fit.r,
-    objectiveKind === 'bubble-point',
-    layout,
-    fit.p,
-  )
-  const summary = summarise(residuals, index)
+  stats: FitStatistics,
+  nrtl: AlphaOutcome,
+): FittedParameter[] {
+  return [
+    ...layout.names.map((name, j) => ({ name, value: fit.p[j], standardError: stats.standardErrors[j] })),
+    ...(nrtl.held !== null ? [{ name: 'alpha', value: nrtl.held, standardError: null, atBound: true }] : []),
+  ]
+}
+
+/** Warnings about the regression itself: convergence, α at a bound, singular or strongly correlated parameters, outliers. */
+function regressionWarnings(
+  layout: ParameterLayout,
+  fit: LeastSquaresResult,
+  stats: FitStatistics,
+  nrtl: AlphaOutcome,
+  residuals: PointResidual[],
+): string[] {
   const warnings: string[] = []
   if (!fit.converged) warnings.push('The fit stopped before it fully converged; treat the parameters with care.')
   if (nrtl.held !== null)
@@ -274,6 +357,7 @@ function finishFit(
     warnings.push(
       'The parameters are not separately determined by these data (singular fit); standard errors are not available.',
     )
+  const m = layout.names.length
   for (let i = 0; i < m; i++)
     for (let j = 0; j < i; j++) {
       const r = stats.correlation[i][j]
@@ -287,53 +371,106 @@ function finishFit(
     warnings.push(
       `${flagged} point${flagged > 1 ? 's look' : ' looks'} like an outlier (|studentized residual| > 3); check ${flagged > 1 ? 'them' : 'it'} before approving.`,
     )
-  const Ts = Array.from(data.T)
-  warnings.push(...spanWarnings(options.vaporPressure, Math.min(...Ts), Math.max(...Ts)))
-  const namedWarnings = liquidSplitWarnings(
+  return warnings
+}
+
+/** Warnings about the fitted model over the data's temperatures: vapour-pressure ranges and liquid splitting. */
+function modelWarnings(
+  options: FitBinaryOptions,
+  data: FitData,
+  activity: ActivityModel,
+): { warnings: string[]; namedWarnings: NamedFitWarning[] } {
+  let Tmin = Infinity
+  let Tmax = -Infinity
+  for (const T of data.T) {
+    if (T < Tmin) Tmin = T
+    if (T > Tmax) Tmax = T
+  }
+  const namedWarnings = liquidSplitWarnings(activity, Tmin, Tmax, data.het?.reduce((s, v) => s + v, 0) ?? 0)
+  return {
+    warnings: [...spanWarnings(options.vaporPressure, Tmin, Tmax), ...namedWarnings.map((w) => w.message)],
+    namedWarnings,
+  }
+}
+
+/** The settings that rebuild the parameter layout and weights (prediction bands, suggestions). */
+function fitSettings(
+  options: FitBinaryOptions,
+  data: FitData,
+  stats: FitStatistics,
+  nrtl: AlphaOutcome,
+): FitBinaryResult['settings'] {
+  const meanSigma = (w: Float64Array) => 1 / (w.reduce((s, v) => s + v, 0) / data.n)
+  return {
+    model: options.model,
+    V1: options.V1,
+    V2: options.V2,
+    uniquac: options.uniquac,
+    temperatureDependent: options.temperatureDependent,
+    alpha: nrtl.alpha,
+    fitAlpha: nrtl.fitAlpha,
+    sigmaT: meanSigma(data.wT),
+    sigmaY: meanSigma(data.wY),
+    ...(data.isothermal ? { sigmaP: meanSigma(data.wP) } : {}),
+    ...(options.vapor ? { vapor: options.vapor } : {}),
+    residualVariance: stats.s2,
+  }
+}
+
+/** The result of a fit at its optimum: statistics, per-point residuals, summaries, warnings and settings. */
+function finishFit(
+  options: FitBinaryOptions,
+  layout: ParameterLayout,
+  data: FitData,
+  index: number[],
+  fit: LeastSquaresResult,
+  objectiveKind: FitObjective,
+  nrtl: AlphaOutcome,
+): FitBinaryResult {
+  const stats = fitStatistics(fit.r, fit.J, fit.r.length, layout.names.length)
+  const activity = layout.build(fit.p)
+  const system: BinarySystem = {
+    vaporPressure: options.vaporPressure,
     activity,
-    Math.min(...Ts),
-    Math.max(...Ts),
-    data.het?.reduce((s, v) => s + v, 0) ?? 0,
+    ...(options.vapor ? { vapor: options.vapor } : {}),
+  }
+  const residuals = pointResiduals(
+    options.points,
+    system,
+    data,
+    index,
+    stats,
+    fit.r,
+    objectiveKind !== 'activity',
+    layout,
+    fit.p,
   )
-  warnings.push(...namedWarnings.map((w) => w.message))
-  const sigmaT = 1 / (Array.from(data.wT).reduce((s, v) => s + v, 0) / data.n)
-  const sigmaY = 1 / (Array.from(data.wY).reduce((s, v) => s + v, 0) / data.n)
+  const model = modelWarnings(options, data, activity)
   return {
     activity,
     system,
-    parameters: [
-      ...layout.names.map((name, j) => ({ name, value: fit.p[j], standardError: stats.standardErrors[j] })),
-      ...(nrtl.held !== null ? [{ name: 'alpha', value: nrtl.held, standardError: null, atBound: true }] : []),
-    ],
+    parameters: fittedParameters(layout, fit, stats, nrtl),
     covariance: stats.covariance,
     correlation: stats.correlation,
     converged: fit.converged,
     iterations: fit.iterations,
     objective: fit.cost,
     objectiveKind,
-    ...summary,
+    vaporModel: data.gv ? 'virial-tsonopoulos' : 'ideal',
+    method: data.hasY.includes(1) ? 'with-y' : 'barker',
+    ...summarise(residuals, index, data.isothermal),
     aic: stats.aic,
     residuals,
-    warnings,
-    namedWarnings,
-    settings: {
-      model: options.model,
-      V1: options.V1,
-      V2: options.V2,
-      uniquac: options.uniquac,
-      temperatureDependent: options.temperatureDependent,
-      alpha: nrtl.alpha,
-      fitAlpha: nrtl.fitAlpha,
-      sigmaT,
-      sigmaY,
-      residualVariance: stats.s2,
-    },
+    warnings: [...regressionWarnings(layout, fit, stats, nrtl, residuals), ...model.warnings],
+    namedWarnings: model.namedWarnings,
+    settings: fitSettings(options, data, stats, nrtl),
   }
 }
 
 /**
- * Fit the model to T–x alone (bubble temperatures at each point's x1 and P, vapour compositions unused),
- * from the starting grid ranked by that same objective. Used by the point test.
+ * Fit the model to T–x alone (bubble temperatures at each point's x1 and P, vapour compositions unused; with
+ * objective 'bubble-pressure', P–x: bubble pressures at each point's T), from the starting grid ranked by that same
+ * objective. Used by the point test.
  * @returns the fitted activity model and whether the fit converged.
  */
 export function fitTemperatureOnly(options: FitBinaryOptions): {
@@ -351,17 +488,12 @@ export function fitTemperatureOnly(options: FitBinaryOptions): {
     alpha,
     fitAlpha: false,
   })
-  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, layout.names.length)
+  const { data, index } = buildFitData(options.points, options.vaporPressure, options.model, layout.names.length, {
+    vapor: options.vapor,
+    isothermal: options.objective === 'bubble-pressure',
+  })
   const problem = bubbleProblem(data, layout, false)
-  const r = new Float64Array(problem.nResiduals)
-  const ranked = layout.starts
-    .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
-    .filter((s) => Number.isFinite(s.cost))
-    .sort((a, b) => a.cost - b.cost)
-  const fit = bestBubbleFit(
-    problem,
-    ranked.slice(0, 3).map((s) => s.p),
-  )
+  const fit = bestBubbleFit(problem, rankedStarts(problem, layout, 3))
   if (!fit) {
     throw new ThermoError(
       'no-convergence',

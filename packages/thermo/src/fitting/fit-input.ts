@@ -2,16 +2,25 @@ import { ThermoError } from '../errors.js'
 import { compileVaporPressure } from '../vapor-pressure/compiled.js'
 import type { VaporPressureModel } from '../types.js'
 import type { FitData } from './objectives.js'
+import { compiledVirial, lnPhiFactors, type CompiledVirial } from '../virial/kernel.js'
+import { checkVaporModel } from '../virial/tsonopoulos.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import type { FittableModel, UniquacStructure } from './parameters.js'
 
-/** One measured isobaric (or not) VLE point: T in K, P in Pa, mole fractions; σT in K and σy default 0.1 K and 0.005. */
+/**
+ * One measured VLE point: T in K, P in Pa, mole fractions. `y1` is null when no vapour was sampled (T–x or P–x
+ * data). Uncertainties: σT in K, σy, σP in Pa; defaults {@link DEFAULT_SIGMA_T}, {@link DEFAULT_SIGMA_Y},
+ * {@link DEFAULT_SIGMA_P}.
+ */
 export interface BinaryPoint {
   T: number
   P: number
   x1: number
-  y1: number
+  y1: number | null
   sigmaT?: number
   sigmaY?: number
+  /** Uncertainty of the measured pressure, Pa (isothermal fits). */
+  sigmaP?: number
   excluded?: boolean
   /**
    * The analyst saw two liquid layers: x1 is the overall composition, T the three-phase temperature and y1 the
@@ -24,6 +33,12 @@ export interface BinaryPoint {
 export const DEFAULT_SIGMA_T = 0.1
 /** Default uncertainty of a measured vapour mole fraction (common practice, no source). */
 export const DEFAULT_SIGMA_Y = 0.005
+/**
+ * Default uncertainty of a measured pressure, Pa: 0.1 kPa, about what a static or circulating still's pressure
+ * gauge reads to near atmospheric pressure (common practice, no source). At low pressures, where a cell reads to a
+ * few pascals, give each point its own `sigmaP`; this default would then underweight the pressures.
+ */
+export const DEFAULT_SIGMA_P = 100
 
 const MODEL_NAMES: Record<FittableModel, string> = {
   margules: 'Margules',
@@ -40,19 +55,21 @@ export function modelName(model: FittableModel): string {
 
 function checkPoint(pt: BinaryPoint, i: number): void {
   const fail = (text: string) => new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
-  if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1.')
+  if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1 (y1 may be null).')
   if (!(Number.isFinite(pt.T) && pt.T > 0)) throw fail(`temperature must be a positive number of kelvins; got ${pt.T}.`)
   if (!(Number.isFinite(pt.P) && pt.P > 0)) throw fail(`pressure must be a positive number of pascals; got ${pt.P}.`)
   if (!(Number.isFinite(pt.x1) && pt.x1 >= 0 && pt.x1 <= 1))
     throw fail(`liquid mole fraction x1 must be between 0 and 1; got ${pt.x1}.`)
-  if (!(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1))
-    throw fail(`vapour mole fraction y1 must be between 0 and 1; got ${pt.y1}.`)
+  if (pt.y1 !== null && !(Number.isFinite(pt.y1) && pt.y1 >= 0 && pt.y1 <= 1))
+    throw fail(`vapour mole fraction y1 must be between 0 and 1, or null when no vapour was sampled; got ${pt.y1}.`)
   if (pt.heterogeneous !== undefined && typeof pt.heterogeneous !== 'boolean')
     throw fail(`heterogeneous must be true or false; got ${String(pt.heterogeneous)}.`)
   if (pt.sigmaT !== undefined && !(Number.isFinite(pt.sigmaT) && pt.sigmaT > 0))
     throw fail(`sigmaT must be a positive number; got ${pt.sigmaT}.`)
   if (pt.sigmaY !== undefined && !(Number.isFinite(pt.sigmaY) && pt.sigmaY > 0))
     throw fail(`sigmaY must be a positive number; got ${pt.sigmaY}.`)
+  if (pt.sigmaP !== undefined && !(Number.isFinite(pt.sigmaP) && pt.sigmaP > 0))
+    throw fail(`sigmaP must be a positive number of pascals; got ${pt.sigmaP}.`)
 }
 
 /** Check the model choice and its extra inputs. */
@@ -72,8 +89,16 @@ export function checkModelOptions(o: {
       `Unknown model "${o.model}"; choose margules, van-laar, wilson, nrtl or uniquac.`,
     )
   }
-  if (o.objective !== undefined && o.objective !== 'bubble-point' && o.objective !== 'activity') {
-    throw new ThermoError('invalid-input', `Unknown objective "${o.objective}"; choose bubble-point or activity.`)
+  if (
+    o.objective !== undefined &&
+    o.objective !== 'bubble-point' &&
+    o.objective !== 'bubble-pressure' &&
+    o.objective !== 'activity'
+  ) {
+    throw new ThermoError(
+      'invalid-input',
+      `Unknown objective "${o.objective}"; choose bubble-point, bubble-pressure or activity.`,
+    )
   }
   if (
     o.model === 'wilson' &&
@@ -112,8 +137,23 @@ export function checkModelOptions(o: {
   }
 }
 
+/** How the points are compared with the model: the vapour model and whether P (isothermal) or T is calculated. */
+export interface FitDataOptions {
+  vapor?: VaporModel
+  isothermal?: boolean
+}
+
+/** The compiled virial vapour of a fit, or null for an ideal one. @throws ThermoError 'invalid-model'. */
+export function compiledVapor(vapor: VaporModel | undefined): CompiledVirial | null {
+  if (vapor === undefined) return null
+  if (vapor?.kind === 'virial') return compiledVirial(vapor)
+  checkVaporModel(vapor)
+  return null
+}
+
 /**
- * Check every point and gather the included mixture points (0 < x1 < 1, not excluded) as FitData.
+ * Check every point and gather the included mixture points (0 < x1 < 1, not excluded) as FitData. A point without
+ * y1 (null) has one residual row (T or P), a point with y1 two (T or P, then y): `rowOf` gives each one's first row.
  * @returns the data and, for each FitData row, the index of its point in `points`.
  */
 export function buildFitData(
@@ -121,14 +161,17 @@ export function buildFitData(
   vaporPressure: [VaporPressureModel, VaporPressureModel],
   model: FittableModel,
   nParams: number,
+  options: FitDataOptions = {},
 ): { data: FitData; index: number[] } {
-  if (!Array.isArray(points)) throw new ThermoError('invalid-input', 'The points must be a list of { T, P, x1, y1 }.')
+  if (!Array.isArray(points))
+    throw new ThermoError('invalid-input', 'The points must be a list of { T, P, x1, y1 } (y1 may be null).')
   points.forEach(checkPoint)
   if (!Array.isArray(vaporPressure) || vaporPressure.length !== 2) {
     throw new ThermoError('invalid-model', 'Fitting needs the vapour-pressure models of both components.')
   }
   const vp1 = compileVaporPressure(vaporPressure[0])
   const vp2 = compileVaporPressure(vaporPressure[1])
+  const gv = compiledVapor(options.vapor)
   const included = points.filter((p) => !p.excluded).length
   if (included < nParams + 1) {
     throw new ThermoError(
@@ -145,19 +188,50 @@ export function buildFitData(
   }
   const n = index.length
   const col = (f: (p: BinaryPoint) => number) => Float64Array.from(index, (i) => f(points[i]))
+  const hasY = Uint8Array.from(index, (i) => (points[i].y1 === null ? 0 : 1))
+  const rowOf = new Int32Array(n)
+  let rows = 0
+  for (let k = 0; k < n; k++) {
+    rowOf[k] = rows
+    rows += 1 + hasY[k]
+  }
   const data: FitData = {
     n,
+    nRows: rows,
+    rowOf,
+    hasY,
     T: col((p) => p.T),
     lnP: col((p) => Math.log(p.P)),
     x1: col((p) => p.x1),
-    y1: col((p) => p.y1),
+    y1: col((p) => p.y1 ?? NaN),
     wT: col((p) => 1 / (p.sigmaT ?? DEFAULT_SIGMA_T)),
     wY: col((p) => 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)),
+    wP: col((p) => 1 / (p.sigmaP ?? DEFAULT_SIGMA_P)),
     vp1,
     vp2,
+    gv,
+    isothermal: options.isothermal === true,
     ...(index.some((i) => points[i].heterogeneous)
       ? { het: Uint8Array.from(index, (i) => (points[i].heterogeneous ? 1 : 0)) }
       : {}),
   }
+  if (gv) data.lnPhiExp = experimentalLnPhi(data, gv)
   return { data, index }
+}
+
+/** ln Φ1, ln Φ2 of each point at its measured T, P and y (0 where y is missing), for the activity objective. */
+function experimentalLnPhi(d: FitData, gv: CompiledVirial): [Float64Array, Float64Array] {
+  const l1 = new Float64Array(d.n)
+  const l2 = new Float64Array(d.n)
+  const out = new Float64Array(4)
+  for (let i = 0; i < d.n; i++) {
+    if (!d.hasY[i]) continue
+    const T = d.T[i]
+    const ps1 = Math.exp(d.vp1.a - d.vp1.b / (T + d.vp1.c))
+    const ps2 = Math.exp(d.vp2.a - d.vp2.b / (T + d.vp2.c))
+    lnPhiFactors(gv, T, Math.exp(d.lnP[i]), d.y1[i], ps1, ps2, out)
+    l1[i] = out[0]
+    l2[i] = out[1]
+  }
+  return [l1, l2]
 }

@@ -1,7 +1,14 @@
 export { fitBinary } from './fit-binary.js'
-export type { FitBinaryOptions, FitBinaryResult, FittedParameter, PointResidual } from './fit-binary.js'
+export type {
+  FitBinaryOptions,
+  FitBinaryResult,
+  FitObjective,
+  FitVaporModel,
+  FittedParameter,
+  PointResidual,
+} from './fit-binary.js'
 export type { BinaryPoint } from './fit-input.js'
-export { DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
+export { DEFAULT_SIGMA_P, DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
 export type { FittableModel, UniquacStructure } from './parameters.js'
 export { predictionBand } from './prediction.js'
 export { planNextMeasurements, suggestNextCompositions } from './next-measurements.js'

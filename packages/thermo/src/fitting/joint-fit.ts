@@ -1,6 +1,6 @@
-import { bubbleTemperature } from '../equilibrium/bubble-dew.js'
 import { ThermoError } from '../errors.js'
 import type { VaporPressureModel } from '../types.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import { fitBinary, type FitBinaryResult } from './fit-binary.js'
 import type { BinaryPoint } from './fit-input.js'
 
@@ -16,6 +16,8 @@ export interface JointFitOptions {
   alpha?: number
   /** Fit b12T, b21T (or a12T, a21T) too; default true. */
   temperatureDependent?: boolean
+  /** The vapour model (absent: ideal), as in fitBinary. */
+  vapor?: VaporModel
 }
 
 /** One data set's statistics under the joint parameters (fitted points only; dT, dy = measured − calculated). */
@@ -24,7 +26,7 @@ export interface JointDataSetStatistics {
   n: number
   rmsT: number
   rmsY: number
-  /** Mean dT and dy: a systematic offset of one data set against the others shows here. */
+  /** Mean dT and dy: a systematic offset of one data set against the others shows here (NaN without values). */
   biasT: number
   biasY: number
   Tmin: number
@@ -72,16 +74,17 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
     V2: options.V2,
     alpha: options.alpha,
     temperatureDependent: options.temperatureDependent ?? true,
+    vapor: options.vapor,
   })
   const fitted = (i: number) => !points[i].excluded && points[i].x1 > 0 && points[i].x1 < 1
   const dataSets = sets.map((s, k) => {
     const rows = points.map((_, i) => i).filter((i) => owner[i] === k && fitted(i))
-    const res = rows.map((i) => measuredMinusCalculated(fit, points[i]))
-    const dT = res.map((r) => r.dT)
-    const dy = res.map((r) => r.dy)
+    // The fit's own residuals (measured − calculated at the optimum): no bubble point is solved again.
+    const dT = rows.map((i) => fit.residuals[i].dT).filter((v): v is number => v !== null)
+    const dy = rows.map((i) => fit.residuals[i].dy).filter((v): v is number => v !== null)
     const Ts = rows.map((i) => points[i].T)
     const Ps = rows.map((i) => points[i].P)
-    const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length
+    const mean = (v: number[]) => (v.length ? v.reduce((a, b) => a + b, 0) / v.length : NaN)
     const rms = (v: number[]) => Math.sqrt(mean(v.map((x) => x * x)))
     return {
       id: s.id,
@@ -103,10 +106,4 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
     Pmax: Math.max(...dataSets.map((d) => d.Pmax)),
   }
   return { ...fit, dataSets, range }
-}
-
-/** A point's residuals measured − calculated under the fitted system (its own x1 and P). */
-function measuredMinusCalculated(fit: FitBinaryResult, p: BinaryPoint): { dT: number; dy: number } {
-  const b = bubbleTemperature(fit.system, { P: p.P, x1: p.x1 })
-  return { dT: p.T - b.T, dy: p.y1 - b.y1 }
 }

@@ -1,7 +1,9 @@
 /**
- * The two least-squares objectives of fitBinary.
+ * The least-squares objectives of fitBinary.
  * Bubble point: for each point, the bubble temperature and vapour composition at its own x1 and P;
- * residuals (Tcalc − T)/σT and (ycalc − y)/σy. The Jacobian is semi-analytic: by the implicit-function
+ * residuals (Tcalc − T)/σT and (ycalc − y)/σy (a point without y has the T row only: Barker's method).
+ * Bubble pressure (isothermal): the bubble pressure and vapour at its own x1 and T; residuals (Pcalc − P)/σP and
+ * (ycalc − y)/σy. Under a virial vapour both are solved γ–φ (model-point.ts). The Jacobian is semi-analytic: by the implicit-function
  * theorem on F(T, θ) = ln Σ xi·γi·Pi_sat − ln P = 0, dT/dθ = −(∂F/∂θ)/(∂F/∂T), so only ∂ln γ/∂θ needs
  * finite differences (cheap activity evaluations, no extra bubble-point solves).
  * Activity: residuals ln γi(model) − ln γi(exp), γi(exp) = yi·P/(xi·Pi_sat(T)).
@@ -13,18 +15,34 @@ import type { ActivityModel } from '../types.js'
 import type { LeastSquaresProblem } from './lm.js'
 import type { ParameterLayout } from './parameters.js'
 import { threePhaseRow, threePhaseSensitivities, type ThreePhaseMemo } from './heterogeneous.js'
+import type { CompiledVirial } from '../virial/kernel.js'
+import { point, pointSensitivities, solvePoint } from './model-point.js'
 
 /** Included mixture points (0 < x1 < 1) in SI, with weights 1/σ. */
 export interface FitData {
   n: number
+  /** Residual rows of the full objective: one per point (T or P) plus one per point that has y. */
+  nRows: number
+  /** First residual row of each point (its T or P row; the y row, when it has y, follows). */
+  rowOf: Int32Array
+  /** 1 where the point has a measured vapour composition. */
+  hasY: Uint8Array
   T: Float64Array
   lnP: Float64Array
   x1: Float64Array
   y1: Float64Array
   wT: Float64Array
   wY: Float64Array
+  /** 1/σP, 1/Pa (isothermal fits). */
+  wP: Float64Array
   vp1: LnPsat
   vp2: LnPsat
+  /** The compiled virial vapour, null for an ideal vapour. */
+  gv: CompiledVirial | null
+  /** True: each point's pressure is calculated at its T (bubble-pressure objective); false: its T at its P. */
+  isothermal: boolean
+  /** ln Φ1, ln Φ2 at each point's measured T, P, y (virial vapour only): the activity objective's γ = yΦP/(xPsat). */
+  lnPhiExp?: [Float64Array, Float64Array]
   /** 1 for rows marked heterogeneous (two liquid layers seen): compared with the model's three-phase point. */
   het?: Uint8Array
 }
@@ -110,12 +128,15 @@ export function bubbleSensitivities(
   }
 }
 
-/** The bubble-point objective; `useY` false fits T–x alone (the point test). */
+/**
+ * The bubble-point (or, for isothermal data, bubble-pressure) objective; `useY` false fits T–x (P–x) alone: the
+ * point test, and Barker's method when no point has y. Rows follow `d.rowOf` with useY, one per point without.
+ */
 export function bubbleProblem(
   d: FitData,
   layout: ParameterLayout,
   useY: boolean,
-): LeastSquaresProblem & { Tguess: Float64Array } {
+): LeastSquaresProblem & { Tguess: Float64Array; rowOf: Int32Array } {
   const m = layout.names.length
   const Tguess = new Float64Array(d.n)
   // The measured temperature is the best first guess of each bubble point (within the noise of it).
@@ -123,19 +144,38 @@ export function bubbleProblem(
   const dlng = new Float64Array(2 * m)
   const dT = new Float64Array(m)
   const dy = new Float64Array(m)
-  const rows = useY ? 2 : 1
+  const rowOf = useY ? d.rowOf : Int32Array.from({ length: d.n }, (_, i) => i)
+  const withY = (i: number) => useY && d.hasY[i] === 1
   const memo: (ThreePhaseMemo | null)[] = new Array(d.n).fill(null)
+  // Isobaric with an ideal vapour keeps the original (fastest) path; the other three cases go through model-point.ts.
+  const general = d.isothermal || d.gv !== null
+  const Pmeas = general ? d.lnP.map(Math.exp) : d.lnP
+  const wCalc = d.isothermal ? d.wP : d.wT
+  const measured = d.isothermal ? Pmeas : d.T
+  const solve = (model: ActivityModel, i: number): boolean => {
+    if (!general) return bubbleAt(model, d, i, Tguess, memo)
+    if (!solvePoint(model, d, d.x1[i], d.T[i], d.lnP[i], Tguess[i])) return false
+    if (!d.isothermal) Tguess[i] = point[0]
+    res[0] = point[0]
+    res[1] = point[1]
+    return true
+  }
+  const fill = (r: Float64Array, i: number) => {
+    const k = rowOf[i]
+    r[k] = (res[0] - measured[i]) * wCalc[i]
+    if (withY(i)) r[k + 1] = (res[1] - d.y1[i]) * d.wY[i]
+  }
   return {
-    nResiduals: rows * d.n,
+    nResiduals: useY ? d.nRows : d.n,
     nParams: m,
     Tguess,
+    rowOf,
     residuals(p, r) {
       if (!layout.valid(p)) return false
       const model = layout.build(p)
       for (let i = 0; i < d.n; i++) {
-        if (!bubbleAt(model, d, i, Tguess, memo)) return false
-        r[rows * i] = (res[0] - d.T[i]) * d.wT[i]
-        if (useY) r[rows * i + 1] = (res[1] - d.y1[i]) * d.wY[i]
+        if (!solve(model, i)) return false
+        fill(r, i)
       }
       return true
     },
@@ -144,14 +184,15 @@ export function bubbleProblem(
       const model = layout.build(p)
       const pm = perturbedModels(layout, p)
       for (let i = 0; i < d.n; i++) {
-        if (!bubbleAt(model, d, i, Tguess, memo)) return false
-        r[rows * i] = (res[0] - d.T[i]) * d.wT[i]
-        if (useY) r[rows * i + 1] = (res[1] - d.y1[i]) * d.wY[i]
-        if (!memo[i]) bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)
+        if (!solve(model, i)) return false
+        fill(r, i)
+        if (general) pointSensitivities(model, d, d.x1[i], pm, dT, dy)
+        else if (!memo[i]) bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)
         else if (!threePhaseSensitivities(pm, d, i, memo[i], res[0], res[1], dT, dy)) return false
+        const k = rowOf[i]
         for (let j = 0; j < m; j++) {
-          J[rows * i * m + j] = dT[j] * d.wT[i]
-          if (useY) J[(rows * i + 1) * m + j] = dy[j] * d.wY[i]
+          J[k * m + j] = dT[j] * wCalc[i]
+          if (withY(i)) J[(k + 1) * m + j] = dy[j] * d.wY[i]
         }
       }
       return true
@@ -159,7 +200,7 @@ export function bubbleProblem(
   }
 }
 
-/** Experimental ln γ1, ln γ2 of each point (NaN where y is 0 or 1). */
+/** Experimental ln γ1, ln γ2 of each point (NaN where y is 0, 1 or missing). */
 export function experimentalLnGamma(d: FitData): [Float64Array, Float64Array] {
   const l1 = new Float64Array(d.n)
   const l2 = new Float64Array(d.n)
@@ -172,8 +213,11 @@ export function experimentalLnGamma(d: FitData): [Float64Array, Float64Array] {
       l2[i] = NaN
       continue
     }
-    l1[i] = y > 0 ? Math.log(y / x) + d.lnP[i] - (d.vp1.a - d.vp1.b / (T + d.vp1.c)) : NaN
-    l2[i] = y < 1 ? Math.log((1 - y) / (1 - x)) + d.lnP[i] - (d.vp2.a - d.vp2.b / (T + d.vp2.c)) : NaN
+    // Under a virial vapour γi = yi·Φi·P/(xi·Pi_sat), Φ at the measured T, P and y.
+    const f1 = d.lnPhiExp ? d.lnPhiExp[0][i] : 0
+    const f2 = d.lnPhiExp ? d.lnPhiExp[1][i] : 0
+    l1[i] = y > 0 ? Math.log(y / x) + d.lnP[i] + f1 - (d.vp1.a - d.vp1.b / (T + d.vp1.c)) : NaN
+    l2[i] = y < 1 ? Math.log((1 - y) / (1 - x)) + d.lnP[i] + f2 - (d.vp2.a - d.vp2.b / (T + d.vp2.c)) : NaN
   }
   return [l1, l2]
 }

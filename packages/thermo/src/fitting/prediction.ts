@@ -4,6 +4,7 @@ import { compileSystem } from '../equilibrium/system.js'
 import type { FitBinaryResult } from './fit-binary.js'
 import { bubbleSensitivities, perturbedModels } from './objectives.js'
 import { parameterLayout } from './parameters.js'
+import { point, pointSensitivities, solvePoint } from './model-point.js'
 
 /** Bubble points and their parameter sensitivities along a list of liquid compositions at P (Pa). */
 export function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
@@ -27,7 +28,22 @@ export function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
   const dlng = new Float64Array(2 * m)
   const lnP = Math.log(P)
   let T = NaN
+  const ctx = { vp1: c.vp1, vp2: c.vp2, gv: c.gv, isothermal: false }
   return xs.map((x1) => {
+    if (c.gv) {
+      // Virial vapour: γ–φ bubble points and their implicit sensitivities (model-point.ts).
+      if (!solvePoint(c.act, ctx, x1, NaN, lnP, Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1))) {
+        throw new ThermoError(
+          'no-convergence',
+          `No bubble point at x1 = ${x1.toFixed(4)} and ${P} Pa with the fitted parameters.`,
+        )
+      }
+      T = point[0]
+      const gT = new Float64Array(m)
+      const gY = new Float64Array(m)
+      pointSensitivities(c.act, ctx, x1, pm, gT, gY)
+      return { x1, T, y1: point[1], gT, gY }
+    }
     if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, Number.isFinite(T) ? T : startTemperature(c.vp1, c.vp2, lnP, x1))) {
       throw new ThermoError(
         'no-convergence',

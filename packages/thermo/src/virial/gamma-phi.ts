@@ -7,9 +7,10 @@
  */
 import { lnGammaT } from '../activity/kernel.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
-import { dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
+import { dewPressureCompiled, dewTemperatureCompiled } from '../equilibrium/bubble-dew.js'
 import { stabilityOf } from '../equilibrium/stability.js'
 import {
+  checkDomain,
   compileSystem,
   liquidSplitError,
   noConvergence,
@@ -18,11 +19,11 @@ import {
 } from '../equilibrium/system.js'
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'
-import { compileVirial, solveBubbleTGammaPhi, type CompiledVirial } from './kernel.js'
+import { compiledVirial, solveBubblePGammaPhi, solveBubbleTGammaPhi } from './kernel.js'
 import { checkVaporModel, secondVirialCoefficients } from './tsonopoulos.js'
 import type { VaporCorrection, VaporModel } from './virial-types.js'
 
-type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
+export type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
 
 /** Vapour-phase correction factors at T (K), P (Pa), vapour y1, with the pure vapour pressures psat (Pa). */
 export function vaporCorrection(
@@ -78,24 +79,12 @@ function assertSingleLiquid(c: CompiledSystem, x1: number, T: number): void {
   if (s.gaps(T).some((gap) => x1 > gap.xI && x1 < gap.xII)) throw liquidSplitError(c, x1, T)
 }
 const phiBuf = new Float64Array(5)
-const compiledCache = new WeakMap<object, CompiledVirial>()
-
-/** The compiled form of a vapour model, kept while the model object lives (models are treated as immutable). */
-function compiledVirial(v: VirialVapor): CompiledVirial {
-  let cv = compiledCache.get(v)
-  if (!cv) {
-    cv = compileVirial(v)
-    compiledCache.set(v, cv)
-  }
-  return cv
-}
-
 function psatOf(c: CompiledSystem, T: number): [number, number] {
   return [Math.exp(c.vp1.a - c.vp1.b / (T + c.vp1.c)), Math.exp(c.vp2.a - c.vp2.b / (T + c.vp2.c))]
 }
 
 function virialOf(system: BinarySystem, vapor?: VaporModel): VirialVapor {
-  const v = vapor ?? (system as BinarySystem & { vapor?: VaporModel }).vapor
+  const v = vapor ?? system?.vapor
   if (!v || v.kind !== 'virial')
     throw new ThermoError('invalid-model', 'A γ–φ calculation needs a virial vapour model.')
   checkVaporModel(v)
@@ -141,6 +130,13 @@ function settled(
   }
 }
 
+/** The checked virial model and the compiled system of a public γ–φ call. */
+function prepare(system: BinarySystem, vapor?: VaporModel): { c: CompiledSystem; v: VirialVapor } {
+  const v = virialOf(system, vapor)
+  const c = compileSystem(system)
+  return { c: c.gv && c.source.vapor === v ? c : { ...c, gv: compiledVirial(v) }, v }
+}
+
 /**
  * γ–φ bubble temperature at P (Pa) and liquid x1: Newton on ln Σ xi·γi·Pi_sat/Φi − ln P with Φ carried from the
  * last iterate (Φ changes slowly with T), stopped when T moves less than 1e-9 K and y1 less than 1e-12.
@@ -150,12 +146,20 @@ export function bubbleTemperatureGammaPhi(
   at: { P: number; x1: number },
   vapor?: VaporModel,
 ): GammaPhiResult {
-  const v = virialOf(system, vapor)
-  const c = compileSystem(system)
+  const { c, v } = prepare(system, vapor)
   checkPressure(at.P)
   checkMoleFraction(at.x1, 'x1')
-  const { P, x1 } = at
-  if (solveBubbleTGammaPhi(c, compiledVirial(v), Math.log(P), x1, phiBuf)) {
+  return bubbleTemperatureGammaPhiCompiled(c, v, at.P, at.x1)
+}
+
+/** {@link bubbleTemperatureGammaPhi} on a checked system whose `gv` is the compiled form of `v`. */
+export function bubbleTemperatureGammaPhiCompiled(
+  c: CompiledSystem,
+  v: VirialVapor,
+  P: number,
+  x1: number,
+): GammaPhiResult {
+  if (solveBubbleTGammaPhi(c, c.gv!, Math.log(P), x1, phiBuf)) {
     const T = res[0]
     const y1 = res[1]
     const gamma1 = res[2]
@@ -186,28 +190,23 @@ export function bubblePressureGammaPhi(
   at: { T: number; x1: number },
   vapor?: VaporModel,
 ): GammaPhiResult {
-  const v = virialOf(system, vapor)
-  const c = compileSystem(system)
+  const { c, v } = prepare(system, vapor)
   checkTemperature(at.T)
   checkMoleFraction(at.x1, 'x1')
-  const { T, x1 } = at
-  lnGammaT(c.act, x1, T, g)
-  const ps = psatOf(c, T)
-  const a1 = x1 * Math.exp(g[0]) * ps[0]
-  const a2 = (1 - x1) * Math.exp(g[1]) * ps[1]
-  let P = a1 + a2
-  let y1 = a1 / P
-  for (let it = 1; it <= 200; it++) {
-    const corr = vaporCorrection(v, T, P, y1, ps)
-    const Pn = a1 / corr.Phi[0] + a2 / corr.Phi[1]
-    const yn = a1 / corr.Phi[0] / Pn
-    const done = Math.abs(Pn - P) < 1e-11 * Pn && Math.abs(yn - y1) < 1e-13
-    P = Pn
-    y1 = yn
-    if (done) return settled(c, v, { T, P, x1, y1 }, it, x1)
-    if (!Number.isFinite(P)) break
-  }
-  throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
+  return bubblePressureGammaPhiCompiled(c, v, at.T, at.x1)
+}
+
+/** {@link bubblePressureGammaPhi} on a checked system whose `gv` is the compiled form of `v`. */
+export function bubblePressureGammaPhiCompiled(
+  c: CompiledSystem,
+  v: VirialVapor,
+  T: number,
+  x1: number,
+): GammaPhiResult {
+  checkDomain(c, T)
+  if (!solveBubblePGammaPhi(c, c.gv!, T, x1, phiBuf))
+    throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
+  return settled(c, v, { T, P: res[5], x1, y1: res[1] }, res[4], x1)
 }
 
 /** γ–φ dew temperature at P (Pa) and vapour y1: Newton on T with the liquid composition updated by substitution. */
@@ -216,11 +215,19 @@ export function dewTemperatureGammaPhi(
   at: { P: number; y1: number },
   vapor?: VaporModel,
 ): GammaPhiResult {
-  const v = virialOf(system, vapor)
-  const c = compileSystem(system)
+  const { c, v } = prepare(system, vapor)
   checkPressure(at.P)
   checkMoleFraction(at.y1, 'y1')
-  const { P, y1 } = at
+  return dewTemperatureGammaPhiCompiled(c, v, at.P, at.y1)
+}
+
+/** {@link dewTemperatureGammaPhi} on a checked system. */
+export function dewTemperatureGammaPhiCompiled(
+  c: CompiledSystem,
+  v: VirialVapor,
+  P: number,
+  y1: number,
+): GammaPhiResult {
   const y2 = 1 - y1
   const start = dewTemperatureCompiled(c, P, y1)
   let T = start.T
@@ -244,4 +251,40 @@ export function dewTemperatureGammaPhi(
     if (Math.abs(dT) < 1e-9 && dx < 1e-12) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
   throw noConvergence('γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
+}
+
+/** γ–φ dew pressure at T (K) and vapour y1: substitution on P and the liquid composition from the ideal-vapour dew point. */
+export function dewPressureGammaPhi(
+  system: BinarySystem,
+  at: { T: number; y1: number },
+  vapor?: VaporModel,
+): GammaPhiResult {
+  const { c, v } = prepare(system, vapor)
+  checkTemperature(at.T)
+  checkMoleFraction(at.y1, 'y1')
+  return dewPressureGammaPhiCompiled(c, v, at.T, at.y1)
+}
+
+/** {@link dewPressureGammaPhi} on a checked system. */
+export function dewPressureGammaPhiCompiled(c: CompiledSystem, v: VirialVapor, T: number, y1: number): GammaPhiResult {
+  checkDomain(c, T)
+  const y2 = 1 - y1
+  const start = dewPressureCompiled(c, T, y1)
+  let P = start.P
+  let x1 = start.x1
+  const ps = psatOf(c, T)
+  for (let it = 1; it <= 300; it++) {
+    lnGammaT(c.act, x1, T, g)
+    const corr = vaporCorrection(v, T, P, y1, ps)
+    const q1 = y1 > 0 ? (y1 * corr.Phi[0]) / (Math.exp(g[0]) * ps[0]) : 0
+    const q2 = y2 > 0 ? (y2 * corr.Phi[1]) / (Math.exp(g[1]) * ps[1]) : 0
+    const Pn = 1 / (q1 + q2)
+    const xn = q1 * Pn
+    const done = Math.abs(Pn - P) < 1e-11 * Pn && Math.abs(xn - x1) < 1e-12
+    P = Pn
+    x1 = xn
+    if (!Number.isFinite(P)) break
+    if (done) return settled(c, v, { T, P, x1, y1 }, it, y1)
+  }
+  throw noConvergence('γ–φ dew-pressure', `y1 = ${y1} and ${T} K`)
 }

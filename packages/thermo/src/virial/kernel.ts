@@ -6,7 +6,7 @@ import { lnGammaT } from '../activity/kernel.js'
 import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
 import type { CompiledSystem } from '../equilibrium/system.js'
 import { R } from '../types.js'
-import { crossCriticalConstants } from './tsonopoulos.js'
+import { checkVaporModel, crossCriticalConstants } from './tsonopoulos.js'
 import type { VaporModel } from './virial-types.js'
 
 /** A virial vapour reduced to numbers: per component (1, 2, cross) Tc, R·Tc/Pc in m³/mol, ω, a, b. */
@@ -38,6 +38,22 @@ export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): Compi
   }
 }
 
+const compiledCache = new WeakMap<object, CompiledVirial>()
+
+/**
+ * The checked, compiled form of a virial vapour model, kept while the model object lives (models are treated as
+ * immutable). @throws ThermoError 'invalid-model' naming the missing or bad field.
+ */
+export function compiledVirial(v: Extract<VaporModel, { kind: 'virial' }>): CompiledVirial {
+  let cv = compiledCache.get(v)
+  if (!cv) {
+    checkVaporModel(v)
+    cv = compileVirial(v)
+    compiledCache.set(v, cv)
+  }
+  return cv
+}
+
 /** B of entry i (0: B11, 1: B22, 2: B12) at T, m³/mol (Tsonopoulos). */
 function B(k: Float64Array, i: number, T: number): number {
   const o = 5 * i
@@ -52,25 +68,102 @@ function B(k: Float64Array, i: number, T: number): number {
 }
 
 const g = new Float64Array(4)
+const lp = new Float64Array(4)
+
+/** The liquid and vapour-pressure part of a system the kernels need (a CompiledSystem fits). */
+export type KernelSystem = Pick<CompiledSystem, 'act' | 'vp1' | 'vp2'>
 
 /**
- * γ–φ bubble temperature at ln(P/Pa) = lnP and x1. Writes res[0] T, res[1] y1, res[2] γ1, res[3] γ2, res[4]
- * iterations (ideal start + γ–φ), res[5] P; into phiOut: φ̂1, φ̂2, Φ1, Φ2 (of the last iterate) and the vapour's
- * molar volume RT/P + B_mix (m³/mol). @returns false when it does not converge.
+ * ln Φ1, ln Φ2 into out[0], out[1] and ln φ̂1, ln φ̂2 into out[2], out[3] at T (K), P (Pa), vapour y1, with the
+ * vapour pressures ps1, ps2 (Pa): ln φ̂i = P(Bii + yj²δ12)/RT, ln Φi = ln φ̂i − [Bii·Pi_sat + V_L,i(P − Pi_sat)]/RT.
+ * @returns the vapour's B_mix (m³/mol).
+ */
+export function lnPhiFactors(
+  v: CompiledVirial,
+  T: number,
+  P: number,
+  y1: number,
+  ps1: number,
+  ps2: number,
+  out: Float64Array,
+): number {
+  const b11 = B(v.k, 0, T)
+  const b22 = B(v.k, 1, T)
+  const b12 = B(v.k, 2, T)
+  const d12 = 2 * b12 - b11 - b22
+  const rt = R * T
+  const y2 = 1 - y1
+  out[2] = (P * (b11 + y2 * y2 * d12)) / rt
+  out[3] = (P * (b22 + y1 * y1 * d12)) / rt
+  out[0] = out[2] - (b11 * ps1 + v.VL1 * (P - ps1)) / rt
+  out[1] = out[3] - (b22 * ps2 + v.VL2 * (P - ps2)) / rt
+  return y1 * y1 * b11 + 2 * y1 * y2 * b12 + y2 * y2 * b22
+}
+
+/**
+ * Partial derivatives of ln Φ1, ln Φ2 at a γ–φ state, for implicit derivatives in fitting:
+ * out[0], out[1] ∂/∂T (1/K, vapour pressures following T, numerically), out[2], out[3] ∂/∂y1, out[4], out[5] ∂/∂ln P.
+ */
+export function lnPhiDerivatives(
+  c: Pick<KernelSystem, 'vp1' | 'vp2'>,
+  v: CompiledVirial,
+  T: number,
+  P: number,
+  y1: number,
+  out: Float64Array,
+): void {
+  const h = 1e-4 * T
+  const at = (t: number) => {
+    lnPhiFactors(v, t, P, y1, psat(c.vp1, t), psat(c.vp2, t), lp)
+  }
+  at(T + h)
+  const up1 = lp[0]
+  const up2 = lp[1]
+  at(T - h)
+  out[0] = (up1 - lp[0]) / (2 * h)
+  out[1] = (up2 - lp[1]) / (2 * h)
+  const b11 = B(v.k, 0, T)
+  const b22 = B(v.k, 1, T)
+  const d12 = 2 * B(v.k, 2, T) - b11 - b22
+  const rt = R * T
+  const y2 = 1 - y1
+  out[2] = (-2 * P * y2 * d12) / rt
+  out[3] = (2 * P * y1 * d12) / rt
+  out[4] = (P * (b11 + y2 * y2 * d12 - v.VL1)) / rt
+  out[5] = (P * (b22 + y1 * y1 * d12 - v.VL2)) / rt
+}
+
+function psat(vp: { a: number; b: number; c: number }, T: number): number {
+  return Math.exp(vp.a - vp.b / (T + vp.c))
+}
+
+/**
+ * γ–φ bubble temperature at ln(P/Pa) = lnP and x1, from T0 (default: the ideal-vapour bubble point). Writes res[0]
+ * T, res[1] y1, res[2] γ1, res[3] γ2, res[4] iterations (ideal start + γ–φ), res[5] P; into phiOut: φ̂1, φ̂2, Φ1, Φ2
+ * (of the last iterate) and the vapour's molar volume RT/P + B_mix (m³/mol). @returns false when it does not converge.
  */
 export function solveBubbleTGammaPhi(
-  c: CompiledSystem,
+  c: KernelSystem,
   v: CompiledVirial,
   lnP: number,
   x1: number,
   phiOut: Float64Array,
+  T0?: number,
 ): boolean {
-  if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))) return false
+  let T: number
+  let y1: number
+  let start = 0
+  if (T0 === undefined) {
+    if (!solveBubbleT(c.act, c.vp1, c.vp2, lnP, x1, startTemperature(c.vp1, c.vp2, lnP, x1))) return false
+    T = res[0]
+    y1 = res[1]
+    start = res[4]
+  } else {
+    T = T0
+    y1 = x1
+  }
   const P = Math.exp(lnP)
   const x2 = 1 - x1
-  let T = res[0]
-  let y1 = res[1]
-  const start = res[4]
   const { vp1, vp2 } = c
   for (let it = 1; it <= 100; it++) {
     lnGammaT(c.act, x1, T, g)
@@ -78,39 +171,77 @@ export function solveBubbleTGammaPhi(
     const d2 = T + vp2.c
     const ps1 = Math.exp(vp1.a - vp1.b / d1)
     const ps2 = Math.exp(vp2.a - vp2.b / d2)
-    const b11 = B(v.k, 0, T)
-    const b22 = B(v.k, 1, T)
-    const d12 = 2 * B(v.k, 2, T) - b11 - b22
-    const rt = R * T
-    const y2 = 1 - y1
-    // ln Φi = [P(Bii + yj²δ12) − Bii·Pi_sat − V_L(P − Pi_sat)]/RT
-    const lnPhi1 = (P * (b11 + y2 * y2 * d12) - b11 * ps1 - v.VL1 * (P - ps1)) / rt
-    const lnPhi2 = (P * (b22 + y1 * y1 * d12) - b22 * ps2 - v.VL2 * (P - ps2)) / rt
-    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lnPhi1) * ps1 : 0
-    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lnPhi2) * ps2 : 0
+    const bMix = lnPhiFactors(v, T, P, y1, ps1, ps2, lp)
+    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lp[0]) * ps1 : 0
+    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lp[1]) * ps2 : 0
     const S = k1 + k2
     const fp = (k1 * (g[2] + vp1.b / (d1 * d1)) + k2 * (g[3] + vp2.b / (d2 * d2))) / S
     const dT = -Math.log(S / P) / fp
     const yn = k1 / S
     const dy = yn - y1
-    y1 = yn
     if (!Number.isFinite(dT)) return false
-    T += dT > 20 ? 20 : dT < -20 ? -20 : dT
     if (dT < 1e-9 && dT > -1e-9 && dy < 1e-12 && dy > -1e-12) {
-      res[0] = T
-      res[1] = y1
+      res[0] = T + dT
+      res[1] = yn
       res[2] = Math.exp(g[0])
       res[3] = Math.exp(g[1])
       res[4] = start + it
       res[5] = P
-      phiOut[0] = Math.exp((P * (b11 + y2 * y2 * d12)) / rt)
-      phiOut[1] = Math.exp((P * (b22 + y1 * y1 * d12)) / rt)
-      phiOut[2] = Math.exp(lnPhi1)
-      phiOut[3] = Math.exp(lnPhi2)
+      phiOut[0] = Math.exp(lp[2])
+      phiOut[1] = Math.exp(lp[3])
+      phiOut[2] = Math.exp(lp[0])
+      phiOut[3] = Math.exp(lp[1])
       // molar volume of the vapour, m³/mol, for the validity check: RT/P + B_mix
-      phiOut[4] = rt / P + y1 * y1 * b11 + 2 * y1 * y2 * (0.5 * (d12 + b11 + b22)) + y2 * y2 * b22
+      phiOut[4] = (R * T) / P + bMix
       return true
     }
+    y1 = yn
+    T += dT > 20 ? 20 : dT < -20 ? -20 : dT
+  }
+  return false
+}
+
+/**
+ * γ–φ bubble pressure at T (K) and x1 by substitution on P and y1 (a few steps below ~1 MPa). Writes res[] as
+ * {@link solveBubbleTGammaPhi} (res[0] = T, res[5] = P) and phiOut[0..3] = φ̂1, φ̂2, Φ1, Φ2. @returns false when it does
+ * not settle.
+ */
+export function solveBubblePGammaPhi(
+  c: KernelSystem,
+  v: CompiledVirial,
+  T: number,
+  x1: number,
+  phiOut: Float64Array,
+): boolean {
+  lnGammaT(c.act, x1, T, g)
+  const ps1 = psat(c.vp1, T)
+  const ps2 = psat(c.vp2, T)
+  const a1 = x1 > 0 ? x1 * Math.exp(g[0]) * ps1 : 0
+  const a2 = x1 < 1 ? (1 - x1) * Math.exp(g[1]) * ps2 : 0
+  let P = a1 + a2
+  let y1 = a1 / P
+  for (let it = 1; it <= 200; it++) {
+    lnPhiFactors(v, T, P, y1, ps1, ps2, lp)
+    const q1 = a1 * Math.exp(-lp[0])
+    const Pn = q1 + a2 * Math.exp(-lp[1])
+    const yn = q1 / Pn
+    const done = Math.abs(Pn - P) < 1e-11 * Pn && Math.abs(yn - y1) < 1e-13
+    P = Pn
+    y1 = yn
+    if (done) {
+      res[0] = T
+      res[1] = y1
+      res[2] = Math.exp(g[0])
+      res[3] = Math.exp(g[1])
+      res[4] = it
+      res[5] = P
+      phiOut[0] = Math.exp(lp[2])
+      phiOut[1] = Math.exp(lp[3])
+      phiOut[2] = Math.exp(lp[0])
+      phiOut[3] = Math.exp(lp[1])
+      return true
+    }
+    if (!Number.isFinite(P)) return false
   }
   return false
 }

@@ -80,10 +80,18 @@ export function crossCriticalConstants(
 
 /** Check a virial vapour model once; throws ThermoError 'invalid-model' naming the missing or bad field. */
 export function checkVaporModel(v: VaporModel): void {
-  if (v.kind === 'ideal') return
-  if (v.kind !== 'virial' || v.correlation !== 'tsonopoulos') {
+  if (v?.kind === 'ideal') return
+  if (v?.kind !== 'virial' || v.correlation !== 'tsonopoulos') {
     throw new ThermoError('invalid-model', 'The vapour model must be ideal or a Tsonopoulos virial vapour.')
   }
+  if (
+    !Array.isArray(v.components) ||
+    v.components.length !== 2 ||
+    !v.components.every((c) => c && typeof c === 'object')
+  )
+    throw new ThermoError('invalid-model', 'A virial vapour needs the critical data of both components.')
+  if (v.k12 !== undefined && !(Number.isFinite(v.k12) && Math.abs(v.k12) < 1))
+    throw new ThermoError('invalid-model', `The cross parameter k12 must be a number between −1 and 1; got ${v.k12}.`)
   v.components.forEach((c, i) => {
     for (const key of ['Tc', 'Pc', 'omega', 'Vc'] as const) {
       const value = c[key]

@@ -35,7 +35,7 @@ const cases: [string, () => unknown, string][] = [
   [
     'y1 negative',
     () => fitBinary({ points: withPoint({ y1: -0.01 }), vaporPressure, model: 'nrtl' }),
-    'Point 2: vapour mole fraction y1 must be between 0 and 1; got -0.01.',
+    'Point 2: vapour mole fraction y1 must be between 0 and 1, or null when no vapour was sampled; got -0.01.',
   ],
   [
     'T not finite',
@@ -65,7 +65,7 @@ const cases: [string, () => unknown, string][] = [
   [
     'unknown objective',
     () => fitBinary({ points: good, vaporPressure, model: 'nrtl', objective: 'dew' as never }),
-    'Unknown objective "dew"; choose bubble-point or activity.',
+    'Unknown objective "dew"; choose bubble-point, bubble-pressure or activity.',
   ],
   [
     'Wilson volumes',

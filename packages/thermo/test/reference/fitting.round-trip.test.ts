@@ -174,7 +174,7 @@ describe('outliers and excluded points', () => {
   it('an excluded outlier does not move the fit but is still reported and flagged', () => {
     const points = generate(c.system, 7)
     const clean = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
-    points[5] = { ...points[5], y1: points[5].y1 + 0.05, excluded: true }
+    points[5] = { ...points[5], y1: points[5].y1! + 0.05, excluded: true }
     const fit = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     const others = clean.parameters.map((p) => p.value)
     // Removing one of 24 points shifts the estimates by well under one standard error.
@@ -182,7 +182,7 @@ describe('outliers and excluded points', () => {
     expect(fit.residuals[5].excluded).toBe(true)
     expect(fit.residuals[5].flagged).toBe(true)
     // y raised by 0.05 reads about +0.05 (measured − calculated).
-    expect(Math.abs(fit.residuals[5].dy - 0.05)).toBeLessThan(0.02)
+    expect(Math.abs(fit.residuals[5].dy! - 0.05)).toBeLessThan(0.02)
   })
   it('leverages of the fitted rows add up to the number of parameters', () => {
     const fit = fitBinary({
@@ -198,7 +198,7 @@ describe('outliers and excluded points', () => {
     const nrtl = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'nrtl', alpha: pw.alpha })
     const margules = fitBinary({ points, vaporPressure: c.system.vaporPressure, model: 'margules' })
     expect(nrtl.residuals[24].leverage).toBe(0)
-    expect(Math.abs(nrtl.residuals[24].dT)).toBeLessThan(0.01)
+    expect(Math.abs(nrtl.residuals[24].dT!)).toBeLessThan(0.01)
     expect(nrtl.aic).toBeLessThan(margules.aic)
   })
 })

@@ -64,7 +64,7 @@ describe('residual plot option: measured − calculated', () => {
     // The fit leans a little towards the raised point, so a bit under 1 K; the sign is what this checks.
     expect(drawn).toBeGreaterThan(0.7)
     expect(drawn).toBeLessThan(1.05)
-    expect(drawn).toBeCloseTo(r.residuals[raised].dT, 12)
+    expect(drawn).toBeCloseTo(r.residuals[raised].dT!, 12)
   })
 })
 
