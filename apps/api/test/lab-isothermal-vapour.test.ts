@@ -220,7 +220,7 @@ describe('the vapour model of a data set', () => {
     ] as const) {
       const r = await lab.analyst.post('/api/data-sets').send({ ...base, vaporModel })
       expect(r.status).toBe(422)
-      expect(JSON.stringify(r.body.error.details)).toContain(message)
+      expect(r.body.error.details.map((d: { message: string }) => d.message)).toContain(message)
       expect(JSON.stringify(r.body)).not.toContain('<img')
     }
     const tText = await lab.analyst
