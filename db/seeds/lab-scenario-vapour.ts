@@ -20,8 +20,8 @@ import { DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { runCsv } from './gc-generator.js'
 import type { SeedContext } from './lab.js'
 
-export const ISOTHERMAL_TITLE = 'Static cell: acetone/methanol at 55 °C'
-export const VIRIAL_TITLE = 'Column feed, virial vapour: methanol/water at 1 atm'
+export const ISOTHERMAL_TITLE = 'Static cell at 55 °C: acetone + methanol'
+export const VIRIAL_TITLE = 'Recovery column feed with a virial vapour: methanol + water at 1 atm'
 
 const exists = async (ctx: SeedContext, title: string) =>
   !!(await ctx.db.selectFrom('data_set').select('id').where('title', '=', title).executeTakeFirst())

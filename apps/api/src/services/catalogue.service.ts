@@ -27,6 +27,13 @@ const ROOM_T = 298.15
 export const DESIGN_CAUTION =
   "Preliminary estimate from equilibrium data (modified Raoult's law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer's review."
 
+/** The caution worded for the vapour model the curve was computed with. */
+export function cautionFor(vapor: { kind: string } | null | undefined): string {
+  return vapor?.kind === 'virial'
+    ? DESIGN_CAUTION.replace("modified Raoult's law, ideal vapour", 'γ–φ, virial vapour (Tsonopoulos)')
+    : DESIGN_CAUTION
+}
+
 /** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit; paged in SQL. */
 export async function catalogue(
   db: Db,
@@ -168,7 +175,7 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
     P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
     ...curveOf(binarySystem(inputs, chosen.activity), o.P, o.points),
-    caution: DESIGN_CAUTION,
+    caution: cautionFor(chosen.vapor),
   }
 }
 

@@ -15,7 +15,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { listConsistency, listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { findReport, insertReport } from '../repositories/reports.repository.js'
-import { DESIGN_CAUTION } from './catalogue.service.js'
+import { cautionFor } from './catalogue.service.js'
 import { contentDigest } from './digest.js'
 import { computedOn, pointSetOf, withStale } from './point-set.js'
 import { fileStem } from './exports.service.js'
@@ -104,7 +104,7 @@ async function gatherReport(
     approvals,
     digest,
     outlierIds: [...approvals].reverse().find((a) => a.meaning === 'approved')?.outliers?.pointIds ?? [],
-    caution: DESIGN_CAUTION,
+    caution: cautionFor(d.vaporModel),
   }
 }
 
