@@ -25,12 +25,13 @@ import { scenarioDataSets } from './lab-scenario.js'
 import { vapourAndIsothermalDataSets } from './lab-scenario-vapour.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { calibrationCsv } from './gc-generator.js'
+import { jointScenario } from './joint-scenario.js'
 import { DEMO_USERS } from './users.js'
 
 export interface SeedContext {
   db: Kysely<Database>
   config: Config
-  users: Record<'analyst' | 'lead' | 'reviewer' | 'engineer' | 'admin', SessionUser>
+  users: Record<'analyst' | 'lead' | 'lead2' | 'reviewer' | 'engineer' | 'admin', SessionUser>
   systemIds: Record<string, string>
 }
 
@@ -57,6 +58,7 @@ function sessionUsers(ids: Record<string, string>): SeedContext['users'] {
   return {
     analyst: by('analyst@demo.ebullio.test'),
     lead: by('lead@demo.ebullio.test'),
+    lead2: by('lead2@demo.ebullio.test'),
     reviewer: by('reviewer@demo.ebullio.test'),
     engineer: by('engineer@demo.ebullio.test'),
     admin: by('admin@demo.ebullio.test'),
@@ -142,5 +144,6 @@ export async function seedLab(db: Kysely<Database>, ids: Record<string, string>)
   const components = await seedComponents(kdb, users.admin.id)
   const systemIds = await seedSystemsAndCalibrations({ db: kdb, config, users }, components)
   await scenarioDataSets({ db: kdb, config, users, systemIds })
+  await jointScenario({ db: kdb, config, users, systemIds })
   await vapourAndIsothermalDataSets({ db: kdb, config, users, systemIds })
 }
