@@ -332,7 +332,9 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
     points: quality.points.map((q) => ({ ...q, pointId: all[q.index].id, sample: all[q.index].sampleLabel })),
   }
   const runs = [
-    ...(area ? [[area.test === 'redlich-kister' ? 'redlich-kister-area' : 'herington-area', area, area.passed] as const] : []),
+    ...(area
+      ? [[area.test === 'redlich-kister' ? 'redlich-kister-area' : 'herington-area', area, area.passed] as const]
+      : []),
     ...(point ? [['point', { ...point, model }, point.passed] as const] : []),
     ...(qualityResult ? [['quality-score', qualityResult, qualityResult.quality >= QUALITY_PASS] as const] : []),
   ]
