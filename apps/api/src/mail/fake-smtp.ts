@@ -1,5 +1,3 @@
-import { simpleParser } from 'mailparser'
-import { SMTPServer } from 'smtp-server'
 import type { Kysely } from 'kysely'
 import type { Database } from '../db/index.js'
 import { insertCapturedMail } from '../repositories/captured-mail.repository.js'
@@ -8,13 +6,21 @@ import { insertCapturedMail } from '../repositories/captured-mail.repository.js'
  * A local SMTP server for development and tests: it accepts every message on loopback and stores it in
  * `captured_mail`, where admins can read it in the app and tests can follow its links. Like a real server for a
  * domain that does not exist, it refuses for good (550) any recipient under `.invalid`, the top-level domain that
- * RFC 2606 reserves as never resolvable: that is how a permanently failing mail is made on purpose.
+ * RFC 2606 reserves as never resolvable: that is how a permanently failing mail is made on purpose. Its two
+ * packages are development dependencies, loaded only when the capture starts (a production install does without them).
  */
 export async function startFakeSmtp(
   db: Kysely<Database>,
   port: number,
   host = '127.0.0.1',
 ): Promise<{ port: number; close: () => Promise<void> }> {
+  const [{ SMTPServer }, { simpleParser }] = await Promise.all([import('smtp-server'), import('mailparser')]).catch(
+    (e: Error) => {
+      throw new Error(
+        `The mail capture (FAKE_SMTP) needs the development packages smtp-server and mailparser: ${e.message}`,
+      )
+    },
+  )
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],

@@ -1,5 +1,6 @@
 /** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
 import { bandSeries, suggestionSeries } from './band-series'
+import { literatureTxySeries, type LiteratureSeries } from './literature-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import {
   azeotropeTxySeries,
@@ -62,6 +63,8 @@ export interface TxyOptionInput {
    * it is not converted), named by `symbol` and `unit` in tooltips and by `axis` on the axis.
    */
   ordinate?: PxyOrdinate | null
+  /** literature data sets of the system, each with its own legend entry */
+  literature?: LiteratureSeries[] | null
 }
 
 /** How a P–x–y plot names its ordinate. */
@@ -232,6 +235,7 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     ...o.curves.map((c) => c.name),
     ...(o.threePhase ? [THREE_PHASE_NAME] : []),
     ...(o.twoLiquids ? [TWO_LIQUID_NAME] : []),
+    ...(o.literature ?? []).map((l) => l.name),
   ]
   const { legend, top } = legendFor(names, selected)
   return {
@@ -245,6 +249,12 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
     yAxis: valueAxis(o.ordinate ? o.ordinate.axis : tLabel(o.unit), { scale: true, nameGap: 44 }),
-    series: [...extraSeries(o), ...curveSeries(o), ...measuredSeries(o), ...markerSeries(o)],
+    series: [
+      ...extraSeries(o),
+      ...curveSeries(o),
+      ...literatureTxySeries(o.literature ?? [], o.unit),
+      ...measuredSeries(o),
+      ...markerSeries(o),
+    ],
   }
 }
