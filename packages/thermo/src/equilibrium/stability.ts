@@ -53,6 +53,45 @@ export function coarseMinimumThermodynamicFactor(act: ActivityModel, T: number):
   return best
 }
 
+/**
+ * The smallest Γ on the coarse grid, polished by golden section between the lowest node's neighbours (in the logit
+ * of x1): the exact local minimum there, so a value well above 0 proves that no liquid can split at T (a split needs
+ * Γ < 0 somewhere) without the convex-hull search.
+ */
+export function polishedMinimumThermodynamicFactor(act: ActivityModel, T: number): number {
+  let best = Infinity
+  let at = 0
+  for (let i = 0; i < COARSE.length; i++) {
+    const v = gammaFactor(act, COARSE[i], T)
+    if (v < best) [best, at] = [v, i]
+  }
+  const logit = (x: number) => Math.log(x / (1 - x))
+  const f = (u: number) => gammaFactor(act, 1 / (1 + Math.exp(-u)), T)
+  let a = logit(COARSE[Math.max(0, at - 1)])
+  let b = logit(COARSE[Math.min(COARSE.length - 1, at + 1)])
+  const r = (Math.sqrt(5) - 1) / 2
+  let c = b - r * (b - a)
+  let d = a + r * (b - a)
+  let fc = f(c)
+  let fd = f(d)
+  for (let k = 0; k < 24; k++) {
+    if (fc < fd) {
+      b = d
+      d = c
+      fd = fc
+      c = b - r * (b - a)
+      fc = f(c)
+    } else {
+      a = c
+      c = d
+      fc = fd
+      d = a + r * (b - a)
+      fd = f(d)
+    }
+  }
+  return Math.min(best, fc, fd)
+}
+
 function snapshot(act: ActivityModel): number[] {
   switch (act.kind) {
     case 'ideal':
