@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { lnGammaT, nrtlTauGradient } from './kernel.js'
+import { lnGammaT, nrtlDlnGamma1Dx1, nrtlTauGradient } from './kernel.js'
 import { R } from '../types.js'
 import type { ActivityModel } from '../types.js'
 
@@ -73,6 +73,31 @@ describe('NRTL parameter gradient (fits’ Jacobians)', () => {
         },
       ),
       { numRuns: 200, seed: 11 },
+    )
+  })
+})
+
+describe('NRTL ∂ln γ1/∂x1 (liquid-stability screens)', () => {
+  it('agrees with central differences in x1', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.001, max: 0.999, noNaN: true }),
+        fc.double({ min: 280, max: 450, noNaN: true }),
+        fc.double({ min: -2000, max: 9000, noNaN: true }),
+        fc.double({ min: -2000, max: 9000, noNaN: true }),
+        fc.double({ min: 0.1, max: 0.7, noNaN: true }),
+        (x1, T, b12, b21, alpha) => {
+          const m = { kind: 'nrtl' as const, b12, b21, alpha, b12T: 3, b21T: -2 }
+          const g = new Float64Array(4)
+          const h = 1e-6 * Math.min(x1, 1 - x1)
+          lnGammaT(m, x1 + h, T, g)
+          const up = g[0]
+          lnGammaT(m, x1 - h, T, g)
+          const fd = (up - g[0]) / (2 * h)
+          expect(nrtlDlnGamma1Dx1(m, x1, T)).toBeCloseTo(fd, Math.max(0, 4 - Math.ceil(Math.log10(Math.abs(fd) + 1))))
+        },
+      ),
+      { numRuns: 300, seed: 5 },
     )
   })
 })
