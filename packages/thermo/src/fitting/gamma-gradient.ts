@@ -17,16 +17,23 @@ export interface Perturbed {
   gradient?: (model: ActivityModel, x1: number, T: number, out: Float64Array) => void
 }
 
-/** Models at p + h·e_j for forward differences in the parameters, with their steps h (and the analytic gradient). */
-export function perturbedModels(layout: ParameterLayout, p: Float64Array): Perturbed {
+/**
+ * Models at p + h·e_j for forward differences in the parameters, with their steps h (and the analytic gradient).
+ * With `needModels` false and an analytic gradient, the perturbed models are not built (only three-phase rows,
+ * which difference whole three-phase solves, need them).
+ */
+export function perturbedModels(layout: ParameterLayout, p: Float64Array, needModels = true): Perturbed {
   const models: ActivityModel[] = []
   const steps: number[] = []
+  const build = needModels || !layout.gradient
   const q = Float64Array.from(p)
   for (let j = 0; j < p.length; j++) {
     const h = 1e-6 * Math.max(Math.abs(p[j]), layout.scales[j])
-    q[j] = p[j] + h
-    models.push(layout.build(q))
-    q[j] = p[j]
+    if (build) {
+      q[j] = p[j] + h
+      models.push(layout.build(q))
+      q[j] = p[j]
+    }
     steps.push(h)
   }
   return { base: layout.build(p), models, steps, ...(layout.gradient ? { gradient: layout.gradient } : {}) }
@@ -48,4 +55,3 @@ export function lnGammaSensitivities(
     out[2 * j + 1] = (g[1] - base2) / pm.steps[j]
   }
 }
-

@@ -147,7 +147,7 @@ export function bubbleProblem(
     jacobian(p, r, J) {
       if (!layout.valid(p)) return false
       const model = layout.build(p)
-      const pm = perturbedModels(layout, p)
+      const pm = perturbedModels(layout, p, d.het !== undefined)
       for (let i = 0; i < d.n; i++) {
         if (!solve(model, i)) return false
         fill(r, i)
