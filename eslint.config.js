@@ -51,23 +51,27 @@ export default tseslint.config(
     rules: { '@typescript-eslint/no-explicit-any': 'off' },
   },
   {
-    // Layering (DEVELOPERS.md): only repositories build queries, so only they (and db/, migrations, tests) import
-    // kysely's values; a type import (a transaction's type) builds nothing and is allowed. The modules listed under
-    // `ignores` still build their own queries (session store, mail outbox, metrics, rate limits, one catalogue
-    // query): moving them into repositories is open work, and removing a line here turns the rule on for it.
+    // Layering (DEVELOPERS.md): routes → services → repositories, and only repositories build queries. Outside
+    // repositories and db/ (the connection and table types), kysely may be imported for types only (a
+    // transaction's type builds nothing), and no code starts a query or writes raw SQL.
     files: ['apps/api/src/**/*.ts'],
-    ignores: [
-      'apps/api/src/repositories/**',
-      'apps/api/src/db/**',
-      'apps/api/src/auth/index.ts',
-      'apps/api/src/mail/mailer.ts',
-      'apps/api/src/ops/**',
-      'apps/api/src/services/catalogue.service.ts',
-    ],
+    ignores: ['apps/api/src/repositories/**', 'apps/api/src/db/**'],
     rules: {
       '@typescript-eslint/no-restricted-imports': [
         'error',
         { paths: [{ name: 'kysely', message: 'Only repositories build queries.', allowTypeImports: true }] },
+      ],
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector:
+            'CallExpression[callee.property.name=/^(selectFrom|selectNoFrom|insertInto|updateTable|deleteFrom|mergeInto|replaceInto)$/]',
+          message: 'Only repositories build queries: add a function to a repository and call it.',
+        },
+        {
+          selector: "TaggedTemplateExpression[tag.name='sql']",
+          message: 'Only repositories write SQL: add a function to a repository and call it.',
+        },
       ],
     },
   },

@@ -70,6 +70,7 @@ async function announceWhenReady() {
   Demo sign-ins (DEMO ONLY, invented lab; password for all: ebullio-demo-2026)
     analyst       analyst@demo.ebullio.test
     lead chemist  lead@demo.ebullio.test
+    2nd lead      lead2@demo.ebullio.test
     reviewer      reviewer@demo.ebullio.test
     engineer      engineer@demo.ebullio.test
     admin         admin@demo.ebullio.test

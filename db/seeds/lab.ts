@@ -24,12 +24,13 @@ import { commitCalibration, createGcMethod } from '../../apps/api/src/services/c
 import { scenarioDataSets } from './lab-scenario.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { calibrationCsv } from './gc-generator.js'
+import { jointScenario } from './joint-scenario.js'
 import { DEMO_USERS } from './users.js'
 
 export interface SeedContext {
   db: Kysely<Database>
   config: Config
-  users: Record<'analyst' | 'lead' | 'reviewer' | 'engineer' | 'admin', SessionUser>
+  users: Record<'analyst' | 'lead' | 'lead2' | 'reviewer' | 'engineer' | 'admin', SessionUser>
   systemIds: Record<string, string>
 }
 
@@ -56,6 +57,7 @@ function sessionUsers(ids: Record<string, string>): SeedContext['users'] {
   return {
     analyst: by('analyst@demo.ebullio.test'),
     lead: by('lead@demo.ebullio.test'),
+    lead2: by('lead2@demo.ebullio.test'),
     reviewer: by('reviewer@demo.ebullio.test'),
     engineer: by('engineer@demo.ebullio.test'),
     admin: by('admin@demo.ebullio.test'),
@@ -141,4 +143,5 @@ export async function seedLab(db: Kysely<Database>, ids: Record<string, string>)
   const components = await seedComponents(kdb, users.admin.id)
   const systemIds = await seedSystemsAndCalibrations({ db: kdb, config, users }, components)
   await scenarioDataSets({ db: kdb, config, users, systemIds })
+  await jointScenario({ db: kdb, config, users, systemIds })
 }

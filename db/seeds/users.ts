@@ -12,6 +12,8 @@ export const DEMO_PASSWORD = 'ebullio-demo-2026'
 export const DEMO_USERS = [
   { email: 'analyst@demo.ebullio.test', displayName: 'Mira Okonkwo', roles: ['analyst'] },
   { email: 'lead@demo.ebullio.test', displayName: 'Dr. Tobias Lindqvist', roles: ['lead_chemist'] },
+  // A second lead chemist, so a parameter set one of them fits can be signed by the other (four-eyes).
+  { email: 'lead2@demo.ebullio.test', displayName: 'Dr. Amara Nwosu', roles: ['lead_chemist'] },
   { email: 'reviewer@demo.ebullio.test', displayName: 'Priya Raman', roles: ['reviewer'] },
   { email: 'engineer@demo.ebullio.test', displayName: 'Jonas Ferreira', roles: ['engineer'] },
   { email: 'admin@demo.ebullio.test', displayName: 'Elena Vasquez', roles: ['admin'] },

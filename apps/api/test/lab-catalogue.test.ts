@@ -16,21 +16,25 @@ afterAll(() => t.close())
 
 describe('catalogue', () => {
   it('lists only systems with approved or superseded versions, one page at a time', async () => {
-    // demo: acetone/methanol and water/1-butanol approved; n-hexane/n-heptane v2 approved superseding v1; the other
-    // three systems unapproved
+    // demo: acetone/methanol, methanol/water (1 atm and 40 kPa, with a recommended parameter set) and water/1-butanol
+    // approved; n-hexane/n-heptane v2 approved superseding v1; the other two systems unapproved
     const all = await engineer.get('/api/catalogue').expect(200)
-    expect(all.body.total).toBe(3)
+    expect(all.body.total).toBe(4)
     expect(all.body.items.map((i: { system: { name: string } }) => i.system.name)).toEqual([
       'acetone / methanol',
+      'methanol / water',
       'n-hexane / n-heptane',
       'water / 1-butanol',
     ])
+    expect(
+      all.body.items.map((i: { recommendedSet: { label: string } | null }) => i.recommendedSet?.label ?? null),
+    ).toEqual([null, 'NRTL (joint, 2 data sets)', null, null])
     const p1 = await engineer.get('/api/catalogue').query({ pageSize: 1 }).expect(200)
     const p2 = await engineer.get('/api/catalogue').query({ pageSize: 1, page: 2 }).expect(200)
-    expect([p1.body.total, p2.body.total]).toEqual([3, 3])
+    expect([p1.body.total, p2.body.total]).toEqual([4, 4])
     expect([...p1.body.items, ...p2.body.items].map((i: { system: { name: string } }) => i.system.name)).toEqual([
       'acetone / methanol',
-      'n-hexane / n-heptane',
+      'methanol / water',
     ])
     const hex = await engineer.get('/api/catalogue').query({ q: 'heptane' }).expect(200)
     expect(hex.body.total).toBe(1)

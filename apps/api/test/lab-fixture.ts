@@ -151,6 +151,9 @@ export async function labCounts(t: TestContext): Promise<Record<string, number>>
     'approval',
     'audit_log',
     'mail_outbox',
+    'joint_fit',
+    'joint_fit_member',
+    'joint_fit_approval',
   ]
   const out: Record<string, number> = {}
   for (const name of tables) {

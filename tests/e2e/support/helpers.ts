@@ -5,6 +5,7 @@ export const DEMO_PASSWORD = 'ebullio-demo-2026'
 export const DEMO = {
   analyst: 'analyst@demo.ebullio.test',
   lead: 'lead@demo.ebullio.test',
+  lead2: 'lead2@demo.ebullio.test',
   reviewer: 'reviewer@demo.ebullio.test',
   engineer: 'engineer@demo.ebullio.test',
   admin: 'admin@demo.ebullio.test',

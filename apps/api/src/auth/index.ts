@@ -1,7 +1,8 @@
 import type { Role } from '@ebullio/schemas'
-import { sql, type Kysely } from 'kysely'
+import type { Kysely } from 'kysely'
 import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
+import * as sessions from '../repositories/sessions.repository.js'
 import { generateSessionToken, sessionIdOf } from './session-token.js'
 
 export { hashPassword, verifyPassword, dummyHash } from './password.js'
@@ -12,6 +13,8 @@ export interface SessionUser {
   email: string
   displayName: string
   roles: Role[]
+  /** Whether the user wants mail notifications; read with the session (absent where a user is built otherwise). */
+  notifyMail?: boolean
 }
 
 const COOKIE = 'ebullio_session'
@@ -57,10 +60,11 @@ export class Sessions {
   /** Start a session; returns the Set-Cookie value. */
   async create(userId: string, db: Db = this.db): Promise<string> {
     const token = generateSessionToken()
-    await db
-      .insertInto('user_session')
-      .values({ id: sessionIdOf(token), user_id: userId, expires_at: new Date(Date.now() + this.idleMs) })
-      .execute()
+    await sessions.insertSession(db, {
+      id: sessionIdOf(token),
+      userId,
+      expiresAt: new Date(Date.now() + this.idleMs),
+    })
     return this.cookie(token, Math.floor(this.idleMs / 1000))
   }
 
@@ -73,41 +77,29 @@ export class Sessions {
     const token = readCookie(cookieHeader, COOKIE)
     if (!token) return { user: null }
     const id = sessionIdOf(token)
-    const row = await db
-      .selectFrom('user_session as s')
-      .innerJoin('app_user as u', 'u.id', 's.user_id')
-      .select([
-        's.expires_at',
-        's.created_at',
-        'u.id',
-        'u.email',
-        'u.display_name',
-        'u.active',
-        sql<
-          Role[]
-        >`coalesce((select array_agg(r.role order by r.role) from user_role r where r.user_id = u.id), '{}')`.as(
-          'roles',
-        ),
-      ])
-      .where('s.id', '=', id)
-      .executeTakeFirst()
+    const row = await sessions.findSessionWithUser(db, id)
     if (!row) return { user: null, setCookie: this.blankCookie() }
     const now = Date.now()
     const ageHours = (now - row.created_at.getTime()) / 3.6e6
     if (!row.active || row.expires_at.getTime() <= now || ageHours > this.config.sessionAbsoluteHours) {
-      await db.deleteFrom('user_session').where('id', '=', id).execute()
+      await sessions.deleteSession(db, id)
       return { user: null, setCookie: this.blankCookie() }
     }
     let setCookie: string | undefined
     if (row.expires_at.getTime() - now < this.idleMs / 2) {
-      await db
-        .updateTable('user_session')
-        .set({ expires_at: new Date(now + this.idleMs) })
-        .where('id', '=', id)
-        .execute()
+      await sessions.extendSession(db, id, new Date(now + this.idleMs))
       setCookie = this.cookie(token, Math.floor(this.idleMs / 1000))
     }
-    return { user: { id: row.id, email: row.email, displayName: row.display_name, roles: row.roles }, setCookie }
+    return {
+      user: {
+        id: row.id,
+        email: row.email,
+        displayName: row.display_name,
+        roles: row.roles,
+        notifyMail: row.notify_mail,
+      },
+      setCookie,
+    }
   }
 
   /** The stored id of the session a cookie header carries (null without one). */
@@ -118,14 +110,12 @@ export class Sessions {
 
   async end(cookieHeader: string | undefined): Promise<void> {
     const id = this.idFromCookie(cookieHeader)
-    if (id) await this.db.deleteFrom('user_session').where('id', '=', id).execute()
+    if (id) await sessions.deleteSession(this.db, id)
   }
 
   /** End every session of a user, except (optionally) the one this cookie header carries. */
   async endAllFor(userId: string, exceptCookieHeader?: string, db: Db = this.db): Promise<void> {
     const keep = exceptCookieHeader ? this.idFromCookie(exceptCookieHeader) : null
-    let q = db.deleteFrom('user_session').where('user_id', '=', userId)
-    if (keep) q = q.where('id', '<>', keep)
-    await q.execute()
+    await sessions.deleteSessionsOf(db, userId, keep)
   }
 }

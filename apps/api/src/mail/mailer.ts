@@ -1,8 +1,9 @@
 import nodemailer, { type Transporter } from 'nodemailer'
-import { sql, type Kysely } from 'kysely'
+import type { Kysely } from 'kysely'
 import type { Logger } from 'pino'
 import type { Database } from '../db/index.js'
 import type { OutboxMail } from '../db/auth-tables.js'
+import { claimDueMail, markMailFailed, markMailSent } from '../repositories/mail-outbox.repository.js'
 
 export interface MailerOptions {
   /** Connection, greeting and socket timeout of one SMTP conversation (a hanging server costs at most this). */
@@ -68,17 +69,7 @@ export class Mailer {
   private async claim(): Promise<OutboxMail | null> {
     // A lease long enough for one SMTP conversation (three timeouts) plus a margin.
     const leaseMs = this.timeoutMs * 3 + 30_000
-    const { rows } = await sql<OutboxMail>`
-      update mail_outbox
-         set claimed_until = now() + ${leaseMs} * interval '1 millisecond', attempts = attempts + 1
-       where id = (select id from mail_outbox
-                    where sent_at is null and failed_at is null and next_attempt_at <= now()
-                      and (claimed_until is null or claimed_until < now())
-                    order by next_attempt_at, id
-                    limit 1
-                    for update skip locked)
-      returning *`.execute(this.db)
-    return rows[0] ?? null
+    return claimDueMail(this.db, leaseMs)
   }
 
   private async deliver(): Promise<number> {
@@ -88,11 +79,7 @@ export class Mailer {
       if (!m) break
       try {
         await this.transport.sendMail({ from: this.from, to: m.to_address, subject: m.subject, text: m.body_text })
-        await this.db
-          .updateTable('mail_outbox')
-          .set({ sent_at: new Date(), claimed_until: null, last_error: null })
-          .where('id', '=', m.id)
-          .execute()
+        await markMailSent(this.db, m.id)
         sent++
       } catch (err) {
         const permanent = isPermanent(err)
@@ -103,16 +90,11 @@ export class Mailer {
           { mailId: m.id, attempts: m.attempts, permanent, giveUp, error: message },
           giveUp ? 'mail delivery given up' : 'mail delivery failed; will retry',
         )
-        await this.db
-          .updateTable('mail_outbox')
-          .set({
-            claimed_until: null,
-            last_error: message,
-            next_attempt_at: new Date(Date.now() + waitMinutes * 60_000),
-            failed_at: giveUp ? new Date() : null,
-          })
-          .where('id', '=', m.id)
-          .execute()
+        await markMailFailed(this.db, m.id, {
+          lastError: message,
+          nextAttemptAt: new Date(Date.now() + waitMinutes * 60_000),
+          failedAt: giveUp ? new Date() : null,
+        })
       }
     }
     return sent

@@ -1,8 +1,9 @@
 import type { RequestHandler } from 'express'
-import { sql, type Kysely } from 'kysely'
+import type { Kysely } from 'kysely'
 import type pg from 'pg'
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client'
 import type { Database } from '../db/index.js'
+import { outboxStats } from '../repositories/mail-outbox.repository.js'
 
 /** Prometheus metrics of one app: requests, latency per route, errors, outbox depth and age, pool usage. */
 export function createMetrics(db: Kysely<Database>, pool?: pg.Pool, withProcessMetrics = false) {
@@ -69,13 +70,7 @@ export function createMetrics(db: Kysely<Database>, pool?: pg.Pool, withProcessM
   // One outbox query per scrape, shared by the three gauges.
   let cached: Promise<{ pending: number; oldestSeconds: number; failed: number }> | null = null
   function outbox() {
-    cached ??= sql<{ pending: number; oldest: number | null; failed: number }>`
-      select count(*) filter (where sent_at is null and failed_at is null)::int as pending,
-             extract(epoch from now() - min(created_at) filter (where sent_at is null and failed_at is null))::float8 as oldest,
-             count(*) filter (where failed_at is not null)::int as failed
-        from mail_outbox`
-      .execute(db)
-      .then(({ rows }) => ({ pending: rows[0].pending, oldestSeconds: rows[0].oldest ?? 0, failed: rows[0].failed }))
+    cached ??= outboxStats(db)
       .catch(() => ({ pending: Number.NaN, oldestSeconds: Number.NaN, failed: Number.NaN }))
       .finally(() => setTimeout(() => (cached = null), 0))
     return cached

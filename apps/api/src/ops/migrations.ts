@@ -1,8 +1,8 @@
 import { existsSync, readdirSync } from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
-import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
+import { appliedMigrationNames } from '../repositories/migrations.repository.js'
 
 /** The repository's db/migrations folder, found upwards from this file (works from src/ and from the built dist/). */
 export function migrationsDir(start = path.dirname(fileURLToPath(import.meta.url))): string | null {
@@ -27,7 +27,6 @@ export function expectedMigrations(dir = migrationsDir()): string[] {
 
 /** Migrations this build knows that the database has not applied (throws when the database cannot be reached). */
 export async function pendingMigrations(db: Db): Promise<string[]> {
-  const { rows } = await sql<{ name: string }>`select name from kysely_migration`.execute(db)
-  const applied = new Set(rows.map((r) => r.name))
+  const applied = new Set(await appliedMigrationNames(db))
   return expectedMigrations().filter((m) => !applied.has(m))
 }

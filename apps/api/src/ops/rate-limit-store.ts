@@ -1,6 +1,7 @@
-import { sql, type Kysely } from 'kysely'
+import type { Kysely } from 'kysely'
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit'
 import type { Database } from '../db/index.js'
+import * as limits from '../repositories/rate-limits.repository.js'
 
 /**
  * An express-rate-limit store in PostgreSQL (table `rate_limit_hit`), so every replica counts against the same
@@ -25,43 +26,25 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const row = await this.db
-      .selectFrom('rate_limit_hit')
-      .select(['hits', 'reset_at'])
-      .where('key', '=', this.k(key))
-      .where('reset_at', '>', sql<Date>`now()`)
-      .executeTakeFirst()
+    const row = await limits.findCurrentHits(this.db, this.k(key))
     return row ? { totalHits: row.hits, resetTime: row.reset_at } : undefined
   }
 
   async increment(key: string): Promise<ClientRateLimitInfo> {
-    const window = sql`${this.windowMs} * interval '1 millisecond'`
-    const { rows } = await sql<{ hits: number; reset_at: Date }>`
-      insert into rate_limit_hit as r (key, hits, reset_at) values (${this.k(key)}, 1, now() + ${window})
-      on conflict (key) do update set
-        hits = case when r.reset_at <= now() then 1 else r.hits + 1 end,
-        reset_at = case when r.reset_at <= now() then now() + ${window} else r.reset_at end
-      returning hits, reset_at`.execute(this.db)
-    return { totalHits: rows[0].hits, resetTime: rows[0].reset_at }
+    const row = await limits.countHit(this.db, this.k(key), this.windowMs)
+    return { totalHits: row.hits, resetTime: row.reset_at }
   }
 
   async decrement(key: string): Promise<void> {
-    await this.db
-      .updateTable('rate_limit_hit')
-      .set({ hits: sql`greatest(hits - 1, 0)` })
-      .where('key', '=', this.k(key))
-      .execute()
+    await limits.uncountHit(this.db, this.k(key))
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.db.deleteFrom('rate_limit_hit').where('key', '=', this.k(key)).execute()
+    await limits.deleteHits(this.db, this.k(key))
   }
 
   /** Expired windows are deleted now and then (by whichever replica hits the limiter). */
   async sweep(): Promise<void> {
-    await this.db
-      .deleteFrom('rate_limit_hit')
-      .where('reset_at', '<', sql<Date>`now() - interval '1 hour'`)
-      .execute()
+    await limits.deleteExpiredHits(this.db)
   }
 }

@@ -1,4 +1,5 @@
 import type { Db } from '../db/index.js'
+import { listApprovedSignatures } from '../repositories/approvals.repository.js'
 import { contentDigest } from '../services/digest.js'
 
 export interface SignatureCheck {
@@ -11,12 +12,7 @@ export interface SignatureCheck {
  * signature ("approved") stored for it. Used by the restore drill on a restored copy of the database.
  */
 export async function verifyAllSignatures(db: Db): Promise<SignatureCheck> {
-  const approvals = await db
-    .selectFrom('approval')
-    .select(['id', 'data_set_id', 'digest'])
-    .where('meaning', '=', 'approved')
-    .orderBy('id')
-    .execute()
+  const approvals = await listApprovedSignatures(db)
   const current = new Map<string, string | null>()
   const mismatches: SignatureCheck['mismatches'] = []
   for (const a of approvals) {

@@ -93,3 +93,13 @@ export async function displayNamesOf(db: Db, ids: string[]): Promise<Map<string,
   const rows = await db.selectFrom('app_user').select(['id', 'display_name']).where('id', 'in', ids).execute()
   return new Map(rows.map((r) => [r.id, r.display_name]))
 }
+
+/** Every "approved" signature (id, data set, signed digest), oldest first: what the restore drill re-verifies. */
+export async function listApprovedSignatures(db: Db) {
+  return db
+    .selectFrom('approval')
+    .select(['id', 'data_set_id', 'digest'])
+    .where('meaning', '=', 'approved')
+    .orderBy('id')
+    .execute()
+}

@@ -425,3 +425,8 @@ export async function calibrationsOfDataSet(db: Db, dataSetId: string): Promise<
     ids.map((r) => r.calibration_id!),
   )
 }
+
+/** A GC method's status, its row locked for the rest of the transaction (undefined: no such method). */
+export async function lockGcMethod(db: Db, id: string) {
+  return db.selectFrom('gc_method').select(['id', 'status']).where('id', '=', id).forUpdate().executeTakeFirst()
+}

@@ -1,4 +1,5 @@
 import type { DataSetDto } from '@ebullio/schemas'
+import type { ActivityModel } from '@ebullio/thermo'
 import { sql } from 'kysely'
 import type { Db } from '../db/index.js'
 import type { DataSet, DataSetState } from '../db/lab-tables.js'
@@ -256,4 +257,33 @@ export async function updateDataSet(
 
 export async function deleteDataSet(db: Db, id: string): Promise<void> {
   await db.deleteFrom('data_set').where('id', '=', id).execute()
+}
+
+/**
+ * The approved and superseded versions of these systems, newest version first, each with its recommended fit
+ * (id, model, parameters, activity model and statistics; null when none): the catalogue's rows.
+ */
+export async function listSignedVersionsOfSystems(db: Db, systemIds: string[]) {
+  if (systemIds.length === 0) return []
+  return db
+    .selectFrom('data_set as d')
+    .leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
+    .select([
+      'd.id',
+      'd.system_id',
+      'd.version',
+      'd.state',
+      'd.title',
+      'd.nominal_pressure_pa',
+      'd.approved_at',
+      'f.id as fit_id',
+      'f.model',
+      'f.parameters',
+      sql<ActivityModel | null>`f.activity`.as('activity'),
+      sql<unknown>`f.statistics`.as('statistics'),
+    ])
+    .where('d.state', 'in', ['approved', 'superseded'])
+    .where('d.system_id', 'in', systemIds)
+    .orderBy('d.version', 'desc')
+    .execute()
 }

@@ -112,3 +112,94 @@ export async function passwordHashOf(db: Db, userId: string): Promise<string | n
   const u = await db.selectFrom('app_user').select('password_hash').where('id', '=', userId).executeTakeFirst()
   return u?.password_hash ?? null
 }
+
+export async function insertUser(
+  db: Db,
+  u: { id: string; email: string; displayName: string; passwordHash: string | null },
+): Promise<void> {
+  await db
+    .insertInto('app_user')
+    .values({ id: u.id, email: u.email.toLowerCase(), display_name: u.displayName, password_hash: u.passwordHash })
+    .execute()
+}
+
+export async function setPasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
+  await db
+    .updateTable('app_user')
+    .set({ password_hash: passwordHash, updated_at: new Date() })
+    .where('id', '=', userId)
+    .execute()
+}
+
+/** Activate or deactivate an account; answers whether the account exists. */
+export async function setUserActive(db: Db, userId: string, active: boolean): Promise<boolean> {
+  const r = await db
+    .updateTable('app_user')
+    .set({ active, updated_at: new Date() })
+    .where('id', '=', userId)
+    .executeTakeFirst()
+  return Number(r.numUpdatedRows) > 0
+}
+
+export async function setNotifyMail(db: Db, userId: string, notifyMail: boolean): Promise<void> {
+  await db
+    .updateTable('app_user')
+    .set({ notify_mail: notifyMail, updated_at: new Date() })
+    .where('id', '=', userId)
+    .execute()
+}
+
+/** The single-use token tables: invitations and password resets (only the token's SHA-256 is stored). */
+export type TokenTable = 'invite' | 'password_reset'
+
+export async function insertToken(
+  db: Db,
+  table: TokenTable,
+  t: { tokenHash: string; userId: string; expiresAt: Date },
+): Promise<void> {
+  await db.insertInto(table).values({ token_hash: t.tokenHash, user_id: t.userId, expires_at: t.expiresAt }).execute()
+}
+
+/** Mark an unused, unexpired token used in one statement; answers its user, or undefined when there is none. */
+export async function useToken(db: Db, table: TokenTable, tokenHash: string): Promise<string | undefined> {
+  const row = await db
+    .updateTable(table)
+    .set({ used_at: new Date() })
+    .where('token_hash', '=', tokenHash)
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', new Date())
+    .returning('user_id')
+    .executeTakeFirst()
+  return row?.user_id
+}
+
+/** Every outstanding (unused) password-reset token of a user stops working. */
+export async function useAllResetTokens(db: Db, userId: string): Promise<void> {
+  await db
+    .updateTable('password_reset')
+    .set({ used_at: new Date() })
+    .where('user_id', '=', userId)
+    .where('used_at', 'is', null)
+    .execute()
+}
+
+/** The account an unused, unexpired invitation is for (undefined: no such invitation). */
+export async function findOpenInvite(db: Db, tokenHash: string) {
+  return db
+    .selectFrom('invite')
+    .innerJoin('app_user', 'app_user.id', 'invite.user_id')
+    .select(['app_user.email', 'app_user.display_name'])
+    .where('token_hash', '=', tokenHash)
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', new Date())
+    .executeTakeFirst()
+}
+
+/** Where notification mail for a user goes, and whether it may (active account that wants mail). */
+export async function mailPreferenceOf(db: Db, userId: string) {
+  return db
+    .selectFrom('app_user')
+    .select(['email', 'notify_mail', 'active'])
+    .where('id', '=', userId)
+    .executeTakeFirst()
+}

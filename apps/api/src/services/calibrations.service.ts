@@ -156,12 +156,7 @@ export async function commitCalibration(
   const cal = preview.calibration!
   return db.transaction().execute(async (tx) => {
     // the method may have been retired since the preview above; the row lock makes the check and the insert one step
-    const locked = await tx
-      .selectFrom('gc_method')
-      .select('status')
-      .where('id', '=', req.gcMethodId)
-      .forUpdate()
-      .executeTakeFirst()
+    const locked = await repo.lockGcMethod(tx, req.gcMethodId)
     if (locked?.status === 'retired') throw conflict(RETIRED_METHOD_MESSAGE)
     // checked again under the lock: someone may have committed another calibration since the preview
     const replaces = await activeSummary(tx, req.gcMethodId, req.systemId)
@@ -256,12 +251,7 @@ export async function retireCalibration(db: Db, actorId: string, id: string): Pr
  */
 export async function retireGcMethod(db: Kysely<Database>, actorId: string, id: string): Promise<repo.GcMethodRecord> {
   return db.transaction().execute(async (tx) => {
-    const m = await tx
-      .selectFrom('gc_method')
-      .select(['id', 'status'])
-      .where('id', '=', id)
-      .forUpdate()
-      .executeTakeFirst()
+    const m = await repo.lockGcMethod(tx, id)
     if (!m) throw notFound('There is no such GC method.')
     if (m.status === 'retired') throw conflict('This GC method is already retired.')
     const calibrationIds = await repo.retireMethodCalibrations(tx, id)

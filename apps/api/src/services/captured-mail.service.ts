@@ -5,6 +5,7 @@
  */
 import { WEB_PATHS } from '@ebullio/schemas'
 import type { Db } from '../db/index.js'
+import { listCapturedMailRows } from '../repositories/captured-mail.repository.js'
 
 export const MASKED_TOKEN = '[hidden: only the addressee sees this link]'
 
@@ -31,7 +32,7 @@ const addressees = (envelopeTo: string) =>
 
 /** The latest captured mails; bodies masked unless the viewer is the (only) addressee. */
 export async function listCapturedMail(db: Db, viewer: { email: string }) {
-  const rows = await db.selectFrom('captured_mail').selectAll().orderBy('id', 'desc').limit(200).execute()
+  const rows = await listCapturedMailRows(db)
   const me = viewer.email.toLowerCase()
   return rows.map((m) => {
     const to = addressees(m.envelope_to)
@@ -39,6 +40,3 @@ export async function listCapturedMail(db: Db, viewer: { email: string }) {
     return { ...m, body_text: own ? m.body_text : maskTokens(m.body_text), masked: !own }
   })
 }
-
-/** Mail the outbox could not deliver, for the admin's outbox page (no rule applies). */
-export { listUndeliveredMail } from '../repositories/mail-outbox.repository.js'

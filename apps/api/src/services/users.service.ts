@@ -32,15 +32,8 @@ export async function createUser(
 ): Promise<string> {
   if (await users.findUserByEmail(db, o.email)) throw conflict('A user with this e-mail address already exists.')
   const id = randomUUID()
-  await db
-    .insertInto('app_user')
-    .values({
-      id,
-      email: o.email.toLowerCase(),
-      display_name: o.displayName,
-      password_hash: o.password ? await hashPassword(o.password) : null,
-    })
-    .execute()
+  const passwordHash = o.password ? await hashPassword(o.password) : null
+  await users.insertUser(db, { id, email: o.email, displayName: o.displayName, passwordHash })
   await users.setRoles(db, id, o.roles)
   return id
 }
@@ -52,10 +45,7 @@ async function issueToken(
   minutes: number,
 ): Promise<string> {
   const { token, tokenHash } = newToken()
-  await db
-    .insertInto(table)
-    .values({ token_hash: tokenHash, user_id: userId, expires_at: new Date(Date.now() + minutes * 60_000) })
-    .execute()
+  await users.insertToken(db, table, { tokenHash, userId, expiresAt: new Date(Date.now() + minutes * 60_000) })
   return token
 }
 
@@ -90,27 +80,13 @@ export async function inviteUser(
 
 /** Consume a single-use token: returns its user, or throws the same message for unknown, used and expired links. */
 async function consumeToken(db: Db, table: 'invite' | 'password_reset', token: string): Promise<string> {
-  const row = await db
-    .updateTable(table)
-    .set({ used_at: new Date() })
-    .where('token_hash', '=', hashToken(token))
-    .where('used_at', 'is', null)
-    .where('expires_at', '>', new Date())
-    .returning('user_id')
-    .executeTakeFirst()
-  if (!row) throw new AppError(400, 'invalid_link', BAD_LINK)
-  return row.user_id
+  const userId = await users.useToken(db, table, hashToken(token))
+  if (!userId) throw new AppError(400, 'invalid_link', BAD_LINK)
+  return userId
 }
 
 export async function peekInvite(db: Db, token: string): Promise<{ email: string; displayName: string }> {
-  const row = await db
-    .selectFrom('invite')
-    .innerJoin('app_user', 'app_user.id', 'invite.user_id')
-    .select(['app_user.email', 'app_user.display_name'])
-    .where('token_hash', '=', hashToken(token))
-    .where('used_at', 'is', null)
-    .where('expires_at', '>', new Date())
-    .executeTakeFirst()
+  const row = await users.findOpenInvite(db, hashToken(token))
   if (!row) throw new AppError(400, 'invalid_link', BAD_LINK)
   return { email: row.email, displayName: row.display_name }
 }
@@ -119,11 +95,7 @@ export async function acceptInvite(db: Kysely<Database>, token: string, password
   const passwordHash = await hashPassword(password)
   return db.transaction().execute(async (tx) => {
     const userId = await consumeToken(tx, 'invite', token)
-    await tx
-      .updateTable('app_user')
-      .set({ password_hash: passwordHash, updated_at: new Date() })
-      .where('id', '=', userId)
-      .execute()
+    await users.setPasswordHash(tx, userId, passwordHash)
     await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'accept invite' })
     return userId
   })
@@ -156,17 +128,8 @@ export async function resetPassword(
   await db.transaction().execute(async (tx) => {
     const id = await consumeToken(tx, 'password_reset', token)
     // Any other reset link of this user still outstanding stops working too.
-    await tx
-      .updateTable('password_reset')
-      .set({ used_at: new Date() })
-      .where('user_id', '=', id)
-      .where('used_at', 'is', null)
-      .execute()
-    await tx
-      .updateTable('app_user')
-      .set({ password_hash: passwordHash, updated_at: new Date() })
-      .where('id', '=', id)
-      .execute()
+    await users.useAllResetTokens(tx, id)
+    await users.setPasswordHash(tx, id, passwordHash)
     await appendAudit(tx, { actorId: id, entity: 'app_user', entityId: id, action: 'reset password' })
     await sessions.endAllFor(id, undefined, tx)
   })
@@ -185,11 +148,7 @@ export async function changePassword(
   if (!u || !(await verifyPassword(u.password_hash, current))) throw badRequest('Your current password is not correct.')
   const passwordHash = await hashPassword(next)
   await atomically(db, async (tx) => {
-    await tx
-      .updateTable('app_user')
-      .set({ password_hash: passwordHash, updated_at: new Date() })
-      .where('id', '=', userId)
-      .execute()
+    await users.setPasswordHash(tx, userId, passwordHash)
     await appendAudit(tx, { actorId: userId, entity: 'app_user', entityId: userId, action: 'change password' })
     await sessions.endAllFor(userId, currentCookieHeader, tx)
   })
@@ -205,12 +164,7 @@ export async function setActive(
   if (actorId === userId && !active) throw badRequest('You cannot deactivate your own account.')
   await atomically(db, async (tx) => {
     const before = await users.findUserById(tx, userId)
-    const r = await tx
-      .updateTable('app_user')
-      .set({ active, updated_at: new Date() })
-      .where('id', '=', userId)
-      .executeTakeFirst()
-    if (Number(r.numUpdatedRows) === 0) throw notFound('No such user.')
+    if (!(await users.setUserActive(tx, userId, active))) throw notFound('No such user.')
     await appendAudit(tx, {
       actorId,
       entity: 'app_user',
@@ -246,11 +200,7 @@ export async function setNotifyMail(db: Db, userId: string, notifyMail: boolean)
   await atomically(db, async (tx) => {
     const before = await users.findUserById(tx, userId)
     if (!before) throw notFound('No such user.')
-    await tx
-      .updateTable('app_user')
-      .set({ notify_mail: notifyMail, updated_at: new Date() })
-      .where('id', '=', userId)
-      .execute()
+    await users.setNotifyMail(tx, userId, notifyMail)
     await appendAudit(tx, {
       actorId: userId,
       entity: 'app_user',

@@ -27,6 +27,12 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: { title: 'Data set', roles: ['analyst', 'lead_chemist', 'reviewer'] },
   },
   {
+    path: WEB_PATHS.labSystem,
+    name: 'lab-system',
+    component: () => import('../views/systems/LabSystemView.vue'),
+    meta: { title: 'System', roles: ['analyst', 'lead_chemist', 'reviewer', 'admin'] },
+  },
+  {
     path: WEB_PATHS.instrumentChecks,
     name: 'checks',
     component: () => import('../views/checks/InstrumentChecksView.vue'),
@@ -111,6 +117,16 @@ export const appRoutes: RouteRecordRaw[] = [
       title: 'Captured mail',
       roles: ['admin'],
       nav: { group: 'Administration', label: 'Captured mail', icon: 'pi pi-envelope', order: 43, devOnly: true },
+    },
+  },
+  {
+    path: WEB_PATHS.adminOutbox,
+    name: 'admin-outbox',
+    component: () => import('../views/admin/UndeliveredMailView.vue'),
+    meta: {
+      title: 'Undelivered mail',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'Undelivered mail', icon: 'pi pi-exclamation-circle', order: 44 },
     },
   },
   {

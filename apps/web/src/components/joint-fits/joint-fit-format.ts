@@ -1,0 +1,58 @@
+/** Pure helpers of the joint-fit screens (lab system page and the engineer's view); no engine code. */
+import { jointFitLabel, type JointFitDto } from '@ebullio/schemas'
+
+/** The set's name as every screen and export gives it: "NRTL (joint, 2 data sets)". */
+export function jointLabel(f: Pick<JointFitDto, 'model' | 'members' | 'options'>, note?: string): string {
+  return jointFitLabel(
+    {
+      model: f.model,
+      dataSetCount: f.members.length,
+      temperatureDependent: f.options.temperatureDependent !== false,
+    },
+    note,
+  )
+}
+
+/** Units of the fitted parameters (thermo's names): energies J/mol, their temperature terms J/(mol·K). */
+export function parameterUnit(name: string): string {
+  if (/^[ab](12|21)T$/.test(name)) return 'J/(mol·K)'
+  if (/^[ab](12|21)$/.test(name)) return 'J/mol'
+  return '1'
+}
+
+export const STATE_WORDS: Record<JointFitDto['state'], string> = {
+  draft: 'Draft',
+  submitted: 'Awaiting signature',
+  approved: 'Recommended for the system',
+  superseded: 'Superseded',
+}
+
+export const STATE_SEVERITY: Record<JointFitDto['state'], 'secondary' | 'warn' | 'success' | 'contrast'> = {
+  draft: 'secondary',
+  submitted: 'warn',
+  approved: 'success',
+  superseded: 'contrast',
+}
+
+/** "1234.5 ± 12.3" with the standard error to 2 significant figures and the value to the same decimal place. */
+export function valueWithError(value: number, se: number | null): string {
+  if (se === null || !Number.isFinite(se) || se <= 0) return value.toPrecision(5)
+  const decimals = Math.max(0, 1 - Math.floor(Math.log10(se)))
+  return `${value.toFixed(decimals)} ± ${se.toFixed(decimals)}`.replace(/-/g, '−')
+}
+
+/** Parameters as table rows with their units. */
+export function parameterRows(f: Pick<JointFitDto, 'parameters'>) {
+  return f.parameters.map((p) => ({
+    name: p.name,
+    value: p.value,
+    standardError: p.standardError,
+    shown: valueWithError(p.value, p.standardError),
+    unit: parameterUnit(p.name),
+  }))
+}
+
+/** A failure in words for the screen: the server's message, or what went wrong. */
+export function errorText(e: unknown): string {
+  return e instanceof Error ? e.message : String(e)
+}

@@ -1,0 +1,82 @@
+import { expect, test, type Page } from '@playwright/test'
+import { DEMO, DEMO_PASSWORD, signIn, signOut } from './support/helpers'
+import { snap } from './support/lab'
+
+// Journey: one lead chemist fits one parameter set to the two approved methanol/water data sets of the demo
+// (1 atm and 40 kPa; INVENTED points from published NRTL parameters plus GC noise) and submits it; the second lead
+// chemist signs it as the system's recommended set (superseding the demo's); the engineer's curve uses it and warns
+// outside the pressures it was fitted on.
+const SYSTEM = 'methanol / water'
+const ATM = 'Vacuum column study: methanol/water at 1 atm'
+const VACUUM = 'Vacuum column study: methanol/water at 40 kPa'
+
+async function openLabSystem(page: Page) {
+  await page.goto('/datasets')
+  await page.getByLabel('Search').fill('Vacuum column study')
+  const row = page.getByTestId('datasets-table').locator('tbody tr').filter({ hasText: VACUUM }).first()
+  await row.getByRole('link', { name: SYSTEM }).click()
+  await expect(page.getByTestId('lab-system-title')).toHaveText('methanol / water')
+}
+
+test('a lead chemist fits one set to two pressures and submits it, a second one signs it, the engineer uses it', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.lead)
+  await openLabSystem(page)
+  // The demo's signed set (NRTL, run by the second lead chemist) is the system's recommended one so far.
+  await expect(page.getByTestId('lab-system-recommended')).toHaveText('NRTL (joint, 2 data sets)')
+
+  const form = page.getByTestId('joint-run-form')
+  await form.locator('li').filter({ hasText: ATM }).getByRole('checkbox').check()
+  await form.locator('li').filter({ hasText: VACUUM }).getByRole('checkbox').check()
+  await page.getByTestId('joint-model').getByText('Wilson').click()
+  await page.getByTestId('joint-run').click()
+
+  const panel = page.locator('[data-test^="joint-fit-"]').first()
+  await expect(panel.getByTestId('joint-label')).toHaveText('Wilson (joint, 2 data sets)')
+  await expect(panel.getByTestId('joint-state')).toHaveText('Draft')
+  // Four parameters with standard errors: the energies and their temperature terms.
+  for (const name of ['a12', 'a21', 'a12T', 'a21T'])
+    await expect(panel.getByTestId(`joint-param-${name}`)).toContainText('±')
+  await expect(panel.getByTestId('joint-param-a12T')).toContainText('J/(mol·K)')
+  await expect(panel.getByTestId('joint-members').locator('tbody tr')).toHaveCount(2)
+  // The range is that of the measured points (their barometer readings scatter about 40 and 101.325 kPa).
+  await expect(panel.getByTestId('joint-range')).toHaveText(/^(39|40)\.\d\d kPa to 10[12]\.\d\d kPa, /)
+  // One plot per data set, each against the joint model at its own pressure.
+  await expect(panel.locator('[data-test^="joint-plot-"] canvas')).toHaveCount(2)
+  await snap(page, 'joint-01-run')
+
+  await panel.getByTestId('joint-submit').click()
+  await expect(page.getByTestId('joint-notice')).toContainText('is submitted')
+  await expect(panel.getByTestId('joint-state')).toHaveText('Awaiting signature')
+
+  // The lead chemist who ran it may not sign it (four-eyes): the server says why.
+  await panel.getByTestId('joint-sign').click()
+  await page.locator('#js-password').fill(DEMO_PASSWORD)
+  await page.getByTestId('joint-sign-reason').fill('mine')
+  await page.getByTestId('joint-sign-confirm').click()
+  await expect(page.getByTestId('joint-sign-error')).toHaveText(
+    'You ran the joint fit; another lead chemist must sign this parameter set.',
+  )
+  await page.getByRole('button', { name: 'Cancel' }).click()
+  await signOut(page)
+
+  await signIn(page, DEMO.lead2)
+  await openLabSystem(page)
+  const submitted = page.locator('[data-test^="joint-fit-"]').first()
+  await expect(submitted.getByTestId('joint-state')).toHaveText('Awaiting signature')
+  await submitted.getByTestId('joint-sign').click()
+  await expect(page.getByTestId('joint-sign-covers')).toContainText(VACUUM)
+  await snap(page, 'joint-02-sign-dialog')
+  await page.locator('#js-password').fill(DEMO_PASSWORD)
+  await page
+    .getByTestId('joint-sign-reason')
+    .fill('Wilson reproduces both pressures; recommended for the column study.')
+  await page.getByTestId('joint-sign-confirm').click()
+  await expect(page.getByTestId('joint-notice')).toContainText("is now the system's recommended parameter set")
+  await expect(submitted.getByTestId('joint-state')).toHaveText('Recommended for the system')
+  await expect(submitted.getByTestId('joint-signatures')).toContainText('Dr. Amara Nwosu signed')
+  await expect(page.getByTestId('lab-system-recommended')).toHaveText('Wilson (joint, 2 data sets)')
+  await snap(page, 'joint-03-signed')
+  await signOut(page)
+})
