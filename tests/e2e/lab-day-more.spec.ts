@@ -193,7 +193,8 @@ test('where to measure next: a range at a dilute end, a distance from the points
   await call(page.request, 'post', `/api/data-sets/${d.id}/fits`, {
     models: ['margules', 'van-laar', 'wilson', 'nrtl'],
   })
-  await call(page.request, 'post', `/api/data-sets/${d.id}/fits`, { models: ['wilson', 'nrtl'] })
+  for (const nrtl of [{ alpha: 0.2 }, { alpha: 0.47 }, { fitAlpha: true }])
+    await call(page.request, 'post', `/api/data-sets/${d.id}/fits`, { models: ['nrtl'], ...nrtl })
   await page.goto(`/datasets/${d.id}`)
   // six fits' curves are computed in the browser: on a busy machine the first paint can take a while
   await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible({ timeout: 30_000 })
@@ -218,5 +219,14 @@ test('where to measure next: a range at a dilute end, a distance from the points
   await panel.getByTestId('suggestion-exclusion').locator('input').press('Tab')
   await expect(panel.getByTestId('next-compositions').locator('li').first()).toBeVisible()
   await expect(panel).not.toContainText('widen the range or shorten the distance')
+  // every fit is in the residual legends at once: a plain legend, no paging arrows
+  await expect(page.getByTestId('residual-t')).toBeVisible()
   await snapBoth(page, 'lab-52-measure-next-and-fit-table')
+  // a chosen point's details get a wider side column
+  await page.getByTestId('points-table').locator('tbody tr').filter({ hasText: 'L3' }).click()
+  await expect(page.getByTestId('point-details')).toContainText('Point 3 · L3')
+  const box = await page.getByTestId('point-details').boundingBox()
+  expect(box!.width).toBeGreaterThan(340)
+  await page.getByTestId('point-details').scrollIntoViewIfNeeded()
+  await snap(page, 'lab-53-point-details-desktop')
 })

@@ -184,6 +184,16 @@ describe('where to measure next', () => {
     const far = await lab.lead.get(url).query({ exclusion: 0.7 })
     expect(far.status).toBe(422)
     expect(far.body.error.details).toEqual([{ path: 'exclusion', message: 'exclusion must be 0–0.5 (x1)' }])
+    // text where a number belongs (a formula, markup, a NUL byte, a long string) is refused, never echoed as markup
+    for (const bad of ['=1+1', '<b>0.1</b>', '9'.repeat(400)]) {
+      const r = await lab.lead.get(url).query({ from: bad })
+      expect(r.status, bad).toBe(422)
+      expect(r.body.error.details[0].path).toBe('from')
+      expect(JSON.stringify(r.body)).not.toContain('<b>')
+    }
+    // a NUL byte is refused at the door (middleware/invalid-text.ts), before any parsing
+    const nul = await lab.lead.get(url).query({ from: '0.1\u0000' })
+    expect(nul.status).toBe(400)
   })
 
   it('refuses an unknown criterion, naming the field', async () => {
@@ -233,7 +243,8 @@ describe('pure-component check', () => {
   it('comes with the consistency tests', async () => {
     const r = await lab.analyst.post(`/api/data-sets/${ds.id}/consistency`).send({ model: 'wilson' })
     expect(r.status, JSON.stringify(r.body)).toBe(201)
-    expect(r.body.items).toHaveLength(2)
+    // the area test, the point test and the data-quality score
+    expect(r.body.items.map((i: { test: string }) => i.test)).toEqual(['herington-area', 'point', 'quality-score'])
     expect(r.body.pureComponent.checks).toHaveLength(2)
     expect(r.body.pureComponent.passed).toBe(false)
   })

@@ -22,6 +22,8 @@ export interface XyOptionInput {
   literature?: LiteratureSeries[] | null
   /** compositions to measure next, drawn at their predicted y1 and numbered best first */
   suggested?: TxySuggestion[] | null
+  /** width the legend may use, px (default: a half-width plot's) */
+  legendWidthPx?: number
 }
 
 const STEP = '#b0452b'
@@ -206,7 +208,7 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
     ...(o.literature ?? []).map((l) => l.name),
     ...(suggested.length ? [MEASURE_NEXT_NAME] : []),
   ]
-  const { legend, top } = legendFor(names, selected)
+  const { legend, top } = legendFor(names, selected, o.legendWidthPx)
   return {
     ...base,
     legend,
