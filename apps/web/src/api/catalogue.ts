@@ -2,7 +2,15 @@
  * The engineers' catalogue of approved systems and what can be downloaded from an approved data set
  * (issue 5's catalogue and export routes). T in K, P in Pa, compositions as mole fractions of component 1.
  */
-import type { ApprovedVersionDto, CatalogueEntryDto, ComponentDto, FitDto, PointDto, SystemDto } from '@ebullio/schemas'
+import type {
+  ApprovedVersionDto,
+  CatalogueEntryDto,
+  ComponentDto,
+  FitDto,
+  PointDto,
+  RecommendedParameterSetDto,
+  SystemDto,
+} from '@ebullio/schemas'
 import { api, query } from './client'
 
 /** A pure component as the catalogue shows it (the API's own wire type, from @ebullio/schemas). */
@@ -40,6 +48,12 @@ export interface ParametersExport {
     runAt: string
   }[]
   approval: { signedBy: string; signedAt: string; reason: string; digest: string } | null
+  /** The system's signed recommended parameter set (a joint fit over several data sets), null when it has none. */
+  systemRecommendedSet?:
+    | (Omit<RecommendedParameterSetDto, 'parameters'> & {
+        parameters: { name: string; value: number; standardError: number | null; unit: string }[]
+      })
+    | null
 }
 
 /** A measured equilibrium state of an approved data set, the fields the design screens read: T in K, P in Pa, standard uncertainties (k = 1). */
