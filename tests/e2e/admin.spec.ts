@@ -1,10 +1,22 @@
-import { expect, test, type Page } from '@playwright/test'
+import { expect, test, type Locator, type Page } from '@playwright/test'
 import { DEMO, nav, shot, signIn } from './support/helpers'
 
 /** Full-page screenshot from the top (the frame's sticky bars would otherwise be drawn mid-page). */
 async function snapTop(page: Page, name: string) {
   await page.evaluate(() => window.scrollTo(0, 0))
   await shot(page, name)
+}
+
+/**
+ * Type a number into a PrimeVue InputNumber as a person does (key by key), leave the field, and wait until it shows
+ * the number: the component takes its value on blur, so saving before that could send an empty field.
+ */
+async function typeNumber(input: Locator, value: string) {
+  await input.click()
+  await input.press('ControlOrMeta+a')
+  await input.pressSequentially(value)
+  await input.press('Tab')
+  await expect.poll(async () => Number((await input.inputValue()).replace(/,/g, ''))).toBe(Number(value))
 }
 
 async function choose(page: Page, inputId: string, option: string) {
@@ -37,8 +49,7 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
   await form.getByLabel('Name').fill('2-propanol')
   await form.getByLabel('CAS number').fill('67-63-1')
   await form.getByLabel('Formula').fill('C3H8O')
-  await form.locator('#cmp-mm').fill('60.096')
-  await form.locator('#cmp-mm').press('Tab')
+  await typeNumber(form.locator('#cmp-mm'), '60.096')
   await page.getByTestId('component-save').click()
   await expect(form.getByText('The CAS number is not valid (its check digit does not match).')).toBeVisible()
   await form.getByLabel('CAS number').fill('67-63-0')
@@ -60,8 +71,7 @@ test('an admin reads a component’s vapour-pressure sources, adds a component w
     ['ant-rmin', '8'],
     ['ant-rmax', '100'],
   ]) {
-    await ant.locator(`#${id}`).fill(v)
-    await ant.locator(`#${id}`).press('Tab')
+    await typeNumber(ant.locator(`#${id}`), v)
   }
   await ant.getByRole('button', { name: 'Add set' }).click()
   await expect(ant.getByText('Name the source (book, edition, table) of the constants')).toBeVisible()

@@ -3,69 +3,90 @@
  * test): GET /api/health (the floor of the same stack), GET /api/auth/me (session + user + roles), and the
  * engineer's GET /api/data-sets/:id/curve of an approved data set. Targets (issue 12): curve ≥ 50 % of health's
  * requests per second with p95 < 40 ms; auth/me ≥ 70 %.
+ * The API runs in its own process (bench/throughput-server.ts), so autocannon does not share its event loop.
  * Needs a throw-away PostgreSQL like upload-10k.ts: DATABASE_URL naming a "bench"/"test" database (wiped), or none.
- * BENCH_SECONDS sets the duration of each run (default 10).
+ * BENCH_SECONDS sets the duration of each run (default 10); BENCH_ROUNDS how often the three are run in turn (1);
+ * BENCH_ONLY keeps the endpoints whose name holds it (for profiling); BENCH_PROFILE=<folder> writes a CPU profile of the API process per endpoint
+ * (the load only) there; BENCH_NODE_ARGS adds Node options to the API process.
  */
-import type { AddressInfo } from 'node:net'
+import { fork } from 'node:child_process'
+import { loadavg } from 'node:os'
+import path from 'node:path'
+import { fileURLToPath } from 'node:url'
 import autocannon from 'autocannon'
-import { createTestContext, PASSWORD } from '../test/helpers.js'
-import { buildLab, draftWithPoints } from '../test/lab-fixture.js'
-import { prepareDatabase } from './prepare-db.js'
+
+const here = path.dirname(fileURLToPath(import.meta.url))
+
+interface Ready {
+  base: string
+  cookie: string
+  dataSetId: string
+}
 
 async function main(): Promise<void> {
-  process.env.DATABASE_URL = await prepareDatabase()
-  const t = await createTestContext()
-  const server = t.app.listen(0, '127.0.0.1')
-  await new Promise((r) => server.once('listening', r))
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
+  const child = fork(path.join(here, 'throughput-server.ts'), [], {
+    execArgv: ['--import', 'tsx', ...(process.env.BENCH_NODE_ARGS?.split(' ').filter(Boolean) ?? [])],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  })
+  const ready = await new Promise<Ready>((resolve, reject) => {
+    child.once('message', (m) => resolve(m as Ready))
+    child.once('exit', (code) => reject(new Error(`the API process ended (${code}) before it was ready`)))
+  })
+  const { base, cookie, dataSetId } = ready
   try {
-    const lab = await buildLab(t)
-    const ds = await draftWithPoints(t, lab)
-    const fits = await lab.analyst.post(`/api/data-sets/${ds.id}/fits`).send({ models: ['wilson'] })
-    await lab.analyst.post(`/api/data-sets/${ds.id}/submit`).send({ rowVersion: fits.body.rowVersion })
-    const rec = await lab.lead.post(`/api/data-sets/${ds.id}/recommended-fit`).send({ fitId: fits.body.fits[0].id })
-    const ok = await lab.lead
-      .post(`/api/data-sets/${ds.id}/approve`)
-      .send({ password: PASSWORD, reason: 'benchmark', rowVersion: rec.body.rowVersion })
-    if (ok.status !== 200) throw new Error(`approve: ${JSON.stringify(ok.body)}`)
-    const signIn = await fetch(`${base}/api/auth/sign-in`, {
-      method: 'POST',
-      headers: { Origin: t.config.publicUrl, 'Content-Type': 'application/json' },
-      body: JSON.stringify({ email: 'engineer@lab.test', password: PASSWORD }),
-    })
-    const cookie = signIn.headers.get('set-cookie')!.split(';')[0]
     const seconds = Number(process.env.BENCH_SECONDS ?? 10)
-    const run = (path: string) =>
-      autocannon({ url: base + path, connections: 50, duration: seconds, headers: { cookie } })
+    const rounds = Number(process.env.BENCH_ROUNDS ?? 1)
+    // autocannon reports p90 and p97.5 but not p95: the latencies are also collected here, from every response.
+    const profileDir = process.env.BENCH_PROFILE
+    const ask = (profile: string) =>
+      new Promise<void>((resolve) => {
+        child.once('message', () => resolve())
+        child.send({ profile })
+      })
+    const run = async (p: string, name: string) => {
+      if (profileDir) await ask('start')
+      const times: number[] = []
+      const r = await new Promise<autocannon.Result>((resolve, reject) => {
+        const instance = autocannon(
+          { url: base + p, connections: 50, duration: seconds, headers: { cookie } },
+          (err, result) => (err ? reject(err) : resolve(result)),
+        )
+        instance.on('response', (_client, _status, _bytes, ms) => void times.push(ms))
+      })
+      if (profileDir) await ask(path.join(profileDir, `${name.replace(/\W+/g, '-')}.cpuprofile`))
+      times.sort((a, b) => a - b)
+      const at = (q: number) => Math.round(times[Math.min(times.length - 1, Math.floor(q * times.length))] * 10) / 10
+      return { rps: Math.round(r.requests.average), p50: at(0.5), p95: at(0.95), p99: at(0.99), non2xx: r.non2xx }
+    }
     const targets = [
       ['GET /api/health', '/api/health'],
       ['GET /api/auth/me', '/api/auth/me'],
-      ['GET /api/data-sets/:id/curve', `/api/data-sets/${ds.id}/curve?pressure=101.325&unit=kPa`],
-    ] as const
-    const rows: { name: string; rps: number; p50: number; p97_5: number; p99: number; non2xx: number }[] = []
-    for (const [name, path] of targets) {
-      const probe = await fetch(base + path, { headers: { cookie } })
+      ['GET /api/data-sets/:id/curve', `/api/data-sets/${dataSetId}/curve?pressure=101.325&unit=kPa`],
+    ].filter(([name]) => name.includes(process.env.BENCH_ONLY ?? ''))
+    for (const [name, p] of targets) {
+      const probe = await fetch(base + p, { headers: { cookie } })
       if (probe.status !== 200) throw new Error(`${name}: ${probe.status} ${await probe.text()}`)
-      const r = await run(path)
-      rows.push({
-        name,
-        rps: Math.round(r.requests.average),
-        p50: r.latency.p50,
-        p97_5: r.latency.p97_5,
-        p99: r.latency.p99,
-        non2xx: r.non2xx,
-      })
+      await autocannon({ url: base + p, connections: 10, amount: 500, headers: { cookie } }) // warm-up
     }
-    const health = rows[0].rps
-    console.log('| endpoint | req/s | % of health | p50 ms | p97.5 ms | p99 ms | non-2xx |')
-    console.log('|---|---|---|---|---|---|---|')
-    for (const r of rows)
+    for (let round = 1; round <= rounds; round++) {
+      const before = loadavg()[0]
+      const rows: { name: string; rps: number; p50: number; p95: number; p99: number; non2xx: number }[] = []
+      for (const [name, p] of targets) {
+        rows.push({ name, ...(await run(p, name)) })
+      }
+      const health = rows[0].rps
       console.log(
-        `| ${r.name} | ${r.rps} | ${Math.round((100 * r.rps) / health)} % | ${r.p50} | ${r.p97_5} | ${r.p99} | ${r.non2xx} |`,
+        `\nround ${round}: ${seconds} s per endpoint, load average ${before.toFixed(2)} before, ${loadavg()[0].toFixed(2)} after`,
       )
+      console.log('| endpoint | req/s | % of health | p50 ms | p95 ms | p99 ms | non-2xx |')
+      console.log('|---|---|---|---|---|---|---|')
+      for (const r of rows)
+        console.log(
+          `| ${r.name} | ${r.rps} | ${Math.round((100 * r.rps) / health)} % | ${r.p50} | ${r.p95} | ${r.p99} | ${r.non2xx} |`,
+        )
+    }
   } finally {
-    server.close()
-    await t.close()
+    child.disconnect()
   }
 }
 

@@ -1,3 +1,5 @@
+import { existsSync } from 'node:fs'
+import path from 'node:path'
 import { z } from 'zod'
 
 const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes')
@@ -7,7 +9,7 @@ const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v
  * with NODE_ENV=production the defaults are the safe ones (no mail capture, no captured-mail viewer, no demo data,
  * Secure cookies) and PUBLIC_URL must be given.
  */
-const schema = z.object({
+const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
@@ -60,99 +62,87 @@ const schema = z.object({
     }, 'must be an IANA time zone such as UTC or Europe/Berlin'),
 })
 
-export interface Config {
-  nodeEnv: 'development' | 'test' | 'production'
-  host: string
-  port: number
-  publicUrl: string
-  databaseUrl: string
-  smtpUrl: string
-  mailFrom: string
-  fakeSmtp: boolean
-  /** The admins' captured-mail screen (development and tests; off in production unless MAIL_VIEWER=true). */
-  mailViewer: boolean
-  smtpTimeoutMs: number
-  mailPollMs: number
-  mailMaxAttempts: number
-  mailMaxRefusedAttempts: number
-  fakeSmtpPort: number
-  sessionIdleHours: number
-  sessionAbsoluteHours: number
-  cookieSecure: 'auto' | 'true' | 'false'
-  demoData: boolean
-  uploadMaxBytes: number
-  /** data rows one uploaded CSV file may hold (its header not counted) */
-  uploadMaxRows: number
-  jsonLimit: string
-  serveWeb: boolean
-  logLevel: string
-  rateLimitSigninPerIp: number
-  rateLimitSigninPerAccount: number
-  rateLimitForgotPerAddress: number
-  rateLimitForgotPerIp: number
-  rateLimitPasswordChange: number
-  shutdownTimeoutMs: number
-  metricsToken: string | null
-  inviteHours: number
-  resetMinutes: number
-  allowSelfApproval: boolean
-  replicateRsdLimit: number
-  /** printed at the head of every report */
-  labName: string
-  /** time zone (IANA) of the dates and times printed on reports */
-  reportTimeZone: string
-}
+/** The settings as the app uses them: derived from the environment's schema, so the type is never restated. */
+const configSchema = envSchema
+  // Production refuses what would be unsafe there (the invented demo data) and needs the address users type.
+  .superRefine((e, ctx) => {
+    const production = e.NODE_ENV === 'production'
+    if (production && !e.PUBLIC_URL)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['PUBLIC_URL'],
+        message: 'required in production (the address users type, e.g. https://ebullio.lab.example)',
+      })
+    if (production && e.DEMO_DATA === true)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['DEMO_DATA'],
+        message: 'the invented demo scenario is refused in production; unset it or set DEMO_DATA=false',
+      })
+  })
+  .transform((e) => {
+    const production = e.NODE_ENV === 'production'
+    return {
+      nodeEnv: e.NODE_ENV,
+      host: e.HOST,
+      port: e.PORT,
+      publicUrl: (e.PUBLIC_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
+      databaseUrl: e.DATABASE_URL,
+      smtpUrl: e.SMTP_URL,
+      mailFrom: e.MAIL_FROM,
+      fakeSmtp: e.FAKE_SMTP ?? !production,
+      /** The admins' captured-mail screen (development and tests; off in production unless MAIL_VIEWER=true). */
+      mailViewer: e.MAIL_VIEWER ?? !production,
+      smtpTimeoutMs: e.SMTP_TIMEOUT_MS,
+      mailPollMs: e.MAIL_POLL_MS,
+      mailMaxAttempts: e.MAIL_MAX_ATTEMPTS,
+      mailMaxRefusedAttempts: e.MAIL_MAX_REFUSED_ATTEMPTS,
+      fakeSmtpPort: e.FAKE_SMTP_PORT,
+      sessionIdleHours: e.SESSION_IDLE_HOURS,
+      sessionAbsoluteHours: e.SESSION_ABSOLUTE_HOURS,
+      cookieSecure: e.COOKIE_SECURE,
+      demoData: e.DEMO_DATA ?? !production,
+      uploadMaxBytes: e.UPLOAD_MAX_BYTES,
+      /** data rows one uploaded CSV file may hold (its header not counted) */
+      uploadMaxRows: e.UPLOAD_MAX_ROWS,
+      jsonLimit: e.JSON_LIMIT,
+      serveWeb: e.SERVE_WEB,
+      logLevel: e.LOG_LEVEL,
+      rateLimitSigninPerIp: e.RATE_LIMIT_SIGNIN_PER_IP,
+      rateLimitSigninPerAccount: e.RATE_LIMIT_SIGNIN_PER_ACCOUNT,
+      rateLimitForgotPerAddress: e.RATE_LIMIT_FORGOT_PER_ADDRESS,
+      rateLimitForgotPerIp: e.RATE_LIMIT_FORGOT_PER_IP,
+      rateLimitPasswordChange: e.RATE_LIMIT_PASSWORD_CHANGE,
+      shutdownTimeoutMs: e.SHUTDOWN_TIMEOUT_MS,
+      metricsToken: e.METRICS_TOKEN ?? null,
+      inviteHours: e.INVITE_HOURS,
+      resetMinutes: e.RESET_MINUTES,
+      allowSelfApproval: e.ALLOW_SELF_APPROVAL,
+      replicateRsdLimit: e.REPLICATE_RSD_LIMIT,
+      /** printed at the head of every report */
+      labName: e.LAB_NAME,
+      /** time zone (IANA) of the dates and times printed on reports */
+      reportTimeZone: e.REPORT_TIME_ZONE,
+    }
+  })
+
+export type Config = z.output<typeof configSchema>
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const parsed = schema.safeParse(env)
+  const parsed = configSchema.safeParse(env)
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
     throw new Error(`Invalid configuration:\n${lines.join('\n')}`)
   }
-  const e = parsed.data
-  const production = e.NODE_ENV === 'production'
-  const problems: string[] = []
-  if (production && !e.PUBLIC_URL)
-    problems.push('  PUBLIC_URL: required in production (the address users type, e.g. https://ebullio.lab.example)')
-  if (production && e.DEMO_DATA === true)
-    problems.push('  DEMO_DATA: the invented demo scenario is refused in production; unset it or set DEMO_DATA=false')
-  if (problems.length) throw new Error(`Invalid configuration:\n${problems.join('\n')}`)
-  return {
-    nodeEnv: e.NODE_ENV,
-    host: e.HOST,
-    port: e.PORT,
-    publicUrl: (e.PUBLIC_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ''),
-    databaseUrl: e.DATABASE_URL,
-    smtpUrl: e.SMTP_URL,
-    mailFrom: e.MAIL_FROM,
-    fakeSmtp: e.FAKE_SMTP ?? !production,
-    mailViewer: e.MAIL_VIEWER ?? !production,
-    smtpTimeoutMs: e.SMTP_TIMEOUT_MS,
-    mailPollMs: e.MAIL_POLL_MS,
-    mailMaxAttempts: e.MAIL_MAX_ATTEMPTS,
-    mailMaxRefusedAttempts: e.MAIL_MAX_REFUSED_ATTEMPTS,
-    fakeSmtpPort: e.FAKE_SMTP_PORT,
-    sessionIdleHours: e.SESSION_IDLE_HOURS,
-    sessionAbsoluteHours: e.SESSION_ABSOLUTE_HOURS,
-    cookieSecure: e.COOKIE_SECURE,
-    demoData: e.DEMO_DATA ?? !production,
-    uploadMaxBytes: e.UPLOAD_MAX_BYTES,
-    uploadMaxRows: e.UPLOAD_MAX_ROWS,
-    jsonLimit: e.JSON_LIMIT,
-    serveWeb: e.SERVE_WEB,
-    logLevel: e.LOG_LEVEL,
-    rateLimitSigninPerIp: e.RATE_LIMIT_SIGNIN_PER_IP,
-    rateLimitSigninPerAccount: e.RATE_LIMIT_SIGNIN_PER_ACCOUNT,
-    rateLimitForgotPerAddress: e.RATE_LIMIT_FORGOT_PER_ADDRESS,
-    rateLimitForgotPerIp: e.RATE_LIMIT_FORGOT_PER_IP,
-    rateLimitPasswordChange: e.RATE_LIMIT_PASSWORD_CHANGE,
-    shutdownTimeoutMs: e.SHUTDOWN_TIMEOUT_MS,
-    metricsToken: e.METRICS_TOKEN ?? null,
-    inviteHours: e.INVITE_HOURS,
-    resetMinutes: e.RESET_MINUTES,
-    allowSelfApproval: e.ALLOW_SELF_APPROVAL,
-    replicateRsdLimit: e.REPLICATE_RSD_LIMIT,
-    labName: e.LAB_NAME,
-    reportTimeZone: e.REPORT_TIME_ZONE,
-  }
+  return parsed.data
+}
+
+/**
+ * Settings from a `.env` file in the working folder, when there is one, with Node's own loader (Node 20.12+).
+ * Variables already set in the environment win over the file. Answers whether a file was read.
+ */
+export function loadEnvFile(file = path.resolve('.env')): boolean {
+  if (!existsSync(file)) return false
+  process.loadEnvFile(file)
+  return true
 }

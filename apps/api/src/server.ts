@@ -1,11 +1,12 @@
 import { pino } from 'pino'
 import { Sessions } from './auth/index.js'
-import { loadConfig } from './config.js'
+import { loadConfig, loadEnvFile } from './config.js'
 import { createDb, createPool } from './db/index.js'
 import { startFakeSmtp } from './mail/fake-smtp.js'
 import { Mailer } from './mail/mailer.js'
 import { createApp } from './app.js'
 
+loadEnvFile()
 const config = loadConfig()
 const logger = pino({ level: config.logLevel })
 // A broken idle connection (PostgreSQL restarted or dropped it) is logged, never fatal: the pool opens a new one.

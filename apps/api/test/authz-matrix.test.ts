@@ -26,6 +26,7 @@ const expected: Record<string, Access> = {
   'POST /api/admin/users/:id/activate': ['admin'],
   'GET /api/dev/mail': ['admin'],
   'GET /api/admin/mail-outbox': ['admin'],
+  'POST /api/admin/mail-outbox/:id/retry': ['admin'],
   'GET /api/health': 'public',
   'GET /api/ready': 'public',
   // lab workflow (issue 5)

@@ -184,6 +184,16 @@ describe('where to measure next', () => {
     const far = await lab.lead.get(url).query({ exclusion: 0.7 })
     expect(far.status).toBe(422)
     expect(far.body.error.details).toEqual([{ path: 'exclusion', message: 'exclusion must be 0–0.5 (x1)' }])
+    // text where a number belongs (a formula, markup, a NUL byte, a long string) is refused, never echoed as markup
+    for (const bad of ['=1+1', '<b>0.1</b>', '9'.repeat(400)]) {
+      const r = await lab.lead.get(url).query({ from: bad })
+      expect(r.status, bad).toBe(422)
+      expect(r.body.error.details[0].path).toBe('from')
+      expect(JSON.stringify(r.body)).not.toContain('<b>')
+    }
+    // a NUL byte is refused at the door (middleware/invalid-text.ts), before any parsing
+    const nul = await lab.lead.get(url).query({ from: '0.1\u0000' })
+    expect(nul.status).toBe(400)
   })
 
   it('refuses an unknown criterion, naming the field', async () => {

@@ -120,4 +120,67 @@ describe('mail delivery', () => {
     const rows = await t.db.selectFrom('mail_outbox').select(['attempts', 'sent_at']).execute()
     expect(rows.every((r) => r.attempts === 1 && r.sent_at !== null)).toBe(true)
   })
+
+  it('the fake SMTP refuses .invalid recipients for good; an admin tries one again, once, audited', async () => {
+    const smtp = await startFakeSmtp(t.db, 0)
+    const mailer = new Mailer(t.db, `smtp://127.0.0.1:${smtp.port}`, t.config.mailFrom, undefined, {
+      maxRefusedAttempts: 2,
+    })
+    const hostile = '<img src=x onerror="alert(1)"> & "quotes"'
+    try {
+      await enqueueMail(t.db, { to: 'nobody@lab.invalid', subject: hostile, text: 'x' })
+      await enqueueMail(t.db, { to: 'here@lab.test', subject: 'Delivered', text: 'y' })
+      expect(await mailer.deliverPending()).toBe(1)
+      await dueNow()
+      await mailer.deliverPending()
+      await createUser(t.db, { email: 'ada@lab.test', roles: ['admin'] })
+      await createUser(t.db, { email: 'ana@lab.test', roles: ['analyst'] })
+      const admin = await signedInAgent(t.app, 'ada@lab.test')
+      const failed = (await admin.get('/api/admin/mail-outbox?status=failed').expect(200)).body.items
+      expect(failed).toHaveLength(1)
+      expect(failed[0]).toMatchObject({ to: 'nobody@lab.invalid', subject: hostile, attempts: 2, nextAttemptAt: null })
+      expect(failed[0].lastError).toMatch(/550.*nobody@lab\.invalid: this domain does not receive mail/)
+      const id = String(failed[0].id)
+
+      const analyst = await signedInAgent(t.app, 'ana@lab.test')
+      expect((await analyst.post(`/api/admin/mail-outbox/${id}/retry`)).status).toBe(403)
+      const ok = await admin.post(`/api/admin/mail-outbox/${id}/retry`).expect(200)
+      expect(ok.body).toEqual({ id, status: 'queued' })
+      const audit = await t.db
+        .selectFrom('audit_log')
+        .selectAll()
+        .where('entity', '=', 'mail_outbox')
+        .executeTakeFirstOrThrow()
+      expect(audit).toMatchObject({ entity_id: id, action: 'retry' })
+      expect(audit.before).toMatchObject({ to: 'nobody@lab.invalid', attempts: 2 })
+      expect((await admin.get('/api/admin/mail-outbox?status=failed')).body.items).toHaveLength(0)
+      const waiting = (await admin.get('/api/admin/mail-outbox?status=retrying')).body.items
+      expect(waiting.map((m: { id: string }) => String(m.id))).toEqual([id])
+
+      // due at once (no wait), one more try (the bound was reached), then given up again
+      expect(await mailer.deliverPending()).toBe(0)
+      const again = (await admin.get('/api/admin/mail-outbox?status=failed')).body.items
+      expect(again).toHaveLength(1)
+      expect(again[0].attempts).toBe(3)
+
+      const sent = await t.db
+        .selectFrom('mail_outbox')
+        .select('id')
+        .where('to_address', '=', 'here@lab.test')
+        .executeTakeFirstOrThrow()
+      const done = await admin.post(`/api/admin/mail-outbox/${sent.id}/retry`)
+      expect(done.status).toBe(409)
+      expect(done.body.error.message).toBe('This message was delivered; there is nothing to try again.')
+      expect((await admin.post('/api/admin/mail-outbox/999999/retry')).status).toBe(404)
+      const bad = await admin.post('/api/admin/mail-outbox/abc/retry')
+      expect(bad.status).toBe(422)
+      expect(bad.body.error.message).toBe('Some fields are not valid: id.')
+      expect(
+        await t.db.selectFrom('audit_log').select('id').where('entity', '=', 'mail_outbox').execute(),
+      ).toHaveLength(1)
+    } finally {
+      await mailer.stop()
+      await smtp.close()
+    }
+  })
 })

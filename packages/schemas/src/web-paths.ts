@@ -16,6 +16,7 @@ export const WEB_PATHS = {
   adminComponents: '/admin/components',
   adminGcMethods: '/admin/gc-methods',
   adminMail: '/admin/mail',
+  adminOutbox: '/admin/undelivered-mail',
   instrumentChecks: '/checks',
   account: '/account',
   forbidden: '/forbidden',

@@ -13,6 +13,8 @@ export interface SessionUser {
   email: string
   displayName: string
   roles: Role[]
+  /** Whether the user wants mail notifications; read with the session (absent where a user is built otherwise). */
+  notifyMail?: boolean
 }
 
 const COOKIE = 'ebullio_session'
@@ -88,7 +90,16 @@ export class Sessions {
       await sessions.extendSession(db, id, new Date(now + this.idleMs))
       setCookie = this.cookie(token, Math.floor(this.idleMs / 1000))
     }
-    return { user: { id: row.id, email: row.email, displayName: row.display_name, roles: row.roles }, setCookie }
+    return {
+      user: {
+        id: row.id,
+        email: row.email,
+        displayName: row.display_name,
+        roles: row.roles,
+        notifyMail: row.notify_mail,
+      },
+      setCookie,
+    }
   }
 
   /** The stored id of the session a cookie header carries (null without one). */

@@ -89,3 +89,22 @@ export async function outboxStats(db: Db): Promise<{ pending: number; oldestSeco
       from mail_outbox`.execute(db)
   return { pending: rows[0].pending, oldestSeconds: rows[0].oldest ?? 0, failed: rows[0].failed }
 }
+
+/** One outbox row, locked for the rest of the transaction. */
+export async function lockMail(db: Db, id: string) {
+  return db
+    .selectFrom('mail_outbox')
+    .select(['id', 'to_address', 'subject', 'attempts', 'last_error', 'failed_at', 'sent_at', 'claimed_until'])
+    .where('id', '=', id)
+    .forUpdate()
+    .executeTakeFirst()
+}
+
+/** Make a message due now and no longer given up (its try count stays). */
+export async function releaseMail(db: Db, id: string): Promise<void> {
+  await db
+    .updateTable('mail_outbox')
+    .set({ failed_at: null, next_attempt_at: new Date() })
+    .where('id', '=', id)
+    .execute()
+}

@@ -7,7 +7,7 @@ export async function insertSession(db: Db, s: { id: string; userId: string; exp
   await db.insertInto('user_session').values({ id: s.id, user_id: s.userId, expires_at: s.expiresAt }).execute()
 }
 
-/** A session with its user (active flag and roles, sorted), or undefined when there is no such session. */
+/** A session with its user (active flag, mail preference and roles, sorted), or undefined when there is no such session. */
 export async function findSessionWithUser(db: Db, id: string) {
   return db
     .selectFrom('user_session as s')
@@ -19,6 +19,7 @@ export async function findSessionWithUser(db: Db, id: string) {
       'u.email',
       'u.display_name',
       'u.active',
+      'u.notify_mail',
       sql<
         Role[]
       >`coalesce((select array_agg(r.role order by r.role) from user_role r where r.user_id = u.id), '{}')`.as('roles'),

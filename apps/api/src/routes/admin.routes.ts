@@ -2,7 +2,8 @@ import { inviteSchema, ROLES, setRolesSchema } from '@ebullio/schemas'
 import { z } from 'zod'
 import { ctx } from '../context.js'
 import { notFound } from '../errors/index.js'
-import { listCapturedMail, listUndeliveredMail } from '../services/captured-mail.service.js'
+import { listCapturedMail } from '../services/captured-mail.service.js'
+import { listUndeliveredMail, retryMail } from '../services/mail-outbox.service.js'
 import * as service from '../services/users.service.js'
 import { defineRoutes } from './define.js'
 import { parseBody, parseParams, parseQuery } from './validate.js'
@@ -96,6 +97,16 @@ export const adminRoutes = defineRoutes([
       // Mail that could not be delivered: given up (refused for good, or too many tries) or still failing.
       const { status } = parseQuery(z.object({ status: z.enum(['failed', 'retrying']).default('failed') }), req)
       res.json({ items: await listUndeliveredMail(ctx(req).db, status) })
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/admin/mail-outbox/:id/retry',
+    access: ['admin'],
+    handler: async (req, res) => {
+      const { db, user } = ctx(req)
+      const { id } = parseParams(z.object({ id: z.string().regex(/^\d{1,18}$/, 'Not a message id') }), req)
+      res.json(await retryMail(db, user.id, id))
     },
   },
 ])

@@ -42,9 +42,10 @@ export const authRoutes = defineRoutes([
     access: 'authenticated',
     handler: async (req, res) => {
       const { user, db } = ctx(req)
-      const row = await service.findUserById(db, user.id)
+      // The session query already read the preference; a second query only for a user built elsewhere.
+      const notifyMail = user.notifyMail ?? (await service.findUserById(db, user.id))?.notify_mail ?? true
       res.json({
-        user: { ...user, notifyMail: row?.notify_mail ?? true },
+        user: { ...user, notifyMail },
         devMode: req.ctx.config.mailViewer,
         // the lab's own name (LAB_NAME), shown in the app frame and printed on reports
         labName: req.ctx.config.labName,

@@ -26,9 +26,15 @@ export const catalogueRoutes = defineRoutes([
       const { db, user } = ctx(req)
       const { id } = parseParams(idParams, req)
       const q = parseQuery(curveQuery, req)
-      res.json(
-        await catalogue.curveAt(db, user, id, { P: toPascal(q.pressure, q.unit), points: q.points, fitId: q.fitId }),
-      )
+      const P = toPascal(q.pressure, q.unit)
+      const curve = await catalogue.curveAnswer(db, user, id, { P, points: q.points, fitId: q.fitId })
+      res.type('application/json')
+      // A draft's curve may change at any time: never stored. A published one is revalidated by its ETag on every
+      // use (private: shared caches would skip the sign-in and access check that ran above).
+      if (!curve.etag) return void res.set('Cache-Control', 'no-store').send(curve.body)
+      res.set({ ETag: curve.etag, 'Cache-Control': 'private, no-cache' })
+      if (req.fresh) return void res.status(304).end()
+      res.send(curve.body)
     },
   },
   {

@@ -40,6 +40,3 @@ export async function listCapturedMail(db: Db, viewer: { email: string }) {
     return { ...m, body_text: own ? m.body_text : maskTokens(m.body_text), masked: !own }
   })
 }
-
-/** Mail the outbox could not deliver, for the admin's outbox page (no rule applies). */
-export { listUndeliveredMail } from '../repositories/mail-outbox.repository.js'

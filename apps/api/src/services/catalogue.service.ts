@@ -1,4 +1,5 @@
 /** The engineers' side: approved systems with their recommended fit, and curves computed from them at any pressure. */
+import { createHash } from 'node:crypto'
 import { fitLabel, type CatalogueEntryDto, type CatalogueMiscibilityDto } from '@ebullio/schemas'
 import {
   findAzeotropes,
@@ -9,13 +10,15 @@ import {
   type BinarySystem,
   type PhaseDiagram,
 } from '@ebullio/thermo'
+import { LRUCache } from 'lru-cache'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
+import { findCurveSource } from '../repositories/curves.repository.js'
 import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
-import { pageWindow, thermo, visibleOrNotFound } from './lab-access.js'
+import { pageWindow, PUBLISHED_STATES, readsEverything, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs } from './systems.service.js'
 import { recommendedSetOf } from './joint-fit-signing.js'
 
@@ -119,11 +122,70 @@ async function chosenActivity(
  * T–x–y and x–y at pressure P (Pa) with the three-phase line and the two-liquid region where the model splits the
  * liquid, relative volatility across composition, and every azeotrope with its kind (`azeotrope`: the first).
  */
-export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: number; points: number; fitId?: string }) {
+export async function curveAt(db: Db, user: SessionUser, id: string, o: CurveQuery) {
+  return (await computeCurve(db, user, id, o)).curve
+}
+
+interface CurveQuery {
+  /** Pa */
+  P: number
+  points: number
+  fitId?: string
+}
+
+/** A curve as sent: the JSON bytes, and for a published data set its strong ETag (SHA-256 of the bytes). */
+export interface CurveAnswer {
+  body: Buffer
+  etag: string | null
+}
+
+/**
+ * Curves of published (approved or superseded) data sets, as sent. Such a version's fits never change (the database
+ * freezes them), so a curve is decided by the fit, the two vapour-pressure sets it is computed with, the component
+ * names it carries and the query; all of them are in the key, so a new preferred vapour-pressure set or a renamed
+ * component is a new key, never a stale answer. Bounded by size; per process (replicas each keep their own).
+ */
+const curveCache = new LRUCache<string, CurveAnswer & { etag: string }>({
+  maxSize: 64 * 2 ** 20,
+  sizeCalculation: (v) => v.body.length + 200,
+})
+
+function curveKey(fitId: string, vaporPressureSetIds: readonly string[], names: readonly string[], o: CurveQuery) {
+  return JSON.stringify([fitId, vaporPressureSetIds, names, o.P, o.points])
+}
+
+/** How many curves the cache holds (tests). */
+export const cachedCurveCount = () => curveCache.size
+
+/**
+ * The curve answer of `curveAt`, served from the cache when the data set is published. The visibility rule runs
+ * first on every request (also before a 304): one query reads the state, the fit and the vapour-pressure sets.
+ * Drafts and versions under review are computed every time and get no ETag.
+ */
+export async function curveAnswer(db: Db, user: SessionUser, id: string, o: CurveQuery): Promise<CurveAnswer> {
+  const src = await findCurveSource(db, id, o.fitId)
+  if (!src || (!readsEverything(user) && !PUBLISHED_STATES.includes(src.state)))
+    throw notFound('There is no such data set.')
+  const published = PUBLISHED_STATES.includes(src.state)
+  const [vp1, vp2] = src.vaporPressureSetIds
+  if (published && src.fitId && src.fitDataSetId === id && vp1 && vp2) {
+    const hit = curveCache.get(curveKey(src.fitId, [vp1, vp2], src.componentNames, o))
+    if (hit) return hit
+  }
+  const { curve, vaporPressureSetIds } = await computeCurve(db, user, id, o)
+  const body = Buffer.from(JSON.stringify(curve))
+  if (!published) return { body, etag: null }
+  // The key is built from what the curve was computed with, so a change in between cannot file it under old inputs.
+  const answer = { body, etag: `"${createHash('sha256').update(body).digest('base64url')}"` }
+  curveCache.set(curveKey(curve.fitId, vaporPressureSetIds, curve.components, o), answer)
+  return answer
+}
+
+async function computeCurve(db: Db, user: SessionUser, id: string, o: CurveQuery) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   const chosen = await chosenActivity(db, d, o.fitId)
   const inputs = await engineInputs(db, d.systemId)
-  return {
+  const curve = {
     dataSetId: id,
     fitId: chosen.fitId,
     model: chosen.model,
@@ -132,6 +194,7 @@ export async function curveAt(db: Db, user: SessionUser, id: string, o: { P: num
     ...curveOf(binarySystem(inputs, chosen.activity), o.P, o.points),
     caution: DESIGN_CAUTION,
   }
+  return { curve, vaporPressureSetIds: inputs.vaporPressureSets.map((v) => v.id) }
 }
 
 /** The isobaric diagram (with the liquid split), every azeotrope and α across composition at P (Pa). */

@@ -31,6 +31,20 @@ export interface CapturedMail {
   body_text: string
 }
 
+/** A message the outbox could not deliver (GET /api/admin/mail-outbox). */
+export interface UndeliveredMail {
+  id: string
+  to: string
+  subject: string
+  createdAt: string
+  attempts: number
+  lastError: string | null
+  /** when it is tried next; null once given up */
+  nextAttemptAt: string | null
+  /** when it was given up; null while it is still being tried */
+  failedAt: string | null
+}
+
 export const adminApi = {
   users: (q: UserQuery = {}) =>
     api.get<{ items: UserRow[]; total: number; page: number; pageSize: number }>('/api/admin/users' + query({ ...q })),
@@ -40,4 +54,7 @@ export const adminApi = {
   deactivate: (id: string) => api.post<{ ok: true }>(`/api/admin/users/${id}/deactivate`),
   activate: (id: string) => api.post<{ ok: true }>(`/api/admin/users/${id}/activate`),
   mail: () => api.get<{ items: CapturedMail[] }>('/api/dev/mail'),
+  undelivered: (status: 'failed' | 'retrying') =>
+    api.get<{ items: UndeliveredMail[] }>('/api/admin/mail-outbox' + query({ status })),
+  retryMail: (id: string) => api.post<{ id: string; status: 'queued' }>(`/api/admin/mail-outbox/${id}/retry`),
 }

@@ -5,6 +5,7 @@
 import type {
   ApprovedVersionDto,
   CatalogueEntryDto,
+  Citation,
   ComponentDto,
   FitDto,
   PointDto,
@@ -88,7 +89,30 @@ export const exportUrls = {
   reportPdf: (dataSetId: string) => `${base(dataSetId)}/report.pdf`,
 }
 
+/** A literature data set of a system with its citation and points (T, P in K, Pa), for the system's plots. */
+export interface LiteratureSet {
+  dataSetId: string
+  title: string
+  version: number
+  state: string
+  layout: string
+  nominalPressurePa: number
+  citation: Citation | null
+  points: {
+    id: string
+    sampleLabel: string
+    temperatureK: number
+    pressurePa: number
+    x1: number
+    y1: number | null
+    excluded: boolean
+  }[]
+}
+
 export const catalogueApi = {
+  /** The system's literature data sets the user may read (engineers: approved only). */
+  literature: (systemId: string) =>
+    api.get<{ items: LiteratureSet[]; total: number }>(`/api/systems/${encodeURIComponent(systemId)}/literature`),
   /** Approved systems whose component names or CAS numbers match `q`. */
   list: (q: string, page = 1, pageSize = 50) =>
     api.get<{ items: CatalogueEntry[]; total: number; page: number; pageSize: number }>(

@@ -25,6 +25,13 @@ export function onApiError(fn: Listener): () => void {
   return () => listeners.delete(fn)
 }
 
+const unauthorized = new Set<() => void>()
+/** Subscribe to 401 answers (the session ended); the router sends the person to the sign-in page. */
+export function onUnauthorized(fn: () => void): () => void {
+  unauthorized.add(fn)
+  return () => unauthorized.delete(fn)
+}
+
 export interface RequestOptions {
   /** Do not announce the error globally (the caller shows it inline). */
   quiet?: boolean
@@ -61,7 +68,8 @@ async function request<T>(method: string, url: string, body?: unknown, opts: Req
       e?.message ?? `The server answered ${res.status}.`,
       e?.details ?? null,
     )
-    if (!opts.quiet && res.status !== 401) listeners.forEach((l) => l(err))
+    if (res.status === 401) unauthorized.forEach((l) => l())
+    else if (!opts.quiet) listeners.forEach((l) => l(err))
     throw err
   }
   return data as T

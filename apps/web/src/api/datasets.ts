@@ -168,6 +168,17 @@ export interface SuggestedComposition {
   sigmaY: number
 }
 
+/** Where to measure next as the server planned it: the picks, the range and distance used, and its notes. */
+export interface NextCompositions {
+  items: SuggestedComposition[]
+  P: number
+  fitId: string
+  criterion: SuggestionCriterionName
+  range: [number, number]
+  exclusion: number
+  notes: string[]
+}
+
 /** One pure-component boiling point compared with the vapour-pressure set: T, Tmodel, dT in K, P in Pa. */
 export interface PureCheck {
   component: 1 | 2
@@ -230,9 +241,15 @@ export const datasetsApi = {
     api.del<{ deleted: string; rowVersion: number }>(`${base}/${id}/fits/${fitId}`),
   revise: (id: string) => api.post<DataSet>(`${base}/${id}/revise`),
   band: (id: string, fitId: string) => api.get<FitBand>(`${base}/${id}/fits/${fitId}/band`, { quiet: true }),
-  nextCompositions: (id: string, fitId: string, count = 5, criterion: SuggestionCriterionName = 'sigma-y') =>
-    api.get<{ items: SuggestedComposition[]; P: number; fitId: string; criterion: SuggestionCriterionName }>(
-      `${base}/${id}/fits/${fitId}/next-compositions` + query({ count, criterion }),
+  nextCompositions: (
+    id: string,
+    fitId: string,
+    count = 5,
+    criterion: SuggestionCriterionName = 'sigma-y',
+    limits: { from?: number; to?: number; exclusion?: number } = {},
+  ) =>
+    api.get<NextCompositions>(
+      `${base}/${id}/fits/${fitId}/next-compositions` + query({ count, criterion, ...limits }),
       { quiet: true },
     ),
   pureComponentCheck: (id: string) => api.get<PureCheckResult>(`${base}/${id}/pure-component-check`, { quiet: true }),

@@ -38,7 +38,38 @@ export interface GcMethodInput {
   conditions: string | null
 }
 
+/** One check standard of a run, read with the run's calibration (x1 of component 1, mole fractions). */
+export interface CheckStandardResult {
+  id: string
+  label: string
+  knownX1: number
+  measuredX1: number
+  x1Uncertainty: number
+  replicateRsd: number | null
+  deviation: number
+  measuredAt: string
+  dataSetId: string | null
+  uploadId: string
+  calibrationId: string
+  rowRefs: number[]
+  /** the run rules this result broke, in words (empty when in control) */
+  rules: string[]
+  outOfControl: boolean
+}
+
+/** A GC method's check standards in time order, with the server's chart (null with fewer than two results). */
+export interface CheckStandardSeries {
+  gcMethodId: string
+  gcMethodName: string
+  items: CheckStandardResult[]
+  chart: { centre: number; sigma: number; baselineCount: number; outOfControl: string[] } | null
+  note: string | null
+}
+
 export const gcApi = {
+  /** Check standards of a GC method; centre and σ from the first `baseline` results (default 20). */
+  checkStandards: (id: string, baseline = 20) =>
+    api.get<CheckStandardSeries>(`/api/gc-methods/${encodeURIComponent(id)}/check-standards` + query({ baseline })),
   methods: () => api.get<{ items: GcMethod[] }>('/api/gc-methods'),
   createMethod: (body: GcMethodInput) => api.post<GcMethod>('/api/gc-methods', body, { quiet: true }),
   calibrations: (f: { gcMethodId?: string; systemId?: string; status?: 'active' | 'retired' } = {}) =>

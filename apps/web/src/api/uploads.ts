@@ -35,7 +35,20 @@ export interface PreviewSample {
   heterogeneous?: boolean
   /** both layers when analysed, x1 ascending */
   liquidPhases?: { x1: number; uncertainty: number; layer: 'upper' | 'lower' }[] | null
+  /** a sample of one pure component: x1 = y1 = 1 or 0 exactly, not read through the calibration */
+  pureComponent?: 1 | 2 | null
   [k: string]: unknown
+}
+
+/** A check standard of a run file read with the run's calibration (stored for the GC method's control chart). */
+export interface PreviewCheck {
+  label: string
+  rows: number[]
+  knownX1: number
+  measuredX1: number
+  x1Uncertainty: number
+  replicateRsd: number | null
+  deviation: number
 }
 
 /** Which page of a bounded preview is shown; counts cover the whole file. */
@@ -61,6 +74,8 @@ export interface UploadPreview {
   mapping: Record<string, string>
   extraColumns: string[]
   samples?: PreviewSample[]
+  /** run preview: the check standards of the file (phase `check`) */
+  checks?: PreviewCheck[]
   standards?: {
     label: string
     basis?: string

@@ -2,8 +2,12 @@ import { reactive, ref } from 'vue'
 import type { z } from 'zod'
 import { ApiError } from '../api/client'
 
+/** Where a message belongs: the field's path, dotted for nested fields (`citation.year`), as the API's 422 says it. */
+export const fieldKey = (path: readonly PropertyKey[]) => path.map(String).join('.')
+
 /**
  * Form state checked with the same zod schema the API uses; server-side 422 details land on the same fields.
+ * Errors are keyed by the full dotted path, so a nested field (`citation.year`) keeps its own message.
  */
 export function useForm<S extends z.ZodObject>(schema: S, initial: z.input<S>) {
   const values = reactive({ ...initial }) as z.input<S>
@@ -15,7 +19,7 @@ export function useForm<S extends z.ZodObject>(schema: S, initial: z.input<S>) {
     const r = schema.safeParse(values)
     errors.value = {}
     if (r.success) return r.data
-    for (const i of r.error.issues) errors.value[String(i.path[0] ?? '')] ??= i.message
+    for (const i of r.error.issues) errors.value[fieldKey(i.path)] ??= i.message
     return null
   }
 
@@ -31,7 +35,7 @@ export function useForm<S extends z.ZodObject>(schema: S, initial: z.input<S>) {
     } catch (e) {
       if (e instanceof ApiError) {
         const fields = e.fieldErrors()
-        errors.value = Object.fromEntries(Object.entries(fields).map(([k, v]) => [k.split('.')[0], v]))
+        errors.value = fields
         formError.value = Object.keys(fields).length ? null : e.message
       } else formError.value = 'Something went wrong. Try again.'
       return false

@@ -120,6 +120,16 @@ export const appRoutes: RouteRecordRaw[] = [
     },
   },
   {
+    path: WEB_PATHS.adminOutbox,
+    name: 'admin-outbox',
+    component: () => import('../views/admin/UndeliveredMailView.vue'),
+    meta: {
+      title: 'Undelivered mail',
+      roles: ['admin'],
+      nav: { group: 'Administration', label: 'Undelivered mail', icon: 'pi pi-exclamation-circle', order: 44 },
+    },
+  },
+  {
     path: WEB_PATHS.account,
     name: 'account',
     component: () => import('../views/AccountView.vue'),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatDate, formatDateTime } from './dates'
+import { formatAge, formatDate, formatDateTime } from './dates'
 
 // The screens write dates in the browser's locale and time zone. The exact text is checked where the test runs
 // in en-US and UTC (the default of Node and of this project's machines); elsewhere the checks on content still run.
@@ -34,5 +34,21 @@ describe('date formatting', () => {
     expect(dt.length).toBeGreaterThan(formatDate(iso).length)
     expect(dt).toContain('28') // the minutes
     expect(formatDateTime('2026-12-01T12:29:00Z')).not.toBe(dt)
+  })
+})
+
+describe('age of a message', () => {
+  const now = new Date('2026-12-03T12:00:00Z')
+  const ago = (ms: number) => formatAge(new Date(now.getTime() - ms), now)
+  it('counts down to the minute, in at most two units', () => {
+    expect(ago(59_000)).toBe('under a minute')
+    expect(ago(-5_000)).toBe('under a minute')
+    expect(ago(60_000)).toBe('1 min')
+    expect(ago(59 * 60_000 + 59_000)).toBe('59 min')
+    expect(ago(3 * 3.6e6)).toBe('3 h')
+    expect(ago(3 * 3.6e6 + 5 * 60_000)).toBe('3 h 5 min')
+    expect(ago(2 * 86.4e6 + 4 * 3.6e6 + 30 * 60_000)).toBe('2 d 4 h')
+    expect(ago(7 * 86.4e6)).toBe('7 d')
+    expect(formatAge(null, now)).toBe('—')
   })
 })

@@ -172,7 +172,7 @@ export function planNextMeasurements(fit: FitBinaryResult, options: NextMeasurem
     if (!next) break
     cov = Array.from({ length: m }, (_, i) => Array.from({ length: m }, (_, j) => next[i * m + j]))
   }
-  const notes = planNotes(items, grid, options, range, exclusion)
+  const notes = planNotes(items, grid, options, range, exclusion, spacing)
   return { items, range, exclusion, candidates: grid.length, notes }
 }
 
@@ -185,6 +185,7 @@ function planNotes(
   o: NextMeasurementOptions,
   range: [number, number],
   exclusion: number,
+  spacing: number,
 ): string[] {
   const notes: string[] = []
   const where = `x1 = ${x(range[0])}–${x(range[1])}`
@@ -194,7 +195,7 @@ function planNotes(
     )
   } else if (items.length < o.count) {
     notes.push(
-      `Only ${items.length} of the ${o.count} compositions asked for fit in ${where} at least ${x(exclusion)} from the measured points and from each other.`,
+      `Only ${items.length} of the ${o.count} compositions asked for fit in ${where} at least ${x(exclusion)} from the measured points and ${x(spacing)} from each other.`,
     )
   }
   const isDilute = (v: number) => v < DILUTE_END || v > 1 - DILUTE_END

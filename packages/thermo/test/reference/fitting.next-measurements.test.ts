@@ -57,7 +57,7 @@ describe('planNextMeasurements: exclusion distance', () => {
     const plan = planNextMeasurements(fit, { P, count: 5, range: [0.4, 0.5], exclusion: 0.04 })
     expect(plan.items.length).toBe(3) // 0.40, 0.44, 0.48 or similar: 0.1 wide, 0.05 apart at least
     expect(plan.notes[0]).toBe(
-      'Only 3 of the 5 compositions asked for fit in x1 = 0.40–0.50 at least 0.04 from the measured points and from each other.',
+      'Only 3 of the 5 compositions asked for fit in x1 = 0.40–0.50 at least 0.04 from the measured points and 0.05 from each other.',
     )
   })
 })

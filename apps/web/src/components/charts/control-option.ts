@@ -23,6 +23,8 @@ export interface ControlOptionInput {
   points: ControlPoint[]
   chart: ControlChartResult
   digits: number
+  /** draw results by their number in time order rather than on a time axis (several results share one time) */
+  sequence?: boolean
 }
 
 const LIMIT_COLOUR = '#7a3e8e'
@@ -42,7 +44,7 @@ function limitLine(name: string, y: number, dashed: boolean, colour: string) {
 export function controlOption(o: ControlOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
   const { centre, limits } = o.chart
-  const times = o.points.map((p) => new Date(p.at).getTime())
+  const times = o.points.map((p, i) => (o.sequence ? i + 1 : new Date(p.at).getTime()))
   const data = o.points.map((p, i) => ({
     value: [times[i], p.value],
     id: p.id,
@@ -65,11 +67,28 @@ export function controlOption(o: ControlOptionInput): Record<string, unknown> {
     ...base,
     grid: { ...(base.grid as object), top: 24, right: 72 },
     tooltip: { ...(base.tooltip as object), trigger: 'item', formatter: tooltip },
-    xAxis: {
-      type: 'time',
-      axisLine: { lineStyle: { color: MUTED } },
-      axisLabel: { color: MUTED, fontSize: 11, hideOverlap: true },
-    },
+    xAxis: o.sequence
+      ? {
+          type: 'value',
+          name: 'result no. (time order)',
+          nameLocation: 'middle',
+          nameGap: 26,
+          min: 0.5,
+          max: o.points.length + 0.5,
+          minInterval: 1,
+          axisLine: { lineStyle: { color: MUTED } },
+          axisLabel: {
+            color: MUTED,
+            fontSize: 11,
+            formatter: (v: number) => (Number.isInteger(v) ? String(v) : ''),
+          },
+          splitLine: { show: false },
+        }
+      : {
+          type: 'time',
+          axisLine: { lineStyle: { color: MUTED } },
+          axisLabel: { color: MUTED, fontSize: 11, hideOverlap: true },
+        },
     yAxis: valueAxis(o.yName, {
       nameGap: 52,
       min: Math.min(...all) - span * 0.08,

@@ -117,7 +117,7 @@ describe('residualOption', () => {
     expect(s.markArea?.data[0].map((d) => d.yAxis)).toEqual([-0.2, 0.2])
   })
 
-  it('keeps six fits on one scrolling legend row above the grid, so the legend never covers the points', () => {
+  it('shows every fit in the legend at once (no paging), the grid starting below its rows', () => {
     const series = [
       'Van Laar',
       'Margules',
@@ -127,8 +127,16 @@ describe('residualOption', () => {
       'NRTL #2 (α fitted from 0.3)',
     ].map((name) => ({ name, sigma: 0.1, points: [{ id: name, x1: 0.5, residual: 0.01 }] }))
     const o = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series })
-    expect((o.legend as { type: string }).type).toBe('scroll')
-    expect((o.grid as { top: number }).top).toBe(34)
+    const legend = o.legend as { type: string; data: string[] }
+    expect(legend.type).toBe('plain')
+    expect(legend.data).toEqual(series.map((s) => s.name))
+    // six names of this length need three rows at 430 px (6.3 px a character + 44 px a swatch): top 30 + 3·22
+    expect((o.grid as { top: number }).top).toBe(96)
+    // eleven fits: still no scroll legend, and more rows
+    const many = Array.from({ length: 11 }, (_, i) => ({ ...series[i % 6], name: `${series[i % 6].name} ${i}` }))
+    const o11 = residualOption({ title: 'ΔT', names, quantity: 'ΔT / K', digits: 3, series: many })
+    expect((o11.legend as { type: string }).type).toBe('plain')
+    expect((o11.grid as { top: number }).top).toBeGreaterThan(96)
   })
 })
 

@@ -49,6 +49,8 @@ export interface TxySuggestion {
   x1: number
   T: number
   sigmaY: number
+  /** predicted vapour composition (drawn on the x–y plot when given) */
+  y1?: number
 }
 
 /** Pure-component boiling points at the plot's pressure, K (component 1 at x1 = 1, component 2 at x1 = 0). */

@@ -11,7 +11,12 @@ export interface ResidualOptionInput {
   /** Decimals in the tooltip. */
   digits: number
   names: [string, string]
+  /** width the legend may use, px (default: a half-width plot's) */
+  legendWidthPx?: number
 }
+
+/** Grid top of a residual plot without a legend; extra legend rows are added to the plot's height. */
+export const RESIDUAL_TOP_PX = 52
 
 /** Build the whole option. */
 export function residualOption(o: ResidualOptionInput): Record<string, unknown> {
@@ -67,23 +72,17 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
     color: MUTED,
   } as never)
   const selected = Object.fromEntries(o.series.map((s) => [s.name, !s.hidden]))
-  // One scrolling row: residual plots are short, and a wrapping legend of 5–6 fits would cover the points.
-  const { legend: wrapping } = legendFor(
+  // Every fit's entry shown at once (no paging arrows): the legend wraps and the grid starts below its rows;
+  // ResidualPlot grows by the same amount so the plotting area keeps its height.
+  const { legend, top } = legendFor(
     o.series.map((s) => s.name),
     selected,
+    o.legendWidthPx,
   )
-  const legend = {
-    ...wrapping,
-    type: 'scroll',
-    orient: 'horizontal',
-    pageIconSize: 10,
-    pageTextStyle: { color: MUTED, fontSize: 11 },
-  }
-  const top = o.series.length ? 34 : 14
   return {
     ...base,
     legend,
-    grid: { left: 70, right: 20, top, bottom: 52 },
+    grid: { left: 70, right: 20, top: o.series.length ? top : 14, bottom: 52 },
     xAxis: fractionAxis(`x₁ (${o.names[0]})`),
     yAxis: valueAxis(o.quantity, { nameGap: 52, scale: false }),
     series,

@@ -1,5 +1,6 @@
 /** ECharts option of the T–x–y plot, built from plain data so it can be tested without a browser. */
 import { bandSeries, suggestionSeries } from './band-series'
+import { literatureTxySeries, type LiteratureSeries } from './literature-series'
 import { errorBarSeries, type ErrorBarDatum } from './error-bars'
 import {
   azeotropeTxySeries,
@@ -57,6 +58,8 @@ export interface TxyOptionInput {
   /** the model's three-phase line and two-liquid region, for a partially miscible system */
   threePhase?: ThreePhaseMark | null
   twoLiquids?: TwoLiquidRegion | null
+  /** literature data sets of the system, each with its own legend entry */
+  literature?: LiteratureSeries[] | null
 }
 
 export const LIQUID_NAME = 'Liquid x₁'
@@ -216,6 +219,7 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     ...o.curves.map((c) => c.name),
     ...(o.threePhase ? [THREE_PHASE_NAME] : []),
     ...(o.twoLiquids ? [TWO_LIQUID_NAME] : []),
+    ...(o.literature ?? []).map((l) => l.name),
   ]
   const { legend, top } = legendFor(names, selected)
   return {
@@ -229,6 +233,12 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
     yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),
-    series: [...extraSeries(o), ...curveSeries(o), ...measuredSeries(o), ...markerSeries(o)],
+    series: [
+      ...extraSeries(o),
+      ...curveSeries(o),
+      ...literatureTxySeries(o.literature ?? [], o.unit),
+      ...measuredSeries(o),
+      ...markerSeries(o),
+    ],
   }
 }

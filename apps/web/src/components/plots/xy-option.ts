@@ -1,7 +1,8 @@
 /** ECharts option of the x–y plot: diagonal, equilibrium curves, measured pairs, azeotrope, McCabe–Thiele construction. */
 import { baseOption, CURVE_COLOURS, escapeHtml, fmt, fractionAxis, INK, legendFor, LIQUID, MUTED } from './plot-style'
 import { azeotropeXySeries, THREE_PHASE_NAME, threePhaseXySeries } from './heterogeneous-series'
-import type { AzeotropeMark, StageConstruction, ThreePhaseMark, XyCurve, XyPoint } from './plot-types'
+import { literatureXySeries, MEASURE_NEXT_NAME, suggestionXySeries, type LiteratureSeries } from './literature-series'
+import type { AzeotropeMark, StageConstruction, ThreePhaseMark, TxySuggestion, XyCurve, XyPoint } from './plot-types'
 
 /** Inputs of `xyOption`; see XyPlot.vue. */
 export interface XyOptionInput {
@@ -17,6 +18,12 @@ export interface XyOptionInput {
   azeotropes?: AzeotropeMark[] | null
   /** the flat stretch where the liquid boils as two layers */
   threePhase?: ThreePhaseMark | null
+  /** literature data sets of the system, each with its own legend entry */
+  literature?: LiteratureSeries[] | null
+  /** compositions to measure next, drawn at their predicted y1 and numbered best first */
+  suggested?: TxySuggestion[] | null
+  /** width the legend may use, px (default: a half-width plot's) */
+  legendWidthPx?: number
 }
 
 const STEP = '#b0452b'
@@ -160,6 +167,9 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
       tooltip: { formatter: (p: { value: number[] }) => `x₁ = ${fmt(p.value[0])}<br>y₁ = ${fmt(p.value[1])}` },
     })
   }
+  series.push(...literatureXySeries(o.literature ?? []))
+  const suggested = (o.suggested ?? []).filter((s) => typeof s.y1 === 'number')
+  if (suggested.length) series.push(suggestionXySeries(o.suggested!, '#c98a12'))
   if (o.threePhase) series.push(...threePhaseXySeries(o.threePhase))
   series.push(...azeotropeXySeries(o.azeotropes ?? (o.azeotrope ? [o.azeotrope] : [])))
   if (o.stages) series.push(...stageSeries(o.stages))
@@ -195,8 +205,10 @@ export function xyOption(o: XyOptionInput): Record<string, unknown> {
     ...(o.points.length ? ['Measured'] : []),
     ...(o.threePhase ? [THREE_PHASE_NAME] : []),
     ...(o.stages ? ['Operating lines', 'Theoretical stages'] : []),
+    ...(o.literature ?? []).map((l) => l.name),
+    ...(suggested.length ? [MEASURE_NEXT_NAME] : []),
   ]
-  const { legend, top } = legendFor(names, selected)
+  const { legend, top } = legendFor(names, selected, o.legendWidthPx)
   return {
     ...base,
     legend,
