@@ -19,7 +19,8 @@ interface Basis {
   fitId: Ref<string | null>
   pressurePa: Ref<number>
   measured: Ref<MeasuredData | null>
-  version: Ref<{ nominalPressurePa: number } | null>
+  /** the version's nominal pressure (null for isothermal data) */
+  version: Ref<{ nominalPressurePa: number | null } | null>
   names: Ref<[string, string]>
 }
 
@@ -61,7 +62,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   // With the system's recommended set the fitted pressure range says it instead (its own warning on the page).
   const farFrom = computed(() =>
     !fitId.value?.startsWith(SYSTEM_SET_PREFIX) &&
-    version.value &&
+    version.value?.nominalPressurePa &&
     Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
       ? proseP(prefs, version.value.nominalPressurePa)
       : null,
