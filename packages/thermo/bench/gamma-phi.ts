@@ -47,10 +47,15 @@ function perCpuSecond(f: (x1: number) => void): { rate: number; iterations: numb
 const fmt = (v: number) => Math.round(v).toLocaleString('en-US')
 const ideal = perCpuSecond((x1) => bubbleTemperature(system, { P: 101325, x1 }))
 const gp = perCpuSecond((x1) => bubbleTemperatureGammaPhi(system, { P: 101325, x1 }, vapor))
+const withVapor: BinarySystem = { ...system, vapor }
+const main = perCpuSecond((x1) => bubbleTemperature(withVapor, { P: 101325, x1 }))
 console.log('\nγ–φ benchmark (solves per CPU-second, public API)')
 console.log(
   `  bubbleTemperature, ideal vapour, NRTL 1-propanol–water: ${fmt(ideal.rate)} (${ideal.iterations.toFixed(2)} iterations)`,
 )
 console.log(
   `  bubbleTemperatureGammaPhi, Tsonopoulos vapour: ${fmt(gp.rate)} (${gp.iterations.toFixed(2)} iterations, ideal start included); target ≥ 500,000 ${gp.rate >= 500_000 ? 'met' : 'MISSED'}`,
+)
+console.log(
+  `  bubbleTemperature with system.vapor (Tsonopoulos), the main solver: ${fmt(main.rate)} (${main.iterations.toFixed(2)} iterations)`,
 )

@@ -146,3 +146,53 @@ function uniquac(
   out[2] = -q1 * th2 * th2 * ((t21 * dt21) / (E1 * E1) + dt12 / (E2 * E2))
   out[3] = -q2 * th1 * th1 * ((t12 * dt12) / (E2 * E2) + dt21 / (E1 * E1))
 }
+
+/**
+ * NRTL derivatives of ln γ with respect to the reduced energies τ12 and τ21 (α fixed) at x1 and T, analytic:
+ * out[0] = ∂ln γ1/∂τ12, out[1] = ∂ln γ2/∂τ12, out[2] = ∂ln γ1/∂τ21, out[3] = ∂ln γ2/∂τ21. With S2 = x2 + x1·G12,
+ * ∂ln γ1/∂τ12 = x2²·G12/S2²·(1 − ατ12 + 2ατ12·x1G12/S2) and ∂ln γ2/∂τ12 = x1²·G12²/S2²·(1 − 2ατ12 + 2ατ12·x1G12/S2);
+ * the τ21 pair by exchanging the components. Used for the fits' Jacobians (checked against finite differences).
+ */
+export function nrtlTauGradient(
+  m: Extract<ActivityModel, { kind: 'nrtl' }>,
+  x1: number,
+  T: number,
+  out: Float64Array,
+): void {
+  const x2 = 1 - x1
+  const RT = R * T
+  const a = m.alpha
+  const t12 = (m.b12 + (m.b12T ?? 0) * (T - T_REF)) / RT
+  const t21 = (m.b21 + (m.b21T ?? 0) * (T - T_REF)) / RT
+  const G12 = Math.exp(-a * t12)
+  const G21 = Math.exp(-a * t21)
+  const S1 = x1 + x2 * G21
+  const S2 = x2 + x1 * G12
+  const h12 = (2 * a * t12 * x1 * G12) / S2
+  const h21 = (2 * a * t21 * x2 * G21) / S1
+  const g12 = G12 / (S2 * S2)
+  const g21 = G21 / (S1 * S1)
+  out[0] = x2 * x2 * g12 * (1 - a * t12 + h12)
+  out[1] = x1 * x1 * G12 * g12 * (1 - 2 * a * t12 + h12)
+  out[2] = x2 * x2 * G21 * g21 * (1 - 2 * a * t21 + h21)
+  out[3] = x1 * x1 * g21 * (1 - a * t21 + h21)
+}
+
+/**
+ * NRTL ∂ln γ1/∂x1 at x1 and T, analytic: with A = τ21·G21²/S1² + τ12·G12/S2², S1 = x1 + x2·G21, S2 = x2 + x1·G12,
+ * ln γ1 = x2²·A and ∂ln γ1/∂x1 = −2x2·A + x2²·[−2τ21·G21²(1 − G21)/S1³ − 2τ12·G12(G12 − 1)/S2³]. The liquid-stability
+ * screens use it for the thermodynamic factor Γ = 1 + x1·∂ln γ1/∂x1 (checked against finite differences).
+ */
+export function nrtlDlnGamma1Dx1(m: Extract<ActivityModel, { kind: 'nrtl' }>, x1: number, T: number): number {
+  const x2 = 1 - x1
+  const RT = R * T
+  const t12 = (m.b12 + (m.b12T ?? 0) * (T - T_REF)) / RT
+  const t21 = (m.b21 + (m.b21T ?? 0) * (T - T_REF)) / RT
+  const G12 = Math.exp(-m.alpha * t12)
+  const G21 = Math.exp(-m.alpha * t21)
+  const S1 = x1 + x2 * G21
+  const S2 = x2 + x1 * G12
+  const A = (t21 * G21 * G21) / (S1 * S1) + (t12 * G12) / (S2 * S2)
+  const dA = (-2 * t21 * G21 * G21 * (1 - G21)) / (S1 * S1 * S1) - (2 * t12 * G12 * (G12 - 1)) / (S2 * S2 * S2)
+  return -2 * x2 * A + x2 * x2 * dA
+}

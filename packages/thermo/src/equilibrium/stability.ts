@@ -8,7 +8,7 @@
  * The memory is keyed by the model object and re-checked against its numbers, so a model edited in place
  * is recomputed, not trusted.
  */
-import { lnGammaT } from '../activity/kernel.js'
+import { lnGammaT, nrtlDlnGamma1Dx1 } from '../activity/kernel.js'
 import type { ActivityModel } from '../types.js'
 import { LLE_GRID, liquidGaps, solveGap, type LiquidGap } from './lle.js'
 
@@ -17,6 +17,7 @@ const MARGIN = 0.02
 const buf = new Float64Array(4)
 
 function gammaFactor(act: ActivityModel, x: number, T: number): number {
+  if (act.kind === 'nrtl') return 1 + x * nrtlDlnGamma1Dx1(act, x, T)
   const h = 1e-6 * Math.min(x, 1 - x, 1e-2) + 1e-12
   lnGammaT(act, x + h, T, buf)
   const up = buf[0]
@@ -53,6 +54,45 @@ export function coarseMinimumThermodynamicFactor(act: ActivityModel, T: number):
   return best
 }
 
+/**
+ * The smallest Γ on the coarse grid, polished by golden section between the lowest node's neighbours (in the logit
+ * of x1): the exact local minimum there, so a value well above 0 proves that no liquid can split at T (a split needs
+ * Γ < 0 somewhere) without the convex-hull search.
+ */
+export function polishedMinimumThermodynamicFactor(act: ActivityModel, T: number): number {
+  let best = Infinity
+  let at = 0
+  for (let i = 0; i < COARSE.length; i++) {
+    const v = gammaFactor(act, COARSE[i], T)
+    if (v < best) [best, at] = [v, i]
+  }
+  const logit = (x: number) => Math.log(x / (1 - x))
+  const f = (u: number) => gammaFactor(act, 1 / (1 + Math.exp(-u)), T)
+  let a = logit(COARSE[Math.max(0, at - 1)])
+  let b = logit(COARSE[Math.min(COARSE.length - 1, at + 1)])
+  const r = (Math.sqrt(5) - 1) / 2
+  let c = b - r * (b - a)
+  let d = a + r * (b - a)
+  let fc = f(c)
+  let fd = f(d)
+  for (let k = 0; k < 24; k++) {
+    if (fc < fd) {
+      b = d
+      d = c
+      fd = fc
+      c = b - r * (b - a)
+      fc = f(c)
+    } else {
+      a = c
+      c = d
+      fc = fd
+      d = a + r * (b - a)
+      fd = f(d)
+    }
+  }
+  return Math.min(best, fc, fd)
+}
+
 function snapshot(act: ActivityModel): number[] {
   switch (act.kind) {
     case 'ideal':
@@ -63,7 +103,7 @@ function snapshot(act: ActivityModel): number[] {
     case 'wilson':
       return [act.a12, act.a21, act.V1, act.V2]
     case 'nrtl':
-      return [act.b12, act.b21, act.alpha]
+      return [act.b12, act.b21, act.alpha, act.b12T ?? 0, act.b21T ?? 0]
     case 'uniquac':
       return [act.a12, act.a21, act.r1, act.r2, act.q1, act.q2]
   }
@@ -77,7 +117,13 @@ function same(act: ActivityModel, kind: string, v: number[]): boolean {
     case 'van-laar':
       return act.A12 === v[0] && act.A21 === v[1]
     case 'nrtl':
-      return act.b12 === v[0] && act.b21 === v[1] && act.alpha === v[2]
+      return (
+        act.b12 === v[0] &&
+        act.b21 === v[1] &&
+        act.alpha === v[2] &&
+        (act.b12T ?? 0) === v[3] &&
+        (act.b21T ?? 0) === v[4]
+      )
     case 'uniquac':
       return (
         act.a12 === v[0] && act.a21 === v[1] && act.r1 === v[2] && act.r2 === v[3] && act.q1 === v[4] && act.q2 === v[5]

@@ -128,28 +128,60 @@ export interface FitBinaryResult {
 }
 
 /** Scaled distance between parameter vectors, to tell separate minima apart. */
-function distinct(a: ArrayLike<number>, b: ArrayLike<number>, layout: ParameterLayout): boolean {
+function distinct(a: ArrayLike<number>, b: ArrayLike<number>, layout: ParameterLayout, tolerance = 1e-3): boolean {
   for (let j = 0; j < a.length; j++)
-    if (Math.abs(a[j] - b[j]) > 1e-3 * Math.max(Math.abs(a[j]), layout.scales[j])) return true
+    if (Math.abs(a[j] - b[j]) > tolerance * Math.max(Math.abs(a[j]), layout.scales[j])) return true
   return false
 }
 
-/** Cheap multi-start: rank the grid by activity cost, refine the best few, keep the distinct minima, best first. */
+/** Iterates this close to a minimum already found (relative, as in {@link distinct}) are in its basin. */
+const SAME_BASIN = 1e-2
+
+/** At most this many points, evenly spread, rank the starting grid (the ranking only orders the starts). */
+const RANKING_POINTS = 30
+
+/**
+ * Cheap multi-start: rank the grid by activity cost (on at most RANKING_POINTS evenly spread points), refine the best
+ * two, keep the distinct minima, best first. A refinement that comes within SAME_BASIN of a minimum already found is
+ * stopped there: it would converge to that minimum.
+ */
 function activityCandidates(data: FitData, layout: ParameterLayout, objectiveTolerance: number): LeastSquaresResult[] {
   const problem = activityProblem(data, layout)
-  const r = new Float64Array(problem.nResiduals)
+  const ranking = data.n > RANKING_POINTS ? activityProblem(evenSubset(data, RANKING_POINTS), layout) : problem
+  const r = new Float64Array(ranking.nResiduals)
   const ranked = layout.starts
-    .map((p) => ({ p, cost: problem.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
+    .map((p) => ({ p, cost: ranking.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
     .filter((s) => Number.isFinite(s.cost))
     .sort((a, b) => a.cost - b.cost)
     .slice(0, 2)
   const found: LeastSquaresResult[] = []
   for (const s of ranked) {
     // Only a starting point for the bubble-point fit, so a loose tolerance is enough.
-    const fit = levenbergMarquardt(problem, s.p, { maxIterations: 100, tolerance: objectiveTolerance })
-    if (fit && found.every((f) => distinct(f.p, fit.p, layout))) found.push(fit)
+    const fit = levenbergMarquardt(problem, s.p, {
+      maxIterations: 100,
+      tolerance: objectiveTolerance,
+      stop: (p) => found.some((f) => !distinct(f.p, p, layout, SAME_BASIN)),
+    })
+    if (fit && !fit.stopped && found.every((f) => distinct(f.p, fit.p, layout))) found.push(fit)
   }
   return found.sort((a, b) => a.cost - b.cost)
+}
+
+/** The FitData of `count` points spread evenly over d's points (what the activity objective reads). */
+function evenSubset(d: FitData, count: number): FitData {
+  const pick = Array.from({ length: count }, (_, k) => Math.round((k * (d.n - 1)) / (count - 1)))
+  const take = (a: Float64Array) => Float64Array.from(pick, (i) => a[i])
+  return {
+    ...d,
+    n: count,
+    T: take(d.T),
+    lnP: take(d.lnP),
+    x1: take(d.x1),
+    y1: take(d.y1),
+    hasY: Uint8Array.from(pick, (i) => d.hasY[i]),
+    ...(d.het ? { het: Uint8Array.from(pick, (i) => d.het![i]) } : {}),
+    ...(d.lnPhiExp ? { lnPhiExp: [take(d.lnPhiExp[0]), take(d.lnPhiExp[1])] as [Float64Array, Float64Array] } : {}),
+  }
 }
 
 function bestBubbleFit(problem: LeastSquaresProblem, starts: ArrayLike<number>[]): LeastSquaresResult | null {

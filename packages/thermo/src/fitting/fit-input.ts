@@ -54,7 +54,9 @@ export function modelName(model: FittableModel): string {
 }
 
 function checkPoint(pt: BinaryPoint, i: number): void {
-  const fail = (text: string) => new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
+  function fail(text: string) {
+    return new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
+  }
   if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1 (y1 may be null).')
   if (!(Number.isFinite(pt.T) && pt.T > 0)) throw fail(`temperature must be a positive number of kelvins; got ${pt.T}.`)
   if (!(Number.isFinite(pt.P) && pt.P > 0)) throw fail(`pressure must be a positive number of pascals; got ${pt.P}.`)
@@ -187,26 +189,35 @@ export function buildFitData(
     )
   }
   const n = index.length
-  const col = (f: (p: BinaryPoint) => number) => Float64Array.from(index, (i) => f(points[i]))
-  const hasY = Uint8Array.from(index, (i) => (points[i].y1 === null ? 0 : 1))
+  const hasY = new Uint8Array(n)
   const rowOf = new Int32Array(n)
+  const [T, lnP, x1, y1, wT, wY, wP] = Array.from({ length: 7 }, () => new Float64Array(n))
   let rows = 0
   for (let k = 0; k < n; k++) {
+    const p = points[index[k]]
+    hasY[k] = p.y1 === null ? 0 : 1
     rowOf[k] = rows
     rows += 1 + hasY[k]
+    T[k] = p.T
+    lnP[k] = Math.log(p.P)
+    x1[k] = p.x1
+    y1[k] = p.y1 ?? NaN
+    wT[k] = 1 / (p.sigmaT ?? DEFAULT_SIGMA_T)
+    wY[k] = 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)
+    wP[k] = 1 / (p.sigmaP ?? DEFAULT_SIGMA_P)
   }
   const data: FitData = {
     n,
     nRows: rows,
     rowOf,
     hasY,
-    T: col((p) => p.T),
-    lnP: col((p) => Math.log(p.P)),
-    x1: col((p) => p.x1),
-    y1: col((p) => p.y1 ?? NaN),
-    wT: col((p) => 1 / (p.sigmaT ?? DEFAULT_SIGMA_T)),
-    wY: col((p) => 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)),
-    wP: col((p) => 1 / (p.sigmaP ?? DEFAULT_SIGMA_P)),
+    T,
+    lnP,
+    x1,
+    y1,
+    wT,
+    wY,
+    wP,
     vp1,
     vp2,
     gv,

@@ -5,7 +5,7 @@
  * numbers wherever a design or a diagram enters the false two-liquid region.
  */
 import { liquidGaps, type LiquidGap } from '../equilibrium/lle.js'
-import { coarseMinimumThermodynamicFactor } from '../equilibrium/stability.js'
+import { coarseMinimumThermodynamicFactor, polishedMinimumThermodynamicFactor } from '../equilibrium/stability.js'
 import type { ActivityModel } from '../types.js'
 
 /** A warning with a name a program can act on; `message` is for the chemist. */
@@ -37,9 +37,11 @@ export function liquidSplitWarnings(
 ): NamedFitWarning[] {
   let widest: { gap: LiquidGap; T: number } | null = null
   for (const T of temperatures(Tmin, Tmax)) {
-    // Cheap screen first: far from a spinodal (Γ well above 0 everywhere) there is no gap to look for.
+    // Cheap screens first: far from a spinodal (Γ well above 0 everywhere) there is no gap to look for; nearer, the
+    // polished minimum of Γ decides (a split needs Γ < 0 somewhere; 0.01 is a margin for the grid, our choice).
     if (activity.kind === 'ideal' || activity.kind === 'wilson' || coarseMinimumThermodynamicFactor(activity, T) > 0.05)
       continue
+    if (polishedMinimumThermodynamicFactor(activity, T) > 0.01) continue
     for (const gap of liquidGaps(activity, T)) {
       if (!widest || gap.xII - gap.xI > widest.gap.xII - widest.gap.xI) widest = { gap, T }
     }

@@ -25,6 +25,8 @@ export interface LeastSquaresResult {
   converged: boolean
   r: Float64Array
   J: Float64Array
+  /** True when the caller's `stop` ended the search (the result is then the iterate where it stopped). */
+  stopped?: boolean
 }
 
 function sumSquares(r: Float64Array): number {
@@ -37,7 +39,7 @@ function sumSquares(r: Float64Array): number {
 export function levenbergMarquardt(
   problem: LeastSquaresProblem,
   p0: ArrayLike<number>,
-  options: { maxIterations?: number; tolerance?: number } = {},
+  options: { maxIterations?: number; tolerance?: number; stop?: (p: Float64Array) => boolean } = {},
 ): LeastSquaresResult | null {
   const n = problem.nResiduals
   const m = problem.nParams
@@ -99,6 +101,7 @@ export function levenbergMarquardt(
         converged = true
         break
       }
+      if (options.stop?.(p)) return { p, cost, iterations, converged: false, r, J, stopped: true }
     } else {
       lambda *= nu
       nu *= 2

@@ -11,6 +11,7 @@ import { lnGammaT } from '../activity/kernel.js'
 import { res, solveBubbleP, solveBubbleT } from '../equilibrium/kernel.js'
 import type { ActivityModel } from '../types.js'
 import type { LnPsat } from '../vapor-pressure/compiled.js'
+import { lnGammaSensitivities, type Perturbed } from './gamma-gradient.js'
 import { lnPhiDerivatives, solveBubblePGammaPhi, solveBubbleTGammaPhi, type CompiledVirial } from '../virial/kernel.js'
 
 /** What a model point needs: the vapour pressures, the compiled virial vapour (null: ideal) and the kind of data. */
@@ -27,6 +28,7 @@ export const point = new Float64Array(4)
 const phiBuf = new Float64Array(5)
 const dphi = new Float64Array(6)
 const g = new Float64Array(4)
+let dlng = new Float64Array(8)
 
 /**
  * Solve the model at liquid x1 and the point's fixed condition (lnP isobaric, T isothermal); T0 warm-starts an
@@ -71,7 +73,7 @@ export function pointSensitivities(
   act: ActivityModel,
   ctx: PointContext,
   x1: number,
-  pm: { models: ActivityModel[]; steps: number[] },
+  pm: Perturbed,
   dCalc: Float64Array,
   dy: Float64Array,
 ): void {
@@ -106,10 +108,12 @@ export function pointSensitivities(
   const m22 = -1 + y2 * b2
   const det = m11 * m22 - m12 * m21
   const scale = ctx.isothermal ? P : 1
-  for (let j = 0; j < pm.steps.length; j++) {
-    lnGammaT(pm.models[j], x1, T, g)
-    const r1 = (y1 * (g[0] - base1)) / pm.steps[j]
-    const r2 = (y2 * (g[1] - base2)) / pm.steps[j]
+  const mp = pm.steps.length
+  if (dlng.length < 2 * mp) dlng = new Float64Array(2 * mp)
+  lnGammaSensitivities(pm, x1, T, base1, base2, dlng)
+  for (let j = 0; j < mp; j++) {
+    const r1 = y1 * dlng[2 * j]
+    const r2 = y2 * dlng[2 * j + 1]
     dCalc[j] = (scale * (r1 * m22 - m12 * r2)) / det
     dy[j] = (m11 * r2 - m21 * r1) / det
   }

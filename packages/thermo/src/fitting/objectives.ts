@@ -17,6 +17,7 @@ import type { ParameterLayout } from './parameters.js'
 import { threePhaseRow, threePhaseSensitivities, type ThreePhaseMemo } from './heterogeneous.js'
 import type { CompiledVirial } from '../virial/kernel.js'
 import { point, pointSensitivities, solvePoint } from './model-point.js'
+import { lnGammaSensitivities, perturbedModels, type Perturbed } from './gamma-gradient.js'
 
 /** Included mixture points (0 < x1 < 1) in SI, with weights 1/σ. */
 export interface FitData {
@@ -48,42 +49,6 @@ export interface FitData {
 }
 
 const g = new Float64Array(4)
-
-/** Models at p + h·e_j for forward differences in the parameters, with their steps h. */
-function perturbedModels(
-  layout: ParameterLayout,
-  p: Float64Array,
-): { base: ActivityModel; models: ActivityModel[]; steps: number[] } {
-  const models: ActivityModel[] = []
-  const steps: number[] = []
-  const q = Float64Array.from(p)
-  for (let j = 0; j < p.length; j++) {
-    const h = 1e-6 * Math.max(Math.abs(p[j]), layout.scales[j])
-    q[j] = p[j] + h
-    models.push(layout.build(q))
-    q[j] = p[j]
-    steps.push(h)
-  }
-  return { base: layout.build(p), models, steps }
-}
-
-type Perturbed = ReturnType<typeof perturbedModels>
-
-/** ∂ln γ1/∂θj and ∂ln γ2/∂θj at (x1, T) into out[2j], out[2j+1]; base = ln γ1, ln γ2 of the unperturbed model. */
-function lnGammaSensitivities(
-  pm: Perturbed,
-  x1: number,
-  T: number,
-  base1: number,
-  base2: number,
-  out: Float64Array,
-): void {
-  for (let j = 0; j < pm.steps.length; j++) {
-    lnGammaT(pm.models[j], x1, T, g)
-    out[2 * j] = (g[0] - base1) / pm.steps[j]
-    out[2 * j + 1] = (g[1] - base2) / pm.steps[j]
-  }
-}
 
 /**
  * Solve the bubble point of data point i with `model`, warm-started from Tguess[i]; on success
@@ -182,7 +147,7 @@ export function bubbleProblem(
     jacobian(p, r, J) {
       if (!layout.valid(p)) return false
       const model = layout.build(p)
-      const pm = perturbedModels(layout, p)
+      const pm = perturbedModels(layout, p, d.het !== undefined)
       for (let i = 0; i < d.n; i++) {
         if (!solve(model, i)) return false
         fill(r, i)
@@ -225,6 +190,7 @@ export function experimentalLnGamma(d: FitData): [Float64Array, Float64Array] {
 /** The activity objective: residuals ln γi(model) − ln γi(exp), unweighted; forward differences in θ. */
 export function activityProblem(d: FitData, layout: ParameterLayout): LeastSquaresProblem {
   const m = layout.names.length
+  const dlng = new Float64Array(2 * m)
   const [l1, l2] = experimentalLnGamma(d)
   const fill = (model: ActivityModel, r: Float64Array) => {
     for (let i = 0; i < d.n; i++) {
@@ -243,7 +209,18 @@ export function activityProblem(d: FitData, layout: ParameterLayout): LeastSquar
     },
     jacobian(p, r, J) {
       if (!layout.valid(p)) return false
-      fill(layout.build(p), r)
+      const base = layout.build(p)
+      fill(base, r)
+      if (layout.gradient) {
+        for (let i = 0; i < d.n; i++) {
+          layout.gradient(base, d.x1[i], d.T[i], dlng)
+          for (let j = 0; j < m; j++) {
+            J[2 * i * m + j] = Number.isNaN(l1[i]) ? 0 : dlng[2 * j]
+            J[(2 * i + 1) * m + j] = Number.isNaN(l2[i]) ? 0 : dlng[2 * j + 1]
+          }
+        }
+        return true
+      }
       const q = Float64Array.from(p)
       for (let j = 0; j < m; j++) {
         const h = 1e-6 * Math.max(Math.abs(p[j]), layout.scales[j])

@@ -2,7 +2,8 @@
  * How each fittable activity model maps to a parameter vector: names (the model's own field names),
  * typical scales (for finite-difference steps and starting grids) and validity limits.
  */
-import type { ActivityModel } from '../types.js'
+import { R, type ActivityModel } from '../types.js'
+import { nrtlTauGradient, T_REF } from '../activity/kernel.js'
 import { NRTL_ALPHA_BOUNDS } from './alpha-bounds.js'
 
 /** The models fitBinary can fit. */
@@ -23,6 +24,31 @@ export interface ParameterLayout {
   build(p: ArrayLike<number>): ActivityModel
   valid(p: ArrayLike<number>): boolean
   starts: number[][]
+  /**
+   * Analytic ∂ln γ1/∂θj, ∂ln γ2/∂θj of `model` (built from p) at x1 and T into out[2j], out[2j + 1], where the
+   * layout has it (NRTL with α held); otherwise the fits use forward differences.
+   */
+  gradient?(model: ActivityModel, x1: number, T: number, out: Float64Array): void
+}
+
+const tau = new Float64Array(4)
+
+/** NRTL (α held) gradient in (b12, b21) and, when `withSlopes`, (b12T, b21T): ∂τ/∂b = 1/RT, ∂τ/∂bT = (T − 298.15 K)/RT. */
+function nrtlGradient(withSlopes: boolean) {
+  return (model: ActivityModel, x1: number, T: number, out: Float64Array): void => {
+    nrtlTauGradient(model as Extract<ActivityModel, { kind: 'nrtl' }>, x1, T, tau)
+    const k = 1 / (R * T)
+    out[0] = tau[0] * k
+    out[1] = tau[1] * k
+    out[2] = tau[2] * k
+    out[3] = tau[3] * k
+    if (!withSlopes) return
+    const s = (T - T_REF) * k
+    out[4] = tau[0] * s
+    out[5] = tau[1] * s
+    out[6] = tau[2] * s
+    out[7] = tau[3] * s
+  }
 }
 
 const ENERGY_GRID = [-1500, 0, 1500, 4000]
@@ -114,6 +140,7 @@ export function parameterLayout(
         build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha }),
         valid: (p) => Math.abs(p[0]) < 1e5 && Math.abs(p[1]) < 1e5,
         starts: grid(ENERGY_GRID),
+        gradient: nrtlGradient(false),
       }
     }
   }
@@ -138,6 +165,7 @@ function temperatureDependentLayout(
       build: (p) => ({ kind: 'nrtl', b12: p[0], b21: p[1], alpha, b12T: p[2], b21T: p[3] }),
       valid,
       starts,
+      gradient: nrtlGradient(true),
     }
   }
   const V1 = opts.V1 as number

@@ -20,7 +20,7 @@ import {
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'
 import { compiledVirial, solveBubblePGammaPhi, solveBubbleTGammaPhi } from './kernel.js'
-import { checkVaporModel, secondVirialCoefficients } from './tsonopoulos.js'
+import { secondVirialCoefficients } from './tsonopoulos.js'
 import type { VaporCorrection, VaporModel } from './virial-types.js'
 
 export type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
@@ -87,7 +87,7 @@ function virialOf(system: BinarySystem, vapor?: VaporModel): VirialVapor {
   const v = vapor ?? system?.vapor
   if (!v || v.kind !== 'virial')
     throw new ThermoError('invalid-model', 'A γ–φ calculation needs a virial vapour model.')
-  checkVaporModel(v)
+  compiledVirial(v) // checks the model once (then cached)
   return v
 }
 
@@ -134,7 +134,9 @@ function settled(
 function prepare(system: BinarySystem, vapor?: VaporModel): { c: CompiledSystem; v: VirialVapor } {
   const v = virialOf(system, vapor)
   const c = compileSystem(system)
-  return { c: c.gv && c.source.vapor === v ? c : { ...c, gv: compiledVirial(v) }, v }
+  // compileSystem returns a fresh object: set the vapour given here (it may differ from system.vapor).
+  if (c.source.vapor !== v) c.gv = compiledVirial(v)
+  return { c, v }
 }
 
 /**

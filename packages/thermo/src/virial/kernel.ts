@@ -171,9 +171,19 @@ export function solveBubbleTGammaPhi(
     const d2 = T + vp2.c
     const ps1 = Math.exp(vp1.a - vp1.b / d1)
     const ps2 = Math.exp(vp2.a - vp2.b / d2)
-    const bMix = lnPhiFactors(v, T, P, y1, ps1, ps2, lp)
-    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lp[0]) * ps1 : 0
-    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lp[1]) * ps2 : 0
+    // ln Φi as in lnPhiFactors, inlined: this loop is the γ–φ hot path.
+    const b11 = B(v.k, 0, T)
+    const b22 = B(v.k, 1, T)
+    const b12 = B(v.k, 2, T)
+    const d12 = 2 * b12 - b11 - b22
+    const rt = R * T
+    const y2 = 1 - y1
+    const lnPhiHat1 = (P * (b11 + y2 * y2 * d12)) / rt
+    const lnPhiHat2 = (P * (b22 + y1 * y1 * d12)) / rt
+    const lnPhi1 = lnPhiHat1 - (b11 * ps1 + v.VL1 * (P - ps1)) / rt
+    const lnPhi2 = lnPhiHat2 - (b22 * ps2 + v.VL2 * (P - ps2)) / rt
+    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lnPhi1) * ps1 : 0
+    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lnPhi2) * ps2 : 0
     const S = k1 + k2
     const fp = (k1 * (g[2] + vp1.b / (d1 * d1)) + k2 * (g[3] + vp2.b / (d2 * d2))) / S
     const dT = -Math.log(S / P) / fp
@@ -187,12 +197,12 @@ export function solveBubbleTGammaPhi(
       res[3] = Math.exp(g[1])
       res[4] = start + it
       res[5] = P
-      phiOut[0] = Math.exp(lp[2])
-      phiOut[1] = Math.exp(lp[3])
-      phiOut[2] = Math.exp(lp[0])
-      phiOut[3] = Math.exp(lp[1])
+      phiOut[0] = Math.exp(lnPhiHat1)
+      phiOut[1] = Math.exp(lnPhiHat2)
+      phiOut[2] = Math.exp(lnPhi1)
+      phiOut[3] = Math.exp(lnPhi2)
       // molar volume of the vapour, m³/mol, for the validity check: RT/P + B_mix
-      phiOut[4] = (R * T) / P + bMix
+      phiOut[4] = rt / P + y1 * y1 * b11 + 2 * y1 * y2 * b12 + y2 * y2 * b22
       return true
     }
     y1 = yn
