@@ -3,7 +3,7 @@
  * runs from a published activity model, with simulated weighing, barometer, thermometer and GC noise.
  * Deterministic (seeded), so the demo and the example files are the same on every machine.
  */
-import { bubbleTemperature } from '@ebullio/thermo'
+import { bubbleTemperature, type VaporModel } from '@ebullio/thermo'
 import { gaussian, mulberry32 } from '@ebullio/thermo/random'
 import { DEMO_COMPONENTS, demoVaporPressure, type DemoSystem } from './demo-systems.js'
 
@@ -65,7 +65,7 @@ export interface GeneratedState {
  */
 export function runCsv(
   system: DemoSystem,
-  o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels },
+  o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels; vapor?: VaporModel },
 ): { csv: string; states: GeneratedState[] } {
   const noise = o.noise ?? DEFAULT_NOISE
   const rand = mulberry32(o.seed)
@@ -75,6 +75,8 @@ export function runCsv(
       ReturnType<typeof demoVaporPressure>,
     ],
     activity: system.activity,
+    // a virial vapour makes the engine solve γ–φ bubble points
+    ...(o.vapor ? { vapor: o.vapor } : {}),
   }
   const states: GeneratedState[] = []
   const body: string[][] = []

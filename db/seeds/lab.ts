@@ -22,6 +22,7 @@ import { findGcMethodByName, listCalibrations } from '../../apps/api/src/reposit
 import { findSystemByPair, insertSystem } from '../../apps/api/src/repositories/systems.repository.js'
 import { commitCalibration, createGcMethod } from '../../apps/api/src/services/calibrations.service.js'
 import { scenarioDataSets } from './lab-scenario.js'
+import { vapourAndIsothermalDataSets } from './lab-scenario-vapour.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { calibrationCsv } from './gc-generator.js'
 import { jointScenario } from './joint-scenario.js'
@@ -144,4 +145,5 @@ export async function seedLab(db: Kysely<Database>, ids: Record<string, string>)
   const systemIds = await seedSystemsAndCalibrations({ db: kdb, config, users }, components)
   await scenarioDataSets({ db: kdb, config, users, systemIds })
   await jointScenario({ db: kdb, config, users, systemIds })
+  await vapourAndIsothermalDataSets({ db: kdb, config, users, systemIds })
 }

@@ -118,10 +118,10 @@ describe('lists and exports', () => {
     expect(r.headers['content-type']).toBe('text/csv; charset=utf-8')
     const lines = r.text.trim().split('\n')
     expect(lines[0]).toBe(
-      'seq,sample,t_k,p_kpa,x1,u_x1,y1,u_y1,excluded,exclusion_reason,liquid_layers,x1_layer_i,u_x1_layer_i,x1_layer_ii,u_x1_layer_ii',
+      'seq,sample,t_k,p_kpa,x1,u_x1,y1,u_y1,excluded,exclusion_reason,liquid_layers,x1_layer_i,u_x1_layer_i,x1_layer_ii,u_x1_layer_ii,u_p_kpa',
     )
     expect(lines).toHaveLength(13)
-    expect(lines[1]).toMatch(/^1,AM-01,3\d\d\.\d{3},101\.\d{4},0\.\d{5},[\d.e+-]+,0\.\d{5},[\d.e+-]+,false,,1,,,,$/)
+    expect(lines[1]).toMatch(/^1,AM-01,3\d\d\.\d{3},101\.\d{4},0\.\d{5},[\d.e+-]+,0\.\d{5},[\d.e+-]+,false,,1,,,,,$/)
   })
 
   it('computes the curve with a fit chosen by id and rejects a bad pressure', async () => {

@@ -22,7 +22,7 @@ describe('demo scenario (invented data)', () => {
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
       approved: 5,
-      draft: 1,
+      draft: 3,
       returned: 1,
       submitted: 3,
       superseded: 1,
@@ -31,7 +31,7 @@ describe('demo scenario (invented data)', () => {
     expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(7)
     expect(
       (await sql<{ n: number }>`select count(*)::int as n from upload where kind = 'run'`.execute(t.db)).rows[0].n,
-    ).toBe(10)
+    ).toBe(11)
     // the recommended parameter set of methanol/water: run by one lead chemist, signed by the other (joint-scenario.ts)
     const joint = await sql<{ state: string; signer: string; runner: string }>`
       select j.state, s.display_name as signer, r.display_name as runner from joint_fit j

@@ -52,7 +52,8 @@ describe('results bound to their point set', () => {
     const d = await fittedDraft('Stale after exclusion')
     const before = await detail(lab.analyst, d.id)
     expect(before.fits.map((f: Fit) => f.stale)).toEqual([false, false])
-    expect(before.consistency.map((c: Fit) => c.stale)).toEqual([false, false])
+    // area test, point test and data-quality score
+    expect(before.consistency.map((c: Fit) => c.stale)).toEqual([false, false, false])
     expect(before.fits[0].pointSetDigest).toBe(before.pointSetDigest)
     expect(before.fits[0].pointCount).toBe(12)
 
@@ -63,7 +64,7 @@ describe('results bound to their point set', () => {
     const after = await detail(lab.analyst, d.id)
     expect(after.pointSetDigest).not.toBe(before.pointSetDigest)
     expect(after.fits.map((f: Fit) => f.stale)).toEqual([true, true])
-    expect(after.consistency.map((c: Fit) => c.stale)).toEqual([true, true])
+    expect(after.consistency.map((c: Fit) => c.stale)).toEqual([true, true, true])
     expect(
       (await lab.analyst.get(`/api/data-sets/${d.id}/fits`).expect(200)).body.items.every((f: Fit) => f.stale),
     ).toBe(true)
@@ -76,7 +77,8 @@ describe('results bound to their point set', () => {
     expect(submit.body.error.message).toMatch(
       /^Cannot submit: results computed on other points than the data set has now — the recommended fit \(Wilson\) was computed on 12 points on .+ UTC; the (area|point) test was computed on 12 points/,
     )
-    expect(submit.body.error.details.stale).toHaveLength(3)
+    // the recommended fit, the area and point tests and the data-quality score
+    expect(submit.body.error.details.stale).toHaveLength(4)
     // A stale fit cannot be chosen either.
     const choose = await lab.lead.post(`/api/data-sets/${d.id}/recommended-fit`).send({ fitId: d.wilsonId })
     expect(choose.status).toBe(409)

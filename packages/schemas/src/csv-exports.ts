@@ -85,8 +85,11 @@ export interface ExportPoint {
   pressurePa: number
   x1: number
   x1Uncertainty: number
-  y1: number
-  y1Uncertainty: number
+  /** null without vapour composition (T–x, P–x) */
+  y1: number | null
+  y1Uncertainty: number | null
+  /** σP, Pa, when the point gives one */
+  pressureUncertaintyPa?: number | null
   excluded: boolean
   exclusionReason: string | null
   /** The liquid split into two layers: x1 is the overall composition; the layers (when analysed) follow. */
@@ -110,11 +113,13 @@ export const POINTS_CSV_HEADER = [
   'u_x1_layer_i',
   'x1_layer_ii',
   'u_x1_layer_ii',
+  'u_p_kpa',
 ] as const
 
 /**
  * The points export: K and kPa whatever the display units; 3 decimals for T, 4 for P, 5 for x and y. A two-layer
  * point has liquid_layers 2, its overall x1, and both layers' x1 (layer I poorer in component 1) when analysed.
+ * y1 and u_y1 are empty for data without vapour composition; u_p_kpa (σP, kPa) is empty unless the point gives it.
  */
 export function pointsCsv(points: readonly ExportPoint[]): string {
   return csvDocument(
@@ -135,6 +140,7 @@ export function pointsCsv(points: readonly ExportPoint[]): string {
       p.liquidPhases ? exponent(p.liquidPhases[0].uncertainty, 3) : null,
       p.liquidPhases ? fixed(p.liquidPhases[1].x1, 5) : null,
       p.liquidPhases ? exponent(p.liquidPhases[1].uncertainty, 3) : null,
+      p.pressureUncertaintyPa ? exponent(p.pressureUncertaintyPa / 1000, 3) : null,
     ]),
   )
 }

@@ -9,8 +9,8 @@ import { z } from 'zod'
 export const DATA_ORIGINS = ['gc', 'other-method', 'literature'] as const
 export type DataOrigin = (typeof DATA_ORIGINS)[number]
 
-/** txy: isobaric T–x–y · tx: isobaric T–x (no vapour analysed) · pxy: isothermal P–x–y. */
-export const DATA_LAYOUTS = ['txy', 'tx', 'pxy'] as const
+/** txy: isobaric T–x–y · tx: isobaric T–x (no vapour analysed) · pxy: isothermal P–x–y · px: isothermal P–x. */
+export const DATA_LAYOUTS = ['txy', 'tx', 'pxy', 'px'] as const
 export type DataLayout = (typeof DATA_LAYOUTS)[number]
 
 const t = (max: number) => z.string().trim().max(max)
@@ -67,6 +67,14 @@ export const directPointSchema = z.object({
   y1: z.number().min(0, 'y1 must be between 0 and 1').max(1, 'y1 must be between 0 and 1').nullable(),
   x1Uncertainty: z.number().min(0, 'u(x1) cannot be negative').max(0.5),
   y1Uncertainty: z.number().min(0, 'u(y1) cannot be negative').max(0.5).nullable(),
+  /** σP, the standard uncertainty of the measured pressure (Pa); null or absent = the engine's default */
+  pressureUncertaintyPa: z
+    .number()
+    .positive('σP must be positive (Pa)')
+    .max(1e6, 'σP above 1 MPa')
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
 })
 export type DirectPoint = z.output<typeof directPointSchema>
 

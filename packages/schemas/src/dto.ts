@@ -61,8 +61,11 @@ export interface PointDto {
   pressurePa: number
   x1: number
   x1Uncertainty: number
-  y1: number
-  y1Uncertainty: number
+  /** null for a point without vapour composition (T–x or P–x data) */
+  y1: number | null
+  y1Uncertainty: number | null
+  /** σP of the measured pressure, Pa (null: the engine's default applies) */
+  pressureUncertaintyPa?: number | null
   excluded: boolean
   exclusionReason: string | null
   uploadId: string | null
@@ -150,8 +153,10 @@ export interface ApprovedVersionDto<D = string> {
   dataSetId: string
   title: string
   version: number
-  /** Pa */
-  nominalPressurePa: number
+  /** Pa; null for isothermal data */
+  nominalPressurePa: number | null
+  /** K, isothermal data only */
+  nominalTemperatureK?: number | null
   approvedAt: D | null
   /** `label`: the fit's name as the lab screens give it (fit-label.ts) */
   recommendedFit: { id: string; model: FitModelName; label: string; parameters: FitParameterDto[] } | null
@@ -219,7 +224,12 @@ export interface DataSetDto<D = string> {
   systemId: string
   title: string
   state: DataSetStateDto
-  nominalPressurePa: number
+  /** null for isothermal data (layouts pxy, px) */
+  nominalPressurePa: number | null
+  /** K; set for isothermal data (null for isobaric data, and for isothermal sets made before it was kept) */
+  nominalTemperatureK: number | null
+  /** ideal gas, or a virial gas (Tsonopoulos) with an optional Poynting factor */
+  vaporModel: { kind: 'ideal' } | { kind: 'virial'; correlation: 'tsonopoulos'; poynting: boolean }
   apparatusNotes: string | null
   projectRef: string | null
   recommendedFitId: string | null
@@ -247,8 +257,8 @@ export interface DataSetDto<D = string> {
   countsAsOwn: boolean
   countsAsOwnBy: string | null
   countsAsOwnReason: string | null
-  /** 'txy' isobaric T–x–y, 'tx' isobaric T–x, 'pxy' isothermal P–x–y */
-  layout: 'txy' | 'tx' | 'pxy'
+  /** 'txy' isobaric T–x–y, 'tx' isobaric T–x, 'pxy' isothermal P–x–y, 'px' isothermal P–x */
+  layout: 'txy' | 'tx' | 'pxy' | 'px'
 }
 
 /** What a person needs to recognise a stored GC calibration: its file, date, model, coefficients ± u, range and use. */

@@ -68,7 +68,7 @@ export interface JointFitMemberDto {
   title: string
   version: number
   state: string
-  nominalPressurePa: number
+  nominalPressurePa: number | null
   pointSetDigest: string
   pointCount: number
   /** true when the data set's points have changed since the joint fit ran */
@@ -136,7 +136,13 @@ export interface RecommendedParameterSetDto<D = string> {
   approvedAt: D | null
   signedBy: string | null
   digest: string | null
-  dataSets: { dataSetId: string; title: string; version: number; nominalPressurePa: number; pointCount: number }[]
+  dataSets: {
+    dataSetId: string
+    title: string
+    version: number
+    nominalPressurePa: number | null
+    pointCount: number
+  }[]
 }
 
 /**

@@ -1,6 +1,7 @@
 import { componentPropertiesSchema } from './component-properties.js'
 import { z } from 'zod'
-import { checkOrigin, citationSchema, DATA_ORIGINS, originFields } from './direct-data.js'
+import { checkOrigin, citationSchema, DATA_LAYOUTS, DATA_ORIGINS, originFields } from './direct-data.js'
+import { dataKindOf, vaporModelChoiceSchema } from './data-kind.js'
 
 /**
  * Request bodies of the lab API (issue 5), shared by the API (which parses with them) and the web app
@@ -138,22 +139,56 @@ export const gcMethodSchema = z.object({
   conditions: optionalText(2000),
 })
 
-/** POST /api/data-sets; nominalPressurePa in Pa. */
+const nominalPressure = z.number().positive('Pressure must be positive (Pa)').max(1e8, 'Pressure above 100 MPa')
+const nominalTemperature = z.number().positive('Temperature must be positive (K)').max(2000, 'Temperature above 2000 K')
+/**
+ * POST /api/data-sets. Isobaric layouts (txy, tx) need nominalPressurePa (Pa); isothermal ones (pxy, px) need
+ * nominalTemperatureK (K). vaporModel: ideal (default) or virial (Tsonopoulos, optional Poynting factor).
+ */
 export const dataSetSchema = z.object({
   systemId: labId('system'),
   title: text(200).min(1, 'Enter a title'),
-  nominalPressurePa: z.number().positive('Pressure must be positive (Pa)').max(1e8),
+  nominalPressurePa: nominalPressure.nullable().optional().default(null),
+  nominalTemperatureK: nominalTemperature.nullable().optional().default(null),
+  vaporModel: vaporModelChoiceSchema.optional().default({ kind: 'ideal' }),
   apparatusNotes: optionalText(4000),
   projectRef: optionalText(200),
   ...originFields,
 })
-/** POST /api/data-sets: the fields above plus the origin rules (literature needs a citation …). */
-export const dataSetCreateSchema = dataSetSchema.superRefine(checkOrigin)
+
+/** Isobaric data need their pressure, isothermal data their temperature. */
+export function checkNominal(
+  d: { layout?: string; nominalPressurePa?: number | null; nominalTemperatureK?: number | null },
+  ctx: z.RefinementCtx,
+) {
+  const kind = dataKindOf(d.layout ?? 'txy')
+  if (kind === 'isobaric' && (d.nominalPressurePa === null || d.nominalPressurePa === undefined))
+    ctx.addIssue({
+      code: 'custom',
+      path: ['nominalPressurePa'],
+      message: 'Isobaric data need the nominal pressure.',
+    })
+  if (kind === 'isothermal' && (d.nominalTemperatureK === null || d.nominalTemperatureK === undefined))
+    ctx.addIssue({
+      code: 'custom',
+      path: ['nominalTemperatureK'],
+      message: 'Isothermal data need the temperature they were measured at.',
+    })
+}
+/** POST /api/data-sets: the fields above plus the origin rules (literature needs a citation …) and the nominal condition. */
+export const dataSetCreateSchema = dataSetSchema.superRefine((d, ctx) => {
+  checkOrigin(d, ctx)
+  checkNominal(d, ctx)
+})
 /** PATCH /api/data-sets/:id (draft or returned; send the rowVersion you loaded). */
 export const dataSetPatchSchema = z.object({
   rowVersion,
   title: text(200).min(1).optional(),
-  nominalPressurePa: z.number().positive().max(1e8).optional(),
+  nominalPressurePa: nominalPressure.nullable().optional(),
+  nominalTemperatureK: nominalTemperature.nullable().optional(),
+  vaporModel: vaporModelChoiceSchema.optional(),
+  /** only while the data set has no points */
+  layout: z.enum(DATA_LAYOUTS).optional(),
   apparatusNotes: text(4000).nullable().optional(),
   projectRef: text(200).nullable().optional(),
   /** only while the data set has no points */
@@ -188,7 +223,8 @@ const ALPHA_RANGE = 'NRTL α must be above 0 and at most 1'
  */
 export const fitRequestSchema = z.object({
   models: z.array(z.enum(FIT_MODELS)).min(1, 'Choose at least one model').max(4),
-  objective: z.enum(['bubble-point', 'activity']).default('bubble-point'),
+  /** default: 'bubble-pressure' for isothermal data, 'bubble-point' for isobaric data */
+  objective: z.enum(['bubble-point', 'bubble-pressure', 'activity']).optional(),
   alpha: z.number({ message: 'Enter α as a number' }).gt(0, ALPHA_RANGE).max(1, ALPHA_RANGE).optional(),
   fitAlpha: z.boolean().optional(),
 })

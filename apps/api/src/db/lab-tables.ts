@@ -172,7 +172,8 @@ export interface DataSetTable {
   system_id: string
   title: string
   state: Generated<DataSetState>
-  nominal_pressure_pa: number
+  /** null for isothermal data (20261204_13p) */
+  nominal_pressure_pa: number | null
   apparatus_notes: string | null
   project_ref: string | null
   recommended_fit_id: string | null
@@ -190,8 +191,13 @@ export interface DataSetTable {
   counts_as_own: Generated<boolean>
   counts_as_own_by: string | null
   counts_as_own_reason: string | null
-  layout: Generated<'txy' | 'tx' | 'pxy'>
+  layout: Generated<'txy' | 'tx' | 'pxy' | 'px'>
+  /** 20261204_13p: isothermal data's temperature (K), and the vapour model chosen */
+  nominal_temperature_k: number | null
+  vapor_model: ColumnType<DataSetVaporModel, DataSetVaporModel | string | undefined, DataSetVaporModel | string>
 }
+
+export type DataSetVaporModel = { kind: 'ideal' } | { kind: 'virial'; correlation: 'tsonopoulos'; poynting: boolean }
 
 export interface DataSetCitation {
   authors: string
@@ -213,8 +219,10 @@ export interface PointTable {
   pressure_pa: number
   x1: number
   x1_uncertainty: number
-  y1: number
-  y1_uncertainty: number
+  y1: number | null
+  y1_uncertainty: number | null
+  /** σP of the measured pressure, Pa (20261204_13p) */
+  pressure_uncertainty_pa: ColumnType<number | null, number | null | undefined, number | null>
   excluded: Generated<boolean>
   exclusion_reason: string | null
   upload_id: string | null
@@ -263,7 +271,7 @@ export interface FitTable {
 export interface ConsistencyResultTable {
   id: Generated<string>
   data_set_id: string
-  test: 'herington-area' | 'point'
+  test: 'herington-area' | 'redlich-kister-area' | 'point' | 'quality-score'
   passed: boolean
   result: Json<Record<string, unknown>>
   run_by: string

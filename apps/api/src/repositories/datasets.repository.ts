@@ -33,6 +33,8 @@ export const toDataSet = (d: DataSet): DataSetRecord => ({
   countsAsOwnBy: d.counts_as_own_by,
   countsAsOwnReason: d.counts_as_own_reason,
   layout: d.layout,
+  nominalTemperatureK: d.nominal_temperature_k,
+  vaporModel: d.vapor_model,
 })
 
 export interface DataSetQuery {
@@ -155,7 +157,9 @@ export async function insertDataSet(
     previousVersionId?: string | null
     systemId: string
     title: string
-    nominalPressurePa: number
+    nominalPressurePa: number | null
+    nominalTemperatureK?: number | null
+    vaporModel?: DataSetRecord['vaporModel']
     apparatusNotes: string | null
     projectRef: string | null
     createdBy: string
@@ -186,6 +190,8 @@ export async function insertDataSet(
       origin_method: d.originMethod ?? null,
       citation: d.citation ? JSON.stringify(d.citation) : null,
       layout: d.layout ?? 'txy',
+      nominal_temperature_k: d.nominalTemperatureK ?? null,
+      vapor_model: JSON.stringify(d.vaporModel ?? { kind: 'ideal' }),
       counts_as_own: d.countsAsOwn ?? false,
       counts_as_own_by: d.countsAsOwnBy ?? null,
       counts_as_own_reason: d.countsAsOwnReason ?? null,
@@ -214,6 +220,9 @@ export type DataSetPatch = Partial<
     | 'countsAsOwn'
     | 'countsAsOwnBy'
     | 'countsAsOwnReason'
+    | 'nominalTemperatureK'
+    | 'vaporModel'
+    | 'layout'
   >
 >
 
@@ -232,6 +241,9 @@ export async function updateDataSet(
     .set({
       ...(patch.title !== undefined && { title: patch.title }),
       ...(patch.nominalPressurePa !== undefined && { nominal_pressure_pa: patch.nominalPressurePa }),
+      ...(patch.nominalTemperatureK !== undefined && { nominal_temperature_k: patch.nominalTemperatureK }),
+      ...(patch.vaporModel !== undefined && { vapor_model: JSON.stringify(patch.vaporModel) }),
+      ...(patch.layout !== undefined && { layout: patch.layout }),
       ...(patch.apparatusNotes !== undefined && { apparatus_notes: patch.apparatusNotes }),
       ...(patch.projectRef !== undefined && { project_ref: patch.projectRef }),
       ...(patch.state !== undefined && { state: patch.state }),
@@ -275,6 +287,7 @@ export async function listSignedVersionsOfSystems(db: Db, systemIds: string[]) {
       'd.state',
       'd.title',
       'd.nominal_pressure_pa',
+      'd.nominal_temperature_k',
       'd.approved_at',
       'f.id as fit_id',
       'f.model',

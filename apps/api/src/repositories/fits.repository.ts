@@ -8,7 +8,7 @@ export type FitRecord = FitDto<Date>
 export interface ConsistencyRecord {
   id: string
   dataSetId: string
-  test: 'herington-area' | 'point'
+  test: 'herington-area' | 'redlich-kister-area' | 'point' | 'quality-score'
   passed: boolean
   result: Record<string, unknown>
   runBy: string

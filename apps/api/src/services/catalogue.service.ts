@@ -19,7 +19,7 @@ import { findCurveSource } from '../repositories/curves.repository.js'
 import { findFit, listFits } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, PUBLISHED_STATES, readsEverything, thermo, visibleOrNotFound } from './lab-access.js'
-import { binarySystem, engineInputs } from './systems.service.js'
+import { binarySystem, engineInputs, type EngineInputs } from './systems.service.js'
 import { recommendedSetOf } from './joint-fit-signing.js'
 
 /** Room temperature at which the catalogue states whether the fitted model splits the liquid (common practice). */
@@ -28,6 +28,13 @@ const ROOM_T = 298.15
 /** Shown with every design-related result (see the product rules on results that can hurt someone). */
 export const DESIGN_CAUTION =
   "Preliminary estimate from equilibrium data (modified Raoult's law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer's review."
+
+/** The caution worded for the vapour model the curve was computed with. */
+export function cautionFor(vapor: { kind: string } | null | undefined): string {
+  return vapor?.kind === 'virial'
+    ? DESIGN_CAUTION.replace("modified Raoult's law, ideal vapour", 'γ–φ, virial vapour (Tsonopoulos)')
+    : DESIGN_CAUTION
+}
 
 /** Approved systems matching a component name or CAS number, each with its approved versions and recommended fit; paged in SQL. */
 export async function catalogue(
@@ -57,6 +64,7 @@ export async function catalogue(
           title: v.title,
           version: v.version,
           nominalPressurePa: v.nominal_pressure_pa,
+          nominalTemperatureK: v.nominal_temperature_k,
           approvedAt: v.approved_at,
           recommendedFit:
             v.fit_id && v.model && v.parameters
@@ -67,7 +75,7 @@ export async function catalogue(
                   parameters: v.parameters,
                 }
               : null,
-          miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, v.nominal_pressure_pa) : null,
+          miscibility: v.activity ? miscibilityOf(inputs.get(s.id) ?? null, v.activity, conditionOf(v)) : null,
         })),
       superseded: versions
         .filter((v) => v.state === 'superseded')
@@ -86,13 +94,13 @@ export async function catalogue(
 function miscibilityOf(
   inputs: Awaited<ReturnType<typeof engineInputs>> | null,
   activity: ActivityModel,
-  P: number,
+  condition: { P: number } | { T: number } | null,
 ): CatalogueMiscibilityDto | null {
-  if (!inputs) return null
+  if (!inputs || !condition) return null
   try {
     const system = binarySystem(inputs, activity)
     const room = liquidLiquidEquilibrium(system, { T: ROOM_T })
-    const d = phaseDiagram(system, { P }, { points: 21 })
+    const d = phaseDiagram(system, condition, { points: 21 })
     const threePhase = d.kind === 'isobaric' ? (d.threePhase ?? null) : null
     return {
       partial: room !== null || threePhase !== null,
@@ -105,17 +113,29 @@ function miscibilityOf(
   }
 }
 
+/** The version's own condition: its pressure (isobaric) or its temperature (isothermal). */
+function conditionOf(v: { nominal_pressure_pa: number | null; nominal_temperature_k: number | null }) {
+  if (v.nominal_pressure_pa !== null) return { P: v.nominal_pressure_pa }
+  return v.nominal_temperature_k !== null ? { T: v.nominal_temperature_k } : null
+}
+
 /** The activity model to compute with: the fit asked for, else the recommended one. */
 async function chosenActivity(
   db: Db,
   d: repo.DataSetRecord,
   fitId?: string,
-): Promise<{ fitId: string; model: string; activity: ActivityModel }> {
+): Promise<{ fitId: string; model: string; activity: ActivityModel; vapor: EngineInputs['vapor'] | null }> {
   const id = fitId ?? d.recommendedFitId
   if (!id) throw conflict('This data set has no recommended fit yet; choose a fit.')
   const fit = await findFit(db, id)
   if (!fit || fit.dataSetId !== d.id) throw notFound('There is no such fit in this data set.')
-  return { fitId: fit.id, model: fit.model, activity: fit.activity as unknown as ActivityModel }
+  return {
+    fitId: fit.id,
+    model: fit.model,
+    activity: fit.activity as unknown as ActivityModel,
+    // the vapour the fit was made with: curves drawn from it use the same one
+    vapor: (fit.options.vapor as EngineInputs['vapor'] | undefined) ?? null,
+  }
 }
 
 /**
@@ -191,8 +211,9 @@ async function computeCurve(db: Db, user: SessionUser, id: string, o: CurveQuery
     model: chosen.model,
     P: o.P,
     components: [inputs.system.component1.name, inputs.system.component2.name],
-    ...curveOf(binarySystem(inputs, chosen.activity), o.P, o.points),
-    caution: DESIGN_CAUTION,
+    // the vapour the fit was made with (a fit's options never change, so a cached curve stays right)
+    ...curveOf(binarySystem({ ...inputs, vapor: chosen.vapor ?? inputs.vapor }, chosen.activity), o.P, o.points),
+    caution: cautionFor(chosen.vapor),
   }
   return { curve, vaporPressureSetIds: inputs.vaporPressureSets.map((v) => v.id) }
 }

@@ -3,7 +3,8 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database, Db } from '../db/index.js'
 import type { DataSetState } from '../db/lab-tables.js'
-import { conflict, forbidden, notFound } from '../errors/index.js'
+import { dataKindOf, missingVirialData } from '@ebullio/schemas'
+import { AppError, conflict, forbidden, notFound } from '../errors/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
 import { listComments } from '../repositories/comments.repository.js'
@@ -23,13 +24,16 @@ import {
   staleWrite,
   visibleOrNotFound,
 } from './lab-access.js'
-import { getSystem } from './systems.service.js'
-import { pointSetOf, withStale } from './point-set.js'
+import { binarySystem, engineInputs, getSystem } from './systems.service.js'
+import { enginePoint, pointSetOf, withStale } from './point-set.js'
+import { vaporCorrectionSize, type ActivityModel } from '@ebullio/thermo'
 
 export interface DataSetInput {
   systemId: string
   title: string
-  nominalPressurePa: number
+  nominalPressurePa: number | null
+  nominalTemperatureK?: number | null
+  vaporModel?: repo.DataSetRecord['vaporModel']
   apparatusNotes: string | null
   projectRef: string | null
   origin?: repo.DataSetRecord['origin']
@@ -45,9 +49,9 @@ export async function createDataSet(db: Db, actorId: string, input: DataSetInput
     citation: input.citation ?? null,
     originMethod: input.originMethod ?? null,
   })
-  if (input.layout === 'tx')
-    throw conflict('T–x data sets (no vapour composition) cannot be fitted yet; enter T–x–y or P–x–y points.')
-  const d = await repo.insertDataSet(db, { ...input, createdBy: actorId })
+  const nominal = nominalCondition(input.layout ?? 'txy', input.nominalPressurePa, input.nominalTemperatureK ?? null)
+  if (input.vaporModel?.kind === 'virial') await requireVirialData(db, input.systemId)
+  const d = await repo.insertDataSet(db, { ...input, ...nominal, createdBy: actorId })
   await appendAudit(db, {
     actorId,
     entity: 'data_set',
@@ -91,7 +95,7 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
   const full = readsEverything(user)
   const pts = await points.listPoints(db, id)
   // Every derived result says which point set it was computed on and whether that is still the current one.
-  const pointSet = pointSetOf(pts)
+  const pointSet = pointSetOf(pts, d.vaporModel)
   return {
     ...d,
     pointSetDigest: pointSet.digest,
@@ -100,6 +104,7 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
     points: pts,
     fits: (await listFits(db, id)).map((f) => withStale(f, pointSet.digest)),
     consistency: (await listConsistency(db, id)).map((c) => withStale(c, pointSet.digest)),
+    vapourCorrection: await vapourCorrectionOf(db, d, pts),
     comments: full ? await listComments(db, id) : [],
     uploads: full ? await listUploadsOf(db, id) : [],
     /** the calibrations behind the points (file, date, model, coefficients ± u, range) */
@@ -111,6 +116,46 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
   }
 }
 
+/**
+ * How large the vapour correction is at this data set's conditions, when it uses an ideal vapour and both components
+ * have their critical data: thermo's vaporCorrectionSize with the recommended (else newest) fit's activity model, or
+ * the ideal solution before any fit. `exceeds` drives the workspace's warning. Null when it does not apply.
+ */
+async function vapourCorrectionOf(db: Db, d: repo.DataSetRecord, pts: points.PointRecord[]) {
+  const used = pts.filter((p) => !p.excluded)
+  if (d.vaporModel.kind !== 'ideal' || used.length === 0) return null
+  const system = await getSystem(db, d.systemId)
+  if (missingVirialData([system.component1, system.component2])) return null
+  try {
+    const inputs = await engineInputs(db, d.systemId, { kind: 'virial', correlation: 'tsonopoulos', poynting: false })
+    const all = await listFits(db, d.id)
+    const fit = all.find((f) => f.id === d.recommendedFitId) ?? all.at(-1)
+    const activity = (fit?.activity as unknown as ActivityModel | undefined) ?? { kind: 'ideal' }
+    const r = vaporCorrectionSize(binarySystem(inputs, activity), used.map(enginePoint), {
+      kind: dataKindOf(d.layout),
+    })
+    const size =
+      r.kind === 'isothermal'
+        ? `|ΔP| up to ${((r.maxAbsDP ?? 0) / 1000).toFixed(3)} kPa`
+        : `|ΔT| up to ${(r.maxAbsDT ?? 0).toFixed(3)} K`
+    return {
+      exceeds: r.exceedsUncertainty,
+      kind: r.kind,
+      maxAbsDy: r.maxAbsDy,
+      maxAbsDT: r.maxAbsDT ?? null,
+      maxAbsDP: r.maxAbsDP ?? null,
+      basis: fit ? `the ${fit.model} fit` : 'an ideal solution (no fit yet)',
+      message: r.exceedsUncertainty
+        ? `A virial vapour would move the bubble points by more than their measurement uncertainty (${size}, |Δy₁| up to ${r.maxAbsDy.toFixed(4)}, with ${fit ? `the ${fit.model} fit` : 'an ideal solution'}), but this data set uses an ideal vapour. Consider the virial vapour (Edit details → Vapour model).`
+        : null,
+    }
+  } catch (err) {
+    // no vapour-pressure set, or the engine refuses these conditions: no warning rather than a broken page
+    if ((err as { name?: string }).name === 'ThermoError' || err instanceof AppError) return null
+    throw err
+  }
+}
+
 export async function getPointDetail(db: Db, user: SessionUser, dataSetId: string, pointId: string) {
   visibleOrNotFound(user, await repo.findDataSet(db, dataSetId))
   const p = await points.findPoint(db, pointId)
@@ -118,7 +163,24 @@ export async function getPointDetail(db: Db, user: SessionUser, dataSetId: strin
   return { ...p, injections: await points.listInjections(db, pointId) }
 }
 
-export type MetadataPatch = Partial<Omit<DataSetInput, 'layout'>>
+export type MetadataPatch = Partial<DataSetInput>
+
+/** Isobaric data keep a nominal pressure and no temperature; isothermal data a temperature (the pressure is optional). */
+function nominalCondition(layout: string, P: number | null | undefined, T: number | null | undefined) {
+  if (dataKindOf(layout) === 'isobaric') {
+    if (P === null || P === undefined) throw conflict('Isobaric data need the nominal pressure.')
+    return { nominalPressurePa: P, nominalTemperatureK: null }
+  }
+  if (T === null || T === undefined) throw conflict('Isothermal data need the temperature they were measured at.')
+  return { nominalPressurePa: P ?? null, nominalTemperatureK: T }
+}
+
+/** A virial vapour needs both components' critical data: refuse naming each missing property and its component. */
+export async function requireVirialData(db: Db, systemId: string) {
+  const s = await getSystem(db, systemId)
+  const why = missingVirialData([s.component1, s.component2])
+  if (why) throw new AppError(422, 'missing_critical_data', why)
+}
 
 /** Edit metadata of a draft; refused when the caller's row version is stale. */
 export async function updateMetadata(
@@ -133,7 +195,19 @@ export async function updateMetadata(
     requireState(before, EDITABLE_STATES, 'editing')
     if (before.rowVersion !== rowVersion) throw staleWrite(rowVersion, before.rowVersion)
     await checkSystemChange(tx, before, patch.systemId)
+    await checkLayoutChange(tx, before, patch.layout)
     checkOriginAfter({ ...before, ...patch })
+    const merged = { ...before, ...patch }
+    const nominal = nominalCondition(merged.layout, merged.nominalPressurePa, merged.nominalTemperatureK)
+    if (merged.vaporModel.kind === 'virial' && (patch.vaporModel || patch.systemId))
+      await requireVirialData(tx, merged.systemId)
+    const changedNominal = {
+      ...(nominal.nominalPressurePa !== before.nominalPressurePa && { nominalPressurePa: nominal.nominalPressurePa }),
+      ...(nominal.nominalTemperatureK !== before.nominalTemperatureK && {
+        nominalTemperatureK: nominal.nominalTemperatureK,
+      }),
+    }
+    patch = { ...patch, ...changedNominal }
     const after = await repo.updateDataSet(tx, id, patch, rowVersion)
     if (!after) throw staleWrite(rowVersion, before.rowVersion + 1)
     const changed = Object.keys(patch) as (keyof MetadataPatch)[]
@@ -156,6 +230,15 @@ async function checkSystemChange(db: Db, d: repo.DataSetRecord, systemId: string
   if ((await points.listPoints(db, d.id)).length > 0)
     throw conflict('This data set already has points; its system can no longer change. Start a new data set instead.')
   await getSystem(db, systemId)
+}
+
+/** The kind of data (layout) may change only while the data set has no points. */
+async function checkLayoutChange(db: Db, d: repo.DataSetRecord, layout: string | undefined) {
+  if (layout === undefined || layout === d.layout) return
+  if ((await points.listPoints(db, d.id)).length > 0)
+    throw conflict(
+      'This data set already has points; its kind of data can no longer change. Start a new data set instead.',
+    )
 }
 
 /** The origin rules that span fields, checked on the row as it would be after a change. */
@@ -241,6 +324,8 @@ export async function reviseDataSet(db: Kysely<Database>, user: SessionUser, id:
       originMethod: d.originMethod,
       citation: d.citation,
       layout: d.layout,
+      nominalTemperatureK: d.nominalTemperatureK,
+      vaporModel: d.vaporModel,
       countsAsOwn: d.countsAsOwn,
       countsAsOwnBy: d.countsAsOwnBy,
       countsAsOwnReason: d.countsAsOwnReason,

@@ -5,6 +5,10 @@
  *   metadata, every point, the point-set digest, the recommended fit and the consistency results, where a
  *   result is included only when it was computed on the current point set (docs/workflow.md says how an
  *   auditor recomputes it);
+ *   Format 2 also signs what a data set says beyond isobaric data under an ideal vapour, as members present only
+ *   when they apply, so the signed bytes of every record without them are what they were: `kind: 'isothermal'` and
+ *   `nominalTemperatureK` (K) on an isothermal set that has its temperature, `vaporModel` when the vapour is not the
+ *   ideal gas, and `uP` (σP, Pa) on a point that gives it.
  * - `ebullio-signed-content/1` (signatures made before): JSON with sorted keys of the metadata, every point
  *   and every fit; kept so those signatures still verify.
  */
@@ -94,6 +98,12 @@ const signedPoint = (p: Awaited<ReturnType<typeof listPoints>>[number]) => ({
   calibrationId: p.calibrationId,
 })
 
+/** Format 2's optional members of the metadata: the data set's kind and condition, and a non-ideal vapour. */
+const conditionAndVapour = (d: NonNullable<Awaited<ReturnType<typeof findDataSet>>>) => ({
+  ...(d.nominalTemperatureK !== null ? { kind: 'isothermal', nominalTemperatureK: d.nominalTemperatureK } : {}),
+  ...(d.vaporModel.kind !== 'ideal' ? { vaporModel: d.vaporModel } : {}),
+})
+
 /**
  * Format 2: metadata, every point (in sequence), the point set's digest, the recommended fit when it was
  * computed on that point set (else null) and every consistency result computed on it (by id). Results
@@ -103,16 +113,19 @@ export async function signedContentV2(db: Db, dataSetId: string) {
   const d = await findDataSet(db, dataSetId)
   if (!d) return null
   const points = await listPoints(db, dataSetId)
-  const pointSet = pointSetOf(points)
+  const pointSet = pointSetOf(points, d.vaporModel)
   const fit = d.recommendedFitId ? (await listFits(db, dataSetId)).find((f) => f.id === d.recommendedFitId) : undefined
   const consistency = (await listConsistency(db, dataSetId))
     .filter((c) => c.pointSetDigest === pointSet.digest)
     .sort((a, b) => a.id.localeCompare(b.id))
   return {
     format: DIGEST_V2,
-    dataSet: metadataOf(d),
+    dataSet: { ...metadataOf(d), ...conditionAndVapour(d) },
     pointSet: { digest: pointSet.digest, included: pointSet.included },
-    points: points.map(signedPoint),
+    points: points.map((p) => ({
+      ...signedPoint(p),
+      ...(p.pressureUncertaintyPa ? { uP: p.pressureUncertaintyPa } : {}),
+    })),
     recommendedFit:
       fit && fit.pointSetDigest === pointSet.digest
         ? {

@@ -3,7 +3,7 @@
  * (legacy series, another analytical method, literature tables). All or nothing: one bad row or cell
  * refuses the whole batch with every problem named, and nothing is stored.
  */
-import type { DirectPoint } from '@ebullio/schemas'
+import { hasVapour, type DirectPoint } from '@ebullio/schemas'
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database } from '../db/index.js'
@@ -37,9 +37,18 @@ function batchProblems(d: DataSetRecord, pts: (DirectPoint & { row: number | nul
         uploadError(p.row, 'sample', p.sampleLabel, `Sample "${p.sampleLabel}" is already used in this data set.`),
       )
     seen.add(p.sampleLabel)
-    if (d.layout !== 'tx' && p.y1 === null) problems.push(uploadError(p.row, 'y1', null, 'y1 is missing.'))
-    if (d.layout === 'tx' && p.y1 !== null)
-      problems.push(uploadError(p.row, 'y1', String(p.y1), 'A T–x data set has no vapour composition; leave y1 empty.'))
+    if (hasVapour(d.layout) && p.y1 === null) problems.push(uploadError(p.row, 'y1', null, 'y1 is missing.'))
+    if (!hasVapour(d.layout) && p.y1 !== null)
+      problems.push(
+        uploadError(
+          p.row,
+          'y1',
+          String(p.y1),
+          `A ${d.layout === 'px' ? 'P–x' : 'T–x'} data set has no vapour composition; leave y1 empty.`,
+        ),
+      )
+    if (p.y1 !== null && p.y1Uncertainty === null)
+      problems.push(uploadError(p.row, 'u_y1', null, 'Give u(y1) with y1.'))
   }
   return problems
 }
@@ -64,9 +73,10 @@ async function store(
       pressurePa: p.pressurePa,
       x1: p.x1,
       x1Uncertainty: p.x1Uncertainty,
-      // T–x points are refused above until the engine takes them; y1 is set here
-      y1: p.y1 as number,
-      y1Uncertainty: p.y1Uncertainty as number,
+      // T–x and P–x points have neither y1 nor its uncertainty
+      y1: p.y1,
+      y1Uncertainty: p.y1 === null ? null : p.y1Uncertainty,
+      pressureUncertaintyPa: p.pressureUncertaintyPa ?? null,
       uploadId,
       calibrationId: null,
       rowRefs: p.row === null ? [] : [p.row],

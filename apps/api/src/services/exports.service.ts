@@ -15,7 +15,7 @@ import {
   slugify,
   type CsvCell,
 } from '@ebullio/schemas/csv-exports'
-import { fitLabel } from '@ebullio/schemas'
+import { dataKindOf, fitLabel } from '@ebullio/schemas'
 
 /** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
 export function fileStem(d: { title: string; version: number }): string {
@@ -71,6 +71,17 @@ async function systemRecommendedSet(db: Db, systemId: string) {
 /** How the curve is computed from the parameters (the engine's conventions, packages/thermo/src/activity/kernel.ts). */
 export const VLE_RELATION =
   "modified Raoult's law, ideal vapour: y_i P = x_i gamma_i P_i_sat(T); bubble points solved for T at the measured P"
+/** The same under a virial vapour (packages/thermo/src/virial). */
+export const VLE_RELATION_VIRIAL =
+  'gamma-phi: y_i Phi_i P = x_i gamma_i P_i_sat(T), Phi_i = phi_i / (phi_i_sat PF_i) from the virial equation truncated after B (Tsonopoulos second virial coefficients); bubble points solved for T at the measured P'
+
+/** The relation a data set's fits use, worded for its kind of data and vapour model. */
+function vleRelationOf(d: repo.DataSetRecord): string {
+  const base = d.vaporModel.kind === 'virial' ? VLE_RELATION_VIRIAL : VLE_RELATION
+  return dataKindOf(d.layout) === 'isothermal'
+    ? base.replace('solved for T at the measured P', 'solved for P at the measured T')
+    : base
+}
 
 /** Each model's equations in the engine's parameter names (Smith, Van Ness & Abbott, 7th ed., §12.1–12.2). */
 export const MODEL_EQUATIONS: Record<string, string> = {
@@ -110,6 +121,11 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
         version: d.version,
         state: d.state,
         nominalPressurePa: d.nominalPressurePa,
+        // kind of data: layout txy/tx isobaric, pxy/px isothermal (with its temperature, K)
+        layout: d.layout,
+        kind: dataKindOf(d.layout),
+        nominalTemperatureK: d.nominalTemperatureK,
+        vaporModel: d.vaporModel,
         // where the numbers come from: 'gc', 'other-method' (with the method) or 'literature' (with its citation)
         origin: d.origin,
         originMethod: d.originMethod,
@@ -137,7 +153,7 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
         }
       }),
       recommendedFitId: d.recommendedFitId,
-      vleRelation: VLE_RELATION,
+      vleRelation: vleRelationOf(d),
       fits: fits.map((f) => ({
         id: f.id,
         model: f.model,
@@ -146,12 +162,15 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
         recommended: f.id === d.recommendedFitId,
         equation: MODEL_EQUATIONS[f.model] ?? f.model,
         objective: f.options.objective ?? null,
+        // the vapour the fit was computed with (a virial vapour with the critical data it used)
+        vapor: (f.options.vapor as Record<string, unknown> | undefined) ?? { kind: 'ideal' },
         activity: f.activity,
         parameters: f.parameters.map((p) => ({ ...p, unit: UNITS[p.name] ?? '1' })),
         held: heldSettings(f),
         pointSetDigest: (f as { pointSetDigest?: string | null }).pointSetDigest ?? null,
         statistics: {
           rmsT: f.statistics.rmsT,
+          rmsP: f.statistics.rmsP ?? null,
           rmsY: f.statistics.rmsY,
           aic: f.statistics.aic,
           converged: f.statistics.converged,
@@ -191,6 +210,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
     fitRow(f, 'label', f.label),
     fitRow(f, 'equation', f.equation),
     fitRow(f, 'objective', f.objective as CsvCell),
+    fitRow(f, 'vapour_model', vapourLine(f.vapor)),
     ...f.parameters.map((p) => fitRow(f, p.name, p.value, p.standardError, p.unit)),
     ...f.held.map((h) => fitRow(f, h.name, h.value, null, h.unit)),
     ...(f.model === 'nrtl'
@@ -203,6 +223,7 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
         ]
       : []),
     fitRow(f, 'rms_T', f.statistics.rmsT as CsvCell, null, 'K'),
+    ...(f.statistics.rmsP !== null ? [fitRow(f, 'rms_P', f.statistics.rmsP as CsvCell, null, 'Pa')] : []),
     fitRow(f, 'rms_y', f.statistics.rmsY as CsvCell, null, '1'),
     fitRow(f, 'aic', f.statistics.aic as CsvCell),
     fitRow(f, 'converged', f.statistics.converged as CsvCell),
@@ -231,6 +252,9 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
     ['data-set', 'version', body.dataSet.version, ''],
     ['data-set', 'state', body.dataSet.state, ''],
     ['data-set', 'nominal_pressure', body.dataSet.nominalPressurePa, 'Pa'],
+    ['data-set', 'kind', body.dataSet.kind, ''],
+    ['data-set', 'nominal_temperature', body.dataSet.nominalTemperatureK, 'K'],
+    ['data-set', 'vapour_model', vapourLine(body.dataSet.vaporModel), ''],
     ['data-set', 'origin', body.dataSet.origin, ''],
     ['data-set', 'origin_method', body.dataSet.originMethod, ''],
     ['data-set', 'citation', citationLine(body.dataSet.citation), ''],
@@ -303,4 +327,27 @@ function citationLine(c: repo.DataSetRecord['citation']): string | null {
   return [`${c.authors} (${c.year}). ${c.title}. ${c.source}${vol ? ' ' + vol : ''}.`, c.doi && `doi:${c.doi}`, c.table]
     .filter(Boolean)
     .join(' ')
+}
+
+/** "ideal" or "virial tsonopoulos; poynting=false; Tc1=…; …" — every number a virial vapour used, in one cell. */
+function vapourLine(v: Record<string, unknown> | { kind: string }): string {
+  const o = v as {
+    kind: string
+    correlation?: string
+    poynting?: boolean
+    components?: { Tc: number; Pc: number; omega: number; Vc: number; tsonopoulos?: { a: number; b: number } }[]
+  }
+  if (o.kind !== 'virial') return 'ideal'
+  const parts = [`virial ${o.correlation ?? 'tsonopoulos'}`, `poynting=${o.poynting ? 'true' : 'false'}`]
+  o.components?.forEach((c, i) =>
+    parts.push(
+      `Tc${i + 1}=${c.Tc} K`,
+      `Pc${i + 1}=${c.Pc} Pa`,
+      `omega${i + 1}=${c.omega}`,
+      `Vc${i + 1}=${c.Vc} cm3/mol`,
+      `a${i + 1}=${c.tsonopoulos?.a ?? 0}`,
+      `b${i + 1}=${c.tsonopoulos?.b ?? 0}`,
+    ),
+  )
+  return parts.join('; ')
 }

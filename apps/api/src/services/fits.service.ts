@@ -8,9 +8,10 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
-import { DEFAULT_NRTL_ALPHA } from '@ebullio/schemas'
-import { canonicalJson8785, computedOn, pointSetOf, withStale } from './point-set.js'
-import { fitBinary, heringtonAreaTest, pointTest, type FitBinaryResult } from '@ebullio/thermo'
+import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel } from '@ebullio/schemas'
+import { ISOTHERMAL_BAND } from './uncertainty.service.js'
+import { canonicalJson8785, computedOn, currentPointSet, enginePoint, pointSetOf, withStale } from './point-set.js'
+import { areaTest, dataQualityScore, fitBinary, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { EDITABLE_STATES, FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
 import { bandOf, pureComponentChecks, suggestionsOf } from './uncertainty.service.js'
@@ -20,10 +21,15 @@ export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
 
 export interface FitRequest {
   models: FitModelName[]
-  objective?: 'bubble-point' | 'activity'
+  /** default: 'bubble-pressure' for isothermal data, 'bubble-point' for isobaric data */
+  objective?: 'bubble-point' | 'bubble-pressure' | 'activity'
   alpha?: number
   fitAlpha?: boolean
 }
+
+/** The objective a fit uses unless one is asked for: pressures for isothermal data, temperatures for isobaric data. */
+export const defaultObjective = (d: repo.DataSetRecord) =>
+  dataKindOf(d.layout) === 'isothermal' ? ('bubble-pressure' as const) : ('bubble-point' as const)
 
 /** Once submitted, only a lead chemist may still add fits or choose the recommended one. */
 function onlyLeadOnceSubmitted(user: SessionUser, d: repo.DataSetRecord, action: string): void {
@@ -35,6 +41,7 @@ function onlyLeadOnceSubmitted(user: SessionUser, d: repo.DataSetRecord, action:
 const included = (points: PointRecord[]) => points.filter((p) => !p.excluded)
 
 function statistics(r: FitBinaryResult) {
+  const extra = r as unknown as { rmsP?: number; aadP?: number; maxAbsP?: number; method?: string }
   const {
     converged,
     iterations,
@@ -56,6 +63,9 @@ function statistics(r: FitBinaryResult) {
     converged,
     iterations,
     objective,
+    objectiveKind: r.objectiveKind,
+    ...(extra.rmsP !== undefined && { rmsP: extra.rmsP, aadP: extra.aadP, maxAbsP: extra.maxAbsP }),
+    ...(extra.method !== undefined && { method: extra.method }),
     rmsT,
     rmsY,
     aadT,
@@ -86,15 +96,17 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
   onlyLeadOnceSubmitted(user, d, 'fitting')
   const points = await listPoints(db, id)
   if (included(points).length === 0) throw conflict('This data set has no included points to fit.')
-  const pointSet = pointSetOf(points)
+  const pointSet = pointSetOf(points, d.vaporModel)
   const existing = await fits.listFits(db, id)
-  const inputs = await engineInputs(db, d.systemId)
+  const inputs = await engineInputs(db, d.systemId, d.vaporModel)
+  // A virial vapour is stored with the fit, with the critical data it used; an ideal one is not named (as before).
+  const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
   const results = req.models.map((model) => {
     const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
     // The α used is stored with the fit, so a default α stays readable after the default changes.
     const nrtl = model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA, fitAlpha: req.fitAlpha ?? false } : {}
     const options = JSON.parse(
-      JSON.stringify({ model, objective: req.objective ?? 'bubble-point', ...volumes, ...nrtl }),
+      JSON.stringify({ model, objective: req.objective ?? defaultObjective(d), ...volumes, ...nrtl, ...vapor }),
     )
     if (existing.some((f) => sameRun(f, model, options, pointSet.digest))) return { model, options, r: null }
     const r = thermo(`Fitting ${model}`, () =>
@@ -102,14 +114,7 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
         ...options,
         vaporPressure: inputs.vaporPressure,
         // A two-layer point is a three-phase point: its T is the three-phase temperature, y1 the three-phase vapour.
-        points: points.map((p) => ({
-          T: p.temperatureK,
-          P: p.pressurePa,
-          x1: p.x1,
-          y1: p.y1,
-          excluded: p.excluded,
-          ...(p.heterogeneous ? { heterogeneous: true } : {}),
-        })),
+        points: points.map(enginePoint),
       }),
     )
     return { model, options, r }
@@ -151,6 +156,8 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
         after: {
           model,
           ...nrtlAudit(options),
+          objective: r.objectiveKind,
+          vapor: vaporModelLabel(d.vaporModel),
           parameters: r.parameters,
           rmsT: r.rmsT,
           rmsY: r.rmsY,
@@ -161,7 +168,7 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
       })
     }
     const after = added > 0 ? await repo.updateDataSet(tx, id, {}) : locked
-    const current = pointSetOf(await listPoints(tx, id)).digest
+    const current = pointSetOf(await listPoints(tx, id), locked.vaporModel).digest
     return { fits: stored.map((f) => withStale(f, current)), rowVersion: after!.rowVersion, pointSetDigest: current }
   })
   const byFit = new Map(results.filter((x) => x.r).map((x) => [x.model + canonicalJson8785(x.options), x.r!]))
@@ -169,7 +176,7 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
     ...saved,
     predictions: saved.fits.flatMap((f) => {
       const r = byFit.get(f.model + canonicalJson8785(f.options))
-      return r && !f.reused ? [predictionsOf(f, r, d.nominalPressurePa)] : []
+      return r && !f.reused ? [predictionsOf(f, r, d)] : []
     }),
   }
 }
@@ -207,7 +214,7 @@ export async function deleteFit(db: Kysely<Database>, user: SessionUser, id: str
 /** The fits of a data set, each with `stale` against the current point set. */
 export async function listFitsWithStale(db: Db, user: SessionUser, id: string) {
   visibleOrNotFound(user, await repo.findDataSet(db, id))
-  const current = pointSetOf(await listPoints(db, id)).digest
+  const current = (await currentPointSet(db, id)).digest
   return { items: (await fits.listFits(db, id)).map((f) => withStale(f, current)), pointSetDigest: current }
 }
 
@@ -216,8 +223,16 @@ function nrtlAudit(o: { model: string; alpha?: number; fitAlpha?: boolean }) {
   return o.model === 'nrtl' ? { alpha: o.alpha, fitAlpha: o.fitAlpha } : {}
 }
 
-/** Band and next compositions at the nominal pressure; a fit whose band cannot be computed says why instead. */
-function predictionsOf(fit: fits.FitRecord, r: FitBinaryResult, P: number) {
+/**
+ * Band and next compositions at the nominal pressure; a fit whose band cannot be computed says why instead. The
+ * band is a T–x–y band at one pressure: isothermal data get the reason instead.
+ */
+function predictionsOf(fit: fits.FitRecord, r: FitBinaryResult, d: repo.DataSetRecord) {
+  const P = d.nominalPressurePa
+  if (P === null || dataKindOf(d.layout) === 'isothermal') {
+    const error = ISOTHERMAL_BAND
+    return { fitId: fit.id, band: { error }, nextCompositions: { error } }
+  }
   const attempt = <T>(fn: () => T): T | { error: string } => {
     try {
       return fn()
@@ -241,7 +256,7 @@ export async function markRecommended(db: Kysely<Database>, user: SessionUser, i
     if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
     requireState(d, FITTABLE_STATES, 'choosing the recommended fit')
     onlyLeadOnceSubmitted(user, d, 'choosing the recommended fit')
-    const current = pointSetOf(await listPoints(tx, id)).digest
+    const current = pointSetOf(await listPoints(tx, id), d.vaporModel).digest
     if (fit.pointSetDigest !== current) {
       throw staleResults(`This fit was ${computedOn(fit)}, not on the points the data set has now; run it again.`, [
         { kind: 'fit', id: fit.id, pointCount: fit.pointCount, runAt: fit.runAt },
@@ -267,25 +282,62 @@ export async function markRecommended(db: Kysely<Database>, user: SessionUser, i
   })
 }
 
-/** Run the area test and the point test on the included points and attach the results to this version. */
+/** A test that could not run on these data, and the engine's reason. */
+export interface TestNotRun {
+  test: 'area' | 'point' | 'quality-score'
+  reason: string
+}
+
+/** Run a test; a refusal by the engine (e.g. no vapour compositions) becomes "cannot run" with its reason. */
+function attempt<T>(test: TestNotRun['test'], notRun: TestNotRun[], fn: () => T): T | null {
+  try {
+    return fn()
+  } catch (err) {
+    if ((err as { name?: string }).name !== 'ThermoError') throw err
+    notRun.push({ test, reason: (err as Error).message })
+    return null
+  }
+}
+
+/**
+ * Run the area test (Herington for isobaric data, Redlich–Kister for isothermal data), the point test and the
+ * data-quality score on the included points, under the data set's vapour model, and attach the results to this
+ * version. Tests the data cannot support (no vapour compositions) are answered in `notRun` with the reason.
+ */
 export async function runConsistency(db: Kysely<Database>, user: SessionUser, id: string, model: FitModelName) {
   const d = visibleOrNotFound(user, await repo.findDataSet(db, id))
   requireState(d, FITTABLE_STATES, 'running consistency tests')
   onlyLeadOnceSubmitted(user, d, 'running consistency tests')
   const all = await listPoints(db, id)
-  const pointSet = pointSetOf(all)
-  const pts = included(all).map((p) => ({
-    T: p.temperatureK,
-    P: p.pressurePa,
-    x1: p.x1,
-    y1: p.y1,
-    heterogeneous: p.heterogeneous,
-  }))
-  if (pts.length === 0) throw conflict('This data set has no included points to test.')
-  const inputs = await engineInputs(db, d.systemId)
-  const area = thermo('Area test', () => heringtonAreaTest(pts, { vaporPressure: inputs.vaporPressure }))
+  const pointSet = pointSetOf(all, d.vaporModel)
+  const kept = included(all)
+  if (kept.length === 0) throw conflict('This data set has no included points to test.')
+  const pts = kept.map(enginePoint)
+  const inputs = await engineInputs(db, d.systemId, d.vaporModel)
+  const isothermal = dataKindOf(d.layout) === 'isothermal'
+  const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
+  const base = { vaporPressure: inputs.vaporPressure, ...vapor }
   const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
-  const point = thermo('Point test', () => pointTest(pts, { vaporPressure: inputs.vaporPressure, model, ...volumes }))
+  const notRun: TestNotRun[] = []
+  // the engine picks Herington's test for isobaric data and Redlich–Kister's for isothermal data, and says which ran
+  const area = attempt('area', notRun, () => areaTest(pts, { ...base, kind: isothermal ? 'isothermal' : 'isobaric' }))
+  const point = attempt('point', notRun, () => pointTest(pts, { ...base, model, ...volumes, isothermal }))
+  // The quality score names points by their index in `all`: keep the ids with it.
+  const quality = attempt('quality-score', notRun, () =>
+    dataQualityScore(all.map(enginePoint), { ...base, model, ...volumes, isothermal }),
+  )
+  const qualityResult = quality && {
+    ...quality,
+    model,
+    points: quality.points.map((q) => ({ ...q, pointId: all[q.index].id, sample: all[q.index].sampleLabel })),
+  }
+  const runs = [
+    ...(area
+      ? [[area.test === 'redlich-kister' ? 'redlich-kister-area' : 'herington-area', area, area.passed] as const]
+      : []),
+    ...(point ? [['point', { ...point, model }, point.passed] as const] : []),
+    ...(qualityResult ? [['quality-score', qualityResult, qualityResult.quality >= QUALITY_PASS] as const] : []),
+  ]
   const pureComponent = await pureComponentChecks(db, inputs, all)
   const saved = await db.transaction().execute(async (tx) => {
     const locked = (await repo.lockDataSet(tx, id))!
@@ -293,15 +345,12 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
     requireState(locked, FITTABLE_STATES, 'running consistency tests')
     onlyLeadOnceSubmitted(user, locked, 'running consistency tests')
     const out = []
-    for (const [test, r] of [
-      ['herington-area', area],
-      ['point', point],
-    ] as const) {
-      const result = JSON.parse(JSON.stringify({ ...r, model: test === 'point' ? model : undefined }))
+    for (const [test, r, passed] of runs) {
+      const result = JSON.parse(JSON.stringify({ ...r, vaporModel: d.vaporModel }))
       const rec = await fits.insertConsistency(tx, {
         dataSetId: id,
         test,
-        passed: r.passed,
+        passed,
         result,
         runBy: user.id,
         pointSetDigest: pointSet.digest,
@@ -311,16 +360,22 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
         actorId: user.id,
         entity: 'consistency_result',
         entityId: rec.id,
-        action: `run ${test} test`,
+        action: test === 'quality-score' ? 'run quality score' : `run ${test} test`,
         dataSetId: id,
-        after: { passed: r.passed, pointSetDigest: pointSet.digest },
+        after: { passed, pointSetDigest: pointSet.digest },
       })
       out.push(rec)
     }
-    const after = await repo.updateDataSet(tx, id, {})
-    const current = pointSetOf(await listPoints(tx, id)).digest
+    const after = out.length ? await repo.updateDataSet(tx, id, {}) : locked
+    const current = pointSetOf(await listPoints(tx, id), locked.vaporModel).digest
     return { items: out.map((c) => withStale(c, current)), rowVersion: after!.rowVersion, pointSetDigest: current }
   })
   // Computed, not stored: it compares with today's vapour-pressure sets and pure measurements.
-  return { ...saved, pureComponent }
+  return { ...saved, notRun, pureComponent }
 }
+
+/**
+ * The combined quality figure at or above which the data-quality result is marked as passed: 0.75, three of the
+ * four tests' full shares (Ebullio's choice, no source).
+ */
+export const QUALITY_PASS = 0.75

@@ -189,13 +189,11 @@ export async function jointFitPlots(db: Db, user: SessionUser, id: string, gridP
   const plots = []
   for (const m of fit.members) {
     const points = await listPoints(db, m.dataSetId)
+    // an isothermal member has no nominal pressure: its T–x–y is drawn at the mean of its measured pressures
+    const P = m.nominalPressurePa ?? points.reduce((s, p) => s + p.pressurePa, 0) / Math.max(points.length, 1)
     const diagram = thermo(
       'T–x–y curve',
-      () =>
-        phaseDiagram(system, { P: m.nominalPressurePa }, { points: gridPoints }) as Extract<
-          PhaseDiagram,
-          { kind: 'isobaric' }
-        >,
+      () => phaseDiagram(system, { P }, { points: gridPoints }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
     )
     plots.push({
       dataSetId: m.dataSetId,

@@ -9,7 +9,7 @@ import type { Db } from '../db/index.js'
 import type { SignedOutliers } from '../repositories/approvals.repository.js'
 import { findFit, type FitRecord } from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
-import { pointSetOf } from './point-set.js'
+import { currentPointSet } from './point-set.js'
 
 export { OUTLIER_RULE }
 
@@ -22,8 +22,8 @@ export interface StoredResidual {
 }
 
 /** Ids of the points a fit flags, with today's exclusions; null when the fit was computed on other points. */
-export function fitOutliers(fit: FitRecord, points: PointRecord[]): string[] | null {
-  if (fit.pointSetDigest !== pointSetOf(points).digest) return null
+export function fitOutliers(fit: FitRecord, points: PointRecord[], currentDigest: string): string[] | null {
+  if (fit.pointSetDigest !== currentDigest) return null
   const excluded = new Set(points.filter((p) => p.excluded).map((p) => p.id))
   return outlierPointIds(
     (fit.residuals as StoredResidual[])
@@ -48,7 +48,7 @@ export async function signedOutliers(
   const fit = await findFit(db, recommendedFitId)
   if (!fit || fit.dataSetId !== dataSetId) return null
   const points = await listPoints(db, dataSetId)
-  const ids = fitOutliers(fit, points)
+  const ids = fitOutliers(fit, points, (await currentPointSet(db, dataSetId)).digest)
   if (!ids) return null
   const label = new Map(points.map((p) => [p.id, p.sampleLabel]))
   return {

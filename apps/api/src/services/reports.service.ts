@@ -15,7 +15,7 @@ import * as repo from '../repositories/datasets.repository.js'
 import { listConsistency, listFits } from '../repositories/fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { findReport, insertReport } from '../repositories/reports.repository.js'
-import { DESIGN_CAUTION } from './catalogue.service.js'
+import { cautionFor } from './catalogue.service.js'
 import { contentDigest } from './digest.js'
 import { computedOn, pointSetOf, withStale } from './point-set.js'
 import { fileStem } from './exports.service.js'
@@ -104,7 +104,7 @@ async function gatherReport(
     approvals,
     digest,
     outlierIds: [...approvals].reverse().find((a) => a.meaning === 'approved')?.outliers?.pointIds ?? [],
-    caution: DESIGN_CAUTION,
+    caution: cautionFor(d.vaporModel),
   }
 }
 
@@ -114,17 +114,27 @@ function recommendedCurve(
   inputs: Awaited<ReturnType<typeof engineInputs>>,
 ): { curve: ReportCurve | null; curveNote: string | null } {
   const fit = fits.find((f) => f.id === d.recommendedFitId)
-  if (d.layout === 'pxy')
-    return {
-      curve: null,
-      curveNote: 'Isothermal P–x–y data: the web app draws their curves; the report shows the measured points.',
-    }
   if (!fit)
     return { curve: null, curveNote: 'No fit is marked as recommended: the plots show the measured points only.' }
+  const condition =
+    d.nominalTemperatureK !== null
+      ? { T: d.nominalTemperatureK }
+      : d.nominalPressurePa !== null
+        ? { P: d.nominalPressurePa }
+        : null
+  if (!condition)
+    return {
+      curve: null,
+      curveNote:
+        'This isothermal data set has no nominal temperature recorded: the plots show the measured points only.',
+    }
   try {
-    const diagram = phaseDiagram(binarySystem(inputs, fit.activity as unknown as ActivityModel), {
-      P: d.nominalPressurePa,
-    })
+    // drawn under the vapour the fit was made with
+    const vapor = (fit.options.vapor as typeof inputs.vapor | undefined) ?? inputs.vapor
+    const diagram = phaseDiagram(
+      binarySystem({ ...inputs, vapor }, fit.activity as unknown as ActivityModel),
+      condition,
+    )
     return {
       curve: {
         fitId: fit.id,
@@ -132,6 +142,7 @@ function recommendedCurve(
         x1: diagram.x1,
         y1: diagram.y1,
         T: diagram.kind === 'isobaric' ? diagram.T : [],
+        P: diagram.kind === 'isothermal' ? diagram.P : undefined,
       },
       curveNote: fit.stale
         ? `STALE: the recommended fit was ${computedOn(fit)}, not on the points this report lists; run it again before relying on the curve.`

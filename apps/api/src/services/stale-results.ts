@@ -25,7 +25,9 @@ export function staleResults(message: string, stale: StaleItem[]): AppError {
 
 const TEST_NAMES: Record<ConsistencyRecord['test'], string> = {
   'herington-area': 'the area test',
+  'redlich-kister-area': 'the area test (Redlich–Kister)',
   point: 'the point test',
+  'quality-score': 'the data-quality score',
 }
 
 /** The latest result of each consistency test: what the consistency panel and the record show. */

@@ -1,7 +1,8 @@
 /** Binary systems and the engine inputs (vapour-pressure models, molar volumes) they imply. */
-import type { BinarySystem, VaporPressureModel } from '@ebullio/thermo'
+import { missingVirialData, virialInputsOf, type VaporModelChoice } from '@ebullio/schemas'
+import type { BinarySystem, VaporModel, VaporPressureModel } from '@ebullio/thermo'
 import type { Db } from '../db/index.js'
-import { conflict, notFound } from '../errors/index.js'
+import { AppError, conflict, notFound } from '../errors/index.js'
 import { appendAudit } from '../repositories/audit.repository.js'
 import {
   findComponent,
@@ -48,10 +49,43 @@ export interface EngineInputs {
   V2: number | undefined
   /** g/mol */
   molarMasses: [number, number]
+  /** the vapour model of the data set computed on (ideal unless it chose a virial vapour) */
+  vapor: VaporModel
+}
+
+/**
+ * thermo's vapour model for a data set's choice: a virial vapour takes each component's critical data (and its
+ * liquid molar volume for the Poynting factor) from the component records; refused, naming what is missing.
+ */
+export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice | undefined): VaporModel {
+  if (!choice || choice.kind === 'ideal') return { kind: 'ideal' }
+  const comps = [system.component1, system.component2]
+  const why = missingVirialData(comps)
+  if (why) throw new AppError(422, 'missing_critical_data', why)
+  const noVolume = comps.filter((c) => !c.liquidMolarVolume).map((c) => c.name)
+  if (choice.poynting && noVolume.length)
+    throw new AppError(
+      422,
+      'missing_critical_data',
+      `The Poynting factor needs each component's liquid molar volume; missing — ${noVolume.join(', ')}. Enter it on the components screen or switch the Poynting factor off.`,
+    )
+  const [c1, c2] = comps.map((c) => {
+    const v = virialInputsOf(c.properties)
+    if (!v.ok) throw new Error('unreachable: checked above')
+    return {
+      Tc: v.Tc,
+      Pc: v.Pc,
+      omega: v.omega,
+      Vc: v.Vc,
+      tsonopoulos: { a: v.a, b: v.b },
+      ...(c.liquidMolarVolume ? { liquidMolarVolume: c.liquidMolarVolume } : {}),
+    }
+  })
+  return { kind: 'virial', correlation: 'tsonopoulos', components: [c1, c2], poynting: choice.poynting }
 }
 
 /** What thermo needs to compute with this system. */
-export async function engineInputs(db: Db, systemId: string): Promise<EngineInputs> {
+export async function engineInputs(db: Db, systemId: string, vapor?: VaporModelChoice): Promise<EngineInputs> {
   const system = await getSystem(db, systemId)
   const sets = await listVaporPressureSets(db, [system.component1.id, system.component2.id])
   const s1 = pick(sets, system.component1.id, system.component1.name)
@@ -63,12 +97,17 @@ export async function engineInputs(db: Db, systemId: string): Promise<EngineInpu
     V1: system.component1.liquidMolarVolume ?? undefined,
     V2: system.component2.liquidMolarVolume ?? undefined,
     molarMasses: [system.component1.molarMass, system.component2.molarMass],
+    vapor: engineVapor(system, vapor),
   }
 }
 
 /** thermo's BinarySystem from stored inputs and an activity model. */
 export function binarySystem(inputs: EngineInputs, activity: BinarySystem['activity']): BinarySystem {
-  return { vaporPressure: inputs.vaporPressure, activity }
+  return {
+    vaporPressure: inputs.vaporPressure,
+    activity,
+    ...(inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}),
+  }
 }
 
 /** A page of systems, answered by the repository as it is (no rule applies). */

@@ -16,12 +16,12 @@ import {
 } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
-import { notFound } from '../errors/index.js'
+import { conflict, notFound } from '../errors/index.js'
 import { listPureMeasurements } from '../repositories/components.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { findFit, type FitRecord } from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
-import { pointSetOf } from './point-set.js'
+import { enginePoint, pointSetOf } from './point-set.js'
 import { thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs, type EngineInputs } from './systems.service.js'
 
@@ -44,7 +44,8 @@ function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs
   if (stored && typeof stored.residualVariance === 'number') return stored
   const used = new Set(fit.pointIds)
   const o = fit.options as {
-    objective?: 'bubble-point' | 'activity'
+    objective?: 'bubble-point' | 'bubble-pressure' | 'activity'
+    vapor?: EngineInputs['vapor']
     V1?: number
     V2?: number
     alpha?: number
@@ -59,13 +60,8 @@ function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs
       alpha: o.alpha,
       fitAlpha: o.fitAlpha,
       vaporPressure: inputs.vaporPressure,
-      points: points.map((p) => ({
-        T: p.temperatureK,
-        P: p.pressurePa,
-        x1: p.x1,
-        y1: p.y1,
-        excluded: !used.has(p.id),
-      })),
+      ...(o.vapor ? { vapor: o.vapor } : {}),
+      points: points.map((p) => ({ ...enginePoint(p), excluded: !used.has(p.id) })),
     }),
   )
   return again.settings
@@ -76,14 +72,19 @@ export function storedFitResult(fit: FitRecord, points: PointRecord[], inputs: E
   const stats = fit.statistics
   return {
     activity: fit.activity as unknown as ActivityModel,
-    system: { vaporPressure: inputs.vaporPressure, activity: fit.activity as unknown as ActivityModel },
+    // the vapour the fit was computed under (stored with it), not today's choice
+    system: {
+      vaporPressure: inputs.vaporPressure,
+      activity: fit.activity as unknown as ActivityModel,
+      ...(fit.options.vapor ? { vapor: fit.options.vapor as EngineInputs['vapor'] } : {}),
+    },
     parameters: fit.parameters,
     covariance: numbers(stats.covariance),
     correlation: numbers(stats.correlation),
     converged: Boolean(stats.converged),
     iterations: Number(stats.iterations),
     objective: Number(stats.objective),
-    objectiveKind: (fit.options.objective as 'bubble-point' | 'activity' | undefined) ?? 'bubble-point',
+    objectiveKind: (fit.options.objective as FitBinaryResult['objectiveKind'] | undefined) ?? 'bubble-point',
     rmsT: Number(stats.rmsT),
     rmsY: Number(stats.rmsY),
     aadT: Number(stats.aadT),
@@ -103,7 +104,14 @@ async function loadFit(db: Db, user: SessionUser, id: string, fitId: string) {
   if (!fit || fit.dataSetId !== id) throw notFound('There is no such fit in this data set.')
   const inputs = await engineInputs(db, d.systemId)
   const points = await listPoints(db, id)
-  return { d, fit, inputs, points, result: storedFitResult(fit, points, inputs), current: pointSetOf(points).digest }
+  return {
+    d,
+    fit,
+    inputs,
+    points,
+    result: storedFitResult(fit, points, inputs),
+    current: pointSetOf(points, d.vaporModel).digest,
+  }
 }
 
 /** Which point set a band or suggestion list rests on (its fit's), and whether the points have changed since. */
@@ -147,9 +155,20 @@ export function suggestionsOf(
   return { fitId: fit.id, model: fit.model, P, criterion, ...plan }
 }
 
+/** Why isothermal data have no band: it is a T–x–y band at one pressure. */
+export const ISOTHERMAL_BAND =
+  'The prediction band is a T–x–y band at one pressure; it is not offered for isothermal data. Ask for it at a pressure to see the T–x–y band there.'
+
+/** The pressure a band or suggestion list is computed at: the one asked for, else the nominal pressure. */
+function bandPressure(d: repo.DataSetRecord, P: number | undefined): number {
+  const at = P ?? d.nominalPressurePa
+  if (at === null) throw conflict(ISOTHERMAL_BAND)
+  return at
+}
+
 export async function fitBand(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; points: number }) {
   const { d, fit, result, current } = await loadFit(db, user, id, fitId)
-  return { dataSetId: id, ...bandOf(fit, result, o.P ?? d.nominalPressurePa, o.points), ...boundTo(fit, current) }
+  return { dataSetId: id, ...bandOf(fit, result, bandPressure(d, o.P), o.points), ...boundTo(fit, current) }
 }
 
 export async function nextCompositions(
@@ -163,7 +182,7 @@ export async function nextCompositions(
   const limits = { range: o.range, exclusion: o.exclusion, measured: points.map((p) => p.x1) }
   return {
     dataSetId: id,
-    ...suggestionsOf(fit, result, o.P ?? d.nominalPressurePa, o.count, o.criterion, limits),
+    ...suggestionsOf(fit, result, bandPressure(d, o.P), o.count, o.criterion, limits),
     ...boundTo(fit, current),
   }
 }

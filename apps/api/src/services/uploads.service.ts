@@ -1,4 +1,5 @@
 /** The analyst's main step: a run sheet previewed with x and y per sample, then committed as points in one transaction. */
+import { hasVapour } from '@ebullio/schemas'
 import { compositionFromAreas, type Calibration, type CompositionResult } from '@ebullio/thermo'
 import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
@@ -322,7 +323,8 @@ async function analyseRun(
   requireState(d, EDITABLE_STATES, 'uploading')
   const cal = await chooseCalibration(db, d.systemId, calibrationId)
   const summary = summarizeFile(file)
-  const parsed = await parseRunFileAsync(file.content, DEFAULT_BOUNDS, readLimits(config))
+  const liquidOnly = !hasVapour(d.layout)
+  const parsed = await parseRunFileAsync(file.content, DEFAULT_BOUNDS, readLimits(config), { liquidOnly })
   const problems = [...parsed.problems]
   const previous = await findCommittedRun(db, dataSetId, summary.sha256)
   if (previous) problems.unshift(uploadError(null, null, null, duplicateMessage(previous)))
@@ -332,7 +334,7 @@ async function analyseRun(
     if (i % 500 === 499) await nextTurn()
     const pure = s.pureComponent && pureComposition(s.pureComponent)
     const x = pure || phaseComposition(cal, s, 'liquid', config.replicateRsdLimit, problems)
-    const y = pure || phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems)
+    const y = pure || (liquidOnly ? null : phaseComposition(cal, s, 'vapour', config.replicateRsdLimit, problems))
     const liquidPhases = layerCompositions(cal, s, x, config.replicateRsdLimit, problems)
     samples.push({
       label: s.label,
@@ -445,8 +447,9 @@ export async function commitRun(
         pressurePa: s.pressurePa,
         x1: s.x1!,
         x1Uncertainty: s.x1Uncertainty!,
-        y1: s.y1!,
-        y1Uncertainty: s.y1Uncertainty!,
+        // null for T–x and P–x data (no vapour analysed)
+        y1: s.y1,
+        y1Uncertainty: s.y1 === null ? null : s.y1Uncertainty,
         uploadId: upload.id,
         calibrationId: preview.calibrationId,
         rowRefs: s.rows,

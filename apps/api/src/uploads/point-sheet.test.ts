@@ -33,4 +33,17 @@ describe('parsePointSheet', () => {
     const tx = parsePointSheet('sample,t,t_unit,p,p_unit,x1,y1\nA,60,C,101,kPa,0.1,0.2\n', 'tx')
     expect(tx.problems[0].message).toBe('A T–x sheet has no vapour composition; leave y1 empty.')
   })
+
+  it('reads σP in the row’s pressure unit (1 mmHg = 133.322387415 Pa, as packages/thermo/src/units.ts defines it) and a P–x sheet without y1', () => {
+    const r = parsePointSheet('sample,t,t_unit,p,p_unit,x1,u_p\nA,50,C,600,mmHg,0.3,0.75\nB,50,C,61.2,kPa,0.5,\n', 'px')
+    expect(r.problems).toEqual([])
+    expect(r.points[0].pressureUncertaintyPa).toBeCloseTo(0.75 * 133.322387415, 9)
+    expect(r.points[1].pressureUncertaintyPa).toBeNull()
+    expect(r.points.map((p) => p.y1)).toEqual([null, null])
+    const bad = parsePointSheet('sample,t,t_unit,p,p_unit,x1,y1,u_p\nA,50,C,60,kPa,0.3,0.4,-1\n', 'px')
+    expect(bad.problems.map((p) => [p.row, p.column, p.message])).toEqual([
+      [2, 'y1', 'A P–x sheet has no vapour composition; leave y1 empty.'],
+      [2, 'u_p', 'u_p must be positive (in the row’s pressure unit).'],
+    ])
+  })
 })

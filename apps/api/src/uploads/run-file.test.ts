@@ -279,3 +279,39 @@ describe('parseRunFile', () => {
     })
   })
 })
+
+describe('parseRunFile for data without vapour compositions (T–x, P–x)', () => {
+  const header = 'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit'
+  it('reads liquid-only samples and names a vapour row as out of place', () => {
+    const ok = parseRunFile(
+      `${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,liquid,2,101,300,,,,\n`,
+      undefined,
+      undefined,
+      {
+        liquidOnly: true,
+      },
+    )
+    expect(ok.problems).toEqual([])
+    expect(ok.samples.map((s) => [s.label, s.liquid.length, s.vapour.length])).toEqual([['L-1', 2, 0]])
+    const bad = parseRunFile(
+      `${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\nL-1,vapour,1,150,250,,,,\n`,
+      undefined,
+      undefined,
+      {
+        liquidOnly: true,
+      },
+    )
+    expect(bad.samples).toEqual([])
+    expect(bad.problems.map((p) => [p.row, p.column, p.message])).toEqual([
+      [
+        3,
+        'phase',
+        'Sample L-1 has vapour injections, but this data set has no vapour composition (T–x or P–x); leave the vapour rows out or choose a T–x–y or P–x–y data set.',
+      ],
+    ])
+    // the same liquid-only file on a T–x–y data set still asks for the vapour
+    expect(parseRunFile(`${header}\nL-1,liquid,1,100,300,50,C,61.2,kPa\n`).problems[0].message).toBe(
+      'Sample L-1 has liquid injections but no vapour injection.',
+    )
+  })
+})

@@ -230,12 +230,31 @@ function readRow(cell: Cells, line: number, dc: boolean, drafts: Drafts, problem
   }
 }
 
+/** How the run is read: `liquidOnly` for T–x and P–x data (no vapour analysed). */
+export interface RunReadOptions {
+  liquidOnly?: boolean
+}
+
 /** Turn a gathered sample into SI values, listing what is missing or implausible. */
-function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem[]): RunSample | null {
+function finishSample(
+  s: Draft,
+  bounds: PlausibleBounds,
+  problems: UploadProblem[],
+  o: RunReadOptions = {},
+): RunSample | null {
   const first = s.rows[0]
   const pure = pureComponentOf(s, problems)
+  if (o.liquidOnly && s.vapour.length > 0 && !pure)
+    problems.push(
+      uploadError(
+        s.vapour[0].row,
+        'phase',
+        s.label,
+        `Sample ${s.label} has vapour injections, but this data set has no vapour composition (T–x or P–x); leave the vapour rows out or choose a T–x–y or P–x–y data set.`,
+      ),
+    )
   // A pure liquid boils to the same vapour: its vapour rows may be left out.
-  if (s.liquid.length > 0 && s.vapour.length === 0 && pure === null)
+  if (!o.liquidOnly && s.liquid.length > 0 && s.vapour.length === 0 && pure === null)
     problems.push(
       uploadError(first, 'phase', s.label, `Sample ${s.label} has liquid injections but no vapour injection.`),
     )
@@ -246,8 +265,8 @@ function finishSample(s: Draft, bounds: PlausibleBounds, problems: UploadProblem
   if (!s.t) problems.push(uploadError(first, 't_boil', null, `Sample ${s.label} has no boiling temperature.`))
   if (!s.p) problems.push(uploadError(first, 'p_baro', null, `Sample ${s.label} has no pressure.`))
   const layersOk = checkLayers(s, problems)
-  if (!s.t || !s.p || s.liquid.length === 0 || (s.vapour.length === 0 && !pure) || !layersOk || pure === false)
-    return null
+  const vapourOk = o.liquidOnly ? s.vapour.length === 0 || !!pure : s.vapour.length > 0 || !!pure
+  if (!s.t || !s.p || s.liquid.length === 0 || !vapourOk || !layersOk || pure === false) return null
   const temperatureK = toKelvin(s.t.value, s.t.unit)
   const pressurePa = toPascal(s.p.value, s.p.unit)
   const [tMin, tMax] = bounds.temperatureK
@@ -298,8 +317,9 @@ export function parseRunFile(
   content: Buffer | string,
   bounds: PlausibleBounds = DEFAULT_BOUNDS,
   limits: ReadLimits = DEFAULT_READ_LIMITS,
+  o: RunReadOptions = {},
 ): RunFileParse {
-  return parseRunTable(readCsvTable(content, limits), bounds)
+  return parseRunTable(readCsvTable(content, limits), bounds, o)
 }
 
 /** `parseRunFile` for the server: the CSV is read in slices so a large file does not hold the event loop. */
@@ -307,12 +327,17 @@ export async function parseRunFileAsync(
   content: Buffer | string,
   bounds: PlausibleBounds = DEFAULT_BOUNDS,
   limits: ReadLimits = DEFAULT_READ_LIMITS,
+  o: RunReadOptions = {},
 ): Promise<RunFileParse> {
-  return parseRunTable(await readCsvTableAsync(content, limits), bounds)
+  return parseRunTable(await readCsvTableAsync(content, limits), bounds, o)
 }
 
 /** The run sheet's samples from a table already read; an unreadable file keeps its one problem and nothing else. */
-export function parseRunTable(table: CsvTable, bounds: PlausibleBounds = DEFAULT_BOUNDS): RunFileParse {
+export function parseRunTable(
+  table: CsvTable,
+  bounds: PlausibleBounds = DEFAULT_BOUNDS,
+  o: RunReadOptions = {},
+): RunFileParse {
   const unreadable = table.problems.length > 0
   const map: ColumnMapping = unreadable
     ? { columns: {}, extraColumns: [], problems: [] }
@@ -337,7 +362,7 @@ export function parseRunTable(table: CsvTable, bounds: PlausibleBounds = DEFAULT
   if (table.rows.length === 0) problems.push(uploadError(null, null, null, 'The file has a header but no data rows.'))
   const samples: RunSample[] = []
   for (const d of drafts.samples.values()) {
-    const s = finishSample(d, bounds, problems)
+    const s = finishSample(d, bounds, problems, o)
     if (s) samples.push(s)
   }
   const checks = finishChecks(drafts.checks, new Set(drafts.samples.keys()), problems)

@@ -42,7 +42,7 @@ export type Fit = FitDetailDto & {
 
 export interface ConsistencyResult {
   id: string
-  test: 'herington-area' | 'point'
+  test: 'herington-area' | 'redlich-kister-area' | 'point' | 'quality-score'
   passed: boolean
   result: Record<string, unknown>
   runAt: string
@@ -90,6 +90,21 @@ export interface DataSetDetail {
   /** the two components' preferred vapour-pressure models, when they could be read */
   vaporPressure?: [Record<string, unknown>, Record<string, unknown>] | null
   authorName?: string
+  /** how large a virial vapour's correction would be here, for a data set with an ideal vapour (null: not known) */
+  vapourCorrection?: VapourCorrection | null
+}
+
+/** The server's comparison of an ideal with a virial vapour at the data set's own points. */
+export interface VapourCorrection {
+  exceeds: boolean
+  kind: 'isobaric' | 'isothermal'
+  maxAbsDy: number
+  /** K */
+  maxAbsDT: number | null
+  /** Pa */
+  maxAbsDP: number | null
+  basis: string
+  message: string | null
 }
 
 /** The server answers with the data set's own fields at the top level and its parts beside them. */
@@ -134,7 +149,11 @@ export interface DataSetListQuery {
 export interface NewDataSet {
   systemId: string
   title: string
-  nominalPressurePa: number
+  /** Pa; null for isothermal data */
+  nominalPressurePa: number | null
+  /** K; isothermal data only */
+  nominalTemperatureK?: number | null
+  vaporModel?: DataSet['vaporModel']
   apparatusNotes: string | null
   projectRef: string | null
   /** where the numbers come from (default: measured here by GC), with a citation for literature data */
@@ -147,7 +166,7 @@ export interface NewDataSet {
 /** POST …/fits body: models, NRTL α (dimensionless) held or fitted. */
 export interface FitRequest {
   models: Exclude<ModelName, 'ideal'>[]
-  objective?: 'bubble-point' | 'activity'
+  objective?: 'bubble-point' | 'bubble-pressure' | 'activity'
   alpha?: number
   fitAlpha?: boolean
 }
@@ -203,8 +222,19 @@ export interface PureCheckResult {
 const base = '/api/data-sets'
 
 async function getDetail(id: string): Promise<DataSetDetail> {
-  const { system, points, fits, consistency, approvals, comments, uploads, versions, calibrations, ...dataSet } =
-    await api.get<DetailAnswer>(`${base}/${id}`)
+  const {
+    system,
+    points,
+    fits,
+    consistency,
+    approvals,
+    comments,
+    uploads,
+    versions,
+    calibrations,
+    vapourCorrection,
+    ...dataSet
+  } = await api.get<DetailAnswer>(`${base}/${id}`)
   return {
     dataSet: dataSet as DataSet,
     system,
@@ -216,6 +246,7 @@ async function getDetail(id: string): Promise<DataSetDetail> {
     uploads: uploads ?? [],
     versions: versions ?? [],
     calibrations: calibrations ?? [],
+    vapourCorrection: vapourCorrection ?? null,
   }
 }
 

@@ -17,7 +17,8 @@ interface Basis {
   fitId: Ref<string | null>
   pressurePa: Ref<number>
   measured: Ref<MeasuredData | null>
-  version: Ref<{ nominalPressurePa: number } | null>
+  /** the version's nominal pressure (null for isothermal data) */
+  version: Ref<{ nominalPressurePa: number | null } | null>
   names: Ref<[string, string]>
 }
 
@@ -57,7 +58,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   })
   /** The activity model is extrapolated in temperature when the pressure is more than 25 % from the measured one. */
   const farFrom = computed(() =>
-    version.value && Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
+    version.value?.nominalPressurePa && Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
       ? proseP(prefs, version.value.nominalPressurePa)
       : null,
   )

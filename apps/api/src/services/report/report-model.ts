@@ -12,8 +12,10 @@ export interface ReportCurve {
   model: string
   x1: number[]
   y1: number[]
-  /** K */
+  /** K (isobaric curve) */
   T: number[]
+  /** Pa (isothermal curve) */
+  P?: number[]
 }
 
 export interface ReportModel {

@@ -10,7 +10,15 @@ import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { ReportModel } from './report-model.js'
 import { residualsSvg, txySvg, xySvg } from './report-plots.js'
 import { methodSection, pointsSection, fitsSection, consistencySection, commentsSection } from './report-sections.js'
-import { dateTime, groupedDigest, originText, reportNumber, stateText, watermarkFor } from './report-text.js'
+import {
+  conditionText,
+  dateTime,
+  groupedDigest,
+  originText,
+  reportNumber,
+  stateText,
+  watermarkFor,
+} from './report-text.js'
 import { C, heading, keyValues, signatureSection } from './report-blocks.js'
 
 const require = createRequire(import.meta.url)
@@ -126,7 +134,7 @@ function titleBlock(m: ReportModel, number: string): Content {
               { text: m.report.labName, fontSize: 9, color: C.muted },
               { text: d.title, fontSize: 17, bold: true, margin: [0, 2, 0, 2] },
               {
-                text: `Vapour–liquid equilibrium of ${m.system.name} at ${(d.nominalPressurePa / 1000).toFixed(3)} kPa`,
+                text: `Vapour–liquid equilibrium of ${m.system.name} ${conditionText(d)}`,
                 fontSize: 10,
                 color: C.teal,
               },
@@ -190,14 +198,14 @@ function plotsSection(m: ReportModel): Content {
     stack: [
       heading('5', 'Plots'),
       {
-        text: `At the nominal pressure, ${(m.dataSet.nominalPressurePa / 1000).toFixed(3)} kPa. ${m.curveNote ?? 'Curves: the recommended fit.'}`,
+        text: `${m.dataSet.nominalTemperatureK !== null ? 'At the nominal temperature' : 'At the nominal pressure'}, ${conditionText(m.dataSet).replace(/^at /, '')}. ${m.curveNote ?? 'Curves: the recommended fit.'}`,
         style: 'small',
         margin: [0, 0, 0, 4],
       },
       {
         columns: [
-          m.dataSet.layout === 'pxy' ? { text: '' } : { svg: txySvg(m), width: 310 },
-          { svg: xySvg(m), width: 190 },
+          { svg: txySvg(m), width: 310 },
+          m.points.some((p) => p.y1 !== null) ? { svg: xySvg(m), width: 190 } : { text: '' },
         ],
         columnGap: 8,
       },

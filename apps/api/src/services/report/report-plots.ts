@@ -52,43 +52,51 @@ const grid = { left: 48, right: 12, top: 36, bottom: 36 }
 
 const included = (m: ReportModel) => m.points.filter((p) => !p.excluded)
 const excluded = (m: ReportModel) => m.points.filter((p) => p.excluded)
+/** Isothermal data are drawn P–x–y (kPa), isobaric data T–x–y (K). */
+const isothermal = (m: ReportModel) => m.dataSet.layout === 'pxy' || m.dataSet.layout === 'px'
+/** [x, y] pairs, leaving out points without a value (a T–x point has no y1). */
+const pairs = (rows: [number | null, number][]) => rows.filter((r): r is [number, number] => r[0] !== null)
 
-/** T–x–y at the nominal pressure: bubble and dew curves of the recommended fit, liquid and vapour points. */
+/**
+ * T–x–y at the nominal pressure (isobaric data) or P–x–y at the nominal temperature (isothermal data): bubble and
+ * dew curves of the recommended fit, liquid and vapour points.
+ */
 export function txySvg(m: ReportModel, width = 310, height = 240): string {
+  const iso = isothermal(m)
+  const v = (p: ReportModel['points'][number]) => (iso ? p.pressurePa / 1000 : p.temperatureK)
   const series: Record<string, unknown>[] = [
     scatter(
       'liquid x₁',
       LIQUID,
       'circle',
-      included(m).map((p) => [p.x1, p.temperatureK]),
-    ),
-    scatter(
-      'vapour y₁',
-      VAPOUR,
-      'diamond',
-      included(m).map((p) => [p.y1, p.temperatureK]),
+      included(m).map((p) => [p.x1, v(p)]),
     ),
   ]
+  if (included(m).some((p) => p.y1 !== null))
+    series.push(scatter('vapour y₁', VAPOUR, 'diamond', pairs(included(m).map((p) => [p.y1, v(p)]))))
   if (excluded(m).length)
     series.push(
       scatter(
         'excluded',
         MUTED,
         'emptyCircle',
-        excluded(m).flatMap((p) => [
-          [p.x1, p.temperatureK],
-          [p.y1, p.temperatureK],
-        ]),
+        pairs(
+          excluded(m).flatMap((p): [number | null, number][] => [
+            [p.x1, v(p)],
+            [p.y1, v(p)],
+          ]),
+        ),
       ),
     )
   if (m.curve) {
     const c = m.curve
+    const along = iso ? (c.P ?? []).map((P) => P / 1000) : c.T
     series.push(
       line(
         'bubble (fit)',
         CURVE,
         'solid',
-        c.x1.map((x, i) => [x, c.T[i]]),
+        c.x1.map((x, i) => [x, along[i]]),
       ),
     )
     series.push(
@@ -96,7 +104,7 @@ export function txySvg(m: ReportModel, width = 310, height = 240): string {
         'dew (fit)',
         CURVE,
         'dashed',
-        c.y1.map((y, i) => [y, c.T[i]]),
+        c.y1.map((y, i) => [y, along[i]]),
       ),
     )
   }
@@ -105,7 +113,7 @@ export function txySvg(m: ReportModel, width = 310, height = 240): string {
       legend,
       grid,
       xAxis: fraction('x₁, y₁ (mole fraction)'),
-      yAxis: axis('T / K', { scale: true, nameGap: 34 }),
+      yAxis: axis(iso ? 'P / kPa' : 'T / K', { scale: true, nameGap: 34 }),
       series,
     },
     width,
@@ -124,7 +132,7 @@ export function xySvg(m: ReportModel, width = 190, height = 240): string {
       'measured',
       LIQUID,
       'circle',
-      included(m).map((p) => [p.x1, p.y1]),
+      pairs(included(m).map((p) => [p.y1, p.x1])).map(([y, x]) => [x, y]),
     ),
   ]
   if (excluded(m).length)
@@ -133,7 +141,7 @@ export function xySvg(m: ReportModel, width = 190, height = 240): string {
         'excluded',
         MUTED,
         'emptyCircle',
-        excluded(m).map((p) => [p.x1, p.y1]),
+        pairs(excluded(m).map((p) => [p.y1, p.x1])).map(([y, x]) => [x, y]),
       ),
     )
   if (m.curve)
@@ -152,21 +160,31 @@ export function xySvg(m: ReportModel, width = 190, height = 240): string {
   )
 }
 
-/** Residuals of the recommended fit against x1: ΔT (K, left) and Δy1 (right), as stored with the fit. */
+/**
+ * Residuals of the recommended fit against x1, as stored with the fit: ΔT (K) or, for a fit on pressures, ΔP (kPa)
+ * on the left, Δy1 on the right.
+ */
 export function residualsSvg(m: ReportModel, width = 500, height = 170): string | null {
   const fit = m.fits.find((f) => f.id === m.dataSet.recommendedFitId)
   if (!fit) return null
   const byId = new Map(m.points.map((p) => [p.id, p]))
-  const rows = (fit.residuals as { pointId?: string; dT?: number; dy?: number }[])
-    .map((r) => ({ p: r.pointId ? byId.get(r.pointId) : undefined, dT: r.dT, dy: r.dy }))
+  const stored = fit.residuals as { pointId?: string; dT?: number; dP?: number; dy?: number | null }[]
+  const onPressure = stored.some((r) => typeof r.dP === 'number')
+  const rows = stored
+    .map((r) => ({
+      p: r.pointId ? byId.get(r.pointId) : undefined,
+      d: onPressure ? (r.dP ?? NaN) / 1000 : r.dT,
+      dy: r.dy ?? undefined,
+    }))
     .filter((r) => r.p)
+  const leftName = onPressure ? 'ΔP / kPa' : 'ΔT / K'
   const series: Record<string, unknown>[] = [
     {
       ...scatter(
-        'ΔT / K',
+        leftName,
         LIQUID,
         'circle',
-        rows.filter((r) => Number.isFinite(r.dT)).map((r) => [r.p!.x1, r.dT!]),
+        rows.filter((r) => Number.isFinite(r.d)).map((r) => [r.p!.x1, r.d!]),
       ),
       yAxisIndex: 0,
     },
@@ -193,7 +211,7 @@ export function residualsSvg(m: ReportModel, width = 500, height = 170): string 
       legend,
       grid: { ...grid, top: 24, right: 60 },
       xAxis: fraction('x₁'),
-      yAxis: [axis('ΔT / K', { nameGap: 36 }), axis('Δy₁', { nameGap: 44, splitLine: { show: false } })],
+      yAxis: [axis(leftName, { nameGap: 36 }), axis('Δy₁', { nameGap: 44, splitLine: { show: false } })],
       series,
     },
     width,

@@ -4,7 +4,17 @@ import type { Content, TableCell } from 'pdfmake/interfaces'
 import { computedOn } from '../point-set.js'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
-import { calibrationModelName, dateTime, modelName, num, originText, PARAMETER_UNITS, sig } from './report-text.js'
+import { layoutLabel, objectiveLabel, vaporModelLabel } from '@ebullio/schemas'
+import {
+  calibrationModelName,
+  conditionText,
+  dateTime,
+  modelName,
+  num,
+  originText,
+  PARAMETER_UNITS,
+  sig,
+} from './report-text.js'
 
 export function methodSection(m: ReportModel): Content {
   const c = (x: ReportModel['system']['component1'], i: number): [string, string] => [
@@ -17,6 +27,8 @@ export function methodSection(m: ReportModel): Content {
       keyValues([
         c(m.system.component1, 1),
         c(m.system.component2, 2),
+        ['Kind of data', `${layoutLabel(m.dataSet.layout)}, ${conditionText(m.dataSet)}`],
+        ['Vapour model', vaporModelLabel(m.dataSet.vaporModel)],
         ['Origin of the numbers', originText(m.dataSet)],
         ['Still and apparatus', m.dataSet.apparatusNotes ?? 'not recorded'],
         ...m.vaporPressure.map((v): [string, string] => [`Vapour pressure`, `${v.component}: ${v.kind}, ${v.source}`]),
@@ -68,11 +80,13 @@ export function methodSection(m: ReportModel): Content {
 export function pointsSection(m: ReportModel): Content {
   const flagged = new Set(m.outlierIds)
   const rows = m.points.map((p): TableCell[] => {
-    const note = p.excluded
+    const sigmaP = p.pressureUncertaintyPa ? `σP = ${sig(p.pressureUncertaintyPa / 1000, 2)} kPa` : ''
+    const flag = p.excluded
       ? `excluded: ${p.exclusionReason ?? ''}`
       : flagged.has(p.id)
         ? 'outlier flag (as signed)'
         : ''
+    const note = [flag, sigmaP].filter(Boolean).join('; ')
     const cell = (t: string) => ({ text: t, alignment: 'right' as const, color: p.excluded ? C.muted : C.ink })
     return [
       cell(String(p.seq)),
@@ -130,7 +144,9 @@ export function fitsSection(m: ReportModel): Content {
     const fill = isRec ? C.amberSoft : undefined
     // a stale fit is printed in grey with what it was computed on, never as a result of these points
     const ink = f.stale ? C.muted : C.ink
-    const s = f.statistics as { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean }
+    const s = f.statistics as { rmsT?: number; rmsP?: number; rmsY?: number; aic?: number; converged?: boolean }
+    const o = f.options as { objective?: string; vapor?: { kind: 'ideal' } | { kind: 'virial'; poynting?: boolean } }
+    const onPressure = o.objective === 'bubble-pressure'
     const held =
       f.model === 'nrtl' && typeof f.options.alpha === 'number' && !f.parameters.some((p) => p.name === 'alpha')
     const params = [
@@ -150,8 +166,27 @@ export function fitsSection(m: ReportModel): Content {
           ...(f.stale ? staleMark(f) : []),
         ],
       },
-      { text: params.join('\n'), fillColor: fill, color: ink },
-      { text: num(s.rmsT, 3), alignment: 'right', fillColor: fill, color: ink },
+      {
+        fillColor: fill,
+        stack: [
+          { text: params.join('\n'), color: ink },
+          {
+            text: `Objective: ${objectiveLabel(o.objective)}. Vapour: ${vaporModelLabel(
+              o.vapor?.kind === 'virial'
+                ? { kind: 'virial', correlation: 'tsonopoulos', poynting: !!o.vapor.poynting }
+                : o.vapor,
+            )}.`,
+            fontSize: 7,
+            color: C.muted,
+          },
+        ],
+      },
+      {
+        text: onPressure ? `${num((s.rmsP ?? NaN) / 1000, 3)} kPa` : `${num(s.rmsT, 3)} K`,
+        alignment: 'right',
+        fillColor: fill,
+        color: ink,
+      },
       { text: num(s.rmsY, 4), alignment: 'right', fillColor: fill, color: ink },
       { text: num(s.aic, 1), alignment: 'right', fillColor: fill, color: ink },
       { text: String(f.pointIds.length), alignment: 'right', fillColor: fill, color: ink },
@@ -162,13 +197,13 @@ export function fitsSection(m: ReportModel): Content {
     stack: [
       heading('3', 'Fits compared'),
       {
-        text: 'Activity-model fits to the included points (bubble-point objective unless stated). The recommended fit, shaded, is the one this version carries; lower AIC is better at equal points.',
+        text: 'Activity-model fits to the included points; each states its objective and vapour model. The recommended fit, shaded, is the one this version carries; lower AIC is better at equal points.',
         style: 'small',
         margin: [0, 0, 0, 4],
       },
       m.fits.length
         ? grid(
-            ['Model', 'Parameters (± standard error)', 'RMS ΔT / K', 'RMS Δy₁', 'AIC', 'Points', 'Converged'],
+            ['Model', 'Parameters (± standard error)', 'RMS ΔT or ΔP', 'RMS Δy₁', 'AIC', 'Points', 'Converged'],
             rows,
             [62, '*', 46, 44, 34, 30, 40],
           )
@@ -179,35 +214,96 @@ export function fitsSection(m: ReportModel): Content {
 }
 
 export function consistencySection(m: ReportModel): Content {
-  const rows = m.consistency.map((c): TableCell[] => {
-    const r = c.result as { D?: number; J?: number; meanAbsDeltaY?: number; model?: string }
-    const numbers =
-      c.test === 'herington-area'
-        ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
-        : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
-    const criterion = c.test === 'herington-area' ? 'passes when D − J < 10 %' : 'passes when mean |Δy₁| < 0.01'
-    const ink = c.stale ? C.muted : C.ink
-    return [
-      {
-        stack: [
-          { text: c.test === 'herington-area' ? 'Area test (Herington)' : 'Point test', color: ink },
-          ...(c.stale ? staleMark(c) : []),
-        ],
-      },
-      { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
-      { text: numbers, color: ink },
-      { text: criterion, color: ink },
-      { text: dateTime(c.runAt, m.report.timeZone), color: ink },
-    ]
-  })
+  const rows = m.consistency
+    .filter((c) => c.test !== 'quality-score')
+    .map((c): TableCell[] => {
+      const r = c.result as { D?: number; J?: number; meanAbsDeltaY?: number; model?: string }
+      const numbers =
+        c.test === 'herington-area'
+          ? `D = ${num(r.D, 2)} %, J = ${num(r.J, 2)} %, D − J = ${num((r.D ?? NaN) - (r.J ?? NaN), 2)} %`
+          : c.test === 'redlich-kister-area'
+            ? `D = ${num(r.D, 2)} %`
+            : `mean |Δy₁| = ${num(r.meanAbsDeltaY, 4)}${r.model ? ` (${modelName(r.model)})` : ''}`
+      const criterion =
+        c.test === 'herington-area'
+          ? 'passes when D − J < 10 %'
+          : c.test === 'redlich-kister-area'
+            ? 'passes when D < 10 %'
+            : 'passes when mean |Δy₁| < 0.01'
+      const name =
+        c.test === 'herington-area'
+          ? 'Area test (Herington)'
+          : c.test === 'redlich-kister-area'
+            ? 'Area test (Redlich–Kister, isothermal)'
+            : 'Point test'
+      const ink = c.stale ? C.muted : C.ink
+      return [
+        {
+          stack: [{ text: name, color: ink }, ...(c.stale ? staleMark(c) : [])],
+        },
+        { text: c.passed ? 'PASSED' : 'FAILED', bold: true, color: c.stale ? C.muted : c.passed ? C.ok : C.danger },
+        { text: numbers, color: ink },
+        { text: criterion, color: ink },
+        { text: dateTime(c.runAt, m.report.timeZone), color: ink },
+      ]
+    })
   return {
     stack: [
       heading('4', 'Thermodynamic consistency'),
       rows.length
         ? grid(['Test', 'Verdict', 'Result', 'Criterion', 'Run'], rows, [86, 40, '*', 100, 92])
         : none('No consistency tests have been run on this version.'),
+      ...(m.points.length && m.points.every((p) => p.y1 === null)
+        ? [
+            none(
+              'The area and point tests need vapour compositions; this data set has none (T–x or P–x), so they cannot run.',
+            ),
+          ]
+        : []),
+      ...qualityBlock(m),
     ],
   }
+}
+
+/** The data-quality score (latest result): each test's part, the combined figure, the points that cost most. */
+function qualityBlock(m: ReportModel): Content[] {
+  const latest = m.consistency
+    .filter((c) => c.test === 'quality-score')
+    .sort((a, b) => b.runAt.getTime() - a.runAt.getTime())[0]
+  if (!latest) return []
+  const r = latest.result as {
+    quality?: number
+    tests?: { test: string; applicable: boolean; score: number; value: number; limit: number; source: string }[]
+    points?: { pointId?: string; sample?: string; quality: number; gainIfExcluded: number }[]
+  }
+  const worst = (r.points ?? []).filter((p) => p.gainIfExcluded > 0).slice(0, 5)
+  return [
+    {
+      text: `Data-quality score: ${num(r.quality, 2)} of 1`,
+      bold: true,
+      color: latest.stale ? C.muted : C.ink,
+      margin: [0, 8, 0, 2],
+    },
+    ...(latest.stale ? staleMark(latest) : []),
+    grid(
+      ['Test', 'Score (of 0.25)', 'Value', 'Limit', 'Source of the limit'],
+      (r.tests ?? []).map((t) => [
+        t.test,
+        t.applicable ? num(t.score, 3) : 'cannot run',
+        t.applicable ? sig(t.value, 3) : '–',
+        sig(t.limit, 3),
+        { text: t.source, fontSize: 7 },
+      ]),
+      [70, 50, 50, 40, '*'],
+    ),
+    {
+      text: worst.length
+        ? `Points that lower the score most: ${worst.map((p) => `${p.sample ?? '?'} (+${num(p.gainIfExcluded, 3)} without it)`).join(', ')}.`
+        : 'No single point lowers the score.',
+      style: 'small',
+      margin: [0, 2, 0, 0],
+    },
+  ]
 }
 
 export function commentsSection(m: ReportModel): Content {

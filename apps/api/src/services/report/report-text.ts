@@ -110,3 +110,10 @@ export function originText(d: {
   }
   return 'Measured here by GC'
 }
+
+/** "at 101.325 kPa" (isobaric) or "at 323.15 K (50.00 °C)" (isothermal). */
+export function conditionText(d: { nominalPressurePa: number | null; nominalTemperatureK: number | null }): string {
+  if (d.nominalTemperatureK !== null)
+    return `at ${d.nominalTemperatureK.toFixed(2)} K (${(d.nominalTemperatureK - 273.15).toFixed(2)} °C)`
+  return d.nominalPressurePa !== null ? `at ${(d.nominalPressurePa / 1000).toFixed(3)} kPa` : ''
+}

@@ -6,5 +6,7 @@ import { z } from 'zod'
  * (@ebullio/schemas `dataSetSchema`), with the pressure typed in the chosen unit (converted to Pa on save).
  */
 export const metadataFormSchema = dataSetSchema.pick({ title: true, apparatusNotes: true, projectRef: true }).extend({
-  pressure: z.number({ error: 'Enter the nominal pressure.' }).positive('The nominal pressure must be above zero.'),
+  /** isobaric data: the nominal pressure in the chosen unit; isothermal data: the temperature (checked on save) */
+  pressure: z.number().positive('The nominal pressure must be above zero.').nullable(),
+  temperature: z.number().nullable(),
 })

@@ -34,7 +34,12 @@ export const ORIGIN_CHOICES: { value: DataOrigin; label: string; help: string }[
 export const LAYOUT_CHOICES: { value: DataLayout; label: string }[] = [
   { value: 'txy', label: 'T–x–y at constant pressure' },
   { value: 'pxy', label: 'P–x–y at constant temperature' },
+  { value: 'tx', label: 'T–x at constant pressure (no vapour analysed)' },
+  { value: 'px', label: 'P–x at constant temperature (no vapour analysed)' },
 ]
+
+/** Isothermal layouts carry a temperature instead of a nominal pressure. */
+export const isIsothermal = (layout: DataLayout) => layout === 'pxy' || layout === 'px'
 
 export function emptyOrigin(): OriginForm {
   return {

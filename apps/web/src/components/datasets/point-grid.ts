@@ -10,9 +10,20 @@ export interface GridRow {
   y1: string
   ux1: string
   uy1: string
+  /** σP in the grid's pressure unit (optional) */
+  up?: string
 }
 
-export const emptyRow = (n: number): GridRow => ({ sample: `P${n}`, t: '', p: '', x1: '', y1: '', ux1: '', uy1: '' })
+export const emptyRow = (n: number): GridRow => ({
+  sample: `P${n}`,
+  t: '',
+  p: '',
+  x1: '',
+  y1: '',
+  ux1: '',
+  uy1: '',
+  up: '',
+})
 
 /** A problem in the grid: 1-based row and the column as headed on screen. */
 export interface GridProblem {
@@ -40,10 +51,18 @@ export function gridToPoints(
   const points: DirectPoint[] = []
   const problems: GridProblem[] = []
   rows.forEach((r, i) => {
-    if (Object.entries(r).every(([k, v]) => k === 'sample' || v.trim() === '')) return
+    if (Object.entries(r).every(([k, v]) => k === 'sample' || (v ?? '').trim() === '')) return
     const row = i + 1
     const bad = (column: string, message: string) => problems.push({ row, column, message })
-    const cells = { t: num(r.t), p: num(r.p), x1: num(r.x1), y1: num(r.y1), ux1: num(r.ux1), uy1: num(r.uy1) }
+    const cells = {
+      t: num(r.t),
+      p: num(r.p),
+      x1: num(r.x1),
+      y1: num(r.y1),
+      ux1: num(r.ux1),
+      uy1: num(r.uy1),
+      up: num(r.up ?? ''),
+    }
     for (const [k, v] of Object.entries(cells))
       if (Number.isNaN(v)) bad(k, `"${r[k as keyof GridRow]}" is not a number.`)
     if (cells.t === null) bad('t', 'The temperature is missing.')
@@ -59,6 +78,7 @@ export function gridToPoints(
       y1: o.withY ? cells.y1 : null,
       x1Uncertainty: cells.ux1 ?? o.defaultU,
       y1Uncertainty: o.withY ? (cells.uy1 ?? o.defaultU) : null,
+      pressureUncertaintyPa: cells.up === null ? null : cells.up * PA_PER[o.pUnit],
     }
     const parsed = directPointSchema.safeParse(candidate)
     if (!parsed.success) {
@@ -68,6 +88,7 @@ export function gridToPoints(
         pressurePa: 'p',
         x1Uncertainty: 'ux1',
         y1Uncertainty: 'uy1',
+        pressureUncertaintyPa: 'up',
       }
       for (const issue of parsed.error.issues) {
         const k = String(issue.path[0])
@@ -80,7 +101,7 @@ export function gridToPoints(
   return { points, problems }
 }
 
-/** Rows pasted from a spreadsheet (tab- or semicolon-separated): sample, t, p, x1, y1, u(x1), u(y1). */
+/** Rows pasted from a spreadsheet (tab- or semicolon-separated): sample, t, p, x1, y1, u(x1), u(y1), σP. */
 export function rowsFromPaste(text: string): GridRow[] {
   return text
     .split(/\r?\n/)
@@ -95,6 +116,7 @@ export function rowsFromPaste(text: string): GridRow[] {
         y1: c[4] ?? '',
         ux1: c[5] ?? '',
         uy1: c[6] ?? '',
+        up: c[7] ?? '',
       }
     })
 }

@@ -34,15 +34,21 @@ export function vaporPressureOf(d: DataSetDetail): [VaporPressureModel, VaporPre
 export interface FitCurve {
   fitId: string
   name: string
-  /** with the three-phase line and the two-liquid region when the model predicts a liquid split */
+  /**
+   * with the three-phase line and the two-liquid region when the model predicts a liquid split. For isothermal data
+   * the curve is P–x–y: `pressures` (Pa) holds the bubble pressures and `diagram.T` is empty.
+   */
   diagram: Extract<PhaseDiagram, { kind: 'isobaric' }>
+  pressures?: number[]
   azeotrope: Azeotrope | null
   /** every azeotrope at the data set's pressure, with its kind */
   azeotropes: Azeotrope[]
 }
 
 /** Residuals of one fit, tolerant of the field names thermo and the server may use: ΔT in K, Δy mole fraction. */
-export function residualsOf(f: Fit): { pointId: string; dT: number | null; dy: number | null; outlier: boolean }[] {
+export function residualsOf(
+  f: Fit,
+): { pointId: string; dT: number | null; dP: number | null; dy: number | null; outlier: boolean }[] {
   return (f.residuals ?? []).map((r, i) => {
     const o = r as Record<string, unknown>
     const num = (...keys: string[]) => {
@@ -52,6 +58,8 @@ export function residualsOf(f: Fit): { pointId: string; dT: number | null; dy: n
     return {
       pointId: String(o.pointId ?? o.id ?? f.pointIds[i] ?? ''),
       dT: num('dT', 'deltaT', 'temperature', 'T'),
+      /** Pa, measured − calculated (fits on pressures) */
+      dP: num('dP'),
       dy: num('dy', 'dy1', 'deltaY', 'y1', 'y'),
       outlier: o.flagged === true || o.outlier === true,
     }
@@ -101,6 +109,9 @@ export function staleForSigning(d: DataSetDetail): string[] {
   const rec = d.fits.find((f) => f.id === d.dataSet.recommendedFitId)
   if (rec?.stale) out.push(`the recommended fit (${fitLabel(rec, d.fits)}, ${computedOnText(rec)})`)
   for (const c of latestConsistency(d.consistency))
-    if (c.stale) out.push(`the ${c.test === 'point' ? 'point' : 'area'} test (${computedOnText(c)})`)
+    if (c.stale)
+      out.push(
+        `${c.test === 'quality-score' ? 'the data-quality score' : `the ${c.test === 'point' ? 'point' : 'area'} test`} (${computedOnText(c)})`,
+      )
   return out
 }

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest'
 import type { Fit, Point } from '../../api/datasets'
 import { residualOption } from '../plots/residual-option'
 import { residualSeries } from './residual-series'
+import { PA_PER } from '../../stores/preferences'
 
 // Antoine constants of acetone and methanol: Smith, Van Ness & Abbott, Introduction to Chemical Engineering
 // Thermodynamics, Table B.2 (ln P/kPa, t/°C). Margules A12 = A21 = 0.58 is an invented round value: the check
@@ -64,5 +65,34 @@ describe('residual plot option: measured − calculated', () => {
     expect(drawn).toBeGreaterThan(0.7)
     expect(drawn).toBeLessThan(1.05)
     expect(drawn).toBeCloseTo(r.residuals[raised].dT!, 12)
+  })
+})
+
+describe('pressure residuals (fits on pressures, isothermal data)', () => {
+  const points = [0.2, 0.5, 0.8].map(
+    (x1, i) => ({ id: `q${i}`, x1, excluded: false, temperatureK: 323.15, pressurePa: 8e4 }) as unknown as Point,
+  )
+  const fit = {
+    id: 'f2',
+    model: 'wilson',
+    // residuals as the engine stores them: dP in Pa (measured − calculated), no dT
+    residuals: [
+      { pointId: 'q0', dP: 100, dy: 0.001 },
+      { pointId: 'q1', dP: -40, dy: null },
+      { pointId: 'q2', dP: 0, dy: -0.002 },
+    ],
+    pointIds: ['q0', 'q1', 'q2'],
+  } as unknown as Fit
+  const o = { fits: [fit], points, visible: ['f2'], nameOf: () => 'Wilson' }
+
+  it('draws ΔP in the chosen pressure unit with its sign, and no ΔT series at all', () => {
+    // the preferences store's own conversion: 1 kPa = 1000 Pa, 1 mmHg = 133.322387415 Pa (packages/thermo units.ts)
+    const kPa = residualSeries('dP', { ...o, scaleDP: (v) => v / PA_PER.kPa })
+    expect(kPa[0].points.map((p) => p.residual)).toEqual([0.1, -0.04, 0])
+    const mmHg = residualSeries('dP', { ...o, scaleDP: (v) => v / PA_PER.mmHg })
+    expect(mmHg[0].points[0].residual).toBeCloseTo(100 / 133.322387415, 9)
+    expect(residualSeries('dT', o)).toEqual([])
+    // a point without a vapour residual is left out of the Δy₁ series, not drawn at 0
+    expect(residualSeries('dy', o)[0].points.map((p) => p.id)).toEqual(['q0', 'q2'])
   })
 })

@@ -15,16 +15,20 @@ export interface ResidualSeriesInput {
   nameOf: (f: Fit) => string
   /** ΔT in the display unit's difference (× 1.8 in °F); identity for K and °C */
   scaleDT?: (v: number) => number
+  /** ΔP (Pa) in the display pressure unit */
+  scaleDP?: (v: number) => number
 }
 
-export function residualSeries(which: 'dT' | 'dy', o: ResidualSeriesInput): ResidualSeries[] {
+/** ΔT, ΔP (fits on pressures, isothermal data) or Δy₁ of each drawn fit; a fit without that residual is left out. */
+export function residualSeries(which: 'dT' | 'dP' | 'dy', o: ResidualSeriesInput): ResidualSeries[] {
   const x1Of = new Map(o.points.map((p) => [p.id, p.x1]))
   const excluded = new Set(o.points.filter((p) => p.excluded).map((p) => p.id))
-  const scale = (v: number | null) => (v === null || which === 'dy' || !o.scaleDT ? v : o.scaleDT(v))
+  const scaleT = (v: number | null) => (v === null || !o.scaleDT ? v : o.scaleDT(v))
+  const scaleP = (v: number | null) => (v === null || !o.scaleDP ? v : o.scaleDP(v))
   return o.fits
     .filter((f) => o.visible.includes(f.id))
     .map((f) => {
-      const r = residualsOf(f).map((x) => ({ ...x, dT: scale(x.dT) }))
+      const r = residualsOf(f).map((x) => ({ ...x, dT: scaleT(x.dT), dP: scaleP(x.dP) }))
       const included = r.filter((x) => !excluded.has(x.pointId))
       return {
         name: o.nameOf(f),
@@ -39,4 +43,5 @@ export function residualSeries(which: 'dT' | 'dy', o: ResidualSeriesInput): Resi
           })),
       }
     })
+    .filter((s) => s.points.length > 0)
 }

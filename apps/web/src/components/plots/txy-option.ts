@@ -58,8 +58,21 @@ export interface TxyOptionInput {
   /** the model's three-phase line and two-liquid region, for a partially miscible system */
   threePhase?: ThreePhaseMark | null
   twoLiquids?: TwoLiquidRegion | null
+  /**
+   * A P–x–y plot instead: the points' and curves' `T` carry the pressure already in the shown unit (pass unit 'K' so
+   * it is not converted), named by `symbol` and `unit` in tooltips and by `axis` on the axis.
+   */
+  ordinate?: PxyOrdinate | null
   /** literature data sets of the system, each with its own legend entry */
   literature?: LiteratureSeries[] | null
+}
+
+/** How a P–x–y plot names its ordinate. */
+export interface PxyOrdinate {
+  axis: string
+  symbol: string
+  unit: string
+  digits: number
 }
 
 export const LIQUID_NAME = 'Liquid x₁'
@@ -84,9 +97,12 @@ function pointItem(p: TxyPoint, phase: 'liquid' | 'vapour', unit: TemperatureUni
 function pointTooltip(d: { point: TxyPoint; phase: string }, o: TxyOptionInput): string {
   const p = d.point
   const tU = tUnit(o.unit)
+  const ord = o.ordinate
   const lines = [
     `<b>${p.note ? escapeHtml(p.note) : 'Point'}</b> · ${escapeHtml(d.phase)}`,
-    `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(showDT(p.uT, o.unit), 2)}` : ''}`,
+    ord
+      ? `${ord.symbol} = ${fmt(p.T, ord.digits)} ${escapeHtml(ord.unit)}`
+      : `T = ${fmt(showT(p.T, o.unit), 2)} ${tU}${p.uT ? ` ± ${fmt(showDT(p.uT, o.unit), 2)}` : ''}`,
     `x₁ = ${fmt(p.x1)}${p.ux1 ? ` ± ${fmt(p.ux1)}` : ''}`,
     `y₁ = ${fmt(p.y1)}${p.uy1 ? ` ± ${fmt(p.uy1)}` : ''}`,
   ]
@@ -232,7 +248,7 @@ export function txyOption(o: TxyOptionInput): Record<string, unknown> {
         p.data?.point ? pointTooltip(p.data as { point: TxyPoint; phase: string }, o) : escapeHtml(p.seriesName),
     },
     xAxis: fractionAxis(`x₁, y₁ (mole fraction ${o.names[0]})`),
-    yAxis: valueAxis(tLabel(o.unit), { scale: true, nameGap: 44 }),
+    yAxis: valueAxis(o.ordinate ? o.ordinate.axis : tLabel(o.unit), { scale: true, nameGap: 44 }),
     series: [
       ...extraSeries(o),
       ...curveSeries(o),

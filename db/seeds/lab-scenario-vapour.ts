@@ -1,0 +1,99 @@
+/**
+ * Two demo data sets beyond isobaric data under an ideal vapour. INVENTED measurements, generated from published
+ * parameters plus simulated noise (seeded, so every seed run gives the same numbers):
+ * - an isothermal P–x–y series of acetone (1)/methanol (2) at 55 °C from a static cell: bubble pressures and vapour
+ *   compositions of the Wilson model of SVNA 7th ed. Table 12.5 (demo-systems.ts) with 0.15 kPa pressure noise and
+ *   0.003 vapour-composition noise, entered as points (origin: measured here by another method), σP per point;
+ * - methanol (1)/water (2) at 1 atm under a virial vapour: T and y from the γ–φ bubble point of the NRTL model of
+ *   SVNA 7th ed. Table 12.5 with Tsonopoulos second virial coefficients (critical data in demo-properties.ts:
+ *   the `chemicals` 1.5.2 library's values and the published polar classes), plus simulated GC noise.
+ * Both stay drafts with their fits, consistency tests and data-quality score run.
+ */
+import { bubblePressure } from '@ebullio/thermo'
+import { seededRandom } from '@ebullio/thermo/random'
+import * as datasets from '../../apps/api/src/services/datasets.service.js'
+import { addTypedPoints } from '../../apps/api/src/services/direct-points.service.js'
+import * as fits from '../../apps/api/src/services/fits.service.js'
+import { engineVapor, getSystem } from '../../apps/api/src/services/systems.service.js'
+import { commitRun } from '../../apps/api/src/services/uploads.service.js'
+import { DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
+import { runCsv } from './gc-generator.js'
+import type { SeedContext } from './lab.js'
+
+export const ISOTHERMAL_TITLE = 'Static cell at 55 °C: acetone + methanol'
+export const VIRIAL_TITLE = 'Recovery column feed with a virial vapour: methanol + water at 1 atm'
+
+const exists = async (ctx: SeedContext, title: string) =>
+  !!(await ctx.db.selectFrom('data_set').select('id').where('title', '=', title).executeTakeFirst())
+
+async function isothermalSeries(ctx: SeedContext): Promise<void> {
+  if (await exists(ctx, ISOTHERMAL_TITLE)) return
+  const system = DEMO_SYSTEMS.find((s) => s.key === 'acetone-methanol')!
+  const model = {
+    vaporPressure: [demoVaporPressure('acetone'), demoVaporPressure('methanol')] as const,
+    activity: system.activity,
+  }
+  const T = 328.15
+  const rand = seededRandom(131)
+  const points = [0.04, 0.1, 0.18, 0.27, 0.36, 0.45, 0.55, 0.64, 0.73, 0.82, 0.9, 0.96].map((x1, i) => {
+    const b = bubblePressure({ vaporPressure: [...model.vaporPressure], activity: model.activity }, { T, x1 })
+    return {
+      sampleLabel: `SC-${String(i + 1).padStart(2, '0')}`,
+      temperatureK: Math.round((T + 0.02 * rand.gaussian()) * 100) / 100,
+      pressurePa: Math.round(b.P + 150 * rand.gaussian()),
+      x1,
+      y1: Math.round(Math.min(1, Math.max(0, b.y1 + 0.003 * rand.gaussian())) * 1e4) / 1e4,
+      x1Uncertainty: 0.002,
+      y1Uncertainty: 0.003,
+      pressureUncertaintyPa: 150,
+    }
+  })
+  const d = await datasets.createDataSet(ctx.db, ctx.users.analyst.id, {
+    systemId: ctx.systemIds['acetone-methanol'],
+    title: ISOTHERMAL_TITLE,
+    layout: 'pxy',
+    nominalPressurePa: null,
+    nominalTemperatureK: T,
+    apparatusNotes:
+      'Static equilibrium cell no. 1 in the thermostat bath; pressure by quartz gauge, vapour sampled to GC.',
+    projectRef: 'KES-2026-03',
+    origin: 'other-method',
+    originMethod: 'Static cell: liquid made up by weighing, vapour composition by GC of a small withdrawn sample',
+  })
+  await addTypedPoints(ctx.db, ctx.users.analyst, d.id, { rowVersion: d.rowVersion, points })
+  await fits.runFits(ctx.db, ctx.users.analyst, d.id, { models: ['wilson', 'nrtl'] })
+  await fits.runConsistency(ctx.db, ctx.users.analyst, d.id, 'wilson')
+}
+
+async function virialSeries(ctx: SeedContext): Promise<void> {
+  if (await exists(ctx, VIRIAL_TITLE)) return
+  const demo = DEMO_SYSTEMS.find((s) => s.key === 'methanol-water')!
+  const choice = { kind: 'virial' as const, correlation: 'tsonopoulos' as const, poynting: false }
+  const vapor = engineVapor(await getSystem(ctx.db, ctx.systemIds['methanol-water']), choice)
+  const d = await datasets.createDataSet(ctx.db, ctx.users.analyst.id, {
+    systemId: ctx.systemIds['methanol-water'],
+    title: VIRIAL_TITLE,
+    nominalPressurePa: 101325,
+    vaporModel: choice,
+    apparatusNotes: 'Still no. 1; water by TCD. Alcohol and water vapours are not ideal: reduced with a virial vapour.',
+    projectRef: 'KES-2026-03',
+  })
+  const { csv } = runCsv(demo, { seed: 141, pressurePa: 101325, samples: 12, prefix: 'MV', vapor })
+  const r = await commitRun(
+    ctx.db,
+    ctx.config,
+    ctx.users.analyst,
+    d.id,
+    { originalName: 'mv-run.csv', contentType: 'text/csv', content: Buffer.from(csv) },
+    { acceptWarnings: true, rowVersion: d.rowVersion },
+  )
+  void r
+  await fits.runFits(ctx.db, ctx.users.analyst, d.id, { models: ['nrtl', 'wilson'] })
+  await fits.runConsistency(ctx.db, ctx.users.analyst, d.id, 'nrtl')
+}
+
+/** The isothermal and the virial-vapour demo series (idempotent: each is skipped when its title exists). */
+export async function vapourAndIsothermalDataSets(ctx: SeedContext): Promise<void> {
+  await isothermalSeries(ctx)
+  await virialSeries(ctx)
+}

@@ -1,0 +1,79 @@
+import { expect as baseExpect, test, type Page } from '@playwright/test'
+import { execFileSync } from 'node:child_process'
+import { DEMO, shot, signIn } from './support/helpers'
+
+// An isothermal P–x–y series typed into the grid (INVENTED points of the demo's acetone/methanol Wilson model at
+// 50 °C, one raised by 0.5 kPa), fitted on pressures, with ΔP residuals and the data-quality score on screen; the
+// numbers on screen are compared with the engine's own for the same inputs (tests/e2e/support/engine-isothermal.ts).
+const run = Date.now().toString(36)
+const expect = baseExpect.configure({ timeout: 30_000 })
+test.describe.configure({ timeout: 240_000 })
+
+interface Engine {
+  typed: { t: string; p: string; x1: string; y1: string; up: string }[]
+  rmsP: number
+  dP: number[]
+  quality: number
+}
+const engine = (): Engine =>
+  JSON.parse(execFileSync('node_modules/.bin/tsx', ['tests/e2e/support/engine-isothermal.ts'], { encoding: 'utf8' }))
+
+async function pick(page: Page, label: string, text: string, option: string | RegExp) {
+  await page.getByLabel(label, { exact: true }).fill(text)
+  await page.getByRole('option', { name: option }).first().click()
+}
+
+test('an analyst records an isothermal P–x–y series, fits it on pressures and reads ΔP and the quality score', async ({
+  page,
+}) => {
+  const e = engine()
+  await signIn(page, DEMO.analyst)
+  await page.goto('/datasets/new')
+  await page.getByLabel('Title').fill(`Static cell at 50 °C ${run}`)
+  await pick(page, 'Binary system', 'acetone', /acetone \/ methanol/)
+  await page.getByTestId('origin-other-method').click()
+  await page.getByTestId('origin-method').fill('Static cell; liquid made up by weighing, vapour by GC')
+  await page.getByTestId('layout').click()
+  await page.getByRole('option', { name: 'P–x–y at constant temperature' }).click()
+  // isothermal: the temperature of the series replaces the nominal pressure
+  await expect(page.locator('#nd-p')).toHaveCount(0)
+  await page.locator('#nd-t').fill('50')
+  await page.locator('#nd-t').press('Tab')
+  await expect(page.getByTestId('vapour-ideal').locator('input')).toBeChecked()
+  await shot(page, 'iso-01-new-isothermal')
+  await page.getByTestId('create-dataset').click()
+
+  const grid = page.getByTestId('points-grid')
+  await expect(grid).toBeVisible()
+  await page
+    .getByRole('button', { name: /more rows|Add rows/i })
+    .first()
+    .click()
+  for (const [i, r] of e.typed.entries()) {
+    for (const k of ['t', 'p', 'x1', 'y1', 'up'] as const) await page.getByTestId(`cell-${i + 1}-${k}`).fill(r[k])
+  }
+  await shot(page, 'iso-02-grid')
+  await page.getByTestId('points-save').click()
+  await expect(page.getByText('Points stored')).toBeVisible()
+  await expect(page.getByTestId('record-kind')).toContainText('P–x–y at constant temperature')
+
+  await page.getByTestId('run-fits').click()
+  const wilson = page.getByTestId('fit-wilson')
+  await expect(wilson).toBeVisible()
+  await expect(wilson.getByTestId('fit-method')).toContainText('on ΔP and Δy₁ · ideal vapour')
+  // RMS ΔP on screen (kPa, 3 decimals) is the engine's for the same points
+  await expect(wilson.getByTestId('fit-rms-p')).toHaveText((e.rmsP / 1000).toFixed(3))
+  await expect(page.getByTestId('txy-plot')).toContainText('P–x–y diagram')
+  await expect(page.getByTestId('residual-p')).toBeVisible()
+  await expect(page.getByTestId('residual-t')).toHaveCount(0)
+  // the raised point's residual is about +0.5 kPa (the fit leans a little towards it)
+  expect(e.dP[4]).toBeGreaterThan(300)
+
+  await page.getByTestId('run-consistency').click()
+  const q = page.getByTestId('quality-score')
+  await expect(q).toBeVisible()
+  await expect(q.getByTestId('quality-figure')).toHaveText(e.quality.toFixed(2))
+  await expect(q.getByTestId('quality-test-area')).toBeVisible()
+  await q.scrollIntoViewIfNeeded()
+  await shot(page, 'iso-03-fitted-quality')
+})
