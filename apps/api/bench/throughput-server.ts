@@ -34,18 +34,26 @@ async function main(): Promise<void> {
   })
   const cookie = signIn.headers.get('set-cookie')!.split(';')[0]
   process.send!({ base, cookie, dataSetId: ds.id })
-  // BENCH_PROFILE: the parent asks for a CPU profile of each loaded endpoint only (not of the start-up).
+  // Around each loaded endpoint the parent asks for this process's CPU time (user + system) and, with
+  // BENCH_PROFILE, a CPU profile of the load only (not of the start-up).
   const inspector = new Session()
   inspector.connect()
-  process.on('message', async (m: { profile?: 'start' | string }) => {
-    if (m.profile === 'start') {
-      await inspector.post('Profiler.enable')
-      await inspector.post('Profiler.start')
-    } else if (m.profile) {
-      const { profile } = await inspector.post('Profiler.stop')
-      writeFileSync(m.profile, JSON.stringify(profile))
+  let cpu = process.cpuUsage()
+  process.on('message', async (m: { start?: boolean; profile?: boolean; stop?: string | null }) => {
+    if (m.start) {
+      if (m.profile) {
+        await inspector.post('Profiler.enable')
+        await inspector.post('Profiler.start')
+      }
+      cpu = process.cpuUsage()
+      return process.send!({ started: true })
     }
-    process.send!({ profiled: true })
+    const used = process.cpuUsage(cpu)
+    if (m.stop) {
+      const { profile } = await inspector.post('Profiler.stop')
+      writeFileSync(m.stop, JSON.stringify(profile))
+    }
+    process.send!({ cpuMs: (used.user + used.system) / 1000 })
   })
   process.on('disconnect', () => {
     server.close()

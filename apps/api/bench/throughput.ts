@@ -38,13 +38,13 @@ async function main(): Promise<void> {
     const rounds = Number(process.env.BENCH_ROUNDS ?? 1)
     // autocannon reports p90 and p97.5 but not p95: the latencies are also collected here, from every response.
     const profileDir = process.env.BENCH_PROFILE
-    const ask = (profile: string) =>
-      new Promise<void>((resolve) => {
-        child.once('message', () => resolve())
-        child.send({ profile })
+    const ask = <T>(message: object) =>
+      new Promise<T>((resolve) => {
+        child.once('message', (m) => resolve(m as T))
+        child.send(message)
       })
     const run = async (p: string, name: string) => {
-      if (profileDir) await ask('start')
+      await ask({ start: true, profile: !!profileDir })
       const times: number[] = []
       const r = await new Promise<autocannon.Result>((resolve, reject) => {
         const instance = autocannon(
@@ -53,10 +53,20 @@ async function main(): Promise<void> {
         )
         instance.on('response', (_client, _status, _bytes, ms) => void times.push(ms))
       })
-      if (profileDir) await ask(path.join(profileDir, `${name.replace(/\W+/g, '-')}.cpuprofile`))
+      const { cpuMs } = await ask<{ cpuMs: number }>({
+        stop: profileDir ? path.join(profileDir, `${name.replace(/\W+/g, '-')}.cpuprofile`) : null,
+      })
       times.sort((a, b) => a - b)
       const at = (q: number) => Math.round(times[Math.min(times.length - 1, Math.floor(q * times.length))] * 10) / 10
-      return { rps: Math.round(r.requests.average), p50: at(0.5), p95: at(0.95), p99: at(0.99), non2xx: r.non2xx }
+      return {
+        rps: Math.round(r.requests.average),
+        p50: at(0.5),
+        p95: at(0.95),
+        p99: at(0.99),
+        non2xx: r.non2xx,
+        // CPU time of the API process per answered request: what the endpoint costs, whatever else the machine runs
+        cpuUs: Math.round((1000 * cpuMs) / Math.max(1, r.requests.total)),
+      }
     }
     const targets = [
       ['GET /api/health', '/api/health'],
@@ -70,7 +80,15 @@ async function main(): Promise<void> {
     }
     for (let round = 1; round <= rounds; round++) {
       const before = loadavg()[0]
-      const rows: { name: string; rps: number; p50: number; p95: number; p99: number; non2xx: number }[] = []
+      const rows: {
+        name: string
+        rps: number
+        p50: number
+        p95: number
+        p99: number
+        non2xx: number
+        cpuUs: number
+      }[] = []
       for (const [name, p] of targets) {
         rows.push({ name, ...(await run(p, name)) })
       }
@@ -78,11 +96,11 @@ async function main(): Promise<void> {
       console.log(
         `\nround ${round}: ${seconds} s per endpoint, load average ${before.toFixed(2)} before, ${loadavg()[0].toFixed(2)} after`,
       )
-      console.log('| endpoint | req/s | % of health | p50 ms | p95 ms | p99 ms | non-2xx |')
-      console.log('|---|---|---|---|---|---|---|')
+      console.log('| endpoint | req/s | % of health | p50 ms | p95 ms | p99 ms | non-2xx | API CPU µs/request |')
+      console.log('|---|---|---|---|---|---|---|---|')
       for (const r of rows)
         console.log(
-          `| ${r.name} | ${r.rps} | ${Math.round((100 * r.rps) / health)} % | ${r.p50} | ${r.p95} | ${r.p99} | ${r.non2xx} |`,
+          `| ${r.name} | ${r.rps} | ${Math.round((100 * r.rps) / health)} % | ${r.p50} | ${r.p95} | ${r.p99} | ${r.non2xx} | ${r.cpuUs} |`,
         )
     }
   } finally {

@@ -211,6 +211,15 @@ describe('errors and request hygiene', () => {
     const { default: request } = await import('supertest')
     const none = await request(t.app).post('/api/auth/sign-in').send({ email: 'ana@lab.test', password: PASSWORD })
     expect(none.status).toBe(403)
+    // the sender controls Host: an Origin that matches the request's own Host but not PUBLIC_URL is still foreign
+    const sameAsHost = await a
+      .post('/api/auth/sign-out')
+      .set('Host', 'evil.example')
+      .set('X-Forwarded-Host', 'evil.example')
+      .set('Origin', 'http://evil.example')
+    expect(sameAsHost.status).toBe(403)
+    expect(sameAsHost.body.error.code).toBe('cross_site_request')
+    expect((await a.get('/api/auth/me')).status).toBe(200) // still signed in: the sign-out was refused
   })
 
   it('answers malformed and oversize JSON with the error shape', async () => {

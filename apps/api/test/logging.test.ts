@@ -30,4 +30,21 @@ describe('request logging', () => {
     expect(log).not.toContain(PASSWORD)
     expect(log).not.toContain('ebullio_session=')
   })
+
+  it('puts the request id in every log line of a request and in its X-Request-Id header', async () => {
+    lines.length = 0
+    const a = agent(t.app)
+    const r = await a.get('/api/auth/me').set('X-Request-Id', 'proxy-id-42').expect(401)
+    expect(r.headers['x-request-id']).toBe('proxy-id-42')
+    expect(r.body.requestId).toBe('proxy-id-42')
+    const fresh = await a.get('/api/auth/me').expect(401)
+    expect(fresh.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/)
+    const entries = lines.map((l) => JSON.parse(l) as { req?: { id?: string; path?: string } })
+    const mine = entries.filter((e) => e.req?.path === '/api/auth/me')
+    expect(mine.map((e) => e.req?.id)).toEqual(['proxy-id-42', fresh.headers['x-request-id']])
+    // a header that is not a sane id is replaced, not logged
+    const odd = await a.get('/api/auth/me').set('X-Request-Id', 'bad id {"x":1}').expect(401)
+    expect(odd.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/)
+    expect(lines.join('')).not.toContain('bad id')
+  })
 })
