@@ -7,7 +7,7 @@ import { DEMO, shot, signIn } from './support/helpers'
 // numbers on screen are compared with the engine's own for the same inputs (tests/e2e/support/engine-isothermal.ts).
 const run = Date.now().toString(36)
 const expect = baseExpect.configure({ timeout: 30_000 })
-test.describe.configure({ timeout: 240_000 })
+test.describe.configure({ timeout: 180_000 })
 
 interface Engine {
   typed: { t: string; p: string; x1: string; y1: string; up: string }[]
@@ -45,10 +45,7 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
 
   const grid = page.getByTestId('points-grid')
   await expect(grid).toBeVisible()
-  await page
-    .getByRole('button', { name: /more rows|Add rows/i })
-    .first()
-    .click()
+  await page.getByRole('button', { name: 'Add 5 rows' }).click()
   for (const [i, r] of e.typed.entries()) {
     for (const k of ['t', 'p', 'x1', 'y1', 'up'] as const) await page.getByTestId(`cell-${i + 1}-${k}`).fill(r[k])
   }
@@ -69,11 +66,13 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
   // the raised point's residual is about +0.5 kPa (the fit leans a little towards it)
   expect(e.dP[4]).toBeGreaterThan(300)
 
+  await shot(page, 'iso-03-pxy-and-dp')
+  await page.getByRole('tab', { name: 'Consistency' }).click()
   await page.getByTestId('run-consistency').click()
   const q = page.getByTestId('quality-score')
   await expect(q).toBeVisible()
   await expect(q.getByTestId('quality-figure')).toHaveText(e.quality.toFixed(2))
   await expect(q.getByTestId('quality-test-area')).toBeVisible()
   await q.scrollIntoViewIfNeeded()
-  await shot(page, 'iso-03-fitted-quality')
+  await shot(page, 'iso-04-quality-score')
 })

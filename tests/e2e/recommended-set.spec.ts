@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs'
 import { expect, test, type Page } from '@playwright/test'
 import { DEMO, DEMO_PASSWORD, signIn, signOut } from './support/helpers'
 import { snap } from './support/lab'
@@ -53,6 +54,7 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
   // The lead chemist who ran it may not sign it (four-eyes): the server says why.
   await panel.getByTestId('joint-sign').click()
   await page.locator('#js-password').fill(DEMO_PASSWORD)
+  await expect(page.locator('#js-password')).toHaveValue(DEMO_PASSWORD)
   await page.getByTestId('joint-sign-reason').fill('mine')
   await page.getByTestId('joint-sign-confirm').click()
   await expect(page.getByTestId('joint-sign-error')).toHaveText(
@@ -69,6 +71,7 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
   await expect(page.getByTestId('joint-sign-covers')).toContainText(VACUUM)
   await snap(page, 'joint-02-sign-dialog')
   await page.locator('#js-password').fill(DEMO_PASSWORD)
+  await expect(page.locator('#js-password')).toHaveValue(DEMO_PASSWORD)
   await page
     .getByTestId('joint-sign-reason')
     .fill('Wilson reproduces both pressures; recommended for the column study.')
@@ -79,4 +82,52 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
   await expect(page.getByTestId('lab-system-recommended')).toHaveText('Wilson (joint, 2 data sets)')
   await snap(page, 'joint-03-signed')
   await signOut(page)
+
+  // The engineer: the system's recommended set is the model, named as on the lab screens.
+  await signIn(page, DEMO.engineer)
+  await page.goto('/systems')
+  await page.getByTestId('catalogue-table').getByRole('link', { name: SYSTEM }).click()
+  await expect(page.getByTestId('system-title')).toHaveText(SYSTEM)
+  const model = 'Wilson (joint, 2 data sets; recommended for the system)'
+  await expect(page.getByTestId('fit-select')).toContainText(model)
+  const pressure = page.locator('#sys-pressure')
+  await pressure.fill('70')
+  await pressure.press('Tab')
+  await expect(page.getByTestId('recommended-basis')).toContainText('signed by Dr. Amara Nwosu')
+  await expect(page.getByTestId('recommended-range-warning')).toHaveCount(0)
+  await snap(page, 'joint-04-engineer-70kpa')
+
+  // Inside the range the curve on screen (computed in the browser) equals the server engine's bubble points with
+  // the joint parameters at the same pressure.
+  const [dl] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-curve-csv').click()])
+  const csv = readFileSync((await dl.path())!, 'utf8')
+  expect(csv).toContain(`model ${model}`)
+  const rows = csv
+    .trim()
+    .split('\n')
+    .filter((l) => !l.startsWith('#'))
+    .slice(1)
+    .map((l) => l.split(',').map(Number))
+  const systemId = page.url().match(/\/systems\/([\w-]+)/)![1]
+  const server = await (
+    await page.request.get(`/api/systems/${systemId}/recommended-parameters/curve?pressure=70&unit=kPa&points=101`)
+  ).json()
+  expect(server.pressureInRange).toBe(true)
+  let compared = 0
+  for (const [x1, y1, tK] of rows) {
+    const i = server.diagram.x1.findIndex((x: number) => Math.abs(x - x1) < 1e-6)
+    if (i < 0) continue
+    expect(Math.abs(server.diagram.T[i] - tK)).toBeLessThan(0.002)
+    expect(Math.abs(server.diagram.y1[i] - y1)).toBeLessThan(2e-6)
+    compared++
+  }
+  expect(compared).toBeGreaterThan(50)
+
+  // Above the fitted pressures the page says clearly that the curves are an extrapolation.
+  await pressure.fill('200')
+  await pressure.press('Tab')
+  await expect(page.getByTestId('recommended-range-warning')).toContainText(
+    "200 kPa is above the pressures the system's recommended parameter set was fitted on",
+  )
+  await snap(page, 'joint-05-engineer-outside')
 })

@@ -73,6 +73,15 @@ describe('pure-component samples in a run file', () => {
     const acetone = fromPoints.find((c: { T: number }) => Math.abs(c.T - 329.2) < 0.1)
     expect(acetone.dT).toBeLessThan(0)
     expect(acetone.dT).toBeGreaterThan(-0.5)
+    // the pure points take part in a fit like any other (no division by zero at x1 = 0 or 1)
+    const fit = await lab.analyst.post(`/api/data-sets/${ds.id}/fits`).send({ models: ['wilson'] })
+    expect(fit.status, JSON.stringify(fit.body)).toBe(201)
+    ds.rowVersion = fit.body.rowVersion
+    expect(fit.body.fits[0].statistics.converged).toBe(true)
+    expect(Number.isFinite(fit.body.fits[0].statistics.rmsT)).toBe(true)
+    const consistency = await lab.analyst.post(`/api/data-sets/${ds.id}/consistency`).send({ model: 'wilson' })
+    expect([200, 201], JSON.stringify(consistency.body)).toContain(consistency.status)
+    ds.rowVersion = (await lab.analyst.get(`/api/data-sets/${ds.id}`)).body.rowVersion
   })
 
   it('names the line when a sample mixes pure and two-peak rows, or a row has no peak at all', async () => {

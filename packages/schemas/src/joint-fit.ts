@@ -159,3 +159,16 @@ export function jointFitLabel(
   const label = `${FIT_MODEL_LABELS[f.model] ?? f.model} (${words.join(', ')})`
   return note ? labelWithNote(label, note) : label
 }
+
+/**
+ * Slack on the fitted pressure range: the points of one "1 atm" data set scatter with the barometer, so a pressure
+ * within 0.5 % of the range's ends counts as inside (common practice, no source).
+ */
+export const PRESSURE_RANGE_SLACK = 0.005
+
+/** Whether P (Pa) lies inside the pressure range a parameter set was fitted on, else below or above it. */
+export function pressureAgainstRange(P: number, range: { Pmin: number; Pmax: number }): 'inside' | 'below' | 'above' {
+  if (P < range.Pmin * (1 - PRESSURE_RANGE_SLACK)) return 'below'
+  if (P > range.Pmax * (1 + PRESSURE_RANGE_SLACK)) return 'above'
+  return 'inside'
+}

@@ -4,7 +4,7 @@
  * the joint fit and the data sets it rests on (format `ebullio-parameter-set/1`, RFC 8785; the recipe is in
  * docs/workflow.md). Signing supersedes the system's previous recommended set, which stays in the record.
  */
-import { jointFitLabel, type RecommendedParameterSetDto } from '@ebullio/schemas'
+import { jointFitLabel, pressureAgainstRange, type RecommendedParameterSetDto } from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
 import type { Db } from '../db/index.js'
@@ -242,14 +242,6 @@ export async function recommendedSet(db: Db, systemId: string): Promise<Recommen
   const r = await recommendedSetOf(db, systemId)
   if (!r) throw notFound('This system has no signed recommended parameter set.')
   return r
-}
-
-/** Whether a pressure (Pa) lies inside the range a set was fitted on; 'below'/'above' when it does not. */
-export function pressureAgainstRange(P: number, range: { Pmin: number; Pmax: number }): 'inside' | 'below' | 'above' {
-  // 0.5 % slack: points of one "1 atm" data set scatter with the barometer (common practice, no source).
-  if (P < range.Pmin * 0.995) return 'below'
-  if (P > range.Pmax * 1.005) return 'above'
-  return 'inside'
 }
 
 const kPa = (P: number) => `${(P / 1000).toPrecision(4)} kPa`

@@ -40,6 +40,11 @@ function member(d: datasets.DataSetRecord | undefined, systemId: string, id: str
   if (d.systemId !== systemId) throw conflict(`"${d.title}" v${d.version} belongs to another system.`)
   if (d.state === 'superseded')
     throw conflict(`"${d.title}" v${d.version} is superseded by a newer version; choose the current version.`)
+  // The joint fit solves bubble temperatures at each point's P (ideal vapour): isobaric T–x–y data only, for now.
+  if (d.nominalPressurePa === null || (d.layout ?? 'txy') !== 'txy')
+    throw conflict(
+      `"${d.title}" v${d.version} is not an isobaric T–x–y data set; a joint fit takes isobaric T–x–y data sets only.`,
+    )
   return d
 }
 

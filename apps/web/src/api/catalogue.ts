@@ -9,6 +9,7 @@ import type {
   ComponentDto,
   FitDto,
   PointDto,
+  RecommendedParameterSetDto,
   SystemDto,
 } from '@ebullio/schemas'
 import { api, query } from './client'
@@ -48,6 +49,12 @@ export interface ParametersExport {
     runAt: string
   }[]
   approval: { signedBy: string; signedAt: string; reason: string; digest: string } | null
+  /** The system's signed recommended parameter set (a joint fit over several data sets), null when it has none. */
+  systemRecommendedSet?:
+    | (Omit<RecommendedParameterSetDto, 'parameters'> & {
+        parameters: { name: string; value: number; standardError: number | null; unit: string }[]
+      })
+    | null
 }
 
 /** A measured equilibrium state of an approved data set, the fields the design screens read: T in K, P in Pa, standard uncertainties (k = 1). */

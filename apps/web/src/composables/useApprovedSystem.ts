@@ -1,12 +1,12 @@
 import { computed, ref, shallowRef, watch } from 'vue'
 import { useRoute } from 'vue-router'
 import type { CatalogueEntry, MeasuredData, ParametersExport } from '../api/catalogue'
-import { errorText } from '../components/design/design-model'
+import { errorText, SYSTEM_SET_PREFIX } from '../components/design/design-model'
 import { useCatalogueStore } from '../stores/catalogue'
 
 /**
  * The approved system the address names and the basis chosen on it: version (`?v=` or the newest), fit (the
- * recommended one first) and pressure (the measured one first), with the parameters and measured points of that version.
+ * system's recommended parameter set, else the version's recommended fit) and pressure (the measured one first), with the parameters and measured points of that version.
  */
 export function useApprovedSystem() {
   const route = useRoute()
@@ -46,7 +46,11 @@ export function useApprovedSystem() {
     params.value = null
     try {
       params.value = await store.parametersOf(id)
-      fitId.value = params.value.recommendedFitId ?? params.value.fits[0]?.id ?? null
+      // The system's signed recommended parameter set comes first: it holds over the pressures it was fitted on.
+      const systemSet = params.value.systemRecommendedSet
+      fitId.value = systemSet
+        ? SYSTEM_SET_PREFIX + systemSet.id
+        : (params.value.recommendedFitId ?? params.value.fits[0]?.id ?? null)
       pressurePa.value = params.value.dataSet.nominalPressurePa
     } catch (e) {
       loadError.value = errorText(e)

@@ -7,8 +7,10 @@ import {
   measuredForPlot,
   otherFitCurves,
   systemFromParameters,
+  SYSTEM_SET_PREFIX,
   type DiagramsAt,
 } from '../components/design/design-model'
+import { pressureAgainstRange } from '@ebullio/schemas'
 import { proseP } from '../components/design/pressure-text'
 import { usePreferencesStore } from '../stores/preferences'
 
@@ -57,8 +59,11 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
     }
   })
   /** The activity model is extrapolated in temperature when the pressure is more than 25 % from the measured one. */
+  // With the system's recommended set the fitted pressure range says it instead (its own warning on the page).
   const farFrom = computed(() =>
-    version.value?.nominalPressurePa && Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
+    !fitId.value?.startsWith(SYSTEM_SET_PREFIX) &&
+    version.value?.nominalPressurePa &&
+    Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
       ? proseP(prefs, version.value.nominalPressurePa)
       : null,
   )
@@ -89,7 +94,17 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   const others = computed(() =>
     params.value && diagrams.value.d ? otherFitCurves(params.value, fitId.value, pressurePa.value) : [],
   )
+  /**
+   * The system's recommended parameter set when it is the chosen model: its fitted range, and where the chosen
+   * pressure lies against it (outside, the curves are an extrapolation).
+   */
+  const recommendedRange = computed(() => {
+    const r = params.value?.systemRecommendedSet
+    if (!r || !fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
+    return { ...r.range, where: pressureAgainstRange(pressurePa.value, r.range), set: r }
+  })
   return {
+    recommendedRange,
     built,
     lighterName,
     diagrams,

@@ -2,6 +2,9 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
   activityCoefficients,
+  equilibriumCurve,
+  findAzeotropes,
+  minimumReflux,
   areaTest,
   bubblePressure,
   bubbleTemperature,
@@ -315,5 +318,32 @@ describe('the main solvers use γ–φ for a virial vapour (properties)', () => 
       ),
       { numRuns: 15, seed: 3 },
     )
+  })
+})
+
+describe('design helpers follow the system’s virial vapour', () => {
+  const P = 101_325
+  const curve = equilibriumCurve({ system: truth, P })
+  const idealCurve = equilibriumCurve({ system: { vaporPressure, activity: truth.activity }, P })
+  it('the tabulated curve is the γ–φ bubble curve (interpolation error below 1e-5), not the ideal one', () => {
+    for (const x of [0.05, 0.2, 0.33, 0.6, 0.9]) {
+      const b = bubbleTemperature(truth, { P, x1: x })
+      expect(Math.abs(curve.y(x) - b.y1)).toBeLessThan(1e-5)
+      expect(Math.abs((curve.T(x) as number) - b.T)).toBeLessThan(1e-3)
+    }
+    expect(curve.description).toContain('virial vapour')
+    expect(Math.abs(curve.y(0.05) - idealCurve.y(0.05))).toBeGreaterThan(1e-5)
+  })
+  it('the azeotrope of the curve is the γ–φ azeotrope, and minimum reflux uses that curve', () => {
+    const [az] = findAzeotropes(truth, { P })
+    expect(az.kind).toBe('minimum-boiling')
+    expect(curve.azeotropes[0]).toBeCloseTo(az.x1, 4)
+    const b = bubbleTemperature(truth, { P, x1: az.x1 })
+    expect(b.y1).toBeCloseTo(az.x1, 8)
+    const spec = { xF: 0.02, q: 1, xD: 0.4 }
+    const withVirial = minimumReflux({ system: truth, P }, spec)
+    const withIdeal = minimumReflux({ system: { vaporPressure, activity: truth.activity }, P }, spec)
+    expect(withVirial.Rmin).toBeGreaterThan(0.1)
+    expect(withVirial.Rmin).not.toBeCloseTo(withIdeal.Rmin, 4)
   })
 })

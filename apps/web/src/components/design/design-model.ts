@@ -2,6 +2,7 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
+import { labelWithNote } from '@ebullio/schemas'
 import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubbleTemperature,
@@ -22,13 +23,45 @@ import type { MeasuredData, ParametersExport } from '../../api/catalogue'
 import { isRangeWarning } from './design-limits'
 import type { TxyPoint } from '../plots'
 
-/** thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default). */
+/** The Model choice that stands for the system's signed recommended parameter set (not a fit of the version). */
+export const SYSTEM_SET_PREFIX = 'system:'
+
+type ExportedFit = ParametersExport['fits'][number]
+
+/**
+ * The system's recommended parameter set in the shape of a fit of the version, named as the lab screens name it
+ * with the note "recommended for the system"; null when the system has none.
+ */
+export function systemSetAsFit(p: ParametersExport): ExportedFit | null {
+  const r = p.systemRecommendedSet
+  if (!r) return null
+  return {
+    id: SYSTEM_SET_PREFIX + r.id,
+    model: r.model,
+    label: labelWithNote(r.label, 'recommended for the system'),
+    recommended: false,
+    activity: r.activity,
+    parameters: r.parameters.map((q) => ({ ...q, standardError: q.standardError ?? 0 })),
+    statistics: {},
+    points: r.dataSets.reduce((n, d) => n + d.pointCount, 0),
+    runAt: String(r.approvedAt ?? ''),
+  }
+}
+
+/**
+ * thermo's BinarySystem from a parameters export and one of its fits (the recommended one by default), or the
+ * system's recommended parameter set when `fitId` names it ({@link SYSTEM_SET_PREFIX}).
+ */
 export function systemFromParameters(
   p: ParametersExport,
   fitId?: string | null,
-): { system: BinarySystem; fit: ParametersExport['fits'][number] } {
+): { system: BinarySystem; fit: ExportedFit } {
+  const systemSet = fitId?.startsWith(SYSTEM_SET_PREFIX) ? systemSetAsFit(p) : null
   const fit =
-    p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ?? p.fits.find((f) => f.recommended) ?? p.fits[0]
+    systemSet ??
+    p.fits.find((f) => f.id === (fitId ?? p.recommendedFitId)) ??
+    p.fits.find((f) => f.recommended) ??
+    p.fits[0]
   if (!fit) throw new Error('This approved data set has no fitted model to compute with.')
   // the export labels each set with its component; pick by that label (older exports: by position) and hand thermo the model alone
   const byIndex = (i: 1 | 2) => p.vaporPressure.find((v) => v.component?.index === i) ?? p.vaporPressure[i - 1]
