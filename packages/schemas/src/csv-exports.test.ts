@@ -65,6 +65,7 @@ describe('points layout', () => {
         'u_x1_layer_i',
         'x1_layer_ii',
         'u_x1_layer_ii',
+        'u_p_kpa',
       ],
       [
         '1',
@@ -78,6 +79,7 @@ describe('points layout', () => {
         'true',
         "'@leak",
         '1',
+        '',
         '',
         '',
         '',
@@ -108,6 +110,27 @@ describe('points layout', () => {
         },
       ]),
     ) as string[][]
-    expect(rows[1].slice(10)).toEqual(['2', '0.48123', '3.000e-3', '0.98120', '1.000e-3'])
+    expect(rows[1].slice(10)).toEqual(['2', '0.48123', '3.000e-3', '0.98120', '1.000e-3', ''])
+  })
+
+  it('writes σP in kPa when a point gives it (isothermal data)', () => {
+    const rows = parse(
+      pointsCsv([
+        {
+          seq: 1,
+          sampleLabel: 'P-01',
+          temperatureK: 328.15,
+          pressurePa: 68000,
+          x1: 0.3,
+          x1Uncertainty: 0.001,
+          y1: 0.5,
+          y1Uncertainty: 0.002,
+          excluded: false,
+          exclusionReason: null,
+          pressureUncertaintyPa: 150,
+        },
+      ]),
+    ) as string[][]
+    expect(rows[1][15]).toBe('1.500e-1')
   })
 })
