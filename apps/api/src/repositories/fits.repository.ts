@@ -58,6 +58,20 @@ export async function listFits(db: Db, dataSetId: string): Promise<FitRecord[]> 
   ).map(toFit)
 }
 
+/** The fits of several data sets in one query, in the same order as {@link listFits} within each data set. */
+export async function listFitsOf(db: Db, dataSetIds: readonly string[]): Promise<FitRecord[]> {
+  if (dataSetIds.length === 0) return []
+  return (
+    await db
+      .selectFrom('fit')
+      .selectAll()
+      .where('data_set_id', 'in', [...dataSetIds])
+      .orderBy('run_at')
+      .orderBy('id')
+      .execute()
+  ).map(toFit)
+}
+
 export async function findFit(db: Db, id: string): Promise<FitRecord | undefined> {
   const r = await db.selectFrom('fit').selectAll().where('id', '=', id).executeTakeFirst()
   return r && toFit(r)

@@ -16,7 +16,7 @@ import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { findCurveSource } from '../repositories/curves.repository.js'
-import { findFit, listFits } from '../repositories/fits.repository.js'
+import { findFit, listFitsOf } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, PUBLISHED_STATES, readsEverything, thermo, visibleOrNotFound } from './lab-access.js'
 import { binarySystem, engineInputs, type EngineInputs } from './systems.service.js'
@@ -45,9 +45,14 @@ export async function catalogue(
   const ids = systems.items.map((s) => s.id)
   const rows = await repo.listSignedVersionsOfSystems(db, ids)
   // the recommended fit's name as the lab screens give it: it depends on the version's other fits
+  const named = rows.filter((r) => r.state === 'approved' && r.fit_id)
+  const allFits = await listFitsOf(
+    db,
+    named.map((v) => v.id),
+  )
   const labels = new Map<string, string>()
-  for (const v of rows.filter((r) => r.state === 'approved' && r.fit_id)) {
-    const fits = await listFits(db, v.id)
+  for (const v of named) {
+    const fits = allFits.filter((g) => g.dataSetId === v.id)
     const f = fits.find((g) => g.id === v.fit_id)
     if (f) labels.set(v.id, fitLabel(f, fits))
   }

@@ -158,7 +158,7 @@ export async function parametersJson(db: Db, user: SessionUser, id: string) {
         id: f.id,
         model: f.model,
         // the name the lab screens give this fit (packages/schemas/src/fit-label.ts)
-        label: fitLabel({ ...f, pointIds: f.pointIds }, fits),
+        label: fitLabel(f, fits),
         recommended: f.id === d.recommendedFitId,
         equation: MODEL_EQUATIONS[f.model] ?? f.model,
         objective: f.options.objective ?? null,
