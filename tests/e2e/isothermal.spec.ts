@@ -74,5 +74,8 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
   await expect(q.getByTestId('quality-figure')).toHaveText(e.quality.toFixed(2))
   await expect(q.getByTestId('quality-test-area')).toBeVisible()
   await q.scrollIntoViewIfNeeded()
+  // the point test on isothermal data fits P–x, and says so
+  await expect(page.getByText('Model fitted to P–x')).toBeVisible()
+  await expect(page.getByText('Model fitted to T–x')).toHaveCount(0)
   await shot(page, 'iso-04-quality-score')
 })
