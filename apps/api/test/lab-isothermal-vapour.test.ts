@@ -11,7 +11,7 @@ import { DEMO_COMPONENTS, demoVaporPressure } from '../../../db/seeds/demo-syste
 import { DEMO_PROPERTIES } from '../../../db/seeds/demo-properties.js'
 import { signedContentV2 } from '../src/services/digest.js'
 import { ACETONE_METHANOL, buildLab, csv, labCounts, type Lab } from './lab-fixture.js'
-import { createTestContext, resetDatabase, type TestContext } from './helpers.js'
+import { createTestContext, PASSWORD, resetDatabase, type TestContext } from './helpers.js'
 
 let t: TestContext
 let lab: Lab
@@ -121,6 +121,41 @@ describe('isothermal data sets', () => {
     expect(res.get('I-05')).toBeGreaterThan(60)
     expect(res.get('I-05')).toBeLessThan(105)
     for (const [label, dP] of res) if (label !== 'I-05') expect(Math.abs(dP!)).toBeLessThan(40)
+  })
+
+  it('a point 60 Pa off among noisy y₁ is flagged by the ±2σ rule on ΔP alone, and the signature keeps it', async () => {
+    // Invented scatter: ±8–12 Pa on P and ±0.004–0.007 on y₁ (so the fit's own studentized test, which weighs ΔP and
+    // Δy₁ together, does not flag the point); I-05 is raised by 60 Pa more. The rule judges each residual against its
+    // own RMS over the included points (|ΔP| above 2 × RMS; common practice, no source), so I-05 is flagged.
+    const dP = [10, -12, 8, -10, 60, 12, -8, 10, -12, 8, -10]
+    const dy = [0.006, -0.007, 0.005, -0.006, 0.004, 0.007, -0.005, 0.006, -0.007, 0.005, -0.006]
+    const pts = modelPoints().map((p, i) => ({
+      ...p,
+      pressurePa: p.pressurePa + dP[i],
+      y1: Math.round((p.y1 + dy[i]) * 1e4) / 1e4,
+    }))
+    const d = await isothermalSet('Scattered, one pressure off')
+    await addPoints(d, pts)
+    const fits = await lab.analyst.post(`/api/data-sets/${d.id}/fits`).send({ models: ['wilson'] })
+    expect(fits.status, JSON.stringify(fits.body)).toBe(201)
+    const fit = fits.body.fits[0]
+    const detail = (await lab.analyst.get(`/api/data-sets/${d.id}`).expect(200)).body
+    const off = detail.points.find((p: { sampleLabel: string }) => p.sampleLabel === 'I-05').id
+    const res = fit.residuals as { pointId: string; dP: number; dy: number; flagged?: boolean }[]
+    expect(res.some((r) => r.flagged)).toBe(false) // the fit's own test is quiet
+    const rms = (v: number[]) => Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.length)
+    const rmsP = rms(res.map((r) => r.dP))
+    expect(res.filter((r) => Math.abs(r.dP) > 2 * rmsP).map((r) => r.pointId)).toEqual([off])
+    expect(res.filter((r) => Math.abs(r.dy) > 2 * rms(res.map((x) => x.dy)))).toEqual([])
+    await lab.analyst.post(`/api/data-sets/${d.id}/submit`).send({ rowVersion: fits.body.rowVersion }).expect(200)
+    const rec = await lab.lead.post(`/api/data-sets/${d.id}/recommended-fit`).send({ fitId: fit.id }).expect(200)
+    await lab.lead
+      .post(`/api/data-sets/${d.id}/approve`)
+      .send({ password: PASSWORD, reason: 'Wilson on P–x–y.', rowVersion: rec.body.rowVersion })
+      .expect(200)
+    const signed = (await lab.reviewer.get(`/api/data-sets/${d.id}`).expect(200)).body.approvals[0].outliers
+    expect(signed.sampleLabels).toEqual(['I-05'])
+    expect(signed.rule).toBe('flagged by the fit, or |ΔT|, |ΔP| or |Δy₁| above 2 × RMS of the included points')
   })
 
   it('reads a point sheet with σP in the row’s pressure unit and keeps it in Pa', async () => {

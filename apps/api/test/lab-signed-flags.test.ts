@@ -53,7 +53,7 @@ describe('signed outlier flags', () => {
       model: 'wilson',
       pointIds: expected,
       sampleLabels: labels,
-      rule: 'flagged by the fit, or |ΔT| or |Δy₁| above 2 × RMS of the included points',
+      rule: 'flagged by the fit, or |ΔT|, |ΔP| or |Δy₁| above 2 × RMS of the included points',
     })
   })
 })

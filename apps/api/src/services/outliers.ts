@@ -1,6 +1,6 @@
 /**
  * Outlier flags of a fit, judged by thermo's rule (`outlierPointIds`: flagged by the fit's studentized
- * residual, or |ΔT| or |Δy1| above twice the RMS of the included points). Flags are judged only against a
+ * residual, or |ΔT|, |ΔP| or |Δy1| above twice the RMS of the included points). Flags are judged only against a
  * fit computed on the current point set, with the current exclusions: a fit computed on other points gives
  * no flags. A signature stores them, because they depend on which fit is recommended.
  */
@@ -13,10 +13,11 @@ import { currentPointSet } from './point-set.js'
 
 export { OUTLIER_RULE }
 
-/** One residual as stored with a fit (ΔT in K, Δy1 mole fraction, measured − calculated). */
+/** One residual as stored with a fit (ΔT in K, ΔP in Pa, Δy1 mole fraction, measured − calculated). */
 export interface StoredResidual {
   pointId?: string
   dT?: number | null
+  dP?: number | null
   dy?: number | null
   flagged?: boolean
 }
@@ -31,6 +32,7 @@ export function fitOutliers(fit: FitRecord, points: PointRecord[], currentDigest
       .map((r) => ({
         pointId: r.pointId!,
         dT: r.dT,
+        dP: r.dP,
         dy: r.dy,
         flagged: r.flagged,
         excluded: excluded.has(r.pointId!),

@@ -32,6 +32,16 @@ describe('outlierPointIds', () => {
     const r = ['a', 'b', 'c', 'd'].map((pointId, i) => ({ pointId, dT: 0.1, dy: i % 2 ? 0.001 : -0.001 }))
     expect(outlierPointIds([...r, { pointId: 'e', dT: 0.1, dy: -0.01 }])).toEqual(['e'])
   })
+  it('judges |ΔP| (fits on measured pressures) against its own RMS, in Pa, independently of Δy₁', () => {
+    // ΔP RMS over a..e = sqrt(4·50² + 400²)/√5 = 186.8 Pa; 2σ = 373.6 Pa, so e (400 Pa) is beyond; Δy₁ is quiet.
+    const r = ['a', 'b', 'c', 'd'].map((pointId, i) => ({ pointId, dP: i % 2 ? 50 : -50, dy: 0.001 }))
+    const all = [...r, { pointId: 'e', dP: 400, dy: 0.001 }]
+    expect(rootMeanSquare(all.map((x) => x.dP))).toBeCloseTo(Math.sqrt((4 * 2500 + 160000) / 5), 9)
+    expect(outlierPointIds(all)).toEqual(['e'])
+    // with four points at ±50 Pa, e is beyond 2σ exactly when e² > 4·(4·50² + e²)/5, i.e. |e| > 200 Pa
+    expect(outlierPointIds([...r, { pointId: 'e', dP: 190, dy: 0.001 }])).toEqual([]) // 2σ = 192.1 Pa
+    expect(outlierPointIds([...r, { pointId: 'e', dP: -210, dy: 0.001 }])).toEqual(['e']) // 2σ = 208.1 Pa
+  })
   it('is strict at exactly 2σ, and a non-finite residual neither counts in the RMS nor hides the others', () => {
     // ΔT = 2, 0, 0, 0: RMS = 1 exactly, so 2 is not above 2σ
     const edge = [2, 0, 0, 0].map((dT, i) => ({ pointId: `p${i}`, dT }))
