@@ -119,7 +119,7 @@ export interface FitBinaryResult {
     fitAlpha: boolean
     sigmaT: number
     sigmaY: number
-    /** Mean σP of the fitted points, Pa (isothermal fits). */
+    /** Mean σP of the fitted points, Pa (isothermal fits; with points of both kinds, over the isothermal ones). */
     sigmaP?: number
     /** The vapour model of the fit (absent: ideal). */
     vapor?: VaporModel
@@ -180,6 +180,7 @@ function evenSubset(d: FitData, count: number): FitData {
     y1: take(d.y1),
     hasY: Uint8Array.from(pick, (i) => d.hasY[i]),
     ...(d.het ? { het: Uint8Array.from(pick, (i) => d.het![i]) } : {}),
+    ...(d.iso ? { iso: Uint8Array.from(pick, (i) => d.iso![i]) } : {}),
     ...(d.lnPhiExp ? { lnPhiExp: [take(d.lnPhiExp[0]), take(d.lnPhiExp[1])] as [Float64Array, Float64Array] } : {}),
   }
 }
@@ -266,7 +267,7 @@ function checkObjectiveData(options: FitBinaryOptions, data: FitData, index: num
       )
     }
   }
-  if (data.het && (data.gv || data.isothermal)) {
+  if (data.het && (data.gv || data.isothermal || data.iso)) {
     throw new ThermoError(
       'invalid-input',
       'Points marked as two liquid layers can be fitted only as isobaric data with an ideal vapour; unmark them or fit without a virial vapour.',
@@ -444,6 +445,9 @@ function fitSettings(
     sigmaT: meanSigma(data.wT),
     sigmaY: meanSigma(data.wY),
     ...(data.isothermal ? { sigmaP: meanSigma(data.wP) } : {}),
+    ...(data.iso
+      ? { sigmaP: 1 / (data.wP.reduce((s, v, i) => s + v * data.iso![i], 0) / data.iso.reduce((s, v) => s + v, 0)) }
+      : {}),
     ...(options.vapor ? { vapor: options.vapor } : {}),
     residualVariance: stats.s2,
   }
@@ -490,7 +494,7 @@ function finishFit(
     objectiveKind,
     vaporModel: data.gv ? 'virial-tsonopoulos' : 'ideal',
     method: data.hasY.includes(1) ? 'with-y' : 'barker',
-    ...summarise(residuals, index, data.isothermal),
+    ...summarise(residuals, index, data.isothermal || data.iso !== undefined),
     aic: stats.aic,
     residuals,
     warnings: [...regressionWarnings(layout, fit, stats, nrtl, residuals), ...model.warnings],

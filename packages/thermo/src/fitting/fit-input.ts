@@ -27,6 +27,12 @@ export interface BinaryPoint {
    * three-phase vapour; the fit compares the point with the model's three-phase point at P.
    */
   heterogeneous?: boolean
+  /**
+   * This point was measured at fixed T (true: its pressure is calculated at its T) or at fixed P (false: its
+   * temperature at its P), whatever the fit's objective says; absent: as the objective says. A joint fit of
+   * isobaric and isothermal data sets marks each point so.
+   */
+  isothermal?: boolean
 }
 
 /** Default uncertainty of a measured boiling temperature, K (common practice, no source). */
@@ -72,6 +78,8 @@ function checkPoint(pt: BinaryPoint, i: number): void {
     throw fail(`sigmaY must be a positive number; got ${pt.sigmaY}.`)
   if (pt.sigmaP !== undefined && !(Number.isFinite(pt.sigmaP) && pt.sigmaP > 0))
     throw fail(`sigmaP must be a positive number of pascals; got ${pt.sigmaP}.`)
+  if (pt.isothermal !== undefined && typeof pt.isothermal !== 'boolean')
+    throw fail(`isothermal must be true or false; got ${String(pt.isothermal)}.`)
 }
 
 /** Check the model choice and its extra inputs. */
@@ -206,6 +214,10 @@ export function buildFitData(
     wY[k] = 1 / (p.sigmaY ?? DEFAULT_SIGMA_Y)
     wP[k] = 1 / (p.sigmaP ?? DEFAULT_SIGMA_P)
   }
+  const isothermal = options.isothermal === true
+  const isoOf = (k: number) => points[index[k]].isothermal ?? isothermal
+  // Points of both kinds in one fit (a joint fit over isobaric and isothermal data sets): a per-point flag.
+  const mixed = index.some((_, k) => isoOf(k) !== isoOf(0))
   const data: FitData = {
     n,
     nRows: rows,
@@ -221,7 +233,8 @@ export function buildFitData(
     vp1,
     vp2,
     gv,
-    isothermal: options.isothermal === true,
+    isothermal: mixed ? false : n > 0 && isoOf(0),
+    ...(mixed ? { iso: Uint8Array.from(index, (_, k) => (isoOf(k) ? 1 : 0)) } : {}),
     ...(index.some((i) => points[i].heterogeneous)
       ? { het: Uint8Array.from(index, (i) => (points[i].heterogeneous ? 1 : 0)) }
       : {}),

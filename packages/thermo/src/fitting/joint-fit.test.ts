@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { bubbleTemperature } from '../equilibrium/index.js'
+import { bubblePressure, bubbleTemperature } from '../equilibrium/index.js'
 import type { BinarySystem, VaporPressureModel } from '../types.js'
+import { tsonopoulosPolarParameters } from '../virial/index.js'
+import type { VaporModel } from '../virial/virial-types.js'
 import { fitJoint } from './joint-fit.js'
 
 // 1-propanol (1) / water (2): Antoine constants from Smith, Van Ness & Abbott, 7th ed., Table B.2; NRTL b12, b21 and
@@ -72,5 +74,101 @@ describe('joint fit of several data sets with temperature-dependent NRTL energie
     expect(() => fitJoint({ dataSets: [], vaporPressure, model: 'nrtl' })).toThrow(
       'A joint fit needs at least one data set.',
     )
+  })
+})
+
+describe('joint fit over isothermal and isobaric data sets (bubble-pressure and bubble-temperature rows together)', () => {
+  // 1-propanol (1) / water (2) as above; critical data and Tsonopoulos polar classes as frozen from chemicals 1.5.2
+  // in src/virial/virial.test.ts. Data without noise from the truth (round trip): the optimum is the truth itself.
+  const propanol = { Tc: 536.8, Pc: 5169000.0, omega: 0.624, Vc: 218.0, dipole: 1.55 }
+  const water = { Tc: 647.096, Pc: 22064000.0, omega: 0.3443, Vc: 55.9480372671 }
+  const virial: VaporModel = {
+    kind: 'virial',
+    correlation: 'tsonopoulos',
+    components: [
+      { ...propanol, tsonopoulos: tsonopoulosPolarParameters({ kind: 'alcohol', ...propanol }) },
+      { ...water, tsonopoulos: tsonopoulosPolarParameters({ kind: 'water', ...water }) },
+    ],
+  }
+  const want = [500.4 * 4.184, 1636.57 * 4.184, -8, 12]
+  const exact = (vapor?: VaporModel) => {
+    const sys: BinarySystem = { ...truth, ...(vapor ? { vapor } : {}) }
+    const xs = Array.from({ length: 15 }, (_, i) => 0.03 + (0.94 * i) / 14)
+    const iso = (T: number) =>
+      xs.map((x1) => {
+        const b = bubblePressure(sys, { T, x1 })
+        return { T, P: b.P, x1, y1: b.y1 }
+      })
+    const bar = (P: number) =>
+      xs.map((x1) => {
+        const b = bubbleTemperature(sys, { P, x1 })
+        return { T: b.T, P, x1, y1: b.y1 }
+      })
+    return [
+      { id: 'iso-333K', kind: 'isothermal' as const, points: iso(333.15), vapor },
+      { id: 'iso-363K', kind: 'isothermal' as const, points: iso(363.15), vapor },
+      { id: 'bar-250kPa', points: bar(250000), vapor },
+    ]
+  }
+
+  it.each([
+    ['ideal', undefined],
+    ['Tsonopoulos virial', virial],
+  ] as const)(
+    '%s vapour: recovers b12, b21, b12T, b21T from exact data (two isothermal sets, one isobaric)',
+    (_, v) => {
+      const fit = fitJoint({ dataSets: exact(v), vaporPressure, model: 'nrtl', alpha })
+      expect(fit.vaporModel).toBe(v ? 'virial-tsonopoulos' : 'ideal')
+      expect(fit.objectiveKind).toBe('bubble-point')
+      fit.parameters.forEach((p, j) => expect(Math.abs(p.value - want[j])).toBeLessThan(j < 2 ? 1e-3 : 1e-5))
+      expect(fit.objective).toBeLessThan(1e-12)
+      const [a, b, c] = fit.dataSets
+      expect([a.kind, b.kind, c.kind]).toEqual(['isothermal', 'isothermal', 'isobaric'])
+      // Isothermal members report dP (Pa) and no dT; the isobaric member dT and no dP.
+      expect(a.rmsP).toBeLessThan(1e-4)
+      expect(Number.isNaN(a.rmsT)).toBe(true)
+      expect(c.rmsP).toBeUndefined()
+      expect(c.rmsT).toBeLessThan(1e-7)
+      expect(fit.range.Tmin).toBeCloseTo(333.15, 10)
+      expect(fit.range.Pmax).toBe(250000)
+      // The pooled point residuals: dP on the isothermal rows, dT on the isobaric ones.
+      expect(fit.residuals[0].dT).toBeNull()
+      expect(typeof fit.residuals[0].dP).toBe('number')
+      expect(fit.residuals[30].dP).toBeUndefined()
+      expect(typeof fit.residuals[30].dT).toBe('number')
+    },
+  )
+
+  it('isothermal members alone: the bubble-pressure objective', () => {
+    const fit = fitJoint({ dataSets: exact().slice(0, 2), vaporPressure, model: 'nrtl', alpha })
+    expect(fit.objectiveKind).toBe('bubble-pressure')
+    fit.parameters.forEach((p, j) => expect(Math.abs(p.value - want[j])).toBeLessThan(j < 2 ? 1e-3 : 1e-5))
+  })
+
+  it('an isothermal set read 200 Pa high shows a dP bias of about +200 Pa (measured − calculated)', () => {
+    const sets = exact()
+    const high = { ...sets[1], id: 'iso-363K-high', points: sets[1].points.map((p) => ({ ...p, P: p.P + 200 })) }
+    const fit = fitJoint({ dataSets: [...sets, high], vaporPressure, model: 'nrtl', alpha })
+    const d = fit.dataSets.find((s) => s.id === 'iso-363K-high')!
+    const b = fit.dataSets.find((s) => s.id === 'iso-363K')!
+    expect(d.biasP! - b.biasP!).toBeGreaterThan(190)
+    expect(d.biasP! - b.biasP!).toBeLessThan(201)
+  })
+
+  it('refuses members with different vapour models, naming both data sets', () => {
+    const sets = exact()
+    sets[2] = { ...sets[2], vapor: virial }
+    expect(() => fitJoint({ dataSets: sets, vaporPressure, model: 'nrtl', alpha })).toThrow(
+      'Data sets "iso-333K" (ideal vapour) and "bar-250kPa" (tsonopoulos virial vapour) have different vapour models; one parameter set holds under one vapour model only. Give the data sets the same vapour model, then fit them jointly.',
+    )
+    const other: VaporModel = { ...virial, k12: 0.05 }
+    const mixed = exact(virial)
+    mixed[1] = { ...mixed[1], vapor: other }
+    expect(() => fitJoint({ dataSets: mixed, vaporPressure, model: 'nrtl', alpha })).toThrow(
+      'Data sets "iso-333K" (tsonopoulos virial vapour) and "iso-363K" (a tsonopoulos virial vapour with other constants)',
+    )
+    expect(() =>
+      fitJoint({ dataSets: [{ ...sets[0], kind: 'adiabatic' as never }], vaporPressure, model: 'nrtl', alpha }),
+    ).toThrow('Data set "iso-333K": kind must be isobaric or isothermal; got "adiabatic".')
   })
 })

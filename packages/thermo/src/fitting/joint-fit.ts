@@ -4,9 +4,22 @@ import type { VaporModel } from '../virial/virial-types.js'
 import { fitBinary, type FitBinaryResult } from './fit-binary.js'
 import type { BinaryPoint } from './fit-input.js'
 
+/** One data set of a joint fit: its points, whether it was measured at fixed P or fixed T, and its vapour model. */
+export interface JointFitMember {
+  id: string
+  points: BinaryPoint[]
+  /**
+   * 'isobaric' (default): each point's bubble temperature at its P is compared (dT); 'isothermal': each point's bubble
+   * pressure at its T (dP, Pa; weights 1/σP as in fitBinary's bubble-pressure objective).
+   */
+  kind?: 'isobaric' | 'isothermal'
+  /** The data set's vapour model (absent: the joint fit's `vapor`, else ideal). Every member must have the same. */
+  vapor?: VaporModel
+}
+
 /** Options of {@link fitJoint}: several data sets of one system, fitted with one parameter set. */
 export interface JointFitOptions {
-  dataSets: { id: string; points: BinaryPoint[] }[]
+  dataSets: JointFitMember[]
   vaporPressure: [VaporPressureModel, VaporPressureModel]
   model: 'nrtl' | 'wilson'
   /** Liquid molar volumes, cm³/mol (Wilson only). */
@@ -16,19 +29,26 @@ export interface JointFitOptions {
   alpha?: number
   /** Fit b12T, b21T (or a12T, a21T) too; default true. */
   temperatureDependent?: boolean
-  /** The vapour model (absent: ideal), as in fitBinary. */
+  /** The vapour model of members that do not give their own (absent: ideal), as in fitBinary. */
   vapor?: VaporModel
 }
 
-/** One data set's statistics under the joint parameters (fitted points only; dT, dy = measured − calculated). */
+/**
+ * One data set's statistics under the joint parameters (fitted points only; dT, dP, dy = measured − calculated).
+ * An isobaric member has dT (K), an isothermal one dP (Pa): the other's statistics are NaN (absent for dP).
+ */
 export interface JointDataSetStatistics {
   id: string
+  kind: 'isobaric' | 'isothermal'
   n: number
   rmsT: number
   rmsY: number
   /** Mean dT and dy: a systematic offset of one data set against the others shows here (NaN without values). */
   biasT: number
   biasY: number
+  /** RMS and mean dP, Pa (isothermal members only). */
+  rmsP?: number
+  biasP?: number
   Tmin: number
   Tmax: number
   Pmin: number
@@ -42,11 +62,53 @@ export interface JointFitResult extends FitBinaryResult {
   range: { Tmin: number; Tmax: number; Pmin: number; Pmax: number }
 }
 
+/** JSON with sorted keys (arrays in order): two vapour models are the same model when these agree. */
+function sortedJson(v: unknown): string {
+  if (v === null || typeof v !== 'object') return JSON.stringify(v ?? null)
+  if (Array.isArray(v)) return `[${v.map(sortedJson).join(',')}]`
+  const o = v as Record<string, unknown>
+  const keys = Object.keys(o)
+    .filter((k) => o[k] !== undefined)
+    .sort()
+  return `{${keys.map((k) => `${JSON.stringify(k)}:${sortedJson(o[k])}`).join(',')}}`
+}
+
+const vaporName = (v: VaporModel | undefined) =>
+  v === undefined || v.kind === 'ideal' ? 'ideal vapour' : `${v.correlation ?? 'virial'} virial vapour`
+
+/**
+ * The one vapour model of all members. Members that disagree are refused, naming two of them: one activity
+ * parameter set reproduces the data only together with the vapour model it was fitted under (γ = y·Φ·P/(x·Psat)
+ * depends on Φ), so parameters fitted partly under one vapour and partly under another hold under neither.
+ */
+function commonVapor(sets: JointFitMember[], fallback: VaporModel | undefined): VaporModel | undefined {
+  const of = (s: JointFitMember) => {
+    const v = s.vapor ?? fallback
+    return v === undefined || v.kind === 'ideal' ? undefined : v
+  }
+  const first = of(sets[0])
+  const key = sortedJson(first ?? { kind: 'ideal' })
+  for (const s of sets.slice(1)) {
+    const v = of(s)
+    if (sortedJson(v ?? { kind: 'ideal' }) === key) continue
+    const same = vaporName(first) === vaporName(v)
+    throw new ThermoError(
+      'invalid-input',
+      `Data sets "${sets[0].id}" (${vaporName(first)}) and "${s.id}" (${same ? 'a ' + vaporName(v) + ' with other constants' : vaporName(v)}) have different vapour models; one parameter set holds under one vapour model only. Give the data sets the same vapour model, then fit them jointly.`,
+    )
+  }
+  return first
+}
+
 /**
  * One parameter set for several data sets of one system (different pressures or temperatures): the points of every
- * data set are fitted together at their own P, with temperature-dependent energies b(T) = b + bT·(T − 298.15 K) by
- * default, so the parameters hold over the whole range. Weights, objective and statistics as in fitBinary.
- * Residuals are measured − calculated. The per-data-set statistics show whether one data set disagrees with the rest.
+ * data set are fitted together, with temperature-dependent energies b(T) = b + bT·(T − 298.15 K) by default, so the
+ * parameters hold over the whole range. An isobaric member's points are compared by their bubble temperatures at
+ * their own P (ΔT/σT), an isothermal member's by their bubble pressures at their own T (ΔP/σP), both with Δy/σy:
+ * the objective Σ[(ΔT/σT)² or (ΔP/σP)² + (Δy/σy)²] over all points, weights and statistics as in fitBinary.
+ * Every member must have the same vapour model (ideal or one virial vapour; refused otherwise, see commonVapor);
+ * under a virial vapour every point is solved γ–φ. Residuals are measured − calculated. The per-data-set statistics
+ * show whether one data set disagrees with the rest.
  */
 export function fitJoint(options: JointFitOptions): JointFitResult {
   const sets = options.dataSets
@@ -57,12 +119,22 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
   for (const s of sets) {
     if (ids.has(s.id)) throw new ThermoError('invalid-input', `Data set "${s.id}" is listed twice.`)
     ids.add(s.id)
+    if (s.kind !== undefined && s.kind !== 'isobaric' && s.kind !== 'isothermal')
+      throw new ThermoError(
+        'invalid-input',
+        `Data set "${s.id}": kind must be isobaric or isothermal; got ${JSON.stringify(s.kind)}.`,
+      )
   }
+  const vapor = commonVapor(sets, options.vapor)
+  const isoSet = sets.map((s) => s.kind === 'isothermal')
+  const allIso = isoSet.every(Boolean)
+  const mixed = !allIso && isoSet.some(Boolean)
   const owner: number[] = []
   const points: BinaryPoint[] = []
   sets.forEach((s, k) => {
     for (const p of s.points) {
-      points.push(p)
+      // With members of both kinds each point says its kind; otherwise the objective does.
+      points.push(mixed ? { ...p, isothermal: isoSet[k] } : p)
       owner.push(k)
     }
   })
@@ -74,25 +146,31 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
     V2: options.V2,
     alpha: options.alpha,
     temperatureDependent: options.temperatureDependent ?? true,
-    vapor: options.vapor,
+    objective: allIso ? 'bubble-pressure' : 'bubble-point',
+    ...(vapor ? { vapor } : {}),
   })
   const fitted = (i: number) => !points[i].excluded && points[i].x1 > 0 && points[i].x1 < 1
-  const dataSets = sets.map((s, k) => {
+  const mean = (v: number[]) => (v.length ? v.reduce((a, b) => a + b, 0) / v.length : NaN)
+  const rms = (v: number[]) => Math.sqrt(mean(v.map((x) => x * x)))
+  const dataSets = sets.map((s, k): JointDataSetStatistics => {
     const rows = points.map((_, i) => i).filter((i) => owner[i] === k && fitted(i))
     // The fit's own residuals (measured − calculated at the optimum): no bubble point is solved again.
-    const dT = rows.map((i) => fit.residuals[i].dT).filter((v): v is number => v !== null)
-    const dy = rows.map((i) => fit.residuals[i].dy).filter((v): v is number => v !== null)
+    const values = (f: (i: number) => number | null | undefined) =>
+      rows.map(f).filter((v): v is number => typeof v === 'number')
+    const dT = values((i) => fit.residuals[i].dT)
+    const dy = values((i) => fit.residuals[i].dy)
     const Ts = rows.map((i) => points[i].T)
     const Ps = rows.map((i) => points[i].P)
-    const mean = (v: number[]) => (v.length ? v.reduce((a, b) => a + b, 0) / v.length : NaN)
-    const rms = (v: number[]) => Math.sqrt(mean(v.map((x) => x * x)))
+    const dP = isoSet[k] ? values((i) => fit.residuals[i].dP) : []
     return {
       id: s.id,
+      kind: isoSet[k] ? 'isothermal' : 'isobaric',
       n: rows.length,
       rmsT: rms(dT),
       rmsY: rms(dy),
       biasT: mean(dT),
       biasY: mean(dy),
+      ...(isoSet[k] ? { rmsP: rms(dP), biasP: mean(dP) } : {}),
       Tmin: Math.min(...Ts),
       Tmax: Math.max(...Ts),
       Pmin: Math.min(...Ps),

@@ -40,8 +40,13 @@ export interface FitData {
   vp2: LnPsat
   /** The compiled virial vapour, null for an ideal vapour. */
   gv: CompiledVirial | null
-  /** True: each point's pressure is calculated at its T (bubble-pressure objective); false: its T at its P. */
+  /**
+   * True: each point's pressure is calculated at its T (bubble-pressure objective); false: its T at its P (or, when
+   * `iso` is present, as `iso` says point by point).
+   */
   isothermal: boolean
+  /** Only when the points are of both kinds: 1 where the point is isothermal (P calculated), 0 isobaric (T). */
+  iso?: Uint8Array
   /** ln Φ1, ln Φ2 at each point's measured T, P, y (virial vapour only): the activity objective's γ = yΦP/(xPsat). */
   lnPhiExp?: [Float64Array, Float64Array]
   /** 1 for rows marked heterogeneous (two liquid layers seen): compared with the model's three-phase point. */
@@ -49,6 +54,11 @@ export interface FitData {
 }
 
 const g = new Float64Array(4)
+
+/** Whether data point i is isothermal (its pressure calculated at its T). */
+export function isIsothermal(d: FitData, i: number): boolean {
+  return d.iso ? d.iso[i] === 1 : d.isothermal
+}
 
 /**
  * Solve the bubble point of data point i with `model`, warm-started from Tguess[i]; on success
@@ -113,14 +123,22 @@ export function bubbleProblem(
   const withY = (i: number) => useY && d.hasY[i] === 1
   const memo: (ThreePhaseMemo | null)[] = new Array(d.n).fill(null)
   // Isobaric with an ideal vapour keeps the original (fastest) path; the other three cases go through model-point.ts.
-  const general = d.isothermal || d.gv !== null
-  const Pmeas = general ? d.lnP.map(Math.exp) : d.lnP
-  const wCalc = d.isothermal ? d.wP : d.wT
-  const measured = d.isothermal ? Pmeas : d.T
+  const general = d.isothermal || d.gv !== null || d.iso !== undefined
+  // Per point: what is calculated (P isothermal, T isobaric), its measured value and weight, and its context.
+  const wCalc = d.iso ? Float64Array.from(d.iso, (v, i) => (v ? d.wP[i] : d.wT[i])) : d.isothermal ? d.wP : d.wT
+  const measured = d.iso
+    ? d.T.map((T, i) => (d.iso![i] ? Math.exp(d.lnP[i]) : T))
+    : d.isothermal
+      ? d.lnP.map(Math.exp)
+      : d.T
+  const ctxP = { vp1: d.vp1, vp2: d.vp2, gv: d.gv, isothermal: true }
+  const ctxT = { vp1: d.vp1, vp2: d.vp2, gv: d.gv, isothermal: false }
+  const ctxOf = (i: number) => (isIsothermal(d, i) ? ctxP : ctxT)
   const solve = (model: ActivityModel, i: number): boolean => {
     if (!general) return bubbleAt(model, d, i, Tguess, memo)
-    if (!solvePoint(model, d, d.x1[i], d.T[i], d.lnP[i], Tguess[i])) return false
-    if (!d.isothermal) Tguess[i] = point[0]
+    const ctx = ctxOf(i)
+    if (!solvePoint(model, ctx, d.x1[i], d.T[i], d.lnP[i], Tguess[i])) return false
+    if (!ctx.isothermal) Tguess[i] = point[0]
     res[0] = point[0]
     res[1] = point[1]
     return true
@@ -151,7 +169,7 @@ export function bubbleProblem(
       for (let i = 0; i < d.n; i++) {
         if (!solve(model, i)) return false
         fill(r, i)
-        if (general) pointSensitivities(model, d, d.x1[i], pm, dT, dy)
+        if (general) pointSensitivities(model, ctxOf(i), d.x1[i], pm, dT, dy)
         else if (!memo[i]) bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)
         else if (!threePhaseSensitivities(pm, d, i, memo[i], res[0], res[1], dT, dy)) return false
         const k = rowOf[i]

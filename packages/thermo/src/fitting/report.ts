@@ -1,7 +1,7 @@
 import type { BinarySystem } from '../types.js'
 import { DEFAULT_SIGMA_P, DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y, type BinaryPoint } from './fit-input.js'
 import type { PointResidual } from './fit-binary.js'
-import { perturbedModels, type FitData } from './objectives.js'
+import { isIsothermal, perturbedModels, type FitData } from './objectives.js'
 import { point, pointSensitivities, solvePoint } from './model-point.js'
 import type { ParameterLayout } from './parameters.js'
 import type { FitStatistics } from './statistics.js'
@@ -32,15 +32,19 @@ export function pointResiduals(
   const pm = perturbedModels(layout, p)
   const sC = new Float64Array(m)
   const sY = new Float64Array(m)
-  const iso = data.isothermal
-  const wCalcOf = (k: number) => (iso ? data.wP[k] : data.wT[k])
+  const ctxP = { vp1: data.vp1, vp2: data.vp2, gv: data.gv, isothermal: true }
+  const ctxT = { vp1: data.vp1, vp2: data.vp2, gv: data.gv, isothermal: false }
   return points.map((pt, i) => {
     const k = row.get(i)
+    // Each point's kind: its own flag (a joint fit over isobaric and isothermal data sets), else the fit's.
+    const iso = k !== undefined ? isIsothermal(data, k) : (pt.isothermal ?? data.isothermal)
+    const ctx = iso ? ctxP : ctxT
+    const wCalcOf = (k: number) => (iso ? data.wP[k] : data.wT[k])
     const hasY = pt.y1 !== null
     // Fitted points of the bubble objectives already have their deviations in r (weighted), as
     // calculated − measured; reported residuals are measured − calculated, hence the minus signs.
     const known = bubbleObjective && k !== undefined
-    const ok = known || solvePoint(act, data, pt.x1, pt.T, Math.log(pt.P), pt.T)
+    const ok = known || solvePoint(act, ctx, pt.x1, pt.T, Math.log(pt.P), pt.T)
     const measured = iso ? pt.P : pt.T
     const dCalc = known ? -r[data.rowOf[k]] / wCalcOf(k) : ok ? measured - point[0] : NaN
     const dy = !hasY ? null : known ? -r[data.rowOf[k] + 1] / data.wY[k] : ok ? pt.y1! - point[1] : NaN
@@ -67,7 +71,7 @@ export function pointResiduals(
       out.studentized = Math.abs(a) >= Math.abs(b) ? a : b
       out.leverage = stats.leverage[2 * k] + stats.leverage[2 * k + 1]
     } else if (ok && bubbleObjective && pt.x1 > 0 && pt.x1 < 1 && stats.inverse) {
-      pointSensitivities(act, data, pt.x1, pm, sC, sY)
+      pointSensitivities(act, ctx, pt.x1, pm, sC, sY)
       const wC = 1 / (iso ? (pt.sigmaP ?? DEFAULT_SIGMA_P) : (pt.sigmaT ?? DEFAULT_SIGMA_T))
       const wY = 1 / (pt.sigmaY ?? DEFAULT_SIGMA_Y)
       const hC = quad(stats.inverse, sC, m) * wC * wC
@@ -93,7 +97,7 @@ function quad(M: Float64Array, v: Float64Array, m: number): number {
 
 /**
  * RMS, mean absolute and largest absolute deviations over the fitted points: T (K) and y1, and for an isothermal
- * fit P (Pa). A statistic with no values (dT of an isothermal fit, dy without y) is NaN.
+ * fit (or one with isothermal points) P (Pa). A statistic with no values (dT of an isothermal fit, dy without y) is NaN.
  */
 export function summarise(residuals: PointResidual[], index: number[], isothermal = false) {
   const values = (f: (r: PointResidual) => number | null | undefined) =>
@@ -104,7 +108,7 @@ export function summarise(residuals: PointResidual[], index: number[], isotherma
   const aad = (v: number[]) => (v.length ? v.reduce((s, x) => s + Math.abs(x), 0) / v.length : NaN)
   const max = (v: number[]) => (v.length ? v.reduce((s, x) => Math.max(s, Math.abs(x)), 0) : NaN)
   const out = { rmsT: rms(dT), rmsY: rms(dy), aadT: aad(dT), aadY: aad(dy), maxAbsT: max(dT), maxAbsY: max(dy) }
-  if (!isothermal) return out
   const dP = values((r) => r.dP)
+  if (!isothermal && dP.length === 0) return out
   return { ...out, rmsP: rms(dP), aadP: aad(dP), maxAbsP: max(dP) }
 }
