@@ -102,6 +102,7 @@ const expected: Record<string, Access> = {
   'DELETE /api/joint-fits/:id': ['lead_chemist'],
   'POST /api/joint-fits/:id/submit': ['lead_chemist'],
   'POST /api/joint-fits/:id/approve': ['lead_chemist'],
+  'POST /api/joint-fits/:id/return': ['lead_chemist'],
   'GET /api/joint-fits/:id/signatures/verify': ['analyst', 'lead_chemist', 'reviewer', 'admin'],
   'GET /api/systems/:id/recommended-parameters': 'authenticated',
   'GET /api/systems/:id/recommended-parameters/curve': 'authenticated',

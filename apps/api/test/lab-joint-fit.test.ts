@@ -109,9 +109,7 @@ describe('a joint fit over two data sets', () => {
       expect(p.standardError!).toBeCloseTo(engine.parameters[i].standardError!, 6)
     })
     expect(joint.statistics.covariance![0][0]).toBeCloseTo(engine.covariance[0][0], 3)
-    expect(joint.members.map((m: { statistics: { rmsT: number } }) => m.statistics.rmsT)).toEqual(
-      engine.dataSets.map((d) => expect.closeTo(d.rmsT, 9)),
-    )
+    expect(joint.members.map((m) => m.statistics.rmsT)).toEqual(engine.dataSets.map((d) => expect.closeTo(d.rmsT, 9)))
     expect(joint.range).toEqual({
       Tmin: expect.closeTo(engine.range.Tmin, 9),
       Tmax: expect.closeTo(engine.range.Tmax, 9),
@@ -280,7 +278,7 @@ describe('the recommended parameter set', () => {
     await lab.lead2.delete(`/api/joint-fits/${r.body.id}`).expect(409)
   })
 
-  it('the signed digest is the SHA-256 of the documented canonical content, and verifies', async () => {
+  it('the signed digest is the SHA-256 of the documented canonical content (format 2), and verifies', async () => {
     const v = await lab.reviewer.get(`/api/joint-fits/${first.id}/signatures/verify`).expect(200)
     expect(v.body.signatures[0].matches).toBe(true)
     // The recipe of docs/workflow.md, rebuilt from the API's answers and the stored rows.
@@ -301,21 +299,27 @@ describe('the recommended parameter set', () => {
           excluded: p.excluded,
         })),
       }
+      // Format 2 signs what the fit read of each member: its kind, vapour model and points' digest.
+      const read = { kind: 'isobaric', vaporModel: d.body.vaporModel }
+      const points = createHash('sha256').update(canonicalize(content)!).digest('hex')
+      const member = { format: 'ebullio-joint-member/2', ...read, pointSet: points }
       dataSets.push({
         id: d.body.id,
         lineageId: d.body.lineageId,
         version: d.body.version,
         title: d.body.title,
         nominalPressurePa: d.body.nominalPressurePa,
+        ...read,
         pointSet: {
-          digest: createHash('sha256').update(canonicalize(content)!).digest('hex'),
+          format: 'ebullio-joint-member/2',
+          digest: createHash('sha256').update(canonicalize(member)!).digest('hex'),
           included: d.body.points.filter((p: { excluded: boolean }) => !p.excluded).length,
         },
         statistics: m.statistics,
       })
     }
     const content = {
-      format: 'ebullio-parameter-set/1',
+      format: 'ebullio-parameter-set/2',
       system: {
         id: sys.body.id,
         component1: { id: sys.body.component1.id, name: sys.body.component1.name },
@@ -331,6 +335,7 @@ describe('the recommended parameter set', () => {
         rmsT: first.statistics.rmsT,
         rmsY: first.statistics.rmsY,
         converged: first.statistics.converged,
+        rmsP: null,
         range: first.range,
       },
       dataSets,

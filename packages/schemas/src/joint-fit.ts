@@ -12,7 +12,7 @@ import { labId, PRESSURE_UNITS } from './lab.js'
 /** The models a joint fit offers: those with temperature-dependent energies in thermo. */
 export const JOINT_FIT_MODELS = ['nrtl', 'wilson'] as const
 export type JointFitModel = (typeof JOINT_FIT_MODELS)[number]
-export const JOINT_FIT_STATES = ['draft', 'submitted', 'approved', 'superseded'] as const
+export const JOINT_FIT_STATES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const
 export type JointFitStateName = (typeof JOINT_FIT_STATES)[number]
 
 /** POST /api/systems/:id/joint-fits: the data sets (2–12, no repeats), the model, NRTL α (held). */
@@ -42,6 +42,20 @@ export const jointFitSignatureSchema = z.object({
   rowVersion: z.number().int().min(1),
 })
 
+/**
+ * POST /api/joint-fits/:id/return: a lead chemist returns a submitted joint fit for rework, signed (password
+ * re-entered) with the reason its author reads in the mail.
+ */
+export const jointFitReturnSchema = z.object({
+  password: z.string().min(1, 'Re-enter your password to sign').max(200),
+  reason: z
+    .string()
+    .trim()
+    .max(2000, 'Say what must be reworked in at most 2000 characters')
+    .min(1, 'Say what must be reworked'),
+  rowVersion: z.number().int().min(1),
+})
+
 /** GET /api/systems/:id/recommended-parameters/curve query: pressure in `unit` (default kPa), grid points. */
 export const recommendedCurveQuerySchema = z.object({
   pressure: z.coerce.number().positive('Pressure must be positive'),
@@ -49,13 +63,20 @@ export const recommendedCurveQuerySchema = z.object({
   points: z.coerce.number().int().min(3).max(1001).default(101),
 })
 
-/** One data set's statistics under the joint parameters (dT, dy = measured − calculated; fitted points only). */
+/**
+ * One data set's statistics under the joint parameters (dT, dP, dy = measured − calculated; fitted points only). An
+ * isothermal member has dP (Pa) and no dT (rmsT, biasT null); joint fits run before isothermal members have no kind.
+ */
 export interface JointFitDataSetStatsDto {
+  kind?: 'isobaric' | 'isothermal'
   n: number
-  rmsT: number
-  rmsY: number
-  biasT: number
-  biasY: number
+  rmsT: number | null
+  rmsY: number | null
+  biasT: number | null
+  biasY: number | null
+  /** Pa, isothermal members only */
+  rmsP?: number
+  biasP?: number
   Tmin: number
   Tmax: number
   Pmin: number
@@ -69,9 +90,17 @@ export interface JointFitMemberDto {
   version: number
   state: string
   nominalPressurePa: number | null
+  /** isobaric (txy, tx) or isothermal (pxy, px) */
+  kind: 'isobaric' | 'isothermal'
+  /** K, isothermal members */
+  nominalTemperatureK: number | null
+  /** the data set's vapour model now */
+  vaporModel: { kind: string } & Record<string, unknown>
   pointSetDigest: string
+  /** how pointSetDigest was computed: 'ebullio-point-set/1' (the points alone) or 'ebullio-joint-member/2' */
+  digestFormat: string
   pointCount: number
-  /** true when the data set's points have changed since the joint fit ran */
+  /** true when the data set's points (or, format 2, its kind, temperature or vapour model) changed since the run */
   stale: boolean
   statistics: JointFitDataSetStatsDto
 }
@@ -88,7 +117,7 @@ export interface JointFitSignatureDto<D = string> {
   id: string
   signerId: string
   signerName: string
-  meaning: 'approved'
+  meaning: 'approved' | 'returned for rework'
   reason: string
   digest: string
   digestAlgorithm: string

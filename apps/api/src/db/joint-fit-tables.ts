@@ -4,7 +4,9 @@ import type { ColumnType, Generated } from 'kysely'
 type DefaultTimestamp = ColumnType<Date, Date | string | undefined, Date | string>
 type Json<T> = ColumnType<T, T | string, T | string>
 
-export type JointFitState = 'draft' | 'submitted' | 'approved' | 'superseded'
+export type JointFitState = 'draft' | 'submitted' | 'returned' | 'approved' | 'superseded'
+
+export type MemberDigestFormat = 'ebullio-point-set/1' | 'ebullio-joint-member/2'
 
 export interface JointFitTable {
   id: Generated<string>
@@ -35,6 +37,8 @@ export interface JointFitMemberTable {
   data_set_id: string
   position: number
   point_set_digest: string
+  /** how point_set_digest was computed (db/migrations/20261204_jt2_joint_rework_member_format.ts) */
+  digest_format: ColumnType<MemberDigestFormat, MemberDigestFormat | undefined, never>
   point_count: number
   statistics: Json<Record<string, unknown>>
 }
@@ -43,7 +47,7 @@ export interface JointFitApprovalTable {
   id: Generated<string>
   joint_fit_id: string
   signer_id: string
-  meaning: 'approved'
+  meaning: 'approved' | 'returned for rework'
   reason: string
   digest: string
   digest_algorithm: string

@@ -1,7 +1,7 @@
 /** Joint fits of a system, their members (contributing data sets) and their signatures. */
 import type { Selectable } from 'kysely'
 import type { Db } from '../db/index.js'
-import type { JointFitMemberTable, JointFitState, JointFitTable } from '../db/joint-fit-tables.js'
+import type { JointFitMemberTable, JointFitState, JointFitTable, MemberDigestFormat } from '../db/joint-fit-tables.js'
 
 export interface JointFitRecord {
   id: string
@@ -28,6 +28,8 @@ export interface JointFitMemberRecord {
   dataSetId: string
   position: number
   pointSetDigest: string
+  /** how pointSetDigest was computed: the points alone (format 1) or kind, temperature, vapour and points (2) */
+  digestFormat: MemberDigestFormat
   pointCount: number
   statistics: Record<string, unknown>
 }
@@ -37,7 +39,7 @@ export interface JointFitApprovalRecord {
   jointFitId: string
   signerId: string
   signerName: string
-  meaning: 'approved'
+  meaning: 'approved' | 'returned for rework'
   reason: string
   digest: string
   digestAlgorithm: string
@@ -71,6 +73,7 @@ const toMember = (m: Selectable<JointFitMemberTable>): JointFitMemberRecord => (
   dataSetId: m.data_set_id,
   position: m.position,
   pointSetDigest: m.point_set_digest,
+  digestFormat: m.digest_format,
   pointCount: m.point_count,
   statistics: m.statistics,
 })
@@ -116,6 +119,7 @@ export async function insertJointFit(
         data_set_id: m.dataSetId,
         position: m.position,
         point_set_digest: m.pointSetDigest,
+        digest_format: m.digestFormat,
         point_count: m.pointCount,
         statistics: JSON.stringify(m.statistics),
       })),

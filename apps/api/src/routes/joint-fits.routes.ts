@@ -1,5 +1,6 @@
 import {
   jointFitRequestSchema,
+  jointFitReturnSchema,
   jointFitSignatureSchema,
   jointFitSubmitSchema,
   recommendedCurveQuerySchema,
@@ -84,6 +85,16 @@ export const jointFitRoutes = defineRoutes([
       const { db, config, user } = ctx(req)
       const { id } = parseParams(jointParams, req)
       res.json(await signing.approveJointFit(db, config, user, id, parseBody(jointFitSignatureSchema, req)))
+    },
+  },
+  {
+    method: 'post',
+    path: '/api/joint-fits/:id/return',
+    access: ['lead_chemist'],
+    handler: async (req, res) => {
+      const { db, config, user } = ctx(req)
+      const { id } = parseParams(jointParams, req)
+      res.json(await signing.returnJointFit(db, config, user, id, parseBody(jointFitReturnSchema, req)))
     },
   },
   {

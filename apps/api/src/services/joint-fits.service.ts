@@ -1,11 +1,14 @@
 /**
  * Joint fits: one NRTL or Wilson parameter set (temperature-dependent energies) over several data sets of one
- * system (thermo's fitJoint), each contributing data set bound to the digest of the point set it was fitted on.
+ * system (thermo's fitJoint): isobaric data sets by their bubble temperatures, isothermal ones by their bubble
+ * pressures, all under the one vapour model they share (refused when they differ). Each contributing data set is
+ * bound to the digest of what the fit read of it (format 'ebullio-joint-member/2': kind, temperature, vapour model
+ * and points; see memberDigest).
  * A lead chemist runs and submits one; another lead chemist signs it as the system's recommended parameter set
  * (four-eyes as for data sets); the signed set supersedes the previous one, which stays in the record.
  */
 import type { JointFitDto, JointFitMemberDto, JointFitRequest } from '@ebullio/schemas'
-import { DEFAULT_NRTL_ALPHA, webLink } from '@ebullio/schemas'
+import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel, webLink } from '@ebullio/schemas'
 import { fitJoint, phaseDiagram, type ActivityModel, type PhaseDiagram } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
@@ -17,22 +20,52 @@ import { appendAudit } from '../repositories/audit.repository.js'
 import * as datasets from '../repositories/datasets.repository.js'
 import * as repo from '../repositories/joint-fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
-import { pointSetOf } from './point-set.js'
+import { canonicalJson8785, enginePoint, pointSetOf, sha256Hex } from './point-set.js'
 import { staleResults } from './stale-results.js'
 import { thermo } from './lab-access.js'
-import { binarySystem, engineInputs, getSystem } from './systems.service.js'
+import { binarySystem, engineInputs, getSystem, type EngineInputs } from './systems.service.js'
+
+type EngineVapor = EngineInputs['vapor']
 import { activeLeadChemistIds } from '../repositories/users.repository.js'
 
-/** Points of a data set as the engine reads them (a two-layer point is a three-phase point). */
-export const enginePoints = (points: PointRecord[]) =>
-  points.map((p) => ({
-    T: p.temperatureK,
-    P: p.pressurePa,
-    x1: p.x1,
-    y1: p.y1,
-    excluded: p.excluded,
-    ...(p.heterogeneous ? { heterogeneous: true } : {}),
-  }))
+/** Points of a data set as the engine reads them (σP where given; a two-layer point is a three-phase point). */
+export const enginePoints = (points: PointRecord[]) => points.map(enginePoint)
+
+/** The member digest format of every joint fit run now; members stored before keep 'ebullio-point-set/1'. */
+export const MEMBER_DIGEST_V2 = 'ebullio-joint-member/2'
+export const MEMBER_DIGEST_V1 = 'ebullio-point-set/1'
+
+/**
+ * What a joint fit reads of a contributing data set, as signed content (format 'ebullio-joint-member/2'): the kind of
+ * data (isobaric: bubble temperatures compared; isothermal: bubble pressures), the nominal temperature of an
+ * isothermal set (K, when it has one), the data set's vapour model (always, the ideal gas included) and the digest
+ * of its points (format 'ebullio-point-set/1', see point-set.ts), so changing the vapour model or the kind makes
+ * the joint fit stale as changing a point does.
+ */
+export function memberContent(d: datasets.DataSetRecord, points: readonly PointRecord[]) {
+  const kind = dataKindOf(d.layout ?? 'txy')
+  return {
+    format: MEMBER_DIGEST_V2,
+    kind,
+    ...(kind === 'isothermal' && d.nominalTemperatureK !== null ? { nominalTemperatureK: d.nominalTemperatureK } : {}),
+    vaporModel: d.vaporModel ?? { kind: 'ideal' },
+    pointSet: pointSetOf(points).digest,
+  }
+}
+
+/**
+ * The digest of a member in the given format: format 2 {@link memberContent}; format 1 (members stored before
+ * format 2) the digest of the points alone, exactly as it was computed then.
+ */
+export function memberDigest(
+  d: datasets.DataSetRecord,
+  points: readonly PointRecord[],
+  format: string = MEMBER_DIGEST_V2,
+): { digest: string; included: number } {
+  const set = pointSetOf(points)
+  if (format === MEMBER_DIGEST_V1) return set
+  return { digest: sha256Hex(canonicalJson8785(memberContent(d, points))), included: set.included }
+}
 
 /** The data set, checked to be a current version of the system (a superseded version has a newer one). */
 function member(d: datasets.DataSetRecord | undefined, systemId: string, id: string): datasets.DataSetRecord {
@@ -40,12 +73,26 @@ function member(d: datasets.DataSetRecord | undefined, systemId: string, id: str
   if (d.systemId !== systemId) throw conflict(`"${d.title}" v${d.version} belongs to another system.`)
   if (d.state === 'superseded')
     throw conflict(`"${d.title}" v${d.version} is superseded by a newer version; choose the current version.`)
-  // The joint fit solves bubble temperatures at each point's P (ideal vapour): isobaric T–x–y data only, for now.
-  if (d.nominalPressurePa === null || (d.layout ?? 'txy') !== 'txy')
-    throw conflict(
-      `"${d.title}" v${d.version} is not an isobaric T–x–y data set; a joint fit takes isobaric T–x–y data sets only.`,
-    )
   return d
+}
+
+/**
+ * The one vapour model of the chosen data sets; refused (409) when they differ, naming them: one parameter set
+ * holds under one vapour model only (the γ it reproduces depends on the vapour's φ).
+ */
+function sharedVapour(chosen: datasets.DataSetRecord[]): datasets.DataSetRecord['vaporModel'] {
+  const key = (d: datasets.DataSetRecord) => canonicalJson8785(d.vaporModel ?? { kind: 'ideal' })
+  const groups = new Map<string, datasets.DataSetRecord[]>()
+  for (const d of chosen) groups.set(key(d), [...(groups.get(key(d)) ?? []), d])
+  if (groups.size > 1) {
+    const parts = [...groups.values()].map(
+      (ds) => `${ds.map((d) => `"${d.title}" v${d.version}`).join(', ')}: ${vaporModelLabel(ds[0].vaporModel)}`,
+    )
+    throw conflict(
+      `The chosen data sets have different vapour models (${parts.join('; ')}). One parameter set holds under one vapour model only: give them the same vapour model, or fit them in separate joint fits.`,
+    )
+  }
+  return chosen[0].vaporModel ?? { kind: 'ideal' }
 }
 
 /** Run a joint fit over the chosen data sets of a system and store it as a draft (audited). */
@@ -57,21 +104,29 @@ export async function runJointFit(db: Db, user: SessionUser, systemId: string, r
     const d = member(await datasets.findDataSet(db, id), systemId, id)
     const points = await listPoints(db, id)
     if (!points.some((p) => !p.excluded)) throw conflict(`"${d.title}" v${d.version} has no included points.`)
-    chosen.push({ d, points, pointSet: pointSetOf(points) })
+    chosen.push({ d, points, pointSet: memberDigest(d, points) })
   }
-  const inputs = await engineInputs(db, systemId)
+  const inputs = await engineInputs(db, systemId, sharedVapour(chosen.map((c) => c.d)))
+  // The engine's vapour (with the components' critical data as they are now) is kept with the result, as fits do.
+  const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
   const options = JSON.parse(
     JSON.stringify({
       model: req.model,
       temperatureDependent: req.temperatureDependent ?? true,
       ...(req.model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA } : { V1: inputs.V1, V2: inputs.V2 }),
+      ...vapor,
     }),
   ) as { model: 'nrtl' | 'wilson'; temperatureDependent: boolean; alpha?: number; V1?: number; V2?: number }
   const r = thermo('Joint fit', () =>
     fitJoint({
       ...options,
       vaporPressure: inputs.vaporPressure,
-      dataSets: chosen.map((c) => ({ id: c.d.id, points: enginePoints(c.points) })),
+      dataSets: chosen.map((c) => ({
+        id: c.d.id,
+        kind: dataKindOf(c.d.layout ?? 'txy'),
+        points: enginePoints(c.points),
+        ...vapor,
+      })),
     }),
   )
   const statistics = JSON.parse(
@@ -85,6 +140,9 @@ export async function runJointFit(db: Db, user: SessionUser, systemId: string, r
       aadY: r.aadY,
       maxAbsT: r.maxAbsT,
       maxAbsY: r.maxAbsY,
+      ...(r.rmsP !== undefined ? { rmsP: r.rmsP, aadP: r.aadP, maxAbsP: r.maxAbsP } : {}),
+      objectiveKind: r.objectiveKind,
+      vaporModel: r.vaporModel,
       aic: r.aic,
       covariance: r.covariance,
       correlation: r.correlation,
@@ -110,6 +168,7 @@ export async function runJointFit(db: Db, user: SessionUser, systemId: string, r
           dataSetId: c.d.id,
           position: i,
           pointSetDigest: c.pointSet.digest,
+          digestFormat: MEMBER_DIGEST_V2,
           pointCount: c.pointSet.included,
           statistics: stats as unknown as Record<string, unknown>,
         }
@@ -127,7 +186,12 @@ export async function runJointFit(db: Db, user: SessionUser, systemId: string, r
         rmsT: r.rmsT,
         rmsY: r.rmsY,
         converged: r.converged,
-        dataSets: chosen.map((c) => ({ id: c.d.id, version: c.d.version, pointSetDigest: c.pointSet.digest })),
+        dataSets: chosen.map((c) => ({
+          id: c.d.id,
+          version: c.d.version,
+          pointSetDigest: c.pointSet.digest,
+          digestFormat: MEMBER_DIGEST_V2,
+        })),
       },
     })
     return fit
@@ -140,14 +204,19 @@ export async function membersOf(db: Db, fit: repo.JointFitRecord): Promise<Joint
   const out: JointFitMemberDto[] = []
   for (const m of await repo.listMembers(db, fit.id)) {
     const d = (await datasets.findDataSet(db, m.dataSetId))!
-    const current = pointSetOf(await listPoints(db, m.dataSetId)).digest
+    // Each member is compared in the format it was stored in (format 1: the points alone).
+    const current = memberDigest(d, await listPoints(db, m.dataSetId), m.digestFormat).digest
     out.push({
       dataSetId: m.dataSetId,
       title: d.title,
       version: d.version,
       state: d.state,
       nominalPressurePa: d.nominalPressurePa,
+      kind: dataKindOf(d.layout ?? 'txy'),
+      nominalTemperatureK: d.nominalTemperatureK,
+      vaporModel: (d.vaporModel ?? { kind: 'ideal' }) as JointFitMemberDto['vaporModel'],
       pointSetDigest: m.pointSetDigest,
+      digestFormat: m.digestFormat,
       pointCount: m.pointCount,
       stale: current !== m.pointSetDigest,
       statistics: m.statistics as unknown as JointFitMemberDto['statistics'],
@@ -184,28 +253,54 @@ export async function listJointFits(db: Db, user: SessionUser, systemId: string)
 }
 
 /**
- * Each contributing data set's included points against the joint model's T–x–y curve at its nominal pressure,
- * for the plot of each data set against the joint parameters.
+ * Each contributing data set's points against the joint model, for the plot of each data set against the joint
+ * parameters: an isobaric set against the T–x–y curve at its nominal pressure, an isothermal one against the P–x–y
+ * curve at its temperature (its nominal temperature, else the mean of its points'), under the fit's vapour model.
  */
 export async function jointFitPlots(db: Db, user: SessionUser, id: string, gridPoints = 51) {
   const fit = await jointFitDetail(db, user, id)
   const inputs = await engineInputs(db, fit.systemId)
-  const system = binarySystem(inputs, fit.activity as unknown as ActivityModel)
+  const vapor = fit.options.vapor as EngineVapor | undefined
+  const system = binarySystem(
+    { ...inputs, vapor: vapor ?? { kind: 'ideal' } },
+    fit.activity as unknown as ActivityModel,
+  )
   const plots = []
   for (const m of fit.members) {
     const points = await listPoints(db, m.dataSetId)
-    // an isothermal member has no nominal pressure: its T–x–y is drawn at the mean of its measured pressures
-    const P = m.nominalPressurePa ?? points.reduce((s, p) => s + p.pressurePa, 0) / Math.max(points.length, 1)
+    const mean = (f: (p: PointRecord) => number) => points.reduce((s, p) => s + f(p), 0) / Math.max(points.length, 1)
+    const common = {
+      dataSetId: m.dataSetId,
+      title: m.title,
+      version: m.version,
+      points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+    }
+    if (m.kind === 'isothermal') {
+      const T = m.nominalTemperatureK ?? mean((p) => p.temperatureK)
+      const diagram = thermo(
+        'P–x–y curve',
+        () => phaseDiagram(system, { T }, { points: gridPoints }) as Extract<PhaseDiagram, { kind: 'isothermal' }>,
+      )
+      plots.push({
+        ...common,
+        kind: 'isothermal' as const,
+        P: null,
+        T,
+        curve: { x1: diagram.x1, y1: diagram.y1, P: diagram.P },
+      })
+      continue
+    }
+    // an isobaric member without a nominal pressure (none today) would be drawn at the mean of its pressures
+    const P = m.nominalPressurePa ?? mean((p) => p.pressurePa)
     const diagram = thermo(
       'T–x–y curve',
       () => phaseDiagram(system, { P }, { points: gridPoints }) as Extract<PhaseDiagram, { kind: 'isobaric' }>,
     )
     plots.push({
-      dataSetId: m.dataSetId,
-      title: m.title,
-      version: m.version,
+      ...common,
+      kind: 'isobaric' as const,
       P: m.nominalPressurePa,
-      points: points.map((p) => ({ T: p.temperatureK, P: p.pressurePa, x1: p.x1, y1: p.y1, excluded: p.excluded })),
+      T: null,
       curve: { x1: diagram.x1, y1: diagram.y1, T: diagram.T },
     })
   }
@@ -252,7 +347,8 @@ export async function submitJointFit(db: Db, config: Config, user: SessionUser, 
   return db.transaction().execute(async (tx) => {
     const fit = await repo.lockJointFit(tx, id)
     if (!fit) throw notFound('There is no such joint fit.')
-    if (fit.state !== 'draft') throw conflict(`This joint fit is ${fit.state}; only a draft can be submitted.`)
+    if (fit.state !== 'draft' && fit.state !== 'returned')
+      throw conflict(`This joint fit is ${fit.state}; only a draft or a returned joint fit can be submitted.`)
     if (fit.rowVersion !== rowVersion) throw staleJointFit(rowVersion, fit.rowVersion)
     refuseStale(await jointFitDetail(tx, user, id), 'submit')
     if ((fit.statistics as { converged?: boolean }).converged === false)
@@ -267,7 +363,7 @@ export async function submitJointFit(db: Db, config: Config, user: SessionUser, 
       entity: 'joint_fit',
       entityId: id,
       action: 'submit joint fit',
-      before: { state: 'draft' },
+      before: { state: fit.state },
       after: { state: 'submitted' },
     })
     const system = await getSystem(tx, fit.systemId)
