@@ -1,12 +1,13 @@
 import { readFileSync } from 'node:fs'
 import { expect, test, type Page } from '@playwright/test'
-import { DEMO, DEMO_PASSWORD, signIn, signOut } from './support/helpers'
+import { DEMO, DEMO_PASSWORD, signIn, signOut, waitForMail } from './support/helpers'
 import { snap } from './support/lab'
 
 // Journey: one lead chemist fits one parameter set to the two approved methanol/water data sets of the demo
 // (1 atm and 40 kPa; INVENTED points from published NRTL parameters plus GC noise) and submits it; the second lead
-// chemist signs it as the system's recommended set (superseding the demo's); the engineer's curve uses it and warns
-// outside the pressures it was fitted on.
+// chemist returns it for rework, the first follows the mailed link and submits it again; the second signs it as the
+// system's recommended set (superseding the demo's); the engineer's curve uses it and warns outside the pressures
+// it was fitted on.
 const SYSTEM = 'methanol / water'
 const ATM = 'Vacuum column study: methanol/water at 1 atm'
 const VACUUM = 'Vacuum column study: methanol/water at 40 kPa'
@@ -61,11 +62,44 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
     'You ran the joint fit; another lead chemist must sign this parameter set.',
   )
   await page.getByRole('button', { name: 'Cancel' }).click()
+  const jointId = (await panel.getAttribute('data-test'))!.replace('joint-fit-', '')
+  await signOut(page)
+
+  // The second lead chemist returns it for rework; the reason (with markup in it) stays text.
+  const reason = 'Check the <b>40 kPa</b> barometer readings & refit'
+  await signIn(page, DEMO.lead2)
+  await openLabSystem(page)
+  const toReturn = page.getByTestId(`joint-fit-${jointId}`)
+  await toReturn.getByTestId('joint-return').click()
+  await expect(page.getByTestId('joint-return-explain')).toContainText('Wilson (joint, 2 data sets)')
+  await page.locator('#js-password').fill(DEMO_PASSWORD)
+  await expect(page.locator('#js-password')).toHaveValue(DEMO_PASSWORD)
+  await page.getByTestId('joint-sign-reason').fill(reason)
+  await page.getByTestId('joint-sign-confirm').click()
+  await expect(page.getByTestId('joint-notice')).toContainText('is returned for rework')
+  await expect(toReturn.getByTestId('joint-state')).toHaveText('Returned for rework')
+  await signOut(page)
+
+  // Its author follows the link in the mail: it lands on the system's lab page with that joint fit open.
+  await signIn(page, DEMO.lead)
+  const body = await waitForMail(DEMO.lead, /was returned for rework/)
+  expect(body).toContain(`Reason: ${reason}\n`)
+  const link = new URL(body.match(/https?:\/\/\S+\/lab\/systems\/\S+/)![0])
+  await page.goto(link.pathname + link.search)
+  await expect(page).toHaveURL(new RegExp(`/lab/systems/[\\w-]+\\?joint=${jointId}$`))
+  await expect(page.getByTestId('lab-system-title')).toHaveText('methanol / water')
+  const landed = page.getByTestId(`joint-fit-${jointId}`)
+  await expect(landed.getByTestId('joint-state')).toHaveText('Returned for rework')
+  await expect(landed.getByTestId('joint-returned-reason')).toHaveText(reason)
+  await expect(landed.locator('b')).toHaveCount(0)
+  await snap(page, 'joint-02a-returned')
+  await landed.getByTestId('joint-resubmit').click()
+  await expect(landed.getByTestId('joint-state')).toHaveText('Awaiting signature')
   await signOut(page)
 
   await signIn(page, DEMO.lead2)
   await openLabSystem(page)
-  const submitted = page.locator('[data-test^="joint-fit-"]').first()
+  const submitted = page.getByTestId(`joint-fit-${jointId}`)
   await expect(submitted.getByTestId('joint-state')).toHaveText('Awaiting signature')
   await submitted.getByTestId('joint-sign').click()
   await expect(page.getByTestId('joint-sign-covers')).toContainText(VACUUM)

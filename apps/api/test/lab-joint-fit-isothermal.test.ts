@@ -372,7 +372,7 @@ describe('return for rework, resubmission and signature (four-eyes)', () => {
     expect(mail[0].envelope_to).toBe('lead@lab.test')
     expect(mail[0].subject).toBe('Ebullio: the joint parameter set for acetone / methanol was returned for rework')
     expect(mail[0].body_text).toContain(`Reason: ${hostile}\n`)
-    expect(mail[0].body_text).toContain(`${t.config.publicUrl}/lab/systems/${lab.systemId}\n`)
+    expect(mail[0].body_text).toContain(`${t.config.publicUrl}/lab/systems/${lab.systemId}?joint=${joint.id}\n`)
     const audit = await sql<{ action: string; after: { reason: string; state: string } }>`
       select action, after from audit_log where entity = 'joint_fit' and entity_id = ${joint.id} order by id`.execute(
       t.db,

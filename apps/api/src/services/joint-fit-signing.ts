@@ -286,7 +286,7 @@ export async function returnJointFit(db: Db, config: Config, user: SessionUser, 
     for (const author of new Set([fit.runBy, ...(fit.submittedBy ? [fit.submittedBy] : [])])) {
       await notifyUser(tx, author, {
         subject: `Ebullio: the joint parameter set for ${system.name} was returned for rework`,
-        text: `${user.displayName} returned the joint parameter set ${label} for ${system.name} for rework.\nReason: ${s.reason}\n\nRework it and submit it again, or run a new joint fit: ${webLink(config.publicUrl, 'labSystem', { id: fit.systemId })}\n`,
+        text: `${user.displayName} returned the joint parameter set ${label} for ${system.name} for rework.\nReason: ${s.reason}\n\nRework it and submit it again, or run a new joint fit: ${webLink(config.publicUrl, 'labSystem', { id: fit.systemId })}?joint=${id}\n`,
       })
     }
     return { approvalId, digest }

@@ -8,17 +8,30 @@ import { api } from './client'
 export type JointFit = JointFitDto
 export type RecommendedSet = RecommendedParameterSetDto
 
-/** One contributing data set against the joint model at its nominal pressure. */
-export interface JointFitPlot {
+/** One contributing data set against the joint model: at its nominal pressure (isobaric) or temperature (isothermal). */
+export type JointFitPlot = {
   dataSetId: string
   title: string
   version: number
-  /** the data set's nominal pressure, Pa */
-  P: number
-  points: { T: number; P: number; x1: number; y1: number; excluded: boolean }[]
-  /** the joint model's bubble (x1, T) and dew (y1, T) lines at P */
-  curve: { x1: number[]; y1: number[]; T: number[] }
-}
+  points: { T: number; P: number; x1: number; y1: number | null; excluded: boolean }[]
+} & (
+  | {
+      kind: 'isobaric'
+      /** the data set's nominal pressure, Pa */
+      P: number
+      T: null
+      /** the joint model's bubble (x1, T) and dew (y1, T) lines at P */
+      curve: { x1: number[]; y1: number[]; T: number[] }
+    }
+  | {
+      kind: 'isothermal'
+      P: null
+      /** K */
+      T: number
+      /** the joint model's bubble (x1, P) and dew (y1, P) lines at T, P in Pa */
+      curve: { x1: number[]; y1: number[]; P: number[] }
+    }
+)
 
 /** The engineer's curve with the recommended set (GET …/recommended-parameters/curve). */
 export interface RecommendedCurve {
@@ -41,6 +54,9 @@ export const jointFitsApi = {
     api.post<{ notifiedLeadChemists: number }>(`/api/joint-fits/${id}/submit`, { rowVersion }, { quiet: true }),
   approve: (id: string, body: { password: string; reason: string; rowVersion: number }) =>
     api.post<{ digest: string; jointFit: JointFit }>(`/api/joint-fits/${id}/approve`, body, { quiet: true }),
+  /** Return a submitted joint fit for rework (lead chemist; password and reason). */
+  returnForRework: (id: string, body: { password: string; reason: string; rowVersion: number }) =>
+    api.post<{ digest: string; jointFit: JointFit }>(`/api/joint-fits/${id}/return`, body, { quiet: true }),
   remove: (id: string) => api.del<{ deleted: string }>(`/api/joint-fits/${id}`, { quiet: true }),
   /** The system's signed recommended set; 404 (quietly) when it has none. */
   recommended: (systemId: string) =>

@@ -41,9 +41,14 @@ export const useJointFitsStore = defineStore('joint-fits', () => {
     await reload()
     return r
   }
+  async function returnForRework(fit: JointFit, password: string, reason: string) {
+    const r = await jointFitsApi.returnForRework(fit.id, { password, reason, rowVersion: fit.rowVersion })
+    await reload()
+    return r
+  }
   async function remove(fit: JointFit) {
     await jointFitsApi.remove(fit.id)
     await reload()
   }
-  return { systemId, items, loading, error, load, run, submit, approve, remove }
+  return { systemId, items, loading, error, load, run, submit, approve, returnForRework, remove }
 })

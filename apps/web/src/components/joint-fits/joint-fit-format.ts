@@ -23,13 +23,15 @@ export function parameterUnit(name: string): string {
 export const STATE_WORDS: Record<JointFitDto['state'], string> = {
   draft: 'Draft',
   submitted: 'Awaiting signature',
+  returned: 'Returned for rework',
   approved: 'Recommended for the system',
   superseded: 'Superseded',
 }
 
-export const STATE_SEVERITY: Record<JointFitDto['state'], 'secondary' | 'warn' | 'success' | 'contrast'> = {
+export const STATE_SEVERITY: Record<JointFitDto['state'], 'secondary' | 'warn' | 'success' | 'contrast' | 'danger'> = {
   draft: 'secondary',
   submitted: 'warn',
+  returned: 'danger',
   approved: 'success',
   superseded: 'contrast',
 }
@@ -50,6 +52,11 @@ export function parameterRows(f: Pick<JointFitDto, 'parameters'>) {
     shown: valueWithError(p.value, p.standardError),
     unit: parameterUnit(p.name),
   }))
+}
+
+/** The latest return for rework of a joint fit (its reason, who and when), or null when it was never returned. */
+export function lastReturn(f: Pick<JointFitDto, 'signatures'>) {
+  return f.signatures.filter((s) => s.meaning === 'returned for rework').at(-1) ?? null
 }
 
 /** A failure in words for the screen: the server's message, or what went wrong. */
