@@ -68,6 +68,19 @@ export function createApp(
       } as typeof res.writeHead
       next()
     })
+  const changes = services.changes
+  if (changes)
+    // A request that may have written to the database empties this process's caches before its answer leaves: the
+    // client's next request never meets what it just changed, even before the database's notification arrives.
+    app.use((req, res, next) => {
+      if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next()
+      const writeHead = res.writeHead
+      res.writeHead = function (this: express.Response, ...args: unknown[]) {
+        changes.flush()
+        return (writeHead as (...a: unknown[]) => express.Response).apply(this, args)
+      } as typeof res.writeHead
+      next()
+    })
   const metrics = createMetrics(services.db, options.pool, options.processMetrics)
   app.use(metrics.middleware)
   app.use(

@@ -43,6 +43,7 @@ const envSchema = z.object({
   RATE_LIMIT_FORGOT_PER_IP: z.coerce.number().int().positive().default(20),
   RATE_LIMIT_PASSWORD_CHANGE: z.coerce.number().int().positive().default(8),
   SHUTDOWN_TIMEOUT_MS: z.coerce.number().int().positive().default(10_000),
+  CACHE_TTL_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
   METRICS_TOKEN: z.string().min(16).optional(),
   INVITE_HOURS: z.coerce.number().positive().default(72),
   RESET_MINUTES: z.coerce.number().positive().default(30),
@@ -114,6 +115,8 @@ const configSchema = envSchema
       rateLimitForgotPerIp: e.RATE_LIMIT_FORGOT_PER_IP,
       rateLimitPasswordChange: e.RATE_LIMIT_PASSWORD_CHANGE,
       shutdownTimeoutMs: e.SHUTDOWN_TIMEOUT_MS,
+      /** longest life of a cached session or curve source (invalidated earlier by the change feed); 0: no caching */
+      cacheTtlMs: e.CACHE_TTL_MS,
       metricsToken: e.METRICS_TOKEN ?? null,
       inviteHours: e.INVITE_HOURS,
       resetMinutes: e.RESET_MINUTES,

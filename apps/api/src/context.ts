@@ -5,6 +5,7 @@ import type { Sessions, SessionUser } from './auth/index.js'
 import type { Config } from './config.js'
 import type { Database } from './db/index.js'
 import type { Mailer } from './mail/mailer.js'
+import type { ChangeFeed } from './ops/change-feed.js'
 import { unauthorized } from './errors/index.js'
 
 /** What every request handler may use; built once per app, with the user filled per request. */
@@ -13,6 +14,8 @@ export interface AppServices {
   config: Config
   sessions: Sessions
   mailer: Mailer
+  /** The database's change notifications and the caches built on them (absent: nothing is cached across requests). */
+  changes?: ChangeFeed
 }
 
 export interface RequestContext extends AppServices {

@@ -4,6 +4,7 @@ import { loadConfig, loadEnvFile } from './config.js'
 import { createDb, createPool } from './db/index.js'
 import { startFakeSmtp } from './mail/fake-smtp.js'
 import { Mailer } from './mail/mailer.js'
+import { ChangeFeed } from './ops/change-feed.js'
 import { createApp } from './app.js'
 
 loadEnvFile()
@@ -23,9 +24,15 @@ const mailer = new Mailer(db, smtpUrl, config.mailFrom, logger, {
   maxRefusedAttempts: config.mailMaxRefusedAttempts,
 })
 mailer.start(config.mailPollMs)
-const sessions = new Sessions(db, config)
+// The database's change notifications, for the in-process caches (sessions, curve sources): see docs/operations.md.
+const changes = new ChangeFeed(config.databaseUrl, { logger, ttlMs: config.cacheTtlMs }).start()
+const sessions = new Sessions(db, config, changes)
 const lifecycle = { stopping: false }
-const app = createApp({ db, config, sessions, mailer }, logger, undefined, { pool, lifecycle, processMetrics: true })
+const app = createApp({ db, config, sessions, mailer, changes }, logger, undefined, {
+  pool,
+  lifecycle,
+  processMetrics: true,
+})
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Ebullio is serving on ${config.publicUrl}${smtp ? ` (mail capture on 127.0.0.1:${smtp.port})` : ''}`)
@@ -53,6 +60,7 @@ async function shutdown(signal: string) {
   await Promise.all([closed, mailer.stop()])
   clearTimeout(cut)
   await smtp?.close()
+  await changes.close()
   await db.destroy()
   logger.info('stopped')
   process.exit(0)

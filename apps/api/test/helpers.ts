@@ -9,6 +9,7 @@ import { loadConfig, type Config } from '../src/config.js'
 import { createDb, createPool, type Database } from '../src/db/index.js'
 import { startFakeSmtp } from '../src/mail/fake-smtp.js'
 import { Mailer } from '../src/mail/mailer.js'
+import { ChangeFeed, type ChangeFeedOptions } from '../src/ops/change-feed.js'
 import { createUser as createUserService } from '../src/services/users.service.js'
 
 export const PASSWORD = 'correct-horse-battery'
@@ -18,6 +19,8 @@ export interface TestContext {
   db: Kysely<Database>
   config: Config
   mailer: Mailer
+  /** The app's change feed (its caches are bypassed until it listens: createTestContext waits for that). */
+  changes: ChangeFeed
   /** Deliver the outbox now and return the captured messages, newest first. */
   mail: () => Promise<{ envelope_to: string; subject: string; body_text: string }[]>
   close: () => Promise<void>
@@ -27,6 +30,7 @@ export interface TestContext {
 export async function createTestContext(
   env: Record<string, string> = {},
   logger: Logger = pino({ level: 'silent' }),
+  o: { changes?: ChangeFeedOptions } = {},
 ): Promise<TestContext> {
   const config = loadConfig({
     ...process.env,
@@ -43,13 +47,16 @@ export async function createTestContext(
   const db = createDb(config.databaseUrl, pool)
   const smtp = await startFakeSmtp(db, 0)
   const mailer = new Mailer(db, `smtp://127.0.0.1:${smtp.port}`, config.mailFrom)
-  const sessions = new Sessions(db, config)
-  const app = createApp({ db, config, sessions, mailer }, logger, undefined, { pool })
+  const changes = new ChangeFeed(config.databaseUrl, { logger, ttlMs: config.cacheTtlMs, ...o.changes }).start()
+  await changes.ready()
+  const sessions = new Sessions(db, config, changes)
+  const app = createApp({ db, config, sessions, mailer, changes }, logger, undefined, { pool })
   return {
     app,
     db,
     config,
     mailer,
+    changes,
     mail: async () => {
       await mailer.deliverPending()
       return db.selectFrom('captured_mail').selectAll().orderBy('id', 'desc').execute()
@@ -57,6 +64,7 @@ export async function createTestContext(
     close: async () => {
       await mailer.stop()
       await smtp.close()
+      await changes.close()
       await db.destroy()
     },
   }

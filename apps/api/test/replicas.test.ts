@@ -81,7 +81,15 @@ afterAll(async () => {
 /** A TestContext whose "app" is the proxy's address: supertest sends real HTTP through haproxy. */
 function throughProxy(): TestContext {
   const config = loadConfig({ ...process.env, NODE_ENV: 'test' })
-  return { app: proxyUrl as never, db, config, mailer: null as never, mail: null as never, close: async () => {} }
+  return {
+    app: proxyUrl as never,
+    db,
+    config,
+    mailer: null as never,
+    mail: null as never,
+    changes: null as never,
+    close: async () => {},
+  }
 }
 
 async function allMailSent(expected: number) {

@@ -2,6 +2,7 @@ import type { Role } from '@ebullio/schemas'
 import type { Kysely } from 'kysely'
 import type { Config } from '../config.js'
 import type { Database, Db } from '../db/index.js'
+import type { ChangeFeed, FeedCache } from '../ops/change-feed.js'
 import * as sessions from '../repositories/sessions.repository.js'
 import { generateSessionToken, sessionIdOf } from './session-token.js'
 
@@ -32,20 +33,36 @@ function readCookie(header: string | undefined, name: string): string | null {
   return null
 }
 
+type SessionRow = NonNullable<Awaited<ReturnType<typeof sessions.findSessionWithUser>>>
+
 /**
  * Sessions: a random token in an HttpOnly cookie, its SHA-256 as the row id in `user_session` (the approach the
  * lucia authors now recommend, on @oslojs/crypto). Idle timeout (sliding, extended past half its life) and absolute
- * lifetime; one query per request reads session, user and roles.
+ * lifetime; one query reads session, user and roles. With a change feed the row is kept in this process for a few
+ * seconds at most and dropped as soon as the database says the session or its user changed (on any replica); while
+ * the feed is not listening every request reads the database.
  */
 export class Sessions {
   readonly cookieName = COOKIE
   private readonly secure: boolean
   private readonly idleMs: number
+  private readonly cache: FeedCache<SessionRow> | null
 
   constructor(
     private readonly db: Kysely<Database>,
     private readonly config: Config,
+    changes?: ChangeFeed,
   ) {
+    this.cache =
+      changes?.cache<SessionRow>('sessions', {
+        max: 10_000,
+        forget: (change, lru) => {
+          if (change.topic === 'session') lru.delete(change.key)
+          else if (change.topic === 'user') {
+            for (const [k, row] of lru.entries()) if (row.id === change.key) lru.delete(k)
+          } else if (change.topic === 'all') lru.clear()
+        },
+      }) ?? null
     this.secure =
       config.cookieSecure === 'auto'
         ? config.nodeEnv === 'production' || config.publicUrl.startsWith('https:')
@@ -77,16 +94,23 @@ export class Sessions {
     const token = readCookie(cookieHeader, COOKIE)
     if (!token) return { user: null }
     const id = sessionIdOf(token)
-    const row = await sessions.findSessionWithUser(db, id)
-    if (!row) return { user: null, setCookie: this.blankCookie() }
+    let row = this.cache?.get(id)
+    if (!row) {
+      const since = this.cache?.begin() ?? 0
+      row = await sessions.findSessionWithUser(db, id)
+      if (!row) return { user: null, setCookie: this.blankCookie() }
+      this.cache?.set(id, row, since)
+    }
     const now = Date.now()
     const ageHours = (now - row.created_at.getTime()) / 3.6e6
     if (!row.active || row.expires_at.getTime() <= now || ageHours > this.config.sessionAbsoluteHours) {
+      this.cache?.delete(id)
       await sessions.deleteSession(db, id)
       return { user: null, setCookie: this.blankCookie() }
     }
     let setCookie: string | undefined
     if (row.expires_at.getTime() - now < this.idleMs / 2) {
+      this.cache?.delete(id)
       await sessions.extendSession(db, id, new Date(now + this.idleMs))
       setCookie = this.cookie(token, Math.floor(this.idleMs / 1000))
     }
@@ -110,7 +134,10 @@ export class Sessions {
 
   async end(cookieHeader: string | undefined): Promise<void> {
     const id = this.idFromCookie(cookieHeader)
-    if (id) await sessions.deleteSession(this.db, id)
+    if (id) {
+      this.cache?.delete(id)
+      await sessions.deleteSession(this.db, id)
+    }
   }
 
   /** End every session of a user, except (optionally) the one this cookie header carries. */

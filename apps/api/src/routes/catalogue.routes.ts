@@ -23,11 +23,11 @@ export const catalogueRoutes = defineRoutes([
     path: '/api/data-sets/:id/curve',
     access: 'authenticated',
     handler: async (req, res) => {
-      const { db, user } = ctx(req)
+      const { db, user, changes } = ctx(req)
       const { id } = parseParams(idParams, req)
       const q = parseQuery(curveQuery, req)
       const P = toPascal(q.pressure, q.unit)
-      const curve = await catalogue.curveAnswer(db, user, id, { P, points: q.points, fitId: q.fitId })
+      const curve = await catalogue.curveAnswer(db, user, id, { P, points: q.points, fitId: q.fitId }, changes)
       res.type('application/json')
       // A draft's curve may change at any time: never stored. A published one is revalidated by its ETag on every
       // use (private: shared caches would skip the sign-in and access check that ran above).

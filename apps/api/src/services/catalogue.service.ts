@@ -13,9 +13,10 @@ import {
 import { LRUCache } from 'lru-cache'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
+import type { ChangeFeed } from '../ops/change-feed.js'
 import { conflict, notFound } from '../errors/index.js'
 import * as repo from '../repositories/datasets.repository.js'
-import { findCurveSource } from '../repositories/curves.repository.js'
+import { findCurveSource, type CurveSource } from '../repositories/curves.repository.js'
 import { findFit, listFitsOf } from '../repositories/fits.repository.js'
 import { listSystems } from '../repositories/systems.repository.js'
 import { pageWindow, PUBLISHED_STATES, readsEverything, thermo, visibleOrNotFound } from './lab-access.js'
@@ -184,11 +185,31 @@ export const cachedCurveCount = () => curveCache.size
 
 /**
  * The curve answer of `curveAt`, served from the cache when the data set is published. The visibility rule runs
- * first on every request (also before a 304): one query reads the state, the fit and the vapour-pressure sets.
- * Drafts and versions under review are computed every time and get no ETag.
+ * first on every request (also before a 304), on the curve's source: its state, fit, component names and
+ * vapour-pressure sets. With a change feed the source of a published version is kept in this process until the
+ * database says a data set, fit, system, component or vapour-pressure set changed (on any replica), so a repeated
+ * curve reads nothing from the database. Drafts and versions under review are computed every time and get no ETag.
  */
-export async function curveAnswer(db: Db, user: SessionUser, id: string, o: CurveQuery): Promise<CurveAnswer> {
-  const src = await findCurveSource(db, id, o.fitId)
+export async function curveAnswer(
+  db: Db,
+  user: SessionUser,
+  id: string,
+  o: CurveQuery,
+  changes?: ChangeFeed,
+): Promise<CurveAnswer> {
+  const sources = changes?.cache<CurveSource>('curve-sources', {
+    max: 5000,
+    forget: (change, lru) => {
+      if (change.topic === 'curve' || change.topic === 'all') lru.clear()
+    },
+  })
+  const sourceKey = o.fitId ? `${id} ${o.fitId}` : id
+  let src = sources?.get(sourceKey)
+  if (!src) {
+    const since = sources?.begin() ?? 0
+    src = await findCurveSource(db, id, o.fitId)
+    if (src && PUBLISHED_STATES.includes(src.state)) sources?.set(sourceKey, src, since)
+  }
   if (!src || (!readsEverything(user) && !PUBLISHED_STATES.includes(src.state)))
     throw notFound('There is no such data set.')
   const published = PUBLISHED_STATES.includes(src.state)
