@@ -81,7 +81,7 @@ export function createApp(
       } as typeof res.writeHead
       next()
     })
-  const metrics = createMetrics(services.db, options.pool, options.processMetrics)
+  const metrics = createMetrics(services.db, options.pool, options.processMetrics, changes)
   app.use(metrics.middleware)
   app.use(
     helmet({

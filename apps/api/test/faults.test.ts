@@ -45,6 +45,22 @@ async function call(method: string, p: string, o: { cookie?: string; body?: unkn
   return { status: r.status, headers: r.headers, body: text ? JSON.parse(text) : null }
 }
 
+/** A value of /metrics (this test talks to the API from the same machine, so the scrape is allowed). */
+async function metric(name: string): Promise<number> {
+  const text = await (await fetch(`${api.url}/metrics`)).text()
+  const line = text.split('\n').find((l) => l.startsWith(`${name} `))
+  return line ? Number(line.slice(name.length + 1)) : NaN
+}
+
+/** Waits (at most 10 s) until the condition holds. */
+async function until(ok: () => Promise<boolean>) {
+  const end = Date.now() + 10_000
+  while (!(await ok())) {
+    if (Date.now() > end) throw new Error('condition not met within 10 s')
+    await new Promise((r) => setTimeout(r, 50))
+  }
+}
+
 describe('the database goes away and comes back', () => {
   it('answers 503 in the usual error shape while PostgreSQL is down, and recovers without a restart', async () => {
     const signIn = await call('POST', '/api/auth/sign-in', { body: { email: 'ana@lab.test', password: PASSWORD } })
@@ -81,6 +97,31 @@ describe('the database goes away and comes back', () => {
     expect(again.status).toBe(200)
     expect(again.body.user.email).toBe('ana@lab.test')
     expect(api.proc.exitCode).toBeNull()
+  })
+
+  it('bypasses its caches while the database is away and uses them again, still honouring changes, once back', async () => {
+    const signIn = await call('POST', '/api/auth/sign-in', { body: { email: 'ana@lab.test', password: PASSWORD } })
+    const cookie = signIn.headers.get('set-cookie')!.split(';')[0]
+    await until(async () => (await metric('ebullio_change_feed_listening')) === 1)
+    cluster.stop()
+    // The listening connection broke with the others: the caches are emptied and bypassed, so the session is not
+    // answered from memory while nothing can be heard.
+    await until(async () => (await metric('ebullio_change_feed_listening')) === 0)
+    expect(await metric('ebullio_cache_entries{cache="sessions"}')).toBe(0)
+    expect((await call('GET', '/api/auth/me', { cookie })).status).toBe(503)
+    cluster.start()
+    await waitFor(`${api.url}/api/ready`, (s) => s === 200, 30_000)
+    // It listens again by itself, and its session cache serves again…
+    await until(async () => (await metric('ebullio_change_feed_listening')) === 1)
+    expect((await call('GET', '/api/auth/me', { cookie })).status).toBe(200)
+    const hits = await metric('ebullio_cache_hits{cache="sessions"}')
+    expect((await call('GET', '/api/auth/me', { cookie })).status).toBe(200)
+    expect(await metric('ebullio_cache_hits{cache="sessions"}')).toBe(hits + 1)
+    // …and hears changes: a session deleted behind its back is refused (as soon as the notification arrives).
+    const other = createDb(cluster.url)
+    await other.deleteFrom('user_session').execute()
+    await other.destroy()
+    await until(async () => (await call('GET', '/api/auth/me', { cookie })).status === 401)
   })
 
   it('readiness names migrations the database lacks', async () => {

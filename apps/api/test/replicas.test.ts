@@ -38,6 +38,7 @@ beforeAll(async () => {
     MAIL_POLL_MS: '50', // both workers poll hard, so they race for every message
     RATE_LIMIT_SIGNIN_PER_ACCOUNT: '4',
     RATE_LIMIT_SIGNIN_PER_IP: '1000',
+    CACHE_TTL_MS: '60000', // only the change notifications can end a cached session within this test
   }
   replicas.push(await startApi(env))
   replicas.push(await startApi(env))
@@ -116,6 +117,33 @@ describe('two API replicas behind haproxy on one database', () => {
       seen.add(String(r.headers['x-replica']))
     }
     expect([...seen].sort()).toEqual(['api1', 'api2'])
+  })
+
+  it('ends a session on both replicas when it is signed out on one (the other had it cached)', async () => {
+    const signIn = await fetch(`${replicas[0].url}/api/auth/sign-in`, {
+      method: 'POST',
+      headers: { Origin: PUBLIC_URL, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'ada@lab.test', password: PASSWORD }),
+    })
+    expect(signIn.status).toBe(200)
+    const cookie = signIn.headers.get('set-cookie')!.split(';')[0]
+    const me = (r: ApiProcess) => fetch(`${r.url}/api/auth/me`, { headers: { Cookie: cookie } }).then((x) => x.status)
+    for (const r of replicas) expect([await me(r), await me(r)]).toEqual([200, 200]) // now in both caches
+    const out = await fetch(`${replicas[0].url}/api/auth/sign-out`, {
+      method: 'POST',
+      headers: { Origin: PUBLIC_URL, Cookie: cookie },
+    })
+    expect(out.status).toBe(200)
+    expect(await me(replicas[0])).toBe(401) // the replica that ended it: before it answered
+    // The other replica: as soon as PostgreSQL's notification reaches it (normally before this request does; the
+    // loop only keeps a loaded machine from failing the test), and long before its cache's minute is over.
+    const until = Date.now() + 5000
+    let status = await me(replicas[1])
+    while (status !== 401 && Date.now() < until) {
+      await new Promise((r) => setTimeout(r, 20))
+      status = await me(replicas[1])
+    }
+    expect(status).toBe(401)
   })
 
   it('delivers every mail exactly once although both replicas run a mail worker', async () => {

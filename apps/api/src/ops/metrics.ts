@@ -4,9 +4,10 @@ import type pg from 'pg'
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client'
 import type { Database } from '../db/index.js'
 import { outboxStats } from '../repositories/mail-outbox.repository.js'
+import type { ChangeFeed } from './change-feed.js'
 
 /** Prometheus metrics of one app: requests, latency per route, errors, outbox depth and age, pool usage. */
-export function createMetrics(db: Kysely<Database>, pool?: pg.Pool, withProcessMetrics = false) {
+export function createMetrics(db: Kysely<Database>, pool?: pg.Pool, withProcessMetrics = false, changes?: ChangeFeed) {
   const registry = new Registry()
   if (withProcessMetrics) collectDefaultMetrics({ register: registry })
   const requests = new Counter({
@@ -65,6 +66,36 @@ export function createMetrics(db: Kysely<Database>, pool?: pg.Pool, withProcessM
     poolGauge('ebullio_db_pool_connections', 'Open database connections of this process', () => pool.totalCount)
     poolGauge('ebullio_db_pool_idle', 'Idle database connections of this process', () => pool.idleCount)
     poolGauge('ebullio_db_pool_waiting', 'Queries waiting for a database connection', () => pool.waitingCount)
+  }
+  if (changes) {
+    new Gauge({
+      name: 'ebullio_change_feed_listening',
+      help: '1 while the change feed listens (the caches are in use), 0 while they are bypassed',
+      registers: [registry],
+      collect() {
+        this.set(changes.live ? 1 : 0)
+      },
+    })
+    new Gauge({
+      name: 'ebullio_change_feed_reconnects',
+      help: 'Times the change feed lost its database connection since the process started',
+      registers: [registry],
+      collect() {
+        this.set(changes.stats.disconnects)
+      },
+    })
+    const perCache = (name: string, help: string, read: (c: { size: number; hits: number }) => number) =>
+      new Gauge({
+        name,
+        help,
+        labelNames: ['cache'],
+        registers: [registry],
+        collect() {
+          for (const [cache, c] of Object.entries(changes.cacheStats())) this.set({ cache }, read(c))
+        },
+      })
+    perCache('ebullio_cache_entries', 'Entries in an in-process cache (sessions, curve-sources)', (c) => c.size)
+    perCache('ebullio_cache_hits', 'Answers served from an in-process cache since the process started', (c) => c.hits)
   }
 
   // One outbox query per scrape, shared by the three gauges.
