@@ -1,4 +1,7 @@
+import { sha256 } from '@oslojs/crypto/sha2'
+import { encodeHexLowerCase } from '@oslojs/encoding'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { generateSessionToken, sessionIdOf } from '../src/auth/index.js'
 import {
   agent,
   createTestContext,
@@ -249,5 +252,17 @@ describe('errors and request hygiene', () => {
     expect(r.status).toBe(404)
     expect(r.headers['x-content-type-options']).toBe('nosniff')
     expect(r.headers['content-security-policy']).toContain("default-src 'self'")
+  })
+})
+
+describe('the stored session id', () => {
+  it('is the hex SHA-256 of the token (FIPS 180-2 test vectors), the same digest @oslojs/crypto gives', () => {
+    // FIPS 180-2, appendix B.1 and B.2 (one-block and two-block messages)
+    expect(sessionIdOf('abc')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad')
+    expect(sessionIdOf('abcdbcdecdefdefgefghfghighijhijkijkljklmklmnlmnomnopnopq')).toBe(
+      '248d6a61d20638b8e5c026930c3e6039a33ce45964ff2167f6ecedd419db06c1',
+    )
+    const token = generateSessionToken()
+    expect(sessionIdOf(token)).toBe(encodeHexLowerCase(sha256(new TextEncoder().encode(token))))
   })
 })
