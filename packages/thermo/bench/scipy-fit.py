@@ -4,7 +4,9 @@ The start vector says which: two values fit b12, b21; four fit b12, b21, b12T, b
 
 Same points, same weights, same objective: residuals (Tcalc - T)/sigmaT and (ycalc - y)/sigmaY, each point's
 bubble temperature at its own x1 and P under modified Raoult's law with NRTL; ln(P/Pa) = a - b/(T/K + c).
-Reads a JSON problem on stdin, prints a JSON result (median wall time of the fits, excluding start-up).
+Reads a JSON problem (one line) on stdin, prints a JSON result (median wall time of the fits, excluding start-up).
+With "rounds": true it then waits: each further line on stdin runs `repeats` fits again and prints one JSON line,
+so a caller can pair its own measurements with scipy's taken at the same moment (bench/joint-fit.ts).
 """
 import json
 import sys
@@ -51,7 +53,7 @@ def bubble(theta, prob):
 
 
 def main():
-    raw = json.load(sys.stdin)
+    raw = json.loads(sys.stdin.readline())
     pts = raw["points"]
     prob = {
         "x1": np.array([p["x1"] for p in pts]),
@@ -68,22 +70,29 @@ def main():
         T, y = bubble(theta, prob)
         return np.concatenate([(T - prob["T"]) * wT, (y - prob["y1"]) * wY])
 
-    times, cpu, sol = [], [], None
-    for _ in range(raw["repeats"]):
-        t0, c0 = time.perf_counter(), time.process_time()
-        sol = least_squares(residuals, np.array(raw["start"], dtype=float), method="lm", xtol=1e-12, ftol=1e-12, gtol=1e-12)
-        times.append((time.perf_counter() - t0) * 1000)
-        cpu.append((time.process_time() - c0) * 1000)
-    times.sort()
-    cpu.sort()
-    print(json.dumps({
-        "medianMs": times[len(times) // 2],
-        "cpuMs": cpu[len(cpu) // 2],
-        "params": sol.x.tolist(),
-        "cost": float(np.sum(sol.fun ** 2)),
-        "nfev": int(sol.nfev),
-        "success": bool(sol.success),
-    }))
+    def measure():
+        times, cpu, sol = [], [], None
+        for _ in range(raw["repeats"]):
+            t0, c0 = time.perf_counter(), time.process_time()
+            sol = least_squares(residuals, np.array(raw["start"], dtype=float), method="lm", xtol=1e-12, ftol=1e-12,
+                                gtol=1e-12)
+            times.append((time.perf_counter() - t0) * 1000)
+            cpu.append((time.process_time() - c0) * 1000)
+        times.sort()
+        cpu.sort()
+        print(json.dumps({
+            "medianMs": times[len(times) // 2],
+            "cpuMs": cpu[len(cpu) // 2],
+            "params": sol.x.tolist(),
+            "cost": float(np.sum(sol.fun ** 2)),
+            "nfev": int(sol.nfev),
+            "success": bool(sol.success),
+        }), flush=True)
+
+    measure()
+    if raw.get("rounds"):
+        for _ in sys.stdin:
+            measure()
 
 
 if __name__ == "__main__":

@@ -141,13 +141,37 @@ const SAME_BASIN = 1e-2
 const RANKING_POINTS = 30
 
 /**
+ * Above this many points (a joint fit over several data sets, or one long series), candidates that only start the
+ * bubble-point fit are refined on the RANKING_POINTS subset too: a start near the minimum is all they are for, and
+ * the bubble-point fit on every point settles it (measured: a third of a joint fit's time went into refining the
+ * candidates on all 90 points; see bench/README.md).
+ */
+const SUBSET_REFINEMENT_ABOVE = 2 * RANKING_POINTS
+
+/**
  * Cheap multi-start: rank the grid by activity cost (on at most RANKING_POINTS evenly spread points), refine the best
  * two, keep the distinct minima, best first. A refinement that comes within SAME_BASIN of a minimum already found is
  * stopped there: it would converge to that minimum.
  */
-function activityCandidates(data: FitData, layout: ParameterLayout, objectiveTolerance: number): LeastSquaresResult[] {
-  const problem = activityProblem(data, layout)
-  const ranking = data.n > RANKING_POINTS ? activityProblem(evenSubset(data, RANKING_POINTS), layout) : problem
+function activityCandidates(
+  data: FitData,
+  layout: ParameterLayout,
+  objectiveTolerance: number,
+  startOnly = false,
+): LeastSquaresResult[] {
+  const ranking = data.n > RANKING_POINTS ? activityProblem(evenSubset(data, RANKING_POINTS), layout) : null
+  const problem = startOnly && ranking && data.n > SUBSET_REFINEMENT_ABOVE ? ranking : activityProblem(data, layout)
+  if (!ranking) return refineCandidates(problem, problem, layout, objectiveTolerance)
+  return refineCandidates(ranking, problem, layout, objectiveTolerance)
+}
+
+/** Rank the starts by `ranking`'s cost, refine the best two with `problem` (see activityCandidates). */
+function refineCandidates(
+  ranking: LeastSquaresProblem,
+  problem: LeastSquaresProblem,
+  layout: ParameterLayout,
+  objectiveTolerance: number,
+): LeastSquaresResult[] {
   const r = new Float64Array(ranking.nResiduals)
   const ranked = layout.starts
     .map((p) => ({ p, cost: ranking.residuals(Float64Array.from(p), r) ? r.reduce((s, v) => s + v * v, 0) : Infinity }))
@@ -308,7 +332,12 @@ function searchFit(data: FitData, layout: ParameterLayout, objectiveKind: FitObj
     const problem = problemOf(data, layout, objectiveKind)
     return bestBubbleFit(problem, rankedStarts(problem, layout, 3))
   }
-  const candidates = activityCandidates(data, layout, objectiveKind === 'activity' ? 1e-11 : 1e-6)
+  const candidates = activityCandidates(
+    data,
+    layout,
+    objectiveKind === 'activity' ? 1e-11 : 1e-6,
+    objectiveKind !== 'activity',
+  )
   if (objectiveKind === 'activity') return candidates[0] ?? null
   const problem = problemOf(data, layout, objectiveKind)
   const starts = candidates.length > 0 ? candidates.slice(0, 2).map((c) => c.p) : layout.starts

@@ -59,10 +59,12 @@ export function modelName(model: FittableModel): string {
   return MODEL_NAMES[model]
 }
 
+/** The refusal of point i (0-based) of a fit's input. */
+const pointError = (i: number, text: string) => new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
+
 function checkPoint(pt: BinaryPoint, i: number): void {
-  function fail(text: string) {
-    return new ThermoError('invalid-input', `Point ${i + 1}: ${text}`)
-  }
+  // No closure per point: a fit checks every point, joint fits many.
+  const fail = (text: string) => pointError(i, text)
   if (pt === null || typeof pt !== 'object') throw fail('expected an object with T, P, x1 and y1 (y1 may be null).')
   if (!(Number.isFinite(pt.T) && pt.T > 0)) throw fail(`temperature must be a positive number of kelvins; got ${pt.T}.`)
   if (!(Number.isFinite(pt.P) && pt.P > 0)) throw fail(`pressure must be a positive number of pascals; got ${pt.P}.`)

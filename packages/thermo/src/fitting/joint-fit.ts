@@ -152,8 +152,11 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
   const fitted = (i: number) => !points[i].excluded && points[i].x1 > 0 && points[i].x1 < 1
   const mean = (v: number[]) => (v.length ? v.reduce((a, b) => a + b, 0) / v.length : NaN)
   const rms = (v: number[]) => Math.sqrt(mean(v.map((x) => x * x)))
+  // Each data set's fitted points, in one pass over the pooled points.
+  const rowsOf: number[][] = sets.map(() => [])
+  for (let i = 0; i < points.length; i++) if (fitted(i)) rowsOf[owner[i]].push(i)
   const dataSets = sets.map((s, k): JointDataSetStatistics => {
-    const rows = points.map((_, i) => i).filter((i) => owner[i] === k && fitted(i))
+    const rows = rowsOf[k]
     // The fit's own residuals (measured − calculated at the optimum): no bubble point is solved again.
     const values = (f: (i: number) => number | null | undefined) =>
       rows.map(f).filter((v): v is number => typeof v === 'number')

@@ -148,17 +148,64 @@ export function bubbleProblem(
     r[k] = (res[0] - measured[i]) * wCalc[i]
     if (withY(i)) r[k + 1] = (res[1] - d.y1[i]) * d.wY[i]
   }
+  // Levenberg–Marquardt asks for the Jacobian at the trial point whose residuals it has just accepted: the solved
+  // points of the last residual call are kept (what the sensitivities read: res[0], res[1], res[6] on the ideal
+  // isobaric path, point[0..3] on the others) and reused when the parameters are the same, so no bubble point is
+  // solved twice. Not for two-layer points (their three-phase memo carries more state).
+  const cacheable = d.het === undefined
+  const kept = new Float64Array(4 * d.n)
+  const keptAt = new Float64Array(m)
+  let keptValid = false
+  const keep = (i: number) => {
+    const o = 4 * i
+    if (general) {
+      kept[o] = point[0]
+      kept[o + 1] = point[1]
+      kept[o + 2] = point[2]
+      kept[o + 3] = point[3]
+    } else {
+      kept[o] = res[0]
+      kept[o + 1] = res[1]
+      kept[o + 2] = res[6]
+    }
+  }
+  const restore = (i: number) => {
+    const o = 4 * i
+    if (general) {
+      point[0] = kept[o]
+      point[1] = kept[o + 1]
+      point[2] = kept[o + 2]
+      point[3] = kept[o + 3]
+      res[0] = kept[o]
+      res[1] = kept[o + 1]
+    } else {
+      res[0] = kept[o]
+      res[1] = kept[o + 1]
+      res[6] = kept[o + 2]
+    }
+  }
+  const sameAsKept = (p: ArrayLike<number>) => {
+    if (!keptValid) return false
+    for (let j = 0; j < m; j++) if (p[j] !== keptAt[j]) return false
+    return true
+  }
   return {
     nResiduals: useY ? d.nRows : d.n,
     nParams: m,
     Tguess,
     rowOf,
     residuals(p, r) {
+      keptValid = false
       if (!layout.valid(p)) return false
       const model = layout.build(p)
       for (let i = 0; i < d.n; i++) {
         if (!solve(model, i)) return false
         fill(r, i)
+        if (cacheable) keep(i)
+      }
+      if (cacheable) {
+        for (let j = 0; j < m; j++) keptAt[j] = p[j]
+        keptValid = true
       }
       return true
     },
@@ -166,8 +213,10 @@ export function bubbleProblem(
       if (!layout.valid(p)) return false
       const model = layout.build(p)
       const pm = perturbedModels(layout, p, d.het !== undefined)
+      const reuse = sameAsKept(p)
       for (let i = 0; i < d.n; i++) {
-        if (!solve(model, i)) return false
+        if (reuse) restore(i)
+        else if (!solve(model, i)) return false
         fill(r, i)
         if (general) pointSensitivities(model, ctxOf(i), d.x1[i], pm, dT, dy)
         else if (!memo[i]) bubbleSensitivities(model, d, d.x1[i], pm, dlng, dT, dy)

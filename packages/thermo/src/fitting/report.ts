@@ -39,14 +39,13 @@ export function pointResiduals(
     // Each point's kind: its own flag (a joint fit over isobaric and isothermal data sets), else the fit's.
     const iso = k !== undefined ? isIsothermal(data, k) : (pt.isothermal ?? data.isothermal)
     const ctx = iso ? ctxP : ctxT
-    const wCalcOf = (k: number) => (iso ? data.wP[k] : data.wT[k])
     const hasY = pt.y1 !== null
     // Fitted points of the bubble objectives already have their deviations in r (weighted), as
     // calculated − measured; reported residuals are measured − calculated, hence the minus signs.
     const known = bubbleObjective && k !== undefined
     const ok = known || solvePoint(act, ctx, pt.x1, pt.T, Math.log(pt.P), pt.T)
     const measured = iso ? pt.P : pt.T
-    const dCalc = known ? -r[data.rowOf[k]] / wCalcOf(k) : ok ? measured - point[0] : NaN
+    const dCalc = known ? -r[data.rowOf[k]] / (iso ? data.wP[k] : data.wT[k]) : ok ? measured - point[0] : NaN
     const dy = !hasY ? null : known ? -r[data.rowOf[k] + 1] / data.wY[k] : ok ? pt.y1! - point[1] : NaN
     const out: PointResidual = {
       dT: iso ? null : dCalc,
