@@ -1,5 +1,8 @@
 #!/usr/bin/env node
 // `npm start`: prepare this machine, start PostgreSQL and the app, load the demo scenario, serve on loopback.
+// Settings besides the app's own (.env, environment): DATABASE_URL's port is the cluster's port; EBULLIO_PG_DIR puts
+// the cluster's files elsewhere than .data/pg; EBULLIO_SKIP_WEB_BUILD=1 serves the web app as last built (or none);
+// EBULLIO_SKIP_INSTALL=1 skips `pnpm install` when node_modules exists; DEMO_DATA=false loads no demo scenario.
 import { spawn } from 'node:child_process'
 import path from 'node:path'
 import { loadDotEnv, portOf } from './lib/env.mjs'
@@ -13,7 +16,7 @@ ensureDependencies()
 const env = { ...loadDotEnv(root), ...process.env }
 const dbUrl = env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54320/ebullio'
 const pg = startCluster({
-  dataDir: dataDirFor(root, 'pg'),
+  dataDir: env.EBULLIO_PG_DIR ? path.resolve(env.EBULLIO_PG_DIR) : dataDirFor(root, 'pg'),
   port: portOf(dbUrl, 54320),
   database: new URL(dbUrl).pathname.slice(1) || 'ebullio',
 })
@@ -34,8 +37,10 @@ try {
     log('loading the demo scenario (invented data; idempotent)')
     run(tsx, ['db/seeds/index.ts'], { env: appEnv })
   }
-  log('building the web app')
-  run('pnpm', ['--filter', '@ebullio/web', 'build', '--logLevel', 'warn'])
+  if (env.EBULLIO_SKIP_WEB_BUILD !== '1') {
+    log('building the web app')
+    run('pnpm', ['--filter', '@ebullio/web', 'build', '--logLevel', 'warn'])
+  }
 } catch (e) {
   pg.stop()
   console.error(e instanceof Error ? e.message : e)
