@@ -66,9 +66,9 @@ export class ChangeFeed {
     return this
   }
 
-  /** Resolves once the feed listens (tests; start-up need not wait: until then the caches are bypassed). */
+  /** Resolves once the feed listens, or at once with caching off (tests; start-up need not wait: until then the caches are bypassed). */
   ready(timeoutMs = 10_000): Promise<void> {
-    if (this.listening) return Promise.resolve()
+    if (this.listening || this.ttlMs <= 0) return Promise.resolve()
     return new Promise((resolve, reject) => {
       const t = setTimeout(() => {
         this.waiters.delete(done)
