@@ -20,6 +20,7 @@ import {
 import { seededRandom } from '@ebullio/thermo/random'
 import canonicalize from 'canonicalize'
 import { sql } from 'kysely'
+import { PDFParse } from 'pdf-parse'
 import { createHash } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { demoVaporPressure } from '../../../db/seeds/demo-systems.js'
@@ -427,6 +428,34 @@ describe('return for rework, resubmission and signature (four-eyes)', () => {
       'submit joint fit',
       'approve joint fit',
     ])
+  })
+
+  it('engineers read each member with its kind and condition: API, parameters export and printed report', async () => {
+    const expected = [
+      { dataSetId: ids.bar, kind: 'isobaric', nominalPressurePa: 101325, nominalTemperatureK: null },
+      { dataSetId: ids.iso, kind: 'isothermal', nominalPressurePa: null, nominalTemperatureK: T55 },
+    ]
+    const rec = (await lab.engineer.get(`/api/systems/${lab.systemId}/recommended-parameters`).expect(200)).body
+    expect(rec.dataSets).toMatchObject(expected)
+    expect(rec.dataSets.map((d: { pointCount: number }) => d.pointCount)).toEqual([X1.length, X1.length])
+    expect(rec.vaporModel).toEqual({ kind: 'ideal' })
+    const json = (await lab.engineer.get(`/api/data-sets/${ids.iso}/export/parameters.json`).expect(200)).body
+    expect(json.systemRecommendedSet.dataSets).toMatchObject(expected)
+    const csv = (await lab.engineer.get(`/api/data-sets/${ids.iso}/export/parameters.csv`).expect(200)).text
+    expect(csv).toContain(
+      `Acetone/methanol at 1 atm v1 (isobaric at 101.325 kPa); Acetone/methanol at 55 °C v1 (isothermal at 328.15 K (55.00 °C))`,
+    )
+    expect(csv).toMatch(/,vapour_model,ideal gas \(modified Raoult’s law\),/)
+    // the printed report of a member names every member with its kind and condition, and the set's parameters
+    const res = await lab.engineer.get(`/api/data-sets/${ids.iso}/report.pdf`).responseType('blob').expect(200)
+    const parser = new PDFParse({ data: new Uint8Array(res.body as Buffer) })
+    const text = (await parser.getText()).text.replace(/\s+/g, ' ')
+    await parser.destroy()
+    expect(text).toContain('Acetone/methanol at 1 atm 1 isobaric at 101.325 kPa 9')
+    expect(text).toContain('Acetone/methanol at 55 °C 1 isothermal at 328.15 K (55.00 °C) 9')
+    expect(text).toContain('This version is one of the data sets it rests on.')
+    for (const p of rec.parameters as { name: string; value: number }[])
+      expect(text).toContain(`${p.name} = ${p.value.toPrecision(6).replace(/^-/, '−')}`)
   })
 
   it('verifies every signature in its own format: a signature made in format 1 still verifies', async () => {

@@ -5,6 +5,8 @@
 import { sql } from 'kysely'
 import { PDFParse } from 'pdf-parse'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { JOINT_TITLES } from '../../../db/seeds/joint-scenario.js'
+import { VIRIAL_TITLE } from '../../../db/seeds/lab-scenario-vapour.js'
 import { seedLab } from '../../../db/seeds/lab.js'
 import { DEMO_PASSWORD, seedUsers } from '../../../db/seeds/users.js'
 import { createTestContext, resetDatabase, signedInAgent, type TestContext } from './helpers.js'
@@ -178,5 +180,70 @@ describe('stale results in the report', () => {
       rerun.consistency.filter((c: { stale: boolean }) => c.stale).length
     expect((await pdfText(analyst, ids.draft)).text.match(/STALE computed on/g)?.length ?? 0).toBe(stillStale)
     expect(ex.body.rowVersion).toBeGreaterThan(fit.body.rowVersion)
+  })
+})
+
+describe("the system's recommended parameter set and the vapour model in the report", () => {
+  it('prints the signed set of the system: parameters, members with their condition, range, signer, digest', async () => {
+    // the demo's set (db/seeds/joint-scenario.ts): NRTL over methanol/water at 1 atm and 40 kPa, both approved
+    const row = await t.db
+      .selectFrom('data_set')
+      .select(['id', 'system_id'])
+      .where('title', '=', JOINT_TITLES.vacuum)
+      .executeTakeFirstOrThrow()
+    const set = (await engineer.get(`/api/systems/${row.system_id}/recommended-parameters`).expect(200)).body
+    expect(
+      set.dataSets.map((d: Record<string, unknown>) => [d.kind, d.nominalPressurePa, d.nominalTemperatureK]),
+    ).toEqual([
+      ['isobaric', 101325, null],
+      ['isobaric', 40000, null],
+    ])
+    expect(set.vaporModel).toEqual({ kind: 'ideal' })
+    const { text } = await pdfText(engineer, row.id)
+    expect(text).toContain(`The system's recommended parameter set: ${set.label}`)
+    expect(text).toContain('This version is one of the data sets it rests on.')
+    // every parameter as stored, 6 significant figures, with its unit (the temperature terms in J/(mol·K))
+    expect(set.parameters.map((p: { name: string }) => p.name)).toEqual(['b12', 'b21', 'b12T', 'b21T'])
+    for (const p of set.parameters as { name: string; value: number; standardError: number }[]) {
+      const unit = p.name.endsWith('T') ? 'J/(mol·K)' : 'J/mol'
+      expect(text).toContain(
+        `${p.name} = ${p.value.toPrecision(6).replace(/^-/, '−')} ± ${p.standardError.toPrecision(3)} ${unit}`,
+      )
+    }
+    expect(text).toContain('b12(T) = b12 + b12T (T - 298.15 K)')
+    expect(text).toContain(
+      `T ${set.range.Tmin.toFixed(2)} to ${set.range.Tmax.toFixed(2)} K; P ${(set.range.Pmin / 1000).toFixed(3)} to ${(set.range.Pmax / 1000).toFixed(3)} kPa`,
+    )
+    for (const d of set.dataSets as { title: string; version: number; nominalPressurePa: number; pointCount: number }[])
+      expect(text).toContain(
+        `${d.title} ${d.version} isobaric at ${(d.nominalPressurePa / 1000).toFixed(3)} kPa ${d.pointCount}`,
+      )
+    expect(text).toContain(`by ${set.signedBy}`)
+    expect(text).toContain(set.digest.match(/.{16}/g)!.join(' '))
+    expect(text).toContain('Vapour model ideal gas (modified Raoult’s law)')
+  })
+
+  it('leaves the block out for a system without a signed set', async () => {
+    const { text } = await pdfText(engineer, ids.approved)
+    expect(text).not.toContain("The system's recommended parameter set")
+  })
+
+  it('prints a virial-vapour data set with its vapour model on every result, and its fits not stale', async () => {
+    const row = await t.db
+      .selectFrom('data_set')
+      .select(['id'])
+      .where('title', '=', VIRIAL_TITLE)
+      .executeTakeFirstOrThrow()
+    const detail = (await analyst.get(`/api/data-sets/${row.id}`).expect(200)).body
+    expect(detail.fits.length).toBeGreaterThan(0)
+    expect(detail.fits.every((f: { stale: boolean }) => !f.stale)).toBe(true)
+    const { text } = await pdfText(analyst, row.id)
+    // the report compares the fits with the same point set as the API (vapour model included): nothing is stale
+    expect(text).not.toContain('STALE')
+    const virial = 'virial gas, Tsonopoulos second virial coefficients'
+    expect(text).toContain(`Vapour model ${virial}`)
+    expect(text.split(`Vapour: ${virial}`).length - 1).toBe(detail.fits.length)
+    expect(text).toContain(`Computed under the data set's vapour model: ${virial}.`)
+    expect(text).toContain('γ–φ, virial vapour (Tsonopoulos)')
   })
 })

@@ -2,6 +2,7 @@ import { z } from 'zod'
 import type { FitParameterDto, FitStatisticsDto } from './dto.js'
 import { FIT_MODEL_LABELS, labelWithNote } from './fit-label.js'
 import { labId, PRESSURE_UNITS } from './lab.js'
+import type { DataKind, VaporModelChoice } from './data-kind.js'
 
 /**
  * A system's joint parameter sets: one NRTL or Wilson parameter set fitted over several data sets of one system
@@ -165,11 +166,19 @@ export interface RecommendedParameterSetDto<D = string> {
   approvedAt: D | null
   signedBy: string | null
   digest: string | null
+  /** the vapour model the set was fitted under (and its curves are computed with) */
+  vaporModel: VaporModelChoice
+  /** the contributing data sets in fit order, each with its kind and the condition it was measured at */
   dataSets: {
     dataSetId: string
     title: string
     version: number
+    /** isobaric (T–x–y, T–x) or isothermal (P–x–y, P–x) */
+    kind: DataKind
+    /** Pa: the nominal pressure (isobaric; an isothermal set may record one too) */
     nominalPressurePa: number | null
+    /** K: the temperature of an isothermal set, else null */
+    nominalTemperatureK: number | null
     pointCount: number
   }[]
 }
@@ -200,4 +209,22 @@ export function pressureAgainstRange(P: number, range: { Pmin: number; Pmax: num
   if (P < range.Pmin * (1 - PRESSURE_RANGE_SLACK)) return 'below'
   if (P > range.Pmax * (1 + PRESSURE_RANGE_SLACK)) return 'above'
   return 'inside'
+}
+
+/**
+ * A contributing data set's kind and the condition it was measured at, in SI words for records and exports:
+ * "isobaric at 101.325 kPa", "isothermal at 328.15 K (55.00 °C)".
+ */
+export function memberConditionText(m: {
+  kind: 'isobaric' | 'isothermal'
+  nominalPressurePa: number | null
+  nominalTemperatureK: number | null
+}): string {
+  if (m.kind === 'isothermal')
+    return m.nominalTemperatureK === null
+      ? 'isothermal (temperature not recorded)'
+      : `isothermal at ${m.nominalTemperatureK.toFixed(2)} K (${(m.nominalTemperatureK - 273.15).toFixed(2)} °C)`
+  return m.nominalPressurePa === null
+    ? 'isobaric (pressure not recorded)'
+    : `isobaric at ${(m.nominalPressurePa / 1000).toFixed(3)} kPa`
 }

@@ -15,7 +15,7 @@ import {
   slugify,
   type CsvCell,
 } from '@ebullio/schemas/csv-exports'
-import { dataKindOf, fitLabel } from '@ebullio/schemas'
+import { dataKindOf, fitLabel, memberConditionText, vaporModelLabel } from '@ebullio/schemas'
 
 /** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
 export function fileStem(d: { title: string; version: number }): string {
@@ -290,7 +290,8 @@ export async function parametersCsv(db: Db, user: SessionUser, id: string): Prom
         setRow('temperature_max', rs.range.Tmax, null, 'K'),
         setRow('pressure_min', rs.range.Pmin, null, 'Pa'),
         setRow('pressure_max', rs.range.Pmax, null, 'Pa'),
-        setRow('data_sets', rs.dataSets.map((d) => `${d.title} v${d.version}`).join('; ')),
+        setRow('vapour_model', vaporModelLabel(rs.vaporModel)),
+        setRow('data_sets', rs.dataSets.map((d) => `${d.title} v${d.version} (${memberConditionText(d)})`).join('; ')),
         setRow('signed_by', rs.signedBy),
         setRow('signed_at', rs.approvedAt ? new Date(rs.approvedAt).toISOString() : null),
         setRow('signature_digest', rs.digest, null, 'SHA-256'),

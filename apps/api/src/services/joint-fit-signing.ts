@@ -8,7 +8,14 @@
  * Signing supersedes the system's previous recommended set, which stays in the record. A lead chemist may instead
  * return a submitted set for rework, signed with a reason; its author is told by mail and may submit it again.
  */
-import { jointFitLabel, pressureAgainstRange, webLink, type RecommendedParameterSetDto } from '@ebullio/schemas'
+import {
+  dataKindOf,
+  jointFitLabel,
+  pressureAgainstRange,
+  webLink,
+  type RecommendedParameterSetDto,
+  type VaporModelChoice,
+} from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
 import type { Db } from '../db/index.js'
@@ -306,7 +313,9 @@ export async function recommendedSetOf(db: Db, systemId: string): Promise<Recomm
       dataSetId: d.id,
       title: d.title,
       version: d.version,
+      kind: dataKindOf(d.layout),
       nominalPressurePa: d.nominalPressurePa,
+      nominalTemperatureK: d.nominalTemperatureK,
       pointCount: m.pointCount,
     })
   }
@@ -325,8 +334,17 @@ export async function recommendedSetOf(db: Db, systemId: string): Promise<Recomm
     approvedAt: fit.approvedAt,
     signedBy: approval?.signerName ?? null,
     digest: approval?.digest ?? null,
+    vaporModel: vaporChoiceOf(fit.options.vapor),
     dataSets,
   }
+}
+
+/** The data-set style choice of the vapour model a joint fit stored (thermo's vapour, with its constants). */
+export function vaporChoiceOf(vapor: unknown): VaporModelChoice {
+  const v = vapor as { kind?: string; poynting?: boolean } | undefined
+  return v?.kind === 'virial'
+    ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true }
+    : { kind: 'ideal' }
 }
 
 /** The recommended set, or 404 for a system without one. */

@@ -18,7 +18,8 @@ import { findReport, insertReport } from '../repositories/reports.repository.js'
 import { cautionFor } from './catalogue.service.js'
 import { contentDigest } from './digest.js'
 import { computedOn, pointSetOf, withStale } from './point-set.js'
-import { fileStem } from './exports.service.js'
+import { fileStem, TEMPERATURE_FORM } from './exports.service.js'
+import { recommendedSetOf } from './joint-fit-signing.js'
 import { visibleOrNotFound } from './lab-access.js'
 import { reportPdf } from './report/report-pdf.js'
 import type { ReportCurve, ReportModel } from './report/report-model.js'
@@ -75,7 +76,8 @@ async function gatherReport(
   const methodIds = [...new Set(calibrations.map((c) => c.gcMethodId))]
   const gcMethods = (await Promise.all(methodIds.map((m) => findGcMethod(db, m)))).filter((m) => m !== undefined)
   const points = await listPoints(db, d.id)
-  const current = pointSetOf(points).digest
+  // the data set's vapour model is part of its point set (a virial set's fits were stored with it)
+  const current = pointSetOf(points, d.vaporModel).digest
   const fits = (await listFits(db, d.id)).map((f) => withStale(f, current))
   const { curve, curveNote } = recommendedCurve(d, fits, inputs)
   const c = (x: typeof inputs.system.component1) => ({ name: x.name, cas: x.casNumber, formula: x.formula })
@@ -105,7 +107,15 @@ async function gatherReport(
     digest,
     outlierIds: [...approvals].reverse().find((a) => a.meaning === 'approved')?.outliers?.pointIds ?? [],
     caution: cautionFor(d.vaporModel),
+    recommendedSet: await reportedSystemSet(db, d.systemId),
   }
+}
+
+/** The system's signed recommended parameter set with its temperature form and the caution worded for its vapour. */
+async function reportedSystemSet(db: Db, systemId: string): Promise<ReportModel['recommendedSet']> {
+  const r = await recommendedSetOf(db, systemId)
+  if (!r) return null
+  return { ...r, temperatureForm: TEMPERATURE_FORM[r.model] ?? null, caution: cautionFor(r.vaporModel) }
 }
 
 function recommendedCurve(

@@ -4,7 +4,7 @@ import type { CalibrationSummary, GcMethodRecord } from '../../repositories/cali
 import type { CommentRecord } from '../../repositories/comments.repository.js'
 import type { DataSetRecord } from '../../repositories/datasets.repository.js'
 import type { ConsistencyRecord, FitRecord } from '../../repositories/fits.repository.js'
-import type { PointDto } from '@ebullio/schemas'
+import type { PointDto, RecommendedParameterSetDto } from '@ebullio/schemas'
 
 export interface ReportCurve {
   /** the fit the curve is computed from */
@@ -51,6 +51,11 @@ export interface ReportModel {
   /** the outlier flags as signed by the latest approval, else null */
   outlierIds: string[]
   caution: string
+  /**
+   * The system's signed recommended parameter set (a joint fit over several data sets) with how its energies
+   * depend on temperature, or null when the system has none.
+   */
+  recommendedSet: (RecommendedParameterSetDto<Date> & { temperatureForm: string | null; caution: string }) | null
 }
 
 export interface ComponentLine {

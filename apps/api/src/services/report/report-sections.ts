@@ -4,6 +4,7 @@ import type { Content, TableCell } from 'pdfmake/interfaces'
 import { computedOn } from '../point-set.js'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
+import { systemSetBlock } from './report-system-set.js'
 import { layoutLabel, objectiveLabel, vaporModelLabel } from '@ebullio/schemas'
 import {
   calibrationModelName,
@@ -209,6 +210,7 @@ export function fitsSection(m: ReportModel): Content {
           )
         : none('No fits have been run.'),
       { text: m.caution, style: 'small', italics: true, margin: [0, 4, 0, 0] },
+      ...systemSetBlock(m),
     ],
   }
 }
@@ -250,6 +252,11 @@ export function consistencySection(m: ReportModel): Content {
   return {
     stack: [
       heading('4', 'Thermodynamic consistency'),
+      {
+        text: `Computed under the data set's vapour model: ${vaporModelLabel(m.dataSet.vaporModel)}. A result computed under another vapour model or on other points is flagged as stale.`,
+        style: 'small',
+        margin: [0, 0, 0, 4],
+      },
       rows.length
         ? grid(['Test', 'Verdict', 'Result', 'Criterion', 'Run'], rows, [86, 40, '*', 100, 92])
         : none('No consistency tests have been run on this version.'),

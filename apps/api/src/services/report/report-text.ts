@@ -16,7 +16,17 @@ const CALIBRATION_MODELS: Record<string, string> = {
 }
 export const calibrationModelName = (m: string) => CALIBRATION_MODELS[m] ?? m
 
-export const PARAMETER_UNITS: Record<string, string> = { a12: 'J/mol', a21: 'J/mol', b12: 'J/mol', b21: 'J/mol' }
+export const PARAMETER_UNITS: Record<string, string> = {
+  a12: 'J/mol',
+  a21: 'J/mol',
+  b12: 'J/mol',
+  b21: 'J/mol',
+  // temperature terms of a joint parameter set's energies (about 298.15 K)
+  a12T: 'J/(mol·K)',
+  a21T: 'J/(mol·K)',
+  b12T: 'J/(mol·K)',
+  b21T: 'J/(mol·K)',
+}
 
 /** A signed number with the true minus sign, no sign on a value that rounds to zero. */
 export function num(v: number | null | undefined, decimals: number): string {
