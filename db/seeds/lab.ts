@@ -26,6 +26,7 @@ import { vapourAndIsothermalDataSets } from './lab-scenario-vapour.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { calibrationCsv } from './gc-generator.js'
 import { jointScenario } from './joint-scenario.js'
+import { mixedJointScenario } from './joint-mixed-scenario.js'
 import { DEMO_USERS } from './users.js'
 
 export interface SeedContext {
@@ -146,4 +147,5 @@ export async function seedLab(db: Kysely<Database>, ids: Record<string, string>)
   await scenarioDataSets({ db: kdb, config, users, systemIds })
   await jointScenario({ db: kdb, config, users, systemIds })
   await vapourAndIsothermalDataSets({ db: kdb, config, users, systemIds })
+  await mixedJointScenario({ db: kdb, config, users, systemIds })
 }

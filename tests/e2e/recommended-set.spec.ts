@@ -129,6 +129,25 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
   await pressure.press('Tab')
   await expect(page.getByTestId('recommended-basis')).toContainText('signed by Dr. Amara Nwosu')
   await expect(page.getByTestId('recommended-range-warning')).toHaveCount(0)
+  // Each data set the set rests on, with its kind and the condition it was measured at (the server's answer).
+  const systemIdNow = page.url().match(/\/systems\/([\w-]+)/)![1]
+  const set = await (await page.request.get(`/api/systems/${systemIdNow}/recommended-parameters`)).json()
+  expect(set.dataSets.map((d: { title: string }) => d.title)).toEqual([ATM, VACUUM])
+  const members = page.getByTestId('recommended-members').locator('li')
+  await expect(members).toHaveCount(2)
+  await expect(members.nth(0)).toHaveText(`${ATM} v1 · isobaric at 101.33 kPa · ${set.dataSets[0].pointCount} points`)
+  await expect(members.nth(1)).toHaveText(`${VACUUM} v1 · isobaric at 40 kPa · ${set.dataSets[1].pointCount} points`)
+  // The vapour model every figure on the page is computed with, and the warning that the version shown was reduced
+  // with an ideal vapour although a virial one moves its bubble points by more than their uncertainty (the server's
+  // numbers for that version: the demo's methanol/water points at 1 atm or 40 kPa).
+  await expect(page.getByTestId('vapour-basis')).toContainText('Vapour: ideal gas (modified Raoult’s law).')
+  const catalogue = await (await page.request.get('/api/catalogue?q=methanol')).json()
+  const shown = catalogue.items.find((i: { system: { id: string } }) => i.system.id === systemIdNow).approved[0]
+  const vc = (await (await page.request.get(`/api/data-sets/${shown.dataSetId}`)).json()).vapourCorrection
+  expect(vc.exceeds).toBe(true)
+  await expect(page.getByTestId('vapour-warning')).toContainText(
+    `at the points of “${shown.title}” a virial vapour would move the bubble points by up to ${vc.maxAbsDT.toFixed(3)} K and y₁ by up to ${vc.maxAbsDy.toFixed(4)}`,
+  )
   await snap(page, 'joint-04-engineer-70kpa')
 
   // Inside the range the curve on screen (computed in the browser) equals the server engine's bubble points with

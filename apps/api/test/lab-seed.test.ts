@@ -38,6 +38,25 @@ describe('demo scenario (invented data)', () => {
       join joint_fit_approval a on a.joint_fit_id = j.id join app_user s on s.id = a.signer_id
       join app_user r on r.id = j.run_by`.execute(t.db)
     expect(joint.rows).toEqual([{ state: 'approved', signer: 'Dr. Tobias Lindqvist', runner: 'Dr. Amara Nwosu' }])
+    // the mixed joint fit of acetone/methanol (joint-mixed-scenario.ts): 1 atm isobaric + 55 °C isothermal, submitted
+    const mixed = await sql<{ id: string; state: string; activity: Record<string, number> }>`
+      select j.id, j.state, j.activity from joint_fit j join binary_system b on b.id = j.system_id
+      join component c on c.id = b.component1_id where c.name = 'acetone'`.execute(t.db)
+    expect(mixed.rows.map((r) => r.state)).toEqual(['submitted'])
+    const members = await sql<{ layout: string; p: number | null; tk: number | null; n: number }>`
+      select d.layout, d.nominal_pressure_pa::float8 as p, d.nominal_temperature_k::float8 as tk, m.point_count as n
+      from joint_fit_member m join data_set d on d.id = m.data_set_id
+      where m.joint_fit_id = ${mixed.rows[0].id} order by m.position`.execute(t.db)
+    expect(members.rows.map((m) => [m.layout, m.p, m.tk])).toEqual([
+      ['txy', 101325, null],
+      ['pxy', null, 328.15],
+    ])
+    // generated from SVNA 7th ed. Table 12.5's Wilson energies (a12 = −161.88 cal/mol, a21 = 583.11 cal/mol) plus
+    // noise: at 55 °C the fitted temperature-dependent energies come back near them (within 250 J/mol)
+    const a = mixed.rows[0].activity
+    const at = (k: 'a12' | 'a21') => a[k] + a[`${k}T`] * (328.15 - 298.15)
+    expect(Math.abs(at('a12') - -161.88 * 4.184)).toBeLessThan(250)
+    expect(Math.abs(at('a21') - 583.11 * 4.184)).toBeLessThan(250)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)

@@ -168,6 +168,8 @@ export interface RecommendedParameterSetDto<D = string> {
   digest: string | null
   /** the vapour model the set was fitted under (and its curves are computed with) */
   vaporModel: VaporModelChoice
+  /** thermo's vapour as the fit used it (a virial vapour with the components' critical data it read), for clients that compute with the set */
+  vapor: { kind: string } & Record<string, unknown>
   /** the contributing data sets in fit order, each with its kind and the condition it was measured at */
   dataSets: {
     dataSetId: string

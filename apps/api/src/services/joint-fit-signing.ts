@@ -335,6 +335,7 @@ export async function recommendedSetOf(db: Db, systemId: string): Promise<Recomm
     signedBy: approval?.signerName ?? null,
     digest: approval?.digest ?? null,
     vaporModel: vaporChoiceOf(fit.options.vapor),
+    vapor: (fit.options.vapor as RecommendedParameterSetDto['vapor'] | undefined) ?? { kind: 'ideal' },
     dataSets,
   }
 }

@@ -6,13 +6,16 @@ import type {
   ApprovedVersionDto,
   CatalogueEntryDto,
   Citation,
+  DataKind,
   ComponentDto,
   FitDto,
   PointDto,
   RecommendedParameterSetDto,
   SystemDto,
+  VaporModelChoice,
 } from '@ebullio/schemas'
 import { api, query } from './client'
+import type { VapourCorrection } from './datasets'
 
 /** A pure component as the catalogue shows it (the API's own wire type, from @ebullio/schemas). */
 export type CatalogueComponent = ComponentDto
@@ -24,7 +27,20 @@ export type CatalogueEntry = CatalogueEntryDto
 /** The documented `ebullio-parameters/1` export of an approved data set (docs/csv-formats.md). */
 export interface ParametersExport {
   format: string
-  dataSet: { id: string; title: string; version: number; state: string; nominalPressurePa: number }
+  dataSet: {
+    id: string
+    title: string
+    version: number
+    state: string
+    /** Pa; null for an isothermal set that recorded none */
+    nominalPressurePa: number | null
+    /** isobaric (T–x–y, T–x) or isothermal (P–x–y, P–x); older exports: absent (isobaric) */
+    kind?: DataKind
+    /** K, isothermal sets */
+    nominalTemperatureK?: number | null
+    /** the vapour model the data set chose (its fits state their own as `vapor`) */
+    vaporModel?: VaporModelChoice
+  }
   system: {
     component1: { name: string; cas: string | null; liquidMolarVolume: number | null }
     component2: { name: string; cas: string | null; liquidMolarVolume: number | null }
@@ -45,6 +61,8 @@ export interface ParametersExport {
     activity: Record<string, unknown> & { kind: string }
     parameters: { name: string; value: number; standardError: number; unit: string }[]
     statistics: { rmsT?: number; rmsY?: number; aic?: number; converged?: boolean }
+    /** thermo's vapour the fit was made with (a virial vapour carries the critical data it used) */
+    vapor?: { kind: string } & Record<string, unknown>
     points: number
     runAt: string
   }[]
@@ -77,6 +95,11 @@ export type MeasuredPoint = Pick<
 export interface MeasuredData {
   points: MeasuredPoint[]
   fits: Pick<FitDto, 'id' | 'pointIds' | 'residuals'>[]
+  /**
+   * How far a virial vapour would move this ideal-vapour data set's bubble points, when that exceeds their
+   * measurement uncertainty (`exceeds`, with the server's message); null when it does not apply.
+   */
+  vapourCorrection?: VapourCorrection | null
 }
 
 const base = (id: string) => `/api/data-sets/${encodeURIComponent(id)}`

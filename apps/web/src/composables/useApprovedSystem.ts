@@ -1,7 +1,7 @@
 import { computed, ref, shallowRef, watch } from 'vue'
 import { useRoute } from 'vue-router'
 import type { CatalogueEntry, MeasuredData, ParametersExport } from '../api/catalogue'
-import { errorText, SYSTEM_SET_PREFIX } from '../components/design/design-model'
+import { designPressureOf, errorText, SYSTEM_SET_PREFIX } from '../components/design/design-model'
 import { useCatalogueStore } from '../stores/catalogue'
 
 /**
@@ -51,7 +51,8 @@ export function useApprovedSystem() {
       fitId.value = systemSet
         ? SYSTEM_SET_PREFIX + systemSet.id
         : (params.value.recommendedFitId ?? params.value.fits[0]?.id ?? null)
-      pressurePa.value = params.value.dataSet.nominalPressurePa
+      // an isothermal version opens at the pressure its equimolar liquid boils at, at its temperature
+      pressurePa.value = designPressureOf(params.value, fitId.value)
     } catch (e) {
       loadError.value = errorText(e)
     }

@@ -4,6 +4,7 @@ import { extrapolationItems, pressureVerdict, type PressureVerdict } from '../co
 import {
   diagramsAt,
   errorText,
+  fitVapourLabel,
   measuredForPlot,
   otherFitCurves,
   systemFromParameters,
@@ -84,9 +85,21 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   /** The fit's name exactly as the lab screens give it (sent by the server, one shared rule). */
   const modelLabel = computed(() => built.value?.fit?.label ?? '')
   /** Measured points are drawn only at (within 0.5 % of) the pressure they were measured at. */
-  const atMeasuredPressure = computed(
-    () => !!params.value && Math.abs(pressurePa.value / params.value.dataSet.nominalPressurePa - 1) < 0.005,
-  )
+  // An isothermal set's points lie at one temperature, not one pressure: never on a constant-pressure diagram.
+  const atMeasuredPressure = computed(() => {
+    const P = params.value?.dataSet.nominalPressurePa
+    return !!P && params.value?.dataSet.kind !== 'isothermal' && Math.abs(pressurePa.value / P - 1) < 0.005
+  })
+  /** The vapour model every number on the page is computed with: the chosen fit's (or the system set's). */
+  const vapourLabel = computed(() => (built.value?.fit ? fitVapourLabel(built.value.fit) : ''))
+  /**
+   * The data set uses an ideal vapour although a virial one would move its bubble points by more than their
+   * measurement uncertainty (the server's check, thermo's vaporCorrectionSize); null when that is not so.
+   */
+  const vapourWarning = computed(() => {
+    const c = measured.value?.vapourCorrection
+    return c?.exceeds ? c : null
+  })
   const plotPoints = computed(() =>
     measured.value && atMeasuredPressure.value ? measuredForPlot(measured.value, fitId.value) : [],
   )
@@ -114,5 +127,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
     atMeasuredPressure,
     plotPoints,
     others,
+    vapourLabel,
+    vapourWarning,
   }
 }

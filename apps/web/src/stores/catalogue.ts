@@ -47,6 +47,7 @@ export const useCatalogueStore = defineStore('catalogue', () => {
     const m = {
       points: r.points,
       fits: r.fits.map((f) => ({ id: f.id, pointIds: f.pointIds, residuals: f.residuals })),
+      vapourCorrection: r.vapourCorrection ?? null,
     }
     measured.value[dataSetId] = m
     return m

@@ -161,15 +161,18 @@ describe('catalogue store', () => {
     expect(catalogueApi.parameters).toHaveBeenCalledTimes(1)
   })
 
-  it('keeps only id, points and residuals of the measured fits', async () => {
+  it('keeps only id, points and residuals of the measured fits, and the vapour-correction check', async () => {
+    const vc = { exceeds: true, kind: 'isobaric', maxAbsDy: 0.008, maxAbsDT: 0.26, maxAbsDP: null }
     mocked(catalogueApi.measured).mockResolvedValue({
       points: [{ id: 'p1' }],
       fits: [{ id: 'f1', pointIds: ['p1'], residuals: [0.1], parameters: { a: 1 } }],
-    })
+      vapourCorrection: vc,
+    } as never)
     const c = useCatalogueStore()
     expect(await c.measuredOf('d1')).toEqual({
       points: [{ id: 'p1' }],
       fits: [{ id: 'f1', pointIds: ['p1'], residuals: [0.1] }],
+      vapourCorrection: vc,
     })
   })
 })

@@ -2,9 +2,10 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
-import { labelWithNote } from '@ebullio/schemas'
+import { labelWithNote, vaporModelLabel } from '@ebullio/schemas'
 import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
+  bubblePressure,
   bubbleTemperature,
   fenske,
   findAzeotropes,
@@ -41,6 +42,7 @@ export function systemSetAsFit(p: ParametersExport): ExportedFit | null {
     label: labelWithNote(r.label, 'recommended for the system'),
     recommended: false,
     activity: r.activity,
+    vapor: r.vapor ?? { kind: 'ideal' },
     parameters: r.parameters.map((q) => ({ ...q, standardError: q.standardError ?? 0 })),
     statistics: {},
     points: r.dataSets.reduce((n, d) => n + d.pointCount, 0),
@@ -68,13 +70,41 @@ export function systemFromParameters(
   const vp = [byIndex(1), byIndex(2)].map(
     ({ source: _s, component: _c, ...m }) => m as unknown as VaporPressureModel,
   ) as [VaporPressureModel, VaporPressureModel]
+  // The fit's own vapour: a virial vapour makes every bubble point, diagram and design calculation γ–φ.
+  const vapor = fit.vapor?.kind === 'virial' ? { vapor: fit.vapor as unknown as BinarySystem['vapor'] } : {}
   return {
     system: {
       vaporPressure: vp,
       activity: fit.activity as unknown as ActivityModel,
       names: [p.system.component1.name, p.system.component2.name],
+      ...vapor,
     },
     fit,
+  }
+}
+
+/** The vapour model a fit (or the system's set) computes with, in words: "ideal gas (modified Raoult’s law)", … */
+export function fitVapourLabel(fit: Pick<ExportedFit, 'vapor'>): string {
+  const v = fit.vapor
+  return vaporModelLabel(
+    v?.kind === 'virial' ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true } : undefined,
+  )
+}
+
+/**
+ * The pressure (Pa) the design screens open at for a version: its nominal pressure; for an isothermal set without
+ * one, the model's bubble pressure of the equimolar liquid at the set's temperature (rounded to 0.1 kPa), so the
+ * constant-pressure diagrams start where the measured mixture boils; 1 atm when neither can be had.
+ */
+export function designPressureOf(p: ParametersExport, fitId?: string | null): number {
+  if (p.dataSet.nominalPressurePa) return p.dataSet.nominalPressurePa
+  const T = p.dataSet.nominalTemperatureK
+  if (!T) return 101325
+  try {
+    const P = bubblePressure(systemFromParameters(p, fitId).system, { T, x1: 0.5 }).P
+    return Number.isFinite(P) && P > 0 ? Math.round(P / 100) * 100 : 101325
+  } catch {
+    return 101325
   }
 }
 

@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest'
 import type { ParametersExport } from '../../api/catalogue'
-import { SYSTEM_SET_PREFIX, systemFromParameters, systemSetAsFit } from './design-model'
+import { bubblePressure, bubbleTemperature, type BinarySystem } from '@ebullio/thermo'
+import {
+  designPressureOf,
+  fitVapourLabel,
+  SYSTEM_SET_PREFIX,
+  systemFromParameters,
+  systemSetAsFit,
+} from './design-model'
 
 // A parameters export in the documented layout, trimmed to what the model choice reads (values invented).
 const vp = (name: string, index: 1 | 2, A: number) => ({
@@ -72,5 +79,62 @@ describe("the system's recommended parameter set as the engineer's model", () =>
     expect(systemFromParameters(withSet, 'f1').system.activity).toEqual(base.fits[0].activity)
     // a set id that is not the system's current one falls back to the version's recommended fit
     expect(systemFromParameters(base, `${SYSTEM_SET_PREFIX}j1`).fit.id).toBe('f1')
+  })
+})
+
+// A virial vapour as a parameters export carries it: methanol and water critical data of chemicals 1.5.2 with the
+// Tsonopoulos polar parameters of db/seeds/demo-properties.ts (copied here; the web does not import seeds).
+const virial = {
+  kind: 'virial',
+  correlation: 'tsonopoulos',
+  poynting: false,
+  components: [
+    { Tc: 513.38, Pc: 8215850, omega: 0.5625, Vc: 113.828, tsonopoulos: { a: 0.0878, b: 0.0525 } },
+    { Tc: 647.096, Pc: 22064000, omega: 0.3443, Vc: 55.948, tsonopoulos: { a: -0.0109, b: 0 } },
+  ],
+}
+
+describe("the engineer's calculations use the fit's own vapour model", () => {
+  const virialFit = { ...base, fits: [{ ...base.fits[0], vapor: virial }] } as unknown as ParametersExport
+  it("a fit made under a virial vapour computes γ–φ: the engine's own γ–φ bubble point, not the ideal one", () => {
+    const { system, fit } = systemFromParameters(virialFit, 'f1')
+    expect(system.vapor).toEqual(virial)
+    const ideal = systemFromParameters(base, 'f1').system
+    expect(ideal.vapor).toBeUndefined()
+    const at = { P: 101325, x1: 0.4 }
+    // the model's bubble point with the vapour handed to thermo directly (same equations, same inputs)
+    const direct = bubbleTemperature({ ...ideal, vapor: virial as BinarySystem['vapor'] }, at)
+    expect(bubbleTemperature(system, at).T).toBeCloseTo(direct.T, 9)
+    // and the correction is real at 1 atm: the ideal vapour gives another bubble temperature
+    expect(Math.abs(bubbleTemperature(ideal, at).T - direct.T)).toBeGreaterThan(1e-3)
+    expect(fitVapourLabel(fit)).toBe('virial gas, Tsonopoulos second virial coefficients')
+    expect(fitVapourLabel(base.fits[0])).toBe('ideal gas (modified Raoult’s law)')
+  })
+  it("the system's recommended set carries the vapour it was fitted under", () => {
+    const set = {
+      ...withSet,
+      systemRecommendedSet: { ...withSet.systemRecommendedSet!, vapor: virial },
+    } as unknown as ParametersExport
+    const { system, fit } = systemFromParameters(set, `${SYSTEM_SET_PREFIX}j1`)
+    expect(system.vapor).toEqual(virial)
+    expect(fitVapourLabel(fit)).toBe('virial gas, Tsonopoulos second virial coefficients')
+    expect(systemFromParameters(withSet, `${SYSTEM_SET_PREFIX}j1`).system.vapor).toBeUndefined()
+  })
+})
+
+describe('the pressure the design screens open at', () => {
+  it('is the nominal pressure of an isobaric version', () => {
+    expect(designPressureOf(base)).toBe(101325)
+  })
+  it("is the model's bubble pressure of the equimolar liquid at an isothermal version's temperature", () => {
+    const iso = {
+      ...base,
+      dataSet: { ...base.dataSet, nominalPressurePa: null, kind: 'isothermal', nominalTemperatureK: 333.15 },
+    } as unknown as ParametersExport
+    const P = bubblePressure(systemFromParameters(iso).system, { T: 333.15, x1: 0.5 }).P
+    expect(P).toBeGreaterThan(1000)
+    expect(designPressureOf(iso)).toBe(Math.round(P / 100) * 100)
+    const none = { ...iso, dataSet: { ...iso.dataSet, nominalTemperatureK: null } } as unknown as ParametersExport
+    expect(designPressureOf(none)).toBe(101325)
   })
 })
