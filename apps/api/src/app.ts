@@ -1,10 +1,8 @@
-import { randomUUID } from 'node:crypto'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import express from 'express'
 import helmet from 'helmet'
-import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
 import type pg from 'pg'
 import type { AppServices } from './context.js'
@@ -16,16 +14,40 @@ import { sameOrigin } from './middleware/same-origin.js'
 import { sessionContext } from './middleware/session.js'
 import { createLimits } from './ops/limits.js'
 import { createMetrics } from './ops/metrics.js'
+import { requestLog } from './ops/request-log.js'
 import type { RouteDef } from './routes/define.js'
 import { allRoutes } from './routes/index.js'
 
 const webDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../web/dist')
 
-function mount(router: express.Router, routes: RouteDef[]) {
+/**
+ * The routes, one router per first path segment after /api (`data-sets`, `auth`, …): a request is matched only
+ * against the routes of its own segment instead of walking the whole table (about a hundred patterns). Within a
+ * segment the routes keep their order. Every route path starts with a literal `/api/<segment>`.
+ */
+function mount(routes: RouteDef[]): express.RequestHandler {
+  const bySegment = new Map<string, express.Router>()
   for (const r of routes) {
+    const segment = firstSegment(r.path)
+    if (!segment || segment.includes(':') || segment.includes('*'))
+      throw new Error(`route ${r.path}: its path must start with /api/<literal segment>`)
+    let router = bySegment.get(segment)
+    if (!router) bySegment.set(segment, (router = express.Router()))
     const handlers = Array.isArray(r.handler) ? r.handler : [r.handler]
     router[r.method](r.path, authorize(r.access), rejectInvalidText, ...handlers)
   }
+  return (req, res, next) => {
+    const router = bySegment.get(firstSegment(req.url))
+    if (router) router(req, res, next)
+    else next()
+  }
+}
+
+/** `data-sets` of `/api/data-sets/…?…`, lower-cased as Express matches paths without regard to case. */
+function firstSegment(url: string): string {
+  if (url.slice(0, 5).toLowerCase() !== '/api/') return ''
+  const end = url.slice(5).search(/[/?#]/)
+  return (end === -1 ? url.slice(5) : url.slice(5, 5 + end)).toLowerCase()
 }
 
 export interface AppOptions {
@@ -37,7 +59,6 @@ export interface AppOptions {
   processMetrics?: boolean
 }
 
-const REQUEST_ID = /^[A-Za-z0-9._:-]{1,100}$/
 /** Paths that never need the session: liveness, readiness. */
 const NO_SESSION = new Set(['/api/health', '/api/ready'])
 
@@ -97,29 +118,7 @@ export function createApp(
       strictTransportSecurity: config.publicUrl.startsWith('https:'),
     }),
   )
-  app.use(
-    pinoHttp({
-      logger,
-      // Every request has an id: the caller's X-Request-Id when it is sane (a proxy's), else a new one. It is in
-      // every log line of the request (reqId), in the X-Request-Id answer header and in every error answer.
-      genReqId: (req, res) => {
-        const given = req.headers['x-request-id']
-        const id = typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID()
-        res.setHeader('X-Request-Id', id)
-        return id
-      },
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // Method, path and status only: no headers (cookies), no bodies (passwords), no query strings (tokens).
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({
-          id: req.id,
-          method: req.method,
-          path: req.url.split('?')[0],
-        }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-    }),
-  )
+  app.use(requestLog(logger))
   // Prometheus scrape: with METRICS_TOKEN as a bearer token, or from this machine without a proxy in between.
   app.get('/metrics', async (req, res, next) => {
     const token = config.metricsToken
@@ -141,9 +140,7 @@ export function createApp(
   app.use('/api/auth/forgot-password', ...limits.forgotPassword)
   app.use('/api/auth/change-password', ...limits.changePassword)
 
-  const api = express.Router()
-  mount(api, routes)
-  app.use(api)
+  app.use(mount(routes))
   app.use('/api', (_req, _res, next) => next(notFound('There is no such API route.')))
 
   if (config.serveWeb && existsSync(webDist)) {

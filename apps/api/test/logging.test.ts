@@ -47,4 +47,34 @@ describe('request logging', () => {
     expect(odd.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/)
     expect(lines.join('')).not.toContain('bad id')
   })
+
+  it('logs each API request once with its status and time, and a route pattern matches whatever the case', async () => {
+    lines.length = 0
+    const r = await agent(t.app).get('/API/Health').expect(200)
+    // the line is written when the server side of the answer closes, which may follow the client's read
+    for (let i = 0; i < 50 && !lines.some((l) => l.includes(String(r.headers['x-request-id']))); i++)
+      await new Promise((done) => setTimeout(done, 10))
+    const entries = lines.map(
+      (l) => JSON.parse(l) as { level: number; req?: { id?: string }; res?: { status?: number } },
+    )
+    const mine = entries.filter((e) => e.req?.id === r.headers['x-request-id'])
+    expect(mine).toHaveLength(1)
+    expect(mine[0]).toMatchObject({ level: 30, res: { status: 200 }, msg: 'request completed' })
+    expect(typeof (mine[0] as { responseTime?: unknown }).responseTime).toBe('number')
+    // an unknown first segment is the usual 404 answer, with the request id
+    const missing = await agent(t.app).get('/api/no-such-segment/1').expect(404)
+    expect(missing.body).toMatchObject({ error: { code: 'not_found' }, requestId: missing.headers['x-request-id'] })
+  })
+})
+
+describe('route table', () => {
+  it('refuses a route whose path does not start with /api/<literal segment>', async () => {
+    const { createApp } = await import('../src/app.js')
+    const handler = () => undefined
+    expect(() =>
+      createApp({ db: t.db, config: t.config, mailer: t.mailer } as never, pino({ level: 'silent' }), [
+        { method: 'get', path: '/api/:anything', access: 'public', handler },
+      ]),
+    ).toThrow(/must start with \/api\/<literal segment>/)
+  })
 })
