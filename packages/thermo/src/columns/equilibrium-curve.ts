@@ -192,7 +192,7 @@ function systemCurve(system: BinarySystem, P: number): EquilibriumCurve {
     xs,
     ys,
     Ts,
-    `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ${system.vapor?.kind === 'virial' ? 'virial vapour (Tsonopoulos)' : 'ideal vapour'}`,
+    `${names}${system.activity.kind} activity model at ${(P / 1000).toFixed(3)} kPa, ${system.vapor?.kind === 'virial' ? `virial vapour (${system.vapor.correlation === 'hayden-oconnell' ? "Hayden–O'Connell" : 'Tsonopoulos'})` : 'ideal vapour'}`,
   )
   // One line per component for the whole temperature span, not one per tabulated node.
   const pointwise = [...warnings].filter((w) => !w.includes('outside the range of its vapour-pressure correlation'))

@@ -4,7 +4,7 @@ import { compileVaporPressure, rangeWarnings, type LnPsat } from '../vapor-press
 import type { ActivityModel, BinarySystem } from '../types.js'
 import { stabilityOf, type LiquidStability } from './stability.js'
 import { compiledVirial, type CompiledVirial } from '../virial/kernel.js'
-import { checkVaporModel } from '../virial/tsonopoulos.js'
+import { checkVaporModel } from '../virial/model.js'
 
 /** A validated binary system in the solvers' internal form. */
 export interface CompiledSystem {

@@ -38,8 +38,8 @@ export interface FitBinaryOptions {
 /** The objectives of {@link fitBinary}. */
 export type FitObjective = 'bubble-point' | 'bubble-pressure' | 'activity'
 
-/** How a fit's vapour was modelled: 'ideal' or the Tsonopoulos virial vapour. */
-export type FitVaporModel = 'ideal' | 'virial-tsonopoulos'
+/** How a fit's vapour was modelled: 'ideal', or a virial vapour by Tsonopoulos or by Hayden–O'Connell. */
+export type FitVaporModel = 'ideal' | 'virial-tsonopoulos' | 'virial-hayden-oconnell'
 
 /**
  * A point's residuals after the fit, measured − calculated: dT = T_meas − T_calc (K; null in an isothermal fit),
@@ -521,7 +521,7 @@ function finishFit(
     iterations: fit.iterations,
     objective: fit.cost,
     objectiveKind,
-    vaporModel: data.gv ? 'virial-tsonopoulos' : 'ideal',
+    vaporModel: !data.gv ? 'ideal' : data.gv.hoc ? 'virial-hayden-oconnell' : 'virial-tsonopoulos',
     method: data.hasY.includes(1) ? 'with-y' : 'barker',
     ...summarise(residuals, index, data.isothermal || data.iso !== undefined),
     aic: stats.aic,

@@ -3,7 +3,7 @@ import { compileVaporPressure } from '../vapor-pressure/compiled.js'
 import type { VaporPressureModel } from '../types.js'
 import type { FitData } from './objectives.js'
 import { compiledVirial, lnPhiFactors, type CompiledVirial } from '../virial/kernel.js'
-import { checkVaporModel } from '../virial/tsonopoulos.js'
+import { checkVaporModel } from '../virial/model.js'
 import type { VaporModel } from '../virial/virial-types.js'
 import type { FittableModel, UniquacStructure } from './parameters.js'
 

@@ -20,7 +20,7 @@ import {
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'
 import { compiledVirial, solveBubblePGammaPhi, solveBubbleTGammaPhi } from './kernel.js'
-import { secondVirialCoefficients } from './tsonopoulos.js'
+import { associationWarnings, secondVirialCoefficients } from './model.js'
 import type { VaporCorrection, VaporModel } from './virial-types.js'
 
 export type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
@@ -53,24 +53,46 @@ export function vaporCorrection(
 }
 
 /**
- * Warning when the virial equation truncated after B is doubtful: the vapour's reduced density exceeds half the
+ * Warnings when the virial equation truncated after B is doubtful: the vapour's reduced density exceeds half the
  * critical density (Prausnitz, Lichtenthaler & de Azevedo, Molecular Thermodynamics of Fluid-Phase Equilibria,
- * 3rd ed., ch. 5; from memory).
+ * 3rd ed., ch. 5; from memory), or Z = 1 + B·P/RT falls below 0.5 (the vapour is far from the dilute gas the
+ * truncated form describes: strong association), and always for a Hayden–O'Connell vapour with a carboxylic acid
+ * ({@link associationWarnings}).
  */
 export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, y1: number): string[] {
   if (vapor.kind !== 'virial') return []
   const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
   const y2 = 1 - y1
   const B = y1 * y1 * B11 + 2 * y1 * y2 * B12 + y2 * y2 * B22
-  const V = (R * T * 1e6) / P + B // cm³/mol
+  const RTP = (R * T * 1e6) / P // cm³/mol
+  const V = RTP + B
   const Vc = y1 * vapor.components[0].Vc + y2 * vapor.components[1].Vc
-  if (V > 0 && Vc / V <= 0.5) return []
-  return [
-    `The vapour at ${T.toFixed(2)} K and ${(P / 1000).toPrecision(4)} kPa is denser than half its critical density; the virial equation truncated after B is doubtful there.`,
-  ]
+  const out = associationWarnings(vapor)
+  if (!(V > 0 && Vc / V <= 0.5))
+    out.push(
+      `The vapour at ${T.toFixed(2)} K and ${(P / 1000).toPrecision(4)} kPa is denser than half its critical density; the virial equation truncated after B is doubtful there.`,
+    )
+  if (1 + B / RTP < 0.5)
+    out.push(
+      `At ${T.toFixed(2)} K and ${(P / 1000).toPrecision(4)} kPa the truncated virial equation gives Z = ${(1 + B / RTP).toFixed(2)}; so strong a non-ideality (association) is outside what it describes, and the fugacity coefficients are doubtful there.`,
+    )
+  return out
 }
 
 const g = new Float64Array(4)
+
+/**
+ * The no-convergence error of a γ–φ solver; for a strongly associating (carboxylic-acid) vapour it says why: B·P/RT
+ * of such a vapour is of order −1 or below near its boiling point, beyond the truncated virial equation.
+ */
+function gammaPhiNoConvergence(v: VaporModel, what: string, condition: string): ThermoError {
+  const e = noConvergence(what, condition)
+  if (associationWarnings(v).length === 0) return e
+  return new ThermoError(
+    e.code,
+    `${e.message} The vapour associates strongly (carboxylic-acid dimers, η ≥ 4.5): near its boiling point the virial equation truncated after B cannot describe it; the chemical theory of dimerisation is needed and is not implemented.`,
+  )
+}
 
 /** γ–φ results are single-liquid: refuse (liquid-split) when the liquid x1 lies in a two-liquid gap at T. */
 function assertSingleLiquid(c: CompiledSystem, x1: number, T: number): void {
@@ -180,10 +202,14 @@ export function bubbleTemperatureGammaPhiCompiled(
       phi: [phiBuf[0], phiBuf[1]],
       Phi: [phiBuf[2], phiBuf[3]],
       iterations,
-      warnings: phiBuf[4] > 0 && Vc / phiBuf[4] <= 0.5 ? sw : [...sw, ...virialValidityWarnings(v, T, P, y1)],
+      // the common case (dilute, non-associating vapour) skips the full check
+      warnings:
+        phiBuf[4] > 0 && Vc / phiBuf[4] <= 0.5 && phiBuf[4] > (0.5 * R * T) / P && c.gv!.hoc === null
+          ? sw
+          : [...sw, ...virialValidityWarnings(v, T, P, y1)],
     }
   }
-  throw noConvergence('γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)
+  throw gammaPhiNoConvergence(v, 'γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)
 }
 
 /** γ–φ bubble pressure at T (K) and liquid x1, by substitution on P and y (converges in a few steps below ~1 MPa). */
@@ -207,7 +233,7 @@ export function bubblePressureGammaPhiCompiled(
 ): GammaPhiResult {
   checkDomain(c, T)
   if (!solveBubblePGammaPhi(c, c.gv!, T, x1, phiBuf))
-    throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
+    throw gammaPhiNoConvergence(v, 'γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
   return settled(c, v, { T, P: res[5], x1, y1: res[1] }, res[4], x1)
 }
 
@@ -252,7 +278,7 @@ export function dewTemperatureGammaPhiCompiled(
     T += Math.max(-20, Math.min(20, dT))
     if (Math.abs(dT) < 1e-9 && dx < 1e-12) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
-  throw noConvergence('γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
+  throw gammaPhiNoConvergence(v, 'γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
 }
 
 /** γ–φ dew pressure at T (K) and vapour y1: substitution on P and the liquid composition from the ideal-vapour dew point. */
@@ -288,5 +314,5 @@ export function dewPressureGammaPhiCompiled(c: CompiledSystem, v: VirialVapor, T
     if (!Number.isFinite(P)) break
     if (done) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
-  throw noConvergence('γ–φ dew-pressure', `y1 = ${y1} and ${T} K`)
+  throw gammaPhiNoConvergence(v, 'γ–φ dew-pressure', `y1 = ${y1} and ${T} K`)
 }

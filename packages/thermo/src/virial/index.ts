@@ -1,4 +1,6 @@
 export * from './virial-types.js'
 export * from './tsonopoulos.js'
+export * from './hayden-oconnell.js'
+export * from './model.js'
 export * from './gamma-phi.js'
 export * from './correction-size.js'

@@ -6,12 +6,19 @@ import { lnGammaT } from '../activity/kernel.js'
 import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
 import type { CompiledSystem } from '../equilibrium/system.js'
 import { R } from '../types.js'
-import { checkVaporModel, crossCriticalConstants } from './tsonopoulos.js'
+import { HOC_STRIDE, hocB, hocBinaryConstants } from './hayden-oconnell.js'
+import { checkVaporModel } from './model.js'
+import { crossCriticalConstants } from './tsonopoulos.js'
 import type { VaporModel } from './virial-types.js'
 
-/** A virial vapour reduced to numbers: per component (1, 2, cross) Tc, R·Tc/Pc in m³/mol, ω, a, b. */
+/**
+ * A virial vapour reduced to numbers. Tsonopoulos: per pair (1, 2, cross) Tc, R·Tc/Pc in m³/mol, ω, a, b in `k`.
+ * Hayden–O'Connell: `hoc` holds the pairs' constants ({@link hocConstants}) and `k` is unused.
+ */
 export interface CompiledVirial {
   k: Float64Array // [Tc, RTc/Pc, ω, a, b] × (1, 2, 12)
+  /** Hayden–O'Connell constants (3 × HOC_STRIDE), or null under Tsonopoulos. */
+  hoc: Float64Array | null
   VL1: number // m³/mol, 0 without Poynting
   VL2: number
 }
@@ -19,8 +26,11 @@ export interface CompiledVirial {
 /** Reduce a virial vapour model once (call {@link checkVaporModel} first). */
 export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): CompiledVirial {
   const [c1, c2] = v.components
-  const x = crossCriticalConstants(c1, c2, v.k12 ?? 0)
+  const VL1 = v.poynting ? 1e-6 * (c1.liquidMolarVolume ?? 0) : 0
+  const VL2 = v.poynting ? 1e-6 * (c2.liquidMolarVolume ?? 0) : 0
   const k = new Float64Array(15)
+  if (v.correlation === 'hayden-oconnell') return { k, hoc: hocBinaryConstants(c1, c2, v.eta12 ?? 0), VL1, VL2 }
+  const x = crossCriticalConstants(c1, c2, v.k12 ?? 0)
   const put = (i: number, Tc: number, Pc: number, w: number, a: number, b: number) => {
     k[5 * i] = Tc
     k[5 * i + 1] = (R * Tc) / Pc
@@ -31,11 +41,7 @@ export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): Compi
   put(0, c1.Tc, c1.Pc, c1.omega, c1.tsonopoulos?.a ?? 0, c1.tsonopoulos?.b ?? 0)
   put(1, c2.Tc, c2.Pc, c2.omega, c2.tsonopoulos?.a ?? 0, c2.tsonopoulos?.b ?? 0)
   put(2, x.Tc, x.Pc, x.omega, v.cross?.a12 ?? 0, v.cross?.b12 ?? 0)
-  return {
-    k,
-    VL1: v.poynting ? 1e-6 * (c1.liquidMolarVolume ?? 0) : 0,
-    VL2: v.poynting ? 1e-6 * (c2.liquidMolarVolume ?? 0) : 0,
-  }
+  return { k, hoc: null, VL1, VL2 }
 }
 
 const compiledCache = new WeakMap<object, CompiledVirial>()
@@ -67,6 +73,11 @@ function B(k: Float64Array, i: number, T: number): number {
   return (f0 + k[o + 2] * f1 + k[o + 3] * i6 - k[o + 4] * i8) * k[o + 1]
 }
 
+/** B of entry i (0: B11, 1: B22, 2: B12) at T, m³/mol, by the compiled vapour's correlation. */
+function Bv(v: CompiledVirial, i: number, T: number): number {
+  return v.hoc === null ? B(v.k, i, T) : hocB(v.hoc, i * HOC_STRIDE, T)
+}
+
 const g = new Float64Array(4)
 const lp = new Float64Array(4)
 
@@ -87,9 +98,9 @@ export function lnPhiFactors(
   ps2: number,
   out: Float64Array,
 ): number {
-  const b11 = B(v.k, 0, T)
-  const b22 = B(v.k, 1, T)
-  const b12 = B(v.k, 2, T)
+  const b11 = Bv(v, 0, T)
+  const b22 = Bv(v, 1, T)
+  const b12 = Bv(v, 2, T)
   const d12 = 2 * b12 - b11 - b22
   const rt = R * T
   const y2 = 1 - y1
@@ -122,9 +133,9 @@ export function lnPhiDerivatives(
   at(T - h)
   out[0] = (up1 - lp[0]) / (2 * h)
   out[1] = (up2 - lp[1]) / (2 * h)
-  const b11 = B(v.k, 0, T)
-  const b22 = B(v.k, 1, T)
-  const d12 = 2 * B(v.k, 2, T) - b11 - b22
+  const b11 = Bv(v, 0, T)
+  const b22 = Bv(v, 1, T)
+  const d12 = 2 * Bv(v, 2, T) - b11 - b22
   const rt = R * T
   const y2 = 1 - y1
   out[2] = (-2 * P * y2 * d12) / rt
@@ -165,6 +176,8 @@ export function solveBubbleTGammaPhi(
   const P = Math.exp(lnP)
   const x2 = 1 - x1
   const { vp1, vp2 } = c
+  const k = v.k
+  const hoc = v.hoc
   for (let it = 1; it <= 100; it++) {
     lnGammaT(c.act, x1, T, g)
     const d1 = T + vp1.c
@@ -172,9 +185,9 @@ export function solveBubbleTGammaPhi(
     const ps1 = Math.exp(vp1.a - vp1.b / d1)
     const ps2 = Math.exp(vp2.a - vp2.b / d2)
     // ln Φi as in lnPhiFactors, inlined: this loop is the γ–φ hot path.
-    const b11 = B(v.k, 0, T)
-    const b22 = B(v.k, 1, T)
-    const b12 = B(v.k, 2, T)
+    const b11 = hoc === null ? B(k, 0, T) : hocB(hoc, 0, T)
+    const b22 = hoc === null ? B(k, 1, T) : hocB(hoc, HOC_STRIDE, T)
+    const b12 = hoc === null ? B(k, 2, T) : hocB(hoc, 2 * HOC_STRIDE, T)
     const d12 = 2 * b12 - b11 - b22
     const rt = R * T
     const y2 = 1 - y1

@@ -1,6 +1,5 @@
-import { ThermoError } from '../errors.js'
 import { R } from '../types.js'
-import type { SecondVirialCoefficients, VaporModel, VirialComponent } from './virial-types.js'
+import type { VirialComponent } from './virial-types.js'
 
 /**
  * Reduced second virial coefficient of the Tsonopoulos correlation, B·Pc/(R·Tc) = f0 + ω·f1 + a·f2a + b·f2b,
@@ -76,47 +75,4 @@ export function crossCriticalConstants(
   const s = Math.cbrt(c1.Vc) + Math.cbrt(c2.Vc)
   const Pc = (4 * Tc * ((c1.Pc * c1.Vc) / c1.Tc + (c2.Pc * c2.Vc) / c2.Tc)) / (s * s * s)
   return { Tc, Pc, omega: 0.5 * (c1.omega + c2.omega) }
-}
-
-/** Check a virial vapour model once; throws ThermoError 'invalid-model' naming the missing or bad field. */
-export function checkVaporModel(v: VaporModel): void {
-  if (v?.kind === 'ideal') return
-  if (v?.kind !== 'virial' || v.correlation !== 'tsonopoulos') {
-    throw new ThermoError('invalid-model', 'The vapour model must be ideal or a Tsonopoulos virial vapour.')
-  }
-  if (
-    !Array.isArray(v.components) ||
-    v.components.length !== 2 ||
-    !v.components.every((c) => c && typeof c === 'object')
-  )
-    throw new ThermoError('invalid-model', 'A virial vapour needs the critical data of both components.')
-  if (v.k12 !== undefined && !(Number.isFinite(v.k12) && Math.abs(v.k12) < 1))
-    throw new ThermoError('invalid-model', `The cross parameter k12 must be a number between −1 and 1; got ${v.k12}.`)
-  v.components.forEach((c, i) => {
-    for (const key of ['Tc', 'Pc', 'omega', 'Vc'] as const) {
-      const value = c[key]
-      if (!Number.isFinite(value) || (key !== 'omega' && value <= 0)) {
-        throw new ThermoError(
-          'invalid-model',
-          `A virial vapour needs ${key} of component ${i + 1} (finite${key === 'omega' ? '' : ', positive'}); got ${value}.`,
-        )
-      }
-    }
-    if (v.poynting && !(c.liquidMolarVolume! > 0)) {
-      throw new ThermoError(
-        'invalid-model',
-        `The Poynting factor needs the liquid molar volume of component ${i + 1} (cm³/mol).`,
-      )
-    }
-  })
-}
-
-/** B11, B22 and B12 (cm³/mol) of a virial vapour at T (K). */
-export function secondVirialCoefficients(vapor: VaporModel, T: number): SecondVirialCoefficients {
-  if (vapor.kind !== 'virial') return { B11: 0, B22: 0, B12: 0 }
-  const [c1, c2] = vapor.components
-  const x = crossCriticalConstants(c1, c2, vapor.k12 ?? 0)
-  const B12 =
-    ((tsonopoulosReduced(T / x.Tc, x.omega, vapor.cross?.a12 ?? 0, vapor.cross?.b12 ?? 0) * R * x.Tc) / x.Pc) * 1e6
-  return { B11: secondVirialTsonopoulos(T, c1), B22: secondVirialTsonopoulos(T, c2), B12 }
 }
