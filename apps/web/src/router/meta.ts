@@ -15,6 +15,8 @@ declare module 'vue-router' {
       label: string
       icon: string
       order: number
+      /** One line under the label on the overview page (every entry has one). */
+      hint: string
       devOnly?: boolean
     }
   }

@@ -11,7 +11,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Data sets',
       roles: ['analyst', 'lead_chemist', 'reviewer'],
-      nav: { group: 'Laboratory', label: 'Data sets', icon: 'pi pi-table', order: 10 },
+      nav: {
+        group: 'Laboratory',
+        label: 'Data sets',
+        icon: 'pi pi-table',
+        order: 10,
+        hint: 'Measured T–x–y and P–x–y data sets: upload GC files, fit models, submit for approval.',
+      },
     },
   },
   {
@@ -39,7 +45,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Instrument checks',
       roles: ['analyst', 'lead_chemist', 'reviewer', 'admin'],
-      nav: { group: 'Laboratory', label: 'Instrument checks', icon: 'pi pi-stopwatch', order: 13 },
+      nav: {
+        group: 'Laboratory',
+        label: 'Instrument checks',
+        icon: 'pi pi-stopwatch',
+        order: 13,
+        hint: 'Thermometer and barometer checks against a boiling reference liquid, with their history.',
+      },
     },
   },
   {
@@ -49,7 +61,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Awaiting signature',
       roles: ['lead_chemist'],
-      nav: { group: 'Review', label: 'Awaiting signature', icon: 'pi pi-verified', order: 20 },
+      nav: {
+        group: 'Review',
+        label: 'Awaiting signature',
+        icon: 'pi pi-verified',
+        order: 20,
+        hint: 'Data sets submitted for your review and electronic signature.',
+      },
     },
   },
   {
@@ -59,7 +77,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'My open threads',
       roles: ['reviewer', 'lead_chemist', 'analyst'],
-      nav: { group: 'Review', label: 'My open threads', icon: 'pi pi-comments', order: 21 },
+      nav: {
+        group: 'Review',
+        label: 'My open threads',
+        icon: 'pi pi-comments',
+        order: 21,
+        hint: 'Comment threads you started or were asked about, still unresolved.',
+      },
     },
   },
   {
@@ -69,7 +93,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Approved systems',
       roles: ['engineer'],
-      nav: { group: 'Design', label: 'Approved systems', icon: 'pi pi-book', order: 30 },
+      nav: {
+        group: 'Design',
+        label: 'Approved systems',
+        icon: 'pi pi-book',
+        order: 30,
+        hint: 'Signed-off binary systems: curves at your pressure, stages, batch stills.',
+      },
     },
   },
   {
@@ -85,7 +115,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'People and roles',
       roles: ['admin'],
-      nav: { group: 'Administration', label: 'People and roles', icon: 'pi pi-users', order: 40 },
+      nav: {
+        group: 'Administration',
+        label: 'People and roles',
+        icon: 'pi pi-users',
+        order: 40,
+        hint: 'Invite colleagues, assign roles, deactivate accounts.',
+      },
     },
   },
   {
@@ -96,7 +132,13 @@ export const appRoutes: RouteRecordRaw[] = [
       title: 'Components',
       // the lab records boiling points and creates systems here; only admins and lead chemists edit components
       roles: ['admin', 'lead_chemist', 'analyst', 'reviewer'],
-      nav: { group: 'Laboratory', label: 'Components and systems', icon: 'pi pi-box', order: 12 },
+      nav: {
+        group: 'Laboratory',
+        label: 'Components and systems',
+        icon: 'pi pi-box',
+        order: 12,
+        hint: 'Pure components with vapour-pressure constants, critical data and sources; the binary systems built from them.',
+      },
     },
   },
   {
@@ -106,7 +148,13 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'GC methods',
       roles: ['admin'],
-      nav: { group: 'Administration', label: 'GC methods', icon: 'pi pi-sliders-h', order: 42 },
+      nav: {
+        group: 'Administration',
+        label: 'GC methods',
+        icon: 'pi pi-sliders-h',
+        order: 42,
+        hint: 'Chromatography methods and their response-factor calibrations.',
+      },
     },
   },
   {
@@ -116,7 +164,14 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Captured mail',
       roles: ['admin'],
-      nav: { group: 'Administration', label: 'Captured mail', icon: 'pi pi-envelope', order: 43, devOnly: true },
+      nav: {
+        group: 'Administration',
+        label: 'Captured mail',
+        icon: 'pi pi-envelope',
+        order: 43,
+        hint: 'Mail the app sent, caught by the local mail capture (development only).',
+        devOnly: true,
+      },
     },
   },
   {
@@ -126,14 +181,29 @@ export const appRoutes: RouteRecordRaw[] = [
     meta: {
       title: 'Undelivered mail',
       roles: ['admin'],
-      nav: { group: 'Administration', label: 'Undelivered mail', icon: 'pi pi-exclamation-circle', order: 44 },
+      nav: {
+        group: 'Administration',
+        label: 'Undelivered mail',
+        icon: 'pi pi-exclamation-circle',
+        order: 44,
+        hint: 'Messages the mail server refused or that are still being retried.',
+      },
     },
   },
   {
     path: WEB_PATHS.account,
     name: 'account',
     component: () => import('../views/AccountView.vue'),
-    meta: { title: 'Your account', nav: { group: 'You', label: 'Your account', icon: 'pi pi-user', order: 90 } },
+    meta: {
+      title: 'Your account',
+      nav: {
+        group: 'You',
+        label: 'Your account',
+        icon: 'pi pi-user',
+        order: 90,
+        hint: 'Your password and whether the app sends you e-mail.',
+      },
+    },
   },
   {
     path: WEB_PATHS.verifyReport,
