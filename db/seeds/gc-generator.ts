@@ -59,13 +59,23 @@ export interface GeneratedState {
 
 /**
  * A run sheet at a nominal pressure (Pa): liquid compositions spread over 0.04–0.96, each boiled at the
- * day's barometric pressure, T and y from the model's bubble point, two injections per phase. Where the model's
+ * day's barometric pressure, T and y from the model's bubble point, two injections per phase. With `check`, two
+ * injections of a check standard of that prepared x1 follow the samples (`phase` = check, the `check_x1` column),
+ * drawn from their own random stream so the samples are the same with or without it. Where the model's
  * liquid boils as two layers the sample is marked `layers` = 2 and both layers are injected too (`upper` the
  * poorer in component 1, `lower` the richer).
  */
 export function runCsv(
   system: DemoSystem,
-  o: { seed: number; pressurePa: number; samples: number; prefix: string; noise?: NoiseLevels; vapor?: VaporModel },
+  o: {
+    seed: number
+    pressurePa: number
+    samples: number
+    prefix: string
+    noise?: NoiseLevels
+    vapor?: VaporModel
+    check?: { label: string; x1: number }
+  },
 ): { csv: string; states: GeneratedState[] } {
   const noise = o.noise ?? DEFAULT_NOISE
   const rand = mulberry32(o.seed)
@@ -106,7 +116,17 @@ export function runCsv(
   }
   // The layers column only when some sample boiled as two layers, so single-liquid files keep the plain layout.
   const twoLayers = states.some((s) => s.liquidPhases)
-  const header = 'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit' + (twoLayers ? ',layers' : '')
-  const lines = [header, ...body.map(([row, layers]) => (twoLayers ? `${row},${layers}` : row))]
+  const header =
+    'sample,phase,injection,area_1,area_2,t_boil,t_unit,p_baro,p_unit' +
+    (twoLayers ? ',layers' : '') +
+    (o.check ? ',check_x1' : '')
+  const lines = [header, ...body.map(([row, layers]) => (twoLayers ? `${row},${layers}` : row) + (o.check ? ',' : ''))]
+  if (o.check) {
+    const checkRand = mulberry32(o.seed + 7919)
+    for (let inj = 1; inj <= 2; inj++) {
+      const [a1, a2] = injectionAreas(o.check.x1, system.responseFactor, checkRand, noise.injectionRsd)
+      lines.push(`${o.check.label},check,${inj},${fmt(a1, 1)},${fmt(a2, 1)},,,,${twoLayers ? ',' : ''},${o.check.x1}`)
+    }
+  }
   return { csv: lines.join('\n') + '\n', states }
 }

@@ -37,7 +37,10 @@ async function draftWithRun(
     apparatusNotes: o.notes,
     projectRef: o.project,
   })
-  const { csv } = runCsv(system, { seed: o.seed, pressurePa: ATM, samples: o.samples, prefix: o.prefix })
+  // The FID runs carry a check standard (x1 = 0.500 as prepared), so the demo's FID method has a control chart.
+  // The TCD method has none: the browser journey charts its own check standards there.
+  const check = system.detector === 'FID' ? { label: `${o.prefix}-CHECK`, x1: 0.5 } : undefined
+  const { csv } = runCsv(system, { seed: o.seed, pressurePa: ATM, samples: o.samples, prefix: o.prefix, check })
   const r = await commitRun(
     ctx.db,
     ctx.config,

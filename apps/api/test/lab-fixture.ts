@@ -154,6 +154,7 @@ export async function labCounts(t: TestContext): Promise<Record<string, number>>
     'joint_fit',
     'joint_fit_member',
     'joint_fit_approval',
+    'check_standard_result',
   ]
   const out: Record<string, number> = {}
   for (const name of tables) {
