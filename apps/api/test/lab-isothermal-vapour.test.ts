@@ -248,7 +248,7 @@ describe('the vapour model of a data set', () => {
     for (const [vaporModel, message] of [
       [
         { kind: 'virial', correlation: '<img src=x onerror=alert(1)>' },
-        'The only virial correlation offered is Tsonopoulos',
+        "The virial correlation must be 'tsonopoulos' or 'hayden-oconnell'",
       ],
       [{ kind: '<script>' }, "The vapour model must be 'ideal' or 'virial'"],
       [{ kind: 'ideal', note: '=HYPERLINK("x")' }, 'Unrecognized key: "note"'],

@@ -1,12 +1,18 @@
 import { z } from 'zod'
-import { virialInputsOf, type ComponentProperties } from './component-properties.js'
+import {
+  MAX_ASSOCIATION_ETA,
+  virialInputsOf,
+  type ComponentProperties,
+  type VirialCorrelationChoice,
+} from './component-properties.js'
 
 /**
  * What kind of measurement a data set holds and which vapour model its computations use.
  * - Isobaric data (layouts 'txy', 'tx') are taken at a nominal pressure; isothermal data ('pxy', 'px') at a nominal
  *   temperature, with the measured pressure per point. 'tx' and 'px' have no vapour composition.
- * - The vapour is ideal (modified Raoult's law) or a virial gas (second virial coefficients by Tsonopoulos, from the
- *   components' critical data), optionally with the Poynting factor of the liquid.
+ * - The vapour is ideal (modified Raoult's law) or a virial gas (second virial coefficients by Tsonopoulos or by
+ *   Hayden–O'Connell, from the components' properties), optionally with the Poynting factor of the liquid. Under
+ *   Hayden–O'Connell the choice also carries the unlike pair's solvation parameter η12 (default 0) and its source.
  */
 
 /** Layouts measured at a fixed temperature. */
@@ -45,11 +51,32 @@ export const vaporModelChoiceSchema = z.discriminatedUnion(
       .object({
         kind: z.literal('virial'),
         correlation: z
-          .literal('tsonopoulos', { error: 'The only virial correlation offered is Tsonopoulos' })
+          .enum(['tsonopoulos', 'hayden-oconnell'], {
+            error: "The virial correlation must be 'tsonopoulos' or 'hayden-oconnell'",
+          })
           .default('tsonopoulos'),
         poynting: z.boolean({ error: 'Say whether the Poynting factor is applied (true or false)' }).default(false),
+        eta12: z
+          .number({ error: 'The solvation parameter η12 must be a number' })
+          .min(0, 'The solvation parameter η12 cannot be negative (0 means no solvation)')
+          .max(MAX_ASSOCIATION_ETA, `The solvation parameter η12 must be at most ${MAX_ASSOCIATION_ETA}`)
+          .optional(),
+        eta12Source: z
+          .string({ error: 'The source of η12 must be text' })
+          .trim()
+          .min(1, 'Name the source of η12 (paper and table), or leave it out')
+          .max(500, 'Keep the source of η12 under 500 characters')
+          .optional(),
       })
-      .strict(),
+      .strict()
+      .refine((v) => v.correlation === 'hayden-oconnell' || (v.eta12 === undefined && v.eta12Source === undefined), {
+        path: ['eta12'],
+        message: "The solvation parameter η12 belongs to Hayden–O'Connell; Tsonopoulos does not use it",
+      })
+      .refine((v) => v.correlation !== 'hayden-oconnell' || !v.eta12 || !!v.eta12Source, {
+        path: ['eta12Source'],
+        message: 'Name the source of the solvation parameter η12 (paper and table)',
+      }),
   ],
   { error: "The vapour model must be 'ideal' or 'virial'" },
 )
@@ -57,10 +84,19 @@ export type VaporModelChoice = z.output<typeof vaporModelChoiceSchema>
 
 export const IDEAL_VAPOR: VaporModelChoice = { kind: 'ideal' }
 
-/** "ideal gas" · "virial, Tsonopoulos B" · "virial, Tsonopoulos B, with Poynting factor". */
+/** The correlation's name in words. */
+export function virialCorrelationLabel(c: string | null | undefined): string {
+  return c === 'hayden-oconnell' ? 'Hayden–O’Connell' : 'Tsonopoulos'
+}
+
+/**
+ * "ideal gas" · "virial gas, Tsonopoulos second virial coefficients" · "virial gas, Hayden–O’Connell second virial
+ * coefficients (η12 = 1.5)" · "…, with the Poynting factor".
+ */
 export function vaporModelLabel(v: VaporModelChoice | null | undefined): string {
   if (!v || v.kind === 'ideal') return 'ideal gas (modified Raoult’s law)'
-  return `virial gas, Tsonopoulos second virial coefficients${v.poynting ? ', with the Poynting factor' : ''}`
+  const hoc = v.correlation === 'hayden-oconnell'
+  return `virial gas, ${virialCorrelationLabel(v.correlation)} second virial coefficients${hoc && v.eta12 ? ` (η12 = ${v.eta12})` : ''}${v.poynting ? ', with the Poynting factor' : ''}`
 }
 
 /** The objective's name in words. */
@@ -80,6 +116,7 @@ const PROPERTY_WORDS: Record<string, string> = {
   Pc: 'critical pressure Pc',
   omega: 'acentric factor ω',
   Vc: 'critical volume Vc',
+  radiusOfGyration: 'mean radius of gyration RD',
 }
 
 /**
@@ -88,11 +125,16 @@ const PROPERTY_WORDS: Record<string, string> = {
  */
 export function missingVirialData(
   components: { name: string; properties: ComponentProperties | null | undefined }[],
+  correlation: VirialCorrelationChoice = 'tsonopoulos',
 ): string | null {
   const gaps = components.flatMap((c) => {
-    const r = virialInputsOf(c.properties)
+    const r = virialInputsOf(c.properties, correlation)
     return r.ok ? [] : [`${c.name}: ${r.missing.map((m) => PROPERTY_WORDS[m] ?? m).join(', ')}`]
   })
   if (!gaps.length) return null
-  return `A virial vapour needs each component's critical data; missing — ${gaps.join('; ')}. Enter them on the components screen (with their source) or choose the ideal vapour.`
+  const what =
+    correlation === 'hayden-oconnell'
+      ? "A Hayden–O'Connell virial vapour needs each component's critical data and mean radius of gyration"
+      : "A virial vapour needs each component's critical data"
+  return `${what}; missing — ${gaps.join('; ')}. Enter them on the components screen (with their source) or choose the ideal vapour.`
 }

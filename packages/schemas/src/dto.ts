@@ -228,8 +228,16 @@ export interface DataSetDto<D = string> {
   nominalPressurePa: number | null
   /** K; set for isothermal data (null for isobaric data, and for isothermal sets made before it was kept) */
   nominalTemperatureK: number | null
-  /** ideal gas, or a virial gas (Tsonopoulos) with an optional Poynting factor */
-  vaporModel: { kind: 'ideal' } | { kind: 'virial'; correlation: 'tsonopoulos'; poynting: boolean }
+  /** ideal gas, or a virial gas (Tsonopoulos or Hayden–O'Connell, with η12 and its source) with an optional Poynting factor */
+  vaporModel:
+    | { kind: 'ideal' }
+    | {
+        kind: 'virial'
+        correlation: 'tsonopoulos' | 'hayden-oconnell'
+        poynting: boolean
+        eta12?: number
+        eta12Source?: string
+      }
   apparatusNotes: string | null
   projectRef: string | null
   recommendedFitId: string | null

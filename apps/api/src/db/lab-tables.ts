@@ -197,7 +197,16 @@ export interface DataSetTable {
   vapor_model: ColumnType<DataSetVaporModel, DataSetVaporModel | string | undefined, DataSetVaporModel | string>
 }
 
-export type DataSetVaporModel = { kind: 'ideal' } | { kind: 'virial'; correlation: 'tsonopoulos'; poynting: boolean }
+export type DataSetVaporModel =
+  | { kind: 'ideal' }
+  | {
+      kind: 'virial'
+      correlation: 'tsonopoulos' | 'hayden-oconnell'
+      poynting: boolean
+      /** Hayden–O'Connell only (20261204_13h): the unlike pair's solvation parameter and its source */
+      eta12?: number
+      eta12Source?: string
+    }
 
 export interface DataSetCitation {
   authors: string

@@ -31,9 +31,12 @@ export const DESIGN_CAUTION =
   "Preliminary estimate from equilibrium data (modified Raoult's law, ideal vapour). Flammable solvents, pressure equipment and final sizing follow local codes and a licensed engineer's review."
 
 /** The caution worded for the vapour model the curve was computed with. */
-export function cautionFor(vapor: { kind: string } | null | undefined): string {
+export function cautionFor(vapor: { kind: string; correlation?: string } | null | undefined): string {
   return vapor?.kind === 'virial'
-    ? DESIGN_CAUTION.replace("modified Raoult's law, ideal vapour", 'γ–φ, virial vapour (Tsonopoulos)')
+    ? DESIGN_CAUTION.replace(
+        "modified Raoult's law, ideal vapour",
+        `γ–φ, virial vapour (${vapor.correlation === 'hayden-oconnell' ? "Hayden–O'Connell" : 'Tsonopoulos'})`,
+      )
     : DESIGN_CAUTION
 }
 

@@ -3,7 +3,7 @@ import type { Kysely } from 'kysely'
 import type { SessionUser } from '../auth/index.js'
 import type { Database, Db } from '../db/index.js'
 import type { DataSetState } from '../db/lab-tables.js'
-import { dataKindOf, missingVirialData } from '@ebullio/schemas'
+import { dataKindOf, missingVirialData, type VaporModelChoice } from '@ebullio/schemas'
 import { AppError, conflict, forbidden, notFound } from '../errors/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import { appendAudit, listAuditForLineage } from '../repositories/audit.repository.js'
@@ -24,9 +24,9 @@ import {
   staleWrite,
   visibleOrNotFound,
 } from './lab-access.js'
-import { binarySystem, engineInputs, getSystem } from './systems.service.js'
+import { binarySystem, engineInputs, engineVapor, getSystem } from './systems.service.js'
 import { enginePoint, pointSetOf, withStale } from './point-set.js'
-import { vaporCorrectionSize, type ActivityModel } from '@ebullio/thermo'
+import { checkVaporModel, vaporCorrectionSize, type ActivityModel } from '@ebullio/thermo'
 
 export interface DataSetInput {
   systemId: string
@@ -50,7 +50,7 @@ export async function createDataSet(db: Db, actorId: string, input: DataSetInput
     originMethod: input.originMethod ?? null,
   })
   const nominal = nominalCondition(input.layout ?? 'txy', input.nominalPressurePa, input.nominalTemperatureK ?? null)
-  if (input.vaporModel?.kind === 'virial') await requireVirialData(db, input.systemId)
+  if (input.vaporModel?.kind === 'virial') await requireVirialData(db, input.systemId, input.vaporModel)
   const d = await repo.insertDataSet(db, { ...input, ...nominal, createdBy: actorId })
   await appendAudit(db, {
     actorId,
@@ -175,11 +175,23 @@ function nominalCondition(layout: string, P: number | null | undefined, T: numbe
   return { nominalPressurePa: P ?? null, nominalTemperatureK: T }
 }
 
-/** A virial vapour needs both components' critical data: refuse naming each missing property and its component. */
-export async function requireVirialData(db: Db, systemId: string) {
+/**
+ * A virial vapour needs both components' critical data (and, under Hayden–O'Connell, their radii of gyration):
+ * refuse naming each missing property and its component; then the engine's own check of the assembled model
+ * (for instance an association parameter too large for the molecule), as 422 `invalid_vapour_model`.
+ */
+export async function requireVirialData(db: Db, systemId: string, choice: VaporModelChoice) {
+  if (choice.kind !== 'virial') return
   const s = await getSystem(db, systemId)
-  const why = missingVirialData([s.component1, s.component2])
+  const why = missingVirialData([s.component1, s.component2], choice.correlation)
   if (why) throw new AppError(422, 'missing_critical_data', why)
+  try {
+    checkVaporModel(engineVapor(s, choice))
+  } catch (err) {
+    if ((err as { name?: string }).name === 'ThermoError')
+      throw new AppError(422, 'invalid_vapour_model', (err as Error).message)
+    throw err
+  }
 }
 
 /** Edit metadata of a draft; refused when the caller's row version is stale. */
@@ -200,7 +212,7 @@ export async function updateMetadata(
     const merged = { ...before, ...patch }
     const nominal = nominalCondition(merged.layout, merged.nominalPressurePa, merged.nominalTemperatureK)
     if (merged.vaporModel.kind === 'virial' && (patch.vaporModel || patch.systemId))
-      await requireVirialData(tx, merged.systemId)
+      await requireVirialData(tx, merged.systemId, merged.vaporModel)
     const changedNominal = {
       ...(nominal.nominalPressurePa !== before.nominalPressurePa && { nominalPressurePa: nominal.nominalPressurePa }),
       ...(nominal.nominalTemperatureK !== before.nominalTemperatureK && {

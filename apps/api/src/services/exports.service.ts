@@ -74,10 +74,20 @@ export const VLE_RELATION =
 /** The same under a virial vapour (packages/thermo/src/virial). */
 export const VLE_RELATION_VIRIAL =
   'gamma-phi: y_i Phi_i P = x_i gamma_i P_i_sat(T), Phi_i = phi_i / (phi_i_sat PF_i) from the virial equation truncated after B (Tsonopoulos second virial coefficients); bubble points solved for T at the measured P'
+/** The same under a Hayden–O'Connell virial vapour. */
+export const VLE_RELATION_VIRIAL_HOC = VLE_RELATION_VIRIAL.replace(
+  'Tsonopoulos second virial coefficients',
+  "Hayden-O'Connell second virial coefficients, total B including the association terms",
+)
 
 /** The relation a data set's fits use, worded for its kind of data and vapour model. */
 function vleRelationOf(d: repo.DataSetRecord): string {
-  const base = d.vaporModel.kind === 'virial' ? VLE_RELATION_VIRIAL : VLE_RELATION
+  const base =
+    d.vaporModel.kind !== 'virial'
+      ? VLE_RELATION
+      : d.vaporModel.correlation === 'hayden-oconnell'
+        ? VLE_RELATION_VIRIAL_HOC
+        : VLE_RELATION_VIRIAL
   return dataKindOf(d.layout) === 'isothermal'
     ? base.replace('solved for T at the measured P', 'solved for P at the measured T')
     : base
@@ -336,19 +346,40 @@ function vapourLine(v: Record<string, unknown> | { kind: string }): string {
     kind: string
     correlation?: string
     poynting?: boolean
-    components?: { Tc: number; Pc: number; omega: number; Vc: number; tsonopoulos?: { a: number; b: number } }[]
+    eta12?: number
+    components?: {
+      Tc: number
+      Pc: number
+      omega: number
+      Vc: number
+      tsonopoulos?: { a: number; b: number }
+      RD?: number
+      dipole?: number
+      eta?: number
+    }[]
   }
   if (o.kind !== 'virial') return 'ideal'
+  const hoc = o.correlation === 'hayden-oconnell'
   const parts = [`virial ${o.correlation ?? 'tsonopoulos'}`, `poynting=${o.poynting ? 'true' : 'false'}`]
   o.components?.forEach((c, i) =>
     parts.push(
       `Tc${i + 1}=${c.Tc} K`,
       `Pc${i + 1}=${c.Pc} Pa`,
-      `omega${i + 1}=${c.omega}`,
-      `Vc${i + 1}=${c.Vc} cm3/mol`,
-      `a${i + 1}=${c.tsonopoulos?.a ?? 0}`,
-      `b${i + 1}=${c.tsonopoulos?.b ?? 0}`,
+      ...(hoc
+        ? [
+            `Vc${i + 1}=${c.Vc} cm3/mol`,
+            `RD${i + 1}=${c.RD} A`,
+            `mu${i + 1}=${c.dipole ?? 0} D`,
+            `eta${i + 1}=${c.eta ?? 0}`,
+          ]
+        : [
+            `omega${i + 1}=${c.omega}`,
+            `Vc${i + 1}=${c.Vc} cm3/mol`,
+            `a${i + 1}=${c.tsonopoulos?.a ?? 0}`,
+            `b${i + 1}=${c.tsonopoulos?.b ?? 0}`,
+          ]),
     ),
   )
+  if (hoc) parts.push(`eta12=${o.eta12 ?? 0}`)
   return parts.join('; ')
 }

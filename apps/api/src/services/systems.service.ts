@@ -60,7 +60,8 @@ export interface EngineInputs {
 export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice | undefined): VaporModel {
   if (!choice || choice.kind === 'ideal') return { kind: 'ideal' }
   const comps = [system.component1, system.component2]
-  const why = missingVirialData(comps)
+  const correlation = choice.correlation ?? 'tsonopoulos'
+  const why = missingVirialData(comps, correlation)
   if (why) throw new AppError(422, 'missing_critical_data', why)
   const noVolume = comps.filter((c) => !c.liquidMolarVolume).map((c) => c.name)
   if (choice.poynting && noVolume.length)
@@ -70,17 +71,21 @@ export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice 
       `The Poynting factor needs each component's liquid molar volume; missing — ${noVolume.join(', ')}. Enter it on the components screen or switch the Poynting factor off.`,
     )
   const [c1, c2] = comps.map((c) => {
-    const v = virialInputsOf(c.properties)
+    const v = virialInputsOf(c.properties, correlation)
     if (!v.ok) throw new Error('unreachable: checked above')
-    return {
-      Tc: v.Tc,
-      Pc: v.Pc,
-      omega: v.omega,
-      Vc: v.Vc,
-      tsonopoulos: { a: v.a, b: v.b },
-      ...(c.liquidMolarVolume ? { liquidMolarVolume: c.liquidMolarVolume } : {}),
-    }
+    const volume = c.liquidMolarVolume ? { liquidMolarVolume: c.liquidMolarVolume } : {}
+    if (correlation === 'hayden-oconnell')
+      return { Tc: v.Tc, Pc: v.Pc, omega: v.omega, Vc: v.Vc, RD: v.RD, dipole: v.dipole, eta: v.eta, ...volume }
+    return { Tc: v.Tc, Pc: v.Pc, omega: v.omega, Vc: v.Vc, tsonopoulos: { a: v.a, b: v.b }, ...volume }
   })
+  if (correlation === 'hayden-oconnell')
+    return {
+      kind: 'virial',
+      correlation,
+      components: [c1, c2],
+      eta12: choice.eta12 ?? 0,
+      poynting: choice.poynting,
+    }
   return { kind: 'virial', correlation: 'tsonopoulos', components: [c1, c2], poynting: choice.poynting }
 }
 

@@ -146,7 +146,10 @@ export function fitsSection(m: ReportModel): Content {
     // a stale fit is printed in grey with what it was computed on, never as a result of these points
     const ink = f.stale ? C.muted : C.ink
     const s = f.statistics as { rmsT?: number; rmsP?: number; rmsY?: number; aic?: number; converged?: boolean }
-    const o = f.options as { objective?: string; vapor?: { kind: 'ideal' } | { kind: 'virial'; poynting?: boolean } }
+    const o = f.options as {
+      objective?: string
+      vapor?: { kind: 'ideal' } | { kind: 'virial'; correlation?: string; poynting?: boolean; eta12?: number }
+    }
     const onPressure = o.objective === 'bubble-pressure'
     const held =
       f.model === 'nrtl' && typeof f.options.alpha === 'number' && !f.parameters.some((p) => p.name === 'alpha')
@@ -174,7 +177,12 @@ export function fitsSection(m: ReportModel): Content {
           {
             text: `Objective: ${objectiveLabel(o.objective)}. Vapour: ${vaporModelLabel(
               o.vapor?.kind === 'virial'
-                ? { kind: 'virial', correlation: 'tsonopoulos', poynting: !!o.vapor.poynting }
+                ? {
+                    kind: 'virial',
+                    correlation: o.vapor.correlation === 'hayden-oconnell' ? 'hayden-oconnell' : 'tsonopoulos',
+                    poynting: !!o.vapor.poynting,
+                    ...(o.vapor.correlation === 'hayden-oconnell' && { eta12: o.vapor.eta12 ?? 0 }),
+                  }
                 : o.vapor,
             )}.`,
             fontSize: 7,

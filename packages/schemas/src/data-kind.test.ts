@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest'
+import { missingVirialData, vaporModelChoiceSchema, vaporModelLabel } from './data-kind.js'
+
+const issues = (o: unknown) =>
+  vaporModelChoiceSchema.safeParse(o).error?.issues.map((i) => [i.path.join('.'), i.message])
+
+describe('the vapour model a data set chooses', () => {
+  it("takes Hayden–O'Connell with the unlike pair's η12 and its source, and names it in words", () => {
+    const v = vaporModelChoiceSchema.parse({
+      kind: 'virial',
+      correlation: 'hayden-oconnell',
+      eta12: 1.55,
+      eta12Source: 'Hayden & O’Connell 1975, Table 2',
+    })
+    expect(v).toEqual({
+      kind: 'virial',
+      correlation: 'hayden-oconnell',
+      poynting: false,
+      eta12: 1.55,
+      eta12Source: 'Hayden & O’Connell 1975, Table 2',
+    })
+    expect(vaporModelLabel(v)).toBe('virial gas, Hayden–O’Connell second virial coefficients (η12 = 1.55)')
+    expect(vaporModelLabel({ kind: 'virial', correlation: 'tsonopoulos', poynting: true })).toBe(
+      'virial gas, Tsonopoulos second virial coefficients, with the Poynting factor',
+    )
+    // an old record without a correlation is Tsonopoulos
+    expect(vaporModelChoiceSchema.parse({ kind: 'virial' })).toEqual({
+      kind: 'virial',
+      correlation: 'tsonopoulos',
+      poynting: false,
+    })
+  })
+
+  it('refuses what does not belong, naming the field', () => {
+    expect(issues({ kind: 'virial', correlation: 'pitzer' })).toEqual([
+      ['correlation', "The virial correlation must be 'tsonopoulos' or 'hayden-oconnell'"],
+    ])
+    expect(issues({ kind: 'virial', eta12: 1 })).toEqual([
+      ['eta12', "The solvation parameter η12 belongs to Hayden–O'Connell; Tsonopoulos does not use it"],
+    ])
+    expect(issues({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 1.2 })).toEqual([
+      ['eta12Source', 'Name the source of the solvation parameter η12 (paper and table)'],
+    ])
+    expect(issues({ kind: 'virial', correlation: 'hayden-oconnell', eta12: -1, eta12Source: 's' })).toEqual([
+      ['eta12', 'The solvation parameter η12 cannot be negative (0 means no solvation)'],
+    ])
+    expect(issues({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 12, eta12Source: 's' })).toEqual([
+      ['eta12', 'The solvation parameter η12 must be at most 10'],
+    ])
+    expect(issues({ kind: 'virial', correlation: 'hayden-oconnell', eta12: '1' })).toEqual([
+      ['eta12', 'The solvation parameter η12 must be a number'],
+    ])
+    expect(issues({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 1, eta12Source: 'y'.repeat(501) })).toEqual([
+      ['eta12Source', 'Keep the source of η12 under 500 characters'],
+    ])
+  })
+
+  it("names the radius of gyration a Hayden–O'Connell vapour still lacks, per component", () => {
+    const props = { Tc: 508.1, Pc: 4692400, omega: 0.3071, Vc: 212.766, source: 's' }
+    expect(
+      missingVirialData(
+        [
+          { name: 'acetone', properties: props },
+          { name: 'methanol', properties: { ...props, radiusOfGyration: 1.552 } },
+        ],
+        'hayden-oconnell',
+      ),
+    ).toBe(
+      "A Hayden–O'Connell virial vapour needs each component's critical data and mean radius of gyration; missing — acetone: mean radius of gyration RD. Enter them on the components screen (with their source) or choose the ideal vapour.",
+    )
+    expect(missingVirialData([{ name: 'acetone', properties: props }])).toBeNull()
+  })
+})
