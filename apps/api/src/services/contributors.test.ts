@@ -78,6 +78,14 @@ describe('contributorsOf', () => {
     ])
   })
 
+  it('sorts by display name, not by the order in which the changes were found', async () => {
+    store.names.set('zed', 'Zed Creator')
+    store.uploaders = ['lea']
+    store.actors = [{ actorId: 'bo', action: 'update metadata' }]
+    const got = await contributorsOf(db, version({ createdBy: 'zed' }))
+    expect(got.map((c) => c.name)).toEqual(['Bo Second', 'Lea Lead', 'Zed Creator'])
+  })
+
   it('asks the audit log for the content-changing actions only (a comment or a submit is not a change)', async () => {
     await contributorsOf(db, version())
     expect([...store.askedActions].sort()).toEqual([

@@ -248,6 +248,10 @@ describe('format 1 (signatures made before format 2 keep verifying)', () => {
       recommendedFitId: 'f-new',
     }
     expect(await signedContentV1(db, 'd1')).toEqual(expected)
+    // the algorithm name stored with old signatures selects format 1
+    expect(DIGEST_V1).toBe('ebullio-signed-content/1')
+    expect(DIGEST_V2).toBe('ebullio-signed-content/2')
+    expect(await contentDigest(db, 'd1', 'ebullio-signed-content/1')).toBe(sha(jcs(expected)))
     // key order at every level by JSON.stringify of sorted keys: for this content it equals RFC 8785
     expect(await contentDigest(db, 'd1', DIGEST_V1)).toBe(sha(jcs(expected)))
   })

@@ -64,6 +64,12 @@ describe('point-set digest', () => {
     expect(pointSetOf([first, second]).digest).toBe(sha(CANONICAL))
   })
 
+  it('counts the included points, not the excluded ones', () => {
+    const third = point({ seq: 3, temperatureK: 348.1, x1: 0.7 })
+    expect(pointSetOf([first, second, third]).included).toBe(2)
+    expect(pointSetOf([second]).included).toBe(0)
+  })
+
   it('an ideal vapour adds nothing; a virial vapour is part of the content', () => {
     expect(pointSetOf([first, second], { kind: 'ideal' }).digest).toBe(sha(CANONICAL))
     const withVapour = `{"format":"ebullio-point-set/1","points":[${FIRST},${SECOND}],"vapor":{"correlation":"tsonopoulos","kind":"virial","poynting":true}}`
@@ -98,6 +104,11 @@ describe('the current point set', () => {
   it("reads the stored points with the data set's vapour model", async () => {
     expect(await currentPointSet({} as Db, 'd1')).toEqual(pointSetOf([first, second], VIRIAL))
     store.dataSet = { id: 'd1', vaporModel: { kind: 'ideal' } }
+    expect((await currentPointSet({} as Db, 'd1')).digest).toBe(sha(CANONICAL))
+  })
+
+  it('a data set that is gone (deleted draft) reads as the ideal gas instead of failing', async () => {
+    store.dataSet = undefined
     expect((await currentPointSet({} as Db, 'd1')).digest).toBe(sha(CANONICAL))
   })
 })
