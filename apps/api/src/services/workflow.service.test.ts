@@ -76,8 +76,8 @@ vi.mock('./digest.js', async (importOriginal) => ({
 }))
 vi.mock('./contributors.js', () => ({ contributorsOf: async () => s.contributors }))
 vi.mock('./stale-results.js', () => ({
-  refuseWhileStale: async () => {
-    if (s.stale) throw new AppError(409, 'stale_results', 'stale')
+  refuseWhileStale: async (_db: unknown, _d: unknown, action: string) => {
+    if (s.stale) throw new AppError(409, 'stale_results', `Cannot ${action}: stale`)
     return 'point-set digest'
   },
 }))
@@ -154,6 +154,7 @@ beforeEach(() => {
 describe('approve: who may sign', () => {
   it('an independent lead chemist signs: the approval records digest, point set, contributors and flags', async () => {
     dataSet('v2')
+    s.approvals = [{ id: 'earlier', meaning: 'returned for rework' }]
     const r = await approve(db, config, lead, 'v2', sign)
     expect(s.inserted).toEqual([
       {
@@ -173,6 +174,7 @@ describe('approve: who may sign', () => {
     expect(r.approvalId).toBe('ap1')
     expect(r.digest).toBe(`digest of ${DIGEST_V2}`)
     expect(r.dataSet.state).toBe('approved')
+    // the answer carries the signature just made, not an earlier one
     expect(r.approval).toMatchObject({ id: 'ap1', meaning: 'approved' })
     expect(s.updates).toEqual([['v2', { state: 'approved', approvedAt: expect.any(Date) }]])
     expect(s.audit).toEqual([
@@ -226,18 +228,25 @@ describe('approve: who may sign', () => {
   it('a wrong password signs nothing', async () => {
     dataSet('v2')
     const e = await refusal(approve(db, config, lead, 'v2', { ...sign, password: 'wrong' }))
-    expect(e).toMatchObject({ status: 403, code: 'signature_refused' })
+    expect(e).toMatchObject({
+      status: 403,
+      code: 'signature_refused',
+      message: 'The password is not correct; nothing was signed.',
+    })
     nothingSigned()
   })
 
   it('only a submitted version, of own data, with a recommended fit, at the version loaded', async () => {
     dataSet('draft', { state: 'draft' })
-    expect(await refusal(approve(db, config, lead, 'draft', sign))).toMatchObject({ status: 409, code: 'conflict' })
-    dataSet('lit', { origin: 'literature' })
-    expect(await refusal(approve(db, config, lead, 'lit', sign))).toMatchObject({
+    expect(await refusal(approve(db, config, lead, 'draft', sign))).toMatchObject({
       status: 409,
-      code: 'literature_not_own',
+      code: 'conflict',
+      message: 'This data set is draft; approval is possible only when it is submitted.',
     })
+    dataSet('lit', { origin: 'literature' })
+    const lit = await refusal(approve(db, config, lead, 'lit', sign))
+    expect(lit).toMatchObject({ status: 409, code: 'literature_not_own' })
+    expect(lit.message).toContain("a lead chemist must first mark it as the lab's own measurement")
     dataSet('nofit', { recommendedFitId: null })
     const e = await refusal(approve(db, config, lead, 'nofit', sign))
     expect(e.message).toBe('Mark one fit as the recommended fit before approving.')
@@ -245,7 +254,10 @@ describe('approve: who may sign', () => {
     expect(await refusal(approve(db, config, lead, 'moved', sign))).toMatchObject({ code: 'stale_write' })
     s.stale = true
     dataSet('stale')
-    expect(await refusal(approve(db, config, lead, 'stale', sign))).toMatchObject({ code: 'stale_results' })
+    expect(await refusal(approve(db, config, lead, 'stale', sign))).toMatchObject({
+      code: 'stale_results',
+      message: 'Cannot approve: stale',
+    })
     nothingSigned()
   })
 
@@ -344,11 +356,17 @@ describe('submit', () => {
 
   it('is refused when already submitted, at another row version, or with stale results', async () => {
     dataSet('d', { state: 'submitted' })
-    expect(await refusal(submit(db, config, analyst, 'd', 7))).toMatchObject({ code: 'conflict' })
+    expect(await refusal(submit(db, config, analyst, 'd', 7))).toMatchObject({
+      code: 'conflict',
+      message: 'This data set is submitted; submitting is possible only when it is draft or returned.',
+    })
     dataSet('d', { state: 'draft' })
     expect(await refusal(submit(db, config, analyst, 'd', 6))).toMatchObject({ code: 'stale_write' })
     s.stale = true
-    expect(await refusal(submit(db, config, analyst, 'd', 7))).toMatchObject({ code: 'stale_results' })
+    expect(await refusal(submit(db, config, analyst, 'd', 7))).toMatchObject({
+      code: 'stale_results',
+      message: 'Cannot submit: stale',
+    })
     expect(s.updates).toEqual([])
     expect(s.mail).toEqual([])
   })
@@ -357,8 +375,21 @@ describe('submit', () => {
 describe('return for rework', () => {
   it('a contributor may return (no four-eyes); the signature lists the contributors, the creator is told', async () => {
     dataSet('v2')
+    s.approvals = [{ id: 'earlier', meaning: 'returned for rework' }]
     s.contributors.push({ userId: 'lea', name: 'LEA', changes: ['edited the metadata'] })
     const r = await returnForRework(db, config, lead, 'v2', { ...sign, reason: 'point 4 looks wrong' })
+    expect(r.approval).toMatchObject({ id: 'ap1', reason: 'point 4 looks wrong' })
+    expect(s.audit).toEqual([
+      {
+        actorId: 'lea',
+        entity: 'data_set',
+        entityId: 'v2',
+        action: 'return',
+        dataSetId: 'v2',
+        before: { state: 'submitted' },
+        after: { state: 'returned', approvalId: 'ap1', reason: 'point 4 looks wrong' },
+      },
+    ])
     expect(s.inserted).toEqual([
       expect.objectContaining({
         meaning: 'returned for rework',
@@ -379,7 +410,10 @@ describe('return for rework', () => {
 
   it('only a submitted version, with the right password', async () => {
     dataSet('v2', { state: 'approved' })
-    expect(await refusal(returnForRework(db, config, lead, 'v2', sign))).toMatchObject({ code: 'conflict' })
+    expect(await refusal(returnForRework(db, config, lead, 'v2', sign))).toMatchObject({
+      code: 'conflict',
+      message: 'This data set is approved; returning is possible only when it is submitted.',
+    })
     dataSet('v2')
     expect(await refusal(returnForRework(db, config, lead, 'v2', { ...sign, password: 'x' }))).toMatchObject({
       code: 'signature_refused',
@@ -405,6 +439,9 @@ describe('verifySignatures', () => {
 
   it('a version without signatures is 404', async () => {
     dataSet('v2', { state: 'draft' })
-    expect(await refusal(verifySignatures(db, lead, 'v2'))).toMatchObject({ status: 404 })
+    expect(await refusal(verifySignatures(db, lead, 'v2'))).toMatchObject({
+      status: 404,
+      message: 'This data set has no signatures.',
+    })
   })
 })
