@@ -1,6 +1,7 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test'
 import { execFileSync } from 'node:child_process'
 import { DEMO, shot, signIn } from './support/helpers'
+import { snap } from './support/lab'
 
 // An isothermal P–x–y series typed into the grid (INVENTED points of the demo's acetone/methanol Wilson model at
 // 50 °C, one raised by 0.5 kPa), fitted on pressures, with ΔP residuals and the data-quality score on screen; the
@@ -14,6 +15,7 @@ interface Engine {
   rmsP: number
   dP: number[]
   quality: number
+  maxSigmaP: number
 }
 const engine = (): Engine =>
   JSON.parse(execFileSync('node_modules/.bin/tsx', ['tests/e2e/support/engine-isothermal.ts'], { encoding: 'utf8' }))
@@ -53,6 +55,9 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
   await page.getByTestId('points-save').click()
   await expect(page.getByText('Points stored')).toBeVisible()
   await expect(page.getByTestId('record-kind')).toContainText('P–x–y at constant temperature')
+  // the header states the condition and the vapour model of the series
+  await expect(page.getByTestId('fact-temperature')).toHaveText('50.00 °C (isothermal)')
+  await expect(page.getByTestId('fact-vapour')).toHaveText('ideal')
 
   await page.getByTestId('run-fits').click()
   const wilson = page.getByTestId('fit-wilson')
@@ -67,6 +72,21 @@ test('an analyst records an isothermal P–x–y series, fits it on pressures an
   expect(e.dP[4]).toBeGreaterThan(300)
 
   await shot(page, 'iso-03-pxy-and-dp')
+  // The fit's ±2σ band is the P–x–y band at the series' temperature, under its vapour model; the server's band is
+  // the engine's for the same points.
+  const unc = page.getByTestId('uncertainty-panel')
+  await unc.getByTestId('band-toggle').click()
+  await expect(unc.getByTestId('band-note')).toContainText("P–x–y band at 50.00 °C, the data set's temperature.")
+  await expect(unc.getByTestId('band-note')).toContainText('Vapour: ideal gas (modified Raoult’s law).')
+  await expect(page.getByTestId('curves-drawn')).toContainText('shaded: ±2σ band of')
+  await expect(unc.getByTestId('suggestions-isothermal')).toContainText('not offered for isothermal data')
+  const dataSetId = page.url().match(/\/datasets\/([\w-]+)/)![1]
+  const detail = await (await page.request.get(`/api/data-sets/${dataSetId}`)).json()
+  const fitId = detail.fits.find((f: { model: string }) => f.model === 'wilson').id
+  const band = await (await page.request.get(`/api/data-sets/${dataSetId}/fits/${fitId}/band`)).json()
+  expect(band.kind).toBe('isothermal')
+  expect(Math.abs(Math.max(...band.sigmaP) - e.maxSigmaP)).toBeLessThan(1e-3 * e.maxSigmaP)
+  await snap(page, 'iso-03b-pxy-band')
   await page.getByRole('tab', { name: 'Consistency' }).click()
   await page.getByTestId('run-consistency').click()
   const q = page.getByTestId('quality-score')

@@ -5,7 +5,7 @@
  * results are the engine's own answers for the same inputs (fitBinary called here), so the API is checked against
  * the engine, and the engine against the world in packages/thermo's reference tests.
  */
-import { bubblePressure, fitBinary, type VaporModel } from '@ebullio/thermo'
+import { bubblePressure, fitBinary, predictionBandIsothermal, type VaporModel } from '@ebullio/thermo'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_COMPONENTS, demoVaporPressure } from '../../../db/seeds/demo-systems.js'
 import { DEMO_PROPERTIES } from '../../../db/seeds/demo-properties.js'
@@ -317,6 +317,43 @@ describe('the vapour model of a data set', () => {
     const shift = Math.abs(value(virial.parameters, 'a12') - value(ideal.fits[0].parameters, 'a12'))
     expect(shift).toBeGreaterThan(1)
     expect(shift).toBeCloseTo(Math.abs(value(eVirial.parameters, 'a12') - value(eIdeal.parameters, 'a12')), 3)
+    // the band of an isothermal set is the P–x–y band at its temperature, under the fit's own vapour: the engine's
+    // band of the same fit (parameters and covariance equal to the engine's for the same points and vapour)
+    const band = (
+      await lab.analyst.get(`/api/data-sets/${d.id}/fits/${virial.id}/band`).query({ points: 11 }).expect(200)
+    ).body
+    const eBand = predictionBandIsothermal(eVirial, { T, points: 11 })
+    expect(band).toMatchObject({
+      kind: 'isothermal',
+      T,
+      vapour: 'virial gas, Tsonopoulos second virial coefficients, with the Poynting factor',
+      stale: false,
+    })
+    band.x1.forEach((_: number, i: number) => {
+      expect(band.P[i]).toBeCloseTo(eBand.P[i], 0)
+      expect(band.y1[i]).toBeCloseTo(eBand.y1[i], 5)
+      expect(Math.abs(band.sigmaP[i] - eBand.sigmaP[i])).toBeLessThan(1e-3 * Math.max(...eBand.sigmaP) + 1e-9)
+    })
+    expect(Math.max(...band.sigmaP)).toBeGreaterThan(0)
+    // the old ideal-vapour fit states its own vapour (and that it is stale)
+    const old = (
+      await lab.analyst.get(`/api/data-sets/${d.id}/fits/${ideal.fits[0].id}/band`).query({ points: 11 }).expect(200)
+    ).body
+    expect(old).toMatchObject({ kind: 'isothermal', vapour: 'ideal gas (modified Raoult’s law)', stale: true })
+    // asked at a pressure, it is the T–x–y band there, still under the fit's vapour
+    const atP = (
+      await lab.analyst
+        .get(`/api/data-sets/${d.id}/fits/${virial.id}/band`)
+        .query({ pressure: 100, unit: 'kPa', points: 5 })
+        .expect(200)
+    ).body
+    expect(atP).toMatchObject({ kind: 'isobaric', P: 100000, vapour: band.vapour })
+    // where to measure next is planned at one pressure: without one it says so
+    const next = await lab.analyst.get(`/api/data-sets/${d.id}/fits/${virial.id}/next-compositions`)
+    expect(next.status).toBe(409)
+    expect(next.body.error.message).toBe(
+      'Where to measure next is planned at one pressure (T–x–y); for isothermal data ask for it at a pressure.',
+    )
     // the signed content names the kind and the vapour model
     const content = await signedContentV2(t.db, d.id)
     expect(content!.dataSet).toMatchObject({

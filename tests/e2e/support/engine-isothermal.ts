@@ -1,10 +1,17 @@
 /**
  * The engine's own numbers for the isothermal journey (tests/e2e/isothermal.spec.ts): INVENTED P–x–y points of the
  * demo's acetone (1)/methanol (2) Wilson model (SVNA 7th ed. Table 12.5 parameters) at 50 °C, one of them raised by
- * 0.5 kPa, as typed into the grid; and the Wilson fit on pressures and the data-quality score of those points.
+ * 0.5 kPa, as typed into the grid; and the Wilson fit on pressures, its P–x–y band and the data-quality score of those
+ * points.
  * Run with tsx; prints JSON. (A separate process, so the browser tests need not load the engine.)
  */
-import { bubblePressure, dataQualityScore, fitBinary, type BinaryPoint } from '../../../packages/thermo/src/index.js'
+import {
+  bubblePressure,
+  dataQualityScore,
+  fitBinary,
+  predictionBandIsothermal,
+  type BinaryPoint,
+} from '../../../packages/thermo/src/index.js'
 import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from '../../../db/seeds/demo-systems.js'
 
 const system = DEMO_SYSTEMS.find((s) => s.key === 'acetone-methanol')!
@@ -41,5 +48,7 @@ console.log(
     rmsP: (fit as unknown as { rmsP: number }).rmsP,
     dP: fit.residuals.map((r) => (r as unknown as { dP: number }).dP),
     quality: quality.quality,
+    // the Wilson fit's P–x–y band at 50 °C (51 points): its widest σP, Pa
+    maxSigmaP: Math.max(...predictionBandIsothermal(fit, { T, points: 51 }).sigmaP),
   }),
 )

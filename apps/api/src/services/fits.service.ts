@@ -9,12 +9,18 @@ import * as repo from '../repositories/datasets.repository.js'
 import * as fits from '../repositories/fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
 import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel } from '@ebullio/schemas'
-import { ISOTHERMAL_BAND } from './uncertainty.service.js'
 import { canonicalJson8785, computedOn, currentPointSet, enginePoint, pointSetOf, withStale } from './point-set.js'
 import { areaTest, dataQualityScore, fitBinary, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { EDITABLE_STATES, FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
 import { engineInputs } from './systems.service.js'
-import { bandOf, pureComponentChecks, suggestionsOf } from './uncertainty.service.js'
+import {
+  bandOf,
+  ISOTHERMAL_BAND,
+  ISOTHERMAL_SUGGESTIONS,
+  isothermalBandOf,
+  pureComponentChecks,
+  suggestionsOf,
+} from './uncertainty.service.js'
 
 /** The activity models a data set can be fitted with (thermo's fitBinary). */
 export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
@@ -224,21 +230,26 @@ function nrtlAudit(o: { model: string; alpha?: number; fitAlpha?: boolean }) {
 }
 
 /**
- * Band and next compositions at the nominal pressure; a fit whose band cannot be computed says why instead. The
- * band is a T–x–y band at one pressure: isothermal data get the reason instead.
+ * Band and next compositions at the nominal pressure (isothermal data: the P–x–y band at their temperature, no
+ * suggestions); a fit whose band cannot be computed says why instead.
  */
 function predictionsOf(fit: fits.FitRecord, r: FitBinaryResult, d: repo.DataSetRecord) {
   const P = d.nominalPressurePa
-  if (P === null || dataKindOf(d.layout) === 'isothermal') {
-    const error = ISOTHERMAL_BAND
-    return { fitId: fit.id, band: { error }, nextCompositions: { error } }
-  }
   const attempt = <T>(fn: () => T): T | { error: string } => {
     try {
       return fn()
     } catch (err) {
       if (err instanceof AppError) return { error: err.message }
       throw err
+    }
+  }
+  if (P === null || dataKindOf(d.layout) === 'isothermal') {
+    // isothermal data: the P–x–y band at their temperature; suggestions are planned at one pressure only
+    const T = d.nominalTemperatureK
+    return {
+      fitId: fit.id,
+      band: T === null ? { error: ISOTHERMAL_BAND } : attempt(() => isothermalBandOf(fit, r, T, 51)),
+      nextCompositions: { error: ISOTHERMAL_SUGGESTIONS },
     }
   }
   return {

@@ -6,6 +6,7 @@
 import {
   fitBinary,
   predictionBand,
+  predictionBandIsothermal,
   PURE_COMPONENT_TOLERANCE,
   pureComponentCheck,
   planNextMeasurements,
@@ -14,6 +15,7 @@ import {
   type PureComponentCheck,
   type SuggestionCriterion,
 } from '@ebullio/thermo'
+import { dataKindOf, vaporModelLabel } from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
@@ -122,10 +124,38 @@ const boundTo = (fit: FitRecord, current: string) => ({
   stale: fit.pointSetDigest !== current,
 })
 
-/** The band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */
+/** The vapour model a stored fit was computed under, in words (every band and suggestion answer states it). */
+export function fitVapourText(fit: FitRecord): string {
+  const v = fit.options.vapor as { kind?: string; poynting?: boolean } | undefined
+  return vaporModelLabel(
+    v?.kind === 'virial' ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true } : undefined,
+  )
+}
+
+/** The T–x–y band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */
 export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, points: number) {
   const band = thermo('Prediction band', () => predictionBand(result, { P, points }))
-  return { fitId: fit.id, model: fit.model, ...band, note: BAND_NOTE }
+  return {
+    fitId: fit.id,
+    model: fit.model,
+    kind: 'isobaric' as const,
+    ...band,
+    vapour: fitVapourText(fit),
+    note: BAND_NOTE,
+  }
+}
+
+/** The P–x–y band of one fit at T (K), an isothermal data set's own temperature; pressures in Pa. */
+export function isothermalBandOf(fit: FitRecord, result: FitBinaryResult, T: number, points: number) {
+  const band = thermo('Prediction band', () => predictionBandIsothermal(result, { T, points }))
+  return {
+    fitId: fit.id,
+    model: fit.model,
+    kind: 'isothermal' as const,
+    ...band,
+    vapour: fitVapourText(fit),
+    note: BAND_NOTE,
+  }
 }
 
 /** Where the lab asks to look: a composition range and the least distance from the points already measured. */
@@ -152,12 +182,15 @@ export function suggestionsOf(
   limits: SuggestionLimits = {},
 ) {
   const plan = thermo('Next compositions', () => planNextMeasurements(result, { P, count, criterion, ...limits }))
-  return { fitId: fit.id, model: fit.model, P, criterion, ...plan }
+  return { fitId: fit.id, model: fit.model, P, criterion, ...plan, vapour: fitVapourText(fit) }
 }
 
-/** Why isothermal data have no band: it is a T–x–y band at one pressure. */
+/** Why isothermal data without a recorded temperature have no band, and where suggestions need a pressure. */
 export const ISOTHERMAL_BAND =
-  'The prediction band is a T–x–y band at one pressure; it is not offered for isothermal data. Ask for it at a pressure to see the T–x–y band there.'
+  'This isothermal data set has no temperature recorded, so its P–x–y band cannot be drawn. Ask for the band at a pressure to see the T–x–y band there.'
+/** Where to measure next is planned along a T–x–y curve at one pressure. */
+export const ISOTHERMAL_SUGGESTIONS =
+  'Where to measure next is planned at one pressure (T–x–y); for isothermal data ask for it at a pressure.'
 
 /** The pressure a band or suggestion list is computed at: the one asked for, else the nominal pressure. */
 function bandPressure(d: repo.DataSetRecord, P: number | undefined): number {
@@ -166,9 +199,17 @@ function bandPressure(d: repo.DataSetRecord, P: number | undefined): number {
   return at
 }
 
+/**
+ * The band of one fit: at the pressure asked for (T–x–y), else at the data set's own condition — the nominal
+ * pressure of isobaric data (T–x–y), the temperature of isothermal data (P–x–y).
+ */
 export async function fitBand(db: Db, user: SessionUser, id: string, fitId: string, o: { P?: number; points: number }) {
   const { d, fit, result, current } = await loadFit(db, user, id, fitId)
-  return { dataSetId: id, ...bandOf(fit, result, bandPressure(d, o.P), o.points), ...boundTo(fit, current) }
+  const band =
+    o.P === undefined && dataKindOf(d.layout) === 'isothermal' && d.nominalTemperatureK !== null
+      ? isothermalBandOf(fit, result, d.nominalTemperatureK, o.points)
+      : bandOf(fit, result, bandPressure(d, o.P), o.points)
+  return { dataSetId: id, ...band, ...boundTo(fit, current) }
 }
 
 export async function nextCompositions(
@@ -180,6 +221,7 @@ export async function nextCompositions(
 ) {
   const { d, fit, result, current, points } = await loadFit(db, user, id, fitId)
   const limits = { range: o.range, exclusion: o.exclusion, measured: points.map((p) => p.x1) }
+  if (o.P === undefined && d.nominalPressurePa === null) throw conflict(ISOTHERMAL_SUGGESTIONS)
   return {
     dataSetId: id,
     ...suggestionsOf(fit, result, bandPressure(d, o.P), o.count, o.criterion, limits),

@@ -11,7 +11,7 @@ import type {
   SuggestionCriterionName,
   SystemDto,
 } from '@ebullio/schemas'
-import type { PredictionBand } from '@ebullio/thermo'
+import type { PredictionBand, PredictionBandIsothermal } from '@ebullio/thermo'
 import { api, query } from './client'
 import type { CommentItem } from './comments'
 import type { CalibrationSummary } from './uploads'
@@ -171,13 +171,18 @@ export interface FitRequest {
   fitAlpha?: boolean
 }
 
-/** A fit's T–x–y curve with its ±2σ band at P (Pa): T in K, compositions as mole fractions of component 1. */
-export interface FitBand extends PredictionBand {
+/**
+ * A fit's ±2σ band as the server computed it: the T–x–y band at a pressure (isobaric data, or any data asked at a
+ * pressure) or the P–x–y band at an isothermal data set's temperature (pressures in Pa).
+ */
+export type FitBand = {
   fitId: string
   model: ModelName
   /** what the band means, from the server */
   note: string
-}
+  /** the vapour model the fit (and so the band) was computed under, in words */
+  vapour?: string
+} & ((PredictionBand & { kind?: 'isobaric' }) | (PredictionBandIsothermal & { kind: 'isothermal' }))
 
 /** A liquid composition to measure next, with its bubble T (K), predicted y1 and σy there before measuring. */
 export interface SuggestedComposition {

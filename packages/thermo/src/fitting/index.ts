@@ -10,9 +10,9 @@ export type {
 export type { BinaryPoint } from './fit-input.js'
 export { DEFAULT_SIGMA_P, DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y } from './fit-input.js'
 export type { FittableModel, UniquacStructure } from './parameters.js'
-export { predictionBand } from './prediction.js'
+export { predictionBand, predictionBandIsothermal } from './prediction.js'
 export { planNextMeasurements, suggestNextCompositions } from './next-measurements.js'
-export type { PredictionBand } from './prediction.js'
+export type { PredictionBand, PredictionBandIsothermal } from './prediction.js'
 export type {
   NextMeasurementPlan,
   NextMeasurementOptions,

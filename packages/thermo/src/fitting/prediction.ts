@@ -1,4 +1,4 @@
-import { checkPressure, ThermoError } from '../errors.js'
+import { checkPressure, checkTemperature, ThermoError } from '../errors.js'
 import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
 import { compileSystem } from '../equilibrium/system.js'
 import type { FitBinaryResult } from './fit-binary.js'
@@ -115,6 +115,86 @@ export function predictionBand(fit: FitBinaryResult, options: { P: number; point
     sigmaY,
     Tlow: rows.map((r, i) => r.T - 2 * sigmaT[i]),
     Thigh: rows.map((r, i) => r.T + 2 * sigmaT[i]),
+    ylow: rows.map((r, i) => Math.max(0, r.y1 - 2 * sigmaY[i])),
+    yhigh: rows.map((r, i) => Math.min(1, r.y1 + 2 * sigmaY[i])),
+    warnings,
+  }
+}
+
+/** A fitted P–x–y curve at one temperature with its ±2σ confidence band (pressures in Pa). */
+export interface PredictionBandIsothermal {
+  T: number
+  x1: number[]
+  P: number[]
+  y1: number[]
+  sigmaP: number[]
+  sigmaY: number[]
+  Plow: number[]
+  Phigh: number[]
+  ylow: number[]
+  yhigh: number[]
+  warnings: string[]
+}
+
+/**
+ * The fitted P–x–y curve at T (K) with a ±2σ band from the parameter covariance, by the same linear propagation as
+ * {@link predictionBand} with g = ∂(P or y1)/∂θ at each bubble pressure (the implicit sensitivities the isothermal
+ * fits use, under the fit's own vapour). For isothermal data, where the fit was made on pressures.
+ * @param options points: compositions on a cosine grid from 0 to 1, default 51 (3–1001).
+ */
+export function predictionBandIsothermal(
+  fit: FitBinaryResult,
+  options: { T: number; points?: number },
+): PredictionBandIsothermal {
+  const T = options.T
+  checkTemperature(T)
+  const n = options.points ?? 51
+  checkCount('band points', n, 3, 1001)
+  const xs = Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
+  const s = fit.settings
+  const layout = parameterLayout(s.model, {
+    V1: s.V1,
+    V2: s.V2,
+    uniquac: s.uniquac,
+    temperatureDependent: s.temperatureDependent,
+    alpha: s.alpha,
+    fitAlpha: s.fitAlpha,
+  })
+  const p = Float64Array.from(
+    fit.parameters.filter((q) => !q.atBound),
+    (q) => q.value,
+  )
+  const c = compileSystem(fit.system)
+  const pm = perturbedModels(layout, p)
+  const ctx = { vp1: c.vp1, vp2: c.vp2, gv: c.gv, isothermal: true }
+  const rows = xs.map((x1) => {
+    if (!solvePoint(c.act, ctx, x1, T, NaN, T)) {
+      throw new ThermoError(
+        'no-convergence',
+        `No bubble pressure at x1 = ${x1.toFixed(4)} and ${T} K with the fitted parameters.`,
+      )
+    }
+    const P = point[0]
+    const y1 = point[1]
+    const gP = new Float64Array(p.length)
+    const gY = new Float64Array(p.length)
+    pointSensitivities(c.act, ctx, x1, pm, gP, gY)
+    return { P, y1, gP, gY }
+  })
+  const warnings = fit.covariance.flat().every(Number.isFinite)
+    ? []
+    : ['The fit has no usable covariance, so the band cannot be drawn.']
+  const sigmaP = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gP)))
+  const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
+  return {
+    T,
+    x1: xs,
+    P: rows.map((r) => r.P),
+    y1: rows.map((r) => r.y1),
+    sigmaP,
+    sigmaY,
+    Plow: rows.map((r, i) => r.P - 2 * sigmaP[i]),
+    Phigh: rows.map((r, i) => r.P + 2 * sigmaP[i]),
     ylow: rows.map((r, i) => Math.max(0, r.y1 - 2 * sigmaY[i])),
     yhigh: rows.map((r, i) => Math.min(1, r.y1 + 2 * sigmaY[i])),
     warnings,

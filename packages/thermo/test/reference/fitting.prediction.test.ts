@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import {
+  bubblePressure,
   bubbleTemperature,
   fitBinary,
   predictionBand,
+  predictionBandIsothermal,
   suggestNextCompositions,
   type BinaryPoint,
   type BinarySystem,
@@ -104,5 +106,67 @@ describe('suggestNextCompositions', () => {
       'The number of suggestions must be a whole number from 1 to 20; got 0.',
     )
     expect(() => predictionBand(fit, { P: -1 })).toThrow('Pressure must be a positive number of pascals; got -1.')
+  })
+})
+
+describe('predictionBandIsothermal (P–x–y band of a fit on pressures)', () => {
+  // Isothermal data at 60 °C generated from the same published model (SVNA 7th ed. Table 12.5 1-propanol/water
+  // NRTL) with σP = 100 Pa and σy = 0.005 Gaussian noise, fitted on bubble pressures.
+  const T = 333.15
+  const points = spread(20).map((x1, i) => {
+    const b = bubblePressure(truth, { T, x1 })
+    const rng = prng(500 + i)
+    return { T, P: b.P + 100 * rng.gaussian(), x1, y1: b.y1 + 0.005 * rng.gaussian() }
+  })
+  const fit = fitBinary({
+    points,
+    vaporPressure: truth.vaporPressure,
+    model: 'nrtl',
+    alpha: pw.alpha,
+    objective: 'bubble-pressure',
+  })
+  const band = predictionBandIsothermal(fit, { T, points: 21 })
+  it("follows the fitted model's bubble pressures and is pinned at the pure ends", () => {
+    band.x1.forEach((x1, i) => {
+      const b = bubblePressure(fit.system, { T, x1 })
+      expect(band.P[i]).toBeCloseTo(b.P, 3)
+      expect(band.y1[i]).toBeCloseTo(b.y1, 8)
+    })
+    expect(band.sigmaP[0]).toBeLessThan(1e-6)
+    expect(band.sigmaP[20]).toBeLessThan(1e-6)
+    expect(Math.max(...band.sigmaP)).toBeGreaterThan(5)
+  })
+  it('equals σ² = gᵀCg with g by central differences of the public bubblePressure (an independent path)', () => {
+    const names = fit.parameters.map((p) => p.name)
+    for (const i of [5, 10, 15]) {
+      const x1 = band.x1[i]
+      const g = names.map((name) => {
+        const h = 1e-3 * Math.max(1, Math.abs(fit.parameters.find((p) => p.name === name)!.value))
+        const at = (d: number) =>
+          bubblePressure(
+            { ...fit.system, activity: { ...fit.activity, [name]: (fit.activity as never)[name] + d } as never },
+            { T, x1 },
+          )
+        const [up, down] = [at(h), at(-h)]
+        return { P: (up.P - down.P) / (2 * h), y: (up.y1 - down.y1) / (2 * h) }
+      })
+      const quad = (v: number[]) =>
+        v.reduce((s, a, j) => s + v.reduce((t, b, k) => t + a * fit.covariance[j][k] * b, 0), 0)
+      expect(band.sigmaP[i]).toBeCloseTo(Math.sqrt(quad(g.map((q) => q.P))), 2)
+      expect(band.sigmaY[i]).toBeCloseTo(Math.sqrt(quad(g.map((q) => q.y))), 6)
+    }
+  })
+  it('holds the true curve over most of the composition range (±2σ)', () => {
+    let inside = 0
+    band.x1.forEach((x1, i) => {
+      const P = bubblePressure(truth, { T, x1 }).P
+      if (P >= band.Plow[i] - 1e-6 && P <= band.Phigh[i] + 1e-6) inside++
+    })
+    expect(inside / band.x1.length).toBeGreaterThan(0.8)
+  })
+  it('refuses a temperature that is not one, naming it', () => {
+    expect(() => predictionBandIsothermal(fit, { T: -3 })).toThrow(
+      'Temperature must be a positive number of kelvins; got -3.',
+    )
   })
 })

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import type { Fit } from '../../api/datasets'
-import { fitLabel, labelWithNote } from './fit-helpers'
+import type { Fit, FitBand } from '../../api/datasets'
+import { fitLabel, labelWithNote, plotBandOf } from './fit-helpers'
 
 const fit = (
   id: string,
@@ -43,5 +43,44 @@ describe('fit labels', () => {
   it('merges a note into a label’s own parentheses instead of doubling them', () => {
     expect(labelWithNote('Wilson', 'recommended')).toBe('Wilson (recommended)')
     expect(labelWithNote('Wilson #1 (run 08:14 PM)', 'recommended')).toBe('Wilson #1 (run 08:14 PM; recommended)')
+  })
+})
+
+describe('plotBandOf', () => {
+  const common = { fitId: 'f', model: 'wilson' as const, note: 'n', x1: [0, 1], y1: [0, 1], sigmaY: [0, 0] }
+  it('puts a P–x–y band’s pressures (Pa) in the ordinate slots, and a T–x–y band’s temperatures', () => {
+    const iso = {
+      ...common,
+      kind: 'isothermal',
+      T: 328.15,
+      P: [68000, 101000],
+      sigmaP: [0, 0],
+      Plow: [67900, 100900],
+      Phigh: [68100, 101100],
+      ylow: [0, 0.99],
+      yhigh: [0.01, 1],
+      warnings: [],
+    } as FitBand
+    expect(plotBandOf(iso, 'Wilson')).toEqual({
+      name: 'Wilson',
+      x1: [0, 1],
+      T: [68000, 101000],
+      Tlow: [67900, 100900],
+      Thigh: [68100, 101100],
+      ylow: [0, 0.99],
+      yhigh: [0.01, 1],
+    })
+    const bar = {
+      ...common,
+      P: 101325,
+      T: [373, 338],
+      sigmaT: [0, 0],
+      Tlow: [372.9, 337.9],
+      Thigh: [373.1, 338.1],
+      ylow: [0, 0.99],
+      yhigh: [0.01, 1],
+      warnings: [],
+    } as FitBand
+    expect(plotBandOf(bar, 'NRTL')).toMatchObject({ T: [373, 338], Tlow: [372.9, 337.9], Thigh: [373.1, 338.1] })
   })
 })

@@ -3,7 +3,8 @@
  * while @ebullio/thermo loads in the background for the curves.
  */
 import type { Azeotrope, PhaseDiagram, VaporPressureModel } from '@ebullio/thermo'
-import type { DataSetDetail, Fit, ModelName } from '../../api/datasets'
+import type { DataSetDetail, Fit, FitBand, ModelName } from '../../api/datasets'
+import type { TxyBand } from '../plots/plot-types'
 
 /** Display names of the models, in the order the fit panel offers them. */
 export const MODEL_LABELS: Record<ModelName, string> = {
@@ -114,4 +115,14 @@ export function staleForSigning(d: DataSetDetail): string[] {
         `${c.test === 'quality-score' ? 'the data-quality score' : `the ${c.test === 'point' ? 'point' : 'area'} test`} (${computedOnText(c)})`,
       )
   return out
+}
+
+/**
+ * The band in the plots' shape: for a P–x–y band the ordinate slots (`T`, `Tlow`, `Thigh`) hold pressures in Pa,
+ * which the P–x–y plot converts to the user's unit like every other pressure on it.
+ */
+export function plotBandOf(b: FitBand, name: string): TxyBand {
+  return b.kind === 'isothermal'
+    ? { name, x1: b.x1, T: b.P, Tlow: b.Plow, Thigh: b.Phigh, ylow: b.ylow, yhigh: b.yhigh }
+    : { name, x1: b.x1, T: b.T, Tlow: b.Tlow, Thigh: b.Thigh, ylow: b.ylow, yhigh: b.yhigh }
 }
