@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { missingVirialData, vaporModelChoiceSchema, vaporModelLabel } from './data-kind.js'
+import { missingVirialData, vaporModelChoiceSchema, vaporModelLabel, vaporChoiceOfEngine } from './data-kind.js'
 
 const issues = (o: unknown) =>
   vaporModelChoiceSchema.safeParse(o).error?.issues.map((i) => [i.path.join('.'), i.message])
@@ -69,5 +69,19 @@ describe('the vapour model a data set chooses', () => {
       "A Hayden–O'Connell virial vapour needs each component's critical data and mean radius of gyration; missing — acetone: mean radius of gyration RD. Enter them on the components screen (with their source) or choose the ideal vapour.",
     )
     expect(missingVirialData([{ name: 'acetone', properties: props }])).toBeNull()
+  })
+})
+
+describe('vaporChoiceOfEngine', () => {
+  it('reads back the choice behind a stored engine vapour, and words it as every result states it', () => {
+    const components = [{ Tc: 1, Pc: 1, omega: 0, Vc: 1 }]
+    expect(vaporChoiceOfEngine(undefined)).toEqual({ kind: 'ideal' })
+    expect(vaporChoiceOfEngine({ kind: 'ideal' })).toEqual({ kind: 'ideal' })
+    const tso = vaporChoiceOfEngine({ kind: 'virial', correlation: 'tsonopoulos', poynting: true, components })
+    expect(tso).toEqual({ kind: 'virial', correlation: 'tsonopoulos', poynting: true })
+    expect(vaporModelLabel(tso)).toBe('virial gas, Tsonopoulos second virial coefficients, with the Poynting factor')
+    const hoc = vaporChoiceOfEngine({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 1.3, components })
+    expect(hoc).toEqual({ kind: 'virial', correlation: 'hayden-oconnell', poynting: false, eta12: 1.3 })
+    expect(vaporModelLabel(hoc)).toBe('virial gas, Hayden–O’Connell second virial coefficients (η12 = 1.3)')
   })
 })

@@ -138,3 +138,19 @@ export function missingVirialData(
       : "A virial vapour needs each component's critical data"
   return `${what}; missing — ${gaps.join('; ')}. Enter them on the components screen (with their source) or choose the ideal vapour.`
 }
+
+/**
+ * The choice (as a data set states it) behind thermo's vapour as a fit or joint fit stored it (`options.vapor`, with
+ * the critical data it read): ideal unless virial; the correlation, the Poynting switch and Hayden–O'Connell's η12.
+ */
+export function vaporChoiceOfEngine(vapor: unknown): VaporModelChoice {
+  const v = vapor as { kind?: string; correlation?: string; poynting?: boolean; eta12?: number } | null | undefined
+  if (v?.kind !== 'virial') return { kind: 'ideal' }
+  const hoc = v.correlation === 'hayden-oconnell'
+  return {
+    kind: 'virial',
+    correlation: hoc ? 'hayden-oconnell' : 'tsonopoulos',
+    poynting: v.poynting === true,
+    ...(hoc && typeof v.eta12 === 'number' ? { eta12: v.eta12 } : {}),
+  }
+}

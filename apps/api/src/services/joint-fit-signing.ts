@@ -11,10 +11,10 @@
 import {
   dataKindOf,
   jointFitLabel,
+  vaporChoiceOfEngine,
   pressureAgainstRange,
   webLink,
   type RecommendedParameterSetDto,
-  type VaporModelChoice,
 } from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
@@ -334,18 +334,10 @@ export async function recommendedSetOf(db: Db, systemId: string): Promise<Recomm
     approvedAt: fit.approvedAt,
     signedBy: approval?.signerName ?? null,
     digest: approval?.digest ?? null,
-    vaporModel: vaporChoiceOf(fit.options.vapor),
+    vaporModel: vaporChoiceOfEngine(fit.options.vapor),
     vapor: (fit.options.vapor as RecommendedParameterSetDto['vapor'] | undefined) ?? { kind: 'ideal' },
     dataSets,
   }
-}
-
-/** The data-set style choice of the vapour model a joint fit stored (thermo's vapour, with its constants). */
-export function vaporChoiceOf(vapor: unknown): VaporModelChoice {
-  const v = vapor as { kind?: string; poynting?: boolean } | undefined
-  return v?.kind === 'virial'
-    ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true }
-    : { kind: 'ideal' }
 }
 
 /** The recommended set, or 404 for a system without one. */

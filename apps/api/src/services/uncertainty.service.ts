@@ -15,7 +15,7 @@ import {
   type PureComponentCheck,
   type SuggestionCriterion,
 } from '@ebullio/thermo'
-import { dataKindOf, vaporModelLabel } from '@ebullio/schemas'
+import { dataKindOf, vaporChoiceOfEngine, vaporModelLabel } from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
@@ -126,10 +126,7 @@ const boundTo = (fit: FitRecord, current: string) => ({
 
 /** The vapour model a stored fit was computed under, in words (every band and suggestion answer states it). */
 export function fitVapourText(fit: FitRecord): string {
-  const v = fit.options.vapor as { kind?: string; poynting?: boolean } | undefined
-  return vaporModelLabel(
-    v?.kind === 'virial' ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true } : undefined,
-  )
+  return vaporModelLabel(vaporChoiceOfEngine(fit.options.vapor))
 }
 
 /** The T–x–y band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */

@@ -2,7 +2,7 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
-import { labelWithNote, vaporModelLabel } from '@ebullio/schemas'
+import { labelWithNote, vaporChoiceOfEngine, vaporModelLabel } from '@ebullio/schemas'
 import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubblePressure,
@@ -85,10 +85,7 @@ export function systemFromParameters(
 
 /** The vapour model a fit (or the system's set) computes with, in words: "ideal gas (modified Raoult’s law)", … */
 export function fitVapourLabel(fit: Pick<ExportedFit, 'vapor'>): string {
-  const v = fit.vapor
-  return vaporModelLabel(
-    v?.kind === 'virial' ? { kind: 'virial', correlation: 'tsonopoulos', poynting: v.poynting === true } : undefined,
-  )
+  return vaporModelLabel(vaporChoiceOfEngine(fit.vapor))
 }
 
 /**
