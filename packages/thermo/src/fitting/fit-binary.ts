@@ -1,4 +1,5 @@
 import { spanWarnings } from '../vapor-pressure/compiled.js'
+import { associationWarnings } from '../virial/model.js'
 import { ThermoError } from '../errors.js'
 import type { ActivityModel, BinarySystem, VaporPressureModel } from '../types.js'
 import { buildFitData, checkModelOptions, modelName, type BinaryPoint } from './fit-input.js'
@@ -450,7 +451,12 @@ function modelWarnings(
   }
   const namedWarnings = liquidSplitWarnings(activity, Tmin, Tmax, data.het?.reduce((s, v) => s + v, 0) ?? 0)
   return {
-    warnings: [...spanWarnings(options.vaporPressure, Tmin, Tmax), ...namedWarnings.map((w) => w.message)],
+    warnings: [
+      ...spanWarnings(options.vaporPressure, Tmin, Tmax),
+      ...namedWarnings.map((w) => w.message),
+      // a Hayden–O'Connell vapour with a carboxylic acid: the truncated virial φ is doubtful (virial/README.md)
+      ...(options.vapor ? associationWarnings(options.vapor) : []),
+    ],
     namedWarnings,
   }
 }

@@ -1,6 +1,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { bubbleTemperature } from '../equilibrium/index.js'
+import { fitBinary } from '../fitting/index.js'
 import { R, type BinarySystem } from '../types.js'
 import {
   bubblePressureGammaPhi,
@@ -275,6 +276,25 @@ describe("γ–φ with a Hayden–O'Connell vapour", () => {
     expect(Math.abs(real.y1 - ideal.y1)).toBeLessThan(0.005)
     expect(real.phi[0]).toBeLessThan(1)
     expect(real.phi[1]).toBeLessThan(1)
+  })
+
+  it('a fit under the HOC vapour recovers the NRTL energies that made its points (round trip), and names the vapour', () => {
+    const pts = [0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95].map((x1) => {
+      const r = bubbleTemperatureGammaPhi(propanolWater, { P: 101325, x1 }, hocPW)
+      return { T: r.T, P: 101325, x1, y1: r.y1 }
+    })
+    const fit = fitBinary({
+      model: 'nrtl',
+      alpha: 0.5081,
+      vaporPressure: propanolWater.vaporPressure,
+      vapor: hocPW,
+      points: pts,
+    })
+    expect(fit.vaporModel).toBe('virial-hayden-oconnell')
+    const b = (n: string) => fit.parameters.find((p) => p.name === n)!.value
+    expect(b('b12') / (500.4 * 4.184)).toBeCloseTo(1, 3)
+    expect(b('b21') / (1636.57 * 4.184)).toBeCloseTo(1, 3)
+    expect(fit.warnings.some((w) => w.includes('associates strongly'))).toBe(false)
   })
 
   it('a carboxylic acid in the vapour (η ≥ 4.5) is flagged, and a solver that cannot cope says why', () => {

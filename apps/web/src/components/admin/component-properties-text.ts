@@ -13,6 +13,8 @@ export function criticalSummary(p: ComponentProperties): string {
   if (p.dipole != null) parts.push(`μ ${sig(p.dipole, 3)} D`)
   if (p.tsonopoulosA != null || p.tsonopoulosB != null)
     parts.push(`Tsonopoulos a ${sig(p.tsonopoulosA ?? 0, 3)}, b ${sig(p.tsonopoulosB ?? 0, 3)}`)
+  if (p.radiusOfGyration != null) parts.push(`RD ${sig(p.radiusOfGyration, 4)} Å`)
+  if (p.associationEta != null) parts.push(`η ${sig(p.associationEta, 3)}`)
   if (p.uniquacR != null || p.uniquacQ != null)
     parts.push(
       `UNIQUAC r ${p.uniquacR == null ? '—' : sig(p.uniquacR, 4)}, q ${p.uniquacQ == null ? '—' : sig(p.uniquacQ, 4)}`,
