@@ -5,9 +5,14 @@ import type { ComponentProperties } from '@ebullio/schemas'
  * Python library `chemicals` 1.5.2 gives them (its default data sources), frozen here; Tsonopoulos a and b from
  * the published polar classes (Tsonopoulos, AIChE J. 20 (1974) 263; water: Tsonopoulos & Heidman, Fluid Phase
  * Equilib. 57 (1990) 261) as computed by @ebullio/thermo's tsonopoulosPolarParameters. UNIQUAC r and q are left empty.
+ * Methanol and water also carry the Hayden–O'Connell mean radius of gyration and association η of the correlation's
+ * own tables (Hayden & O'Connell 1975; from memory, stated in `associationSource`).
  */
 const SOURCE =
   'Tc, Pc, ω, Vc, dipole: Python library chemicals 1.5.2; Tsonopoulos a, b: published polar class rules (Tsonopoulos 1974)'
+
+const HOC_SOURCE =
+  "RD and η: Hayden & O'Connell, Ind. Eng. Chem. Process Des. Dev. 14 (1975) 209, tables (from memory, not checked against the printed page)"
 
 export const DEMO_PROPERTIES: Record<string, ComponentProperties> = {
   '67-64-1': {
@@ -28,6 +33,9 @@ export const DEMO_PROPERTIES: Record<string, ComponentProperties> = {
     dipole: 1.7,
     tsonopoulosA: 0.0878,
     tsonopoulosB: 0.0525,
+    radiusOfGyration: 1.536,
+    associationEta: 1.63,
+    associationSource: HOC_SOURCE,
     source: SOURCE,
   },
   '7732-18-5': {
@@ -38,6 +46,9 @@ export const DEMO_PROPERTIES: Record<string, ComponentProperties> = {
     dipole: 1.85,
     tsonopoulosA: -0.0109,
     tsonopoulosB: 0,
+    radiusOfGyration: 0.615,
+    associationEta: 1.7,
+    associationSource: HOC_SOURCE,
     source: SOURCE,
   },
   '71-23-8': {

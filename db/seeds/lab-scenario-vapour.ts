@@ -6,10 +6,13 @@
  *   0.003 vapour-composition noise, entered as points (origin: measured here by another method), σP per point;
  * - methanol (1)/water (2) at 1 atm under a virial vapour: T and y from the γ–φ bubble point of the NRTL model of
  *   SVNA 7th ed. Table 12.5 with Tsonopoulos second virial coefficients (critical data in demo-properties.ts:
- *   the `chemicals` 1.5.2 library's values and the published polar classes), plus simulated GC noise.
- * Both stay drafts with their fits, consistency tests and data-quality score run.
+ *   the `chemicals` 1.5.2 library's values and the published polar classes), plus simulated GC noise;
+ * - methanol (1)/water (2) at 60 kPa under a Hayden–O'Connell vapour (both associate): T and y from the γ–φ bubble
+ *   point of the same NRTL model with HOC second virial coefficients (RD and η of demo-properties.ts; η12 = 0, no
+ *   published solvation value at hand), plus 0.05 K and 0.004 noise, typed in as points (another method).
+ * All stay drafts with their fits, consistency tests and data-quality score run.
  */
-import { bubblePressure } from '@ebullio/thermo'
+import { bubblePressure, bubbleTemperature } from '@ebullio/thermo'
 import { seededRandom } from '@ebullio/thermo/random'
 import * as datasets from '../../apps/api/src/services/datasets.service.js'
 import { addTypedPoints } from '../../apps/api/src/services/direct-points.service.js'
@@ -22,6 +25,7 @@ import type { SeedContext } from './lab.js'
 
 export const ISOTHERMAL_TITLE = 'Static cell at 55 °C: acetone + methanol'
 export const VIRIAL_TITLE = 'Recovery column feed with a virial vapour: methanol + water at 1 atm'
+export const HOC_TITLE = 'Vacuum recovery trial, associating vapour (Hayden–O’Connell): methanol + water at 60 kPa'
 
 const exists = async (ctx: SeedContext, title: string) =>
   !!(await ctx.db.selectFrom('data_set').select('id').where('title', '=', title).executeTakeFirst())
@@ -92,8 +96,51 @@ async function virialSeries(ctx: SeedContext): Promise<void> {
   await fits.runConsistency(ctx.db, ctx.users.analyst, d.id, 'nrtl')
 }
 
+async function haydenOConnellSeries(ctx: SeedContext): Promise<void> {
+  if (await exists(ctx, HOC_TITLE)) return
+  const demo = DEMO_SYSTEMS.find((s) => s.key === 'methanol-water')!
+  const choice = { kind: 'virial' as const, correlation: 'hayden-oconnell' as const, poynting: false }
+  const vapor = engineVapor(await getSystem(ctx.db, ctx.systemIds['methanol-water']), choice)
+  const P = 60000
+  const rand = seededRandom(151)
+  const system = {
+    vaporPressure: [demoVaporPressure('methanol'), demoVaporPressure('water')] as [
+      ReturnType<typeof demoVaporPressure>,
+      ReturnType<typeof demoVaporPressure>,
+    ],
+    activity: demo.activity,
+    vapor,
+  }
+  const points = [0.03, 0.08, 0.15, 0.25, 0.35, 0.5, 0.65, 0.8, 0.92].map((x1, i) => {
+    const b = bubbleTemperature(system, { P, x1 })
+    return {
+      sampleLabel: `HO-${String(i + 1).padStart(2, '0')}`,
+      temperatureK: Math.round((b.T + 0.05 * rand.gaussian()) * 100) / 100,
+      pressurePa: P,
+      x1,
+      y1: Math.round(Math.min(1, Math.max(0, b.y1 + 0.004 * rand.gaussian())) * 1e4) / 1e4,
+      x1Uncertainty: 0.002,
+      y1Uncertainty: 0.004,
+    }
+  })
+  const d = await datasets.createDataSet(ctx.db, ctx.users.analyst.id, {
+    systemId: ctx.systemIds['methanol-water'],
+    title: HOC_TITLE,
+    nominalPressurePa: P,
+    vaporModel: choice,
+    apparatusNotes: 'Recirculating still no. 2 under vacuum; both vapours associate, so a Hayden–O’Connell vapour.',
+    projectRef: 'KES-2026-03',
+    origin: 'other-method',
+    originMethod: 'Recirculating still; liquid and condensed vapour by refractive index',
+  })
+  await addTypedPoints(ctx.db, ctx.users.analyst, d.id, { rowVersion: d.rowVersion, points })
+  await fits.runFits(ctx.db, ctx.users.analyst, d.id, { models: ['nrtl', 'wilson'] })
+  await fits.runConsistency(ctx.db, ctx.users.analyst, d.id, 'nrtl')
+}
+
 /** The isothermal and the virial-vapour demo series (idempotent: each is skipped when its title exists). */
 export async function vapourAndIsothermalDataSets(ctx: SeedContext): Promise<void> {
   await isothermalSeries(ctx)
   await virialSeries(ctx)
+  await haydenOConnellSeries(ctx)
 }

@@ -22,7 +22,7 @@ describe('demo scenario (invented data)', () => {
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
       approved: 5,
-      draft: 3,
+      draft: 4,
       returned: 1,
       submitted: 3,
       superseded: 1,
@@ -71,6 +71,16 @@ describe('demo scenario (invented data)', () => {
       expect(r.known).toBe(0.5)
       expect(Math.abs(r.measured - 0.5)).toBeLessThan(0.01)
     }
+    // the Hayden–O'Connell demo (lab-scenario-vapour.ts): methanol/water at 60 kPa generated from SVNA 7th ed.
+    // Table 12.5's NRTL (b12 = −253.88, b21 = 845.21 cal/mol, α = 0.2994) with a HOC vapour plus noise; its NRTL fit,
+    // under the same vapour, comes back near those energies (within 300 J/mol) and names the correlation it used
+    const hoc = await sql<{ options: { vapor?: { correlation?: string } }; activity: Record<string, number> }>`
+      select f.options, f.activity from fit f join data_set d on d.id = f.data_set_id
+      where d.title like 'Vacuum recovery trial, associating vapour%' and f.model = 'nrtl'`.execute(t.db)
+    expect(hoc.rows).toHaveLength(1)
+    expect(hoc.rows[0].options.vapor?.correlation).toBe('hayden-oconnell')
+    expect(Math.abs(hoc.rows[0].activity.b12 - -253.88 * 4.184)).toBeLessThan(300)
+    expect(Math.abs(hoc.rows[0].activity.b21 - 845.21 * 4.184)).toBeLessThan(300)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)
