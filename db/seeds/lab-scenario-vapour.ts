@@ -121,6 +121,7 @@ async function haydenOConnellSeries(ctx: SeedContext): Promise<void> {
       y1: Math.round(Math.min(1, Math.max(0, b.y1 + 0.004 * rand.gaussian())) * 1e4) / 1e4,
       x1Uncertainty: 0.002,
       y1Uncertainty: 0.004,
+      pressureUncertaintyPa: null,
     }
   })
   const d = await datasets.createDataSet(ctx.db, ctx.users.analyst.id, {
