@@ -88,7 +88,7 @@ export interface LiquidLayerDto {
 }
 
 /** Activity models a fit can use. */
-export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
 
 /** A fitted parameter in thermo's name and unit (Margules/Van Laar A12, A21; Wilson a12, a21 J/mol; NRTL b12, b21 J/mol, alpha). */
 export interface FitParameterDto {

@@ -26,7 +26,7 @@ export const DATA_SET_STATES = ['draft', 'submitted', 'approved', 'returned', 's
 export type DataSetStateName = (typeof DATA_SET_STATES)[number]
 
 /** The activity models a data set can be fitted with. */
-export const FIT_MODELS = ['margules', 'van-laar', 'wilson', 'nrtl'] as const
+export const FIT_MODELS = ['margules', 'van-laar', 'wilson', 'nrtl', 'uniquac'] as const
 export type FitModel = (typeof FIT_MODELS)[number]
 
 /** Pressure units accepted wherever a pressure is given with its unit (converted to Pa by the API). */
@@ -222,7 +222,7 @@ const ALPHA_RANGE = 'NRTL α must be above 0 and at most 1'
  * components' liquid molar volumes (cm³/mol) from the component records; nothing to send for it.
  */
 export const fitRequestSchema = z.object({
-  models: z.array(z.enum(FIT_MODELS)).min(1, 'Choose at least one model').max(4),
+  models: z.array(z.enum(FIT_MODELS)).min(1, 'Choose at least one model').max(FIT_MODELS.length),
   /** default: 'bubble-pressure' for isothermal data, 'bubble-point' for isobaric data */
   objective: z.enum(['bubble-point', 'bubble-pressure', 'activity']).optional(),
   alpha: z.number({ message: 'Enter α as a number' }).gt(0, ALPHA_RANGE).max(1, ALPHA_RANGE).optional(),

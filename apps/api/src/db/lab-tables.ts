@@ -262,7 +262,7 @@ export interface PointInjectionTable {
 export interface FitTable {
   id: Generated<string>
   data_set_id: string
-  model: 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+  model: 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
   options: Json<Record<string, unknown>>
   activity: Json<Record<string, unknown>>
   parameters: Json<{ name: string; value: number; standardError: number | null; atBound?: boolean }[]>

@@ -102,6 +102,10 @@ export const MODEL_EQUATIONS: Record<string, string> = {
   wilson:
     'Wilson: Lambda12 = (V2/V1) exp(-a12/(R T)); Lambda21 = (V1/V2) exp(-a21/(R T)); ' +
     'ln gamma1 = -ln(x1 + x2 Lambda12) + x2 [Lambda12/(x1 + x2 Lambda12) - Lambda21/(x2 + x1 Lambda21)]',
+  uniquac:
+    'UNIQUAC (z = 10): tau12 = exp(-a12/(R T)); tau21 = exp(-a21/(R T)); theta_i = q_i x_i / sum(q x); Phi_i = r_i x_i / sum(r x); ' +
+    'l_i = 5 (r_i - q_i) - (r_i - 1); ln gamma1 = ln(Phi1/x1) + 5 q1 ln(theta1/Phi1) + l1 - (Phi1/x1) sum(x l) ' +
+    '+ q1 [1 - ln(theta1 + theta2 tau21) - theta1/(theta1 + theta2 tau21) - theta2 tau12/(theta1 tau12 + theta2)]',
   nrtl:
     'NRTL: tau12 = b12/(R T); tau21 = b21/(R T); G12 = exp(-alpha tau12); G21 = exp(-alpha tau21); ' +
     'ln gamma1 = x2^2 [tau21 (G21/(x1 + x2 G21))^2 + tau12 G12/(x2 + x1 G12)^2]',

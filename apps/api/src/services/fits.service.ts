@@ -12,7 +12,7 @@ import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel } from '@ebullio/schema
 import { canonicalJson8785, computedOn, currentPointSet, enginePoint, pointSetOf, withStale } from './point-set.js'
 import { areaTest, dataQualityScore, fitBinary, pointTest, type FitBinaryResult } from '@ebullio/thermo'
 import { EDITABLE_STATES, FITTABLE_STATES, requireState, thermo, visibleOrNotFound } from './lab-access.js'
-import { engineInputs } from './systems.service.js'
+import { engineInputs, uniquacStructure } from './systems.service.js'
 import {
   bandOf,
   ISOTHERMAL_BAND,
@@ -23,7 +23,7 @@ import {
 } from './uncertainty.service.js'
 
 /** The activity models a data set can be fitted with (thermo's fitBinary). */
-export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+export type FitModelName = 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
 
 export interface FitRequest {
   models: FitModelName[]
@@ -107,8 +107,10 @@ export async function runFits(db: Kysely<Database>, user: SessionUser, id: strin
   const inputs = await engineInputs(db, d.systemId, d.vaporModel)
   // A virial vapour is stored with the fit, with the critical data it used; an ideal one is not named (as before).
   const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
+  // UNIQUAC's r and q come from the components, stored with the fit; refused before anything runs when missing.
+  const structure = req.models.includes('uniquac') ? { uniquac: uniquacStructure(inputs.system) } : null
   const results = req.models.map((model) => {
-    const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
+    const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : model === 'uniquac' ? structure! : {}
     // The α used is stored with the fit, so a default α stays readable after the default changes.
     const nrtl = model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA, fitAlpha: req.fitAlpha ?? false } : {}
     const options = JSON.parse(
@@ -328,7 +330,12 @@ export async function runConsistency(db: Kysely<Database>, user: SessionUser, id
   const isothermal = dataKindOf(d.layout) === 'isothermal'
   const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
   const base = { vaporPressure: inputs.vaporPressure, ...vapor }
-  const volumes = model === 'wilson' ? { V1: inputs.V1, V2: inputs.V2 } : {}
+  const volumes =
+    model === 'wilson'
+      ? { V1: inputs.V1, V2: inputs.V2 }
+      : model === 'uniquac'
+        ? { uniquac: uniquacStructure(inputs.system) }
+        : {}
   const notRun: TestNotRun[] = []
   // the engine picks Herington's test for isobaric data and Redlich–Kister's for isothermal data, and says which ran
   const area = attempt('area', notRun, () => areaTest(pts, { ...base, kind: isothermal ? 'isothermal' : 'isobaric' }))

@@ -57,6 +57,26 @@ export interface EngineInputs {
  * thermo's vapour model for a data set's choice: a virial vapour takes each component's critical data (and its
  * liquid molar volume for the Poynting factor) from the component records; refused, naming what is missing.
  */
+/**
+ * UNIQUAC's structural parameters (r, q of each component, dimensionless) from the component records, for a UNIQUAC
+ * fit; refused (422 `missing_uniquac_data`) naming each component and what it lacks.
+ */
+export function uniquacStructure(system: repo.SystemRecord): { r1: number; r2: number; q1: number; q2: number } {
+  const comps = [system.component1, system.component2]
+  const gaps = comps.flatMap((c) => {
+    const missing = [...(c.properties?.uniquacR ? [] : ['UNIQUAC r']), ...(c.properties?.uniquacQ ? [] : ['UNIQUAC q'])]
+    return missing.length ? [`${c.name}: ${missing.join(', ')}`] : []
+  })
+  if (gaps.length)
+    throw new AppError(
+      422,
+      'missing_uniquac_data',
+      `A UNIQUAC fit needs each component's r and q; missing — ${gaps.join('; ')}. Enter them on the components screen (with their source).`,
+    )
+  const [a, b] = comps.map((c) => c.properties!)
+  return { r1: a.uniquacR!, r2: b.uniquacR!, q1: a.uniquacQ!, q2: b.uniquacQ! }
+}
+
 export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice | undefined): VaporModel {
   if (!choice || choice.kind === 'ideal') return { kind: 'ideal' }
   const comps = [system.component1, system.component2]

@@ -50,6 +50,7 @@ function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs
     vapor?: EngineInputs['vapor']
     V1?: number
     V2?: number
+    uniquac?: { r1: number; r2: number; q1: number; q2: number }
     alpha?: number
     fitAlpha?: boolean
   }
@@ -59,6 +60,7 @@ function fitSettings(fit: FitRecord, points: PointRecord[], inputs: EngineInputs
       objective: o.objective,
       V1: o.V1,
       V2: o.V2,
+      uniquac: o.uniquac,
       alpha: o.alpha,
       fitAlpha: o.fitAlpha,
       vaporPressure: inputs.vaporPressure,

@@ -17,7 +17,7 @@ import type { CommentItem } from './comments'
 import type { CalibrationSummary } from './uploads'
 
 export type DataSetState = DataSetStateDto
-export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl'
+export type ModelName = 'ideal' | 'margules' | 'van-laar' | 'wilson' | 'nrtl' | 'uniquac'
 
 export type DataSet = DataSetDto
 

@@ -160,6 +160,14 @@ export function fitsSection(m: ReportModel): Content {
         return `${p.name === 'alpha' ? 'α' : p.name} = ${sig(p.value, 6)}${se}${unit}`
       }),
       ...(held ? [`α = ${f.options.alpha} held`] : []),
+      // UNIQUAC's r and q, taken from the components (not fitted)
+      ...(f.model === 'uniquac'
+        ? [
+            (['r1', 'r2', 'q1', 'q2'] as const)
+              .map((k) => `${k} = ${sig((f.activity as Record<string, number>)[k], 4)}`)
+              .join(', ') + ' (components)',
+          ]
+        : []),
     ]
     return [
       {

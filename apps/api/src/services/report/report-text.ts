@@ -5,6 +5,7 @@ const MODEL_NAMES: Record<string, string> = {
   'van-laar': 'Van Laar',
   wilson: 'Wilson',
   nrtl: 'NRTL',
+  uniquac: 'UNIQUAC',
   ideal: 'Ideal (Raoult)',
 }
 export const modelName = (m: string) => MODEL_NAMES[m] ?? m

@@ -13,9 +13,10 @@ export const MODEL_LABELS: Record<ModelName, string> = {
   'van-laar': 'Van Laar',
   wilson: 'Wilson',
   nrtl: 'NRTL',
+  uniquac: 'UNIQUAC',
 }
 /** Models the server fits; the ideal solution is drawn as a reference curve, it has nothing to fit. */
-export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl']
+export const MODEL_ORDER: ModelName[] = ['margules', 'van-laar', 'wilson', 'nrtl', 'uniquac']
 
 /** How a fit is named on every screen and in every export: one shared rule (packages/schemas/src/fit-label.ts). */
 import { fitLabel, labelWithNote } from '@ebullio/schemas'
