@@ -1,5 +1,5 @@
 /** ECharts options of the calibration review: the calibration with its ±2σ band, and the residual of each standard. */
-import { baseOption, fmt, INK, LIQUID, MUTED, valueAxis, WARN } from '../plots/plot-style'
+import { baseOption, fmt, INK, LIQUID, MUTED, valueAxis, WARN, MARK_PRECISION } from '../plots/plot-style'
 import type { CalibrationPlotData, StandardReview } from './calibration-review'
 
 const LINE_COLOUR = '#2c5d9e'
@@ -96,6 +96,7 @@ export function residualOption(rows: StandardReview[], title: string): Record<st
           color: (o: { dataIndex: number }) => (rows[o.dataIndex].withinLimit === false ? WARN : LIQUID.colour),
         },
         markLine: {
+          precision: MARK_PRECISION,
           silent: true,
           symbol: 'none',
           lineStyle: { color: INK, type: 'solid' },

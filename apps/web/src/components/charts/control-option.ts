@@ -4,7 +4,7 @@
  * rule in the tooltip. Limits and flags come from @ebullio/thermo's `controlChart`.
  */
 import { CONTROL_RULE_TEXT, type ControlChartResult } from '@ebullio/thermo'
-import { baseOption, fmt, INK, MUTED, valueAxis, WARN } from '../plots/plot-style'
+import { baseOption, fmt, INK, MUTED, valueAxis, WARN, MARK_PRECISION } from '../plots/plot-style'
 
 /** One result on a control chart. */
 export interface ControlPoint {
@@ -103,6 +103,7 @@ export function controlOption(o: ControlOptionInput): Record<string, unknown> {
         showSymbol: true,
         lineStyle: { color: INK, width: 1, opacity: 0.5 },
         markLine: {
+          precision: MARK_PRECISION,
           silent: true,
           symbol: 'none',
           data: [

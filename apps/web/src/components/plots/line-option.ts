@@ -1,5 +1,5 @@
 /** ECharts option of the generic line plot (α against x, batch-still traces, ln γ1/γ2 ...). */
-import { baseOption, CURVE_COLOURS, fmt, legendFor, valueAxis } from './plot-style'
+import { baseOption, CURVE_COLOURS, fmt, legendFor, valueAxis, MARK_PRECISION } from './plot-style'
 import type { LineSeries } from './plot-types'
 
 /** Inputs of `lineOption`; see LinePlot.vue. */
@@ -49,6 +49,7 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
   })
   if (o.cursorX !== undefined && o.cursorX !== null && series.length) {
     series[0].markLine = {
+      precision: MARK_PRECISION,
       silent: true,
       symbol: 'none',
       label: { show: false },
@@ -65,6 +66,7 @@ export function lineOption(o: LineOptionInput): Record<string, unknown> {
       data: [],
       yAxisIndex: 0,
       markLine: {
+        precision: MARK_PRECISION,
         silent: true,
         symbol: 'none',
         label: {

@@ -9,6 +9,11 @@ export const INK = '#221f1b'
 export const MUTED = '#635e53'
 export const LINE = '#e0ddd5'
 export const WARN = '#a3321f'
+/**
+ * Decimals ECharts keeps of a mark line's value. Its default, 2, moves a line to the rounded value: GC check-standard
+ * limits of ±0.0035 and a Δy₁ band of ±0.001 were drawn on zero (mark-lines.test.ts).
+ */
+export const MARK_PRECISION = 12
 /** Liquid points are teal circles, vapour points amber diamonds: shape and colour both tell them apart. */
 export const LIQUID = { colour: '#1a545c', symbol: 'circle' }
 export const VAPOUR = { colour: '#c98a12', symbol: 'diamond' }

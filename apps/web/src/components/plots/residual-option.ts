@@ -1,5 +1,15 @@
 /** ECharts option of a residual plot: residual against x1 with a ±2σ band per model. */
-import { baseOption, CURVE_COLOURS, escapeHtml, fmt, fractionAxis, legendFor, MUTED, valueAxis } from './plot-style'
+import {
+  baseOption,
+  CURVE_COLOURS,
+  escapeHtml,
+  fmt,
+  fractionAxis,
+  legendFor,
+  MUTED,
+  valueAxis,
+  MARK_PRECISION,
+} from './plot-style'
 import type { ResidualSeries } from './plot-types'
 
 /** Inputs of `residualOption`; see ResidualPlot.vue. */
@@ -21,6 +31,7 @@ export const RESIDUAL_TOP_PX = 52
 /** Build the whole option. */
 export function residualOption(o: ResidualOptionInput): Record<string, unknown> {
   const base = baseOption(o.title)
+  const band2 = Math.max(0, ...o.series.map((s) => (s.sigma && s.sigma > 0 ? 2 * s.sigma : 0)))
   const series = o.series.flatMap((s, i) => {
     const colour = CURVE_COLOURS[i % CURVE_COLOURS.length]
     const band =
@@ -45,6 +56,7 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
         markArea: band,
         markLine: s.sigma
           ? {
+              precision: MARK_PRECISION,
               silent: true,
               symbol: 'none',
               label: { show: false },
@@ -84,7 +96,21 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
     legend,
     grid: { left: 70, right: 20, top: o.series.length ? top : 14, bottom: 52 },
     xAxis: fractionAxis(`x₁ (${o.names[0]})`),
-    yAxis: valueAxis(o.quantity, { nameGap: 52, scale: false }),
+    // the axis reaches the widest ±2σ band too (ECharts sizes it by the points alone, and lines off the axis are
+    // not drawn)
+    yAxis: valueAxis(o.quantity, {
+      nameGap: 52,
+      scale: false,
+      min: (v: { min: number }) => -niceCeil(Math.max(-v.min, 1.05 * band2)),
+      max: (v: { max: number }) => niceCeil(Math.max(v.max, 1.05 * band2)),
+    }),
     series,
   }
+}
+
+/** x rounded up to a multiple of half its power of ten (0.00105 → 0.0015, 0.83 → 0.85); 0 or less stays 0. */
+export function niceCeil(x: number): number {
+  if (!(x > 0)) return 0
+  const step = 10 ** Math.floor(Math.log10(x)) / 2
+  return Number((Math.ceil(x / step - 1e-9) * step).toPrecision(12))
 }
