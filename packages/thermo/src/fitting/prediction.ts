@@ -6,8 +6,8 @@ import { bubbleSensitivities, perturbedModels } from './objectives.js'
 import { parameterLayout } from './parameters.js'
 import { point, pointSensitivities, solvePoint } from './model-point.js'
 
-/** Bubble points and their parameter sensitivities along a list of liquid compositions at P (Pa). */
-export function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
+/** The fitted model compiled for sensitivities: the system, the free parameters and the models at θ + h·e_j. */
+function fittedModel(fit: FitBinaryResult) {
   const s = fit.settings
   const layout = parameterLayout(s.model, {
     V1: s.V1,
@@ -22,9 +22,25 @@ export function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
     fit.parameters.filter((q) => !q.atBound),
     (q) => q.value,
   )
-  const c = compileSystem(fit.system)
-  const pm = perturbedModels(layout, p)
-  const m = p.length
+  return { c: compileSystem(fit.system), pm: perturbedModels(layout, p), m: p.length }
+}
+
+/** n liquid compositions on a cosine grid from 0 to 1 (denser at the ends), for a band. */
+function bandGrid(n: number): number[] {
+  checkCount('band points', n, 3, 1001)
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
+}
+
+/** The band's warning when the covariance cannot be used. */
+function covarianceWarnings(fit: FitBinaryResult): string[] {
+  return fit.covariance.flat().every(Number.isFinite)
+    ? []
+    : ['The fit has no usable covariance, so the band cannot be drawn.']
+}
+
+/** Bubble points and their parameter sensitivities along a list of liquid compositions at P (Pa). */
+export function sensitivities(fit: FitBinaryResult, P: number, xs: number[]) {
+  const { c, pm, m } = fittedModel(fit)
   const dlng = new Float64Array(2 * m)
   const lnP = Math.log(P)
   let T = NaN
@@ -97,13 +113,9 @@ export interface PredictionBand {
  */
 export function predictionBand(fit: FitBinaryResult, options: { P: number; points?: number }): PredictionBand {
   checkPressure(options.P)
-  const n = options.points ?? 51
-  checkCount('band points', n, 3, 1001)
-  const xs = Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
+  const xs = bandGrid(options.points ?? 51)
   const rows = sensitivities(fit, options.P, xs)
-  const warnings = fit.covariance.flat().every(Number.isFinite)
-    ? []
-    : ['The fit has no usable covariance, so the band cannot be drawn.']
+  const warnings = covarianceWarnings(fit)
   const sigmaT = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gT)))
   const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
   return {
@@ -148,24 +160,8 @@ export function predictionBandIsothermal(
 ): PredictionBandIsothermal {
   const T = options.T
   checkTemperature(T)
-  const n = options.points ?? 51
-  checkCount('band points', n, 3, 1001)
-  const xs = Array.from({ length: n }, (_, i) => (i === n - 1 ? 1 : 0.5 * (1 - Math.cos((Math.PI * i) / (n - 1)))))
-  const s = fit.settings
-  const layout = parameterLayout(s.model, {
-    V1: s.V1,
-    V2: s.V2,
-    uniquac: s.uniquac,
-    temperatureDependent: s.temperatureDependent,
-    alpha: s.alpha,
-    fitAlpha: s.fitAlpha,
-  })
-  const p = Float64Array.from(
-    fit.parameters.filter((q) => !q.atBound),
-    (q) => q.value,
-  )
-  const c = compileSystem(fit.system)
-  const pm = perturbedModels(layout, p)
+  const xs = bandGrid(options.points ?? 51)
+  const { c, pm, m } = fittedModel(fit)
   const ctx = { vp1: c.vp1, vp2: c.vp2, gv: c.gv, isothermal: true }
   const rows = xs.map((x1) => {
     if (!solvePoint(c.act, ctx, x1, T, NaN, T)) {
@@ -176,14 +172,12 @@ export function predictionBandIsothermal(
     }
     const P = point[0]
     const y1 = point[1]
-    const gP = new Float64Array(p.length)
-    const gY = new Float64Array(p.length)
+    const gP = new Float64Array(m)
+    const gY = new Float64Array(m)
     pointSensitivities(c.act, ctx, x1, pm, gP, gY)
     return { P, y1, gP, gY }
   })
-  const warnings = fit.covariance.flat().every(Number.isFinite)
-    ? []
-    : ['The fit has no usable covariance, so the band cannot be drawn.']
+  const warnings = covarianceWarnings(fit)
   const sigmaP = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gP)))
   const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
   return {
