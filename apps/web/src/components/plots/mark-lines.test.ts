@@ -8,7 +8,7 @@ import { controlChart } from '@ebullio/thermo'
 import * as echarts from 'echarts'
 import { describe, expect, it } from 'vitest'
 import { controlOption } from '../charts/control-option'
-import { niceCeil, residualOption } from './residual-option'
+import { residualOption } from './residual-option'
 
 /** The y pixel of every horizontal straight segment in the rendered SVG. */
 function horizontalRows(option: Record<string, unknown>) {
@@ -21,7 +21,25 @@ function horizontalRows(option: Record<string, unknown>) {
     if (Math.abs(y1 - y2) < 0.01 && Math.abs(Number(m[1]) - Number(m[3])) > 50) rows.push(y1)
   }
   const pixel = (v: number) => chart.convertToPixel({ yAxisIndex: 0 }, v) as number
-  return { rows, pixel, dispose: () => chart.dispose() }
+  // the y axis's ends and tick step as ECharts chose them
+  const scale = (
+    chart as unknown as {
+      getModel: () => {
+        getComponent: (t: string) => {
+          axis: { scale: { getExtent: () => number[]; getTicks: () => { value: number }[] } }
+        }
+      }
+    }
+  )
+    .getModel()
+    .getComponent('yAxis').axis.scale
+  return {
+    rows,
+    pixel,
+    extent: scale.getExtent(),
+    ticks: scale.getTicks().map((t) => t.value),
+    dispose: () => chart.dispose(),
+  }
 }
 
 const near = (rows: number[], y: number) => rows.some((r) => Math.abs(r - y) < 1)
@@ -44,7 +62,7 @@ describe('lines at a value are drawn at that value', () => {
 
   it('the ±2σ lines of vapour-composition residuals (σ = 0.0005)', () => {
     const sigma = 0.0005
-    const { rows, pixel, dispose } = horizontalRows(
+    const { rows, pixel, extent, ticks, dispose } = horizontalRows(
       residualOption({
         title: 'Δy₁',
         quantity: 'Δy₁',
@@ -66,17 +84,13 @@ describe('lines at a value are drawn at that value', () => {
     expect(near(rows, pixel(2 * sigma))).toBe(true)
     expect(near(rows, pixel(-2 * sigma))).toBe(true)
     expect(Math.abs(pixel(2 * sigma) - pixel(0))).toBeGreaterThan(20)
+    // the axis reaches the band and still ends on round ticks (no crowded odd end label)
+    expect(extent[0]).toBeLessThanOrEqual(-2 * sigma)
+    expect(extent[1]).toBeGreaterThanOrEqual(2 * sigma)
+    expect(ticks[0]).toBeCloseTo(extent[0], 12)
+    expect(ticks[ticks.length - 1]).toBeCloseTo(extent[1], 12)
+    const steps = ticks.slice(1).map((t, i) => t - ticks[i])
+    for (const d of steps) expect(d).toBeCloseTo(steps[0], 12)
     dispose()
   })
-})
-
-describe('niceCeil (residual axis ends)', () => {
-  it.each([
-    [0.00105, 0.0015],
-    [0.001, 0.001],
-    [0.83, 0.85],
-    [3.2, 3.5],
-    [0, 0],
-    [-1, 0],
-  ])('%s → %s', (x, nice) => expect(niceCeil(x)).toBe(nice))
 })

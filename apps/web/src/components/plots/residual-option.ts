@@ -83,6 +83,20 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
     lineStyle: { color: MUTED, width: 1 },
     color: MUTED,
   } as never)
+  // Two invisible points at ±1.05 × the widest 2σ: ECharts sizes the axis by data (not by mark lines, which are not
+  // drawn off the axis), and so still picks round ends and ticks.
+  if (band2 > 0)
+    series.push({
+      type: 'scatter',
+      name: 'band extent',
+      silent: true,
+      symbolSize: 0,
+      tooltip: { show: false },
+      data: [
+        [0.5, -1.05 * band2],
+        [0.5, 1.05 * band2],
+      ],
+    } as never)
   const selected = Object.fromEntries(o.series.map((s) => [s.name, !s.hidden]))
   // Every fit's entry shown at once (no paging arrows): the legend wraps and the grid starts below its rows;
   // ResidualPlot grows by the same amount so the plotting area keeps its height.
@@ -96,21 +110,7 @@ export function residualOption(o: ResidualOptionInput): Record<string, unknown> 
     legend,
     grid: { left: 70, right: 20, top: o.series.length ? top : 14, bottom: 52 },
     xAxis: fractionAxis(`x₁ (${o.names[0]})`),
-    // the axis reaches the widest ±2σ band too (ECharts sizes it by the points alone, and lines off the axis are
-    // not drawn)
-    yAxis: valueAxis(o.quantity, {
-      nameGap: 52,
-      scale: false,
-      min: (v: { min: number }) => -niceCeil(Math.max(-v.min, 1.05 * band2)),
-      max: (v: { max: number }) => niceCeil(Math.max(v.max, 1.05 * band2)),
-    }),
+    yAxis: valueAxis(o.quantity, { nameGap: 52, scale: false }),
     series,
   }
-}
-
-/** x rounded up to a multiple of half its power of ten (0.00105 → 0.0015, 0.83 → 0.85); 0 or less stays 0. */
-export function niceCeil(x: number): number {
-  if (!(x > 0)) return 0
-  const step = 10 ** Math.floor(Math.log10(x)) / 2
-  return Number((Math.ceil(x / step - 1e-9) * step).toPrecision(12))
 }
