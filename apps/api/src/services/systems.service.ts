@@ -54,10 +54,6 @@ export interface EngineInputs {
 }
 
 /**
- * thermo's vapour model for a data set's choice: a virial vapour takes each component's critical data (and its
- * liquid molar volume for the Poynting factor) from the component records; refused, naming what is missing.
- */
-/**
  * UNIQUAC's structural parameters (r, q of each component, dimensionless) from the component records, for a UNIQUAC
  * fit; refused (422 `missing_uniquac_data`) naming each component and what it lacks.
  */
@@ -77,6 +73,10 @@ export function uniquacStructure(system: repo.SystemRecord): { r1: number; r2: n
   return { r1: a.uniquacR!, r2: b.uniquacR!, q1: a.uniquacQ!, q2: b.uniquacQ! }
 }
 
+/**
+ * thermo's vapour model for a data set's choice: a virial vapour takes each component's critical data (and its
+ * liquid molar volume for the Poynting factor) from the component records; refused, naming what is missing.
+ */
 export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice | undefined): VaporModel {
   if (!choice || choice.kind === 'ideal') return { kind: 'ideal' }
   const comps = [system.component1, system.component2]
