@@ -78,3 +78,34 @@ describe('route table', () => {
     ).toThrow(/must start with \/api\/<literal segment>/)
   })
 })
+
+describe('a failing request', () => {
+  it('logs the error and its "request failed" line at error level, both with the request id', async () => {
+    const { createApp } = await import('../src/app.js')
+    const out: string[] = []
+    const sink2 = new Writable({
+      write(chunk, _enc, done) {
+        out.push(String(chunk))
+        done()
+      },
+    })
+    // /api/health needs no session, so a throwing stand-in there runs the real stack around it
+    const handler = () => {
+      throw new Error('boom')
+    }
+    const app = createApp({ db: t.db, config: t.config, mailer: t.mailer } as never, pino({ level: 'info' }, sink2), [
+      { method: 'get', path: '/api/health', access: 'public', handler },
+    ])
+    const r = await agent(app).get('/api/health').set('X-Request-Id', 'fail-7').expect(500)
+    expect(r.body.requestId).toBe('fail-7')
+    for (let i = 0; i < 50 && !out.some((l) => l.includes('request failed')); i++)
+      await new Promise((done) => setTimeout(done, 10))
+    const mine = out
+      .map((l) => JSON.parse(l) as { level: number; msg: string; req?: { id?: string } })
+      .filter((e) => e.req?.id === 'fail-7')
+    expect(mine.map((e) => [e.level, e.msg])).toEqual([
+      [50, 'unhandled error'],
+      [50, 'request failed'],
+    ])
+  })
+})
