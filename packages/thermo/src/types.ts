@@ -33,7 +33,21 @@ export type ActivityModel =
   | { kind: 'wilson'; a12: number; a21: number; V1: number; V2: number; a12T?: number; a21T?: number }
   /** NRTL; b12T, b21T (J/(mol·K)) make the energies temperature-dependent: b(T) = b + bT·(T − 298.15 K). */
   | { kind: 'nrtl'; b12: number; b21: number; alpha: number; b12T?: number; b21T?: number }
-  | { kind: 'uniquac'; a12: number; a21: number; r1: number; r2: number; q1: number; q2: number }
+  /**
+   * UNIQUAC (z = 10; r, q dimensionless); a12T, a21T (J/(mol·K)) make the energies temperature-dependent:
+   * a(T) = a + aT·(T − 298.15 K), τij = exp(−aij(T)/RT).
+   */
+  | {
+      kind: 'uniquac'
+      a12: number
+      a21: number
+      r1: number
+      r2: number
+      q1: number
+      q2: number
+      a12T?: number
+      a21T?: number
+    }
 
 /**
  * A binary mixture: γ from the activity model; the vapour ideal (modified Raoult's law) unless `vapor` is a virial

@@ -49,6 +49,8 @@ export function checkActivityModel(model: ActivityModel): void {
     case 'uniquac':
       if (!finite(model.a12, model.a21))
         throw new ThermoError('invalid-model', 'UNIQUAC parameters a12 and a21 must be finite numbers (J/mol).')
+      if (!finite(model.a12T ?? 0, model.a21T ?? 0))
+        throw new ThermoError('invalid-model', 'UNIQUAC parameters a12T and a21T must be finite numbers (J/(mol·K)).')
       if (![model.r1, model.r2, model.q1, model.q2].every((v) => Number.isFinite(v) && v > 0)) {
         throw new ThermoError('invalid-model', 'UNIQUAC needs positive structural parameters r1, r2, q1 and q2.')
       }

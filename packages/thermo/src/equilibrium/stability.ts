@@ -105,7 +105,7 @@ function snapshot(act: ActivityModel): number[] {
     case 'nrtl':
       return [act.b12, act.b21, act.alpha, act.b12T ?? 0, act.b21T ?? 0]
     case 'uniquac':
-      return [act.a12, act.a21, act.r1, act.r2, act.q1, act.q2]
+      return [act.a12, act.a21, act.r1, act.r2, act.q1, act.q2, act.a12T ?? 0, act.a21T ?? 0]
   }
 }
 
@@ -126,7 +126,14 @@ function same(act: ActivityModel, kind: string, v: number[]): boolean {
       )
     case 'uniquac':
       return (
-        act.a12 === v[0] && act.a21 === v[1] && act.r1 === v[2] && act.r2 === v[3] && act.q1 === v[4] && act.q2 === v[5]
+        act.a12 === v[0] &&
+        act.a21 === v[1] &&
+        act.r1 === v[2] &&
+        act.r2 === v[3] &&
+        act.q1 === v[4] &&
+        act.q2 === v[5] &&
+        (act.a12T ?? 0) === v[6] &&
+        (act.a21T ?? 0) === v[7]
       )
     default:
       return true

@@ -22,7 +22,7 @@ export interface FitBinaryOptions {
   V2?: number
   /** UNIQUAC structure parameters r and q of both components (UNIQUAC only). */
   uniquac?: UniquacStructure
-  /** NRTL or Wilson energies linear in T: b(T) = b + bT·(T − 298.15 K), bT fitted (J/(mol·K)); α held. */
+  /** NRTL, Wilson or UNIQUAC energies linear in T: b(T) = b + bT·(T − 298.15 K), bT fitted (J/(mol·K)); α held. */
   temperatureDependent?: boolean
   /** NRTL α, default 0.3 (fixed unless fitAlpha). */
   alpha?: number

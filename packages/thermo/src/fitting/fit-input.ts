@@ -131,8 +131,11 @@ export function checkModelOptions(o: {
       )
     }
   }
-  if (o.temperatureDependent && o.model !== 'nrtl' && o.model !== 'wilson') {
-    throw new ThermoError('invalid-input', 'Temperature-dependent parameters are available for NRTL and Wilson only.')
+  if (o.temperatureDependent && o.model !== 'nrtl' && o.model !== 'wilson' && o.model !== 'uniquac') {
+    throw new ThermoError(
+      'invalid-input',
+      'Temperature-dependent parameters are available for NRTL, Wilson and UNIQUAC only.',
+    )
   }
   if (o.temperatureDependent && o.fitAlpha) {
     throw new ThermoError(

@@ -172,3 +172,93 @@ describe('joint fit over isothermal and isobaric data sets (bubble-pressure and 
     ).toThrow('Data set "iso-333K": kind must be isobaric or isothermal; got "adiabatic".')
   })
 })
+
+describe('joint fit with temperature-dependent UNIQUAC energies', () => {
+  // Ethanol (1) / water (2): Antoine constants from Smith, Van Ness & Abbott, 7th ed., Table B.2; UNIQUAC r, q of
+  // ethanol (2.1055, 1.972) and water (0.92, 1.40) as tabulated by Prausnitz et al., Molecular Thermodynamics of
+  // Fluid-Phase Equilibria (from memory). The energies and their temperature slopes are invented for the round trip.
+  const vp: [VaporPressureModel, VaporPressureModel] = [
+    { kind: 'antoine', A: 16.8958, B: 3795.17, C: 230.918, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' },
+    vaporPressure[1],
+  ]
+  const uniquac = { r1: 2.1055, r2: 0.92, q1: 1.972, q2: 1.4 }
+  const want = [-350, 1450, 2.5, -6]
+  const sys: BinarySystem = {
+    vaporPressure: vp,
+    activity: { kind: 'uniquac', a12: want[0], a21: want[1], ...uniquac, a12T: want[2], a21T: want[3] },
+  }
+  /** 20 points at P; `scatter` adds a deterministic scatter of about 0.1 K and 0.005 in y (the default σT, σy). */
+  const at = (P: number, seed: number, scatter: number) =>
+    Array.from({ length: 20 }, (_, i) => {
+      const x1 = 0.03 + (0.94 * i) / 19
+      const b = bubbleTemperature(sys, { P, x1 })
+      return {
+        T: b.T + scatter * 0.1 * Math.sin(3.7 * i + seed),
+        P,
+        x1,
+        y1: b.y1 + scatter * 0.005 * Math.cos(2.3 * i + seed),
+      }
+    })
+  const sets = (scatter: number) => [
+    { id: 'A-30kPa', points: at(30000, 1, scatter) },
+    { id: 'B-1atm', points: at(101325, 2, scatter) },
+    { id: 'C-300kPa', points: at(300000, 3, scatter) },
+  ]
+
+  it('recovers a12, a21, a12T and a21T from exact data at three pressures (30–300 kPa)', () => {
+    const fit = fitJoint({ dataSets: sets(0), vaporPressure: vp, model: 'uniquac', uniquac })
+    expect(fit.parameters.map((p) => p.name)).toEqual(['a12', 'a21', 'a12T', 'a21T'])
+    // exact data: the optimum is the truth itself (J/mol to 1e-3, J/(mol·K) to 1e-5)
+    fit.parameters.forEach((p, j) => expect(Math.abs(p.value - want[j])).toBeLessThan(j < 2 ? 1e-3 : 1e-5))
+    expect(fit.activity).toMatchObject({ kind: 'uniquac', ...uniquac })
+    expect(fit.objective).toBeLessThan(1e-12)
+    expect(fit.settings).toMatchObject({ model: 'uniquac', uniquac, temperatureDependent: true })
+  })
+
+  it('from scattered data: within 3 standard errors, with a sane covariance', () => {
+    const fit = fitJoint({ dataSets: sets(1), vaporPressure: vp, model: 'uniquac', uniquac })
+    expect(fit.converged).toBe(true)
+    fit.parameters.forEach((p, j) => expect(Math.abs(p.value - want[j])).toBeLessThan(3 * p.standardError!))
+    const C = fit.covariance
+    expect(C).toHaveLength(4)
+    for (let i = 0; i < 4; i++) {
+      // the diagonal is the squared standard error; the matrix is symmetric, correlations inside [−1, 1]
+      expect(Math.sqrt(C[i][i])).toBeCloseTo(fit.parameters[i].standardError!, 10)
+      expect(fit.correlation[i][i]).toBeCloseTo(1, 12)
+      for (let j = 0; j < 4; j++) {
+        expect(C[i][j]).toBeCloseTo(C[j][i], 10)
+        expect(Math.abs(fit.correlation[i][j])).toBeLessThanOrEqual(1 + 1e-12)
+      }
+    }
+    // positive definite: a Cholesky factorisation exists (every pivot positive)
+    const L = C.map((r) => r.map(() => 0))
+    for (let i = 0; i < 4; i++)
+      for (let j = 0; j <= i; j++) {
+        let s = C[i][j]
+        for (let k = 0; k < j; k++) s -= L[i][k] * L[j][k]
+        if (i === j) {
+          expect(s).toBeGreaterThan(0)
+          L[i][i] = Math.sqrt(s)
+        } else L[i][j] = s / L[j][j]
+      }
+    // the scatter is the fit's default σ, so the residual variance is near 1 and the points fit to about 0.1 K
+    expect(fit.rmsT).toBeLessThan(0.12)
+    for (const d of fit.dataSets) expect(Math.abs(d.biasT)).toBeLessThan(0.05)
+    // 60 points over 30–300 kPa pin each energy to under 100 J/mol and each slope to under 1.5 J/(mol·K) (measured:
+    // a12 −354.6 ± 61.4, a21 1454.0 ± 80.5, a12T 2.81 ± 1.02, a21T −6.36 ± 1.25)
+    expect(fit.parameters.map((p) => p.standardError! < (p.name.endsWith('T') ? 1.5 : 100))).toEqual([
+      true,
+      true,
+      true,
+      true,
+    ])
+    // UNIQUAC's two energies trade off against each other (common practice, no source): strongly anti-correlated
+    expect(fit.correlation[0][1]).toBeLessThan(-0.95)
+  })
+
+  it('refuses without r and q, naming them', () => {
+    expect(() => fitJoint({ dataSets: sets(0), vaporPressure: vp, model: 'uniquac' })).toThrow(
+      'UNIQUAC needs the structure parameters r1, r2, q1 and q2 (positive numbers) of both components.',
+    )
+  })
+})

@@ -3,6 +3,7 @@ import type { VaporPressureModel } from '../types.js'
 import type { VaporModel } from '../virial/virial-types.js'
 import { fitBinary, type FitBinaryResult } from './fit-binary.js'
 import type { BinaryPoint } from './fit-input.js'
+import type { UniquacStructure } from './parameters.js'
 
 /** One data set of a joint fit: its points, whether it was measured at fixed P or fixed T, and its vapour model. */
 export interface JointFitMember {
@@ -21,13 +22,15 @@ export interface JointFitMember {
 export interface JointFitOptions {
   dataSets: JointFitMember[]
   vaporPressure: [VaporPressureModel, VaporPressureModel]
-  model: 'nrtl' | 'wilson'
+  model: 'nrtl' | 'wilson' | 'uniquac'
   /** Liquid molar volumes, cm³/mol (Wilson only). */
   V1?: number
   V2?: number
+  /** UNIQUAC structure parameters r and q of both components (UNIQUAC only; refused naming them when absent). */
+  uniquac?: UniquacStructure
   /** NRTL α (held), default 0.3. */
   alpha?: number
-  /** Fit b12T, b21T (or a12T, a21T) too; default true. */
+  /** Fit b12T, b21T (NRTL) or a12T, a21T (Wilson, UNIQUAC) too; default true. */
   temperatureDependent?: boolean
   /** The vapour model of members that do not give their own (absent: ideal), as in fitBinary. */
   vapor?: VaporModel
@@ -102,7 +105,8 @@ function commonVapor(sets: JointFitMember[], fallback: VaporModel | undefined): 
 
 /**
  * One parameter set for several data sets of one system (different pressures or temperatures): the points of every
- * data set are fitted together, with temperature-dependent energies b(T) = b + bT·(T − 298.15 K) by default, so the
+ * data set are fitted together (NRTL, Wilson or UNIQUAC), with temperature-dependent energies
+ * b(T) = b + bT·(T − 298.15 K) by default, so the
  * parameters hold over the whole range. An isobaric member's points are compared by their bubble temperatures at
  * their own P (ΔT/σT), an isothermal member's by their bubble pressures at their own T (ΔP/σP), both with Δy/σy:
  * the objective Σ[(ΔT/σT)² or (ΔP/σP)² + (Δy/σy)²] over all points, weights and statistics as in fitBinary.
@@ -144,6 +148,7 @@ export function fitJoint(options: JointFitOptions): JointFitResult {
     model: options.model,
     V1: options.V1,
     V2: options.V2,
+    uniquac: options.uniquac,
     alpha: options.alpha,
     temperatureDependent: options.temperatureDependent ?? true,
     objective: allIso ? 'bubble-pressure' : 'bubble-point',

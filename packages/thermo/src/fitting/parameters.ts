@@ -70,7 +70,7 @@ export function parameterLayout(
     temperatureDependent?: boolean
   },
 ): ParameterLayout {
-  if (opts.temperatureDependent && (model === 'nrtl' || model === 'wilson'))
+  if (opts.temperatureDependent && (model === 'nrtl' || model === 'wilson' || model === 'uniquac'))
     return temperatureDependentLayout(model, opts)
   switch (model) {
     case 'uniquac': {
@@ -147,12 +147,12 @@ export function parameterLayout(
 }
 
 /**
- * Temperature-dependent NRTL (b12, b21, b12T, b21T) or Wilson (a12, a21, a12T, a21T) energies,
+ * Temperature-dependent NRTL (b12, b21, b12T, b21T), Wilson or UNIQUAC (a12, a21, a12T, a21T) energies,
  * b(T) = b + bT·(T − 298.15 K); bT in J/(mol·K). NRTL α is held (not fitted) in this layout.
  */
 function temperatureDependentLayout(
-  model: 'nrtl' | 'wilson',
-  opts: { V1?: number; V2?: number; alpha: number },
+  model: 'nrtl' | 'wilson' | 'uniquac',
+  opts: { V1?: number; V2?: number; alpha: number; uniquac?: UniquacStructure },
 ): ParameterLayout {
   const starts = grid(ENERGY_GRID).map(([a, b]) => [a, b, 0, 0])
   const valid = (p: ArrayLike<number>) =>
@@ -166,6 +166,16 @@ function temperatureDependentLayout(
       valid,
       starts,
       gradient: nrtlGradient(true),
+    }
+  }
+  if (model === 'uniquac') {
+    const rq = opts.uniquac as UniquacStructure
+    return {
+      names: ['a12', 'a21', 'a12T', 'a21T'],
+      scales: [100, 100, 1, 1],
+      build: (p) => ({ kind: 'uniquac', a12: p[0], a21: p[1], ...rq, a12T: p[2], a21T: p[3] }),
+      valid,
+      starts,
     }
   }
   const V1 = opts.V1 as number
