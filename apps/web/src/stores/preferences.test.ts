@@ -46,6 +46,19 @@ describe('preferences: display units', () => {
     expect(p.fmtP(101325)).toBe('14.696 psi')
   })
 
+  it('names the condition of a series: its temperature when isothermal, else its pressure, in the chosen units', () => {
+    const p = usePreferencesStore()
+    // an isothermal series has no nominal pressure; showing 0 kPa (as the list once did) would be a wrong number
+    expect(p.fmtCondition({ nominalPressurePa: null, nominalTemperatureK: 328.15 })).toBe('55.00 °C (isothermal)')
+    expect(p.fmtCondition({ nominalPressurePa: 101325, nominalTemperatureK: null })).toBe('101.33 kPa')
+    expect(p.fmtCondition({ nominalPressurePa: 40000 })).toBe('40.00 kPa')
+    expect(p.fmtCondition({ nominalPressurePa: null })).toBe('—')
+    p.pressureUnit = 'mmHg'
+    p.temperatureUnit = 'F'
+    expect(p.fmtCondition({ nominalPressurePa: 101325 })).toBe('760.0 mmHg')
+    expect(p.fmtCondition({ nominalPressurePa: null, nominalTemperatureK: 328.15 })).toBe('131.00 °F (isothermal)')
+  })
+
   // Pascals per unit as printed in NIST SP 811 (2008 ed.), App. B.8 (7 significant figures, from memory).
   const PRINTED: [PressureChoiceName, number][] = [
     ['kPa', 1e3],

@@ -108,6 +108,14 @@ export const usePreferencesStore = defineStore('preferences', () => {
     P === null || P === undefined || !Number.isFinite(P)
       ? '—'
       : `${roundShown(pFromPa(P), decimals ?? pDecimals())} ${pLabel()}`
+  /**
+   * The condition a series was measured at: "55.00 °C (isothermal)" for isothermal data (its temperature is set),
+   * else its nominal pressure ("101.33 kPa"); "—" when neither is known.
+   */
+  const fmtCondition = (d: { nominalPressurePa: number | null; nominalTemperatureK?: number | null }) =>
+    d.nominalTemperatureK !== null && d.nominalTemperatureK !== undefined
+      ? `${fmtT(d.nominalTemperatureK)} (isothermal)`
+      : fmtP(d.nominalPressurePa)
 
   return {
     temperatureUnit,
@@ -125,5 +133,6 @@ export const usePreferencesStore = defineStore('preferences', () => {
     fmtT,
     fmtDT,
     fmtP,
+    fmtCondition,
   }
 })
