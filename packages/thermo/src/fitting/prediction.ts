@@ -106,6 +106,20 @@ export interface PredictionBand {
 }
 
 /**
+ * One predicted quantity along the grid with σ = √(gᵀ·C·g) from its sensitivities g and the fit's covariance C, and
+ * its ±2σ limits, clipped to [lo, hi] (0–1 for a mole fraction).
+ */
+function twoSigma(fit: FitBinaryResult, value: number[], g: Float64Array[], lo = -Infinity, hi = Infinity) {
+  const sigma = g.map((gi) => Math.sqrt(variance(fit.covariance, gi)))
+  return {
+    value,
+    sigma,
+    low: value.map((v, i) => Math.max(lo, v - 2 * sigma[i])),
+    high: value.map((v, i) => Math.min(hi, v + 2 * sigma[i])),
+  }
+}
+
+/**
  * The fitted T–x–y curve at P (Pa) with a ±2σ band from the parameter covariance, by linear
  * propagation σ² = gᵀ·C·g with g = ∂(T or y1)/∂θ. It shows how sure the fit is of the curve
  * (a confidence band of the model), not the scatter of a single new measurement.
@@ -115,21 +129,30 @@ export function predictionBand(fit: FitBinaryResult, options: { P: number; point
   checkPressure(options.P)
   const xs = bandGrid(options.points ?? 51)
   const rows = sensitivities(fit, options.P, xs)
-  const warnings = covarianceWarnings(fit)
-  const sigmaT = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gT)))
-  const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
+  const t = twoSigma(
+    fit,
+    rows.map((r) => r.T),
+    rows.map((r) => r.gT),
+  )
+  const y = twoSigma(
+    fit,
+    rows.map((r) => r.y1),
+    rows.map((r) => r.gY),
+    0,
+    1,
+  )
   return {
     P: options.P,
     x1: xs,
-    T: rows.map((r) => r.T),
-    y1: rows.map((r) => r.y1),
-    sigmaT,
-    sigmaY,
-    Tlow: rows.map((r, i) => r.T - 2 * sigmaT[i]),
-    Thigh: rows.map((r, i) => r.T + 2 * sigmaT[i]),
-    ylow: rows.map((r, i) => Math.max(0, r.y1 - 2 * sigmaY[i])),
-    yhigh: rows.map((r, i) => Math.min(1, r.y1 + 2 * sigmaY[i])),
-    warnings,
+    T: t.value,
+    y1: y.value,
+    sigmaT: t.sigma,
+    sigmaY: y.sigma,
+    Tlow: t.low,
+    Thigh: t.high,
+    ylow: y.low,
+    yhigh: y.high,
+    warnings: covarianceWarnings(fit),
   }
 }
 
@@ -177,20 +200,29 @@ export function predictionBandIsothermal(
     pointSensitivities(c.act, ctx, x1, pm, gP, gY)
     return { P, y1, gP, gY }
   })
-  const warnings = covarianceWarnings(fit)
-  const sigmaP = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gP)))
-  const sigmaY = rows.map((r) => Math.sqrt(variance(fit.covariance, r.gY)))
+  const p = twoSigma(
+    fit,
+    rows.map((r) => r.P),
+    rows.map((r) => r.gP),
+  )
+  const y = twoSigma(
+    fit,
+    rows.map((r) => r.y1),
+    rows.map((r) => r.gY),
+    0,
+    1,
+  )
   return {
     T,
     x1: xs,
-    P: rows.map((r) => r.P),
-    y1: rows.map((r) => r.y1),
-    sigmaP,
-    sigmaY,
-    Plow: rows.map((r, i) => r.P - 2 * sigmaP[i]),
-    Phigh: rows.map((r, i) => r.P + 2 * sigmaP[i]),
-    ylow: rows.map((r, i) => Math.max(0, r.y1 - 2 * sigmaY[i])),
-    yhigh: rows.map((r, i) => Math.min(1, r.y1 + 2 * sigmaY[i])),
-    warnings,
+    P: p.value,
+    y1: y.value,
+    sigmaP: p.sigma,
+    sigmaY: y.sigma,
+    Plow: p.low,
+    Phigh: p.high,
+    ylow: y.low,
+    yhigh: y.high,
+    warnings: covarianceWarnings(fit),
   }
 }
