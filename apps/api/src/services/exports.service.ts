@@ -77,7 +77,7 @@ export const VLE_RELATION_VIRIAL =
 /** The same under a Hayden–O'Connell virial vapour. */
 export const VLE_RELATION_VIRIAL_HOC = VLE_RELATION_VIRIAL.replace(
   'Tsonopoulos second virial coefficients',
-  "Hayden-O'Connell second virial coefficients, total B including the association terms",
+  "Hayden-O'Connell second virial coefficients, total B including the association terms; with a carboxylic acid (eta >= 4.5) the chemical theory of dimerisation instead: monomer-dimer equilibria with K_ij = -B_ij^D (2 - delta_ij)/RT, phi_i = z_iM phi_iM / y_i",
 )
 
 /** The relation a data set's fits use, worded for its kind of data and vapour model. */

@@ -3,7 +3,8 @@
  * equation (pressure-explicit form). ln φ̂1 = (P/RT)·(B11 + y2²·δ12), ln φ̂2 = (P/RT)·(B22 + y1²·δ12),
  * δ12 = 2·B12 − B11 − B22; φi_sat = exp(Bii·Pi_sat/RT); PFi = exp(Vi_L·(P − Pi_sat)/RT)
  * (Smith, Van Ness & Abbott, Introduction to Chemical Engineering Thermodynamics, 7th ed., §11.7 and §14.1;
- * from memory). The ideal-vapour path of the engine does not pass through this file.
+ * from memory). A Hayden–O'Connell vapour with a carboxylic acid (η or η12 ≥ 4.5) takes φ̂ and φ_sat from the
+ * chemical theory of dimerisation instead (chemical-theory.ts). The ideal-vapour path does not pass through this file.
  */
 import { lnGammaT } from '../activity/kernel.js'
 import { checkMoleFraction, checkPressure, checkTemperature, ThermoError } from '../errors.js'
@@ -19,13 +20,65 @@ import {
 } from '../equilibrium/system.js'
 import { R, type BinarySystem } from '../types.js'
 import { res } from '../equilibrium/kernel.js'
+import { chemicalConstants, lnPhiChemical, lnPhiSatChemical, species } from './chemical-theory.js'
 import { compiledVirial, solveBubblePGammaPhi, solveBubbleTGammaPhi } from './kernel.js'
-import { associationWarnings, secondVirialCoefficients } from './model.js'
+import { associationWarnings, secondVirialCoefficients, usesChemicalTheory } from './model.js'
 import type { VaporCorrection, VaporModel } from './virial-types.js'
 
 export type VirialVapor = Extract<VaporModel, { kind: 'virial' }>
 
-/** Vapour-phase correction factors at T (K), P (Pa), vapour y1, with the pure vapour pressures psat (Pa). */
+const cs = new Float64Array(6)
+const lnChem = new Float64Array(2)
+
+/**
+ * The chemical theory at T, P, y1 for a vapour it applies to (checked and compiled once): ln φ̂ into lnChem,
+ * B^F and K into cs. @returns the apparent molar volume, m³/mol.
+ */
+function chemicalState(vapor: VirialVapor, T: number, P: number, y1: number): number {
+  chemicalConstants(compiledVirial(vapor).hoc!, T, cs)
+  return lnPhiChemical(cs, T, P, y1, lnChem, 0)
+}
+
+/** The true species of a dimerising vapour at one state ({@link vaporSpeciation}). */
+export interface VaporSpeciation {
+  /** Mole fractions of the true species: monomers 1 and 2, dimers 11, 12 and 22 (they sum to 1). */
+  z: { m1: number; m2: number; d11: number; d12: number; d22: number }
+  /** Dimerisation constants Kij = zij/(zi·zj·P), 1/Pa. */
+  K: { K11: number; K22: number; K12: number }
+  /** The free (physical) parts of B, cm³/mol. */
+  freeB: { B11: number; B22: number; B12: number }
+  /** Apparent moles per mole of true species, 1 + z11 + z12 + z22 (the apparent molar mass over the monomers'). */
+  association: number
+}
+
+/**
+ * The true species of a Hayden–O'Connell vapour with a carboxylic acid at T (K), P (Pa) and apparent y1, by the
+ * chemical theory of dimerisation. @throws ThermoError 'invalid-model' for a vapour the chemical theory does not
+ * apply to (ideal, Tsonopoulos, or no η or η12 ≥ 4.5), 'invalid-input' for a bad T, P or y1.
+ */
+export function vaporSpeciation(vapor: VaporModel, T: number, P: number, y1: number): VaporSpeciation {
+  if (!usesChemicalTheory(vapor))
+    throw new ThermoError(
+      'invalid-model',
+      "Speciation needs a Hayden–O'Connell vapour with a carboxylic acid (η or η12 of at least 4.5).",
+    )
+  checkTemperature(T)
+  checkPressure(P)
+  checkMoleFraction(y1, 'y1')
+  chemicalState(vapor as VirialVapor, T, P, y1)
+  const [m1, m2, d11, d12, d22] = species
+  return {
+    z: { m1, m2, d11, d12, d22 },
+    K: { K11: cs[3], K22: cs[4], K12: cs[5] },
+    freeB: { B11: 1e6 * cs[0], B22: 1e6 * cs[1], B12: 1e6 * cs[2] },
+    association: 1 + d11 + d12 + d22,
+  }
+}
+
+/**
+ * Vapour-phase correction factors at T (K), P (Pa), vapour y1, with the pure vapour pressures psat (Pa): the
+ * truncated virial equation, or the chemical theory for a Hayden–O'Connell vapour with a carboxylic acid.
+ */
 export function vaporCorrection(
   vapor: VaporModel,
   T: number,
@@ -34,15 +87,27 @@ export function vaporCorrection(
   psat: [number, number],
 ): VaporCorrection {
   if (vapor.kind !== 'virial') return { phi: [1, 1], phiSat: [1, 1], poynting: [1, 1], Phi: [1, 1] }
-  const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
   const rt = R * T
-  const d12 = 2 * B12 - B11 - B22
-  const y2 = 1 - y1
-  // B in cm³/mol → m³/mol (1e-6) so that B·P/RT is dimensionless.
-  const phi1 = Math.exp((1e-6 * P * (B11 + y2 * y2 * d12)) / rt)
-  const phi2 = Math.exp((1e-6 * P * (B22 + y1 * y1 * d12)) / rt)
-  const s1 = Math.exp((1e-6 * B11 * psat[0]) / rt)
-  const s2 = Math.exp((1e-6 * B22 * psat[1]) / rt)
+  let phi1: number
+  let phi2: number
+  let s1: number
+  let s2: number
+  if (usesChemicalTheory(vapor)) {
+    chemicalState(vapor, T, P, y1)
+    phi1 = Math.exp(lnChem[0])
+    phi2 = Math.exp(lnChem[1])
+    s1 = Math.exp(lnPhiSatChemical(cs, T, 0, psat[0]))
+    s2 = Math.exp(lnPhiSatChemical(cs, T, 1, psat[1]))
+  } else {
+    const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
+    const d12 = 2 * B12 - B11 - B22
+    const y2 = 1 - y1
+    // B in cm³/mol → m³/mol (1e-6) so that B·P/RT is dimensionless.
+    phi1 = Math.exp((1e-6 * P * (B11 + y2 * y2 * d12)) / rt)
+    phi2 = Math.exp((1e-6 * P * (B22 + y1 * y1 * d12)) / rt)
+    s1 = Math.exp((1e-6 * B11 * psat[0]) / rt)
+    s2 = Math.exp((1e-6 * B22 * psat[1]) / rt)
+  }
   let pf1 = 1
   let pf2 = 1
   if (vapor.poynting) {
@@ -56,11 +121,13 @@ export function vaporCorrection(
  * Warnings when the virial equation truncated after B is doubtful: the vapour's reduced density exceeds half the
  * critical density (Prausnitz, Lichtenthaler & de Azevedo, Molecular Thermodynamics of Fluid-Phase Equilibria,
  * 3rd ed., ch. 5; from memory), or Z = 1 + B·P/RT falls below 0.5 (the vapour is far from the dilute gas the
- * truncated form describes: strong association), and always for a Hayden–O'Connell vapour with a carboxylic acid
- * ({@link associationWarnings}).
+ * truncated form describes: strong association). A Hayden–O'Connell vapour with a carboxylic acid always carries
+ * the statement that the chemical theory ran ({@link associationWarnings}), and the density check applies to its
+ * physical part (the free B in the truncated virial equation): per apparent mole, V = RT/(P·(1 + zD)) + B^F_mix.
  */
 export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, y1: number): string[] {
   if (vapor.kind !== 'virial') return []
+  if (usesChemicalTheory(vapor)) return chemicalValidityWarnings(vapor, T, P, y1)
   const { B11, B22, B12 } = secondVirialCoefficients(vapor, T)
   const y2 = 1 - y1
   const B = y1 * y1 * B11 + 2 * y1 * y2 * B12 + y2 * y2 * B22
@@ -79,20 +146,19 @@ export function virialValidityWarnings(vapor: VaporModel, T: number, P: number, 
   return out
 }
 
-const g = new Float64Array(4)
-
-/**
- * The no-convergence error of a γ–φ solver; for a strongly associating (carboxylic-acid) vapour it says why: B·P/RT
- * of such a vapour is of order −1 or below near its boiling point, beyond the truncated virial equation.
- */
-function gammaPhiNoConvergence(v: VaporModel, what: string, condition: string): ThermoError {
-  const e = noConvergence(what, condition)
-  if (associationWarnings(v).length === 0) return e
-  return new ThermoError(
-    e.code,
-    `${e.message} The vapour associates strongly (carboxylic-acid dimers, η ≥ 4.5): near its boiling point the virial equation truncated after B cannot describe it; the chemical theory of dimerisation is needed and is not implemented.`,
-  )
+/** {@link virialValidityWarnings} under the chemical theory: the statement, and the density of its physical part. */
+function chemicalValidityWarnings(vapor: VirialVapor, T: number, P: number, y1: number): string[] {
+  const V = 1e6 * chemicalState(vapor, T, P, y1) // cm³ per apparent mole
+  const Vc = y1 * vapor.components[0].Vc + (1 - y1) * vapor.components[1].Vc
+  const out = associationWarnings(vapor)
+  if (!(V > 0 && Vc / V <= 0.5))
+    out.push(
+      `The vapour at ${T.toFixed(2)} K and ${(P / 1000).toPrecision(4)} kPa is denser than half its critical density; the physical part of the chemical theory (the virial equation truncated after the free B) is doubtful there.`,
+    )
+  return out
 }
+
+const g = new Float64Array(4)
 
 /** γ–φ results are single-liquid: refuse (liquid-split) when the liquid x1 lies in a two-liquid gap at T. */
 function assertSingleLiquid(c: CompiledSystem, x1: number, T: number): void {
@@ -209,7 +275,7 @@ export function bubbleTemperatureGammaPhiCompiled(
           : [...sw, ...virialValidityWarnings(v, T, P, y1)],
     }
   }
-  throw gammaPhiNoConvergence(v, 'γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)
+  throw noConvergence('γ–φ bubble-temperature', `x1 = ${x1} and ${P} Pa`)
 }
 
 /** γ–φ bubble pressure at T (K) and liquid x1, by substitution on P and y (converges in a few steps below ~1 MPa). */
@@ -233,7 +299,7 @@ export function bubblePressureGammaPhiCompiled(
 ): GammaPhiResult {
   checkDomain(c, T)
   if (!solveBubblePGammaPhi(c, c.gv!, T, x1, phiBuf))
-    throw gammaPhiNoConvergence(v, 'γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
+    throw noConvergence('γ–φ bubble-pressure', `x1 = ${x1} and ${T} K`)
   return settled(c, v, { T, P: res[5], x1, y1: res[1] }, res[4], x1)
 }
 
@@ -278,7 +344,7 @@ export function dewTemperatureGammaPhiCompiled(
     T += Math.max(-20, Math.min(20, dT))
     if (Math.abs(dT) < 1e-9 && dx < 1e-12) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
-  throw gammaPhiNoConvergence(v, 'γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
+  throw noConvergence('γ–φ dew-temperature', `y1 = ${y1} and ${P} Pa`)
 }
 
 /** γ–φ dew pressure at T (K) and vapour y1: substitution on P and the liquid composition from the ideal-vapour dew point. */
@@ -314,5 +380,5 @@ export function dewPressureGammaPhiCompiled(c: CompiledSystem, v: VirialVapor, T
     if (!Number.isFinite(P)) break
     if (done) return settled(c, v, { T, P, x1, y1 }, it, y1)
   }
-  throw gammaPhiNoConvergence(v, 'γ–φ dew-pressure', `y1 = ${y1} and ${T} K`)
+  throw noConvergence('γ–φ dew-pressure', `y1 = ${y1} and ${T} K`)
 }

@@ -129,6 +129,22 @@ export function hocB(k: Float64Array, at: number, T: number): number {
   return k[at] * r
 }
 
+/**
+ * The free (physical: non-polar + polar) and dimerising (metastable + bound + chemical) parts of B of pair `at` at
+ * T, m³/mol, into out[j] and out[j + 1] (same sums as {@link hocParts}; the chemical theory's split).
+ */
+export function hocFreeDimer(k: Float64Array, at: number, T: number, out: Float64Array, j: number): void {
+  const inv = k[at + 1] / T
+  const s = inv - k[at + 2]
+  const s2 = s * s
+  const s3 = s2 * s
+  const free = 0.94 - 1.47 * s - 0.85 * s2 + 1.015 * s3 - k[at + 3] * (0.74 - 3 * s + 2.1 * s2 + 2.1 * s3)
+  let dimer = k[at + 4] * Math.exp(k[at + 5] * inv)
+  if (k[at + 7] > 0) dimer += k[at + 6] * (1 - Math.exp(k[at + 7] / T))
+  out[j] = k[at] * free
+  out[j + 1] = k[at] * dimer
+}
+
 /** The constants of the pairs 11, 22 and 12 of a binary (3 × {@link HOC_STRIDE} numbers). */
 export function hocBinaryConstants(c1: VirialComponent, c2: VirialComponent, eta12: number): Float64Array {
   const p1 = hocPure(c1)

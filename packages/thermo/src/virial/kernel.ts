@@ -6,19 +6,23 @@ import { lnGammaT } from '../activity/kernel.js'
 import { res, solveBubbleT, startTemperature } from '../equilibrium/kernel.js'
 import type { CompiledSystem } from '../equilibrium/system.js'
 import { R } from '../types.js'
+import { chemicalConstants, lnPhiChemical, lnPhiSatChemical } from './chemical-theory.js'
 import { HOC_STRIDE, hocB, hocBinaryConstants } from './hayden-oconnell.js'
-import { checkVaporModel } from './model.js'
+import { checkVaporModel, usesChemicalTheory } from './model.js'
 import { crossCriticalConstants } from './tsonopoulos.js'
 import type { VaporModel } from './virial-types.js'
 
 /**
  * A virial vapour reduced to numbers. Tsonopoulos: per pair (1, 2, cross) Tc, R·Tc/Pc in m³/mol, ω, a, b in `k`.
- * Hayden–O'Connell: `hoc` holds the pairs' constants ({@link hocConstants}) and `k` is unused.
+ * Hayden–O'Connell: `hoc` holds the pairs' constants ({@link hocConstants}) and `k` is unused; `chem` is true when
+ * some η or η12 ≥ 4.5 (a carboxylic acid), and then φ comes from the chemical theory (chemical-theory.ts).
  */
 export interface CompiledVirial {
   k: Float64Array // [Tc, RTc/Pc, ω, a, b] × (1, 2, 12)
   /** Hayden–O'Connell constants (3 × HOC_STRIDE), or null under Tsonopoulos. */
   hoc: Float64Array | null
+  /** The chemical theory of dimerisation (HOC with η or η12 ≥ 4.5) instead of the truncated virial φ. */
+  chem: boolean
   VL1: number // m³/mol, 0 without Poynting
   VL2: number
 }
@@ -29,7 +33,8 @@ export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): Compi
   const VL1 = v.poynting ? 1e-6 * (c1.liquidMolarVolume ?? 0) : 0
   const VL2 = v.poynting ? 1e-6 * (c2.liquidMolarVolume ?? 0) : 0
   const k = new Float64Array(15)
-  if (v.correlation === 'hayden-oconnell') return { k, hoc: hocBinaryConstants(c1, c2, v.eta12 ?? 0), VL1, VL2 }
+  if (v.correlation === 'hayden-oconnell')
+    return { k, hoc: hocBinaryConstants(c1, c2, v.eta12 ?? 0), chem: usesChemicalTheory(v), VL1, VL2 }
   const x = crossCriticalConstants(c1, c2, v.k12 ?? 0)
   const put = (i: number, Tc: number, Pc: number, w: number, a: number, b: number) => {
     k[5 * i] = Tc
@@ -41,7 +46,7 @@ export function compileVirial(v: Extract<VaporModel, { kind: 'virial' }>): Compi
   put(0, c1.Tc, c1.Pc, c1.omega, c1.tsonopoulos?.a ?? 0, c1.tsonopoulos?.b ?? 0)
   put(1, c2.Tc, c2.Pc, c2.omega, c2.tsonopoulos?.a ?? 0, c2.tsonopoulos?.b ?? 0)
   put(2, x.Tc, x.Pc, x.omega, v.cross?.a12 ?? 0, v.cross?.b12 ?? 0)
-  return { k, hoc: null, VL1, VL2 }
+  return { k, hoc: null, chem: false, VL1, VL2 }
 }
 
 const compiledCache = new WeakMap<object, CompiledVirial>()
@@ -80,14 +85,18 @@ function Bv(v: CompiledVirial, i: number, T: number): number {
 
 const g = new Float64Array(4)
 const lp = new Float64Array(4)
+const lq = new Float64Array(4)
+/** The chemical theory's B^F (m³/mol) and K (1/Pa) at the current T ({@link chemicalConstants}). */
+const cs = new Float64Array(6)
 
 /** The liquid and vapour-pressure part of a system the kernels need (a CompiledSystem fits). */
 export type KernelSystem = Pick<CompiledSystem, 'act' | 'vp1' | 'vp2'>
 
 /**
  * ln Φ1, ln Φ2 into out[0], out[1] and ln φ̂1, ln φ̂2 into out[2], out[3] at T (K), P (Pa), vapour y1, with the
- * vapour pressures ps1, ps2 (Pa): ln φ̂i = P(Bii + yj²δ12)/RT, ln Φi = ln φ̂i − [Bii·Pi_sat + V_L,i(P − Pi_sat)]/RT.
- * @returns the vapour's B_mix (m³/mol).
+ * vapour pressures ps1, ps2 (Pa): ln φ̂i = P(Bii + yj²δ12)/RT, ln Φi = ln φ̂i − [Bii·Pi_sat + V_L,i(P − Pi_sat)]/RT;
+ * under the chemical theory (`v.chem`) φ̂i and φi_sat from chemical-theory.ts, the Poynting term the same.
+ * @returns the vapour's molar volume (per apparent mole), m³/mol.
  */
 export function lnPhiFactors(
   v: CompiledVirial,
@@ -98,17 +107,24 @@ export function lnPhiFactors(
   ps2: number,
   out: Float64Array,
 ): number {
+  const rt = R * T
+  if (v.chem) {
+    chemicalConstants(v.hoc!, T, cs)
+    const V = lnPhiChemical(cs, T, P, y1, out, 2)
+    out[0] = out[2] - lnPhiSatChemical(cs, T, 0, ps1) - (v.VL1 * (P - ps1)) / rt
+    out[1] = out[3] - lnPhiSatChemical(cs, T, 1, ps2) - (v.VL2 * (P - ps2)) / rt
+    return V
+  }
   const b11 = Bv(v, 0, T)
   const b22 = Bv(v, 1, T)
   const b12 = Bv(v, 2, T)
   const d12 = 2 * b12 - b11 - b22
-  const rt = R * T
   const y2 = 1 - y1
   out[2] = (P * (b11 + y2 * y2 * d12)) / rt
   out[3] = (P * (b22 + y1 * y1 * d12)) / rt
   out[0] = out[2] - (b11 * ps1 + v.VL1 * (P - ps1)) / rt
   out[1] = out[3] - (b22 * ps2 + v.VL2 * (P - ps2)) / rt
-  return y1 * y1 * b11 + 2 * y1 * y2 * b12 + y2 * y2 * b22
+  return rt / P + y1 * y1 * b11 + 2 * y1 * y2 * b12 + y2 * y2 * b22
 }
 
 /**
@@ -133,6 +149,10 @@ export function lnPhiDerivatives(
   at(T - h)
   out[0] = (up1 - lp[0]) / (2 * h)
   out[1] = (up2 - lp[1]) / (2 * h)
+  if (v.chem) {
+    chemicalDerivatives(c, v, T, P, y1, out)
+    return
+  }
   const b11 = Bv(v, 0, T)
   const b22 = Bv(v, 1, T)
   const d12 = 2 * Bv(v, 2, T) - b11 - b22
@@ -142,6 +162,32 @@ export function lnPhiDerivatives(
   out[3] = (2 * P * y1 * d12) / rt
   out[4] = (P * (b11 + y2 * y2 * d12 - v.VL1)) / rt
   out[5] = (P * (b22 + y1 * y1 * d12 - v.VL2)) / rt
+}
+
+/**
+ * ∂ln Φi/∂y1 and ∂ln Φi/∂ln P under the chemical theory, into out[2..5], by central differences (h = 1e-6; one-sided
+ * at y1 = 0 or 1): the true composition has no closed form to differentiate.
+ */
+function chemicalDerivatives(
+  c: Pick<KernelSystem, 'vp1' | 'vp2'>,
+  v: CompiledVirial,
+  T: number,
+  P: number,
+  y1: number,
+  out: Float64Array,
+): void {
+  const ps1 = psat(c.vp1, T)
+  const ps2 = psat(c.vp2, T)
+  const ya = y1 > 1e-6 ? y1 - 1e-6 : 0
+  const yb = y1 < 1 - 1e-6 ? y1 + 1e-6 : 1
+  lnPhiFactors(v, T, P, yb, ps1, ps2, lq)
+  lnPhiFactors(v, T, P, ya, ps1, ps2, lp)
+  out[2] = (lq[0] - lp[0]) / (yb - ya)
+  out[3] = (lq[1] - lp[1]) / (yb - ya)
+  lnPhiFactors(v, T, P * Math.exp(1e-6), y1, ps1, ps2, lq)
+  lnPhiFactors(v, T, P * Math.exp(-1e-6), y1, ps1, ps2, lp)
+  out[4] = (lq[0] - lp[0]) / 2e-6
+  out[5] = (lq[1] - lp[1]) / 2e-6
 }
 
 function psat(vp: { a: number; b: number; c: number }, T: number): number {
@@ -174,6 +220,7 @@ export function solveBubbleTGammaPhi(
     y1 = x1
   }
   const P = Math.exp(lnP)
+  if (v.chem) return solveBubbleTChemical(c, v, P, x1, T, y1, start, phiOut)
   const x2 = 1 - x1
   const { vp1, vp2 } = c
   const k = v.k
@@ -216,6 +263,61 @@ export function solveBubbleTGammaPhi(
       phiOut[3] = Math.exp(lnPhi2)
       // molar volume of the vapour, m³/mol, for the validity check: RT/P + B_mix
       phiOut[4] = rt / P + y1 * y1 * b11 + 2 * y1 * y2 * b12 + y2 * y2 * b22
+      return true
+    }
+    y1 = yn
+    T += dT > 20 ? 20 : dT < -20 ? -20 : dT
+  }
+  return false
+}
+
+/**
+ * {@link solveBubbleTGammaPhi} under the chemical theory, from T and y1. Φ moves with T much more than under the
+ * truncated virial (K falls by about a factor of 2 per 10 K), so the Newton slope takes ∂ln Φi/∂T (forward difference,
+ * 1e-3 K) instead of carrying Φ from the last iterate, which would converge only linearly.
+ */
+function solveBubbleTChemical(
+  c: KernelSystem,
+  v: CompiledVirial,
+  P: number,
+  x1: number,
+  T: number,
+  y1: number,
+  start: number,
+  phiOut: Float64Array,
+): boolean {
+  const x2 = 1 - x1
+  const { vp1, vp2 } = c
+  for (let it = 1; it <= 100; it++) {
+    lnGammaT(c.act, x1, T, g)
+    const d1 = T + vp1.c
+    const d2 = T + vp2.c
+    const ps1 = Math.exp(vp1.a - vp1.b / d1)
+    const ps2 = Math.exp(vp2.a - vp2.b / d2)
+    lnPhiFactors(v, T + 1e-3, P, y1, psat(vp1, T + 1e-3), psat(vp2, T + 1e-3), lq)
+    const V = lnPhiFactors(v, T, P, y1, ps1, ps2, lp)
+    const e1 = (lq[0] - lp[0]) / 1e-3
+    const e2 = (lq[1] - lp[1]) / 1e-3
+    const k1 = x1 > 0 ? x1 * Math.exp(g[0] - lp[0]) * ps1 : 0
+    const k2 = x2 > 0 ? x2 * Math.exp(g[1] - lp[1]) * ps2 : 0
+    const S = k1 + k2
+    const fp = (k1 * (g[2] + vp1.b / (d1 * d1) - e1) + k2 * (g[3] + vp2.b / (d2 * d2) - e2)) / S
+    const dT = -Math.log(S / P) / fp
+    const yn = k1 / S
+    const dy = yn - y1
+    if (!Number.isFinite(dT)) return false
+    if (dT < 1e-9 && dT > -1e-9 && dy < 1e-12 && dy > -1e-12) {
+      res[0] = T + dT
+      res[1] = yn
+      res[2] = Math.exp(g[0])
+      res[3] = Math.exp(g[1])
+      res[4] = start + it
+      res[5] = P
+      phiOut[0] = Math.exp(lp[2])
+      phiOut[1] = Math.exp(lp[3])
+      phiOut[2] = Math.exp(lp[0])
+      phiOut[3] = Math.exp(lp[1])
+      phiOut[4] = V
       return true
     }
     y1 = yn

@@ -108,20 +108,34 @@ export function secondVirialCoefficients(vapor: VaporModel, T: number): SecondVi
   return { B11: secondVirialTsonopoulos(T, c1), B22: secondVirialTsonopoulos(T, c2), B12 }
 }
 
-/**
- * The warning of a Hayden–O'Connell vapour with a carboxylic acid (η or η12 at or above 4.5): such a vapour is
- * mostly dimers near its boiling point, and φ from the virial equation truncated after B is doubtful; the chemical
- * theory of dimerisation (not implemented) is the usual treatment. Empty for other vapours.
- */
-export function associationWarnings(vapor: VaporModel): string[] {
+/** Which members of a Hayden–O'Connell vapour take the carboxylic-acid branch (η or η12 ≥ 4.5), in words. */
+function acidMembers(vapor: VaporModel): string[] {
   if (vapor.kind !== 'virial' || vapor.correlation !== 'hayden-oconnell') return []
   const [c1, c2] = vapor.components
   const which: string[] = []
   if ((c1.eta ?? 0) >= HOC_ACID_ETA) which.push('component 1')
   if ((c2.eta ?? 0) >= HOC_ACID_ETA) which.push('component 2')
   if ((vapor.eta12 ?? 0) >= HOC_ACID_ETA) which.push('the unlike pair')
+  return which
+}
+
+/**
+ * Whether the vapour's φ come from the chemical theory of dimerisation (chemical-theory.ts): a Hayden–O'Connell
+ * vapour with η or η12 at or above {@link HOC_ACID_ETA} (carboxylic acids), chosen automatically.
+ */
+export function usesChemicalTheory(vapor: VaporModel): boolean {
+  return acidMembers(vapor).length > 0
+}
+
+/**
+ * The statement every γ–φ result and fit of a Hayden–O'Connell vapour with a carboxylic acid (η or η12 at or above
+ * 4.5) carries: which treatment of the vapour ran (the chemical theory of dimerisation). Empty for other vapours,
+ * whose φ come from the truncated virial equation as the vapour model says.
+ */
+export function associationWarnings(vapor: VaporModel): string[] {
+  const which = acidMembers(vapor)
   if (which.length === 0) return []
   return [
-    `The vapour associates strongly (η ≥ ${HOC_ACID_ETA} for ${which.join(' and ')}: carboxylic-acid dimers). The fugacity coefficients come from the virial equation truncated after B with the total Hayden–O'Connell B; for such vapours this is doubtful and the chemical theory of dimerisation is the usual treatment, which this engine does not implement.`,
+    `The vapour dimerises (η ≥ ${HOC_ACID_ETA} for ${which.join(' and ')}: carboxylic acid). Its fugacity coefficients come from the chemical theory of dimerisation: monomers and dimers in chemical equilibrium, with dimerisation constants from the metastable, bound and chemical parts of the Hayden–O'Connell B and the free part for the physical non-ideality (not from the truncated virial equation with the total B).`,
   ]
 }
