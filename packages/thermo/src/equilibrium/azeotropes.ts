@@ -2,6 +2,7 @@ import type { Azeotrope, BinarySystem } from '../types.js'
 import { checkCondition, type DiagramCondition } from './diagram.js'
 import { res, solveBubbleP, solveBubbleT, startTemperature } from './kernel.js'
 import { solveBubblePGammaPhi, solveBubbleTGammaPhi } from '../virial/kernel.js'
+import { associationWarnings } from '../virial/model.js'
 
 const phiBuf = new Float64Array(5)
 import { gapContaining } from './lle.js'
@@ -114,5 +115,7 @@ function azeotropeBetween(
   const T = res[0]
   const P = condition.P ?? res[5]
   // α > 1 below the azeotrope and < 1 above: the vapour is richer in 1 on the left, so the boiling point has a minimum.
-  return { x1, T, P, kind: fallsThrough ? 'minimum-boiling' : 'maximum-boiling', warnings: systemWarnings(c, T, x1) }
+  const warnings = systemWarnings(c, T, x1)
+  if (c.gv?.chem && c.source.vapor) warnings.push(...associationWarnings(c.source.vapor))
+  return { x1, T, P, kind: fallsThrough ? 'minimum-boiling' : 'maximum-boiling', warnings }
 }

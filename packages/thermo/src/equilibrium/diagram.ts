@@ -3,6 +3,7 @@ import type { BinarySystem, PhaseDiagram, RelativeVolatilityResult } from '../ty
 import { bubbleTemperatureCompiled } from './bubble-dew.js'
 import { res, solveBubbleP, solveBubbleT, startTemperature } from './kernel.js'
 import { solveBubblePGammaPhi, solveBubbleTGammaPhi } from '../virial/kernel.js'
+import { associationWarnings } from '../virial/model.js'
 import { gapContaining } from './lle.js'
 import { checkDomain, compileSystem, noConvergence, systemWarnings, type CompiledSystem } from './system.js'
 import { bubbleTemperature } from './vle.js'
@@ -185,6 +186,8 @@ function finishDiagram(
       `The activity model predicts two liquid phases near x1 = ${dropped[0].toFixed(3)} to ${dropped[dropped.length - 1].toFixed(3)} but their three-phase point could not be resolved; those compositions are left out.`,
     )
   }
+  // a dimerising (carboxylic-acid) vapour: say that the chemical theory gave φ, as every γ–φ result does
+  if (c.gv?.chem && c.source.vapor) warnings.push(...associationWarnings(c.source.vapor))
   const col = (k: number) => rows.map((r) => r[k])
   if (condition.P !== undefined) {
     const threePhase = tp ? { T: tp.T, x1I: tp.xI, x1II: tp.xII, y1: tp.y1 } : null
