@@ -3,7 +3,9 @@
  * with a Tsonopoulos virial vapour through the public API, beside the ideal-vapour kernel for scale.
  * Target (issue): ≥ 500,000 γ–φ solves per second on one core.
  * System: 1-propanol–water, NRTL from SVNA 7th ed. Table 12.5 (cal/mol × 4.184), Antoine from Table B.2,
- * critical data from chemicals 1.5.2, 1 atm, 100 compositions 0…1.
+ * critical data from chemicals 1.5.2, 1 atm, 100 compositions 0…1. For scale, a dimerising vapour: acetic acid +
+ * water under Hayden–O'Connell with the chemical theory (the system of src/virial/chemical-theory.test.ts: HOC data
+ * from memory, NRTL invented); no target.
  */
 import { bubbleTemperature, bubbleTemperatureGammaPhi, tsonopoulosPolarParameters } from '../src/index.js'
 import type { BinarySystem, VaporModel } from '../src/index.js'
@@ -49,6 +51,23 @@ const ideal = perCpuSecond((x1) => bubbleTemperature(system, { P: 101325, x1 }))
 const gp = perCpuSecond((x1) => bubbleTemperatureGammaPhi(system, { P: 101325, x1 }, vapor))
 const withVapor: BinarySystem = { ...system, vapor }
 const main = perCpuSecond((x1) => bubbleTemperature(withVapor, { P: 101325, x1 }))
+const acid: BinarySystem = {
+  vaporPressure: [
+    { kind: 'antoine', A: 7.38782, B: 1533.313, C: 222.309, log: 'log10', pressureUnit: 'mmHg', temperatureUnit: 'C' },
+    system.vaporPressure[1],
+  ],
+  activity: { kind: 'nrtl', b12: 2000, b21: 1000, alpha: 0.3 },
+}
+const acidVapor: VaporModel = {
+  kind: 'virial',
+  correlation: 'hayden-oconnell',
+  components: [
+    { Tc: 591.95, Pc: 5.786e6, omega: 0.467, Vc: 177.6, RD: 2.595, dipole: 1.74, eta: 4.5 },
+    { Tc: 647.096, Pc: 22064000, omega: 0.3443, Vc: 55.948, RD: 0.615, dipole: 1.83, eta: 1.7 },
+  ],
+  eta12: 2.5,
+}
+const chem = perCpuSecond((x1) => bubbleTemperatureGammaPhi(acid, { P: 101325, x1 }, acidVapor))
 console.log('\nγ–φ benchmark (solves per CPU-second, public API)')
 console.log(
   `  bubbleTemperature, ideal vapour, NRTL 1-propanol–water: ${fmt(ideal.rate)} (${ideal.iterations.toFixed(2)} iterations)`,
@@ -58,4 +77,7 @@ console.log(
 )
 console.log(
   `  bubbleTemperature with system.vapor (Tsonopoulos), the main solver: ${fmt(main.rate)} (${main.iterations.toFixed(2)} iterations)`,
+)
+console.log(
+  `  bubbleTemperatureGammaPhi, acetic acid–water, chemical theory of dimerisation: ${fmt(chem.rate)} (${chem.iterations.toFixed(2)} iterations)`,
 )

@@ -13,6 +13,7 @@ import {
   secondVirialHaydenOConnell,
   vaporCorrection,
   vaporSpeciation,
+  virialValidityWarnings,
   type VaporModel,
   type VirialComponent,
 } from './index.js'
@@ -204,6 +205,18 @@ describe('chemical theory: limits and invariants', () => {
       ),
       { numRuns: 200 },
     )
+  })
+
+  it('a state too dense for the physical part is flagged; an ordinary one carries only the statement', () => {
+    // reduced density Vc/V above 0.5 (Prausnitz, Lichtenthaler & de Azevedo, 3rd ed., ch. 5; from memory), with
+    // V = RT/(P(1 + zD)) + B^F per apparent mole: pure acid vapour at 560 K and 20 MPa (computed Vc/V = 0.81; 0.46 at 10 MPa)
+    const dense = virialValidityWarnings(pureAcid, 560, 2e7, 1)
+    expect(dense).toHaveLength(2)
+    expect(dense[1]).toBe(
+      'The vapour at 560.00 K and 2.000e+4 kPa is denser than half its critical density; the physical part of the chemical theory (the virial equation truncated after the free B) is doubtful there.',
+    )
+    expect(virialValidityWarnings(pureAcid, 560, 1e7, 1)).toHaveLength(1)
+    expect(virialValidityWarnings(pureAcid, 391.05, 101325, 1)).toHaveLength(1)
   })
 
   it('speciation refuses a vapour the chemical theory does not apply to, naming why', () => {
