@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest'
-import { missingVirialData, vaporModelChoiceSchema, vaporModelLabel, vaporChoiceOfEngine } from './data-kind.js'
+import {
+  engineVaporLabel,
+  missingVirialData,
+  vaporModelChoiceSchema,
+  vaporModelLabel,
+  vaporChoiceOfEngine,
+} from './data-kind.js'
 
 const issues = (o: unknown) =>
   vaporModelChoiceSchema.safeParse(o).error?.issues.map((i) => [i.path.join('.'), i.message])
@@ -83,5 +89,12 @@ describe('vaporChoiceOfEngine', () => {
     const hoc = vaporChoiceOfEngine({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 1.3, components })
     expect(hoc).toEqual({ kind: 'virial', correlation: 'hayden-oconnell', poynting: false, eta12: 1.3 })
     expect(vaporModelLabel(hoc)).toBe('virial gas, Hayden–O’Connell second virial coefficients (η12 = 1.3)')
+  })
+  it('engineVaporLabel words a stored engine vapour in one step', () => {
+    const components = [{ Tc: 1, Pc: 1, omega: 0, Vc: 1 }]
+    expect(engineVaporLabel(undefined)).toBe('ideal gas (modified Raoult’s law)')
+    expect(engineVaporLabel({ kind: 'virial', correlation: 'hayden-oconnell', eta12: 1.3, components })).toBe(
+      'virial gas, Hayden–O’Connell second virial coefficients (η12 = 1.3)',
+    )
   })
 })

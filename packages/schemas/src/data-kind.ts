@@ -154,3 +154,11 @@ export function vaporChoiceOfEngine(vapor: unknown): VaporModelChoice {
     ...(hoc && typeof v.eta12 === 'number' ? { eta12: v.eta12 } : {}),
   }
 }
+
+/**
+ * A stored engine vapour (a fit's or a joint fit's `options.vapor`, an export's `vapor`) in words, as every result
+ * states it: {@link vaporModelLabel} of {@link vaporChoiceOfEngine}. One function for the API and the web.
+ */
+export function engineVaporLabel(vapor: unknown): string {
+  return vaporModelLabel(vaporChoiceOfEngine(vapor))
+}

@@ -5,13 +5,13 @@ import { labId, PRESSURE_UNITS } from './lab.js'
 import type { DataKind, VaporModelChoice } from './data-kind.js'
 
 /**
- * A system's joint parameter sets: one NRTL or Wilson parameter set fitted over several data sets of one system
+ * A system's joint parameter sets: one NRTL, Wilson or UNIQUAC parameter set fitted over several data sets of one system
  * (thermo's fitJoint), signed by a lead chemist as the system's recommended parameter set. Units: T in K, P in Pa,
  * energies J/mol, their temperature terms J/(mol·K) about 298.15 K.
  */
 
 /** The models a joint fit offers: those with temperature-dependent energies in thermo. */
-export const JOINT_FIT_MODELS = ['nrtl', 'wilson'] as const
+export const JOINT_FIT_MODELS = ['nrtl', 'wilson', 'uniquac'] as const
 export type JointFitModel = (typeof JOINT_FIT_MODELS)[number]
 export const JOINT_FIT_STATES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const
 export type JointFitStateName = (typeof JOINT_FIT_STATES)[number]
@@ -23,7 +23,7 @@ export const jointFitRequestSchema = z.object({
     .min(2, 'Choose at least two data sets for a joint fit')
     .max(12, 'Choose at most 12 data sets for a joint fit')
     .refine((ids) => new Set(ids).size === ids.length, 'A data set is chosen twice'),
-  model: z.enum(JOINT_FIT_MODELS, { message: 'The model must be NRTL or Wilson' }),
+  model: z.enum(JOINT_FIT_MODELS, { message: 'The model must be NRTL, Wilson or UNIQUAC' }),
   alpha: z
     .number()
     .gt(0, 'NRTL α must be above 0 and at most 1')
@@ -133,7 +133,7 @@ export interface JointFitDto<D = string> {
   systemId: string
   model: JointFitModel
   options: Record<string, unknown>
-  /** thermo's ActivityModel with b12T, b21T (NRTL) or a12T, a21T (Wilson) */
+  /** thermo's ActivityModel with b12T, b21T (NRTL) or a12T, a21T (Wilson, UNIQUAC; UNIQUAC with r1, r2, q1, q2) */
   activity: Record<string, unknown> & { kind: string }
   parameters: FitParameterDto[]
   statistics: FitStatisticsDto & { covariance?: number[][]; correlation?: number[][] }

@@ -11,7 +11,7 @@ export type MemberDigestFormat = 'ebullio-point-set/1' | 'ebullio-joint-member/2
 export interface JointFitTable {
   id: Generated<string>
   system_id: string
-  model: 'nrtl' | 'wilson'
+  model: 'nrtl' | 'wilson' | 'uniquac'
   options: Json<Record<string, unknown>>
   /** thermo's ActivityModel with its temperature terms */
   activity: Json<Record<string, unknown>>

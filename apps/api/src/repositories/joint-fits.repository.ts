@@ -6,7 +6,7 @@ import type { JointFitMemberTable, JointFitState, JointFitTable, MemberDigestFor
 export interface JointFitRecord {
   id: string
   systemId: string
-  model: 'nrtl' | 'wilson'
+  model: 'nrtl' | 'wilson' | 'uniquac'
   options: Record<string, unknown>
   activity: Record<string, unknown>
   parameters: Record<string, unknown>[]

@@ -53,6 +53,7 @@ const UNITS: Record<string, string> = {
 export const TEMPERATURE_FORM: Record<string, string> = {
   wilson: 'a12(T) = a12 + a12T (T - 298.15 K); a21(T) = a21 + a21T (T - 298.15 K)',
   nrtl: 'b12(T) = b12 + b12T (T - 298.15 K); b21(T) = b21 + b21T (T - 298.15 K)',
+  uniquac: 'a12(T) = a12 + a12T (T - 298.15 K); a21(T) = a21 + a21T (T - 298.15 K); tau_ij = exp(-a_ij(T)/(R T))',
 }
 
 /** The system's signed recommended parameter set as exported with every data set's parameters (null: none). */
@@ -111,7 +112,7 @@ export const MODEL_EQUATIONS: Record<string, string> = {
     'ln gamma1 = x2^2 [tau21 (G21/(x1 + x2 G21))^2 + tau12 G12/(x2 + x1 G12)^2]',
 }
 
-/** What the fit used but did not fit: NRTL's α when held, Wilson's V1 and V2 (cm³/mol), with their units. */
+/** What the fit used but did not fit: NRTL's α when held, Wilson's V1 and V2 (cm³/mol), UNIQUAC's r and q, with their units. */
 function heldSettings(f: { activity: Record<string, unknown>; parameters: { name: string }[] }) {
   const fitted = new Set(f.parameters.map((p) => p.name))
   return Object.entries(f.activity)

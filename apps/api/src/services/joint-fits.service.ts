@@ -1,5 +1,5 @@
 /**
- * Joint fits: one NRTL or Wilson parameter set (temperature-dependent energies) over several data sets of one
+ * Joint fits: one NRTL, Wilson or UNIQUAC parameter set (temperature-dependent energies) over several data sets of one
  * system (thermo's fitJoint): isobaric data sets by their bubble temperatures, isothermal ones by their bubble
  * pressures, all under the one vapour model they share (refused when they differ). Each contributing data set is
  * bound to the digest of what the fit read of it (format 'ebullio-joint-member/2': kind, temperature, vapour model
@@ -7,8 +7,8 @@
  * A lead chemist runs and submits one; another lead chemist signs it as the system's recommended parameter set
  * (four-eyes as for data sets); the signed set supersedes the previous one, which stays in the record.
  */
-import type { JointFitDto, JointFitMemberDto, JointFitRequest } from '@ebullio/schemas'
-import { dataKindOf, DEFAULT_NRTL_ALPHA, vaporModelLabel, webLink } from '@ebullio/schemas'
+import type { JointFitDto, JointFitMemberDto, JointFitModel, JointFitRequest } from '@ebullio/schemas'
+import { dataKindOf, DEFAULT_NRTL_ALPHA, FIT_MODEL_LABELS, vaporModelLabel, webLink } from '@ebullio/schemas'
 import { fitJoint, phaseDiagram, type ActivityModel, type PhaseDiagram } from '@ebullio/thermo'
 import type { SessionUser } from '../auth/index.js'
 import type { Config } from '../config.js'
@@ -23,7 +23,7 @@ import { listPoints, type PointRecord } from '../repositories/points.repository.
 import { canonicalJson8785, enginePoint, pointSetOf, sha256Hex } from './point-set.js'
 import { staleResults } from './stale-results.js'
 import { thermo } from './lab-access.js'
-import { binarySystem, engineInputs, getSystem, type EngineInputs } from './systems.service.js'
+import { binarySystem, engineInputs, getSystem, uniquacStructure, type EngineInputs } from './systems.service.js'
 
 type EngineVapor = EngineInputs['vapor']
 import { activeLeadChemistIds } from '../repositories/users.repository.js'
@@ -109,14 +109,28 @@ export async function runJointFit(db: Db, user: SessionUser, systemId: string, r
   const inputs = await engineInputs(db, systemId, sharedVapour(chosen.map((c) => c.d)))
   // The engine's vapour (with the components' critical data as they are now) is kept with the result, as fits do.
   const vapor = inputs.vapor.kind === 'virial' ? { vapor: inputs.vapor } : {}
+  // UNIQUAC's r and q come from the components (refused naming what is missing before anything runs), stored.
+  const held =
+    req.model === 'nrtl'
+      ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA }
+      : req.model === 'uniquac'
+        ? { uniquac: uniquacStructure(inputs.system) }
+        : { V1: inputs.V1, V2: inputs.V2 }
   const options = JSON.parse(
     JSON.stringify({
       model: req.model,
       temperatureDependent: req.temperatureDependent ?? true,
-      ...(req.model === 'nrtl' ? { alpha: req.alpha ?? DEFAULT_NRTL_ALPHA } : { V1: inputs.V1, V2: inputs.V2 }),
+      ...held,
       ...vapor,
     }),
-  ) as { model: 'nrtl' | 'wilson'; temperatureDependent: boolean; alpha?: number; V1?: number; V2?: number }
+  ) as {
+    model: JointFitModel
+    temperatureDependent: boolean
+    alpha?: number
+    V1?: number
+    V2?: number
+    uniquac?: { r1: number; r2: number; q1: number; q2: number }
+  }
   const r = thermo('Joint fit', () =>
     fitJoint({
       ...options,
@@ -371,7 +385,7 @@ export async function submitJointFit(db: Db, config: Config, user: SessionUser, 
     for (const lead of others) {
       await notifyUser(tx, lead, {
         subject: `Ebullio: a recommended parameter set for ${system.name} awaits your signature`,
-        text: `${user.displayName} submitted a joint ${fit.model === 'nrtl' ? 'NRTL' : 'Wilson'} parameter set for ${system.name} as the system's recommended parameter set.\n\nOpen it: ${webLink(config.publicUrl, 'labSystem', { id: fit.systemId })}\n`,
+        text: `${user.displayName} submitted a joint ${FIT_MODEL_LABELS[fit.model] ?? fit.model} parameter set for ${system.name} as the system's recommended parameter set.\n\nOpen it: ${webLink(config.publicUrl, 'labSystem', { id: fit.systemId })}\n`,
       })
     }
     return { ...after, notifiedLeadChemists: others.length }

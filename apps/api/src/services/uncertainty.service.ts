@@ -15,7 +15,7 @@ import {
   type PureComponentCheck,
   type SuggestionCriterion,
 } from '@ebullio/thermo'
-import { dataKindOf, vaporChoiceOfEngine, vaporModelLabel } from '@ebullio/schemas'
+import { dataKindOf, engineVaporLabel } from '@ebullio/schemas'
 import type { SessionUser } from '../auth/index.js'
 import type { Db } from '../db/index.js'
 import { conflict, notFound } from '../errors/index.js'
@@ -126,11 +126,6 @@ const boundTo = (fit: FitRecord, current: string) => ({
   stale: fit.pointSetDigest !== current,
 })
 
-/** The vapour model a stored fit was computed under, in words (every band and suggestion answer states it). */
-export function fitVapourText(fit: FitRecord): string {
-  return vaporModelLabel(vaporChoiceOfEngine(fit.options.vapor))
-}
-
 /** The T–x–y band of one fit at P (Pa), by default the data set's nominal pressure; `points` grid points (3–1001). */
 export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, points: number) {
   const band = thermo('Prediction band', () => predictionBand(result, { P, points }))
@@ -139,7 +134,7 @@ export function bandOf(fit: FitRecord, result: FitBinaryResult, P: number, point
     model: fit.model,
     kind: 'isobaric' as const,
     ...band,
-    vapour: fitVapourText(fit),
+    vapour: engineVaporLabel(fit.options.vapor),
     note: BAND_NOTE,
   }
 }
@@ -152,7 +147,7 @@ export function isothermalBandOf(fit: FitRecord, result: FitBinaryResult, T: num
     model: fit.model,
     kind: 'isothermal' as const,
     ...band,
-    vapour: fitVapourText(fit),
+    vapour: engineVaporLabel(fit.options.vapor),
     note: BAND_NOTE,
   }
 }
@@ -181,7 +176,7 @@ export function suggestionsOf(
   limits: SuggestionLimits = {},
 ) {
   const plan = thermo('Next compositions', () => planNextMeasurements(result, { P, count, criterion, ...limits }))
-  return { fitId: fit.id, model: fit.model, P, criterion, ...plan, vapour: fitVapourText(fit) }
+  return { fitId: fit.id, model: fit.model, P, criterion, ...plan, vapour: engineVaporLabel(fit.options.vapor) }
 }
 
 /** Why isothermal data without a recorded temperature have no band, and where suggestions need a pressure. */

@@ -4,14 +4,13 @@ import { extrapolationItems, pressureVerdict, type PressureVerdict } from '../co
 import {
   diagramsAt,
   errorText,
-  fitVapourLabel,
   measuredForPlot,
   otherFitCurves,
   systemFromParameters,
   SYSTEM_SET_PREFIX,
   type DiagramsAt,
 } from '../components/design/design-model'
-import { pressureAgainstRange } from '@ebullio/schemas'
+import { engineVaporLabel, pressureAgainstRange } from '@ebullio/schemas'
 import { proseP } from '../components/design/pressure-text'
 import { usePreferencesStore } from '../stores/preferences'
 
@@ -91,7 +90,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
     return !!P && params.value?.dataSet.kind !== 'isothermal' && Math.abs(pressurePa.value / P - 1) < 0.005
   })
   /** The vapour model every number on the page is computed with: the chosen fit's (or the system set's). */
-  const vapourLabel = computed(() => (built.value?.fit ? fitVapourLabel(built.value.fit) : ''))
+  const vapourLabel = computed(() => (built.value?.fit ? engineVaporLabel(built.value.fit.vapor) : ''))
   /**
    * The data set uses an ideal vapour although a virial one would move its bubble points by more than their
    * measurement uncertainty (the server's check, thermo's vaporCorrectionSize); null when that is not so.

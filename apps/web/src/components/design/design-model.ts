@@ -2,7 +2,7 @@
  * The engineer's calculations, done in the browser with @ebullio/thermo on an approved data set's
  * parameters. No mathematics here: only the calls, the shaping for the plots and friendly messages.
  */
-import { labelWithNote, vaporChoiceOfEngine, vaporModelLabel } from '@ebullio/schemas'
+import { labelWithNote } from '@ebullio/schemas'
 import { csvDocument, fixed } from '@ebullio/schemas/csv-exports'
 import {
   bubblePressure,
@@ -81,11 +81,6 @@ export function systemFromParameters(
     },
     fit,
   }
-}
-
-/** The vapour model a fit (or the system's set) computes with, in words: "ideal gas (modified Raoult’s law)", … */
-export function fitVapourLabel(fit: Pick<ExportedFit, 'vapor'>): string {
-  return vaporModelLabel(vaporChoiceOfEngine(fit.vapor))
 }
 
 /**

@@ -1,13 +1,8 @@
 import { describe, expect, it } from 'vitest'
+import { engineVaporLabel } from '@ebullio/schemas'
 import type { ParametersExport } from '../../api/catalogue'
 import { bubblePressure, bubbleTemperature, type BinarySystem } from '@ebullio/thermo'
-import {
-  designPressureOf,
-  fitVapourLabel,
-  SYSTEM_SET_PREFIX,
-  systemFromParameters,
-  systemSetAsFit,
-} from './design-model'
+import { designPressureOf, SYSTEM_SET_PREFIX, systemFromParameters, systemSetAsFit } from './design-model'
 
 // A parameters export in the documented layout, trimmed to what the model choice reads (values invented).
 const vp = (name: string, index: 1 | 2, A: number) => ({
@@ -107,8 +102,8 @@ describe("the engineer's calculations use the fit's own vapour model", () => {
     expect(bubbleTemperature(system, at).T).toBeCloseTo(direct.T, 9)
     // and the correction is real at 1 atm: the ideal vapour gives another bubble temperature
     expect(Math.abs(bubbleTemperature(ideal, at).T - direct.T)).toBeGreaterThan(1e-3)
-    expect(fitVapourLabel(fit)).toBe('virial gas, Tsonopoulos second virial coefficients')
-    expect(fitVapourLabel(base.fits[0])).toBe('ideal gas (modified Raoult’s law)')
+    expect(engineVaporLabel(fit.vapor)).toBe('virial gas, Tsonopoulos second virial coefficients')
+    expect(engineVaporLabel(base.fits[0].vapor)).toBe('ideal gas (modified Raoult’s law)')
   })
   it("the system's recommended set carries the vapour it was fitted under", () => {
     const set = {
@@ -117,7 +112,7 @@ describe("the engineer's calculations use the fit's own vapour model", () => {
     } as unknown as ParametersExport
     const { system, fit } = systemFromParameters(set, `${SYSTEM_SET_PREFIX}j1`)
     expect(system.vapor).toEqual(virial)
-    expect(fitVapourLabel(fit)).toBe('virial gas, Tsonopoulos second virial coefficients')
+    expect(engineVaporLabel(fit.vapor)).toBe('virial gas, Tsonopoulos second virial coefficients')
     expect(systemFromParameters(withSet, `${SYSTEM_SET_PREFIX}j1`).system.vapor).toBeUndefined()
   })
 })

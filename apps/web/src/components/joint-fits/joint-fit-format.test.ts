@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { jointLabel, lastReturn, parameterUnit, valueWithError } from './joint-fit-format'
+import { heldRows, jointLabel, lastReturn, parameterUnit, valueWithError } from './joint-fit-format'
 
 describe('joint-fit format', () => {
   it('names a joint set in the lab screens’ style, merging notes into the parentheses', () => {
@@ -9,6 +9,23 @@ describe('joint-fit format', () => {
     expect(jointLabel({ ...f, model: 'wilson', options: { temperatureDependent: false } })).toBe(
       'Wilson (joint, constant energies, 2 data sets)',
     )
+  })
+  it('names a joint UNIQUAC set and lists its held r and q (from the components) beside the fitted energies', () => {
+    const f = { model: 'uniquac' as const, members: [{}, {}, {}] as never, options: { temperatureDependent: true } }
+    expect(jointLabel(f)).toBe('UNIQUAC (joint, 3 data sets)')
+    const activity = { kind: 'uniquac', a12: 1590.6, a21: -300.1, a12T: 9.8, a21T: -6.2, r1: 2.5735, r2: 1.4311 }
+    const parameters = ['a12', 'a21', 'a12T', 'a21T'].map((name) => ({ name, value: 0, standardError: 1 }))
+    expect(heldRows({ activity: { ...activity, q1: 2.336, q2: 1.432 }, parameters })).toEqual([
+      { name: 'q1', shown: '2.3360', unit: '1' },
+      { name: 'q2', shown: '1.4320', unit: '1' },
+      { name: 'r1', shown: '2.5735', unit: '1' },
+      { name: 'r2', shown: '1.4311', unit: '1' },
+    ])
+    const wilson = { kind: 'wilson', a12: 1, a21: 2, V1: 74.05, V2: 40.73 }
+    expect(heldRows({ activity: wilson, parameters: parameters.slice(0, 2) })).toEqual([
+      { name: 'V1', shown: '74.050', unit: 'cm³/mol' },
+      { name: 'V2', shown: '40.730', unit: 'cm³/mol' },
+    ])
   })
   it('gives energies J/mol and their temperature terms J/(mol·K)', () => {
     expect(['b12', 'a21', 'b21T', 'a12T', 'alpha'].map(parameterUnit)).toEqual([

@@ -54,6 +54,22 @@ export function parameterRows(f: Pick<JointFitDto, 'parameters'>) {
   }))
 }
 
+/**
+ * What the set holds but did not fit, from its activity model: NRTL's α, Wilson's V1 and V2 (cm³/mol), UNIQUAC's
+ * r and q of both components (dimensionless), each with its unit.
+ */
+export function heldRows(f: Pick<JointFitDto, 'parameters' | 'activity'>) {
+  const fitted = new Set(f.parameters.map((p) => p.name))
+  return Object.entries(f.activity)
+    .filter(([k, v]) => k !== 'kind' && !fitted.has(k) && typeof v === 'number')
+    .sort(([a], [b]) => a.localeCompare(b))
+    .map(([name, v]) => ({
+      name: name === 'alpha' ? 'α' : name,
+      shown: (v as number).toPrecision(5),
+      unit: /^V[12]$/.test(name) ? 'cm³/mol' : '1',
+    }))
+}
+
 /** The latest return for rework of a joint fit (its reason, who and when), or null when it was never returned. */
 export function lastReturn(f: Pick<JointFitDto, 'signatures'>) {
   return f.signatures.filter((s) => s.meaning === 'returned for rework').at(-1) ?? null
