@@ -157,7 +157,8 @@ export async function scenarioDataSets(ctx: SeedContext): Promise<void> {
       prefix: 'KA',
       notes: 'Recirculating still no. 2, Pt100 in the vapour space, barometer at the bench.',
     })
-    const rv = await fitAndSubmit(ctx, d.id, ['wilson', 'nrtl', 'van-laar'], 'wilson')
+    // UNIQUAC too (r and q of the demo components from demo-properties.ts), fitted before the version is signed
+    const rv = await fitAndSubmit(ctx, d.id, ['wilson', 'nrtl', 'van-laar', 'uniquac'], 'wilson')
     await workflow.approve(
       ctx.db,
       ctx.config,
