@@ -184,3 +184,32 @@ test('a lead chemist fits one set to two pressures and submits it, a second one 
   )
   await snap(page, 'joint-05-engineer-outside')
 })
+
+// UNIQUAC in a joint fit: r and q come from the demo's components (sums of UNIFAC groups, db/seeds/demo-properties.ts)
+// and are listed as held beside the four fitted energies; the draft is deleted again so the demo stays as seeded.
+test('a lead chemist runs a joint UNIQUAC fit over the two pressures: four energies, r and q held', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.lead)
+  await openLabSystem(page)
+  const form = page.getByTestId('joint-run-form')
+  await form.locator('li').filter({ hasText: ATM }).getByRole('checkbox').check()
+  await form.locator('li').filter({ hasText: VACUUM }).getByRole('checkbox').check()
+  await page.getByTestId('joint-model').getByText('UNIQUAC').click()
+  await expect(page.getByTestId('joint-uniquac-note')).toHaveText('r and q from the components (held)')
+  await page.getByTestId('joint-run').click()
+
+  const panel = page.locator('[data-test^="joint-fit-"]').first()
+  await expect(panel.getByTestId('joint-label')).toHaveText('UNIQUAC (joint, 2 data sets)')
+  for (const name of ['a12', 'a21', 'a12T', 'a21T'])
+    await expect(panel.getByTestId(`joint-param-${name}`)).toContainText('±')
+  // methanol (1) / water (2): CH3OH and H2O groups (Hansen et al. 1991, from memory)
+  await expect(panel.getByTestId('joint-held-r1')).toContainText('1.4311 (held)')
+  await expect(panel.getByTestId('joint-held-q2')).toContainText('1.4000 (held)')
+  await expect(panel.locator('[data-test^="joint-plot-"] canvas')).toHaveCount(2)
+  await snap(page, 'joint-05-uniquac')
+
+  await panel.getByTestId('joint-delete').click()
+  await page.getByRole('alertdialog', { name: 'Delete joint fit' }).getByRole('button', { name: 'Delete' }).click()
+  await expect(page.getByTestId('joint-notice')).toContainText('The draft joint fit is deleted.')
+})
