@@ -1,5 +1,7 @@
 import { sql } from 'kysely'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { bubbleTemperature, type ActivityModel, type VaporPressureModel } from '@ebullio/thermo'
+import { DEMO_SYSTEMS, demoVaporPressure } from '../../../db/seeds/demo-systems.js'
 import { seedLab } from '../../../db/seeds/lab.js'
 import { seedUsers } from '../../../db/seeds/users.js'
 import { createTestContext, resetDatabase, type TestContext } from './helpers.js'
@@ -81,6 +83,26 @@ describe('demo scenario (invented data)', () => {
     expect(hoc.rows[0].options.vapor?.correlation).toBe('hayden-oconnell')
     expect(Math.abs(hoc.rows[0].activity.b12 - -253.88 * 4.184)).toBeLessThan(300)
     expect(Math.abs(hoc.rows[0].activity.b21 - 845.21 * 4.184)).toBeLessThan(300)
+    // the approved acetone/methanol series carries a UNIQUAC fit (lab-scenario.ts) with the demo components' r and q,
+    // sums of UNIFAC group R, Q (Hansen et al., Ind. Eng. Chem. Res. 30 (1991) 2352; from memory): acetone CH3 + CH3CO,
+    // methanol CH3OH. Its points came from SVNA 7th ed. Table 12.5's Wilson model: at 1 atm and x1 = 0.5 the UNIQUAC
+    // bubble point lies within 0.2 K of that model's
+    const uq = await sql<{ activity: Record<string, number> }>`
+      select f.activity from fit f join data_set d on d.id = f.data_set_id
+      where d.title like 'Kestrel acetone recycle%' and d.state = 'approved' and f.model = 'uniquac'`.execute(t.db)
+    expect(uq.rows).toHaveLength(1)
+    const u = uq.rows[0].activity
+    expect([u.r1, u.q1, u.r2, u.q2]).toEqual([
+      expect.closeTo(0.9011 + 1.6724, 12),
+      expect.closeTo(0.848 + 1.488, 12),
+      1.4311,
+      1.432,
+    ])
+    const vp = [demoVaporPressure('acetone'), demoVaporPressure('methanol')] as [VaporPressureModel, VaporPressureModel]
+    const at05 = (activity: ActivityModel) =>
+      bubbleTemperature({ vaporPressure: vp, activity }, { P: 101325, x1: 0.5 }).T
+    const wilson = DEMO_SYSTEMS.find((x) => x.key === 'acetone-methanol')!.activity
+    expect(Math.abs(at05(u as unknown as ActivityModel) - at05(wilson))).toBeLessThan(0.2)
     const before = await labCounts(t)
     await seedLab(t.db, await seedUsers(t.db))
     expect(await labCounts(t)).toEqual(before)
