@@ -10,18 +10,25 @@
  * - methanol (1)/water (2) at 60 kPa under a Hayden–O'Connell vapour (both associate): T and y from the γ–φ bubble
  *   point of the same NRTL model with HOC second virial coefficients (RD and η of demo-properties.ts; η12 = 0, no
  *   published solvation value at hand), plus 0.05 K and 0.004 noise, typed in as points (another method).
- * All stay drafts with their fits, consistency tests and data-quality score run.
+ * Each is fitted by the analyst, with its consistency tests and data-quality score run. The virial series at 1 atm
+ * stays a draft. The static-cell series (Wilson recommended) and the Hayden–O'Connell series (NRTL recommended) are
+ * signed: the lead chemist chooses the recommended fit, the analyst submits, and the lead chemist, who changed no
+ * content, approves with an e-signature, so the engineer's catalogue has an isothermal version and a version under an
+ * associating vapour. A data set left a draft by an older seed is signed on the next run (idempotent).
  */
 import { bubblePressure, bubbleTemperature } from '@ebullio/thermo'
 import { seededRandom } from '@ebullio/thermo/random'
 import * as datasets from '../../apps/api/src/services/datasets.service.js'
 import { addTypedPoints } from '../../apps/api/src/services/direct-points.service.js'
 import * as fits from '../../apps/api/src/services/fits.service.js'
+import type { FitModelName } from '../../apps/api/src/services/fits.service.js'
 import { engineVapor, getSystem } from '../../apps/api/src/services/systems.service.js'
 import { commitRun } from '../../apps/api/src/services/uploads.service.js'
+import * as workflow from '../../apps/api/src/services/workflow.service.js'
 import { DEMO_SYSTEMS, demoVaporPressure } from './demo-systems.js'
 import { runCsv } from './gc-generator.js'
 import type { SeedContext } from './lab.js'
+import { DEMO_PASSWORD } from './users.js'
 
 export const ISOTHERMAL_TITLE = 'Static cell at 55 °C: acetone + methanol'
 export const VIRIAL_TITLE = 'Recovery column feed with a virial vapour: methanol + water at 1 atm'
@@ -139,9 +146,50 @@ async function haydenOConnellSeries(ctx: SeedContext): Promise<void> {
   await fits.runConsistency(ctx.db, ctx.users.analyst, d.id, 'nrtl')
 }
 
-/** The isothermal and the virial-vapour demo series (idempotent: each is skipped when its title exists). */
+/**
+ * Sign the draft with this title through the workflow: the lead chemist marks the fit of `model` recommended (not a
+ * change of content, so the four-eyes rule still lets them sign), the analyst submits, the lead chemist approves.
+ * Nothing happens when no draft has the title (already signed).
+ */
+async function approveDraft(ctx: SeedContext, title: string, model: FitModelName, reason: string): Promise<void> {
+  const { db, config, users } = ctx
+  const row = await db
+    .selectFrom('data_set')
+    .select('id')
+    .where('title', '=', title)
+    .where('state', '=', 'draft')
+    .executeTakeFirst()
+  if (!row) return
+  const detail = await datasets.getDataSetDetail(db, users.lead, row.id)
+  const fit = detail.fits.find((f) => f.model === model)
+  if (!fit) throw new Error(`The demo data set "${title}" has no ${model} fit to recommend.`)
+  const marked = await fits.markRecommended(db, users.lead, row.id, fit.id)
+  const submitted = await workflow.submit(db, config, users.analyst, row.id, marked.rowVersion)
+  await workflow.approve(db, config, users.lead, row.id, {
+    password: DEMO_PASSWORD,
+    reason,
+    rowVersion: submitted.rowVersion,
+  })
+}
+
+/**
+ * The isothermal and the virial-vapour demo series (idempotent: each is created only when its title is missing, and
+ * the two signed ones are signed only while they are drafts).
+ */
 export async function vapourAndIsothermalDataSets(ctx: SeedContext): Promise<void> {
   await isothermalSeries(ctx)
   await virialSeries(ctx)
   await haydenOConnellSeries(ctx)
+  await approveDraft(
+    ctx,
+    ISOTHERMAL_TITLE,
+    'wilson',
+    'Pressures and vapour compositions within their noise at 55 °C; Wilson recommended for the recycle study.',
+  )
+  await approveDraft(
+    ctx,
+    HOC_TITLE,
+    'nrtl',
+    'Consistent under the Hayden–O’Connell vapour at 60 kPa; NRTL recommended for the vacuum recovery trial.',
+  )
 }

@@ -16,8 +16,8 @@ afterAll(() => t.close())
 
 describe('catalogue', () => {
   it('lists only systems with approved or superseded versions, one page at a time', async () => {
-    // demo: acetone/methanol, methanol/water (1 atm and 40 kPa, with a recommended parameter set) and water/1-butanol
-    // approved; n-hexane/n-heptane v2 approved superseding v1; the other two systems unapproved
+    // demo: acetone/methanol (1 atm and 55 °C, with a recommended parameter set over both), methanol/water (1 atm and
+    // 40 kPa, with a recommended parameter set; 60 kPa under a Hayden–O'Connell vapour) and water/1-butanol approved; n-hexane/n-heptane v2 approved superseding v1; the other two systems unapproved
     const all = await engineer.get('/api/catalogue').expect(200)
     expect(all.body.total).toBe(4)
     expect(all.body.items.map((i: { system: { name: string } }) => i.system.name)).toEqual([
@@ -28,7 +28,7 @@ describe('catalogue', () => {
     ])
     expect(
       all.body.items.map((i: { recommendedSet: { label: string } | null }) => i.recommendedSet?.label ?? null),
-    ).toEqual([null, 'NRTL (joint, 2 data sets)', null, null])
+    ).toEqual(['Wilson (joint, 2 data sets)', 'NRTL (joint, 2 data sets)', null, null])
     const p1 = await engineer.get('/api/catalogue').query({ pageSize: 1 }).expect(200)
     const p2 = await engineer.get('/api/catalogue').query({ pageSize: 1, page: 2 }).expect(200)
     expect([p1.body.total, p2.body.total]).toEqual([4, 4])

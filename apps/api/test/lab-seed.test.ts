@@ -23,14 +23,14 @@ describe('demo scenario (invented data)', () => {
       n: number
     }>`select state, count(*)::int as n from data_set group by state order by state`.execute(t.db)
     expect(Object.fromEntries(states.rows.map((r) => [r.state, r.n]))).toEqual({
-      approved: 5,
-      draft: 4,
+      approved: 7,
+      draft: 2,
       returned: 1,
       submitted: 3,
       superseded: 1,
     })
     expect((await sql<{ n: number }>`select count(*)::int as n from binary_system`.execute(t.db)).rows[0].n).toBe(6)
-    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(7)
+    expect((await sql<{ n: number }>`select count(*)::int as n from approval`.execute(t.db)).rows[0].n).toBe(9)
     expect(
       (await sql<{ n: number }>`select count(*)::int as n from upload where kind = 'run'`.execute(t.db)).rows[0].n,
     ).toBe(11)
@@ -39,12 +39,40 @@ describe('demo scenario (invented data)', () => {
       select j.state, s.display_name as signer, r.display_name as runner from joint_fit j
       join joint_fit_approval a on a.joint_fit_id = j.id join app_user s on s.id = a.signer_id
       join app_user r on r.id = j.run_by`.execute(t.db)
-    expect(joint.rows).toEqual([{ state: 'approved', signer: 'Dr. Tobias Lindqvist', runner: 'Dr. Amara Nwosu' }])
-    // the mixed joint fit of acetone/methanol (joint-mixed-scenario.ts): 1 atm isobaric + 55 °C isothermal, submitted
+    expect(joint.rows).toEqual([
+      { state: 'approved', signer: 'Dr. Tobias Lindqvist', runner: 'Dr. Amara Nwosu' },
+      { state: 'approved', signer: 'Dr. Tobias Lindqvist', runner: 'Dr. Amara Nwosu' },
+    ])
+    // the static-cell (55 °C) and Hayden–O'Connell (60 kPa) series (lab-scenario-vapour.ts): analyst uploads, fits and
+    // submits, the lead chemist (who changed no content) signs with the fit the series was generated from recommended
+    const signed = await sql<{ title: string; state: string; model: string; signer: string; submitter: string }>`
+      select d.title, d.state, f.model, s.display_name as signer, u.display_name as submitter from data_set d
+      join fit f on f.id = d.recommended_fit_id join approval a on a.data_set_id = d.id
+      join app_user s on s.id = a.signer_id
+      join audit_log l on l.entity_id = d.id::text and l.action = 'submit' join app_user u on u.id = l.actor_id
+      where d.title like 'Static cell at 55 °C%' or d.title like 'Vacuum recovery trial%' order by d.title`.execute(t.db)
+    expect(signed.rows).toEqual([
+      {
+        title: 'Static cell at 55 °C: acetone + methanol',
+        state: 'approved',
+        model: 'wilson',
+        signer: 'Dr. Tobias Lindqvist',
+        submitter: 'Mira Okonkwo',
+      },
+      {
+        title: 'Vacuum recovery trial, associating vapour (Hayden–O’Connell): methanol + water at 60 kPa',
+        state: 'approved',
+        model: 'nrtl',
+        signer: 'Dr. Tobias Lindqvist',
+        submitter: 'Mira Okonkwo',
+      },
+    ])
+    // the mixed joint fit of acetone/methanol (joint-mixed-scenario.ts): 1 atm isobaric + 55 °C isothermal, run by
+    // the second lead chemist and signed by the first as the system's recommended set
     const mixed = await sql<{ id: string; state: string; activity: Record<string, number> }>`
       select j.id, j.state, j.activity from joint_fit j join binary_system b on b.id = j.system_id
       join component c on c.id = b.component1_id where c.name = 'acetone'`.execute(t.db)
-    expect(mixed.rows.map((r) => r.state)).toEqual(['submitted'])
+    expect(mixed.rows.map((r) => r.state)).toEqual(['approved'])
     const members = await sql<{ layout: string; p: number | null; tk: number | null; n: number }>`
       select d.layout, d.nominal_pressure_pa::float8 as p, d.nominal_temperature_k::float8 as tk, m.point_count as n
       from joint_fit_member m join data_set d on d.id = m.data_set_id

@@ -304,3 +304,46 @@ export interface UploadProblemDto {
   message: string
   severity: 'error' | 'warning'
 }
+
+/**
+ * How far a virial vapour moves a data set's bubble points from an ideal vapour's, at its own included points with
+ * its recommended (else newest) fit's activity model (thermo's vaporCorrectionSize). The virial vapour compared is
+ * the data set's own when it chose one; for an ideal-vapour data set Tsonopoulos when both components have its
+ * data, else Hayden–O'Connell when both have theirs (mean radius of gyration). T in K, P in Pa.
+ */
+export interface VapourCorrectionDto {
+  /** true when the data set uses an ideal vapour although the correction exceeds the measurement uncertainty */
+  exceeds: boolean
+  /** the correction exceeds σT (σP) or σy at some point, whatever vapour the data set uses */
+  exceedsUncertainty: boolean
+  /** the vapour model the data set was reduced with */
+  vapour: 'ideal' | 'virial'
+  /** the correlation of the second virial coefficients the comparison used */
+  correlation: 'tsonopoulos' | 'hayden-oconnell'
+  kind: 'isobaric' | 'isothermal'
+  maxAbsDy: number
+  /** K (isobaric) */
+  maxAbsDT: number | null
+  /** Pa (isothermal) */
+  maxAbsDP: number | null
+  /** the activity model it was computed with, in words ("the nrtl fit") */
+  basis: string
+  /** the sentence the lab screens show; null when there is nothing to say */
+  message: string | null
+}
+
+/**
+ * The same comparison for each data set a system's recommended parameter set rests on, computed with the set's own
+ * activity model at each member's points (`exceeds`: the set uses an ideal vapour and some member's correction
+ * exceeds that member's measurement uncertainty).
+ */
+export interface SetVapourCorrectionDto {
+  exceeds: boolean
+  vapour: 'ideal' | 'virial'
+  correlation: 'tsonopoulos' | 'hayden-oconnell'
+  members: (Omit<VapourCorrectionDto, 'exceeds' | 'vapour' | 'correlation' | 'basis' | 'message'> & {
+    dataSetId: string
+    title: string
+    version: number
+  })[]
+}

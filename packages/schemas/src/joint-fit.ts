@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import type { FitParameterDto, FitStatisticsDto } from './dto.js'
+import type { FitParameterDto, FitStatisticsDto, SetVapourCorrectionDto } from './dto.js'
 import { FIT_MODEL_LABELS, labelWithNote } from './fit-label.js'
 import { labId, PRESSURE_UNITS } from './lab.js'
 import type { DataKind, VaporModelChoice } from './data-kind.js'
@@ -183,6 +183,11 @@ export interface RecommendedParameterSetDto<D = string> {
     nominalTemperatureK: number | null
     pointCount: number
   }[]
+  /**
+   * How far a virial vapour moves each member's bubble points under the set's model (answered where an engineer
+   * computes with the set: the parameters export and the recommended-parameters route); null when it cannot be had.
+   */
+  vapourCorrection?: SetVapourCorrectionDto | null
 }
 
 /**

@@ -297,6 +297,10 @@ export async function listSignedVersionsOfSystems(db: Db, systemIds: string[]) {
     ])
     .where('d.state', 'in', ['approved', 'superseded'])
     .where('d.system_id', 'in', systemIds)
+    // newest first; two lineages at the same version number by when they were signed (the newest first), so the
+    // version an engineer's page opens at does not depend on the order PostgreSQL happens to return them in
     .orderBy('d.version', 'desc')
+    .orderBy('d.approved_at', sql`desc nulls last`)
+    .orderBy('d.id')
     .execute()
 }

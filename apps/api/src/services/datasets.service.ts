@@ -24,9 +24,10 @@ import {
   staleWrite,
   visibleOrNotFound,
 } from './lab-access.js'
-import { binarySystem, engineInputs, engineVapor, getSystem } from './systems.service.js'
-import { enginePoint, pointSetOf, withStale } from './point-set.js'
-import { checkVaporModel, vaporCorrectionSize, type ActivityModel } from '@ebullio/thermo'
+import { engineVapor, getSystem } from './systems.service.js'
+import { pointSetOf, withStale } from './point-set.js'
+import { vapourCorrectionOf } from './vapour-correction.js'
+import { checkVaporModel } from '@ebullio/thermo'
 
 export interface DataSetInput {
   systemId: string
@@ -113,46 +114,6 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
     versions: (await repo.listVersions(db, d.lineageId))
       .filter((v) => full || PUBLISHED_STATES.includes(v.state))
       .map((v) => ({ id: v.id, version: v.version, state: v.state, approvedAt: v.approvedAt })),
-  }
-}
-
-/**
- * How large the vapour correction is at this data set's conditions, when it uses an ideal vapour and both components
- * have their critical data: thermo's vaporCorrectionSize with the recommended (else newest) fit's activity model, or
- * the ideal solution before any fit. `exceeds` drives the workspace's warning. Null when it does not apply.
- */
-async function vapourCorrectionOf(db: Db, d: repo.DataSetRecord, pts: points.PointRecord[]) {
-  const used = pts.filter((p) => !p.excluded)
-  if (d.vaporModel.kind !== 'ideal' || used.length === 0) return null
-  const system = await getSystem(db, d.systemId)
-  if (missingVirialData([system.component1, system.component2])) return null
-  try {
-    const inputs = await engineInputs(db, d.systemId, { kind: 'virial', correlation: 'tsonopoulos', poynting: false })
-    const all = await listFits(db, d.id)
-    const fit = all.find((f) => f.id === d.recommendedFitId) ?? all.at(-1)
-    const activity = (fit?.activity as unknown as ActivityModel | undefined) ?? { kind: 'ideal' }
-    const r = vaporCorrectionSize(binarySystem(inputs, activity), used.map(enginePoint), {
-      kind: dataKindOf(d.layout),
-    })
-    const size =
-      r.kind === 'isothermal'
-        ? `|ΔP| up to ${((r.maxAbsDP ?? 0) / 1000).toFixed(3)} kPa`
-        : `|ΔT| up to ${(r.maxAbsDT ?? 0).toFixed(3)} K`
-    return {
-      exceeds: r.exceedsUncertainty,
-      kind: r.kind,
-      maxAbsDy: r.maxAbsDy,
-      maxAbsDT: r.maxAbsDT ?? null,
-      maxAbsDP: r.maxAbsDP ?? null,
-      basis: fit ? `the ${fit.model} fit` : 'an ideal solution (no fit yet)',
-      message: r.exceedsUncertainty
-        ? `A virial vapour would move the bubble points by more than their measurement uncertainty (${size}, |Δy₁| up to ${r.maxAbsDy.toFixed(4)}, with ${fit ? `the ${fit.model} fit` : 'an ideal solution'}), but this data set uses an ideal vapour. Consider the virial vapour (Edit details → Vapour model).`
-        : null,
-    }
-  } catch (err) {
-    // no vapour-pressure set, or the engine refuses these conditions: no warning rather than a broken page
-    if ((err as { name?: string }).name === 'ThermoError' || err instanceof AppError) return null
-    throw err
   }
 }
 

@@ -4,10 +4,12 @@ import type { Db } from '../db/index.js'
 import { listApprovals } from '../repositories/approvals.repository.js'
 import * as repo from '../repositories/datasets.repository.js'
 import { listFits } from '../repositories/fits.repository.js'
+import { findJointFit } from '../repositories/joint-fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { visibleOrNotFound } from './lab-access.js'
 import { recommendedSetOf } from './joint-fit-signing.js'
 import { engineInputs } from './systems.service.js'
+import { setVapourCorrection } from './vapour-correction.js'
 import {
   csvDocument,
   dataSetFileName,
@@ -60,8 +62,11 @@ export const TEMPERATURE_FORM: Record<string, string> = {
 async function systemRecommendedSet(db: Db, systemId: string) {
   const r = await recommendedSetOf(db, systemId)
   if (!r) return null
+  const fit = await findJointFit(db, r.id)
   return {
     ...r,
+    // the engineer's page warns with it when the set uses an ideal vapour (useSystemDesign.ts)
+    vapourCorrection: fit ? await setVapourCorrection(db, fit) : null,
     equation: MODEL_EQUATIONS[r.model] ?? r.model,
     temperatureForm: TEMPERATURE_FORM[r.model] ?? null,
     parameters: r.parameters.map((p) => ({ ...p, unit: UNITS[p.name] ?? '1' })),

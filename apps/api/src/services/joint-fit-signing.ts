@@ -26,6 +26,7 @@ import * as datasets from '../repositories/datasets.repository.js'
 import * as repo from '../repositories/joint-fits.repository.js'
 import { listPoints } from '../repositories/points.repository.js'
 import { contributorsOf, type Contributor } from './contributors.js'
+import { setVapourCorrection } from './vapour-correction.js'
 import { notifyUser } from '../mail/outbox.js'
 import {
   memberContent,
@@ -345,7 +346,8 @@ export async function recommendedSet(db: Db, systemId: string): Promise<Recommen
   await getSystem(db, systemId)
   const r = await recommendedSetOf(db, systemId)
   if (!r) throw notFound('This system has no signed recommended parameter set.')
-  return r
+  const fit = await repo.findJointFit(db, r.id)
+  return { ...r, vapourCorrection: fit ? await setVapourCorrection(db, fit) : null }
 }
 
 const kPa = (P: number) => `${(P / 1000).toPrecision(4)} kPa`
@@ -355,7 +357,9 @@ const kPa = (P: number) => `${(P / 1000).toPrecision(4)} kPa`
  * the pressure range the set was fitted on (the curve is then an extrapolation).
  */
 export async function recommendedCurve(db: Db, systemId: string, o: { P: number; points: number }) {
-  const set = await recommendedSet(db, systemId)
+  await getSystem(db, systemId)
+  const set = await recommendedSetOf(db, systemId)
+  if (!set) throw notFound('This system has no signed recommended parameter set.')
   const inputs = await engineInputs(db, systemId)
   // The set's own vapour model (kept with the joint fit), with which its parameters were fitted.
   const vapor = (await repo.findJointFit(db, set.id))?.options.vapor as typeof inputs.vapor | undefined

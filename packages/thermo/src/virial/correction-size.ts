@@ -1,19 +1,22 @@
 /**
  * How much a virial vapour changes the model at a data set's own conditions: the largest |Δy| and |ΔT| (isobaric)
  * or |ΔP| (isothermal) between the ideal-vapour and the virial-vapour bubble points of the same activity model, at
- * each point's x1 and P (or T). A product warns with it when a data set uses an ideal vapour although the
- * correction exceeds the measurement uncertainty.
+ * each point's x1 and P (or T), under the virial vapour given (Tsonopoulos or Hayden–O'Connell second virial
+ * coefficients; the result names which). A product warns with it when a data set uses an ideal vapour although the
+ * correction exceeds the measurement uncertainty, and states it for a data set reduced with a virial vapour.
  */
 import { ThermoError } from '../errors.js'
 import { bubblePressure, bubbleTemperature } from '../equilibrium/vle.js'
 import { DEFAULT_SIGMA_P, DEFAULT_SIGMA_T, DEFAULT_SIGMA_Y, type BinaryPoint } from '../fitting/fit-input.js'
 import type { BinarySystem } from '../types.js'
-import type { VaporModel } from './virial-types.js'
+import type { VaporModel, VirialCorrelation } from './virial-types.js'
 
 /** Result of {@link vaporCorrectionSize}; differences are virial − ideal, reported as absolute values. */
 export interface VaporCorrectionSize {
   /** Which bubble point was compared: T at each point's P (isobaric) or P at each point's T (isothermal). */
   kind: 'isobaric' | 'isothermal'
+  /** The correlation of the second virial coefficients the virial vapour compared took them from. */
+  correlation: VirialCorrelation
   /** Largest |y1(virial) − y1(ideal)| over the points. */
   maxAbsDy: number
   /** Largest |T(virial) − T(ideal)|, K (isobaric only). */
@@ -95,6 +98,7 @@ export function vaporCorrectionSize(
     throw new ThermoError('invalid-input', 'No point could be compared; see the warnings of the model.')
   return {
     kind,
+    correlation: vapor.correlation,
     maxAbsDy,
     ...(kind === 'isobaric' ? { maxAbsDT: maxAbsDv } : { maxAbsDP: maxAbsDv }),
     exceedsUncertainty: exceeds,
