@@ -50,7 +50,9 @@ describe('demo scenario (invented data)', () => {
       join fit f on f.id = d.recommended_fit_id join approval a on a.data_set_id = d.id
       join app_user s on s.id = a.signer_id
       join audit_log l on l.entity_id = d.id::text and l.action = 'submit' join app_user u on u.id = l.actor_id
-      where d.title like 'Static cell at 55 °C%' or d.title like 'Vacuum recovery trial%' order by d.title`.execute(t.db)
+      where d.title like 'Static cell at 55 °C%' or d.title like 'Vacuum recovery trial%' order by d.title`.execute(
+      t.db,
+    )
     expect(signed.rows).toEqual([
       {
         title: 'Static cell at 55 °C: acetone + methanol',

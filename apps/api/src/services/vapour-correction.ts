@@ -6,12 +6,7 @@
  */
 import { dataKindOf, missingVirialData, virialCorrelationLabel, type VaporModelChoice } from '@ebullio/schemas'
 import type { SetVapourCorrectionDto, VapourCorrectionDto } from '@ebullio/schemas'
-import {
-  vaporCorrectionSize,
-  type ActivityModel,
-  type VaporCorrectionSize,
-  type VaporModel,
-} from '@ebullio/thermo'
+import { vaporCorrectionSize, type ActivityModel, type VaporCorrectionSize, type VaporModel } from '@ebullio/thermo'
 import type { Db } from '../db/index.js'
 import { AppError } from '../errors/index.js'
 import type { DataSetRecord } from '../repositories/datasets.repository.js'
@@ -113,7 +108,10 @@ export async function setVapourCorrection(db: Db, fit: JointFitRecord): Promise<
   try {
     // the set's own virial vapour as it was fitted with, else the one an ideal vapour is compared with
     const vapor = stored?.kind === 'virial' ? stored : (await engineInputs(db, fit.systemId, choice!)).vapor
-    const system = { ...binarySystem(await engineInputs(db, fit.systemId), fit.activity as unknown as ActivityModel), vapor }
+    const system = {
+      ...binarySystem(await engineInputs(db, fit.systemId), fit.activity as unknown as ActivityModel),
+      vapor,
+    }
     const members: SetVapourCorrectionDto['members'] = []
     let correlation: SetVapourCorrectionDto['correlation'] = vapor.kind === 'virial' ? vapor.correlation : 'tsonopoulos'
     for (const m of await listMembers(db, fit.id)) {

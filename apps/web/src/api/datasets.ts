@@ -10,6 +10,7 @@ import type {
   PointDto,
   SuggestionCriterionName,
   SystemDto,
+  VapourCorrectionDto,
 } from '@ebullio/schemas'
 import type { PredictionBand, PredictionBandIsothermal } from '@ebullio/thermo'
 import { api, query } from './client'
@@ -94,18 +95,8 @@ export interface DataSetDetail {
   vapourCorrection?: VapourCorrection | null
 }
 
-/** The server's comparison of an ideal with a virial vapour at the data set's own points. */
-export interface VapourCorrection {
-  exceeds: boolean
-  kind: 'isobaric' | 'isothermal'
-  maxAbsDy: number
-  /** K */
-  maxAbsDT: number | null
-  /** Pa */
-  maxAbsDP: number | null
-  basis: string
-  message: string | null
-}
+/** The server's comparison of an ideal with a virial vapour at the data set's own points (the shared wire type). */
+export type VapourCorrection = VapourCorrectionDto
 
 /** The server answers with the data set's own fields at the top level and its parts beside them. */
 type DetailAnswer = DataSet & Omit<DataSetDetail, 'dataSet' | 'vaporPressure' | 'authorName'>

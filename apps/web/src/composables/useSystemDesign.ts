@@ -92,12 +92,25 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
   /** The vapour model every number on the page is computed with: the chosen fit's (or the system set's). */
   const vapourLabel = computed(() => (built.value?.fit ? engineVaporLabel(built.value.fit.vapor) : ''))
   /**
-   * The data set uses an ideal vapour although a virial one would move its bubble points by more than their
-   * measurement uncertainty (the server's check, thermo's vaporCorrectionSize); null when that is not so.
+   * The version shown uses an ideal vapour although a virial one would move its bubble points by more than their
+   * measurement uncertainty (the server's check, thermo's vaporCorrectionSize); null when that is not so, and when
+   * the page computes with the system's recommended set (then {@link setVapourWarning} speaks for its members).
    */
   const vapourWarning = computed(() => {
+    if (fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
     const c = measured.value?.vapourCorrection
     return c?.exceeds ? c : null
+  })
+  /**
+   * The system's recommended set is the model, it uses an ideal vapour, and at the points of some data set it rests
+   * on a virial vapour would move the set's bubble points by more than that data set's measurement uncertainty: the
+   * correlation compared and those members with their figures; null otherwise.
+   */
+  const setVapourWarning = computed(() => {
+    if (!fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
+    const c = params.value?.systemRecommendedSet?.vapourCorrection
+    if (!c?.exceeds) return null
+    return { correlation: c.correlation, members: c.members.filter((m) => m.exceedsUncertainty) }
   })
   const plotPoints = computed(() =>
     measured.value && atMeasuredPressure.value ? measuredForPlot(measured.value, fitId.value) : [],
@@ -128,5 +141,6 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
     others,
     vapourLabel,
     vapourWarning,
+    setVapourWarning,
   }
 }

@@ -252,6 +252,7 @@ describe('vaporCorrectionSize', () => {
     const low = vaporCorrectionSize(truth, isobaric(101_325, 1))
     const high = vaporCorrectionSize(truth, isobaric(500_000, 1))
     expect(low.kind).toBe('isobaric')
+    expect(low.correlation).toBe('tsonopoulos')
     expect(high.maxAbsDT as number).toBeGreaterThan(low.maxAbsDT as number)
     // The same numbers as the two solvers side by side at one point (virial − ideal).
     const x1 = isobaric(500_000, 1)[10].x1
