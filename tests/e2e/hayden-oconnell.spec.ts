@@ -35,3 +35,24 @@ test("an analyst chooses a Hayden–O'Connell vapour with η12 and its source, a
   await expect(page.getByTestId('fact-vapour')).toHaveText('virial (Hayden–O’Connell)')
   expect(await page.locator('img[src="x"]').count()).toBe(0)
 })
+
+test("the demo's Hayden–O'Connell series states the size of the correction its vapour applies", async ({ page }) => {
+  // db/seeds/lab-scenario-vapour.ts: methanol/water at 60 kPa under a HOC vapour (INVENTED points); the server's
+  // figures are thermo's vaporCorrectionSize under that vapour (apps/api/test/lab-vapour-correction.test.ts)
+  await signIn(page, DEMO.analyst)
+  await page.goto('/datasets')
+  await page.getByLabel('Search').fill('Vacuum recovery trial')
+  await page
+    .getByRole('link', { name: /Vacuum recovery trial/ })
+    .first()
+    .click()
+  await page.waitForURL(/\/datasets\/[0-9a-f-]{36}/)
+  const id = page.url().match(/\/datasets\/([\w-]+)/)![1]
+  const vc = (await (await page.request.get(`/api/data-sets/${id}`)).json()).vapourCorrection
+  expect(vc).toMatchObject({ vapour: 'virial', correlation: 'hayden-oconnell', exceeds: false })
+  const note = page.getByTestId('vapour-correction-size')
+  await expect(note).toContainText('The Hayden–O’Connell virial vapour this data set uses moves its bubble points')
+  await expect(note).toContainText(`|ΔT| up to ${vc.maxAbsDT.toFixed(3)} K, |Δy₁| up to ${vc.maxAbsDy.toFixed(4)}`)
+  await expect(page.getByTestId('vapour-warning')).toHaveCount(0)
+  await shot(page, 'hoc-02-correction-size')
+})

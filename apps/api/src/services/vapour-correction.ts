@@ -4,7 +4,13 @@
  * compared is the data set's own when it chose one (its correlation, η12 and Poynting switch); for an ideal-vapour
  * data set Tsonopoulos when both components have its data, else Hayden–O'Connell when both have theirs.
  */
-import { dataKindOf, missingVirialData, virialCorrelationLabel, type VaporModelChoice } from '@ebullio/schemas'
+import {
+  dataKindOf,
+  fitLabel,
+  missingVirialData,
+  virialCorrelationLabel,
+  type VaporModelChoice,
+} from '@ebullio/schemas'
 import type { SetVapourCorrectionDto, VapourCorrectionDto } from '@ebullio/schemas'
 import { vaporCorrectionSize, type ActivityModel, type VaporCorrectionSize, type VaporModel } from '@ebullio/thermo'
 import type { Db } from '../db/index.js'
@@ -74,9 +80,10 @@ export async function vapourCorrectionOf(
       kind: dataKindOf(d.layout),
     })
     const ideal = d.vaporModel.kind !== 'virial'
-    const basis = fit ? `the ${fit.model} fit` : 'an ideal solution (no fit yet)'
+    // the fit named as on every other screen (one shared rule, fit-label.ts)
+    const basis = fit ? `the ${fitLabel(fit, all)} fit` : 'an ideal solution (no fit yet)'
     const name = virialCorrelationLabel(r.correlation)
-    const size = `${sizeText(r)}, |Δy₁| up to ${r.maxAbsDy.toFixed(4)}, with ${fit ? `the ${fit.model} fit` : 'an ideal solution'}`
+    const size = `${sizeText(r)}, |Δy₁| up to ${r.maxAbsDy.toFixed(4)}, with ${fit ? basis : 'an ideal solution'}`
     return {
       exceeds: ideal && r.exceedsUncertainty,
       vapour: ideal ? 'ideal' : 'virial',
