@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { heldRows, jointLabel, lastReturn, parameterUnit, valueWithError } from './joint-fit-format'
+import { heldRows, jointLabel, lastReturn, parameterUnit, statText, valueWithError } from './joint-fit-format'
 
 describe('joint-fit format', () => {
   it('names a joint set in the lab screens’ style, merging notes into the parentheses', () => {
@@ -57,5 +57,17 @@ describe('the latest return for rework', () => {
       ],
     })
     expect(r?.reason).toBe('<b>second</b>\u0007')
+  })
+})
+
+describe('a member statistic', () => {
+  it('gives a bias too small to show no sign, and signs the others with the true minus', () => {
+    expect(statText(-0.00002, 4, true)).toBe('0.0000')
+    expect(statText(0.00002, 4, true)).toBe('0.0000')
+    expect(statText(-0.0002, 4, true)).toBe('−0.0002')
+    expect(statText(0.064, 3, true)).toBe('+0.064')
+    expect(statText(162.94, 1)).toBe('162.9')
+    expect(statText(null, 1)).toBe('—')
+    expect(statText(Number.NaN, 1)).toBe('—')
   })
 })

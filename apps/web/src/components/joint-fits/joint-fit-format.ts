@@ -1,5 +1,6 @@
 /** Pure helpers of the joint-fit screens (lab system page and the engineer's view); no engine code. */
 import { jointFitLabel, type JointFitDto } from '@ebullio/schemas'
+import { fixedText } from '../../stores/preferences'
 
 /** The set's name as every screen and export gives it: "NRTL (joint, 2 data sets)". */
 export function jointLabel(f: Pick<JointFitDto, 'model' | 'members' | 'options'>, note?: string): string {
@@ -78,4 +79,14 @@ export function lastReturn(f: Pick<JointFitDto, 'signatures'>) {
 /** A failure in words for the screen: the server's message, or what went wrong. */
 export function errorText(e: unknown): string {
   return e instanceof Error ? e.message : String(e)
+}
+
+/**
+ * A statistic with a fixed number of decimals and the true minus sign; `signed` puts + before a positive value. A value
+ * that rounds to zero reads 0.0000 (never −0.0000 or +0.0000: a bias too small to show has no sign); "—" when missing.
+ */
+export function statText(v: number | null | undefined, digits: number, signed = false): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—'
+  const s = fixedText(v, digits)
+  return signed && !s.startsWith('−') && Number(s) !== 0 ? `+${s}` : s
 }

@@ -52,6 +52,29 @@ describe('txyOption', () => {
   })
 })
 
+describe('txyOption with a pressure ordinate (P–x–y)', () => {
+  it('draws the pressures as given, whatever temperature unit the user chose', () => {
+    // Invented numbers: a bubble pressure of 101.2 kPa must stay 101.2 under °C and °F alike (no 273.15 shift).
+    for (const unit of ['C', 'F', 'K'] as const) {
+      const o = txyOption({
+        title: 'P–x–y',
+        names,
+        unit,
+        k: 2,
+        ordinate: { axis: 'P / kPa', symbol: 'P', unit: 'kPa', digits: 2 },
+        curves: [{ name: 'Wilson', x1: [0, 0.5, 1], y1: [0, 0.6, 1], T: [68.7, 101.2, 98.1] }],
+        points: [{ id: 'p1', T: 101.2, x1: 0.5, y1: 0.6 }],
+      })
+      const series = o.series as Series[]
+      const liquid = series.find((s) => s.type === 'scatter' && s.name === 'Liquid x₁')!
+      expect((liquid.data[0] as { value: number[] }).value[1]).toBe(101.2)
+      const bubble = series.find((s) => s.type === 'line' && s.name === 'Wilson')!
+      expect((bubble.data as number[][]).map((d) => d[1])).toEqual([68.7, 101.2, 98.1])
+      expect((o.yAxis as { name: string }).name).toBe('P / kPa')
+    }
+  })
+})
+
 describe('txyOption tooltip', () => {
   it('shows a hovered point’s values with its uncertainties and flags', () => {
     const point = {

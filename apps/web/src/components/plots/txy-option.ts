@@ -59,8 +59,8 @@ export interface TxyOptionInput {
   threePhase?: ThreePhaseMark | null
   twoLiquids?: TwoLiquidRegion | null
   /**
-   * A P–x–y plot instead: the points' and curves' `T` carry the pressure already in the shown unit (pass unit 'K' so
-   * it is not converted), named by `symbol` and `unit` in tooltips and by `axis` on the axis.
+   * A P–x–y plot instead: the points' and curves' `T` carry the pressure already in the shown unit (never converted:
+   * `unit` is ignored), named by `symbol` and `unit` in tooltips and by `axis` on the axis.
    */
   ordinate?: PxyOrdinate | null
   /** literature data sets of the system, each with its own legend entry */
@@ -227,7 +227,9 @@ function extraSeries(o: TxyOptionInput): Record<string, unknown>[] {
 }
 
 /** Build the whole option. */
-export function txyOption(o: TxyOptionInput): Record<string, unknown> {
+export function txyOption(input: TxyOptionInput): Record<string, unknown> {
+  // A pressure ordinate is never a temperature: no kelvin → °C shift (a P–x–y plot once showed −172 "kPa").
+  const o: TxyOptionInput = input.ordinate ? { ...input, unit: 'K' } : input
   const base = baseOption(o.title)
   const selected = Object.fromEntries(o.curves.map((c) => [c.name, !c.hidden]))
   const names = [
