@@ -29,6 +29,11 @@ describe('catalogue', () => {
     expect(
       all.body.items.map((i: { recommendedSet: { label: string } | null }) => i.recommendedSet?.label ?? null),
     ).toEqual(['Wilson (joint, 2 data sets)', 'NRTL (joint, 2 data sets)', null, null])
+    // two v1 lineages of acetone/methanol: the newest signed first (the version the engineer's page opens at)
+    expect(all.body.items[0].approved.map((v: { title: string }) => v.title)).toEqual([
+      'Static cell at 55 °C: acetone + methanol',
+      'Kestrel acetone recycle: acetone/methanol at 1 atm',
+    ])
     const p1 = await engineer.get('/api/catalogue').query({ pageSize: 1 }).expect(200)
     const p2 = await engineer.get('/api/catalogue').query({ pageSize: 1, page: 2 }).expect(200)
     expect([p1.body.total, p2.body.total]).toEqual([4, 4])

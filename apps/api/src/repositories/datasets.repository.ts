@@ -277,32 +277,30 @@ export async function deleteDataSet(db: Db, id: string): Promise<void> {
  */
 export async function listSignedVersionsOfSystems(db: Db, systemIds: string[]) {
   if (systemIds.length === 0) return []
-  return (
-    db
-      .selectFrom('data_set as d')
-      .leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
-      .select([
-        'd.id',
-        'd.system_id',
-        'd.version',
-        'd.state',
-        'd.title',
-        'd.nominal_pressure_pa',
-        'd.nominal_temperature_k',
-        'd.approved_at',
-        'f.id as fit_id',
-        'f.model',
-        'f.parameters',
-        sql<ActivityModel | null>`f.activity`.as('activity'),
-        sql<unknown>`f.statistics`.as('statistics'),
-      ])
-      .where('d.state', 'in', ['approved', 'superseded'])
-      .where('d.system_id', 'in', systemIds)
-      // newest first; two lineages at the same version number by when they were signed (the newest first), so the
-      // version an engineer's page opens at does not depend on the order PostgreSQL happens to return them in
-      .orderBy('d.version', 'desc')
-      .orderBy('d.approved_at', (ob) => ob.desc().nullsLast())
-      .orderBy('d.id')
-      .execute()
-  )
+  // newest first; two lineages at the same version number by when they were signed (the newest first), so the
+  // version an engineer's page opens at does not depend on the order PostgreSQL happens to return them in
+  return db
+    .selectFrom('data_set as d')
+    .leftJoin('fit as f', 'f.id', 'd.recommended_fit_id')
+    .select([
+      'd.id',
+      'd.system_id',
+      'd.version',
+      'd.state',
+      'd.title',
+      'd.nominal_pressure_pa',
+      'd.nominal_temperature_k',
+      'd.approved_at',
+      'f.id as fit_id',
+      'f.model',
+      'f.parameters',
+      sql<ActivityModel | null>`f.activity`.as('activity'),
+      sql<unknown>`f.statistics`.as('statistics'),
+    ])
+    .where('d.state', 'in', ['approved', 'superseded'])
+    .where('d.system_id', 'in', systemIds)
+    .orderBy('d.version', 'desc')
+    .orderBy('d.approved_at', (ob) => ob.desc().nullsLast())
+    .orderBy('d.id')
+    .execute()
 }
