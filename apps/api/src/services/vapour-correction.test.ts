@@ -1,6 +1,7 @@
 /** Which virial vapour the vapour-correction check compares with (pure; no database). */
 import { describe, expect, it } from 'vitest'
-import { comparedVapour } from './vapour-correction.js'
+import type { PointRecord } from '../repositories/points.repository.js'
+import { comparedVapour, correctionPoint } from './vapour-correction.js'
 
 // Methanol's critical data and HOC parameters as the demo carries them (db/seeds/demo-properties.ts).
 const full = { Tc: 513.38, Pc: 8215850, omega: 0.5625, Vc: 113.828, radiusOfGyration: 1.536, associationEta: 1.63 }
@@ -28,5 +29,34 @@ describe('comparedVapour', () => {
     expect(comparedVapour(pair(noOmega, full) as never, { kind: 'ideal' })?.correlation).toBe('hayden-oconnell')
     expect(comparedVapour(pair(noOmega, noRD) as never, { kind: 'ideal' })).toBeNull()
     expect(comparedVapour(pair(null, full) as never, { kind: 'ideal' })).toBeNull()
+  })
+})
+
+describe('correctionPoint', () => {
+  const base = {
+    id: 'p1',
+    dataSetId: 'd1',
+    seq: 1,
+    sampleLabel: 'S',
+    temperatureK: 351.2,
+    pressurePa: 101325,
+    x1: 0.25,
+    x1Uncertainty: 0.002,
+    y1: 0.41,
+    y1Uncertainty: 0.0008,
+    pressureUncertaintyPa: null,
+    excluded: false,
+    exclusionReason: null,
+    uploadId: null,
+    calibrationId: null,
+    rowRefs: [],
+  } as unknown as PointRecord
+  it("judges a point against its own stored u(y₁) and σP, not the fits' generic defaults", () => {
+    expect(correctionPoint(base)).toMatchObject({ T: 351.2, P: 101325, x1: 0.25, y1: 0.41, sigmaY: 0.0008 })
+    expect(correctionPoint(base)).not.toHaveProperty('sigmaT')
+    const iso = correctionPoint({ ...base, pressureUncertaintyPa: 150 } as PointRecord)
+    expect(iso).toMatchObject({ sigmaP: 150, sigmaY: 0.0008 })
+    // no stored u(y₁) (liquid-only point or none given): thermo's default applies
+    expect(correctionPoint({ ...base, y1: null, y1Uncertainty: null } as PointRecord)).not.toHaveProperty('sigmaY')
   })
 })

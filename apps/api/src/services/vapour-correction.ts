@@ -41,6 +41,15 @@ export function comparedVapour(
   return null
 }
 
+/**
+ * A point as the comparison judges it: against its own stored uncertainties (u(y₁) from the calibration and
+ * replicates, σP of an isothermal point); a boiling temperature has no stored uncertainty, so thermo's default σT
+ * (0.1 K) applies. Fits weight points by thermo's defaults instead (enginePoint), which this does not change.
+ */
+export function correctionPoint(p: PointRecord) {
+  return { ...enginePoint(p), ...(p.y1Uncertainty ? { sigmaY: p.y1Uncertainty } : {}) }
+}
+
 /** Whether the engine (or the stored inputs) refused: then no figure rather than a broken page. */
 const refused = (err: unknown) => (err as { name?: string }).name === 'ThermoError' || err instanceof AppError
 
@@ -76,7 +85,7 @@ export async function vapourCorrectionOf(
     const all = await listFits(db, d.id)
     const fit = all.find((f) => f.id === d.recommendedFitId) ?? all.at(-1)
     const activity = (fit?.activity as unknown as ActivityModel | undefined) ?? { kind: 'ideal' }
-    const r = vaporCorrectionSize(binarySystem(inputs, activity), used.map(enginePoint), {
+    const r = vaporCorrectionSize(binarySystem(inputs, activity), used.map(correctionPoint), {
       kind: dataKindOf(d.layout),
     })
     const ideal = d.vaporModel.kind !== 'virial'
@@ -125,7 +134,7 @@ export async function setVapourCorrection(db: Db, fit: JointFitRecord): Promise<
       const d = (await findDataSet(db, m.dataSetId))!
       const used = (await listPoints(db, d.id)).filter((p) => !p.excluded)
       if (!used.length) continue
-      const r = vaporCorrectionSize(system, used.map(enginePoint), { kind: dataKindOf(d.layout) })
+      const r = vaporCorrectionSize(system, used.map(correctionPoint), { kind: dataKindOf(d.layout) })
       correlation = r.correlation
       members.push({ dataSetId: d.id, title: d.title, version: d.version, ...figures(r) })
     }
