@@ -97,4 +97,25 @@ describe('vaporChoiceOfEngine', () => {
       'virial gas, Hayden–O’Connell second virial coefficients (η12 = 1.3)',
     )
   })
+  it('engineVaporLabel says when the chemical theory of dimerisation runs (HOC, an η or η12 ≥ 4.5), and only then', () => {
+    const water = { Tc: 647.096, Pc: 22064000, omega: 0.3443, Vc: 55.948, RD: 0.615, eta: 1.7 }
+    const acid = { Tc: 591.95, Pc: 5.786e6, omega: 0.467, Vc: 177.6, RD: 2.595, eta: 4.5 }
+    const hoc = { kind: 'virial', correlation: 'hayden-oconnell' }
+    const chem =
+      'virial gas, Hayden–O’Connell second virial coefficients; carboxylic acid (η ≥ 4.5): fugacity coefficients by the chemical theory of dimerisation'
+    expect(engineVaporLabel({ ...hoc, components: [acid, water] })).toBe(chem)
+    expect(engineVaporLabel({ ...hoc, components: [water, acid], poynting: true })).toBe(
+      chem.replace('coefficients;', 'coefficients, with the Poynting factor;'),
+    )
+    expect(engineVaporLabel({ ...hoc, eta12: 4.5, components: [water, water] })).toBe(
+      chem.replace('coefficients;', 'coefficients (η12 = 4.5);'),
+    )
+    // just below the branch, and Tsonopoulos (which has no η), say nothing of it
+    expect(engineVaporLabel({ ...hoc, components: [{ ...acid, eta: 4.4999 }, water] })).toBe(
+      'virial gas, Hayden–O’Connell second virial coefficients',
+    )
+    expect(engineVaporLabel({ kind: 'virial', correlation: 'tsonopoulos', components: [acid, water] })).toBe(
+      'virial gas, Tsonopoulos second virial coefficients',
+    )
+  })
 })

@@ -156,9 +156,31 @@ export function vaporChoiceOfEngine(vapor: unknown): VaporModelChoice {
 }
 
 /**
+ * η (a component's association or the unlike pair's solvation) at or above which the engine's Hayden–O'Connell
+ * vapour is treated by the chemical theory of dimerisation (carboxylic acids); HOC_ACID_ETA of @ebullio/thermo.
+ */
+export const HOC_ACID_ETA = 4.5
+
+/** Whether a stored engine vapour runs the chemical theory of dimerisation (HOC with an η or η12 ≥ 4.5). */
+export function engineVaporDimerises(vapor: unknown): boolean {
+  const v = vapor as
+    { kind?: string; correlation?: string; eta12?: number; components?: { eta?: number }[] } | null | undefined
+  if (v?.kind !== 'virial' || v.correlation !== 'hayden-oconnell') return false
+  return (
+    (v.eta12 ?? 0) >= HOC_ACID_ETA ||
+    (Array.isArray(v.components) && v.components.some((c) => (c?.eta ?? 0) >= HOC_ACID_ETA))
+  )
+}
+
+/**
  * A stored engine vapour (a fit's or a joint fit's `options.vapor`, an export's `vapor`) in words, as every result
- * states it: {@link vaporModelLabel} of {@link vaporChoiceOfEngine}. One function for the API and the web.
+ * states it: {@link vaporModelLabel} of {@link vaporChoiceOfEngine}; a Hayden–O'Connell vapour with a carboxylic
+ * acid (it carries the components' η) adds that its fugacity coefficients come from the chemical theory of
+ * dimerisation. One function for the API and the web.
  */
 export function engineVaporLabel(vapor: unknown): string {
-  return vaporModelLabel(vaporChoiceOfEngine(vapor))
+  const label = vaporModelLabel(vaporChoiceOfEngine(vapor))
+  return engineVaporDimerises(vapor)
+    ? `${label}; carboxylic acid (η ≥ ${HOC_ACID_ETA}): fugacity coefficients by the chemical theory of dimerisation`
+    : label
 }

@@ -5,7 +5,7 @@ import { computedOn } from '../point-set.js'
 import type { ReportModel } from './report-model.js'
 import { C, grid, heading, keyValues, none } from './report-blocks.js'
 import { systemSetBlock } from './report-system-set.js'
-import { layoutLabel, objectiveLabel, vaporModelLabel } from '@ebullio/schemas'
+import { engineVaporLabel, layoutLabel, objectiveLabel, vaporModelLabel } from '@ebullio/schemas'
 import {
   calibrationModelName,
   conditionText,
@@ -183,16 +183,7 @@ export function fitsSection(m: ReportModel): Content {
         stack: [
           { text: params.join('\n'), color: ink },
           {
-            text: `Objective: ${objectiveLabel(o.objective)}. Vapour: ${vaporModelLabel(
-              o.vapor?.kind === 'virial'
-                ? {
-                    kind: 'virial',
-                    correlation: o.vapor.correlation === 'hayden-oconnell' ? 'hayden-oconnell' : 'tsonopoulos',
-                    poynting: !!o.vapor.poynting,
-                    ...(o.vapor.correlation === 'hayden-oconnell' && { eta12: o.vapor.eta12 ?? 0 }),
-                  }
-                : o.vapor,
-            )}.`,
+            text: `Objective: ${objectiveLabel(o.objective)}. Vapour: ${engineVaporLabel(o.vapor)}.`,
             fontSize: 7,
             color: C.muted,
           },
