@@ -27,6 +27,7 @@ import { DEMO_COMPONENTS, DEMO_SYSTEMS, demoVaporPressure } from './demo-systems
 import { calibrationCsv } from './gc-generator.js'
 import { jointScenario } from './joint-scenario.js'
 import { mixedJointScenario } from './joint-mixed-scenario.js'
+import { acidScenario } from './acid-scenario.js'
 import { DEMO_USERS } from './users.js'
 
 export interface SeedContext {
@@ -148,4 +149,6 @@ export async function seedLab(db: Kysely<Database>, ids: Record<string, string>)
   await jointScenario({ db: kdb, config, users, systemIds })
   await vapourAndIsothermalDataSets({ db: kdb, config, users, systemIds })
   await mixedJointScenario({ db: kdb, config, users, systemIds })
+  // after the others: acetic acid + water under a dimerising (Hayden–O'Connell) vapour, a draft
+  await acidScenario({ db: kdb, config, users, systemIds })
 }
