@@ -2,6 +2,7 @@ import type { BinaryPoint } from '../fitting/fit-input.js'
 import { spanWarnings } from '../vapor-pressure/compiled.js'
 import { saturationTemperature } from '../vapor-pressure/index.js'
 import type { VaporPressureModel } from '../types.js'
+import { associationWarnings } from '../virial/model.js'
 import type { VaporModel } from '../virial/virial-types.js'
 import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints } from './area-integrand.js'
 
@@ -47,7 +48,11 @@ export function heringtonAreaTest(
   const Tmin = Math.min(...temps)
   const Tmax = Math.max(...temps)
   const J = (150 * (Tmax - Tmin)) / Tmin
-  const warnings: string[] = [...twoLayerWarnings(points), ...spanWarnings(options.vaporPressure, Tmin, Tmax)]
+  const warnings: string[] = [
+    ...(options.vapor ? associationWarnings(options.vapor) : []),
+    ...twoLayerWarnings(points),
+    ...spanWarnings(options.vaporPressure, Tmin, Tmax),
+  ]
   const pressures = kept.map((p) => p.P)
   if (Math.max(...pressures) > 1.01 * Math.min(...pressures)) {
     warnings.push('The pressures differ by more than 1 %; the area test is meant for isobaric data.')

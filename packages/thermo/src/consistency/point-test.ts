@@ -2,6 +2,7 @@ import { fitTemperatureOnly } from '../fitting/fit-binary.js'
 import { compiledVapor } from '../fitting/fit-input.js'
 import { point, solvePoint } from '../fitting/model-point.js'
 import { compileVaporPressure } from '../vapor-pressure/compiled.js'
+import { associationWarnings } from '../virial/model.js'
 import type { VaporModel } from '../virial/virial-types.js'
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { FittableModel, UniquacStructure } from '../fitting/parameters.js'
@@ -65,6 +66,7 @@ export function pointTest(allPoints: BinaryPoint[], options: PointTestOptions): 
   const meanAbsDeltaY = used.reduce((s, r) => s + Math.abs(r.dy), 0) / used.length
   const temps = fit.index.map((i) => points[i].T)
   const warnings = [
+    ...(options.vapor ? associationWarnings(options.vapor) : []),
     ...twoLayerWarnings(allPoints),
     ...spanWarnings(options.vaporPressure, Math.min(...temps), Math.max(...temps)),
   ]

@@ -1,5 +1,6 @@
 import type { BinaryPoint } from '../fitting/fit-input.js'
 import type { VaporPressureModel } from '../types.js'
+import { associationWarnings } from '../virial/model.js'
 import type { VaporModel } from '../virial/virial-types.js'
 import { areaIntegrals, twoLayerWarnings, withoutTwoLayerPoints, type AreaIntegrandPoint } from './area-integrand.js'
 
@@ -34,7 +35,7 @@ export function redlichKisterAreaTest(
   const kept = withoutTwoLayerPoints(points).filter((p) => !p.excluded)
   const temps = kept.map((p) => p.T)
   const T = temps.reduce((s, t) => s + t, 0) / temps.length
-  const warnings: string[] = twoLayerWarnings(points)
+  const warnings: string[] = [...(options.vapor ? associationWarnings(options.vapor) : []), ...twoLayerWarnings(points)]
   if (Math.max(...temps) - Math.min(...temps) > 0.5) {
     warnings.push(
       'The temperatures differ by more than 0.5 K; the Redlich–Kister area test is meant for isothermal data.',

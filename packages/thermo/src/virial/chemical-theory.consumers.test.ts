@@ -1,9 +1,15 @@
 import { describe, expect, it } from 'vitest'
-import { heringtonAreaTest } from '../consistency/index.js'
+import { heringtonAreaTest, pointTest, redlichKisterAreaTest } from '../consistency/index.js'
 import { phaseDiagram } from '../equilibrium/index.js'
 import { fitBinary, predictionBand } from '../fitting/index.js'
 import type { BinarySystem } from '../types.js'
-import { bubbleTemperatureGammaPhi, vaporCorrectionSize, type VaporModel, type VirialComponent } from './index.js'
+import {
+  bubblePressureGammaPhi,
+  bubbleTemperatureGammaPhi,
+  vaporCorrectionSize,
+  type VaporModel,
+  type VirialComponent,
+} from './index.js'
 
 // The acetic acid (1) + water (2) system of chemical-theory.test.ts: HOC data from memory (Prausnitz et al., 1980),
 // Antoine of acetic acid from Lange's Handbook (from memory), water from SVNA 7th ed. Table B.2, NRTL invented.
@@ -71,6 +77,23 @@ describe('every consumer of φ goes through the chemical theory (acetic acid + w
     const ideal = heringtonAreaTest(points, { vaporPressure: liquid.vaporPressure })
     expect(chem.D).toBeCloseTo(1.63, 1)
     expect(ideal.D).toBeCloseTo(40.6, 0)
+    // the result states the treatment it ran under (as every other result does); an ideal reduction does not
+    expect(chem.warnings.filter((w) => w.includes('chemical theory of dimerisation'))).toHaveLength(1)
+    expect(ideal.warnings.some((w) => w.includes('chemical theory'))).toBe(false)
+  })
+
+  it('the point test and the isothermal area test state the chemical theory too', () => {
+    const pt = pointTest(points, { vaporPressure: liquid.vaporPressure, model: 'nrtl', alpha: 0.3, vapor })
+    expect(pt.warnings.filter((w) => w.includes('chemical theory of dimerisation'))).toHaveLength(1)
+    // exact model points under the same vapour: the point test passes easily
+    expect(pt.meanAbsDeltaY).toBeLessThan(0.002)
+    const T = 370
+    const iso = [0.1, 0.3, 0.5, 0.7, 0.9].map((x1) => {
+      const r = bubblePressureGammaPhi(liquid, { T, x1 }, vapor)
+      return { T, P: r.P, x1, y1: r.y1 }
+    })
+    const rk = redlichKisterAreaTest(iso, { vaporPressure: liquid.vaporPressure, vapor })
+    expect(rk.warnings.filter((w) => w.includes('chemical theory of dimerisation'))).toHaveLength(1)
   })
 
   it('a prediction band of a fit under the dimerising vapour is centred on its bubble points', () => {
