@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest'
 import type { Fit } from '../../api/datasets'
-import { atBound, bestComparableAic, boundNote, notComparableReason, paramSymbol, paramValueText } from './fit-display'
+import {
+  atBound,
+  bestComparableAic,
+  boundNote,
+  fitMethodText,
+  notComparableReason,
+  paramSymbol,
+  paramValueText,
+} from './fit-display'
 
 const fit = (parameters: Fit['parameters'], statistics: Record<string, unknown> = { converged: true }): Fit => ({
   id: 'f',
@@ -82,5 +90,28 @@ describe('fits on other points', () => {
         { f: stale, aic: -90 },
       ]),
     ).toBe(-40)
+  })
+})
+
+describe('fitMethodText', () => {
+  const comp = (eta: number) => ({ Tc: 591.95, Pc: 5.786e6, RD: 2.595, eta })
+  const hoc = (eta1: number) => ({
+    kind: 'virial',
+    correlation: 'hayden-oconnell',
+    components: [comp(eta1), comp(1.7)],
+  })
+  it('names the objective and the vapour, and the chemical theory when the vapour dimerises (η ≥ 4.5)', () => {
+    expect(fitMethodText({ options: { objective: 'bubble-point' }, statistics: {} })).toBe(
+      'on ΔT and Δy₁ · ideal vapour',
+    )
+    expect(fitMethodText({ options: { objective: 'bubble-point', vapor: hoc(4.5) }, statistics: {} })).toBe(
+      "on ΔT and Δy₁ · virial vapour (Hayden–O’Connell), chemical theory of dimerisation",
+    )
+    expect(fitMethodText({ options: { objective: 'bubble-pressure', vapor: hoc(1.63) }, statistics: {} })).toBe(
+      "on ΔP and Δy₁ · virial vapour (Hayden–O’Connell)",
+    )
+    expect(fitMethodText({ options: { objective: 'bubble-point' }, statistics: { method: 'barker' } })).toBe(
+      "Barker's method (ΔT only) · ideal vapour",
+    )
   })
 })

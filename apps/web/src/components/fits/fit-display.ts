@@ -2,6 +2,7 @@
  * How a fit's parameters and its standing among the other fits are shown: symbols (α, never "alpha"),
  * a parameter sitting on its bound (no ±), and which fits may take part in the AIC comparison and be recommended.
  */
+import { engineVaporDimerises, virialCorrelationLabel } from '@ebullio/schemas'
 import type { Fit } from '../../api/datasets'
 
 /**
@@ -72,4 +73,26 @@ export function bestComparableAic(rows: { f: Fit; aic: number | null }[]): numbe
   return Math.min(
     ...rows.filter((r) => r.aic !== null && notComparableReason(r.f) === null).map((r) => r.aic as number),
   )
+}
+
+/** Objective and vapour model of a fit, in words ("ΔP, Δy · virial vapour"; Barker's method without y). */
+export function fitMethodText(f: Pick<Fit, 'options' | 'statistics'>): string {
+  const o = f.options as {
+    objective?: string
+    vapor?: { kind: string; correlation?: string; poynting?: boolean; eta12?: number }
+  }
+  const stats = f.statistics as { method?: string }
+  const objective =
+    stats.method === 'barker'
+      ? `Barker's method (${o.objective === 'bubble-pressure' ? 'ΔP' : 'ΔT'} only)`
+      : { 'bubble-pressure': 'on ΔP and Δy₁', activity: 'on ln γ', 'bubble-point': 'on ΔT and Δy₁' }[
+          o.objective ?? 'bubble-point'
+        ]
+  const vapour =
+    o.vapor?.kind === 'virial'
+      ? `virial vapour (${virialCorrelationLabel(o.vapor.correlation)}${o.vapor.correlation === 'hayden-oconnell' && o.vapor.eta12 ? `, η12 ${o.vapor.eta12}` : ''}${o.vapor.poynting ? ', Poynting' : ''})`
+      : 'ideal vapour'
+  // a dimerising (carboxylic-acid) vapour: φ came from the chemical theory, not the truncated virial equation
+  const dimer = engineVaporDimerises(o.vapor) ? ', chemical theory of dimerisation' : ''
+  return `${objective} · ${vapour}${dimer}`
 }
