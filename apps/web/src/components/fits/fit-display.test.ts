@@ -105,10 +105,10 @@ describe('fitMethodText', () => {
       'on ΔT and Δy₁ · ideal vapour',
     )
     expect(fitMethodText({ options: { objective: 'bubble-point', vapor: hoc(4.5) }, statistics: {} })).toBe(
-      "on ΔT and Δy₁ · virial vapour (Hayden–O’Connell), chemical theory of dimerisation",
+      'on ΔT and Δy₁ · virial vapour (Hayden–O’Connell), chemical theory of dimerisation',
     )
     expect(fitMethodText({ options: { objective: 'bubble-pressure', vapor: hoc(1.63) }, statistics: {} })).toBe(
-      "on ΔP and Δy₁ · virial vapour (Hayden–O’Connell)",
+      'on ΔP and Δy₁ · virial vapour (Hayden–O’Connell)',
     )
     expect(fitMethodText({ options: { objective: 'bubble-point' }, statistics: { method: 'barker' } })).toBe(
       "Barker's method (ΔT only) · ideal vapour",
