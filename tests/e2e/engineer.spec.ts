@@ -38,6 +38,11 @@ test('an engineer opens an approved system, changes the pressure, reads the azeo
   await expect(table).toContainText(SYSTEM)
   await expect(table).toContainText(VERSION)
   await expect(table).toContainText('Wilson')
+  // the system's signed set is named first, with the range it was fitted over (the same figures the system page
+  // gives: the static cell's bubble pressures at 55 °C up to the 1 atm series' pressures)
+  const set = table.locator('tr', { hasText: SYSTEM }).getByTestId('catalogue-set')
+  await expect(set).toContainText('Wilson (joint, 2 data sets)')
+  await expect(set).toContainText('signed set for the system, used by default · 72.75 kPa to 101.66 kPa')
   await snapTop(page, 'eng-01-catalogue')
   await table.getByRole('link', { name: SYSTEM }).click()
   await expect(page.getByTestId('system-title')).toHaveText(SYSTEM)
