@@ -3,47 +3,12 @@ import { heringtonAreaTest, pointTest, redlichKisterAreaTest } from '../consiste
 import { phaseDiagram } from '../equilibrium/index.js'
 import { fitBinary, predictionBand } from '../fitting/index.js'
 import type { BinarySystem } from '../types.js'
-import {
-  bubblePressureGammaPhi,
-  bubbleTemperatureGammaPhi,
-  vaporCorrectionSize,
-  type VaporModel,
-  type VirialComponent,
-} from './index.js'
+import { acidWaterLiquid, acidWaterVapour } from './acid-water.fixture.js'
+import { bubblePressureGammaPhi, bubbleTemperatureGammaPhi, vaporCorrectionSize } from './index.js'
 
-// The acetic acid (1) + water (2) system of chemical-theory.test.ts: HOC data from memory (Prausnitz et al., 1980),
-// Antoine of acetic acid from Lange's Handbook (from memory), water from SVNA 7th ed. Table B.2, NRTL invented.
-const aceticAcid: VirialComponent = {
-  Tc: 591.95,
-  Pc: 5.786e6,
-  omega: 0.467,
-  Vc: 177.6,
-  RD: 2.595,
-  dipole: 1.74,
-  eta: 4.5,
-}
-const water: VirialComponent = {
-  Tc: 647.096,
-  Pc: 22064000,
-  omega: 0.3443,
-  Vc: 55.948,
-  RD: 0.615,
-  dipole: 1.83,
-  eta: 1.7,
-}
-const vapor: VaporModel = {
-  kind: 'virial',
-  correlation: 'hayden-oconnell',
-  components: [aceticAcid, water],
-  eta12: 2.5,
-}
-const liquid: BinarySystem = {
-  vaporPressure: [
-    { kind: 'antoine', A: 7.38782, B: 1533.313, C: 222.309, log: 'log10', pressureUnit: 'mmHg', temperatureUnit: 'C' },
-    { kind: 'antoine', A: 16.3872, B: 3885.7, C: 230.17, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' },
-  ],
-  activity: { kind: 'nrtl', b12: 2000, b21: 1000, alpha: 0.3 },
-}
+// The acetic acid (1) + water (2) system of chemical-theory.test.ts (acid-water.fixture.ts; sources there).
+const vapor = acidWaterVapour
+const liquid = acidWaterLiquid
 const system: BinarySystem = { ...liquid, vapor }
 const points = [0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95].map((x1) => {
   const r = bubbleTemperatureGammaPhi(liquid, { P: 101325, x1 }, vapor)

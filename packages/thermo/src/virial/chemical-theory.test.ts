@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { bubblePressure, bubbleTemperature } from '../equilibrium/index.js'
 import { activityCoefficients } from '../index.js'
 import { fitBinary } from '../fitting/index.js'
-import { R, type BinarySystem } from '../types.js'
+import { R } from '../types.js'
 import { lnPhiChemical, pureMonomerFraction, solveSpecies } from './chemical-theory.js'
 import {
   bubblePressureGammaPhi,
@@ -17,51 +17,17 @@ import {
   type VaporModel,
   type VirialComponent,
 } from './index.js'
+import { aceticAcid, acidWaterLiquid, acidWaterVapour, water } from './acid-water.fixture.js'
 
-// Acetic acid: Tc, Pc (from memory), HOC RD 2.595 Å, 1.74 D, η 4.5 (HOC tables as reproduced in Prausnitz et al.,
-// 1980; from memory) — the same component as hayden-oconnell.test.ts. Water as there.
-const aceticAcid: VirialComponent = {
-  Tc: 591.95,
-  Pc: 5.786e6,
-  omega: 0.467,
-  Vc: 177.6,
-  RD: 2.595,
-  dipole: 1.74,
-  eta: 4.5,
-}
-const water: VirialComponent = {
-  Tc: 647.096,
-  Pc: 22064000,
-  omega: 0.3443,
-  Vc: 55.948,
-  RD: 0.615,
-  dipole: 1.83,
-  eta: 1.7,
-}
 const benzene: VirialComponent = { Tc: 562.02, Pc: 4907277, omega: 0.211, Vc: 256.34, RD: 3.004 }
-// η12 = 2.5 for acid–water: an illustrative solvation value (invented for these tests, below the acid branch).
-const acidWater: VaporModel = {
-  kind: 'virial',
-  correlation: 'hayden-oconnell',
-  components: [aceticAcid, water],
-  eta12: 2.5,
-}
+const acidWater = acidWaterVapour
 const pureAcid: VaporModel = {
   kind: 'virial',
   correlation: 'hayden-oconnell',
   components: [aceticAcid, { ...aceticAcid }],
   eta12: 4.5,
 }
-// Antoine of acetic acid: log10(P/mmHg) = 7.38782 − 1533.313/(t/°C + 222.309) (Lange's Handbook of Chemistry,
-// Antoine table; from memory); water: Smith, Van Ness & Abbott, 7th ed., Table B.2. NRTL b12 = 2000, b21 = 1000 J/mol,
-// α = 0.3: invented for these tests (the checks are self-consistency and qualitative, not a published system).
-const system: BinarySystem = {
-  vaporPressure: [
-    { kind: 'antoine', A: 7.38782, B: 1533.313, C: 222.309, log: 'log10', pressureUnit: 'mmHg', temperatureUnit: 'C' },
-    { kind: 'antoine', A: 16.3872, B: 3885.7, C: 230.17, log: 'ln', pressureUnit: 'kPa', temperatureUnit: 'C' },
-  ],
-  activity: { kind: 'nrtl', b12: 2000, b21: 1000, alpha: 0.3 },
-}
+const system = acidWaterLiquid
 const psat = (T: number): [number, number] => [
   133.322387415 * 10 ** (7.38782 - 1533.313 / (T - 273.15 + 222.309)),
   1000 * Math.exp(16.3872 - 3885.7 / (T - 273.15 + 230.17)),
