@@ -21,6 +21,7 @@ import { seededRandom } from '@ebullio/thermo/random'
 import { PDFParse } from 'pdf-parse'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_COMPONENTS, demoVaporPressure } from '../../../db/seeds/demo-systems.js'
+import { ACETIC_ACID, ACETIC_ACID_ANTOINE } from '../../../db/seeds/acid-scenario.js'
 import { DEMO_PROPERTIES } from '../../../db/seeds/demo-properties.js'
 import { buildLab, labCounts, type Lab } from './lab-fixture.js'
 import { createTestContext, PASSWORD, resetDatabase, type TestContext } from './helpers.js'
@@ -28,32 +29,12 @@ import { createTestContext, PASSWORD, resetDatabase, type TestContext } from './
 let t: TestContext
 let lab: Lab
 
-const HOC_SOURCE =
-  "RD and η: Hayden & O'Connell, Ind. Eng. Chem. Process Des. Dev. 14 (1975) 209, tables as reproduced in Prausnitz et al. (1980) (from memory)"
-// Acetic acid: Tc 591.95 K, Pc 5.786 MPa, ω 0.467, Vc 177.6 cm³/mol (from memory, the values of the engine's
-// chemical-theory.test.ts); HOC RD 2.595 Å, dipole 1.74 D, η 4.5 (HOC tables, from memory, as there).
-const ACID_PROPERTIES = {
-  Tc: 591.95,
-  Pc: 5.786e6,
-  omega: 0.467,
-  Vc: 177.6,
-  dipole: 1.74,
-  radiusOfGyration: 2.595,
-  associationEta: 4.5,
-  associationSource: HOC_SOURCE,
-  source: 'Tc, Pc, ω, Vc, dipole: common handbook values (from memory)',
-}
-// Antoine of acetic acid: log10(P/mmHg) = 7.38782 − 1533.313/(t/°C + 222.309) (Lange's Handbook of Chemistry,
-// Antoine table; from memory, as in chemical-theory.test.ts). Water: the demo's SVNA 7th ed. Table B.2 set.
-const ACID_ANTOINE: VaporPressureModel = {
-  kind: 'antoine',
-  A: 7.38782,
-  B: 1533.313,
-  C: 222.309,
-  log: 'log10',
-  pressureUnit: 'mmHg',
-  temperatureUnit: 'C',
-}
+// Acetic acid as the demo carries it (db/seeds/acid-scenario.ts: Tc, Pc, ω, Vc, dipole from memory; HOC RD 2.595 Å,
+// η 4.5 from the HOC tables, from memory; the values of the engine's acid-water.fixture.ts). Its Antoine set:
+// log10(P/mmHg) = 7.38782 − 1533.313/(t/°C + 222.309) (Lange's Handbook of Chemistry; from memory). Water: the demo's
+// SVNA 7th ed. Table B.2 set.
+const ACID_PROPERTIES = ACETIC_ACID.properties
+const ACID_ANTOINE: VaporPressureModel = ACETIC_ACID_ANTOINE
 const VP: [VaporPressureModel, VaporPressureModel] = [ACID_ANTOINE, demoVaporPressure('water')]
 // Water: the demo's record (critical data from chemicals 1.5.2; RD 0.615 Å, η 1.7 from the HOC tables, from memory).
 const WATER_PROPERTIES = DEMO_PROPERTIES['7732-18-5']
