@@ -97,15 +97,17 @@ export async function getDataSetDetail(db: Db, user: SessionUser, id: string) {
   const pts = await points.listPoints(db, id)
   // Every derived result says which point set it was computed on and whether that is still the current one.
   const pointSet = pointSetOf(pts, d.vaporModel)
+  const system = await getSystem(db, d.systemId)
+  const fits = await listFits(db, id)
   return {
     ...d,
     pointSetDigest: pointSet.digest,
     includedPointCount: pointSet.included,
-    system: await getSystem(db, d.systemId),
+    system,
     points: pts,
-    fits: (await listFits(db, id)).map((f) => withStale(f, pointSet.digest)),
+    fits: fits.map((f) => withStale(f, pointSet.digest)),
     consistency: (await listConsistency(db, id)).map((c) => withStale(c, pointSet.digest)),
-    vapourCorrection: await vapourCorrectionOf(db, d, pts),
+    vapourCorrection: await vapourCorrectionOf(db, d, pts, { system, fits }),
     comments: full ? await listComments(db, id) : [],
     uploads: full ? await listUploadsOf(db, id) : [],
     /** the calibrations behind the points (file, date, model, coefficients ± u, range) */

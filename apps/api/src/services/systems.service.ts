@@ -111,7 +111,15 @@ export function engineVapor(system: repo.SystemRecord, choice: VaporModelChoice 
 
 /** What thermo needs to compute with this system. */
 export async function engineInputs(db: Db, systemId: string, vapor?: VaporModelChoice): Promise<EngineInputs> {
-  const system = await getSystem(db, systemId)
+  return engineInputsOf(db, await getSystem(db, systemId), vapor)
+}
+
+/** {@link engineInputs} for a system record already read (no second read of the system). */
+export async function engineInputsOf(
+  db: Db,
+  system: repo.SystemRecord,
+  vapor?: VaporModelChoice,
+): Promise<EngineInputs> {
   const sets = await listVaporPressureSets(db, [system.component1.id, system.component2.id])
   const s1 = pick(sets, system.component1.id, system.component1.name)
   const s2 = pick(sets, system.component2.id, system.component2.name)

@@ -17,12 +17,12 @@ import type { Db } from '../db/index.js'
 import { AppError } from '../errors/index.js'
 import type { DataSetRecord } from '../repositories/datasets.repository.js'
 import { findDataSet } from '../repositories/datasets.repository.js'
-import { listFits } from '../repositories/fits.repository.js'
+import { listFits, type FitRecord } from '../repositories/fits.repository.js'
 import type { JointFitRecord } from '../repositories/joint-fits.repository.js'
 import { listMembers } from '../repositories/joint-fits.repository.js'
 import { listPoints, type PointRecord } from '../repositories/points.repository.js'
 import { enginePoint } from './point-set.js'
-import { binarySystem, engineInputs, getSystem } from './systems.service.js'
+import { binarySystem, engineInputsOf, getSystem } from './systems.service.js'
 
 type SystemRecord = Awaited<ReturnType<typeof getSystem>>
 
@@ -75,14 +75,17 @@ export async function vapourCorrectionOf(
   db: Db,
   d: DataSetRecord,
   pts: PointRecord[],
+  read?: { system: SystemRecord; fits: FitRecord[] },
 ): Promise<VapourCorrectionDto | null> {
   const used = pts.filter((p) => !p.excluded)
   if (used.length === 0) return null
-  const choice = comparedVapour(await getSystem(db, d.systemId), d.vaporModel)
+  // the data-set detail passes the system and fits it has already read
+  const system = read?.system ?? (await getSystem(db, d.systemId))
+  const choice = comparedVapour(system, d.vaporModel)
   if (!choice) return null
   try {
-    const inputs = await engineInputs(db, d.systemId, choice)
-    const all = await listFits(db, d.id)
+    const inputs = await engineInputsOf(db, system, choice)
+    const all = read?.fits ?? (await listFits(db, d.id))
     const fit = all.find((f) => f.id === d.recommendedFitId) ?? all.at(-1)
     const activity = (fit?.activity as unknown as ActivityModel | undefined) ?? { kind: 'ideal' }
     const r = vaporCorrectionSize(binarySystem(inputs, activity), used.map(correctionPoint), {
@@ -119,15 +122,15 @@ export async function vapourCorrectionOf(
 export async function setVapourCorrection(db: Db, fit: JointFitRecord): Promise<SetVapourCorrectionDto | null> {
   const stored = fit.options.vapor as VaporModel | undefined
   const ideal = stored?.kind !== 'virial'
-  const choice = ideal ? comparedVapour(await getSystem(db, fit.systemId), { kind: 'ideal' }) : null
+  const record = await getSystem(db, fit.systemId)
+  const choice = ideal ? comparedVapour(record, { kind: 'ideal' }) : null
   if (ideal && !choice) return null
   try {
+    // one read of the vapour-pressure sets; with an ideal set, the vapour it is compared with comes along
+    const inputs = await engineInputsOf(db, record, choice ?? undefined)
     // the set's own virial vapour as it was fitted with, else the one an ideal vapour is compared with
-    const vapor = stored?.kind === 'virial' ? stored : (await engineInputs(db, fit.systemId, choice!)).vapor
-    const system = {
-      ...binarySystem(await engineInputs(db, fit.systemId), fit.activity as unknown as ActivityModel),
-      vapor,
-    }
+    const vapor = stored?.kind === 'virial' ? stored : inputs.vapor
+    const system = { ...binarySystem(inputs, fit.activity as unknown as ActivityModel), vapor }
     const members: SetVapourCorrectionDto['members'] = []
     let correlation: SetVapourCorrectionDto['correlation'] = vapor.kind === 'virial' ? vapor.correlation : 'tsonopoulos'
     for (const m of await listMembers(db, fit.id)) {
