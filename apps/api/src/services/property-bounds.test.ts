@@ -3,8 +3,8 @@
  * must be the engine's own (packages/thermo/src/virial/model.ts), or a component the API accepts would be refused by
  * every Hayden–O'Connell calculation. Checked against the engine's behaviour at and just beyond each bound.
  */
-import { MAX_ASSOCIATION_ETA, MAX_RADIUS_OF_GYRATION } from '@ebullio/schemas'
-import { checkVaporModel, MAX_HOC_ETA, type VaporModel } from '@ebullio/thermo'
+import { engineVaporDimerises, MAX_ASSOCIATION_ETA, MAX_RADIUS_OF_GYRATION } from '@ebullio/schemas'
+import { checkVaporModel, MAX_HOC_ETA, usesChemicalTheory, type VaporModel } from '@ebullio/thermo'
 import { describe, expect, it } from 'vitest'
 
 // Acetone's critical data (values only need to pass the engine's check).
@@ -47,5 +47,21 @@ describe("schemas' property bounds agree with the engine's", () => {
     expect(rangeRefusal(hoc(MAX_RADIUS_OF_GYRATION + 1e-9, 0))).toBe(
       `Hayden–O'Connell needs the mean radius of gyration RD of component 1 (Å, from 0 to ${MAX_RADIUS_OF_GYRATION}); got ${MAX_RADIUS_OF_GYRATION + 1e-9}.`,
     )
+  })
+  it('the chemical theory: the labels say it ran exactly when the engine runs it (η or η12 at or above 4.5)', () => {
+    // engineVaporLabel (schemas) words a fit's vapour; it must not claim, or omit, the engine's treatment
+    for (const [eta, eta12] of [
+      [4.5, 0],
+      [4.4999, 0],
+      [0, 4.5],
+      [0, 4.4999],
+      [10, 10],
+      [0, 0],
+    ]) {
+      const v = hoc(8, eta, eta12)
+      expect(engineVaporDimerises(v)).toBe(usesChemicalTheory(v))
+    }
+    expect(usesChemicalTheory(hoc(8, 4.5))).toBe(true)
+    expect(usesChemicalTheory(hoc(8, 4.4999))).toBe(false)
   })
 })
