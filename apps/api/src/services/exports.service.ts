@@ -18,6 +18,7 @@ import {
   type CsvCell,
 } from '@ebullio/schemas/csv-exports'
 import { dataKindOf, fitLabel, memberConditionText, vaporModelLabel } from '@ebullio/schemas'
+import type { VaporModel } from '@ebullio/thermo'
 
 /** The file-name stem of a data set version's files (`éthanol-water-v2`): the shared slug, which keeps every letter. */
 export function fileStem(d: { title: string; version: number }): string {
@@ -352,22 +353,8 @@ function citationLine(c: repo.DataSetRecord['citation']): string | null {
 
 /** "ideal" or "virial tsonopoulos; poynting=false; Tc1=…; …" — every number a virial vapour used, in one cell. */
 function vapourLine(v: Record<string, unknown> | { kind: string }): string {
-  const o = v as {
-    kind: string
-    correlation?: string
-    poynting?: boolean
-    eta12?: number
-    components?: {
-      Tc: number
-      Pc: number
-      omega: number
-      Vc: number
-      tsonopoulos?: { a: number; b: number }
-      RD?: number
-      dipole?: number
-      eta?: number
-    }[]
-  }
+  // the vapour as thermo stored it with the fit (its own type; stored JSON, so read defensively below)
+  const o = v as VaporModel
   if (o.kind !== 'virial') return 'ideal'
   const hoc = o.correlation === 'hayden-oconnell'
   const parts = [`virial ${o.correlation ?? 'tsonopoulos'}`, `poynting=${o.poynting ? 'true' : 'false'}`]
