@@ -58,10 +58,12 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
       return { d: null, error: errorText(e) }
     }
   })
+  /** The page computes with the system's recommended parameter set rather than one version's fit. */
+  const onSystemSet = computed(() => fitId.value?.startsWith(SYSTEM_SET_PREFIX) === true)
   /** The activity model is extrapolated in temperature when the pressure is more than 25 % from the measured one. */
   // With the system's recommended set the fitted pressure range says it instead (its own warning on the page).
   const farFrom = computed(() =>
-    !fitId.value?.startsWith(SYSTEM_SET_PREFIX) &&
+    !onSystemSet.value &&
     version.value?.nominalPressurePa &&
     Math.abs(pressurePa.value / version.value.nominalPressurePa - 1) > 0.25
       ? proseP(prefs, version.value.nominalPressurePa)
@@ -97,7 +99,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
    * the page computes with the system's recommended set (then {@link setVapourWarning} speaks for its members).
    */
   const vapourWarning = computed(() => {
-    if (fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
+    if (onSystemSet.value) return null
     const c = measured.value?.vapourCorrection
     return c?.exceeds ? c : null
   })
@@ -107,7 +109,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
    * correlation compared and those members with their figures; null otherwise.
    */
   const setVapourWarning = computed(() => {
-    if (!fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
+    if (!onSystemSet.value) return null
     const c = params.value?.systemRecommendedSet?.vapourCorrection
     if (!c?.exceeds) return null
     return { correlation: c.correlation, members: c.members.filter((m) => m.exceedsUncertainty) }
@@ -125,7 +127,7 @@ export function useSystemDesign({ params, fitId, pressurePa, measured, version, 
    */
   const recommendedRange = computed(() => {
     const r = params.value?.systemRecommendedSet
-    if (!r || !fitId.value?.startsWith(SYSTEM_SET_PREFIX)) return null
+    if (!r || !onSystemSet.value) return null
     return { ...r.range, where: pressureAgainstRange(pressurePa.value, r.range), set: r }
   })
   return {
